@@ -1,0 +1,108 @@
+// The one place that reads the environment. Fails fast, naming the variable and what it expects.
+import { z } from 'zod'
+
+const bool = z
+  .enum(['true', 'false', '1', '0', 'yes', 'no'])
+  .transform((v) => v === 'true' || v === '1' || v === 'yes')
+
+const port = z.coerce.number().int().min(1).max(65535)
+
+const schema = z.object({
+  NODE_ENV: z.enum(['development', 'production', 'test']).default('development'),
+  LUMENYARD_HOST: z.string().min(1).default('127.0.0.1'),
+  LUMENYARD_PORT: port.default(5480),
+  LUMENYARD_PUBLIC_URL: z.url().optional(),
+  LUMENYARD_LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
+
+  LUMENYARD_DB_HOST: z.string().min(1).default('127.0.0.1'),
+  LUMENYARD_DB_PORT: port.default(3406),
+  LUMENYARD_DB_USER: z.string().min(1).default('lumenyard_app'),
+  LUMENYARD_DB_PASSWORD: z.string().min(1, 'LUMENYARD_DB_PASSWORD is required (npm start sets it for the embedded database)'),
+  LUMENYARD_DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('lumenyard'),
+  LUMENYARD_DB_POOL: z.coerce.number().int().min(2).max(500).default(40),
+
+  LUMENYARD_SESSION_SECRET: z.string().min(32, 'must be at least 32 characters'),
+  LUMENYARD_SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
+  LUMENYARD_SESSION_MAX_HOURS: z.coerce.number().int().min(1).max(24 * 7).default(12),
+  LUMENYARD_SECURE_COOKIES: bool.default(false),
+  LUMENYARD_TRUST_PROXY: bool.default(false),
+
+  LUMENYARD_SIGNIN_FAILS_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
+  LUMENYARD_SIGNIN_FAILS_PER_IP: z.coerce.number().int().min(1).default(50),
+  LUMENYARD_SIGNIN_LOCK_MINUTES: z.coerce.number().int().min(1).default(15),
+
+  LUMENYARD_SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  LUMENYARD_SMTP_PORT: port.default(2525),
+  LUMENYARD_SMTP_SECURE: bool.default(false),
+  LUMENYARD_SMTP_USER: z.string().optional(),
+  LUMENYARD_SMTP_PASSWORD: z.string().optional(),
+  LUMENYARD_MAIL_FROM: z.string().default('Lumenyard <purchasing@lumenyard.invalid>'),
+
+  LUMENYARD_UPLOAD_MAX_MB: z.coerce.number().min(0.1).max(50).default(5),
+})
+
+export interface AppConfig {
+  env: 'development' | 'production' | 'test'
+  host: string
+  port: number
+  publicUrl?: string
+  logLevel: string
+  db: { host: string; port: number; user: string; password: string; database: string; pool: number }
+  session: {
+    secret: string
+    idleMinutes: number
+    maxHours: number
+    secureCookies: boolean
+    trustProxy: boolean
+  }
+  signin: { failsPerAccount: number; failsPerIp: number; lockMinutes: number }
+  smtp: { host: string; port: number; secure: boolean; user?: string; password?: string; from: string }
+  uploadMaxBytes: number
+}
+
+export class ConfigError extends Error {}
+
+export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
+  const parsed = schema.safeParse(env)
+  if (!parsed.success) {
+    const lines = parsed.error.issues.map((i) => `  ${i.path.join('.')}: ${i.message}`)
+    throw new ConfigError(`Lumenyard cannot start: bad configuration\n${lines.join('\n')}`)
+  }
+  const e = parsed.data
+  return {
+    env: e.NODE_ENV,
+    host: e.LUMENYARD_HOST,
+    port: e.LUMENYARD_PORT,
+    publicUrl: e.LUMENYARD_PUBLIC_URL,
+    logLevel: e.LUMENYARD_LOG_LEVEL,
+    db: {
+      host: e.LUMENYARD_DB_HOST,
+      port: e.LUMENYARD_DB_PORT,
+      user: e.LUMENYARD_DB_USER,
+      password: e.LUMENYARD_DB_PASSWORD,
+      database: e.LUMENYARD_DB_NAME,
+      pool: e.LUMENYARD_DB_POOL,
+    },
+    session: {
+      secret: e.LUMENYARD_SESSION_SECRET,
+      idleMinutes: e.LUMENYARD_SESSION_IDLE_MINUTES,
+      maxHours: e.LUMENYARD_SESSION_MAX_HOURS,
+      secureCookies: e.LUMENYARD_SECURE_COOKIES,
+      trustProxy: e.LUMENYARD_TRUST_PROXY,
+    },
+    signin: {
+      failsPerAccount: e.LUMENYARD_SIGNIN_FAILS_PER_ACCOUNT,
+      failsPerIp: e.LUMENYARD_SIGNIN_FAILS_PER_IP,
+      lockMinutes: e.LUMENYARD_SIGNIN_LOCK_MINUTES,
+    },
+    smtp: {
+      host: e.LUMENYARD_SMTP_HOST,
+      port: e.LUMENYARD_SMTP_PORT,
+      secure: e.LUMENYARD_SMTP_SECURE,
+      user: e.LUMENYARD_SMTP_USER,
+      password: e.LUMENYARD_SMTP_PASSWORD,
+      from: e.LUMENYARD_MAIL_FROM,
+    },
+    uploadMaxBytes: Math.round(e.LUMENYARD_UPLOAD_MAX_MB * 1024 * 1024),
+  }
+}

@@ -1,0 +1,22 @@
+import type passport from 'passport'
+import type { Logger } from 'pino'
+import type { DataSource } from 'typeorm'
+import type { Request } from 'express'
+import type { AppConfig } from './config.js'
+import type { SignInThrottle } from './services/signInThrottle.js'
+import type { AuditActor } from './services/auditService.js'
+import { AppError } from './errors.js'
+
+/** What every router gets: built once in app.ts. */
+export interface AppContext {
+  config: AppConfig
+  ds: DataSource
+  passport: passport.PassportStatic
+  throttle: SignInThrottle
+  logger: Logger
+}
+
+export function actorOf(req: Request): AuditActor & { userId: number } {
+  if (!req.user) throw AppError.unauthenticated()
+  return { userId: req.user.id, ip: req.ip ?? null }
+}

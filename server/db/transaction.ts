@@ -1,0 +1,29 @@
+import type { DataSource, EntityManager } from 'typeorm'
+
+const RETRYABLE = new Set([1213, 1205, 1020]) // deadlock, lock wait timeout, record changed (MariaDB 11.6+)
+
+function errnoOf(err: unknown): number | undefined {
+  const e = err as { errno?: number; driverError?: { errno?: number } }
+  return e?.errno ?? e?.driverError?.errno
+}
+
+/** Runs work in one transaction and retries the whole of it on a deadlock. */
+export async function inTransaction<T>(
+  ds: DataSource,
+  work: (em: EntityManager) => Promise<T>,
+  attempts = 5,
+): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await ds.transaction(work)
+    } catch (err) {
+      const errno = errnoOf(err)
+      if (attempt >= attempts || errno === undefined || !RETRYABLE.has(errno)) throw err
+      await new Promise((r) => setTimeout(r, 5 + Math.random() * 20 * attempt))
+    }
+  }
+}
+
+export function isDuplicateKey(err: unknown): boolean {
+  return errnoOf(err) === 1062
+}

@@ -1,0 +1,35 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { AppError } from '../errors.js'
+
+/** Unknown /api paths answer JSON 404, never the SPA page. */
+export const apiNotFound: RequestHandler = (req, _res, next) => {
+  next(new AppError(404, 'not_found', `No API route ${req.method} ${req.path}.`))
+}
+
+/** Every error becomes { error: { code, message, fields? } }; stacks go to the log only. */
+export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
+  let appError: AppError
+  if (err instanceof AppError) {
+    appError = err
+  } else if (err?.type === 'entity.too.large') {
+    appError = new AppError(413, 'too_large', 'The request is too large.')
+  } else if (err?.type === 'entity.parse.failed') {
+    appError = new AppError(400, 'bad_json', 'The request body is not valid JSON.')
+  } else if (err?.code === 'LIMIT_FILE_SIZE') {
+    appError = new AppError(413, 'file_too_large', 'The file is larger than the upload limit.')
+  } else if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
+    appError = new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`)
+  } else {
+    req.log?.error({ err }, 'unhandled error')
+    appError = new AppError(500, 'internal', 'Something went wrong on the server. The error was logged.')
+  }
+  if (appError.status >= 500 && err instanceof AppError) req.log?.error({ err }, 'server error')
+  if (res.headersSent) return
+  res.status(appError.status).json({
+    error: {
+      code: appError.code,
+      message: appError.message,
+      ...(appError.fields ? { fields: appError.fields } : {}),
+    },
+  })
+}

@@ -1,0 +1,4 @@
+// Every migration in order. A new migration file is added to this list (timestamped class name).
+import { Foundation1764633600000 } from './1764633600000-Foundation.js'
+
+export const allMigrations = [Foundation1764633600000]

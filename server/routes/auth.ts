@@ -1,0 +1,50 @@
+import { signInSchema } from '../../shared/schemas/auth.js'
+import { ANYONE_SIGNED_IN } from '../../shared/roles.js'
+import type { AppContext } from '../context.js'
+import { User } from '../entities/User.js'
+import { AppError } from '../errors.js'
+import { defineRoutes } from '../http/routeTable.js'
+import { parseBody } from '../http/validate.js'
+import { authenticate, logIn, logOut } from '../services/authService.js'
+import { toSessionUser } from '../services/userService.js'
+
+export default (ctx: AppContext) =>
+  defineRoutes('/session', [
+    {
+      method: 'post',
+      path: '/',
+      access: 'public',
+      handler: async (req, res) => {
+        const input = parseBody(signInSchema, req.body)
+        const ip = req.ip ?? 'unknown'
+        await ctx.throttle.check(input.username, ip)
+        req.body = { username: input.username.toLowerCase(), password: input.password }
+        const user = await authenticate(ctx.passport, req, res)
+        if (!user) {
+          await ctx.throttle.fail(input.username, ip)
+          throw new AppError(401, 'bad_credentials', 'The user name or password is not right.')
+        }
+        await ctx.throttle.succeed(input.username)
+        await logIn(req, user) // passport 0.7 regenerates the session id here
+        req.session.signedInAt = Date.now()
+        await ctx.ds.getRepository(User).update({ id: user.id }, { lastSignInAt: new Date() })
+        return { user: toSessionUser(user) }
+      },
+    },
+    {
+      method: 'get',
+      path: '/',
+      access: 'public', // the client asks at start-up; signed out is an answer, not an error
+      handler: (req) => ({ user: req.user ?? null }),
+    },
+    {
+      method: 'delete',
+      path: '/',
+      access: { roles: ANYONE_SIGNED_IN },
+      handler: async (req, res) => {
+        await logOut(req)
+        res.clearCookie('lumenyard.sid')
+        res.status(204).end()
+      },
+    },
+  ])

@@ -1,0 +1,15 @@
+import 'express-session'
+import type { SessionUser } from '../shared/schemas/auth.js'
+
+declare global {
+  namespace Express {
+    // eslint-disable-next-line @typescript-eslint/no-empty-object-type
+    interface User extends SessionUser {}
+  }
+}
+
+declare module 'express-session' {
+  interface SessionData {
+    signedInAt?: number
+  }
+}

@@ -1,0 +1,295 @@
+// Reorder point, safety stock, lot size and the line's status, each with its working shown.
+// Time unit throughout: days. Demand in stock units per day. Money enters only through costs (decimal strings);
+// the results are quantities, so converting those costs to numbers here cannot put a float into any amount.
+import jStat from 'jstat'
+import { isMoney, type Money } from '../money.js'
+import { roundUpToPack } from './packs.js'
+import { DAYS_PER_YEAR } from './demand.js'
+import { classifyLine, policyCeiling } from './reorderStatus.js'
+
+export { classifyLine, policyCeiling } from './reorderStatus.js'
+
+export interface PolicyOverride {
+  value: number
+  /** Why the computed figure is set aside; shown wherever the figure is. */
+  reason: string
+}
+
+export interface ReorderPolicy {
+  /** Cycle service level: chance of no stock-out while a replenishment is on its way, 0.5 ≤ p < 1. */
+  serviceLevel: number
+  /** Mean lead time L̄ (days). */
+  leadTimeDays: number
+  /** σL (days); 0 when the lead time is fixed. */
+  leadTimeSdDays: number
+  /** Days between reviews; used by the order-up-to method (protection interval R + L). */
+  reviewPeriodDays: number
+  /** S: cost of placing and receiving one order. */
+  costPerOrder: Money
+  /** i: holding cost per year as a fraction of unit cost (0.25 = 25 %). */
+  holdingRatePerYear: number
+  /** 'eoq': order Q = √(2DS/H) at the reorder point; 'orderUpTo': order up to T at each review. */
+  method: 'eoq' | 'orderUpTo'
+  /** A line is "order soon" when its position will reach the reorder point within this many days. */
+  soonDays: number
+  /** Days of demand tolerated above the highest position the policy itself produces before "overstocked". */
+  overstockMarginDays: number
+  /** A line with stock and no use for this many days is dead stock. */
+  deadStockDays: number
+  overrides?: {
+    safetyStock?: PolicyOverride
+    reorderPoint?: PolicyOverride
+    orderQuantity?: PolicyOverride
+    orderUpToLevel?: PolicyOverride
+  }
+}
+
+/** Starting values for a new item (common practice: 95 % service, 25 %/yr holding, 180 days for dead stock). */
+export const DEFAULT_REORDER_POLICY: ReorderPolicy = {
+  serviceLevel: 0.95,
+  leadTimeDays: 14,
+  leadTimeSdDays: 0,
+  reviewPeriodDays: 7,
+  costPerOrder: '25.00',
+  holdingRatePerYear: 0.25,
+  method: 'eoq',
+  soonDays: 7,
+  overstockMarginDays: 30,
+  deadStockDays: 180,
+}
+
+export interface DemandInput {
+  /** d̄: mean daily usage counting days without use. */
+  meanDaily: number
+  /** σd: standard deviation of daily usage. */
+  sdDaily: number
+  daysSinceLastUse: number | null
+}
+
+export interface StockPosition {
+  onHand: number
+  onOrder: number
+  reserved: number
+}
+
+export interface VendorTerms {
+  /** Units per vendor pack; orders are whole packs. */
+  packSize: number
+  /** Smallest order the vendor takes, in stock units. */
+  minimumOrder: number
+}
+
+export interface ReorderInput {
+  demand: DemandInput
+  stock: StockPosition
+  unitCost: Money
+  policy: ReorderPolicy
+  vendor?: VendorTerms
+}
+
+export type ReorderStatus = 'orderNow' | 'orderSoon' | 'overstocked' | 'deadStock' | 'ok'
+
+export interface Explanation {
+  inputs: Record<string, number | string | null>
+  steps: string[]
+}
+
+export interface ReorderResult {
+  status: ReorderStatus
+  z: number
+  safetyStock: number
+  /** Integer: d̄·L + SS rounded up. */
+  reorderPoint: number
+  eoq: number | null
+  /** EOQ (or its override) as whole vendor packs, at least the minimum order; 0 without demand. */
+  lotSize: number
+  orderUpToLevel: number | null
+  position: number
+  daysOfSupply: number | null
+  /** What to order now (whole packs, ≥ minimum order, never below need); 0 unless orderNow / orderSoon. */
+  suggestedOrder: number
+  explanation: Explanation
+}
+
+// Float sums such as 4.2 × 12 = 50.400000000000006 must not round up to the next unit.
+const CEIL_TOLERANCE = 1e-9
+function ceilQty(x: number): number {
+  return Math.max(0, Math.ceil(x - CEIL_TOLERANCE))
+}
+
+function show(x: number, places = 2): string {
+  return Number.isInteger(x) ? String(x) : x.toFixed(places)
+}
+
+function requireRange(name: string, value: number, min: number, max = Infinity): void {
+  if (!Number.isFinite(value) || value < min || value > max) throw new RangeError(`${name} must be in [${min}, ${max}], got ${value}`)
+}
+
+/** z such that Φ(z) = serviceLevel: the standard normal quantile. */
+export function zForServiceLevel(serviceLevel: number): number {
+  if (!(serviceLevel > 0 && serviceLevel < 1)) throw new RangeError(`service level must be between 0 and 1, got ${serviceLevel}`)
+  return jStat.normal.inv(serviceLevel, 0, 1)
+}
+
+export interface SafetyStockInput {
+  z: number
+  meanDaily: number
+  sdDaily: number
+  leadTimeDays: number
+  leadTimeSdDays: number
+}
+
+/** SS = z·√(L·σd² + d̄²·σL²); with a fixed lead time (σL = 0) this is z·σd·√L. */
+export function safetyStock({ z, meanDaily, sdDaily, leadTimeDays, leadTimeSdDays }: SafetyStockInput): number {
+  return z * Math.sqrt(leadTimeDays * sdDaily ** 2 + meanDaily ** 2 * leadTimeSdDays ** 2)
+}
+
+/** ROP = d̄·L + SS, not yet rounded. */
+export function reorderPointRaw(meanDaily: number, leadTimeDays: number, safety: number): number {
+  return meanDaily * leadTimeDays + safety
+}
+
+export interface EoqInput {
+  /** D: units per year. */
+  annualDemand: number
+  /** S: cost per order. */
+  costPerOrder: number
+  /** H: holding cost per unit per year. */
+  holdingCostPerUnit: number
+}
+
+/** Q* = √(2DS/H); null when H = 0 (holding is free, so no finite optimum). */
+export function economicOrderQuantity({ annualDemand, costPerOrder, holdingCostPerUnit }: EoqInput): number | null {
+  if (holdingCostPerUnit <= 0) return null
+  return Math.sqrt((2 * annualDemand * costPerOrder) / holdingCostPerUnit)
+}
+
+/** Inventory position = on hand + on order − reserved. */
+export function inventoryPosition({ onHand, onOrder, reserved }: StockPosition): number {
+  return onHand + onOrder - reserved
+}
+
+/** Raw need → whole vendor packs, at least the minimum order (itself rounded up to packs); 0 stays 0. */
+export function roundOrderQuantity(need: number, vendor: VendorTerms = { packSize: 1, minimumOrder: 0 }): number {
+  const units = ceilQty(need)
+  if (units === 0) return 0
+  return roundUpToPack(Math.max(units, vendor.minimumOrder), vendor.packSize)
+}
+
+function validate(input: ReorderInput): void {
+  const { policy, demand, stock } = input
+  requireRange('service level', policy.serviceLevel, 0.5, 0.9999)
+  requireRange('lead time', policy.leadTimeDays, 0)
+  requireRange('lead time σ', policy.leadTimeSdDays, 0)
+  requireRange('review period', policy.reviewPeriodDays, 0)
+  requireRange('holding rate', policy.holdingRatePerYear, 0)
+  requireRange('soon days', policy.soonDays, 0)
+  requireRange('overstock margin days', policy.overstockMarginDays, 0)
+  requireRange('dead stock days', policy.deadStockDays, 1)
+  requireRange('mean daily demand', demand.meanDaily, 0)
+  requireRange('daily demand σ', demand.sdDaily, 0)
+  if (policy.method === 'orderUpTo' && policy.reviewPeriodDays <= 0) throw new RangeError('order-up-to needs a review period > 0')
+  if (!isMoney(policy.costPerOrder, 4) || policy.costPerOrder.startsWith('-')) throw new RangeError('cost per order must be a non-negative amount')
+  if (!isMoney(input.unitCost, 4) || input.unitCost.startsWith('-')) throw new RangeError('unit cost must be a non-negative amount')
+  for (const q of [stock.onHand, stock.onOrder, stock.reserved]) if (!Number.isSafeInteger(q)) throw new RangeError('stock quantities must be integers')
+  if (input.vendor) {
+    requireRange('pack size', input.vendor.packSize, 1)
+    requireRange('minimum order', input.vendor.minimumOrder, 0)
+  }
+  for (const [name, o] of Object.entries(policy.overrides ?? {})) {
+    if (!o) continue
+    requireRange(`${name} override`, o.value, 0)
+    if (o.reason.trim() === '') throw new RangeError(`${name} override needs a reason`)
+  }
+}
+
+interface Targets { z: number; safetyStock: number; reorderPoint: number; orderUpToLevel: number | null }
+
+function computeTargets({ demand, policy }: ReorderInput, steps: string[]): Targets {
+  const { meanDaily: d, sdDaily: sd } = demand
+  const { leadTimeDays: L, leadTimeSdDays: sL, overrides = {} } = policy
+  const z = zForServiceLevel(policy.serviceLevel)
+  steps.push(`z = Φ⁻¹(${policy.serviceLevel}) = ${z.toFixed(4)}`)
+  let ss = safetyStock({ z, meanDaily: d, sdDaily: sd, leadTimeDays: L, leadTimeSdDays: sL })
+  steps.push(sL === 0
+    ? `SS = z·σd·√L = ${z.toFixed(4)} × ${show(sd)} × √${show(L)} = ${show(ss)}`
+    : `SS = z·√(L·σd² + d̄²·σL²) = ${z.toFixed(4)} × √(${show(L)} × ${show(sd)}² + ${show(d)}² × ${show(sL)}²) = ${show(ss)}`)
+  if (overrides.safetyStock) {
+    ss = overrides.safetyStock.value
+    steps.push(`SS = ${show(ss)} (override: ${overrides.safetyStock.reason})`)
+  }
+  const ropRaw = reorderPointRaw(d, L, ss)
+  let reorderPoint = ceilQty(ropRaw)
+  steps.push(`ROP = d̄·L + SS = ${show(d)} × ${show(L)} + ${show(ss)} = ${show(ropRaw)} → ${reorderPoint}`)
+  if (overrides.reorderPoint) {
+    reorderPoint = ceilQty(overrides.reorderPoint.value)
+    steps.push(`ROP = ${reorderPoint} (override: ${overrides.reorderPoint.reason})`)
+  }
+  let orderUpToLevel: number | null = null
+  if (policy.method === 'orderUpTo') {
+    const P = policy.reviewPeriodDays + L
+    const ssP = z * Math.sqrt(P * sd ** 2 + d ** 2 * sL ** 2)
+    const tRaw = d * P + ssP
+    orderUpToLevel = ceilQty(tRaw)
+    steps.push(`T = d̄·(R+L) + z·√((R+L)·σd² + d̄²·σL²) = ${show(d)} × ${show(P)} + ${show(ssP)} = ${show(tRaw)} → ${orderUpToLevel}`)
+    if (overrides.orderUpToLevel) {
+      orderUpToLevel = ceilQty(overrides.orderUpToLevel.value)
+      steps.push(`T = ${orderUpToLevel} (override: ${overrides.orderUpToLevel.reason})`)
+    }
+  }
+  return { z, safetyStock: ss, reorderPoint, orderUpToLevel }
+}
+
+function computeLotSize({ demand, policy, unitCost, vendor }: ReorderInput, steps: string[]): { eoq: number | null; lotSize: number } {
+  const D = demand.meanDaily * DAYS_PER_YEAR
+  const S = Number(policy.costPerOrder)
+  const H = policy.holdingRatePerYear * Number(unitCost)
+  const eoq = economicOrderQuantity({ annualDemand: D, costPerOrder: S, holdingCostPerUnit: H })
+  steps.push(`D = d̄ × ${DAYS_PER_YEAR} = ${show(D)}; H = i × C = ${policy.holdingRatePerYear} × ${unitCost} = ${show(H, 4)}`)
+  steps.push(eoq === null
+    ? 'EOQ undefined (H = 0): lot size from need, pack and minimum only'
+    : `EOQ = √(2DS/H) = √(2 × ${show(D)} × ${policy.costPerOrder} / ${show(H, 4)}) = ${show(eoq)}`)
+  const override = policy.overrides?.orderQuantity
+  const base = override ? override.value : (eoq ?? 0)
+  if (override) steps.push(`Q = ${show(base)} (override: ${override.reason})`)
+  const lotSize = D === 0 && !override ? 0 : roundOrderQuantity(Math.max(base, 1), vendor)
+  if (vendor) steps.push(`lot size = ${show(base)} → whole packs of ${vendor.packSize}, minimum ${vendor.minimumOrder} → ${lotSize}`)
+  return { eoq, lotSize }
+}
+
+/** The full reorder suggestion for one item in one warehouse. */
+export function reorderSuggestion(input: ReorderInput): ReorderResult {
+  validate(input)
+  const { demand, stock, policy, vendor } = input
+  const steps: string[] = []
+  const position = inventoryPosition(stock)
+  steps.push(`position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
+  const targets = computeTargets(input, steps)
+  const { eoq, lotSize } = computeLotSize(input, steps)
+  const ceiling = policyCeiling({ ...targets, lotSize, method: policy.method, packSize: vendor?.packSize ?? 1, minimumOrder: vendor?.minimumOrder ?? 0 })
+  const status = classifyLine({ position, stock, demand, policy, reorderPoint: targets.reorderPoint, ceiling }, steps)
+  let suggestedOrder = 0
+  if (status === 'orderNow' || status === 'orderSoon') {
+    const need = status === 'orderNow' ? targets.reorderPoint + 1 - position : 0
+    const raw = policy.method === 'orderUpTo' ? (targets.orderUpToLevel ?? 0) - position : Math.max(lotSize, need)
+    suggestedOrder = roundOrderQuantity(Math.max(raw, need), vendor)
+    steps.push(policy.method === 'orderUpTo'
+      ? `order = T − position = ${targets.orderUpToLevel} − ${position} = ${show(raw)} → ${suggestedOrder}`
+      : `order = max(lot size, ROP + 1 − position) = max(${lotSize}, ${need}) → ${suggestedOrder}`)
+  }
+  return {
+    status, ...targets, eoq, lotSize, position, suggestedOrder,
+    daysOfSupply: demand.meanDaily > 0 ? position / demand.meanDaily : null,
+    explanation: {
+      inputs: {
+        'd̄ (units/day)': demand.meanDaily, 'σd (units/day)': demand.sdDaily, 'L (days)': policy.leadTimeDays,
+        'σL (days)': policy.leadTimeSdDays, 'R (days)': policy.reviewPeriodDays, 'service level': policy.serviceLevel,
+        'S (per order)': policy.costPerOrder, 'i (per year)': policy.holdingRatePerYear, 'C (unit cost)': input.unitCost,
+        'on hand': stock.onHand, 'on order': stock.onOrder, reserved: stock.reserved,
+        'days since last use': demand.daysSinceLastUse,
+        'pack size': vendor?.packSize ?? null, 'minimum order': vendor?.minimumOrder ?? null,
+      },
+      steps,
+    },
+  }
+}

@@ -1,0 +1,83 @@
+import { z } from 'zod'
+import { ROLES } from '../roles.js'
+
+export const roleSchema = z.enum(ROLES)
+export const unitPreferenceSchema = z.enum(['in', 'mm'])
+export const localeSchema = z.enum(['en', 'es'])
+
+export const usernameSchema = z
+  .string()
+  .trim()
+  .min(3, 'At least 3 characters')
+  .max(40, 'At most 40 characters')
+  .regex(/^[a-z0-9._-]+$/, 'Lower-case letters, digits, dot, dash and underscore only')
+
+// ASVS 6.2.1/6.2.9: at least 12 characters, long passphrases allowed, no composition rules.
+export const passwordSchema = z
+  .string()
+  .min(12, 'At least 12 characters')
+  .max(128, 'At most 128 characters')
+
+export const signInSchema = z.object({
+  username: z.string().trim().min(1, 'Enter your user name').max(40),
+  password: z.string().min(1, 'Enter your password').max(128),
+})
+export type SignInInput = z.infer<typeof signInSchema>
+
+export const sessionUserSchema = z.object({
+  id: z.number().int(),
+  username: z.string(),
+  displayName: z.string(),
+  roles: z.array(roleSchema),
+  unitPreference: unitPreferenceSchema,
+  locale: localeSchema,
+})
+export type SessionUser = z.infer<typeof sessionUserSchema>
+
+export const userCreateSchema = z.object({
+  username: usernameSchema,
+  displayName: z.string().trim().min(1, 'Enter a name').max(80),
+  email: z.email('Enter a valid e-mail address').max(120).optional().or(z.literal('')),
+  roles: z.array(roleSchema).min(1, 'Give the user at least one role'),
+  password: passwordSchema,
+})
+export type UserCreateInput = z.infer<typeof userCreateSchema>
+
+export const userUpdateSchema = z.object({
+  displayName: z.string().trim().min(1, 'Enter a name').max(80).optional(),
+  email: z.email('Enter a valid e-mail address').max(120).optional().or(z.literal('')),
+  roles: z.array(roleSchema).min(1, 'Give the user at least one role').optional(),
+  active: z.boolean().optional(),
+})
+export type UserUpdateInput = z.infer<typeof userUpdateSchema>
+
+export const passwordResetSchema = z.object({ password: passwordSchema })
+
+export const profileUpdateSchema = z.object({
+  displayName: z.string().trim().min(1, 'Enter a name').max(80).optional(),
+  unitPreference: unitPreferenceSchema.optional(),
+  locale: localeSchema.optional(),
+})
+export type ProfileUpdateInput = z.infer<typeof profileUpdateSchema>
+
+export const passwordChangeSchema = z
+  .object({
+    currentPassword: z.string().min(1, 'Enter your current password'),
+    newPassword: passwordSchema,
+  })
+  .refine((v) => v.currentPassword !== v.newPassword, {
+    path: ['newPassword'],
+    message: 'Choose a password different from the current one',
+  })
+
+export const userSummarySchema = z.object({
+  id: z.number().int(),
+  username: z.string(),
+  displayName: z.string(),
+  email: z.string().nullable(),
+  roles: z.array(roleSchema),
+  active: z.boolean(),
+  lastSignInAt: z.string().nullable(),
+  createdAt: z.string(),
+})
+export type UserSummary = z.infer<typeof userSummarySchema>

@@ -1,0 +1,78 @@
+// One typed client over fetch. Every failure becomes an ApiError with the server's code, message
+// and field messages, so forms show field errors beside inputs and the rest in a message.
+import type { ApiErrorBody } from '@shared/schemas/apiError'
+
+export class ApiError extends Error {
+  constructor(
+    readonly status: number,
+    readonly code: string,
+    message: string,
+    readonly fields: Record<string, string> = {},
+  ) {
+    super(message)
+  }
+}
+
+export function isApiError(err: unknown): err is ApiError {
+  return err instanceof ApiError
+}
+
+type Listener = () => void
+const unauthenticatedListeners: Listener[] = []
+/** Called on any 401 (session ended elsewhere, timed out): the session store signs out locally. */
+export function onUnauthenticated(listener: Listener): void {
+  unauthenticatedListeners.push(listener)
+}
+
+export interface RequestOptions {
+  headers?: Record<string, string>
+  signal?: AbortSignal
+  /** A 401 from this call is expected (sign-in) and must not trigger the global handler. */
+  quiet401?: boolean
+}
+
+async function request<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
+  const headers: Record<string, string> = { Accept: 'application/json', 'X-Lumenyard-Request': '1', ...opts.headers }
+  let payload: BodyInit | undefined
+  if (body instanceof FormData) payload = body
+  else if (body !== undefined) {
+    headers['Content-Type'] = 'application/json'
+    payload = JSON.stringify(body)
+  }
+  let res: Response
+  try {
+    res = await fetch('/api' + path, { method, headers, body: payload, credentials: 'same-origin', signal: opts.signal })
+  } catch (err) {
+    if ((err as Error).name === 'AbortError') throw err
+    throw new ApiError(0, 'network', 'The server could not be reached. Check the connection and try again.')
+  }
+  if (res.status === 204) return undefined as T
+  const type = res.headers.get('content-type') ?? ''
+  const data = type.includes('application/json') ? await res.json().catch(() => null) : null
+  if (!res.ok) {
+    const e = (data as ApiErrorBody | null)?.error
+    if (res.status === 401 && !opts.quiet401) unauthenticatedListeners.forEach((l) => l())
+    throw new ApiError(res.status, e?.code ?? 'http_' + res.status, e?.message ?? `The server answered ${res.status}.`, e?.fields)
+  }
+  return data as T
+}
+
+/** Downloads a file answer (spreadsheets, exports) as a Blob with its suggested name. */
+export async function download(path: string): Promise<{ blob: Blob; filename: string }> {
+  const res = await fetch('/api' + path, { credentials: 'same-origin', headers: { 'X-Lumenyard-Request': '1' } })
+  if (!res.ok) {
+    const data = (await res.json().catch(() => null)) as ApiErrorBody | null
+    throw new ApiError(res.status, data?.error.code ?? 'http_' + res.status, data?.error.message ?? 'The download failed.')
+  }
+  const disposition = res.headers.get('content-disposition') ?? ''
+  const filename = /filename="?([^";]+)"?/.exec(disposition)?.[1] ?? 'download'
+  return { blob: await res.blob(), filename }
+}
+
+export const api = {
+  get: <T>(path: string, opts?: RequestOptions) => request<T>('GET', path, undefined, opts),
+  post: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('POST', path, body ?? {}, opts),
+  put: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PUT', path, body ?? {}, opts),
+  patch: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PATCH', path, body ?? {}, opts),
+  delete: <T>(path: string, opts?: RequestOptions) => request<T>('DELETE', path, undefined, opts),
+}

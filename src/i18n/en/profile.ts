@@ -1,0 +1,15 @@
+export default {
+  title: 'My profile',
+  displayName: 'Name',
+  unitPreference: 'Lengths shown in',
+  inches: 'Inches (fractions to 1/16″)',
+  millimetres: 'Millimetres',
+  locale: 'Language',
+  english: 'English',
+  spanish: 'Español',
+  changePassword: 'Change password',
+  currentPassword: 'Current password',
+  newPassword: 'New password',
+  newPasswordHint: 'At least 12 characters. A phrase of several words is easy to remember and hard to guess.',
+  passwordChanged: 'Password changed. Your other sessions were signed out.',
+}

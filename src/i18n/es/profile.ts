@@ -1,0 +1,6 @@
+export default {
+  title: 'Mi perfil',
+  locale: 'Idioma',
+  english: 'English',
+  spanish: 'Español',
+}

@@ -1,0 +1,17 @@
+import '@fontsource/open-sans/400.css'
+import '@fontsource/open-sans/600.css'
+import '@fontsource/open-sans/700.css'
+import 'element-plus/theme-chalk/el-message.css'
+import 'element-plus/theme-chalk/el-message-box.css'
+import './assets/theme.css'
+import { createApp } from 'vue'
+import { createPinia } from 'pinia'
+import App from './App.vue'
+import { i18n } from './i18n'
+import { router } from './router'
+
+const app = createApp(App)
+app.use(createPinia())
+app.use(i18n)
+app.use(router)
+app.mount('#app')

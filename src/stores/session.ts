@@ -1,0 +1,48 @@
+import { defineStore } from 'pinia'
+import { computed, ref } from 'vue'
+import type { SessionUser } from '@shared/schemas/auth'
+import { areasFor, hasAnyRole, type Role } from '@shared/roles'
+import { api } from '@/api/client'
+
+/** The signed-in user, shared by the shell, the guard and every page. */
+export const useSessionStore = defineStore('session', () => {
+  const user = ref<SessionUser | null>(null)
+  const loaded = ref(false)
+
+  const signedIn = computed(() => user.value !== null)
+  const areas = computed(() => (user.value ? areasFor(user.value.roles) : []))
+  const can = (roles: readonly Role[]) => !!user.value && hasAnyRole(user.value.roles, roles)
+
+  async function load(): Promise<void> {
+    try {
+      const res = await api.get<{ user: SessionUser | null }>('/session', { quiet401: true })
+      user.value = res.user
+    } finally {
+      loaded.value = true
+    }
+  }
+
+  async function signIn(username: string, password: string): Promise<void> {
+    const res = await api.post<{ user: SessionUser }>('/session', { username, password }, { quiet401: true })
+    user.value = res.user
+    loaded.value = true
+  }
+
+  async function signOut(): Promise<void> {
+    try {
+      await api.delete('/session', { quiet401: true })
+    } finally {
+      user.value = null
+    }
+  }
+
+  function forget(): void {
+    user.value = null
+  }
+
+  function replaceUser(next: SessionUser): void {
+    user.value = next
+  }
+
+  return { user, loaded, signedIn, areas, can, load, signIn, signOut, forget, replaceUser }
+})

@@ -1,0 +1,81 @@
+// Sign in as each demo role in a real browser, see that role's navigation, sign out.
+// The expected areas per role are the design in shared/roles.ts (AREA_ROLES), restated here so a
+// change to either side shows up.
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { startE2e, type E2eHarness } from '../support/browser.js'
+
+let h: E2eHarness
+beforeAll(async () => {
+  h = await startE2e()
+})
+afterAll(() => h?.close())
+
+const EXPECTED_NAV: Record<string, string[]> = {
+  admin: ['home', 'stock', 'counter', 'warehouse', 'purchasing', 'admin'],
+  counter: ['home', 'stock', 'counter'],
+  warehouse: ['home', 'stock', 'warehouse'],
+  buyer: ['home', 'stock', 'purchasing'],
+  viewer: ['home', 'stock'],
+}
+
+describe('the shell for each role', () => {
+  for (const [role, areas] of Object.entries(EXPECTED_NAV)) {
+    it(`${role}: signs in, sees only its areas, signs out`, async () => {
+      const { page, context } = await h.newPage()
+      try {
+        await h.signIn(page, role)
+        const nav = await page.locator('aside [data-area]').evaluateAll((els) => els.map((e) => e.getAttribute('data-area')))
+        expect(nav).toEqual(areas)
+        await h.screenshot(page, `shell-${role}`)
+        await page.locator('[data-test="user-menu"]').click()
+        await page.locator('[data-test="sign-out"]').click()
+        await page.waitForURL(/\/sign-in/)
+        // Signed out: a protected page sends us back to sign-in.
+        await page.goto('/profile')
+        await page.waitForURL(/\/sign-in/)
+        expect(page.url()).toContain('/sign-in')
+      } finally {
+        await context.close()
+      }
+    })
+  }
+
+  it('keeps a role out of a page it may not use', async () => {
+    const { page, context } = await h.newPage()
+    try {
+      await h.signIn(page, 'viewer')
+      await page.goto('/admin/users')
+      await page.waitForURL((url) => url.pathname === '/')
+      expect(new URL(page.url()).pathname).toBe('/')
+    } finally {
+      await context.close()
+    }
+  })
+
+  it('shows a clear message for a wrong password', async () => {
+    const { page, context } = await h.newPage()
+    try {
+      await page.goto('/sign-in')
+      await page.locator('[data-test="username"]').fill('counter')
+      await page.locator('[data-test="password"]').fill('not-the-password')
+      await page.locator('[data-test="sign-in"]').click()
+      await expect.poll(() => page.locator('[data-test="sign-in-error"]').textContent()).toMatch(/not right/)
+    } finally {
+      await context.close()
+    }
+  })
+
+  it('works on a warehouse tablet: the menu opens from the top bar', async () => {
+    const { page, context } = await h.newPage({ viewport: { width: 800, height: 1100 } })
+    try {
+      await h.signIn(page, 'warehouse')
+      await page.locator('button.burger').click()
+      await page.locator('.nav-drawer [data-area="warehouse"]').click()
+      await page.waitForURL(/\/warehouse/)
+      await h.screenshot(page, 'shell-tablet-warehouse')
+      expect(page.url()).toContain('/warehouse')
+    } finally {
+      await context.close()
+    }
+  })
+})

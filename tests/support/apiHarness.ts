@@ -1,0 +1,69 @@
+// API tests run the real app in-process against the real MariaDB test database that
+// scripts/testRun.ts prepared (its settings arrive in the environment).
+import supertest from 'supertest'
+import type { DataSource } from 'typeorm'
+import type { Role } from '../../shared/roles.js'
+import { createApp, type BuiltApp } from '../../server/app.js'
+import { loadConfig, type AppConfig } from '../../server/config.js'
+import { createDataSource } from '../../server/db/dataSource.js'
+import { User } from '../../server/entities/User.js'
+import { hashPassword } from '../../server/services/userService.js'
+
+export const TEST_PASSWORD = 'test-password-123'
+export const CSRF = { 'X-Lumenyard-Request': '1' }
+
+export interface ApiHarness {
+  ds: DataSource
+  built: BuiltApp
+  config: AppConfig
+  /** A fresh supertest agent (keeps cookies), signed out. */
+  agent(): supertest.Agent
+  /** An agent signed in as a user holding exactly these roles (created on first use). */
+  as(...roles: Role[]): Promise<supertest.Agent>
+  /** Ensures a user with these roles exists; returns it. */
+  user(username: string, roles: Role[]): Promise<User>
+  close(): Promise<void>
+}
+
+let hashed: string | null = null
+
+export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}): Promise<ApiHarness> {
+  const config = loadConfig({ LUMENYARD_SIGNIN_FAILS_PER_IP: '100000', ...process.env, ...overrides })
+  const ds = createDataSource(config)
+  await ds.initialize()
+  const built = createApp({ config, ds })
+  const signedIn = new Map<string, supertest.Agent>()
+
+  async function user(username: string, roles: Role[]): Promise<User> {
+    const repo = ds.getRepository(User)
+    const existing = await repo.findOneBy({ username })
+    if (existing) return existing
+    hashed ??= await hashPassword(TEST_PASSWORD)
+    return repo.save(repo.create({ username, displayName: `Test ${username}`, roles, passwordHash: hashed, active: true }))
+  }
+
+  async function as(...roles: Role[]): Promise<supertest.Agent> {
+    const username = `t-${[...roles].sort().join('-')}`
+    const cached = signedIn.get(username)
+    if (cached) return cached
+    await user(username, roles)
+    const agent = supertest.agent(built.app)
+    const res = await agent.post('/api/session').set(CSRF).send({ username, password: TEST_PASSWORD })
+    if (res.status !== 200) throw new Error(`test sign-in as ${username} failed: ${res.status} ${JSON.stringify(res.body)}`)
+    signedIn.set(username, agent)
+    return agent
+  }
+
+  return {
+    ds,
+    built,
+    config,
+    agent: () => supertest.agent(built.app),
+    as,
+    user,
+    close: async () => {
+      await built.close()
+      await ds.destroy()
+    },
+  }
+}

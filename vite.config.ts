@@ -1,0 +1,27 @@
+import { fileURLToPath, URL } from 'node:url'
+import { defineConfig } from 'vite'
+import vue from '@vitejs/plugin-vue'
+import AutoImport from 'unplugin-auto-import/vite'
+import Components from 'unplugin-vue-components/vite'
+import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
+
+// Element Plus is imported on demand (components and their styles) through the resolvers.
+export default defineConfig({
+  plugins: [
+    vue(),
+    AutoImport({ resolvers: [ElementPlusResolver()], dts: 'src/auto-imports.d.ts' }),
+    Components({ resolvers: [ElementPlusResolver()], dts: 'src/components.d.ts' }),
+  ],
+  resolve: {
+    alias: {
+      '@': fileURLToPath(new URL('./src', import.meta.url)),
+      '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+    },
+  },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    proxy: { '/api': { target: `http://127.0.0.1:${process.env.LUMENYARD_PORT ?? 5480}`, changeOrigin: false } },
+  },
+  build: { chunkSizeWarningLimit: 1200 },
+})

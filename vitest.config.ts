@@ -1,0 +1,39 @@
+import { defineConfig } from 'vitest/config'
+
+// Three projects: unit (pure code, no services), api (supertest against the real app and MariaDB),
+// e2e (playwright-core driving Debian's Chromium). scripts/test.sh prepares the database first.
+const decorators = { decorator: { legacy: true, emitDecoratorMetadata: true } }
+
+export default defineConfig({
+  oxc: decorators,
+  test: {
+    projects: [
+      {
+        oxc: decorators,
+        test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
+      },
+      {
+        oxc: decorators,
+        test: {
+          name: 'api',
+          include: ['tests/api/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 60_000,
+          hookTimeout: 120_000,
+        },
+      },
+      {
+        oxc: decorators,
+        test: {
+          name: 'e2e',
+          include: ['tests/e2e/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 120_000,
+          hookTimeout: 180_000,
+        },
+      },
+    ],
+  },
+})

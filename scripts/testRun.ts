@@ -31,8 +31,8 @@ function buildClient(outDir: string) {
   if (res.status !== 0) throw new Error('The client build failed.')
 }
 
-function runVitest(projects: string[], env: Record<string, string>, resultsFile: string): Promise<number> {
-  const args = ['run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`]
+function runVitest(projects: string[], filters: string[], env: Record<string, string>, resultsFile: string): Promise<number> {
+  const args = ['run', ...projects.flatMap((p) => ['--project', p]), ...filters, '--reporter=default', '--reporter=json', `--outputFile.json=${resultsFile}`]
   return new Promise((resolve) => {
     const child = spawn(path.join(projectRoot, 'node_modules/.bin/vitest'), args, {
       cwd: projectRoot,
@@ -59,7 +59,10 @@ function summarise(resultsFile: string): string {
 }
 
 async function main() {
-  const wanted = process.argv.slice(2).filter((a) => (PROJECTS as readonly string[]).includes(a))
+  const args = process.argv.slice(2)
+  const wanted = args.filter((a) => (PROJECTS as readonly string[]).includes(a))
+  // Anything else narrows the run to matching test files (vitest filters), e.g. tests/api/stock.
+  const filters = args.filter((a) => !(PROJECTS as readonly string[]).includes(a))
   const projects = wanted.length ? wanted : [...PROJECTS]
   const database = process.env.LUMENYARD_TEST_DB ?? 'lumenyard_test'
   const started = Date.now()
@@ -81,7 +84,7 @@ async function main() {
   rmSync(resultsFile, { force: true })
   let code = 1
   try {
-    code = await runVitest(projects, env, resultsFile)
+    code = await runVitest(projects, filters, env, resultsFile)
   } finally {
     await stop().catch((e) => console.error(e))
   }

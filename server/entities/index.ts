@@ -1,5 +1,32 @@
 // Every entity, listed once. A new entity is added here and gets a migration.
 import { AuditEntry } from './AuditEntry.js'
+import { Bin } from './Bin.js'
+import { IdempotencyRecord } from './IdempotencyRecord.js'
+import { Item } from './Item.js'
+import { ItemWarehouse } from './ItemWarehouse.js'
+import { Lot } from './Lot.js'
+import { StockBalance } from './StockBalance.js'
+import { StockMove } from './StockMove.js'
+import { StockReservation } from './StockReservation.js'
+import { Transfer, TransferLine } from './Transfer.js'
 import { User } from './User.js'
+import { Warehouse } from './Warehouse.js'
+import { Vendor, VendorItem } from './Vendor.js'
 
-export const allEntities = [User, AuditEntry]
+export const allEntities = [
+  User,
+  AuditEntry,
+  Item,
+  Warehouse,
+  Bin,
+  Lot,
+  Vendor,
+  VendorItem,
+  StockBalance,
+  StockMove,
+  StockReservation,
+  ItemWarehouse,
+  Transfer,
+  TransferLine,
+  IdempotencyRecord,
+]

@@ -3,9 +3,10 @@ import type { AppContext } from '../context.js'
 import auth from './auth.js'
 import health from './health.js'
 import profile from './profile.js'
+import stockOperations from './stockOperations.js'
 import users from './users.js'
 
-export const routers = [health, auth, profile, users]
+export const routers = [health, auth, profile, users, stockOperations]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

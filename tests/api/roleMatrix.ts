@@ -24,4 +24,11 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/users': { access: ['admin'] },
   'PATCH /api/users/:id': { access: ['admin'] },
   'POST /api/users/:id/password': { access: ['admin'] },
+  // Stock operations: warehouse crew and admin move stock.
+  'POST /api/stock/adjustments': { access: ['admin', 'warehouse'] },
+  'POST /api/stock/bin-moves': { access: ['admin', 'warehouse'] },
+  'POST /api/stock/issues': { access: ['admin', 'warehouse'] },
+  'POST /api/stock/receipts': { access: ['admin', 'warehouse'] },
+  'POST /api/stock/transfers': { access: ['admin', 'warehouse'] },
+  'POST /api/stock/transfers/:id/receive': { access: ['admin', 'warehouse'] },
 }

@@ -1,0 +1,100 @@
+// The engine under every stock operation: lock the balances, apply signed moves, refuse anything
+// that would make on hand or available negative, write balances and ledger rows together.
+// Callers pass their transaction's EntityManager, so a document and its stock change commit as one.
+import { randomUUID } from 'node:crypto'
+import type { EntityManager } from 'typeorm'
+import type { MoveType } from '../../../shared/catalog.js'
+import { StockBalance } from '../../entities/StockBalance.js'
+import { StockMove } from '../../entities/StockMove.js'
+import { balanceKey, lockBalances } from './balanceLocks.js'
+import { notEnoughAvailable, notEnoughOnHand } from './stockErrors.js'
+import { loadLookups, type Lookups } from './stockLookups.js'
+
+export interface DocRef {
+  docType: string
+  docId: number
+  docLineId?: number | null
+}
+
+export interface StockActor {
+  userId: number | null
+}
+
+export interface MoveSpec {
+  moveType: MoveType
+  itemId: number
+  binId: number
+  lotId: number | null
+  /** Signed quantity in stock units. */
+  qty: number
+  unitCost?: string | null
+  doc?: DocRef | null
+  reason?: string | null
+  note?: string | null
+  /** Units of this outgoing move that were reserved for it (a pick consuming its reservation). */
+  fromReserved?: number
+}
+
+export interface AppliedMoves {
+  batchId: string
+  moves: StockMove[]
+  balances: Map<string, StockBalance>
+  lookups: Lookups
+}
+
+function checkQuantities(specs: readonly MoveSpec[]): void {
+  for (const s of specs) {
+    if (!Number.isSafeInteger(s.qty) || s.qty === 0) throw new RangeError(`move quantity must be a non-zero integer, got ${s.qty}`)
+    const fromReserved = s.fromReserved ?? 0
+    if (fromReserved < 0 || fromReserved > Math.abs(s.qty) || (fromReserved > 0 && s.qty > 0)) {
+      throw new RangeError('fromReserved must be within an outgoing move')
+    }
+  }
+}
+
+export async function applyMoves(em: EntityManager, actor: StockActor, specs: readonly MoveSpec[]): Promise<AppliedMoves> {
+  checkQuantities(specs)
+  const lookups = await loadLookups(em, specs)
+  const keys = specs.map((s) => ({ ...s, warehouseId: lookups.bin(s.binId).warehouseId }))
+  const balances = await lockBalances(em, keys, { create: specs.some((s) => s.qty > 0) })
+  for (const s of specs) {
+    const key = balanceKey(s)
+    const bal = balances.get(key)
+    const described = lookups.describe(s)
+    if (!bal) throw notEnoughOnHand(described, 0, -s.qty)
+    const fromReserved = s.fromReserved ?? 0
+    const onHand = bal.onHand + s.qty
+    const reserved = bal.reserved - fromReserved
+    if (onHand < 0) throw notEnoughOnHand(described, bal.onHand, -s.qty)
+    if (reserved < 0) throw new RangeError(`reservation of ${described.sku} larger than the reserved quantity`)
+    if (onHand < reserved) throw notEnoughAvailable(described, bal.onHand, bal.reserved, -s.qty)
+    bal.onHand = onHand
+    bal.reserved = reserved
+  }
+  for (const bal of balances.values()) {
+    await em.update(StockBalance, { id: bal.id }, { onHand: bal.onHand, reserved: bal.reserved })
+  }
+  const batchId = randomUUID()
+  const at = new Date()
+  const moves = specs.map((s) =>
+    em.create(StockMove, {
+      at,
+      moveType: s.moveType,
+      itemId: s.itemId,
+      warehouseId: lookups.bin(s.binId).warehouseId,
+      binId: s.binId,
+      lotId: s.lotId,
+      qty: s.qty,
+      unitCost: s.unitCost ?? null,
+      docType: s.doc?.docType ?? null,
+      docId: s.doc?.docId ?? null,
+      docLineId: s.doc?.docLineId ?? null,
+      reason: s.reason ?? null,
+      note: s.note ?? null,
+      batchId,
+      userId: actor.userId,
+    }),
+  )
+  await em.insert(StockMove, moves)
+  return { batchId, moves, balances, lookups }
+}

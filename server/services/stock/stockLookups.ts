@@ -1,0 +1,47 @@
+// Loads the items, bins and lots an operation names, once, and checks they fit together.
+import { In, type EntityManager } from 'typeorm'
+import { Bin } from '../../entities/Bin.js'
+import { Item } from '../../entities/Item.js'
+import { Lot } from '../../entities/Lot.js'
+import { AppError } from '../../errors.js'
+
+export interface Lookups {
+  item(id: number): Item
+  bin(id: number): Bin
+  lot(id: number | null): Lot | null
+  describe(k: { itemId: number; binId: number; lotId: number | null }): { sku: string; binCode: string; lotCode: string | null }
+}
+
+export async function loadLookups(
+  em: EntityManager,
+  refs: readonly { itemId: number; binId: number; lotId: number | null }[],
+): Promise<Lookups> {
+  const ids = (pick: (r: (typeof refs)[number]) => number | null) => [...new Set(refs.map(pick).filter((v): v is number => v !== null))]
+  const [items, bins, lots] = await Promise.all([
+    em.findBy(Item, { id: In(ids((r) => r.itemId)) }),
+    em.findBy(Bin, { id: In(ids((r) => r.binId)) }),
+    ids((r) => r.lotId).length ? em.findBy(Lot, { id: In(ids((r) => r.lotId)) }) : Promise.resolve([] as Lot[]),
+  ])
+  const itemMap = new Map(items.map((i) => [i.id, i]))
+  const binMap = new Map(bins.map((b) => [b.id, b]))
+  const lotMap = new Map(lots.map((l) => [l.id, l]))
+  for (const r of refs) {
+    if (!itemMap.has(r.itemId)) throw AppError.notFound(`Item ${r.itemId}`)
+    if (!binMap.has(r.binId)) throw AppError.notFound(`Bin ${r.binId}`)
+    const lot = r.lotId === null ? null : lotMap.get(r.lotId)
+    if (r.lotId !== null && !lot) throw AppError.notFound(`Lot ${r.lotId}`)
+    if (lot && lot.itemId !== r.itemId) {
+      throw AppError.badRequest(`Lot ${lot.code} belongs to another item than ${itemMap.get(r.itemId)!.sku}.`)
+    }
+  }
+  return {
+    item: (id) => itemMap.get(id)!,
+    bin: (id) => binMap.get(id)!,
+    lot: (id) => (id === null ? null : lotMap.get(id)!),
+    describe: (k) => ({
+      sku: itemMap.get(k.itemId)!.sku,
+      binCode: binMap.get(k.binId)!.code,
+      lotCode: k.lotId === null ? null : lotMap.get(k.lotId)!.code,
+    }),
+  }
+}

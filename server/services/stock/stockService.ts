@@ -1,0 +1,155 @@
+// The one place every stock change goes through. Each operation runs inside the caller's
+// transaction (pass its EntityManager); HTTP routes wrap them with runStockRequest (one transaction,
+// deadlock retry, Idempotency-Key). Quantities are integers in the item's stock unit.
+import type { EntityManager } from 'typeorm'
+import type { AdjustmentReason } from '../../../shared/catalog.js'
+import { Bin } from '../../entities/Bin.js'
+import { Lot } from '../../entities/Lot.js'
+import { AppError } from '../../errors.js'
+import { averageInReceipt, currentAverage } from './averageCost.js'
+import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
+
+export type { DocRef, StockActor }
+
+export interface ReceiptLine {
+  itemId: number
+  binId: number
+  /** An existing lot, or a lot code to find or create for the item. Neither: no lot. */
+  lotId?: number | null
+  lotCode?: string | null
+  lotReceivedAt?: string
+  vendorId?: number | null
+  tintNote?: string | null
+  qty: number
+  unitCost: string
+  docLineId?: number | null
+}
+
+async function storageBin(em: EntityManager, binId: number, warehouseId?: number): Promise<Bin> {
+  const bin = await em.findOneBy(Bin, { id: binId })
+  if (!bin) throw AppError.notFound('That bin')
+  if (!bin.active) throw AppError.conflict(`Bin ${bin.code} is not in use.`)
+  if (warehouseId !== undefined && bin.warehouseId !== warehouseId) {
+    throw AppError.badRequest(`Bin ${bin.code} is in another warehouse.`)
+  }
+  return bin
+}
+
+export async function findOrCreateLot(
+  em: EntityManager,
+  itemId: number,
+  code: string,
+  extra: { receivedAt?: string; vendorId?: number | null; tintNote?: string | null } = {},
+): Promise<Lot> {
+  const existing = await em.findOneBy(Lot, { itemId, code })
+  if (existing) return existing
+  await em.query('INSERT IGNORE INTO lots (item_id, code, received_at, vendor_id, tint_note) VALUES (?, ?, ?, ?, ?)', [
+    itemId,
+    code,
+    extra.receivedAt ?? new Date().toISOString().slice(0, 10),
+    extra.vendorId ?? null,
+    extra.tintNote ?? null,
+  ])
+  return em.findOneByOrFail(Lot, { itemId, code })
+}
+
+/** Receipt into bins: on hand up, moving-average cost blended per item and warehouse. */
+export async function receive(
+  em: EntityManager,
+  actor: StockActor,
+  input: { warehouseId: number; lines: ReceiptLine[]; doc?: DocRef; note?: string | null },
+): Promise<AppliedMoves> {
+  if (!input.lines.length) throw AppError.badRequest('A receipt needs at least one line.')
+  const specs = []
+  // Sorted so concurrent receipts lock item_warehouses rows in one order.
+  const lines = [...input.lines].sort((a, b) => a.itemId - b.itemId)
+  for (const line of lines) {
+    await storageBin(em, line.binId, input.warehouseId)
+    const lotId = line.lotId ?? (line.lotCode ? (await findOrCreateLot(em, line.itemId, line.lotCode, {
+      receivedAt: line.lotReceivedAt, vendorId: line.vendorId, tintNote: line.tintNote,
+    })).id : null)
+    await averageInReceipt(em, line.itemId, input.warehouseId, line.qty, line.unitCost)
+    specs.push({
+      moveType: 'receipt' as const,
+      itemId: line.itemId,
+      binId: line.binId,
+      lotId,
+      qty: line.qty,
+      unitCost: line.unitCost,
+      doc: input.doc ? { ...input.doc, docLineId: line.docLineId ?? input.doc.docLineId ?? null } : null,
+      note: input.note ?? null,
+    })
+  }
+  return applyMoves(em, actor, specs)
+}
+
+export interface IssueLine {
+  itemId: number
+  binId: number
+  lotId: number | null
+  qty: number
+  docLineId?: number | null
+}
+
+/** Stock out the door (counter sale, job issue). Never takes reserved units. */
+export async function issue(
+  em: EntityManager,
+  actor: StockActor,
+  input: { lines: IssueLine[]; doc?: DocRef; reason?: string | null; note?: string | null },
+): Promise<AppliedMoves> {
+  if (!input.lines.length) throw AppError.badRequest('An issue needs at least one line.')
+  const specs = []
+  for (const l of input.lines) {
+    const bin = await storageBin(em, l.binId)
+    specs.push({
+      moveType: 'issue' as const,
+      itemId: l.itemId,
+      binId: l.binId,
+      lotId: l.lotId,
+      qty: -l.qty,
+      unitCost: await currentAverage(em, l.itemId, bin.warehouseId),
+      doc: input.doc ? { ...input.doc, docLineId: l.docLineId ?? null } : null,
+      reason: input.reason ?? null,
+      note: input.note ?? null,
+    })
+  }
+  return applyMoves(em, actor, specs)
+}
+
+/** A counted, damaged, found or written-off difference in one bin. */
+export async function adjust(
+  em: EntityManager,
+  actor: StockActor,
+  input: { itemId: number; binId: number; lotId: number | null; delta: number; reason: AdjustmentReason; note?: string | null; doc?: DocRef },
+): Promise<AppliedMoves> {
+  const bin = await storageBin(em, input.binId)
+  return applyMoves(em, actor, [
+    {
+      moveType: input.reason === 'counted' ? 'count' : 'adjustment',
+      itemId: input.itemId,
+      binId: input.binId,
+      lotId: input.lotId,
+      qty: input.delta,
+      unitCost: await currentAverage(em, input.itemId, bin.warehouseId),
+      reason: input.reason,
+      note: input.note ?? null,
+      doc: input.doc ?? null,
+    },
+  ])
+}
+
+/** From one bin to another in the same warehouse. */
+export async function moveBetweenBins(
+  em: EntityManager,
+  actor: StockActor,
+  input: { itemId: number; lotId: number | null; fromBinId: number; toBinId: number; qty: number; note?: string | null },
+): Promise<AppliedMoves> {
+  if (input.fromBinId === input.toBinId) throw AppError.badRequest('Choose a different bin to move to.', { toBinId: 'Same as the bin it comes from' })
+  const from = await storageBin(em, input.fromBinId)
+  await storageBin(em, input.toBinId, from.warehouseId)
+  const common = { moveType: 'bin_move' as const, itemId: input.itemId, lotId: input.lotId, note: input.note ?? null }
+  return applyMoves(em, actor, [
+    { ...common, binId: input.fromBinId, qty: -input.qty },
+    { ...common, binId: input.toBinId, qty: input.qty },
+  ])
+}

@@ -1,0 +1,94 @@
+// Transfers between warehouses: shipped out of source bins into the destination's transit bin
+// (visible there as in transit, never available to pick), then put away into storage bins.
+import { In, type EntityManager } from 'typeorm'
+import { Bin } from '../../entities/Bin.js'
+import { Transfer, TransferLine } from '../../entities/Transfer.js'
+import { Warehouse } from '../../entities/Warehouse.js'
+import { AppError } from '../../errors.js'
+import { averageInReceipt, currentAverage } from './averageCost.js'
+import { applyMoves, type StockActor } from './stockLedger.js'
+
+export const TRANSIT_BIN_CODE = 'IN-TRANSIT'
+
+export async function transitBin(em: EntityManager, warehouseId: number): Promise<Bin> {
+  await em.query(`INSERT IGNORE INTO bins (warehouse_id, code, kind, active) VALUES (?, ?, 'transit', 1)`, [warehouseId, TRANSIT_BIN_CODE])
+  return em.findOneByOrFail(Bin, { warehouseId, code: TRANSIT_BIN_CODE })
+}
+
+export interface ShipLine {
+  itemId: number
+  lotId: number | null
+  fromBinId: number
+  qty: number
+}
+
+export async function shipTransfer(
+  em: EntityManager,
+  actor: StockActor,
+  input: { fromWarehouseId: number; toWarehouseId: number; lines: ShipLine[]; note?: string | null },
+): Promise<{ transfer: Transfer; lines: TransferLine[] }> {
+  if (input.fromWarehouseId === input.toWarehouseId) {
+    throw AppError.badRequest('A transfer goes to another warehouse.', { toWarehouseId: 'Same as the warehouse it leaves' })
+  }
+  if (!input.lines.length) throw AppError.badRequest('A transfer needs at least one line.')
+  const warehouses = await em.findBy(Warehouse, { id: In([input.fromWarehouseId, input.toWarehouseId]) })
+  if (warehouses.length !== 2) throw AppError.notFound('That warehouse')
+  const bins = await em.findBy(Bin, { id: In(input.lines.map((l) => l.fromBinId)) })
+  for (const l of input.lines) {
+    const bin = bins.find((b) => b.id === l.fromBinId)
+    if (!bin || bin.warehouseId !== input.fromWarehouseId) throw AppError.badRequest(`Bin ${l.fromBinId} is not in the shipping warehouse.`)
+  }
+  const transit = await transitBin(em, input.toWarehouseId)
+  const transfer = await em.save(em.create(Transfer, {
+    fromWarehouseId: input.fromWarehouseId, toWarehouseId: input.toWarehouseId, status: 'in_transit', note: input.note ?? null, shippedBy: actor.userId,
+  }))
+  const lines = await em.save(input.lines.map((l) => em.create(TransferLine, { transferId: transfer.id, itemId: l.itemId, lotId: l.lotId, fromBinId: l.fromBinId, qty: l.qty, receivedQty: 0 })))
+  const specs = []
+  for (const line of lines) {
+    const unitCost = await currentAverage(em, line.itemId, input.fromWarehouseId)
+    await averageInReceipt(em, line.itemId, input.toWarehouseId, line.qty, unitCost)
+    const doc = { docType: 'transfer', docId: transfer.id, docLineId: line.id }
+    specs.push(
+      { moveType: 'transfer_out' as const, itemId: line.itemId, lotId: line.lotId, binId: line.fromBinId, qty: -line.qty, unitCost, doc },
+      { moveType: 'transfer_in' as const, itemId: line.itemId, lotId: line.lotId, binId: transit.id, qty: line.qty, unitCost, doc },
+    )
+  }
+  await applyMoves(em, actor, specs)
+  return { transfer, lines }
+}
+
+/** Puts away what arrived: from the transit bin into storage bins, line by line, partly if need be. */
+export async function receiveTransfer(
+  em: EntityManager,
+  actor: StockActor,
+  input: { transferId: number; lines: { lineId: number; toBinId: number; qty: number }[] },
+): Promise<Transfer> {
+  const transfer = await em.findOne(Transfer, { where: { id: input.transferId }, lock: { mode: 'pessimistic_write' } })
+  if (!transfer) throw AppError.notFound('That transfer')
+  if (transfer.status !== 'in_transit') throw AppError.conflict('This transfer was already received.')
+  const lines = await em.findBy(TransferLine, { transferId: transfer.id })
+  const transit = await transitBin(em, transfer.toWarehouseId)
+  const specs = []
+  for (const put of input.lines) {
+    const line = lines.find((l) => l.id === put.lineId)
+    if (!line) throw AppError.badRequest(`Line ${put.lineId} is not on this transfer.`)
+    if (line.receivedQty + put.qty > line.qty) {
+      throw AppError.conflict(`Only ${line.qty - line.receivedQty} left to receive on line ${line.id}.`)
+    }
+    const bin = await em.findOneBy(Bin, { id: put.toBinId })
+    if (!bin || bin.warehouseId !== transfer.toWarehouseId || bin.kind === 'transit') throw AppError.badRequest(`Bin ${put.toBinId} is not a storage bin of the receiving warehouse.`)
+    line.receivedQty += put.qty
+    const doc = { docType: 'transfer', docId: transfer.id, docLineId: line.id }
+    const common = { moveType: 'bin_move' as const, itemId: line.itemId, lotId: line.lotId, doc }
+    specs.push({ ...common, binId: transit.id, qty: -put.qty }, { ...common, binId: put.toBinId, qty: put.qty })
+  }
+  await applyMoves(em, actor, specs)
+  await em.save(lines)
+  if (lines.every((l) => l.receivedQty === l.qty)) {
+    transfer.status = 'received'
+    transfer.receivedAt = new Date()
+    transfer.receivedBy = actor.userId
+    await em.save(transfer)
+  }
+  return transfer
+}

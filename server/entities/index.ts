@@ -1,10 +1,13 @@
 // Every entity, listed once. A new entity is added here and gets a migration.
 import { AuditEntry } from './AuditEntry.js'
 import { Bin } from './Bin.js'
+import { Bom, BomLine } from './Bom.js'
+import { Customer, Job, Takeoff } from './Customer.js'
 import { IdempotencyRecord } from './IdempotencyRecord.js'
 import { Item } from './Item.js'
 import { ItemWarehouse } from './ItemWarehouse.js'
 import { Lot } from './Lot.js'
+import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
 import { StockBalance } from './StockBalance.js'
 import { StockMove } from './StockMove.js'
 import { StockReservation } from './StockReservation.js'
@@ -29,4 +32,12 @@ export const allEntities = [
   Transfer,
   TransferLine,
   IdempotencyRecord,
+  Customer,
+  Job,
+  Takeoff,
+  Bom,
+  BomLine,
+  PurchaseOrder,
+  PurchaseOrderLine,
+  PurchaseSuggestion,
 ]

@@ -88,7 +88,17 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.disable('x-powered-by')
   if (config.session.trustProxy) app.set('trust proxy', 1)
   app.use(securityHeaders())
-  app.use(pinoHttp({ logger, autoLogging: { ignore: (req) => !req.url?.startsWith('/api') } }))
+  app.use(
+    pinoHttp({
+      logger,
+      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
+      // One short line per request: no headers (cookies), no bodies (passwords).
+      serializers: {
+        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
+      },
+    }),
+  )
   app.use(express.json({ limit: '1mb' }))
 
   const { store, close: closeStore } = sessionStore(config)

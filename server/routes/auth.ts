@@ -35,7 +35,7 @@ export default (ctx: AppContext) =>
       method: 'get',
       path: '/',
       access: 'public', // the client asks at start-up; signed out is an answer, not an error
-      handler: (req) => ({ user: req.user ?? null }),
+      handler: (req) => ({ user: req.user ?? null, demo: ctx.config.env !== 'production' }),
     },
     {
       method: 'delete',

@@ -8,6 +8,8 @@ import { api } from '@/api/client'
 export const useSessionStore = defineStore('session', () => {
   const user = ref<SessionUser | null>(null)
   const loaded = ref(false)
+  /** The server runs the demo scenario: the sign-in page shows the demo sign-ins. */
+  const demo = ref(false)
 
   const signedIn = computed(() => user.value !== null)
   const areas = computed(() => (user.value ? areasFor(user.value.roles) : []))
@@ -15,8 +17,9 @@ export const useSessionStore = defineStore('session', () => {
 
   async function load(): Promise<void> {
     try {
-      const res = await api.get<{ user: SessionUser | null }>('/session', { quiet401: true })
+      const res = await api.get<{ user: SessionUser | null; demo: boolean }>('/session', { quiet401: true })
       user.value = res.user
+      demo.value = res.demo
     } finally {
       loaded.value = true
     }
@@ -44,5 +47,5 @@ export const useSessionStore = defineStore('session', () => {
     user.value = next
   }
 
-  return { user, loaded, signedIn, areas, can, load, signIn, signOut, forget, replaceUser }
+  return { user, loaded, demo, signedIn, areas, can, load, signIn, signOut, forget, replaceUser }
 })

@@ -8,6 +8,7 @@ import { loadConfig, type AppConfig } from '../../server/config.js'
 import { createDataSource } from '../../server/db/dataSource.js'
 import { User } from '../../server/entities/User.js'
 import { hashPassword } from '../../server/services/userService.js'
+import { isDuplicateKey } from '../../server/db/transaction.js'
 
 export const TEST_PASSWORD = 'test-password-123'
 export const CSRF = { 'X-Lumenyard-Request': '1' }
@@ -39,7 +40,13 @@ export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}
     const existing = await repo.findOneBy({ username })
     if (existing) return existing
     hashed ??= await hashPassword(TEST_PASSWORD)
-    return repo.save(repo.create({ username, displayName: `Test ${username}`, roles, passwordHash: hashed, active: true }))
+    try {
+      return await repo.save(repo.create({ username, displayName: `Test ${username}`, roles, passwordHash: hashed, active: true }))
+    } catch (err) {
+      // Another test file running at the same time created it first.
+      if (!isDuplicateKey(err)) throw err
+      return repo.findOneByOrFail({ username })
+    }
   }
 
   async function as(...roles: Role[]): Promise<supertest.Agent> {

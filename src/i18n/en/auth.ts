@@ -5,5 +5,5 @@ export default {
   submit: 'Sign in',
   signingIn: 'Signing in…',
   intro: 'Stock, takeoffs, picking and purchasing for the glass block yard.',
-  demoHint: 'Demo sign-ins: admin, counter, warehouse, buyer, viewer',
+  demoHint: 'Demo scenario: sign in as admin, counter, warehouse, buyer or viewer with the password brightcourse-demo.',
 }

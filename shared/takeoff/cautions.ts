@@ -1,0 +1,224 @@
+// Safety and code cautions shown beside a takeoff. Code limits come from the glass unit masonry section of
+// the International Residential Code (R607, 2021 edition); the rest is trade practice. Every list ends by
+// deferring to local codes and licensed practice.
+import type { BlockSpec, ShowerBase, Wall } from '../schemas/takeoff.js'
+import { formatLength, ft2ToM2, kgToPounds, MM_PER_FOOT, MM_PER_INCH, type LengthUnit } from '../units.js'
+import { JOINT_FACTS } from './geometry.js'
+import type { SectionPlan } from './sections.js'
+import type { WallGeometry } from './wallLayout.js'
+
+export type CautionLevel = 'stop' | 'warn' | 'info'
+
+export interface Caution {
+  level: CautionLevel
+  code?: string
+  message: string
+  wall?: string
+}
+
+export const CLOSING_CAUTION: Caution = {
+  level: 'info',
+  message:
+    'These checks are a guide, not an approval: local building codes, the block and spacer maker’s instructions ' +
+    'and licensed professionals have the final word on what is built.',
+}
+
+interface PanelLimit { areaFt2: number; widthFt: number; heightFt: number; code: string }
+
+/** IRC 2021 R607.4: panel size limits by exposure and unit thickness class. */
+export const PANEL_LIMITS: Record<'exterior' | 'interior', Record<'standard' | 'thin', PanelLimit>> = {
+  exterior: {
+    standard: { areaFt2: 144, widthFt: 25, heightFt: 20, code: 'IRC 2021 R607.4.1' },
+    thin: { areaFt2: 85, widthFt: 15, heightFt: 10, code: 'IRC 2021 R607.4.2' },
+  },
+  interior: {
+    standard: { areaFt2: 250, widthFt: 25, heightFt: 20, code: 'IRC 2021 R607.4.3' },
+    thin: { areaFt2: 150, widthFt: 25, heightFt: 20, code: 'IRC 2021 R607.4.3' },
+  },
+}
+
+/** IRC 2021 R607.3: least unit thickness, standard 3 7/8 in and thin 3 1/8 in. */
+export const MIN_THICKNESS_MM = { standard: 3.875 * MM_PER_INCH, thin: 3.125 * MM_PER_INCH }
+/** Metric blocks are listed to the whole millimetre; half a millimetre is not a thinner block. */
+const THICKNESS_TOLERANCE_MM = 0.5
+/** Exterior limits are set at this design wind pressure (IRC 2021 R607.4.1, R607.4.2). */
+export const LIMIT_WIND_PSF = 20
+
+const SEVERITY: Record<CautionLevel, number> = { stop: 0, warn: 1, info: 2 }
+
+const caution = (level: CautionLevel, message: string, code?: string): Caution => (code ? { level, code, message } : { level, message })
+
+export function panelLimitCautions(wall: Wall, g: WallGeometry, unit: LengthUnit): Caution[] {
+  const limit = PANEL_LIMITS[wall.exposure][wall.block.thicknessClass]
+  const where = `${wall.exposure} ${wall.block.thicknessClass} units`
+  const show = (mm: number) => formatLength(mm, unit, { feet: true })
+  const out: Caution[] = []
+  if (g.areaFt2 > limit.areaFt2 + 1e-9) {
+    const allowed = `${limit.areaFt2} ft² (${ft2ToM2(limit.areaFt2).toFixed(1)} m²)`
+    const area = `${g.areaFt2.toFixed(1)} ft² (${g.areaM2.toFixed(2)} m²)`
+    out.push(caution('stop', `Panel area ${area} is over the ${allowed} allowed for ${where}; split it with structural supports.`, limit.code))
+  }
+  if (g.panelWidthMm > limit.widthFt * MM_PER_FOOT + 1e-6) {
+    out.push(caution('stop', `Panel length ${show(g.panelWidthMm)} is over the ${limit.widthFt} ft allowed between supports for ${where}.`, limit.code))
+  }
+  if (g.panelHeightMm > limit.heightFt * MM_PER_FOOT + 1e-6) {
+    out.push(caution('stop', `Panel height ${show(g.panelHeightMm)} is over the ${limit.heightFt} ft allowed between supports for ${where}.`, limit.code))
+  }
+  return [...out, ...windCautions(wall)]
+}
+
+function windCautions(wall: Wall): Caution[] {
+  if (wall.exposure !== 'exterior') return []
+  const psf = wall.designWindPressurePsf
+  const thin = wall.block.thicknessClass === 'thin'
+  if (psf === undefined) {
+    const message = `Exterior limits assume a design wind pressure of ${LIMIT_WIND_PSF} psf; enter the site’s pressure to check it.`
+    return [caution('info', message, thin ? 'IRC 2021 R607.4.2' : 'IRC 2021 R607.4.1')]
+  }
+  if (psf <= LIMIT_WIND_PSF) return []
+  if (thin) {
+    const message = `Thin units may not be used outside where the design wind pressure (${psf} psf) exceeds ${LIMIT_WIND_PSF} psf.`
+    return [caution('stop', message, 'IRC 2021 R607.4.2')]
+  }
+  const message = `At ${psf} psf the allowed panel area is smaller than 144 ft²; read it from the code’s wind pressure chart.`
+  return [caution('warn', message, 'IRC 2021 R607.4.1')]
+}
+
+export function thicknessCautions(block: BlockSpec, unit: LengthUnit): Caution[] {
+  const depth = block.depthMm + THICKNESS_TOLERANCE_MM
+  const unitDepth = `A ${formatLength(block.depthMm, unit)} deep unit`
+  if (depth < MIN_THICKNESS_MM.thin) {
+    return [caution('stop', `${unitDepth} is thinner than the 3 1/8 in least thickness for glass unit masonry.`, 'IRC 2021 R607.3')]
+  }
+  if (block.thicknessClass === 'standard' && depth < MIN_THICKNESS_MM.standard) {
+    const message = `${unitDepth} is thinner than the 3 7/8 in a standard unit needs; treat it as a thin unit (smaller panel limits).`
+    return [caution('stop', message, 'IRC 2021 R607.3')]
+  }
+  return []
+}
+
+function mortarJointCautions(g: WallGeometry, unit: LengthUnit): Caution[] {
+  const out: Caution[] = []
+  const j = g.joint
+  if (Math.abs(j.jointMm - JOINT_FACTS.mortarJointMm) > 0.5) {
+    out.push(caution('warn', `Mortar head and bed joints are set at 1/4 in; this wall uses ${formatLength(j.jointMm, unit)}.`, 'IRC 2021 R607.10'))
+  }
+  const radialOutside = j.curveInsideJointMm < JOINT_FACTS.radialMinMm - 0.05 || j.maxOutsideJointMm > JOINT_FACTS.radialMaxMm + 0.05
+  if (g.hasCurve && radialOutside) {
+    const message = 'Radial joints of curved mortar panels must stay between 1/8 in and 5/8 in; this wall’s joint limits go outside that range.'
+    out.push(caution('warn', message, 'IRC 2021 R607.10'))
+  }
+  if (g.jambSpaceMm !== undefined && g.jambSpaceMm < JOINT_FACTS.expansionMinMm - 1e-6) {
+    const message = `Only ${formatLength(g.jambSpaceMm, unit)} is left at each jamb; expansion joints need at least 3/8 in. ` +
+      'Widen the opening or drop a block.'
+    out.push(caution('warn', message, 'IRC 2021 R607.7'))
+  }
+  if (j.expansionMm < JOINT_FACTS.expansionMinMm - 1e-6) {
+    out.push(caution('warn', `Expansion allowance ${formatLength(j.expansionMm, unit)} is under the 3/8 in at jambs and head.`, 'IRC 2021 R607.7'))
+  }
+  return out
+}
+
+export function jointCautions(g: WallGeometry, unit: LengthUnit): Caution[] {
+  if (g.joint.kind === 'mortar') return mortarJointCautions(g, unit)
+  const message = 'The code’s glass unit masonry text assumes mortar. A spacer (mortarless) system relies on its maker’s ' +
+    'installation instructions and the local building official’s approval.'
+  return [caution('warn', message, 'IRC 2021 R607')]
+}
+
+function inflectionCount(wall: Wall): number {
+  const turns = wall.segments.filter((s) => s.kind === 'curved').map((s) => s.direction)
+  return turns.slice(1).filter((d, i) => d !== turns[i]).length
+}
+
+export function curveCautions(wall: Wall, g: WallGeometry, unit: LengthUnit): Caution[] {
+  if (!g.hasCurve) return []
+  const inflections = inflectionCount(wall)
+  const where = inflections > 0 ? ` and at each of the ${inflections} point(s) where the curve reverses.` : ' and at any point where the curve reverses.'
+  const out = [caution('warn', `Curved panels keep the same size limits and need support where the curve meets a straight run${where}`, 'IRC 2021 R607.4.4')]
+  for (const s of g.segments) {
+    if (s.kind !== 'curved' || s.curve.radiusForExactArcMm === undefined) continue
+    const angles = `${s.blocks} blocks turn ${s.curve.builtAngleDeg.toFixed(1)}° against ${s.curve.requestedAngleDeg.toFixed(1)}° asked`
+    out.push(caution('info', `Segment ${s.index + 1}: ${angles}; an inside radius of ${formatLength(s.curve.radiusForExactArcMm, unit)} closes the arc exactly.`))
+  }
+  return out
+}
+
+export function endCautions(wall: Wall): Caution[] {
+  const free = [wall.freeEnds.start && 'start', wall.freeEnds.end && 'end'].filter(Boolean)
+  if (free.length === 0) return []
+  const message = `Free ${free.join(' and ')} of the wall: nothing to anchor to there. ` +
+    'Follow the maker’s free-end detail and make sure the panel is braced.'
+  return [caution('warn', message)]
+}
+
+export function wetAreaCautions(wall: Wall): Caution[] {
+  if (!wall.wetArea) return []
+  const message = 'Wet area: waterproof the floor and curb under the wall, set it on a ready-for-tile base, ' +
+    'slope the floor to the drain and use a sealant rated for wet areas.'
+  return [caution('info', message)]
+}
+
+export function showerBaseCautions(base: ShowerBase | undefined): Caution[] {
+  if (!base) return []
+  const out = [
+    caution('info', 'The shower base is made to order: confirm the footprint, curb, drain position and entry side on site ' +
+      'before ordering; it cannot be returned to stock.'),
+    caution('info', 'The floor must slope to the drain and be waterproofed under the base and up the walls.'),
+  ]
+  if (base.curbless) {
+    out.push(caution('warn', 'A curbless entry needs the floor recessed and the waterproofing carried past the entry; plan it with the builder.'))
+  }
+  return out
+}
+
+export function workCautions(g: WallGeometry, plan: SectionPlan, fixings: number): Caution[] {
+  const out: Caution[] = []
+  const heavy = plan.sections.filter((s) => s.overweight).map((s) => s.index + 1)
+  if (heavy.length > 0) {
+    const limit = `${plan.liftLimitKg.toFixed(1)} kg (${kgToPounds(plan.liftLimitKg).toFixed(0)} lb)`
+    const message = `Section(s) ${heavy.join(', ')} weigh more than a two-person lift of ${limit}: ` +
+      'add hands or a lifting aid, or build them smaller.'
+    out.push(caution('warn', message))
+  }
+  plan.notes.filter((note) => !note.includes('weigh')).forEach((message) => out.push(caution('info', message)))
+  if (fixings > 0) {
+    out.push(caution('info', 'Drilling masonry, concrete or tile: wear eye protection and keep the dust down (water or extraction, and a mask).'))
+  }
+  if (g.joint.kind === 'spacer') {
+    out.push(caution('info', 'Let the silicone cure before grouting: a few hours at least, overnight is safer for a first wall.'))
+  }
+  if (plan.sections.length > 0) out.push(caution('info', 'Check each section for level and plumb as it is set, before the next goes on.'))
+  return out
+}
+
+/** Stops first, then warnings, then notes; the closing line always last. */
+export function withClosingLine(cautions: Caution[]): Caution[] {
+  const sorted = cautions
+    .map((c, i) => ({ c, i }))
+    .sort((a, b) => SEVERITY[a.c.level] - SEVERITY[b.c.level] || a.i - b.i)
+    .map(({ c }) => c)
+  return [...sorted, CLOSING_CAUTION]
+}
+
+export interface WallCautionInput {
+  wall: Wall
+  geometry: WallGeometry
+  plan: SectionPlan
+  fixings: number
+  unit: LengthUnit
+}
+
+/** All cautions for one wall, closing line included. */
+export function wallCautions({ wall, geometry, plan, fixings, unit }: WallCautionInput): Caution[] {
+  const list = [
+    ...thicknessCautions(wall.block, unit),
+    ...panelLimitCautions(wall, geometry, unit),
+    ...jointCautions(geometry, unit),
+    ...curveCautions(wall, geometry, unit),
+    ...endCautions(wall),
+    ...wetAreaCautions(wall),
+    ...workCautions(geometry, plan, fixings),
+  ]
+  return withClosingLine(list.map((c) => ({ ...c, wall: wall.name })))
+}

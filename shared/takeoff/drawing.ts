@@ -1,0 +1,107 @@
+// A drawing model of each wall, free of any UI toolkit: the developed elevation (every block as a
+// rectangle in mm, tagged with its section, plus anchors and screws) and a plan view when the run turns.
+import type { Wall } from '../schemas/takeoff.js'
+import type { LengthUnit } from '../units.js'
+import type { Fixing } from './fasteners.js'
+import { buildPlanView, type WallPlanView } from './planView.js'
+import type { SectionPlan } from './sections.js'
+import type { WallGeometry } from './wallLayout.js'
+
+export type { WallPlanView, PlanFootprint, PlanArc, PlanLabel, Point } from './planView.js'
+export { toSvg, type SvgOptions } from './drawingSvg.js'
+
+export interface ElevationBlock {
+  /** Along the developed run from the panel's start, mm. */
+  xMm: number
+  /** Up from the bottom of the panel, mm. */
+  yMm: number
+  widthMm: number
+  heightMm: number
+  course: number
+  column: number
+  segment: number
+  section: number
+  kind: 'standard' | 'end' | 'corner'
+  curved: boolean
+}
+
+export interface SectionSummary {
+  index: number
+  blocks: number
+  weightKg: number
+  overweight: boolean
+}
+
+export interface WallElevation {
+  widthMm: number
+  heightMm: number
+  blocks: ElevationBlock[]
+  fixings: Fixing[]
+  freeEnds: Wall['freeEnds']
+  sections: SectionSummary[]
+}
+
+export interface WallDrawing {
+  wallName: string
+  unit: LengthUnit
+  elevation: WallElevation
+  /** Present when the run curves or turns a corner. */
+  plan?: WallPlanView
+}
+
+export interface DrawingInput {
+  wall: Wall
+  geometry: WallGeometry
+  plan: SectionPlan
+  fixings: Fixing[]
+  unit: LengthUnit
+}
+
+function blockKind(column: number, g: WallGeometry, wall: Wall): ElevationBlock['kind'] {
+  const col = g.columns[column]
+  if (col.kind === 'corner') return 'corner'
+  const atFreeStart = column === 0 && wall.freeEnds.start
+  const atFreeEnd = column === g.columns.length - 1 && wall.freeEnds.end
+  return atFreeStart || atFreeEnd ? 'end' : 'standard'
+}
+
+function elevationBlocks(wall: Wall, g: WallGeometry, plan: SectionPlan): ElevationBlock[] {
+  const sectionOf = new Map<string, number>()
+  plan.sections.forEach((s) => s.cells.forEach((c) => sectionOf.set(`${c.course},${c.column}`, s.index)))
+  const blocks: ElevationBlock[] = []
+  for (let course = 0; course < g.courses; course++) {
+    for (const col of g.columns) {
+      blocks.push({
+        xMm: col.xMm,
+        yMm: course * g.moduleUpMm,
+        widthMm: col.faceMm,
+        heightMm: wall.block.faceHeightMm,
+        course,
+        column: col.index,
+        segment: col.segment,
+        section: sectionOf.get(`${course},${col.index}`) ?? -1,
+        kind: blockKind(col.index, g, wall),
+        curved: col.kind === 'curved',
+      })
+    }
+  }
+  return blocks
+}
+
+/** The drawing model of one laid-out wall. */
+export function buildWallDrawing({ wall, geometry, plan, fixings, unit }: DrawingInput): WallDrawing {
+  const turns = geometry.segments.some((s) => s.kind !== 'straight')
+  return {
+    wallName: wall.name,
+    unit,
+    elevation: {
+      widthMm: geometry.panelWidthMm,
+      heightMm: geometry.panelHeightMm,
+      blocks: elevationBlocks(wall, geometry, plan),
+      fixings,
+      freeEnds: wall.freeEnds,
+      sections: plan.sections.map((s) => ({ index: s.index, blocks: s.blocks, weightKg: s.weightKg, overweight: s.overweight })),
+    },
+    plan: turns ? buildPlanView(geometry.segments, wall.block, geometry.joint.jointMm, unit) : undefined,
+  }
+}

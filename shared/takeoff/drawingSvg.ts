@@ -1,0 +1,167 @@
+// Renders a wall drawing model to a standalone SVG string: the elevation with one tone per section, the
+// plan view of a turning run, and a legend. Lumenyard's own look: cool glass tones on a white sheet.
+import { formatLength } from '../units.js'
+import type { ElevationBlock, WallDrawing, WallElevation } from './drawing.js'
+import type { Point, WallPlanView } from './planView.js'
+
+export interface SvgOptions {
+  view?: 'elevation' | 'plan' | 'both'
+  /** Overall width of the SVG in px. */
+  widthPx?: number
+  title?: string
+  legend?: boolean
+}
+
+const MARGIN = 24
+const LINE = 18
+const INK = '#22313f'
+const WARN = '#b3261e'
+
+const num = (v: number) => Number(v.toFixed(2)).toString()
+
+export function escapeXml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c] as string)
+}
+
+/** Distinct tones per section: hues a golden angle apart, soft like tinted glass. */
+export function sectionTone(index: number): { fill: string; stroke: string } {
+  if (index < 0) return { fill: '#eeeeee', stroke: '#888888' }
+  const hue = (200 + index * 137.508) % 360
+  return { fill: `hsl(${num(hue)}, 48%, 80%)`, stroke: `hsl(${num(hue)}, 40%, 38%)` }
+}
+
+function text(x: number, y: number, body: string, extra = ''): string {
+  return `<text x="${num(x)}" y="${num(y)}" fill="${INK}"${extra}>${escapeXml(body)}</text>`
+}
+
+function blockRect(b: ElevationBlock, x0: number, y0: number, s: number, heightMm: number, heavy: Set<number>): string {
+  const tone = sectionTone(b.section)
+  const x = x0 + b.xMm * s
+  const y = y0 + (heightMm - b.yMm - b.heightMm) * s
+  const stroke = heavy.has(b.section) ? WARN : tone.stroke
+  const dash = b.kind === 'corner' ? ' stroke-dasharray="3 2"' : ''
+  const width = b.kind === 'end' ? 2 : 1
+  return `<rect x="${num(x)}" y="${num(y)}" width="${num(b.widthMm * s)}" height="${num(b.heightMm * s)}" ` +
+    `fill="${tone.fill}" stroke="${stroke}" stroke-width="${width}"${dash} data-section="${b.section + 1}" ` +
+    `data-course="${b.course + 1}" data-column="${b.column + 1}"/>`
+}
+
+function fixingMarks(e: WallElevation, x0: number, y0: number, s: number): string[] {
+  return e.fixings.map((f) => {
+    const x = x0 + f.xMm * s
+    const y = y0 + (e.heightMm - f.yMm) * s
+    if (f.kind === 'screw') return `<circle cx="${num(x)}" cy="${num(y)}" r="3" fill="${INK}"/>`
+    return `<path d="M${num(x - 4)} ${num(y + 4)} L${num(x + 4)} ${num(y + 4)} L${num(x)} ${num(y - 4)} Z" fill="${WARN}"/>`
+  })
+}
+
+/** Each section's number at the middle of its blocks. */
+function sectionNumbers(e: WallElevation, x0: number, y0: number, s: number): string[] {
+  return e.sections.map((sec) => {
+    const mine = e.blocks.filter((b) => b.section === sec.index)
+    const cx = mine.reduce((sum, b) => sum + b.xMm + b.widthMm / 2, 0) / mine.length
+    const cy = mine.reduce((sum, b) => sum + b.yMm + b.heightMm / 2, 0) / mine.length
+    return text(x0 + cx * s, y0 + (e.heightMm - cy) * s + 4, `${sec.index + 1}`, ' text-anchor="middle" font-weight="600"')
+  })
+}
+
+function elevationSvg(d: WallDrawing, top: number, widthPx: number): { body: string[]; height: number } {
+  const e = d.elevation
+  const s = e.widthMm > 0 ? widthPx / e.widthMm : 1
+  const heavy = new Set(e.sections.filter((x) => x.overweight).map((x) => x.index))
+  const y0 = top + LINE
+  const body = [
+    '<g class="elevation">',
+    text(MARGIN, top + 12, `Elevation (developed) · ${formatLength(e.widthMm, d.unit, { feet: true })} × ${formatLength(e.heightMm, d.unit, { feet: true })}`, ' font-weight="600"'),
+    ...e.blocks.map((b) => blockRect(b, MARGIN, y0, s, e.heightMm, heavy)),
+    ...fixingMarks(e, MARGIN, y0, s),
+    ...sectionNumbers(e, MARGIN, y0, s),
+  ]
+  if (e.freeEnds.start) body.push(text(MARGIN, y0 + e.heightMm * s + 14, 'free end'))
+  if (e.freeEnds.end) body.push(text(MARGIN + e.widthMm * s, y0 + e.heightMm * s + 14, 'free end', ' text-anchor="end"'))
+  body.push('</g>')
+  return { body, height: LINE + e.heightMm * s + LINE + 6 }
+}
+
+function arcPoints(centre: Point, r: number, startDeg: number, endDeg: number): Point[] {
+  const steps = 48
+  return Array.from({ length: steps + 1 }, (_, i) => {
+    const a = ((startDeg + ((endDeg - startDeg) * i) / steps) * Math.PI) / 180
+    return { x: centre.x + r * Math.cos(a), y: centre.y + r * Math.sin(a) }
+  })
+}
+
+function planSvg(plan: WallPlanView, top: number, widthPx: number): { body: string[]; height: number } {
+  const b = plan.bounds
+  const spanX = Math.max(b.maxX - b.minX, 1)
+  const spanY = Math.max(b.maxY - b.minY, 1)
+  const s = Math.min(widthPx / spanX, (1.5 * widthPx) / spanY)
+  const y0 = top + LINE
+  const at = (p: Point) => `${num(MARGIN + (p.x - b.minX) * s)},${num(y0 + (b.maxY - p.y) * s)}`
+  const body = ['<g class="plan">', text(MARGIN, top + 12, 'Plan', ' font-weight="600"')]
+  for (const f of plan.footprints) {
+    const fill = f.kind === 'curved' ? '#cfe6ef' : f.kind === 'corner' ? '#d9d4ec' : '#e3eef2'
+    body.push(`<polygon points="${f.corners.map(at).join(' ')}" fill="${fill}" stroke="${INK}" stroke-width="0.8"/>`)
+  }
+  for (const arc of plan.arcs) {
+    body.push(`<polyline points="${arcPoints(arc.centre, arc.radiusMm, arc.startDeg, arc.endDeg).map(at).join(' ')}" fill="none" stroke="${INK}" stroke-dasharray="6 4" class="layout-arc"/>`)
+  }
+  for (const l of plan.labels) {
+    const [x, y] = at(l.at).split(',').map(Number)
+    body.push(text(x, y, l.text, ' text-anchor="middle"'))
+  }
+  body.push('</g>')
+  return { body, height: LINE + spanY * s + LINE }
+}
+
+function legendSvg(d: WallDrawing, top: number, widthPx: number): { body: string[]; height: number } {
+  const perRow = Math.max(1, Math.floor(widthPx / 200))
+  const items = d.elevation.sections.map((sec) => {
+    const tone = sectionTone(sec.index)
+    const label = `Section ${sec.index + 1}: ${sec.blocks} blocks, ${sec.weightKg.toFixed(1)} kg${sec.overweight ? ' (heavy)' : ''}`
+    return { fill: tone.fill, stroke: sec.overweight ? WARN : tone.stroke, label }
+  })
+  items.push({ fill: '#ffffff', stroke: INK, label: '▲ anchor  ● screw  bold edge: end block' })
+  const body = ['<g class="legend">']
+  items.forEach((item, i) => {
+    const x = MARGIN + (i % perRow) * 200
+    const y = top + Math.floor(i / perRow) * LINE
+    body.push(`<rect x="${x}" y="${y}" width="12" height="12" fill="${item.fill}" stroke="${item.stroke}"/>`)
+    body.push(text(x + 18, y + 11, item.label))
+  })
+  body.push('</g>')
+  return { body, height: Math.ceil(items.length / perRow) * LINE + 8 }
+}
+
+/** A standalone SVG of one wall drawing. */
+export function toSvg(drawing: WallDrawing, options: SvgOptions = {}): string {
+  const widthPx = options.widthPx ?? 800
+  const inner = widthPx - 2 * MARGIN
+  const view = options.view ?? 'both'
+  const title = options.title ?? drawing.wallName
+  const parts: string[] = [text(MARGIN, MARGIN, title, ' font-size="15" font-weight="700"')]
+  let y = MARGIN + 10
+  if (view !== 'plan') {
+    const e = elevationSvg(drawing, y, inner)
+    parts.push(...e.body)
+    y += e.height
+  }
+  if (view !== 'elevation' && drawing.plan) {
+    const p = planSvg(drawing.plan, y, inner)
+    parts.push(...p.body)
+    y += p.height
+  }
+  if (options.legend !== false) {
+    const l = legendSvg(drawing, y, inner)
+    parts.push(...l.body)
+    y += l.height
+  }
+  const height = Math.ceil(y + MARGIN)
+  return [
+    `<svg xmlns="http://www.w3.org/2000/svg" width="${widthPx}" height="${height}" viewBox="0 0 ${widthPx} ${height}" font-family="'Open Sans', sans-serif" font-size="12">`,
+    `<title>${escapeXml(title)}</title>`,
+    `<rect width="100%" height="100%" fill="#ffffff"/>`,
+    ...parts,
+    '</svg>',
+  ].join('\n')
+}

@@ -1,0 +1,12 @@
+// The takeoff computation's public surface, for the client form and the server's save path.
+export * from './billOfMaterials.js'
+export * from './cautions.js'
+export * from './curve.js'
+export * from './drawing.js'
+export * from './fasteners.js'
+export * from './geometry.js'
+export * from './materials.js'
+export * from './packRounding.js'
+export * from './sections.js'
+export * from './wallLayout.js'
+export * from './wallMeasures.js'

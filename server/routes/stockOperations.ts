@@ -1,5 +1,7 @@
 // Stock-changing requests from the warehouse screens. Each is one transaction through the stock
 // service and honours Idempotency-Key.
+import type { EntityManager } from 'typeorm'
+import type { z } from 'zod'
 import {
   adjustmentSchema,
   binMoveSchema,
@@ -9,10 +11,10 @@ import {
   transferShipSchema,
 } from '../../shared/schemas/stock.js'
 import type { AppContext } from '../context.js'
-import { allow, defineRoutes } from '../http/routeTable.js'
+import { allow, defineRoutes, type RouteSpec } from '../http/routeTable.js'
 import { runStockRequest } from '../http/stockRequest.js'
 import { idParam, parseBody } from '../http/validate.js'
-import { adjust, issue, moveBetweenBins, receive } from '../services/stock/stockService.js'
+import { adjust, issue, moveBetweenBins, receive, type StockActor } from '../services/stock/stockService.js'
 import { receiveTransfer, shipTransfer } from '../services/stock/stockTransfers.js'
 import type { AppliedMoves } from '../services/stock/stockLedger.js'
 
@@ -23,64 +25,38 @@ const summary = (applied: AppliedMoves) => ({
   moves: applied.moves.map((m) => ({ id: m.id, moveType: m.moveType, itemId: m.itemId, binId: m.binId, lotId: m.lotId, qty: m.qty })),
 })
 
+/** A POST that parses its body with the shared schema and runs one stock operation. */
+function stockPost<S extends z.ZodType>(
+  ctx: AppContext,
+  path: string,
+  schema: S,
+  operation: (em: EntityManager, actor: StockActor, input: z.infer<S>, params: Record<string, string>) => Promise<unknown>,
+  status = 201,
+): RouteSpec {
+  return {
+    method: 'post',
+    path,
+    access: movers,
+    handler: (req, res) => {
+      const input = parseBody(schema, req.body)
+      const params = req.params as Record<string, string>
+      return runStockRequest(ctx, req, res, (em) => operation(em, { userId: req.user!.id }, input, params), status)
+    },
+  }
+}
+
 export default (ctx: AppContext) =>
   defineRoutes('/stock', [
-    {
-      method: 'post',
-      path: '/adjustments',
-      access: movers,
-      handler: (req, res) => {
-        const input = parseBody(adjustmentSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => summary(await adjust(em, { userId: req.user!.id }, input)), 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/bin-moves',
-      access: movers,
-      handler: (req, res) => {
-        const input = parseBody(binMoveSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => summary(await moveBetweenBins(em, { userId: req.user!.id }, input)), 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/issues',
-      access: movers,
-      handler: (req, res) => {
-        const input = parseBody(issueSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => summary(await issue(em, { userId: req.user!.id }, input)), 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/receipts',
-      access: movers,
-      handler: (req, res) => {
-        const input = parseBody(receiptSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => summary(await receive(em, { userId: req.user!.id }, input)), 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/transfers',
-      access: movers,
-      handler: (req, res) => {
-        const input = parseBody(transferShipSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => {
-          const { transfer, lines } = await shipTransfer(em, { userId: req.user!.id }, input)
-          return { transfer, lines }
-        }, 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/transfers/:id/receive',
-      access: movers,
-      handler: (req, res) => {
-        const id = idParam(req.params.id, 'That transfer')
-        const input = parseBody(transferReceiveSchema, req.body)
-        return runStockRequest(ctx, req, res, (em) => receiveTransfer(em, { userId: req.user!.id }, { transferId: id, lines: input.lines }))
-      },
-    },
+    stockPost(ctx, '/adjustments', adjustmentSchema, async (em, actor, input) => summary(await adjust(em, actor, input))),
+    stockPost(ctx, '/bin-moves', binMoveSchema, async (em, actor, input) => summary(await moveBetweenBins(em, actor, input))),
+    stockPost(ctx, '/issues', issueSchema, async (em, actor, input) => summary(await issue(em, actor, input))),
+    stockPost(ctx, '/receipts', receiptSchema, async (em, actor, input) => summary(await receive(em, actor, input))),
+    stockPost(ctx, '/transfers', transferShipSchema, (em, actor, input) => shipTransfer(em, actor, input)),
+    stockPost(
+      ctx,
+      '/transfers/:id/receive',
+      transferReceiveSchema,
+      (em, actor, input, params) => receiveTransfer(em, actor, { transferId: idParam(params.id, 'That transfer'), lines: input.lines }),
+      200,
+    ),
   ])

@@ -2,7 +2,12 @@
 // Loaded by `npm start` and `npm test` when the database is empty; every step is idempotent.
 import type { DataSource, EntityManager } from 'typeorm'
 import { User } from '../entities/User.js'
+import { loadDemoCatalog } from './demoCatalog.js'
+import { loadDemoCounter } from './demoCounter.js'
+import { loadDemoPurchasing } from './demoPurchasing.js'
+import { loadDemoStock } from './demoStock.js'
 import { loadDemoUsers } from './demoUsers.js'
+import { loadDemoWarehouses } from './demoWarehouses.js'
 
 export interface DemoStep {
   name: string
@@ -10,7 +15,14 @@ export interface DemoStep {
 }
 
 /** Steps in order; later features append theirs. */
-export const demoSteps: DemoStep[] = [{ name: 'users', run: (em) => loadDemoUsers(em) }]
+export const demoSteps: DemoStep[] = [
+  { name: 'users', run: (em) => loadDemoUsers(em) },
+  { name: 'catalog', run: (em) => loadDemoCatalog(em) },
+  { name: 'warehouses', run: (em) => loadDemoWarehouses(em) },
+  { name: 'stock history', run: (em) => loadDemoStock(em) },
+  { name: 'counter', run: (em) => loadDemoCounter(em) },
+  { name: 'purchasing', run: (em) => loadDemoPurchasing(em) },
+]
 
 export async function isDatabaseEmpty(ds: DataSource): Promise<boolean> {
   return (await ds.getRepository(User).count()) === 0

@@ -26,6 +26,13 @@ export class PurchaseOrder {
   @Column({ name: 'closed_at', type: 'datetime', nullable: true }) closedAt: Date | null
   @Column({ name: 'cancelled_by', type: 'int', nullable: true }) cancelledBy: number | null
   @Column({ name: 'cancelled_at', type: 'datetime', nullable: true }) cancelledAt: Date | null
+  @Column({ name: 'received_by', type: 'int', nullable: true }) receivedBy: number | null
+  @Column({ name: 'received_at', type: 'datetime', nullable: true }) receivedAt: Date | null
+  @Column({ name: 'closed_by', type: 'int', nullable: true }) closedBy: number | null
+  @Column({ name: 'close_reason', type: 'varchar', length: 200, nullable: true }) closeReason: string | null
+  @Column({ name: 'cancel_reason', type: 'varchar', length: 200, nullable: true }) cancelReason: string | null
+  /** The last e-mail attempt's error; cleared by a send that works. */
+  @Column({ name: 'send_error', type: 'varchar', length: 500, nullable: true }) sendError: string | null
 }
 
 /** Ordered in purchase packs; qty_ordered = packs_ordered × pack_qty stock units. */
@@ -41,6 +48,8 @@ export class PurchaseOrderLine {
   @Column({ name: 'packs_ordered', type: 'int' }) packsOrdered: number
   @Column({ name: 'qty_ordered', type: 'int' }) qtyOrdered: number
   @Column({ name: 'qty_received', type: 'int', default: 0 }) qtyReceived: number
+  /** Arrived damaged and refused: not in stock, still owed by the vendor. */
+  @Column({ name: 'qty_damaged', type: 'int', default: 0 }) qtyDamaged: number
   /** Per stock unit. */
   @Column({ name: 'unit_cost', type: 'decimal', precision: 12, scale: 4 }) unitCost: string
   @Column({ name: 'bom_line_id', type: 'int', nullable: true }) bomLineId: number | null

@@ -3,11 +3,17 @@ import { AuditEntry } from './AuditEntry.js'
 import { Bin } from './Bin.js'
 import { Bom, BomLine } from './Bom.js'
 import { Customer, Job, Takeoff } from './Customer.js'
+import { BomSnapshot, MaterialRoleItem, MaterialRuleRow, WasteAllowance } from './TakeoffSettings.js'
 import { IdempotencyRecord } from './IdempotencyRecord.js'
 import { Item } from './Item.js'
 import { ItemWarehouse } from './ItemWarehouse.js'
 import { Lot } from './Lot.js'
+import { PickConfirmation, PickList, PickListLine, PickShortage, PickTransferProposal } from './PickList.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
+import { PurchaseReceipt, PurchaseReceiptLine } from './PurchaseReceipt.js'
+import { OutboxMessage } from './OutboxMessage.js'
+import { AppSetting } from './AppSetting.js'
+import { ReorderPolicyRow } from './ReorderPolicy.js'
 import { StockBalance } from './StockBalance.js'
 import { StockMove } from './StockMove.js'
 import { StockReservation } from './StockReservation.js'
@@ -40,4 +46,18 @@ export const allEntities = [
   PurchaseOrder,
   PurchaseOrderLine,
   PurchaseSuggestion,
+  PurchaseReceipt,
+  PurchaseReceiptLine,
+  OutboxMessage,
+  AppSetting,
+  ReorderPolicyRow,
+  MaterialRuleRow,
+  WasteAllowance,
+  MaterialRoleItem,
+  BomSnapshot,
+  PickList,
+  PickListLine,
+  PickConfirmation,
+  PickShortage,
+  PickTransferProposal,
 ]

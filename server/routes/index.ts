@@ -4,9 +4,24 @@ import auth from './auth.js'
 import health from './health.js'
 import profile from './profile.js'
 import stockOperations from './stockOperations.js'
+import stockViews from './stockViews.js'
 import users from './users.js'
+import items from './items.js'
+import warehouses from './warehouses.js'
+import reorder from './reorder.js'
+import customers from './customers.js'
+import jobs from './jobs.js'
+import takeoffs from './takeoffs.js'
+import boms from './boms.js'
+import takeoffSettings from './takeoffSettings.js'
+import pickLists from './pickLists.js'
+import pickingSetup from './pickingSetup.js'
+import vendors from './vendors.js'
+import purchaseOrders from './purchaseOrders.js'
+import purchaseOrderDelivery from './purchaseOrderDelivery.js'
+import purchasing, { jobPurchasingRoutes } from './purchasing.js'
 
-export const routers = [health, auth, profile, users, stockOperations]
+export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

@@ -3,13 +3,16 @@ import type { CatalogItem, ShowerBase } from '../schemas/takeoff.js'
 import type { BomLine } from './billOfMaterials.js'
 import { roleLabels } from './materials.js'
 
+/** Inch entries arrive as 1219.1999999999998 mm; the explanation shows a tenth of a millimetre. */
+const mm = (value: number) => Number(value.toFixed(1))
+
 function specInputs(base: ShowerBase): Record<string, string | number> {
   return {
-    widthMm: base.widthMm,
-    depthMm: base.depthMm,
-    curb: base.curbless ? 'curbless' : base.curb ? `curved, R ${base.curb.radiusMm} mm, ${base.curb.arcDeg}°` : 'straight',
-    drainFromLeftMm: base.drain.fromLeftMm,
-    drainFromBackMm: base.drain.fromBackMm,
+    widthMm: mm(base.widthMm),
+    depthMm: mm(base.depthMm),
+    curb: base.curbless ? 'curbless' : base.curb ? `curved, R ${mm(base.curb.radiusMm)} mm, ${base.curb.arcDeg}°` : 'straight',
+    drainFromLeftMm: mm(base.drain.fromLeftMm),
+    drainFromBackMm: mm(base.drain.fromBackMm),
     entry: base.entry,
     ...(base.note ? { note: base.note } : {}),
   }

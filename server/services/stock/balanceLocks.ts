@@ -2,7 +2,7 @@
 // operations touching the same rows queue up instead of deadlocking. Missing rows are created first
 // (INSERT IGNORE on the unique key), then every row is read with SELECT … FOR UPDATE, one by one and
 // without joins, as MariaDB locks exactly those index records.
-import { IsNull, type EntityManager } from 'typeorm'
+import type { EntityManager } from 'typeorm'
 import { StockBalance } from '../../entities/StockBalance.js'
 
 export interface BalanceKey {
@@ -27,18 +27,35 @@ export async function lockBalances(
   const ordered = [...unique.values()].sort(compareKeys)
   if (opts.create && ordered.length) {
     const values = ordered.map(() => '(?, ?, ?, ?, 0, 0)').join(', ')
+    // ON DUPLICATE KEY UPDATE locks existing rows exclusively, in this order; INSERT IGNORE locked them
+    // shared, and two operations then deadlocked upgrading to FOR UPDATE.
     await em.query(
-      `INSERT IGNORE INTO stock_balances (item_id, warehouse_id, bin_id, lot_id, on_hand, reserved) VALUES ${values}`,
+      `INSERT INTO stock_balances (item_id, warehouse_id, bin_id, lot_id, on_hand, reserved) VALUES ${values} ON DUPLICATE KEY UPDATE on_hand = on_hand`,
       ordered.flatMap((k) => [k.itemId, k.warehouseId, k.binId, k.lotId]),
     )
   }
   const locked = new Map<string, StockBalance>()
   for (const k of ordered) {
-    const row = await em.findOne(StockBalance, {
-      where: { itemId: k.itemId, binId: k.binId, lotId: k.lotId ?? IsNull() },
-      lock: { mode: 'pessimistic_write' },
-    })
+    const row = await lockOne(em, k)
     if (row) locked.set(balanceKey(k), row)
   }
   return locked
+}
+
+/**
+ * By the unique key (item_id, bin_id, lot_key): an exact match locks that one row. Matching lot_id
+ * instead could use only the (item, bin) prefix, so FOR UPDATE locked every lot in the bin and the
+ * next bin's first row too, and issues and moves in neighbouring bins deadlocked under load.
+ */
+async function lockOne(em: EntityManager, k: BalanceKey): Promise<StockBalance | null> {
+  const rows: { id: number; item_id: number; warehouse_id: number; bin_id: number; lot_id: number | null; on_hand: number; reserved: number }[] =
+    await em.query(
+      'SELECT id, item_id, warehouse_id, bin_id, lot_id, on_hand, reserved FROM stock_balances WHERE item_id = ? AND bin_id = ? AND lot_key = ? FOR UPDATE',
+      [k.itemId, k.binId, k.lotId ?? 0],
+    )
+  const r = rows[0]
+  if (!r) return null
+  return em.create(StockBalance, {
+    id: r.id, itemId: r.item_id, warehouseId: r.warehouse_id, binId: r.bin_id, lotId: r.lot_id, onHand: r.on_hand, reserved: r.reserved,
+  })
 }

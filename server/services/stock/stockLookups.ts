@@ -1,9 +1,10 @@
 // Loads the items, bins and lots an operation names, once, and checks they fit together.
 import { In, type EntityManager } from 'typeorm'
-import { Bin } from '../../entities/Bin.js'
+import type { Bin } from '../../entities/Bin.js'
 import { Item } from '../../entities/Item.js'
-import { Lot } from '../../entities/Lot.js'
+import type { Lot } from '../../entities/Lot.js'
 import { AppError } from '../../errors.js'
+import { currentBinsById, currentLotsById } from './currentRows.js'
 
 export interface Lookups {
   item(id: number): Item
@@ -17,11 +18,11 @@ export async function loadLookups(
   refs: readonly { itemId: number; binId: number; lotId: number | null }[],
 ): Promise<Lookups> {
   const ids = (pick: (r: (typeof refs)[number]) => number | null) => [...new Set(refs.map(pick).filter((v): v is number => v !== null))]
-  const [items, bins, lots] = await Promise.all([
-    em.findBy(Item, { id: In(ids((r) => r.itemId)) }),
-    em.findBy(Bin, { id: In(ids((r) => r.binId)) }),
-    ids((r) => r.lotId).length ? em.findBy(Lot, { id: In(ids((r) => r.lotId)) }) : Promise.resolve([] as Lot[]),
-  ])
+  // Bins and lots with a current read: a transit bin or lot created by a concurrent request after this
+  // transaction's snapshot is invisible to a plain read under REPEATABLE READ (a 404 for a real bin).
+  const items = await em.findBy(Item, { id: In(ids((r) => r.itemId)) })
+  const bins = await currentBinsById(em, ids((r) => r.binId))
+  const lots = await currentLotsById(em, ids((r) => r.lotId))
   const itemMap = new Map(items.map((i) => [i.id, i]))
   const binMap = new Map(bins.map((b) => [b.id, b]))
   const lotMap = new Map(lots.map((l) => [l.id, l]))

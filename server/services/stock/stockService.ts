@@ -7,6 +7,7 @@ import { Bin } from '../../entities/Bin.js'
 import { Lot } from '../../entities/Lot.js'
 import { AppError } from '../../errors.js'
 import { averageInReceipt, currentAverage } from './averageCost.js'
+import { currentLotByCode } from './currentRows.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
 
 export type { DocRef, StockActor }
@@ -29,6 +30,8 @@ async function storageBin(em: EntityManager, binId: number, warehouseId?: number
   const bin = await em.findOneBy(Bin, { id: binId })
   if (!bin) throw AppError.notFound('That bin')
   if (!bin.active) throw AppError.conflict(`Bin ${bin.code} is not in use.`)
+  // Stock in a transit bin is on its way, never available: it leaves only by receiving the transfer.
+  if (bin.kind === 'transit') throw AppError.conflict(`Bin ${bin.code} holds stock in transit; receive the transfer to put it away.`)
   if (warehouseId !== undefined && bin.warehouseId !== warehouseId) {
     throw AppError.badRequest(`Bin ${bin.code} is in another warehouse.`)
   }
@@ -50,7 +53,11 @@ export async function findOrCreateLot(
     extra.vendorId ?? null,
     extra.tintNote ?? null,
   ])
-  return em.findOneByOrFail(Lot, { itemId, code })
+  // A locking read: a lot another request created after this transaction's snapshot is invisible to a
+  // plain read under REPEATABLE READ (the insert above was then ignored), which made this a 500.
+  const lot = await currentLotByCode(em, itemId, code)
+  if (!lot) throw AppError.notFound(`Item ${itemId}`) // INSERT IGNORE also skips a lot of an unknown item
+  return lot
 }
 
 /** Receipt into bins: on hand up, moving-average cost blended per item and warehouse. */
@@ -63,12 +70,14 @@ export async function receive(
   const specs = []
   // Sorted so concurrent receipts lock item_warehouses rows in one order.
   const lines = [...input.lines].sort((a, b) => a.itemId - b.itemId)
+  const pending = new Map<number, number>()
   for (const line of lines) {
     await storageBin(em, line.binId, input.warehouseId)
     const lotId = line.lotId ?? (line.lotCode ? (await findOrCreateLot(em, line.itemId, line.lotCode, {
       receivedAt: line.lotReceivedAt, vendorId: line.vendorId, tintNote: line.tintNote,
     })).id : null)
-    await averageInReceipt(em, line.itemId, input.warehouseId, line.qty, line.unitCost)
+    await averageInReceipt(em, line.itemId, input.warehouseId, line.qty, line.unitCost, pending.get(line.itemId) ?? 0)
+    pending.set(line.itemId, (pending.get(line.itemId) ?? 0) + line.qty)
     specs.push({
       moveType: 'receipt' as const,
       itemId: line.itemId,

@@ -6,13 +6,18 @@ import { Transfer, TransferLine } from '../../entities/Transfer.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError } from '../../errors.js'
 import { averageInReceipt, currentAverage } from './averageCost.js'
+import { currentBinByCode } from './currentRows.js'
 import { applyMoves, type StockActor } from './stockLedger.js'
 
 export const TRANSIT_BIN_CODE = 'IN-TRANSIT'
 
 export async function transitBin(em: EntityManager, warehouseId: number): Promise<Bin> {
   await em.query(`INSERT IGNORE INTO bins (warehouse_id, code, kind, active) VALUES (?, ?, 'transit', 1)`, [warehouseId, TRANSIT_BIN_CODE])
-  return em.findOneByOrFail(Bin, { warehouseId, code: TRANSIT_BIN_CODE })
+  // A locking read sees the bin even when a concurrent first transfer created it after this
+  // transaction's snapshot (a plain read did not: 500 on the first transfers into a warehouse).
+  const bin = await currentBinByCode(em, warehouseId, TRANSIT_BIN_CODE)
+  if (!bin) throw AppError.notFound('That warehouse')
+  return bin
 }
 
 export interface ShipLine {
@@ -37,6 +42,7 @@ export async function shipTransfer(
   for (const l of input.lines) {
     const bin = bins.find((b) => b.id === l.fromBinId)
     if (!bin || bin.warehouseId !== input.fromWarehouseId) throw AppError.badRequest(`Bin ${l.fromBinId} is not in the shipping warehouse.`)
+    if (bin.kind === 'transit') throw AppError.conflict(`Bin ${bin.code} holds stock in transit; receive that transfer first.`)
   }
   const transit = await transitBin(em, input.toWarehouseId)
   const transfer = await em.save(em.create(Transfer, {
@@ -44,9 +50,12 @@ export async function shipTransfer(
   }))
   const lines = await em.save(input.lines.map((l) => em.create(TransferLine, { transferId: transfer.id, itemId: l.itemId, lotId: l.lotId, fromBinId: l.fromBinId, qty: l.qty, receivedQty: 0 })))
   const specs = []
-  for (const line of lines) {
+  const pending = new Map<number, number>()
+  // By item, so concurrent transfers lock item_warehouses rows in one order (as receipts do).
+  for (const line of [...lines].sort((a, b) => a.itemId - b.itemId)) {
     const unitCost = await currentAverage(em, line.itemId, input.fromWarehouseId)
-    await averageInReceipt(em, line.itemId, input.toWarehouseId, line.qty, unitCost)
+    await averageInReceipt(em, line.itemId, input.toWarehouseId, line.qty, unitCost, pending.get(line.itemId) ?? 0)
+    pending.set(line.itemId, (pending.get(line.itemId) ?? 0) + line.qty)
     const doc = { docType: 'transfer', docId: transfer.id, docLineId: line.id }
     specs.push(
       { moveType: 'transfer_out' as const, itemId: line.itemId, lotId: line.lotId, binId: line.fromBinId, qty: -line.qty, unitCost, doc },

@@ -4,12 +4,26 @@ import { AREA_ROLES } from '@shared/roles'
 export const adminRoutes: RouteRecordRaw[] = [
   {
     path: '/admin',
-    redirect: { name: 'admin-users' },
+    name: 'admin-home',
+    component: () => import('@/views/admin/AdminHomeView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'shell.areas.admin' },
   },
   {
     path: '/admin/users',
     name: 'admin-users',
     component: () => import('@/views/admin/UsersView.vue'),
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'admin.usersTitle' },
+  },
+  {
+    path: '/admin/outbox',
+    name: 'admin-outbox',
+    component: () => import('@/views/admin/OutboxView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'purchasing.outboxTitle' },
+  },
+  {
+    path: '/admin/purchasing-settings',
+    name: 'admin-purchasing-settings',
+    component: () => import('@/views/admin/PurchasingSettingsView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'purchasing.settingsTitle' },
   },
 ]

@@ -1,12 +1,68 @@
 import type { RouteRecordRaw } from 'vue-router'
 import { AREA_ROLES } from '@shared/roles'
 
+const counter = { area: 'counter' as const, roles: AREA_ROLES.counter }
+
 export const counterRoutes: RouteRecordRaw[] = [
   {
     path: '/counter',
     name: 'counter-home',
-    component: () => import('@/views/AreaLandingView.vue'),
-    props: { area: 'counter' },
-    meta: { area: 'counter', roles: AREA_ROLES.counter, title: 'shell.areas.counter' },
+    component: () => import('@/views/counter/CounterHomeView.vue'),
+    meta: { ...counter, title: 'shell.areas.counter' },
+  },
+  {
+    path: '/counter/customers',
+    name: 'counter-customers',
+    component: () => import('@/views/counter/CustomersView.vue'),
+    meta: { ...counter, title: 'counter.customersTitle' },
+  },
+  {
+    path: '/counter/jobs',
+    name: 'counter-jobs',
+    component: () => import('@/views/counter/JobsView.vue'),
+    meta: { ...counter, title: 'counter.jobsTitle' },
+  },
+  {
+    path: '/counter/jobs/:id(\\d+)',
+    name: 'counter-job',
+    component: () => import('@/views/counter/JobView.vue'),
+    meta: { ...counter, title: 'counter.job' },
+  },
+  {
+    path: '/counter/takeoffs/:id(\\d+)',
+    name: 'counter-takeoff',
+    component: () => import('@/views/counter/TakeoffEditorView.vue'),
+    meta: { ...counter, title: 'counter.takeoff' },
+  },
+  {
+    path: '/counter/boms/:id(\\d+)',
+    name: 'counter-bom',
+    component: () => import('@/views/counter/BomView.vue'),
+    meta: { ...counter, title: 'counter.billTitle' },
+  },
+  {
+    path: '/counter/settings',
+    name: 'counter-settings',
+    component: () => import('@/views/counter/TakeoffSettingsView.vue'),
+    meta: { area: 'counter', roles: ['admin'], title: 'counter.settingsTitle' },
+  },
+  // Pick lists (made from a saved bill of materials; progress follows the warehouse by polling).
+  {
+    path: '/counter/picking',
+    name: 'counter-picking',
+    component: () => import('@/views/counter/PickingView.vue'),
+    meta: { ...counter, title: 'picking.title' },
+  },
+  {
+    path: '/counter/picking/new/:bomId(\\d+)',
+    name: 'counter-pick-new',
+    component: () => import('@/views/counter/PickListNewView.vue'),
+    meta: { ...counter, title: 'picking.plan.title' },
+  },
+  {
+    path: '/counter/pick-lists/:id(\\d+)',
+    name: 'counter-pick-list',
+    component: () => import('@/views/counter/PickListStatusView.vue'),
+    meta: { ...counter, title: 'picking.title' },
   },
 ]

@@ -5,8 +5,35 @@ export const warehouseRoutes: RouteRecordRaw[] = [
   {
     path: '/warehouse',
     name: 'warehouse-home',
-    component: () => import('@/views/AreaLandingView.vue'),
-    props: { area: 'warehouse' },
+    component: () => import('@/views/warehouse/WarehouseHomeView.vue'),
     meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'shell.areas.warehouse' },
+  },
+  // The handheld pick screen, full screen for phones and tablets.
+  {
+    path: '/warehouse/pick/:id(\\d+)',
+    name: 'warehouse-pick',
+    component: () => import('@/views/warehouse/PickHandheldView.vue'),
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'picking.title', bare: true },
+  },
+  // Receiving against purchase orders, with scans.
+  {
+    path: '/warehouse/receiving',
+    name: 'warehouse-receiving',
+    component: () => import('@/views/warehouse/ReceivingView.vue'),
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'receiving.listTitle' },
+  },
+  {
+    path: '/warehouse/receiving/:id(\\d+)',
+    name: 'warehouse-receive',
+    component: () => import('@/views/warehouse/ReceiveOrderView.vue'),
+    props: true,
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'receiving.listTitle' },
+  },
+  // The printable pick sheet: the counter prints it too.
+  {
+    path: '/warehouse/pick-lists/:id(\\d+)/sheet',
+    name: 'warehouse-pick-sheet',
+    component: () => import('@/views/warehouse/PickSheetView.vue'),
+    meta: { area: 'warehouse', roles: ['admin', 'counter', 'warehouse'], title: 'picking.sheet.title', bare: true },
   },
 ]

@@ -1,0 +1,23 @@
+import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm'
+
+/** Every e-mail the app tried to send, with its attachment, whatever SMTP server took (or refused) it. */
+@Entity({ name: 'outbox_messages' })
+export class OutboxMessage {
+  @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  @Column({ name: 'created_at', type: 'datetime', precision: 3, default: () => 'CURRENT_TIMESTAMP(3)' }) createdAt: Date
+  @Column({ name: 'sent_at', type: 'datetime', precision: 3, nullable: true }) sentAt: Date | null
+  @Column({ type: 'varchar', length: 8 }) status: 'sent' | 'failed'
+  @Column({ name: 'from_address', type: 'varchar', length: 200 }) fromAddress: string
+  @Column({ name: 'to_address', type: 'varchar', length: 300 }) toAddress: string
+  /** Comma-separated copies. */
+  @Column({ type: 'varchar', length: 700, nullable: true }) cc: string | null
+  @Column({ type: 'varchar', length: 200 }) subject: string
+  @Column({ name: 'body_text', type: 'text' }) bodyText: string
+  @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null
+  @Column({ name: 'message_id', type: 'varchar', length: 200, nullable: true }) messageId: string | null
+  @Column({ name: 'po_id', type: 'int', nullable: true }) poId: number | null
+  @Column({ name: 'attachment_name', type: 'varchar', length: 120, nullable: true }) attachmentName: string | null
+  @Column({ name: 'attachment_type', type: 'varchar', length: 100, nullable: true }) attachmentType: string | null
+  @Column({ type: 'mediumblob', nullable: true, select: false }) attachment: Buffer | null
+  @Column({ name: 'created_by', type: 'int', nullable: true }) createdBy: number | null
+}

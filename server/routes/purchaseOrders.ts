@@ -1,0 +1,116 @@
+// Purchase orders: list and read (warehouse too, without costs unless allowed), create from accepted
+// suggestions, a job's special orders or by hand, edit drafts, approve, mark sent, cancel, close, export.
+import type { Request } from 'express'
+import type { EntityManager } from 'typeorm'
+import {
+  poExportQuerySchema, poFromJobSchema, poFromSuggestionsSchema, poLineInputSchema, poListQuerySchema, poManualSchema, poReasonSchema,
+  poUpdateSchema,
+} from '../../shared/schemas/purchasing.js'
+import type { AppContext } from '../context.js'
+import { actorOf } from '../context.js'
+import { inTransaction } from '../db/transaction.js'
+import { sendDownload } from '../http/fileResponse.js'
+import { allow, defineRoutes } from '../http/routeTable.js'
+import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { canSeeCosts, type Viewer } from '../services/purchasing/costVisibility.js'
+import { createFromSuggestions, createManual } from '../services/purchasing/poCreation.js'
+import { createFromJob, specialOrderJobs } from '../services/purchasing/jobPurchasing.js'
+import { addLine, approve, cancel, close, markSent, removeLine, updateDraft } from '../services/purchasing/poLifecycle.js'
+import { listPurchaseOrders, poDetail } from '../services/purchasing/poRead.js'
+import { multiPoWorkbook, poWorkbook, XLSX_TYPE } from '../services/purchasing/poSpreadsheet.js'
+import { acceptedSuggestions } from '../services/purchasing/suggestionsRead.js'
+
+const buyers = allow('admin', 'buyer')
+const readers = allow('admin', 'buyer', 'warehouse')
+const poId = (req: Request) => idParam(req.params.id, 'That purchase order')
+export const viewerOf = (req: Request): Viewer => ({ userId: req.user!.id, roles: req.user!.roles })
+
+export default (ctx: AppContext) => {
+  const detail = async (req: Request, id: number) => poDetail(ctx.ds, id, await canSeeCosts(ctx.ds, viewerOf(req)))
+  const details = async (req: Request, ids: number[]) => Promise.all(ids.map((id) => detail(req, id)))
+  /** A status change or edit in one transaction, answering the order as it is now. */
+  const change = async (req: Request, work: (em: EntityManager, id: number) => Promise<void>) => {
+    const id = poId(req)
+    await inTransaction(ctx.ds, (em) => work(em, id))
+    return detail(req, id)
+  }
+  return defineRoutes('/purchase-orders', [
+    {
+      method: 'get', path: '/', access: readers,
+      handler: async (req) => listPurchaseOrders(ctx.ds, parseQuery(poListQuerySchema, req.query), await canSeeCosts(ctx.ds, viewerOf(req))),
+    },
+    { method: 'get', path: '/suggestions', access: buyers, handler: () => acceptedSuggestions(ctx.ds, true) },
+    { method: 'get', path: '/special-orders', access: buyers, handler: () => specialOrderJobs(ctx.ds) },
+    {
+      method: 'get', path: '/export', access: buyers,
+      handler: async (req, res) => {
+        const { ids } = parseQuery(poExportQuerySchema, req.query)
+        const pos = await Promise.all(ids.map((id) => poDetail(ctx.ds, id, true)))
+        return sendDownload(res, { name: `purchase-orders-${new Date().toISOString().slice(0, 10)}.xlsx`, type: XLSX_TYPE, bytes: await multiPoWorkbook(pos) })
+      },
+    },
+    {
+      method: 'post', path: '/', access: buyers, status: 201,
+      handler: async (req) => {
+        const input = parseBody(poManualSchema, req.body)
+        return detail(req, await inTransaction(ctx.ds, (em) => createManual(em, actorOf(req), input)))
+      },
+    },
+    {
+      method: 'post', path: '/from-suggestions', access: buyers, status: 201,
+      handler: async (req) => {
+        const input = parseBody(poFromSuggestionsSchema, req.body)
+        return details(req, await inTransaction(ctx.ds, (em) => createFromSuggestions(em, actorOf(req), input)))
+      },
+    },
+    {
+      method: 'post', path: '/from-job', access: buyers, status: 201,
+      handler: async (req) => {
+        const input = parseBody(poFromJobSchema, req.body)
+        return details(req, await inTransaction(ctx.ds, (em) => createFromJob(em, actorOf(req), input)))
+      },
+    },
+    { method: 'get', path: '/:id', access: readers, handler: (req) => detail(req, poId(req)) },
+    {
+      method: 'get', path: '/:id/export', access: buyers,
+      handler: async (req, res) => {
+        const po = await poDetail(ctx.ds, poId(req), true)
+        return sendDownload(res, { name: `${po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(po) })
+      },
+    },
+    {
+      method: 'patch', path: '/:id', access: buyers,
+      handler: (req) => {
+        const input = parseBody(poUpdateSchema, req.body)
+        return change(req, (em, id) => updateDraft(em, actorOf(req), id, input))
+      },
+    },
+    {
+      method: 'post', path: '/:id/lines', access: buyers,
+      handler: (req) => {
+        const input = parseBody(poLineInputSchema, req.body)
+        return change(req, (em, id) => addLine(em, actorOf(req), id, input))
+      },
+    },
+    {
+      method: 'delete', path: '/:id/lines/:lineId', access: buyers,
+      handler: (req) => change(req, (em, id) => removeLine(em, actorOf(req), id, idParam(req.params.lineId, 'That line'))),
+    },
+    { method: 'post', path: '/:id/approve', access: buyers, handler: (req) => change(req, (em, id) => approve(em, actorOf(req), id)) },
+    { method: 'post', path: '/:id/mark-sent', access: buyers, handler: (req) => change(req, (em, id) => markSent(em, actorOf(req), id, 'by hand')) },
+    {
+      method: 'post', path: '/:id/cancel', access: buyers,
+      handler: (req) => {
+        const { reason } = parseBody(poReasonSchema, req.body)
+        return change(req, (em, id) => cancel(em, actorOf(req), id, reason))
+      },
+    },
+    {
+      method: 'post', path: '/:id/close', access: buyers,
+      handler: (req) => {
+        const { reason } = parseBody(poReasonSchema, req.body)
+        return change(req, (em, id) => close(em, actorOf(req), id, reason))
+      },
+    },
+  ])
+}

@@ -1,0 +1,44 @@
+// Purchasing lookups (items, warehouses), its admin settings, the mail outbox, and a job's purchase
+// lines for the counter.
+import { purchasingSettingsSchema } from '../../shared/schemas/purchasing.js'
+import { z } from 'zod'
+import type { AppContext } from '../context.js'
+import { actorOf } from '../context.js'
+import { sendDownload } from '../http/fileResponse.js'
+import { allow, defineRoutes } from '../http/routeTable.js'
+import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { purchasingSettings, updatePurchasingSettings } from '../services/appSettings.js'
+import { jobPurchaseLines } from '../services/purchasing/jobPurchasing.js'
+import { listOutbox, outboxAttachment } from '../services/purchasing/outboxRead.js'
+import { itemChoices, warehouseChoices } from '../services/purchasing/vendorService.js'
+
+const buyers = allow('admin', 'buyer')
+const admin = allow('admin')
+const searchSchema = z.object({ q: z.string().trim().max(60, 'At most 60 characters').optional() })
+
+const purchasing = (ctx: AppContext) =>
+  defineRoutes('/purchasing', [
+    { method: 'get', path: '/items', access: buyers, handler: (req) => itemChoices(ctx.ds, parseQuery(searchSchema, req.query).q) },
+    { method: 'get', path: '/warehouses', access: buyers, handler: () => warehouseChoices(ctx.ds) },
+    { method: 'get', path: '/settings', access: admin, handler: () => purchasingSettings(ctx.ds) },
+    {
+      method: 'patch', path: '/settings', access: admin,
+      handler: (req) => updatePurchasingSettings(ctx.ds, actorOf(req), parseBody(purchasingSettingsSchema, req.body)),
+    },
+    { method: 'get', path: '/outbox', access: admin, handler: () => listOutbox(ctx.ds) },
+    {
+      method: 'get', path: '/outbox/:id/attachment', access: admin,
+      handler: async (req, res) => sendDownload(res, await outboxAttachment(ctx.ds, idParam(req.params.id, 'That message'))),
+    },
+  ])
+
+const jobs = (ctx: AppContext) =>
+  defineRoutes('/jobs', [
+    {
+      method: 'get', path: '/:id/purchase-lines', access: allow('admin', 'counter', 'buyer'),
+      handler: (req) => jobPurchaseLines(ctx.ds, idParam(req.params.id, 'That job')),
+    },
+  ])
+
+export default purchasing
+export { jobs as jobPurchasingRoutes }

@@ -1,0 +1,68 @@
+// The buyer's reorder screens. Buyer and admin only: the lines carry unit costs and usage values, which the
+// read-only role does not see (it sees stock in the Stock area).
+import {
+  acceptSchema, historyQuerySchema, lineQuerySchema, policyUpsertSchema, suggestionQuerySchema,
+} from '../../shared/schemas/reorder.js'
+import { actorOf, type AppContext } from '../context.js'
+import { allow, defineRoutes } from '../http/routeTable.js'
+import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { runIdempotent } from '../services/idempotency.js'
+import { prepareAccept } from '../services/reorder/acceptSuggestions.js'
+import { deletePolicy, listPolicies, savePolicy } from '../services/reorder/policyService.js'
+import { abcPareto, lineDetail, reorderChoices, suggestionList } from '../services/reorder/suggestionList.js'
+
+const buyers = allow('admin', 'buyer')
+
+export default (ctx: AppContext) =>
+  defineRoutes('/reorder', [
+    {
+      method: 'get',
+      path: '/suggestions',
+      access: buyers,
+      handler: (req) => suggestionList(ctx.ds, parseQuery(suggestionQuerySchema, req.query)),
+    },
+    { method: 'get', path: '/choices', access: buyers, handler: () => reorderChoices(ctx.ds) },
+    {
+      method: 'get',
+      path: '/lines/:itemId/:warehouseId',
+      access: buyers,
+      handler: (req) => {
+        const query = parseQuery(lineQuerySchema.extend(historyQuerySchema.shape), req.query)
+        return lineDetail(ctx.ds, idParam(req.params.itemId, 'That item'), idParam(req.params.warehouseId, 'That warehouse'), query)
+      },
+    },
+    { method: 'get', path: '/abc', access: buyers, handler: (req) => abcPareto(ctx.ds, parseQuery(lineQuerySchema, req.query).windowDays) },
+    {
+      method: 'post',
+      path: '/accept',
+      access: buyers,
+      handler: async (req, res) => {
+        const input = parseBody(acceptSchema, req.body)
+        const actor = actorOf(req)
+        const write = await prepareAccept(ctx.ds, input)
+        const answer = await runIdempotent(
+          ctx.ds,
+          { userId: actor.userId, key: req.get('idempotency-key') ?? undefined, scope: 'POST /api/reorder/accept', body: req.body },
+          async (em) => {
+            const body = await write(em, actor)
+            return { status: body.accepted.length ? 201 : 200, body }
+          },
+        )
+        if (answer.replayed) res.set('Idempotent-Replayed', 'true')
+        res.status(answer.status).json(answer.body)
+      },
+    },
+    { method: 'get', path: '/policies', access: buyers, handler: () => listPolicies(ctx.ds) },
+    {
+      method: 'post',
+      path: '/policies',
+      access: buyers,
+      handler: (req) => savePolicy(ctx.ds, actorOf(req), parseBody(policyUpsertSchema, req.body)),
+    },
+    {
+      method: 'delete',
+      path: '/policies/:id',
+      access: buyers,
+      handler: (req) => deletePolicy(ctx.ds, actorOf(req), idParam(req.params.id, 'That policy')),
+    },
+  ])

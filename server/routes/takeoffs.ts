@@ -1,0 +1,45 @@
+// Saved takeoffs, the editor's catalog and the compute endpoint (the bill with stock per warehouse).
+import { computeRequestSchema, takeoffSaveSchema } from '../../shared/schemas/counter.js'
+import { actorOf, type AppContext } from '../context.js'
+import { allow, defineRoutes } from '../http/routeTable.js'
+import { idParam, parseBody } from '../http/validate.js'
+import { loadCounterCatalog } from '../services/counter/counterCatalog.js'
+import { computeBill } from '../services/counter/takeoffCompute.js'
+import { takeoffTemplate, takeoffTemplateCsv } from '../services/counter/takeoffImport.js'
+import { sendDownload } from '../http/fileResponse.js'
+import { deleteTakeoff, getTakeoff, updateTakeoff } from '../services/counter/takeoffService.js'
+
+const counter = allow('admin', 'counter')
+const XLSX = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
+const id = (raw: string | string[] | undefined) => idParam(raw, 'That takeoff')
+
+export default (ctx: AppContext) =>
+  defineRoutes('/takeoffs', [
+    { method: 'get', path: '/catalog', access: counter, handler: () => loadCounterCatalog(ctx.ds.manager) },
+    {
+      method: 'post',
+      path: '/compute',
+      access: counter,
+      handler: (req) => {
+        const { takeoff, unit } = parseBody(computeRequestSchema, req.body)
+        return computeBill(ctx.ds, takeoff, unit ?? req.user?.unitPreference ?? 'in')
+      },
+    },
+    {
+      method: 'get',
+      path: '/import-template',
+      access: counter,
+      handler: async (req, res) =>
+        req.query.format === 'csv'
+          ? sendDownload(res, { name: 'lumenyard-takeoff-template.csv', type: 'text/csv; charset=utf-8', bytes: takeoffTemplateCsv() })
+          : sendDownload(res, { name: 'lumenyard-takeoff-template.xlsx', type: XLSX, bytes: await takeoffTemplate() }),
+    },
+    { method: 'get', path: '/:id', access: counter, handler: (req) => getTakeoff(ctx.ds, id(req.params.id)) },
+    {
+      method: 'put',
+      path: '/:id',
+      access: counter,
+      handler: (req) => updateTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseBody(takeoffSaveSchema, req.body)),
+    },
+    { method: 'delete', path: '/:id', access: counter, handler: (req) => deleteTakeoff(ctx.ds, actorOf(req), id(req.params.id)) },
+  ])

@@ -1,0 +1,68 @@
+// Catalog spreadsheets: the filtered item list as .xlsx (re-importable: the same columns as the
+// import) and the blank import template with a sheet that explains each column.
+import type { DataSource } from 'typeorm'
+import { BLOCK_SHAPES, ITEM_FAMILIES, STOCK_UNITS, THICKNESS_CLASSES } from '../../shared/catalog.js'
+import type { ItemFields, ItemListQuery } from '../../shared/schemas/catalog.js'
+import { listFilter, STOCK_JOIN } from './catalogQueries.js'
+import { columnOf, ITEM_COLUMNS, itemSheetColumns, MAX_IMPORT_ROWS, STOCK_SHEET_COLUMNS } from './catalogSheet.js'
+import { buildXlsx, sheet } from './exports/xlsxWriter.js'
+
+type ExportRow = Partial<Record<keyof ItemFields, string | number | boolean | null>> & { onHand: number; available: number }
+
+const MAX_EXPORT_ROWS = 50_000
+
+function exportRow(raw: Record<string, unknown>): ExportRow {
+  const row: ExportRow = { onHand: Number(raw.on_hand ?? 0), available: Number(raw.on_hand ?? 0) - Number(raw.reserved ?? 0) }
+  for (const c of ITEM_COLUMNS) {
+    const value = raw[columnOf(c.key)]
+    row[c.key] = c.kind === 'boolean' ? Boolean(value) : value === null || value === undefined ? null : (value as string | number)
+  }
+  return row
+}
+
+/** The list as a workbook; without `costs` the cost column is left out. */
+export async function exportItems(ds: DataSource, q: ItemListQuery, costs = true): Promise<Buffer> {
+  const { where, params } = listFilter(q)
+  const raw = await ds.query(
+    `SELECT i.*, COALESCE(s.on_hand, 0) AS on_hand, COALESCE(s.reserved, 0) AS reserved FROM items i ${STOCK_JOIN} ${where} ORDER BY i.sku LIMIT ${MAX_EXPORT_ROWS}`,
+    params,
+  )
+  const rows = (raw as Record<string, unknown>[]).map(exportRow)
+  const columns = itemSheetColumns<ExportRow>().filter((c) => costs || c.header !== 'Cost')
+  return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...columns, ...STOCK_SHEET_COLUMNS], rows }))
+}
+
+const ALLOWED: Partial<Record<string, string>> = {
+  family: ITEM_FAMILIES.join(', '),
+  stockUnit: STOCK_UNITS.join(', '),
+  thicknessClass: `${THICKNESS_CLASSES.join(', ')} (standard ≥ 3 7/8 in, thin ≥ 3 1/8 in thick, IRC R607.3)`,
+  shape: BLOCK_SHAPES.join(', '),
+  gtin: '8, 12, 13 or 14 digits with a valid GS1 check digit; format the column as text to keep leading zeros',
+  cost: 'Up to 4 decimals, no currency sign',
+  listPrice: 'Up to 2 decimals, no currency sign',
+}
+
+interface GuideRow { header: string; required: string; kind: string; allowed: string }
+
+export async function itemImportTemplate(): Promise<Buffer> {
+  const guide: GuideRow[] = ITEM_COLUMNS.map((c) => ({
+    header: c.header,
+    required: c.required ? 'yes' : '',
+    kind: c.kind === 'decimal' ? 'number' : c.kind === 'integer' ? 'whole number' : c.kind === 'boolean' ? 'yes / no' : 'text',
+    allowed: ALLOWED[c.key] ?? '',
+  }))
+  guide.push({ header: '(rows)', required: '', kind: '', allowed: `At most ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows per file. A row whose SKU exists updates that item.` })
+  return buildXlsx(
+    sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [] }),
+    sheet<GuideRow>({
+      name: 'Columns',
+      columns: [
+        { header: 'Column', kind: 'text', width: 18, value: (r) => r.header },
+        { header: 'Required', kind: 'text', value: (r) => r.required },
+        { header: 'Kind', kind: 'text', width: 14, value: (r) => r.kind },
+        { header: 'Allowed values', kind: 'text', width: 80, value: (r) => r.allowed },
+      ],
+      rows: guide,
+    }),
+  )
+}

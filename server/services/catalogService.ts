@@ -1,0 +1,105 @@
+// Catalog items: create, change and deactivate (admin), each written with its audit entry in one
+// transaction. Reads live in catalogQueries.ts.
+import type { DataSource, EntityManager } from 'typeorm'
+import type { BlockShape } from '../../shared/catalog.js'
+import { itemSchema, type ItemInput, type ItemPatch, type ItemRecord } from '../../shared/schemas/catalog.js'
+import { inTransaction, isDuplicateKey } from '../db/transaction.js'
+import { Item } from '../entities/Item.js'
+import { AppError } from '../errors.js'
+import { audit, type AuditActor } from './auditService.js'
+
+export function toItemRecord(i: Item): ItemRecord {
+  return {
+    id: i.id, sku: i.sku, name: i.name, family: i.family, stockUnit: i.stockUnit, caseQty: i.caseQty, palletQty: i.palletQty,
+    sellByPack: i.sellByPack, gtin: i.gtin, weightKg: i.weightKg, cost: i.cost, listPrice: i.listPrice, active: i.active,
+    madeToOrder: i.madeToOrder, matchLot: i.matchLot, nominalSize: i.nominalSize, faceWidthMm: i.faceWidthMm,
+    faceHeightMm: i.faceHeightMm, depthMm: i.depthMm, thicknessClass: i.thicknessClass, pattern: i.pattern, shape: i.shape as BlockShape | null,
+    cartridgeMl: i.cartridgeMl, groutYieldMl: i.groutYieldMl, jointMm: i.jointMm, description: i.description,
+    createdAt: i.createdAt.toISOString(), updatedAt: i.updatedAt.toISOString(),
+  }
+}
+
+/** Column values for an insert or update, with the defaults the table would give. */
+export function itemColumns(input: ItemInput): Partial<Item> {
+  return {
+    ...input,
+    caseQty: input.caseQty ?? null,
+    palletQty: input.palletQty ?? null,
+    sellByPack: input.sellByPack ?? false,
+    gtin: input.gtin ?? null,
+    weightKg: input.weightKg ?? '0',
+    active: input.active ?? true,
+    madeToOrder: input.madeToOrder ?? false,
+    matchLot: input.matchLot ?? false,
+  }
+}
+
+/** Duplicate SKU or GTIN as a 409 naming the field. */
+export function duplicateItemError(err: unknown): AppError | null {
+  if (!isDuplicateKey(err)) return null
+  const message = String((err as Error).message)
+  if (message.includes('uq_items_gtin')) {
+    return new AppError(409, 'duplicate', 'Another item already has that GTIN.', { gtin: 'Another item has this GTIN' })
+  }
+  return new AppError(409, 'duplicate', 'Another item already has that SKU.', { sku: 'Another item has this SKU' })
+}
+
+export async function findItem(em: EntityManager, id: number, lock = false): Promise<Item> {
+  const item = await em.findOne(Item, { where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
+  if (!item) throw AppError.notFound('That item')
+  return item
+}
+
+export async function createItem(ds: DataSource, actor: AuditActor, input: ItemInput): Promise<ItemRecord> {
+  try {
+    return await inTransaction(ds, async (em) => {
+      const item = await em.save(em.create(Item, itemColumns(input)))
+      await audit(em, actor, 'item.create', 'item', item.id, { sku: item.sku, name: item.name })
+      return toItemRecord(await findItem(em, item.id))
+    })
+  } catch (err) {
+    throw duplicateItemError(err) ?? err
+  }
+}
+
+/** Applies a change and checks the whole resulting item again, so no patch can leave it inconsistent. */
+export async function updateItem(ds: DataSource, actor: AuditActor, id: number, patch: ItemPatch): Promise<ItemRecord> {
+  try {
+    return await inTransaction(ds, async (em) => {
+      const item = await findItem(em, id, true)
+      const merged = itemSchema.safeParse({ ...toItemRecord(item), ...patch })
+      if (!merged.success) throw AppError.fromZod(merged.error)
+      const before = toItemRecord(item)
+      const changed = Object.fromEntries(
+        Object.entries(itemColumns(merged.data)).filter(([k, v]) => (before as Record<string, unknown>)[k] !== v),
+      )
+      if (Object.keys(changed).length === 0) return before
+      await em.update(Item, { id }, changed)
+      await audit(em, actor, 'item.update', 'item', id, {
+        sku: item.sku,
+        changes: Object.fromEntries(Object.keys(changed).map((k) => [k, { from: (before as Record<string, unknown>)[k], to: changed[k] }])),
+      })
+      return toItemRecord(await findItem(em, id))
+    })
+  } catch (err) {
+    throw duplicateItemError(err) ?? err
+  }
+}
+
+/** Takes an item out of use. Stock held for pick lists must be released first; stock on hand stays visible. */
+export async function deactivateItem(ds: DataSource, actor: AuditActor, id: number): Promise<ItemRecord> {
+  return inTransaction(ds, async (em) => {
+    const item = await findItem(em, id, true)
+    const [stock] = await em.query(
+      'SELECT COALESCE(SUM(on_hand), 0) AS onHand, COALESCE(SUM(reserved), 0) AS reserved FROM stock_balances WHERE item_id = ?',
+      [id],
+    )
+    if (Number(stock.reserved) > 0) {
+      throw AppError.conflict(`${Number(stock.reserved)} of ${item.sku} are held for pick lists; release them before deactivating.`, 'item_reserved')
+    }
+    if (!item.active) return toItemRecord(item)
+    await em.update(Item, { id }, { active: false })
+    await audit(em, actor, 'item.deactivate', 'item', id, { sku: item.sku, onHand: Number(stock.onHand) })
+    return toItemRecord(await findItem(em, id))
+  })
+}

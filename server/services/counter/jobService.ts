@@ -1,0 +1,142 @@
+// Jobs of a contractor account: list (recent first), create, change status and due date, and the
+// job's page: its takeoffs and saved bills of materials.
+import type { DataSource } from 'typeorm'
+import type {
+  BomSummary,
+  JobCreateInput,
+  JobDetail,
+  JobStatusName,
+  JobSummary,
+  JobUpdateInput,
+  TakeoffSummary,
+} from '../../../shared/schemas/counter.js'
+import { Customer, Job } from '../../entities/Customer.js'
+import { inTransaction } from '../../db/transaction.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import { getCustomer, likePattern } from './customerService.js'
+
+interface JobRow {
+  id: number
+  customerId: number
+  customerCode: string
+  customerName: string
+  name: string
+  siteAddress: string | null
+  status: JobStatusName
+  dueDate: string | Date | null
+  notes: string | null
+  updatedAt: Date | string
+  latestRevision: number | string | null
+  takeoffs: number | string
+}
+
+const isoDate = (d: string | Date | null): string | null =>
+  d === null ? null : typeof d === 'string' ? d.slice(0, 10) : d.toISOString().slice(0, 10)
+
+function toJobSummary(r: JobRow): JobSummary {
+  return {
+    id: Number(r.id),
+    customerId: Number(r.customerId),
+    customerCode: r.customerCode,
+    customerName: r.customerName,
+    name: r.name,
+    siteAddress: r.siteAddress,
+    status: r.status,
+    dueDate: isoDate(r.dueDate),
+    notes: r.notes,
+    latestRevision: r.latestRevision === null ? null : Number(r.latestRevision),
+    takeoffs: Number(r.takeoffs),
+    updatedAt: new Date(r.updatedAt).toISOString(),
+  }
+}
+
+// DATE columns are read as text so a due date never shifts with the server's time zone.
+const JOB_SELECT = `SELECT j.id, j.customer_id AS customerId, c.code AS customerCode, c.name AS customerName, j.name,
+  j.site_address AS siteAddress, j.status, DATE_FORMAT(j.due_date, '%Y-%m-%d') AS dueDate, j.notes, j.updated_at AS updatedAt,
+  (SELECT MAX(b.revision) FROM boms b WHERE b.job_id = j.id) AS latestRevision,
+  (SELECT COUNT(*) FROM takeoffs t WHERE t.job_id = j.id) AS takeoffs
+  FROM jobs j JOIN customers c ON c.id = j.customer_id`
+
+export async function listJobs(
+  ds: DataSource,
+  query: { customerId?: number; status?: JobStatusName; q?: string; limit: number },
+): Promise<JobSummary[]> {
+  const where: string[] = []
+  const params: unknown[] = []
+  if (query.customerId) {
+    where.push('j.customer_id = ?')
+    params.push(query.customerId)
+  }
+  if (query.status) {
+    where.push('j.status = ?')
+    params.push(query.status)
+  }
+  if (query.q) {
+    where.push('(j.name LIKE ? OR c.name LIKE ? OR c.code LIKE ? OR j.site_address LIKE ?)')
+    params.push(...Array(4).fill(likePattern(query.q)))
+  }
+  const sql = `${JOB_SELECT}${where.length ? ' WHERE ' + where.join(' AND ') : ''} ORDER BY j.updated_at DESC, j.id DESC LIMIT ${query.limit}`
+  const rows: JobRow[] = await ds.query(sql, params)
+  return rows.map(toJobSummary)
+}
+
+export async function getJobSummary(ds: DataSource, id: number): Promise<JobSummary> {
+  const rows: JobRow[] = await ds.query(`${JOB_SELECT} WHERE j.id = ?`, [id])
+  if (rows.length === 0) throw AppError.notFound('That job')
+  return toJobSummary(rows[0])
+}
+
+async function takeoffList(ds: DataSource, jobId: number): Promise<TakeoffSummary[]> {
+  const rows: { id: number; name: string; inputJson: string; updatedAt: Date }[] = await ds.query(
+    'SELECT id, name, input_json AS inputJson, updated_at AS updatedAt FROM takeoffs WHERE job_id = ? ORDER BY updated_at DESC, id DESC',
+    [jobId],
+  )
+  return rows.map((r) => ({
+    id: r.id,
+    jobId,
+    name: r.name,
+    walls: (JSON.parse(r.inputJson) as { walls?: unknown[] }).walls?.length ?? 0,
+    updatedAt: new Date(r.updatedAt).toISOString(),
+  }))
+}
+
+async function bomList(ds: DataSource, jobId: number): Promise<BomSummary[]> {
+  const rows: { id: number; revision: number; takeoffId: number | null; lineCount: string; createdAt: Date; createdBy: string | null }[] = await ds.query(
+    `SELECT b.id, b.revision, b.takeoff_id AS takeoffId, b.created_at AS createdAt, u.display_name AS createdBy,
+       (SELECT COUNT(*) FROM bom_lines l WHERE l.bom_id = b.id) AS lineCount
+     FROM boms b LEFT JOIN users u ON u.id = b.created_by WHERE b.job_id = ? ORDER BY b.revision DESC`,
+    [jobId],
+  )
+  return rows.map(({ lineCount, ...r }) => ({ ...r, lines: Number(lineCount), createdAt: new Date(r.createdAt).toISOString() }))
+}
+
+export async function getJob(ds: DataSource, id: number): Promise<JobDetail> {
+  const summary = await getJobSummary(ds, id)
+  const [customer, takeoffs, boms] = await Promise.all([getCustomer(ds, summary.customerId), takeoffList(ds, id), bomList(ds, id)])
+  return { ...summary, customer, takeoffList: takeoffs, boms }
+}
+
+export async function createJob(ds: DataSource, actor: AuditActor, input: JobCreateInput): Promise<JobSummary> {
+  const id = await inTransaction(ds, async (em) => {
+    const customer = await em.findOneBy(Customer, { id: input.customerId })
+    if (!customer) throw AppError.badRequest('Choose an existing customer.', { customerId: 'No such customer' })
+    if (!customer.active) throw AppError.badRequest('That account is deactivated.', { customerId: 'The account is deactivated' })
+    const job = em.create(Job, { ...input, createdBy: actor.userId })
+    await em.save(job)
+    await audit(em, actor, 'job.create', 'job', job.id, { customerId: input.customerId, name: input.name })
+    return job.id
+  })
+  return getJobSummary(ds, id)
+}
+
+export async function updateJob(ds: DataSource, actor: AuditActor, id: number, input: JobUpdateInput): Promise<JobSummary> {
+  await inTransaction(ds, async (em) => {
+    const job = await em.findOne(Job, { where: { id }, lock: { mode: 'pessimistic_write' } })
+    if (!job) throw AppError.notFound('That job')
+    Object.assign(job, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)))
+    await em.save(job)
+    await audit(em, actor, 'job.update', 'job', id, input)
+  })
+  return getJobSummary(ds, id)
+}

@@ -1,0 +1,125 @@
+// Reads the first sheet of an .xlsx (streaming, so a row cap stops it early) or a CSV, matches the
+// header row to a column spec, and types each cell. Runs inside the parse worker (parseWorker.ts);
+// pure otherwise, so tests can call it directly.
+import { Readable } from 'node:stream'
+import ExcelJS from 'exceljs'
+import { readCsv } from './csvText.js'
+import type { CellValue, ImportColumn, ImportRow, ImportSpec, ParseOutcome, RowIssue } from './importTypes.js'
+
+type RawCell = string | number | boolean | null
+
+const normalise = (header: string) => header.toLowerCase().replace(/[^a-z0-9]/g, '')
+
+/** exceljs cell values (rich text, formulas, hyperlinks, dates, errors) as plain text, number or boolean. */
+function plainCell(value: unknown): RawCell {
+  if (value === null || value === undefined) return null
+  if (typeof value === 'string' || typeof value === 'number' || typeof value === 'boolean') return value
+  if (value instanceof Date) return value.toISOString().slice(0, 10)
+  const v = value as { richText?: { text: string }[]; result?: unknown; text?: unknown; error?: string }
+  if (v.richText) return v.richText.map((r) => r.text).join('')
+  if ('result' in v) return plainCell(v.result)
+  if (v.error) return `#ERROR ${v.error}`
+  if (typeof v.text === 'string') return v.text
+  return String(value)
+}
+
+/** Binary floating point noise removed (0.30000000000000004 → "0.3"), as the spreadsheet shows it. */
+const numberText = (n: number) => String(Number(n.toPrecision(15)))
+
+const BOOLEAN_WORDS: Record<string, boolean> = { true: true, false: false, yes: true, no: false, y: true, n: false, '1': true, '0': false, x: true }
+
+function typedCell(column: ImportColumn, raw: RawCell): { value: CellValue } | { issue: string } {
+  const text = raw === null ? '' : typeof raw === 'number' ? numberText(raw) : String(raw).trim()
+  if (text === '') return column.required ? { issue: `${column.header} is required` } : { value: null }
+  switch (column.kind) {
+    case 'text':
+      return { value: text }
+    case 'integer':
+      return /^-?\d+$/.test(text) ? { value: Number(text) } : { issue: `${column.header} must be a whole number, not "${text.slice(0, 40)}"` }
+    case 'decimal':
+      return /^-?\d+(\.\d+)?$/.test(text) ? { value: text } : { issue: `${column.header} must be a number, not "${text.slice(0, 40)}"` }
+    case 'boolean': {
+      const word = BOOLEAN_WORDS[text.toLowerCase()]
+      return word === undefined ? { issue: `${column.header} must be yes or no, not "${text.slice(0, 40)}"` } : { value: word }
+    }
+  }
+}
+
+/** Which spec column each sheet column is (null: ignored), or why the header row does not fit. */
+function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (ImportColumn | null)[] } | { ok: false; message: string } {
+  const byName = new Map<string, ImportColumn>()
+  for (const c of spec.columns) for (const name of [c.key, c.header, ...(c.aliases ?? [])]) byName.set(normalise(name), c)
+  const ignored = new Set((spec.ignore ?? []).map(normalise))
+  const seen = new Set<string>()
+  const unknown: string[] = []
+  const map = header.map((cell) => {
+    const name = cell === null ? '' : String(cell).trim()
+    if (name === '') return null
+    const column = byName.get(normalise(name))
+    if (!column) {
+      if (!ignored.has(normalise(name))) unknown.push(name.slice(0, 40))
+      return null
+    }
+    if (seen.has(column.key)) unknown.push(`${name} (twice)`)
+    seen.add(column.key)
+    return column
+  })
+  const missing = spec.columns.filter((c) => c.required && !seen.has(c.key)).map((c) => c.header)
+  if (missing.length || unknown.length) {
+    const parts = [missing.length ? `missing ${missing.join(', ')}` : '', unknown.length ? `not known: ${unknown.join(', ')}` : '']
+    return { ok: false, message: `The columns do not match the template (${parts.filter(Boolean).join('; ')}).` }
+  }
+  return { ok: true, map }
+}
+
+/** Header in the first non-empty record, then typed rows with their spreadsheet row numbers. */
+export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], spec: ImportSpec): ParseOutcome {
+  const start = records.findIndex((r) => r.cells.some((c) => c !== null && String(c).trim() !== ''))
+  if (start === -1) return { ok: false, code: 'empty', message: 'The file holds no rows.' }
+  const header = mapHeader(records[start].cells, spec)
+  if (!header.ok) return { ok: false, code: 'bad_columns', message: header.message }
+  const rows: ImportRow[] = []
+  const issues: RowIssue[] = []
+  for (const record of records.slice(start + 1)) {
+    if (!record.cells.some((c) => c !== null && String(c).trim() !== '')) continue
+    if (rows.length >= spec.maxRows) return tooManyRows(spec)
+    const values: Record<string, CellValue> = {}
+    header.map.forEach((column, i) => {
+      if (!column) return
+      const typed = typedCell(column, record.cells[i] ?? null)
+      if ('issue' in typed) issues.push({ row: record.row, column: column.key, message: typed.issue })
+      else values[column.key] = typed.value
+    })
+    rows.push({ row: record.row, values })
+  }
+  return { ok: true, sheet: { rows, issues } }
+}
+
+const tooManyRows = (spec: ImportSpec): ParseOutcome => ({
+  ok: false, code: 'too_many_rows', message: `The file has more than ${spec.maxRows.toLocaleString('en-US')} rows; split it into smaller files.`,
+})
+
+export function parseCsvRows(data: Uint8Array, spec: ImportSpec): ParseOutcome {
+  const text = new TextDecoder('utf-8').decode(data).replace(/^\uFEFF/, '')
+  const csv = readCsv(text, { maxRecords: spec.maxRows + 2, maxFields: spec.maxColumns })
+  if (!csv.ok) return { ok: false, code: 'unreadable', message: csv.message }
+  if (csv.records.length > spec.maxRows + 1) return tooManyRows(spec)
+  return rowsFromRecords(csv.records.map((cells, i) => ({ row: i + 1, cells })), spec)
+}
+
+export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec): Promise<ParseOutcome> {
+  const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(data)]), {
+    sharedStrings: 'cache', hyperlinks: 'ignore', styles: 'ignore', worksheets: 'emit', entries: 'ignore',
+  })
+  const records: { row: number; cells: RawCell[] }[] = []
+  for await (const sheet of reader) {
+    for await (const row of sheet) {
+      const values = row.values as unknown[]
+      if (values.length - 1 > spec.maxColumns) return { ok: false, code: 'too_many_columns', message: `Row ${row.number} has more than ${spec.maxColumns} columns.` }
+      records.push({ row: row.number, cells: values.slice(1).map(plainCell) })
+      if (records.length > spec.maxRows + 1) return tooManyRows(spec)
+    }
+    break // the first sheet only
+  }
+  return rowsFromRecords(records, spec)
+}

@@ -1,0 +1,148 @@
+// Takes one spreadsheet upload safely: multer in memory with explicit limits, then the content is
+// checked before anything parses it. An .xlsx must be a zip holding [Content_Types].xml whose
+// entries stay under an entry count, a total unpacked size and a compression ratio (a zip bomb is
+// refused while being measured, never unpacked whole); a .csv must be UTF-8 text with no NUL bytes.
+import path from 'node:path'
+import type { Request, Response } from 'express'
+import multer from 'multer'
+import yauzl from 'yauzl'
+import { AppError } from '../../errors.js'
+
+export type UploadKind = 'xlsx' | 'csv'
+
+export interface GuardedUpload {
+  kind: UploadKind
+  filename: string
+  data: Buffer
+}
+
+export interface ArchiveLimits {
+  maxEntries: number
+  /** Total unpacked bytes over all entries. */
+  maxUnpackedBytes: number
+  /** Largest unpacked ÷ packed size of one entry, checked for entries above ratioFloorBytes. */
+  maxRatio: number
+  ratioFloorBytes: number
+}
+
+// A real workbook has a few dozen entries and packs its XML 5–30 times; these leave room for that.
+export const DEFAULT_ARCHIVE_LIMITS: ArchiveLimits = {
+  maxEntries: 500,
+  maxUnpackedBytes: 60 * 1024 * 1024,
+  maxRatio: 200,
+  ratioFloorBytes: 1024 * 1024,
+}
+
+const refuse = (message: string) => new AppError(415, 'wrong_file_type', message)
+const tooBig = (message: string) => new AppError(422, 'archive_refused', message)
+
+/** Runs multer for one field named "file" with the configured size cap. */
+function receive(req: Request, res: Response, maxBytes: number): Promise<void> {
+  const upload = multer({
+    storage: multer.memoryStorage(),
+    limits: { files: 1, fileSize: maxBytes, fields: 5, fieldSize: 1024, parts: 6, headerPairs: 100 },
+  }).single('file')
+  return new Promise((resolve, reject) => upload(req, res, (err: unknown) => (err ? reject(err) : resolve())))
+}
+
+export function kindOf(filename: string, allowed: readonly UploadKind[]): UploadKind {
+  const ext = path.extname(filename).toLowerCase().slice(1)
+  if (!(allowed as readonly string[]).includes(ext)) {
+    throw refuse(`Upload ${allowed.map((k) => `.${k}`).join(' or ')} files only; “${path.basename(filename).slice(0, 60)}” is not one.`)
+  }
+  return ext as UploadKind
+}
+
+/** Receives the upload and checks it is what its extension says. */
+export async function receiveUpload(req: Request, res: Response, opts: { maxBytes: number; allowed?: readonly UploadKind[]; limits?: ArchiveLimits }): Promise<GuardedUpload> {
+  await receive(req, res, opts.maxBytes)
+  const file = req.file
+  if (!file) throw AppError.badRequest('Choose a file to upload.', { file: 'Choose a file' })
+  const kind = kindOf(file.originalname, opts.allowed ?? ['xlsx', 'csv'])
+  await checkContent(kind, file.buffer, opts.limits ?? DEFAULT_ARCHIVE_LIMITS)
+  return { kind, filename: path.basename(file.originalname), data: file.buffer }
+}
+
+export async function checkContent(kind: UploadKind, data: Buffer, limits: ArchiveLimits = DEFAULT_ARCHIVE_LIMITS): Promise<void> {
+  if (data.length === 0) throw AppError.badRequest('The file is empty.', { file: 'The file is empty' })
+  if (kind === 'csv') return checkCsvText(data)
+  if (data.readUInt32LE(0) !== 0x04034b50) throw refuse('This file is not an .xlsx workbook (it is not a zip archive). Save it from the spreadsheet as .xlsx.')
+  await inspectZip(data, limits)
+}
+
+function checkCsvText(data: Buffer): void {
+  if (data.includes(0)) throw refuse('This .csv holds binary data, not text (is it another kind of file renamed?).')
+  try {
+    new TextDecoder('utf-8', { fatal: true }).decode(data)
+  } catch {
+    throw refuse('This .csv is not UTF-8 text. Save it as “CSV UTF-8” and upload it again.')
+  }
+}
+
+/** Walks the archive entry by entry, measuring what each really unpacks to, and stops at the first excess. */
+function inspectZip(data: Buffer, limits: ArchiveLimits): Promise<void> {
+  return new Promise((resolve, reject) => {
+    yauzl.fromBuffer(data, { lazyEntries: true, validateEntrySizes: true }, (openError, zip) => {
+      if (openError || !zip) return reject(refuse('This file is not an .xlsx workbook (the zip archive cannot be read).'))
+      let settled = false
+      let entries = 0
+      let unpacked = 0
+      let contentTypes = false
+      const fail = (err: AppError) => {
+        if (settled) return
+        settled = true
+        zip.close()
+        reject(err)
+      }
+      zip.on('error', () => fail(refuse('This workbook is damaged: its zip archive cannot be read.')))
+      zip.on('end', () => {
+        if (settled) return
+        settled = true
+        if (contentTypes) resolve()
+        else reject(refuse('This file is a zip archive but not an .xlsx workbook ([Content_Types].xml is missing).'))
+      })
+      zip.on('entry', (entry: yauzl.Entry) => {
+        const problem = entryProblem(entry, ++entries, unpacked, limits)
+        if (problem) return fail(tooBig(problem))
+        if (entry.fileName === '[Content_Types].xml') contentTypes = true
+        if (entry.fileName.endsWith('/')) return zip.readEntry()
+        measureEntry(zip, entry, limits.maxUnpackedBytes - unpacked).then((size) => {
+          unpacked += size
+          zip.readEntry()
+        }, fail)
+      })
+      zip.readEntry()
+    })
+  })
+}
+
+function entryProblem(entry: yauzl.Entry, count: number, unpackedSoFar: number, limits: ArchiveLimits): string | null {
+  if (count > limits.maxEntries) return `The workbook holds more than ${limits.maxEntries} parts; it was refused.`
+  if (unpackedSoFar + entry.uncompressedSize > limits.maxUnpackedBytes) {
+    return `The workbook unpacks to more than ${Math.round(limits.maxUnpackedBytes / 1048576)} MB; it was refused (split it into smaller files).`
+  }
+  const ratio = entry.uncompressedSize / Math.max(1, entry.compressedSize)
+  if (entry.uncompressedSize > limits.ratioFloorBytes && ratio > limits.maxRatio) {
+    return `A part of the workbook is packed ${Math.round(ratio)} to 1, far more than a real spreadsheet; it was refused.`
+  }
+  return null
+}
+
+/** Inflates one entry into nothing, counting bytes; yauzl also refuses an entry larger than it declared. */
+function measureEntry(zip: yauzl.ZipFile, entry: yauzl.Entry, budget: number): Promise<number> {
+  return new Promise((resolve, reject) => {
+    zip.openReadStream(entry, (err, stream) => {
+      if (err || !stream) return reject(refuse('This workbook is damaged or encrypted: a part cannot be read.'))
+      let size = 0
+      stream.on('data', (chunk: Buffer) => {
+        size += chunk.length
+        if (size > budget) {
+          stream.destroy()
+          reject(tooBig('The workbook unpacks to more than the upload allows; it was refused.'))
+        }
+      })
+      stream.on('error', () => reject(refuse('This workbook is damaged: a part does not unpack to its stated size.')))
+      stream.on('end', () => resolve(size))
+    })
+  })
+}

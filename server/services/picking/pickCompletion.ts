@@ -1,0 +1,82 @@
+// Completing a pick list issues the stock: one pickReserved per confirmation (ledger move 'pick',
+// doc_type 'pick_list'), gives back what was not picked, and adds what was issued to the bill of
+// materials' picked_qty. Lines nobody finished stop it, unless the caller accepts them as short.
+import type { EntityManager } from 'typeorm'
+import { Bom } from '../../entities/Bom.js'
+import { PickConfirmation, PickList, PickListLine } from '../../entities/PickList.js'
+import { StockReservation } from '../../entities/StockReservation.js'
+import { AppError } from '../../errors.js'
+import { pickReserved, releaseReservations } from '../stock/stockReservations.js'
+import type { StockActor } from '../stock/stockLedger.js'
+import { PICK_DOC } from './pickListCreate.js'
+import { lockPickList, pickNumber, requireStatus } from './pickListLocks.js'
+
+export interface CompletionResult {
+  issued: number
+  moves: number
+  closedShort: number
+  released: number
+}
+
+/** Lines with units neither confirmed nor closed short: closed short as 'not_picked', or refused. */
+async function closeOpenLines(em: EntityManager, actor: StockActor, list: PickList, lines: PickListLine[], acceptShort: boolean): Promise<number> {
+  const open = lines.filter((l) => l.qty - l.confirmedQty - l.shortQty > 0)
+  if (!open.length) return 0
+  if (!acceptShort) {
+    const units = open.reduce((a, l) => a + l.qty - l.confirmedQty - l.shortQty, 0)
+    throw AppError.conflict(`${open.length} line(s) of ${pickNumber(list.id)} still have ${units} unit(s) to pick: finish them, or complete it as a partial pick.`, 'lines_open')
+  }
+  let closed = 0
+  for (const line of open) {
+    const rest = line.qty - line.confirmedQty - line.shortQty
+    await em.insert(PickConfirmation, {
+      pickListId: list.id, lineId: line.id, qty: 0, shortQty: rest, shortReason: 'not_picked', clientKey: `complete:${list.id}:${line.id}`,
+      binScan: '', itemScan: null, lotScan: null, scannedAt: null, confirmedBy: actor.userId, moveId: null, issuedAt: null,
+    })
+    line.shortQty += rest
+    closed += rest
+    await em.update(PickListLine, { id: line.id }, { shortQty: line.shortQty })
+  }
+  return closed
+}
+
+async function issueConfirmation(em: EntityManager, actor: StockActor, list: PickList, line: PickListLine, c: PickConfirmation): Promise<string> {
+  const reservation = await em.findOneBy(StockReservation, { docType: PICK_DOC, docId: list.id, docLineId: line.id })
+  if (!reservation) throw AppError.conflict(`The stock held for a line of ${pickNumber(list.id)} is gone; it cannot be issued.`, 'reservation_missing')
+  const applied = await pickReserved(em, actor, {
+    reservationId: reservation.id, qty: c.qty, doc: { docType: PICK_DOC, docId: list.id, docLineId: line.id }, note: `confirmation ${c.id}`,
+  })
+  return applied.moves[0].id
+}
+
+export async function completePickList(em: EntityManager, actor: StockActor, id: number, opts: { acceptShort: boolean }): Promise<CompletionResult> {
+  // Same lock order as making a list from this bill of materials: the bill of materials, then the list.
+  const unlocked = await em.findOneBy(PickList, { id })
+  if (!unlocked) throw AppError.notFound('That pick list')
+  await em.findOne(Bom, { where: { id: unlocked.bomId }, lock: { mode: 'pessimistic_write' } })
+  const list = await lockPickList(em, id)
+  requireStatus(list, ['released', 'picking'], 'completed')
+  const lines = await em.find(PickListLine, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
+  const closedShort = await closeOpenLines(em, actor, list, lines, opts.acceptShort)
+  // Locking reads see every confirmation committed before the list lock was granted, not an older snapshot.
+  const confirmations = await em.find(PickConfirmation, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
+  const issuedByBomLine = new Map<number, number>()
+  let moves = 0
+  for (const c of confirmations) {
+    if (c.qty === 0 || c.moveId !== null) continue
+    const line = lines.find((l) => l.id === c.lineId)!
+    const moveId = await issueConfirmation(em, actor, list, line, c)
+    await em.update(PickConfirmation, { id: c.id }, { moveId, issuedAt: new Date() })
+    line.issuedQty += c.qty
+    issuedByBomLine.set(line.bomLineId, (issuedByBomLine.get(line.bomLineId) ?? 0) + c.qty)
+    moves++
+  }
+  for (const line of lines) await em.update(PickListLine, { id: line.id }, { issuedQty: line.issuedQty })
+  const released = await releaseReservations(em, actor, { docType: PICK_DOC, docId: list.id })
+  for (const [bomLineId, qty] of [...issuedByBomLine].sort((a, b) => a[0] - b[0])) {
+    await em.query('UPDATE bom_lines SET picked_qty = picked_qty + ? WHERE id = ?', [qty, bomLineId])
+  }
+  await em.update(PickList, { id: list.id }, { status: 'picked', pickedBy: actor.userId, pickedAt: new Date() })
+  const issued = [...issuedByBomLine.values()].reduce((a, b) => a + b, 0)
+  return { issued, moves, closedShort, released }
+}

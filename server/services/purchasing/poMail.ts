@@ -1,0 +1,112 @@
+// E-mailing a purchase order to its vendor with the order's sheet attached, through nodemailer's
+// SMTP transport (config.smtp). Every attempt lands in outbox_messages, sent or failed, so the admin
+// outbox works whatever server took the mail. The SMTP conversation runs outside any transaction.
+import nodemailer from 'nodemailer'
+import type { DataSource } from 'typeorm'
+import type { AppConfig } from '../../config.js'
+import type { PoSendInput } from '../../../shared/schemas/purchasing.js'
+import type { PoDetail } from '../../../shared/schemas/purchasingViews.js'
+import { canDo } from '../../../shared/purchasing/poStatus.js'
+import { formatMoney } from '../../../shared/money.js'
+import { OutboxMessage } from '../../entities/OutboxMessage.js'
+import { PurchaseOrder } from '../../entities/PurchaseOrder.js'
+import { inTransaction } from '../../db/transaction.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import { lockPo } from './poLifecycle.js'
+import { poDetail } from './poRead.js'
+import { poWorkbook, XLSX_TYPE } from './poSpreadsheet.js'
+
+export function mailTransport(smtp: AppConfig['smtp']) {
+  return nodemailer.createTransport({
+    host: smtp.host,
+    port: smtp.port,
+    secure: smtp.secure,
+    // Not secure means plain SMTP to a local relay or the mail fake: never try STARTTLS there.
+    ignoreTLS: !smtp.secure,
+    auth: smtp.user ? { user: smtp.user, pass: smtp.password ?? '' } : undefined,
+    connectionTimeout: 10_000,
+    greetingTimeout: 10_000,
+    socketTimeout: 20_000,
+  })
+}
+
+function bodyText(po: PoDetail, message: string | null): string {
+  const lines = po.lines.map((l) => `  ${l.lineNo}. ${l.vendorSku ?? l.sku}  ${l.description}  ${l.packsOrdered} × ${l.packQty} = ${l.qtyOrdered} ${l.stockUnit}`)
+  return [
+    `Hello${po.vendor.contactName ? ' ' + po.vendor.contactName : ''},`,
+    '',
+    message ?? `Please find our purchase order ${po.number} attached.`,
+    '',
+    `Order: ${po.number}`,
+    po.expectedDate ? `Wanted by: ${po.expectedDate}` : null,
+    `Ship to: ${po.warehouse.name}${po.warehouse.address ? ', ' + po.warehouse.address : ''}`,
+    po.job ? `For job: ${po.job.name}` : null,
+    '',
+    ...lines,
+    '',
+    po.total !== undefined ? `Total: ${formatMoney(po.total, { symbol: po.currency + ' ' })}` : null,
+    '',
+    'Please confirm the order and the ship date by reply.',
+  ]
+    .filter((l) => l !== null)
+    .join('\n')
+}
+
+interface Attempt {
+  po: PoDetail
+  to: string
+  cc: string[]
+  subject: string
+  text: string
+  file: { name: string; bytes: Buffer }
+}
+
+async function record(ds: DataSource, actor: AuditActor, from: string, a: Attempt, outcome: { messageId?: string; error?: string }) {
+  return inTransaction(ds, async (em) => {
+    const row = em.create(OutboxMessage, {
+      status: outcome.error ? 'failed' : 'sent', sentAt: outcome.error ? null : new Date(), fromAddress: from, toAddress: a.to,
+      cc: a.cc.length ? a.cc.join(', ') : null, subject: a.subject, bodyText: a.text, error: outcome.error?.slice(0, 500) ?? null,
+      messageId: outcome.messageId ?? null, poId: a.po.id, attachmentName: a.file.name, attachmentType: XLSX_TYPE,
+      attachment: a.file.bytes, createdBy: actor.userId,
+    })
+    await em.save(row)
+    const po = await lockPo(em, a.po.id)
+    if (outcome.error) {
+      await em.update(PurchaseOrder, { id: po.id }, { sendError: outcome.error.slice(0, 500) })
+      await audit(em, actor, 'po.send_failed', 'purchase_order', po.id, { to: a.to, error: outcome.error })
+    } else {
+      const stamp = po.status === 'approved' ? { status: 'sent' as const, sentBy: actor.userId, sentAt: new Date() } : {}
+      await em.update(PurchaseOrder, { id: po.id }, { ...stamp, sendError: null })
+      await audit(em, actor, 'po.sent', 'purchase_order', po.id, { number: po.number, from: po.status, to: a.to, outboxId: row.id })
+    }
+    return row.id
+  })
+}
+
+/** Sends (or sends again) the order to the vendor; a failure is recorded, leaves the PO unsent and answers 502. */
+export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
+  const po = await poDetail(ds, poId, true)
+  if (!canDo('send', po.status) && !canDo('resend', po.status)) {
+    throw AppError.conflict(`A ${po.status.replace('_', ' ')} purchase order cannot be e-mailed; approve it first.`, 'wrong_status')
+  }
+  const to = input.to ?? po.vendor.email
+  if (!to) throw AppError.badRequest('This vendor has no e-mail address: enter one.', { to: 'Enter the e-mail address to send to' })
+  const attempt: Attempt = {
+    po, to, cc: input.cc, subject: `Purchase order ${po.number}`, text: bodyText(po, input.message),
+    file: { name: `${po.number}.xlsx`, bytes: await poWorkbook(po) },
+  }
+  try {
+    const info = await mailTransport(config.smtp).sendMail({
+      from: config.smtp.from, to, cc: input.cc, subject: attempt.subject, text: attempt.text,
+      attachments: [{ filename: attempt.file.name, content: attempt.file.bytes, contentType: XLSX_TYPE }],
+    })
+    const outboxId = await record(ds, actor, config.smtp.from, attempt, { messageId: info.messageId })
+    return { outboxId, status: 'sent' as const, po: await poDetail(ds, poId, true) }
+  } catch (err) {
+    if (err instanceof AppError) throw err
+    const error = err instanceof Error ? err.message : String(err)
+    await record(ds, actor, config.smtp.from, attempt, { error })
+    throw new AppError(502, 'mail_failed', `The e-mail could not be sent (${error}). The order stays unsent; check the address or the mail server and send again.`)
+  }
+}

@@ -1,0 +1,123 @@
+// Receiving against a purchase order: good units go into bins (and lots) through the stock service,
+// which blends the moving-average cost; damaged units are recorded and stay owed; made-to-order lines
+// are issued straight to their job in the same transaction, so they are never stocked. The PO row is
+// locked first, so two submissions racing for the last open units apply one after the other.
+import type { EntityManager } from 'typeorm'
+import type { ReceiveInput, ReceiveLineInput } from '../../../shared/schemas/purchasing.js'
+import type { ReceiveResult } from '../../../shared/schemas/purchasingViews.js'
+import { checkLineReceipt, type ReceiptVariance } from '../../../shared/purchasing/receiptRules.js'
+import { statusAfterReceipt } from '../../../shared/purchasing/poStatus.js'
+import { Item } from '../../entities/Item.js'
+import { PurchaseOrder, PurchaseOrderLine } from '../../entities/PurchaseOrder.js'
+import { PurchaseReceipt, PurchaseReceiptLine } from '../../entities/PurchaseReceipt.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import { purchasingSettings } from '../appSettings.js'
+import { findOrCreateLot, issue, receive, type ReceiptLine } from '../stock/stockService.js'
+import { ensure, lockPo } from './poLifecycle.js'
+import { loadItems } from './poWrite.js'
+import { receiptById } from './poReceipts.js'
+
+interface Entry extends ReceiveLineInput {
+  index: number
+  line: PurchaseOrderLine
+  item: Item
+  lotId: number | null
+  variance: ReceiptVariance | null
+}
+
+function checkEntries(input: ReceiveInput, lines: Map<number, PurchaseOrderLine>, items: Map<number, Item>): Entry[] {
+  const fields: Record<string, string> = {}
+  const entries: Entry[] = []
+  input.lines.forEach((l, index) => {
+    const line = lines.get(l.poLineId)
+    if (!line) return void (fields[`lines.${index}.poLineId`] = 'Not a line of this order')
+    const item = items.get(line.itemId)!
+    if (item.matchLot && !item.madeToOrder && l.qty > 0 && !l.lotCode) fields[`lines.${index}.lotCode`] = 'Record the lot: runs of this item differ in tint'
+    entries.push({ ...l, index, line, item, lotId: null, variance: null })
+  })
+  if (Object.keys(fields).length) throw AppError.badRequest('Some lines need attention.', fields)
+  return entries
+}
+
+/** Per PO line: all its entries together must fit what is open (plus the over-receipt allowance). */
+function checkQuantities(entries: Entry[]): void {
+  const conflicts: Record<string, string> = {}
+  const missing: Record<string, string> = {}
+  for (const lineId of new Set(entries.map((e) => e.poLineId))) {
+    const mine = entries.filter((e) => e.poLineId === lineId)
+    const verdict = checkLineReceipt({
+      qtyOrdered: mine[0].line.qtyOrdered,
+      qtyReceived: mine[0].line.qtyReceived,
+      qty: mine.reduce((s, e) => s + e.qty, 0),
+      damagedQty: mine.reduce((s, e) => s + e.damagedQty, 0),
+      hasReason: mine.some((e) => !!e.reason),
+    })
+    const at = `lines.${mine[0].index}.${verdict.ok ? '' : verdict.field}`
+    if (!verdict.ok) (verdict.field === 'qty' ? conflicts : missing)[at] = verdict.message
+    else for (const e of mine) e.variance = e.damagedQty > 0 ? 'damaged' : verdict.variance
+  }
+  if (Object.keys(missing).length) throw AppError.badRequest('Some lines need attention.', missing)
+  if (Object.keys(conflicts).length) throw new AppError(409, 'over_receipt', Object.values(conflicts)[0], conflicts)
+}
+
+async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder, entries: Entry[]): Promise<string | null> {
+  const stocked = entries.filter((e) => e.qty > 0)
+  if (!stocked.length) return null
+  const today = new Date().toISOString().slice(0, 10)
+  for (const e of stocked) {
+    if (e.lotCode) e.lotId = (await findOrCreateLot(em, e.item.id, e.lotCode, { receivedAt: today, vendorId: po.vendorId })).id
+  }
+  const lines: ReceiptLine[] = stocked.map((e) => ({ itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, unitCost: e.line.unitCost, docLineId: e.line.id }))
+  const doc = { docType: 'purchase_order', docId: po.id }
+  const applied = await receive(em, { userId: actor.userId }, { warehouseId: po.warehouseId, lines, doc, note: `Received on ${po.number}` })
+  const special = stocked.filter((e) => e.item.madeToOrder)
+  if (special.length) {
+    // Made to order: straight out to the job (or the order itself when it has no job), never left on hand.
+    await issue(em, { userId: actor.userId }, {
+      lines: special.map((e) => ({ itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, docLineId: e.line.bomLineId ?? e.line.id })),
+      doc: po.jobId ? { docType: 'job', docId: po.jobId } : doc,
+      reason: 'special_order',
+      note: `Made to order, ${po.number}`,
+    })
+  }
+  return applied.batchId
+}
+
+async function advance(em: EntityManager, actor: AuditActor, po: PurchaseOrder): Promise<PurchaseOrder['status']> {
+  const lines = await em.findBy(PurchaseOrderLine, { poId: po.id })
+  const next = statusAfterReceipt(lines)
+  const now = new Date()
+  if (next === 'partly_received') {
+    if (po.status !== next) await em.update(PurchaseOrder, { id: po.id }, { status: next })
+    return next
+  }
+  await em.update(PurchaseOrder, { id: po.id }, { status: 'received', receivedBy: actor.userId, receivedAt: now })
+  await audit(em, actor, 'po.received', 'purchase_order', po.id, { number: po.number })
+  if (!(await purchasingSettings(em)).autoCloseOnReceipt) return 'received'
+  await em.update(PurchaseOrder, { id: po.id }, { status: 'closed', closedBy: actor.userId, closedAt: now, closeReason: 'Everything ordered was received.' })
+  await audit(em, actor, 'po.closed', 'purchase_order', po.id, { number: po.number, reason: 'complete' })
+  return 'closed'
+}
+
+export async function receivePurchaseOrder(em: EntityManager, actor: AuditActor, poId: number, input: ReceiveInput): Promise<ReceiveResult> {
+  const po = await lockPo(em, poId)
+  ensure('receive', po)
+  const poLines = await em.find(PurchaseOrderLine, { where: { poId }, lock: { mode: 'pessimistic_write' } })
+  const items = await loadItems(em, poLines.map((l) => l.itemId))
+  const entries = checkEntries(input, new Map(poLines.map((l) => [l.id, l])), items)
+  checkQuantities(entries)
+  const batchId = await postStock(em, actor, po, entries)
+  const receipt = await em.save(em.create(PurchaseReceipt, { poId, receivedBy: actor.userId, note: input.note, batchId }))
+  for (const e of entries) {
+    await em.insert(PurchaseReceiptLine, {
+      receiptId: receipt.id, poLineId: e.line.id, itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, qtyDamaged: e.damagedQty,
+      variance: e.variance, reason: e.reason, issuedToJobId: e.item.madeToOrder && e.qty > 0 ? po.jobId : null,
+    })
+    await em.increment(PurchaseOrderLine, { id: e.line.id }, 'qtyReceived', e.qty)
+    if (e.damagedQty) await em.increment(PurchaseOrderLine, { id: e.line.id }, 'qtyDamaged', e.damagedQty)
+  }
+  await audit(em, actor, 'po.receipt', 'purchase_order', poId, { receiptId: receipt.id, lines: entries.length })
+  const status = await advance(em, actor, po)
+  return { receipt: await receiptById(em, receipt.id), status }
+}

@@ -1,0 +1,110 @@
+// Writing a purchase order and its lines, shared by every way of creating one. Lines are ordered in
+// purchase packs; qty_ordered = packs × pack size in stock units (the table's CHECK holds it too).
+import { In, type EntityManager } from 'typeorm'
+import { MAX_LINE_QTY, orderTotal } from '../../../shared/purchasing/poMoney.js'
+import { Item } from '../../entities/Item.js'
+import { PurchaseOrder, PurchaseOrderLine } from '../../entities/PurchaseOrder.js'
+import { Vendor, VendorItem } from '../../entities/Vendor.js'
+import { Warehouse } from '../../entities/Warehouse.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import { nextPoNumber } from './poNumbering.js'
+
+export interface NewPoLine {
+  itemId: number
+  vendorSku: string | null
+  description: string
+  packQty: number
+  packsOrdered: number
+  unitCost: string
+  bomLineId?: number | null
+  specJson?: string | null
+}
+
+export interface NewPo {
+  vendorId: number
+  warehouseId: number
+  jobId?: number | null
+  expectedDate?: string | null
+  notes?: string | null
+}
+
+export function addDays(days: number, from = new Date()): string {
+  return new Date(from.getTime() + days * 86_400_000).toISOString().slice(0, 10)
+}
+
+export async function recomputeTotal(em: EntityManager, poId: number): Promise<string> {
+  const lines = await em.findBy(PurchaseOrderLine, { poId })
+  const total = orderTotal(lines)
+  await em.update(PurchaseOrder, { id: poId }, { total })
+  return total
+}
+
+export function checkLineSizes(lines: readonly { packsOrdered: number; packQty: number }[]): void {
+  const tooBig = lines.findIndex((l) => l.packsOrdered * l.packQty > MAX_LINE_QTY)
+  if (tooBig >= 0) throw AppError.badRequest('A line is too large.', { [`lines.${tooBig}.packsOrdered`]: `At most ${MAX_LINE_QTY.toLocaleString('en-US')} units on a line` })
+}
+
+/** Inserts the PO (numbered in this transaction) and its lines; returns the PO and line ids in order. */
+export async function insertPo(em: EntityManager, actor: AuditActor, head: NewPo, lines: NewPoLine[], source: string) {
+  checkLineSizes(lines)
+  const vendor = await em.findOneBy(Vendor, { id: head.vendorId })
+  if (!vendor) throw AppError.badRequest('Choose a vendor.', { vendorId: 'Not a vendor' })
+  if (!vendor.active) throw AppError.conflict(`${vendor.name} is not an active vendor.`)
+  const warehouse = await em.findOneBy(Warehouse, { id: head.warehouseId })
+  if (!warehouse || !warehouse.active) throw AppError.badRequest('Choose the warehouse to ship to.', { warehouseId: 'Not an active warehouse' })
+  const po = em.create(PurchaseOrder, {
+    number: await nextPoNumber(em),
+    vendorId: vendor.id,
+    warehouseId: head.warehouseId,
+    jobId: head.jobId ?? null,
+    status: 'draft',
+    currency: vendor.currency,
+    expectedDate: head.expectedDate ?? null,
+    notes: head.notes ?? null,
+    total: orderTotal(lines.map((l) => ({ unitCost: l.unitCost, qtyOrdered: l.packsOrdered * l.packQty }))),
+    createdBy: actor.userId,
+  })
+  await em.save(po)
+  const saved = await em.save(
+    lines.map((l, i) =>
+      em.create(PurchaseOrderLine, {
+        ...l,
+        poId: po.id,
+        lineNo: i + 1,
+        qtyOrdered: l.packsOrdered * l.packQty,
+        qtyReceived: 0,
+        qtyDamaged: 0,
+        bomLineId: l.bomLineId ?? null,
+        specJson: l.specJson ?? null,
+      }),
+    ),
+  )
+  await audit(em, actor, 'po.create', 'purchase_order', po.id, { number: po.number, source, lines: lines.length })
+  return { po, lineIds: saved.map((l) => l.id) }
+}
+
+export async function loadItems(em: EntityManager, ids: number[]): Promise<Map<number, Item>> {
+  const items = ids.length ? await em.findBy(Item, { id: In([...new Set(ids)]) }) : []
+  return new Map(items.map((i) => [i.id, i]))
+}
+
+export async function vendorItemsFor(em: EntityManager, vendorId: number, itemIds: number[]): Promise<Map<number, VendorItem>> {
+  const rows = itemIds.length ? await em.findBy(VendorItem, { vendorId, itemId: In([...new Set(itemIds)]) }) : []
+  return new Map(rows.map((r) => [r.itemId, r]))
+}
+
+/** Each item's preferred vendor (or its only one). */
+export async function preferredVendors(em: EntityManager, itemIds: number[]): Promise<Map<number, VendorItem>> {
+  const rows = itemIds.length
+    ? await em.find(VendorItem, { where: { itemId: In([...new Set(itemIds)]) }, order: { preferred: 'DESC', unitCost: 'ASC', id: 'ASC' } })
+    : []
+  const map = new Map<number, VendorItem>()
+  for (const r of rows) if (!map.has(r.itemId)) map.set(r.itemId, r)
+  return map
+}
+
+/** Lead time for a set of vendor items: the longest, falling back to the vendor's default. */
+export function leadDays(vendor: Vendor, vendorItems: (VendorItem | undefined)[]): number {
+  return Math.max(0, ...vendorItems.map((vi) => vi?.leadTimeDays ?? vendor.leadTimeDays), vendorItems.length ? 0 : vendor.leadTimeDays)
+}

@@ -1,0 +1,46 @@
+// The purchase order's life: draft → approved → sent → partly_received → received → closed, or
+// cancelled before anything arrives. Each action names the statuses it may start from.
+import type { PoStatus } from '../schemas/purchasing.js'
+
+export type PoAction = 'edit' | 'approve' | 'send' | 'resend' | 'receive' | 'close' | 'cancel'
+
+const FROM: Readonly<Record<PoAction, readonly PoStatus[]>> = {
+  edit: ['draft'],
+  approve: ['draft'],
+  send: ['approved'],
+  // Sending again (a corrected copy, a failed first try that was marked sent by hand) keeps the status.
+  resend: ['sent', 'partly_received'],
+  receive: ['sent', 'partly_received'],
+  // A buyer closes short (the rest will not come) or closes a received order after checking it.
+  close: ['sent', 'partly_received', 'received'],
+  cancel: ['draft', 'approved', 'sent'],
+}
+
+export function canDo(action: PoAction, status: PoStatus): boolean {
+  return FROM[action].includes(status)
+}
+
+/** Why an action is refused, in words for the screen; null when allowed. */
+export function refusal(action: PoAction, status: PoStatus): string | null {
+  if (canDo(action, status)) return null
+  const allowed = FROM[action].map((s) => s.replace('_', ' ')).join(', ')
+  return `A ${status.replace('_', ' ')} purchase order cannot be ${VERB[action]}; only ${allowed} ones can.`
+}
+
+const VERB: Readonly<Record<PoAction, string>> = {
+  edit: 'changed',
+  approve: 'approved',
+  send: 'sent',
+  resend: 'sent again',
+  receive: 'received',
+  close: 'closed',
+  cancel: 'cancelled',
+}
+
+/** Statuses whose unreceived quantity is still on order. */
+export const ON_ORDER_STATUSES: readonly PoStatus[] = ['approved', 'sent', 'partly_received']
+
+/** Status after a receipt: received when every line has all it ordered, else partly received. */
+export function statusAfterReceipt(lines: readonly { qtyOrdered: number; qtyReceived: number }[]): 'partly_received' | 'received' {
+  return lines.every((l) => l.qtyReceived >= l.qtyOrdered) ? 'received' : 'partly_received'
+}

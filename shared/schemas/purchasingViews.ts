@@ -1,0 +1,223 @@
+// What the purchasing API answers. Money is decimal text; cost fields are absent (not null) for users
+// who may not see costs, so a client can't show what the server never sent.
+import type { PoStatus } from './purchasing.js'
+
+export interface VendorView {
+  id: number
+  code: string
+  name: string
+  contactName: string | null
+  email: string | null
+  phone: string | null
+  address: string | null
+  terms: string | null
+  currency: string
+  leadTimeDays: number
+  active: boolean
+  itemCount: number
+}
+
+export interface VendorItemView {
+  id: number
+  vendorId: number
+  itemId: number
+  sku: string
+  itemName: string
+  stockUnit: string
+  vendorSku: string
+  packQty: number
+  minOrderQty: number
+  unitCost: string
+  leadTimeDays: number | null
+  preferred: boolean
+}
+
+export interface ItemChoice {
+  id: number
+  sku: string
+  name: string
+  stockUnit: string
+  madeToOrder: boolean
+  gtin: string | null
+}
+
+export interface WarehouseChoice {
+  id: number
+  code: string
+  name: string
+}
+
+export interface PoTimelineEntry {
+  event: 'created' | 'approved' | 'sent' | 'received' | 'closed' | 'cancelled'
+  at: string
+  by: string | null
+  note?: string | null
+}
+
+export interface PoLineView {
+  id: number
+  lineNo: number
+  itemId: number
+  sku: string
+  itemName: string
+  gtin: string | null
+  stockUnit: string
+  madeToOrder: boolean
+  matchLot: boolean
+  vendorSku: string | null
+  description: string
+  /** Made-to-order spec (shower base dimensions) as stored, and as one line of text. */
+  spec: Record<string, unknown> | null
+  specText: string | null
+  bomLineId: number | null
+  packQty: number
+  packsOrdered: number
+  qtyOrdered: number
+  qtyReceived: number
+  qtyDamaged: number
+  unitCost?: string
+  lineTotal?: string
+}
+
+export interface PoSummary {
+  id: number
+  number: string
+  status: PoStatus
+  vendor: { id: number; code: string; name: string }
+  warehouse: { id: number; code: string; name: string }
+  job: { id: number; name: string; dueDate: string | null } | null
+  currency: string
+  expectedDate: string | null
+  createdAt: string
+  lineCount: number
+  total?: string
+}
+
+export interface OutboxSummary {
+  id: number
+  createdAt: string
+  sentAt: string | null
+  status: 'sent' | 'failed'
+  fromAddress: string
+  toAddress: string
+  cc: string | null
+  subject: string
+  bodyText: string
+  error: string | null
+  poId: number | null
+  poNumber: string | null
+  attachmentName: string | null
+  attachmentBytes: number
+  createdBy: string | null
+}
+
+export interface PoDetail extends PoSummary {
+  vendor: PoSummary['vendor'] & { email: string | null; contactName: string | null; phone: string | null; address: string | null; terms: string | null }
+  warehouse: PoSummary['warehouse'] & { address: string | null }
+  notes: string | null
+  sendError: string | null
+  closeReason: string | null
+  cancelReason: string | null
+  costsVisible: boolean
+  timeline: PoTimelineEntry[]
+  lines: PoLineView[]
+  messages: Omit<OutboxSummary, 'bodyText'>[]
+}
+
+export interface BinChoice {
+  id: number
+  code: string
+  kind: string
+}
+
+export interface ReceivingContext {
+  po: PoDetail
+  bins: BinChoice[]
+}
+
+export interface ReceiptLineView {
+  id: number
+  poLineId: number
+  itemId: number
+  sku: string
+  itemName: string
+  gtin: string | null
+  binCode: string
+  lotId: number | null
+  lotCode: string | null
+  qty: number
+  qtyDamaged: number
+  variance: 'over' | 'short' | 'damaged' | null
+  reason: string | null
+  issuedToJobId: number | null
+}
+
+export interface ReceiptView {
+  id: number
+  poId: number
+  receivedAt: string
+  receivedBy: string | null
+  note: string | null
+  lines: ReceiptLineView[]
+}
+
+export interface ReceiveResult {
+  receipt: ReceiptView
+  status: PoStatus
+}
+
+export interface SuggestionView {
+  id: number
+  itemId: number
+  sku: string
+  itemName: string
+  stockUnit: string
+  warehouse: { id: number; code: string; name: string }
+  vendor: { id: number; code: string; name: string } | null
+  qty: number
+  source: string
+  acceptedAt: string
+  /** The vendor item the line would be ordered as; null when the vendor has no price for the item. */
+  packQty: number | null
+  packs: number | null
+  unitCost?: string | null
+}
+
+export interface JobPurchaseLine {
+  poId: number
+  poNumber: string
+  status: PoStatus
+  vendorName: string
+  expectedDate: string | null
+  poLineId: number
+  description: string
+  specText: string | null
+  qtyOrdered: number
+  qtyReceived: number
+  /** The PO is expected after the job is due. */
+  late: boolean
+}
+
+export interface JobOpenSpecialOrder {
+  bomLineId: number
+  itemId: number | null
+  sku: string | null
+  description: string
+  specText: string | null
+  qty: number
+  orderedQty: number
+}
+
+export interface JobPurchaseLines {
+  job: { id: number; name: string; dueDate: string | null; status: string; customerName: string | null }
+  lines: JobPurchaseLine[]
+  toOrder: JobOpenSpecialOrder[]
+}
+
+export interface SpecialOrderJob {
+  jobId: number
+  jobName: string
+  customerName: string | null
+  dueDate: string | null
+  linesToOrder: number
+}

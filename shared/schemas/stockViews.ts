@@ -1,0 +1,323 @@
+// Reading stock: query strings the server parses (and the screens build), and the answers' shapes.
+// Query values arrive as strings; an empty value means "no filter".
+import { z } from 'zod'
+import { MOVE_TYPES, type BinKind, type MoveType, type StockUnit } from '../catalog.js'
+
+const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
+const optionalId = z.preprocess(blankToUndefined, z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one').optional())
+const requiredId = z.preprocess(blankToUndefined, z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one'))
+const flag = z.preprocess(blankToUndefined, z.enum(['true', 'false'], { error: 'true or false' }).optional()).transform((v) => v === 'true')
+const searchText = z.preprocess(blankToUndefined, z.string().trim().max(80, 'At most 80 characters').optional())
+
+/** A day (YYYY-MM-DD, read as UTC) or an instant with its offset (what the screens send for local days). */
+const instant = z.preprocess(
+  blankToUndefined,
+  z.union([z.iso.date(), z.iso.datetime({ offset: true })], { error: 'A date like 2025-06-30' }).optional(),
+)
+
+// ---- stock by item and warehouse ----
+export const levelsQuerySchema = z.object({
+  itemId: optionalId,
+  warehouseId: optionalId,
+  q: searchText,
+  family: z.preprocess(blankToUndefined, z.string().trim().max(20).optional()),
+  lowOnly: flag,
+  /** Every active stocked item in every active warehouse, even with nothing there. */
+  includeEmpty: flag,
+})
+export type LevelsQuery = z.infer<typeof levelsQuerySchema>
+
+export interface StockLevelRow {
+  itemId: number
+  sku: string
+  name: string
+  family: string
+  stockUnit: StockUnit
+  warehouseId: number
+  warehouseCode: string
+  /** In the warehouse's bins, transit bins excluded. */
+  onHand: number
+  reserved: number
+  /** onHand − reserved: what can be promised or picked. */
+  available: number
+  /** Shipped to this warehouse and not yet put away: never available. */
+  inTransit: number
+  minQty: number | null
+  low: boolean
+}
+
+export interface StockLevelsAnswer {
+  rows: StockLevelRow[]
+  /** More rows matched than one answer carries; narrow the filters. */
+  truncated: boolean
+}
+
+// ---- bins of a warehouse and what they hold ----
+export const binContentsQuerySchema = z.object({
+  warehouseId: requiredId,
+  itemId: optionalId,
+  q: searchText,
+  includeEmpty: flag,
+})
+export type BinContentsQuery = z.infer<typeof binContentsQuerySchema>
+
+export interface BinContentLine {
+  itemId: number
+  sku: string
+  name: string
+  stockUnit: StockUnit
+  lotId: number | null
+  lotCode: string | null
+  onHand: number
+  reserved: number
+}
+
+export interface BinContents {
+  binId: number
+  code: string
+  kind: BinKind
+  active: boolean
+  lines: BinContentLine[]
+}
+
+export interface BinContentsAnswer {
+  warehouse: { id: number; code: string; name: string }
+  bins: BinContents[]
+}
+
+// ---- lots of an item ----
+export const lotLevelsQuerySchema = z.object({ itemId: requiredId })
+
+export interface LotPlace {
+  warehouseId: number
+  warehouseCode: string
+  binId: number
+  binCode: string
+  inTransit: boolean
+  onHand: number
+  reserved: number
+}
+
+export interface LotLevel {
+  /** null: the item's stock kept without a lot. */
+  lotId: number | null
+  lotCode: string | null
+  receivedAt: string | null
+  tintNote: string | null
+  onHand: number
+  reserved: number
+  places: LotPlace[]
+}
+
+export interface LotLevelsAnswer {
+  item: { id: number; sku: string; name: string; stockUnit: StockUnit }
+  lots: LotLevel[]
+}
+
+// ---- the ledger ----
+export const LEDGER_SORTS = ['at', 'sku', 'warehouse', 'bin', 'lot', 'moveType', 'qty', 'user', 'doc'] as const
+export type LedgerSort = (typeof LEDGER_SORTS)[number]
+
+const moveTypes = z.preprocess(
+  (v) => (v === undefined || v === '' ? undefined : Array.isArray(v) ? v : String(v).split(',')),
+  // Checked as a whole, so the message lands on moveType rather than moveType.0.
+  z
+    .array(z.string())
+    .max(MOVE_TYPES.length)
+    .refine((xs) => xs.every((x) => (MOVE_TYPES as readonly string[]).includes(x)), 'Not a kind of move')
+    .transform((xs) => xs as MoveType[])
+    .optional(),
+)
+
+const ledgerFilterShape = {
+  itemId: optionalId,
+  warehouseId: optionalId,
+  binId: optionalId,
+  lotId: optionalId,
+  moveType: moveTypes,
+  docType: z.preprocess(blankToUndefined, z.string().trim().regex(/^[a-z_]{1,20}$/, 'Lower-case letters and _ only').optional()),
+  docId: optionalId,
+  /** Inclusive start. */
+  from: instant,
+  /** A day: through its end. An instant: up to, not including, it. */
+  to: instant,
+  sort: z.preprocess(blankToUndefined, z.enum(LEDGER_SORTS, { error: 'Not a sortable column' }).default('at')),
+  dir: z.preprocess(blankToUndefined, z.enum(['asc', 'desc'], { error: 'asc or desc' }).default('desc')),
+}
+
+const fromBeforeTo = (v: { from?: string; to?: string }) => !v.from || !v.to || new Date(v.from).getTime() <= new Date(v.to).getTime()
+
+export const ledgerQuerySchema = z
+  .object({
+    ...ledgerFilterShape,
+    page: z.preprocess(blankToUndefined, z.coerce.number({ error: 'A page number' }).int('A page number').min(1, 'From 1').max(100_000).default(1)),
+    pageSize: z.preprocess(blankToUndefined, z.coerce.number({ error: 'A number' }).int('A number').min(1, 'At least 1').max(500, 'At most 500').default(50)),
+  })
+  .refine(fromBeforeTo, { path: ['to'], message: 'Ends before it starts' })
+export type LedgerQuery = z.infer<typeof ledgerQuerySchema>
+
+export const ledgerExportQuerySchema = z
+  .object({
+    ...ledgerFilterShape,
+    /** IANA time zone for the spreadsheet's dates (the screen sends the browser's). */
+    tz: z.preprocess(
+      blankToUndefined,
+      z.string().max(64).refine((zone) => isTimeZone(zone), 'Not a time zone').default('UTC'),
+    ),
+  })
+  .refine(fromBeforeTo, { path: ['to'], message: 'Ends before it starts' })
+export type LedgerExportQuery = z.infer<typeof ledgerExportQuerySchema>
+
+export function isTimeZone(zone: string): boolean {
+  try {
+    new Intl.DateTimeFormat('en-US', { timeZone: zone })
+    return true
+  } catch {
+    return false
+  }
+}
+
+export interface LedgerRow {
+  id: string
+  at: string
+  moveType: MoveType
+  itemId: number
+  sku: string
+  itemName: string
+  stockUnit: StockUnit
+  warehouseId: number
+  warehouseCode: string
+  binId: number
+  binCode: string
+  lotId: number | null
+  lotCode: string | null
+  qty: number
+  unitCost: string | null
+  docType: string | null
+  docId: number | null
+  docLineId: number | null
+  reason: string | null
+  note: string | null
+  batchId: string
+  userName: string | null
+}
+
+export interface LedgerPage {
+  rows: LedgerRow[]
+  total: number
+  page: number
+  pageSize: number
+}
+
+// ---- transfers ----
+export const TRANSFER_STATUSES = ['in_transit', 'received'] as const
+export const transfersQuerySchema = z.object({
+  status: z.preprocess(blankToUndefined, z.enum(TRANSFER_STATUSES, { error: 'in_transit or received' }).optional()),
+  warehouseId: optionalId,
+  limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(500, 'At most 500').default(100)),
+})
+export type TransfersQuery = z.infer<typeof transfersQuerySchema>
+
+export interface TransferLineView {
+  id: number
+  itemId: number
+  sku: string
+  itemName: string
+  lotId: number | null
+  lotCode: string | null
+  fromBinId: number
+  fromBinCode: string
+  qty: number
+  receivedQty: number
+}
+
+export interface TransferView {
+  id: number
+  status: 'in_transit' | 'received' | 'cancelled'
+  fromWarehouseId: number
+  fromWarehouseCode: string
+  toWarehouseId: number
+  toWarehouseCode: string
+  note: string | null
+  shippedAt: string
+  shippedBy: string | null
+  receivedAt: string | null
+  receivedBy: string | null
+  lines: TransferLineView[]
+}
+
+// ---- manual minimum per item and warehouse ----
+export const minimumsQuerySchema = z.object({ itemId: optionalId, warehouseId: optionalId })
+
+export const minimumSchema = z.object({
+  minQty: z.union([z.null(), z.number().int().min(0).max(1_000_000)], { error: 'A whole number from 0, or empty for no minimum' }),
+})
+export type MinimumInput = z.infer<typeof minimumSchema>
+
+export interface MinimumRow {
+  itemId: number
+  sku: string
+  warehouseId: number
+  warehouseCode: string
+  minQty: number | null
+}
+
+// ---- what the stock forms pick from ----
+export interface PlaceBin {
+  id: number
+  code: string
+  kind: BinKind
+  active: boolean
+}
+
+export interface Place {
+  id: number
+  code: string
+  name: string
+  active: boolean
+  bins: PlaceBin[]
+}
+
+export const itemOptionsQuerySchema = z.object({
+  q: searchText,
+  /** Comma-separated ids, for a form opened with an item already chosen. */
+  ids: z.preprocess(
+    (v) => (v === undefined || v === '' ? undefined : String(v).split(',')),
+    z.array(z.coerce.number().int().positive()).max(50).optional(),
+  ),
+})
+
+export interface ItemOption {
+  id: number
+  sku: string
+  name: string
+  stockUnit: StockUnit
+  gtin: string | null
+  matchLot: boolean
+}
+
+export interface LotOption {
+  id: number
+  code: string
+  itemId: number
+}
+
+/** What a scan names, once classified on the screen (shared/barcode/scan.ts classifyScan). */
+export const lookupQuerySchema = z.object({
+  kind: z.enum(['sku', 'gtin', 'bin'], { error: 'sku, gtin or bin' }),
+  code: z.string({ error: 'Scan or type a code' }).trim().min(1, 'Scan or type a code').max(80, 'At most 80 characters'),
+  lotCode: searchText,
+  warehouseId: optionalId,
+})
+export type LookupQuery = z.infer<typeof lookupQuerySchema>
+
+export interface LookupAnswer {
+  item: ItemOption | null
+  lot: LotOption | null
+  bin: (PlaceBin & { warehouseId: number; warehouseCode: string }) | null
+}
+
+/** The low-stock flag: a minimum is set and what can be promised has fallen below it. */
+export function isLowStock(available: number, minQty: number | null): boolean {
+  return minQty !== null && available < minQty
+}

@@ -1,0 +1,149 @@
+// Warehouses and bins: the admin forms, the bulk bin range and the API share these.
+import { z } from 'zod'
+import { BIN_CODE_PATTERN } from '../barcode/scan.js'
+
+export const DEFAULT_BIN_PATTERN = '^(?<aisle>[A-Z]+)-(?<bay>\\d+)-(?<level>\\d+)$'
+/** Bins a person may create; transit bins are made by transfers themselves. */
+export const EDITABLE_BIN_KINDS = ['storage', 'receiving', 'staging'] as const
+/** Most bins one range request may create. */
+export const MAX_BIN_RANGE = 2000
+
+const trimmed = (v: unknown) => (typeof v === 'string' ? v.trim() : v)
+const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
+
+/** The reason a bin pattern is unusable, or null: it must compile and name aisle, bay and level. */
+export function binPatternProblem(pattern: string): string | null {
+  let re: RegExp
+  try {
+    re = new RegExp(pattern)
+  } catch {
+    return 'Not a valid pattern'
+  }
+  if (!pattern.startsWith('^') || !pattern.endsWith('$')) return 'Start with ^ and end with $ so the whole code must match'
+  const names = ['aisle', 'bay', 'level'].filter((g) => !pattern.includes(`(?<${g}>`))
+  if (names.length) return `Name the groups aisle, bay and level (missing: ${names.join(', ')})`
+  return re.test('') ? 'The pattern matches an empty code' : null
+}
+
+/** Whether a bin code fits the warehouse's pattern (storage bins only; receiving and staging bins are named freely). */
+export function binCodeFitsPattern(code: string, pattern: string): boolean {
+  try {
+    return new RegExp(pattern).test(code)
+  } catch {
+    return false
+  }
+}
+
+export const warehouseSchema = z.object({
+  code: z.preprocess(trimmed, z.string({ error: 'Enter a code' }).regex(/^[A-Z0-9]{2,12}$/, '2 to 12 capital letters or digits')),
+  name: z.preprocess(trimmed, z.string({ error: 'Enter a name' }).min(1, 'Enter a name').max(80, 'At most 80 characters')),
+  address: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(200, 'At most 200 characters').nullable()).optional(),
+  binPattern: z
+    .preprocess(trimmed, z.string().max(120, 'At most 120 characters'))
+    .superRefine((p, ctx) => {
+      const problem = binPatternProblem(p)
+      if (problem) ctx.addIssue({ code: 'custom', message: problem })
+    })
+    .default(DEFAULT_BIN_PATTERN),
+  aisleOrder: z.preprocess(trimmed, z.string().max(200, 'At most 200 characters').regex(/^([A-Z0-9]+(,[A-Z0-9]+)*)?$/, 'Aisles separated by commas, e.g. A,B,C')).default(''),
+  walkDirection: z.enum(['serpentine', 'oneWay'], { error: 'Serpentine or one way' }).default('serpentine'),
+  active: z.boolean().optional(),
+})
+export type WarehouseInput = z.infer<typeof warehouseSchema>
+export const warehousePatchSchema = warehouseSchema.partial()
+export type WarehousePatch = z.infer<typeof warehousePatchSchema>
+
+export const binCodeSchema = z.preprocess(
+  (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
+  z.string({ error: 'Enter a bin code' }).regex(BIN_CODE_PATTERN, 'Letters, digits and - . _ / only, at most 32'),
+)
+
+export const binSchema = z.object({
+  code: binCodeSchema,
+  kind: z.enum(EDITABLE_BIN_KINDS, { error: 'Storage, receiving or staging' }).default('storage'),
+  active: z.boolean().optional(),
+})
+export type BinInput = z.infer<typeof binSchema>
+export const binPatchSchema = binSchema.partial()
+export type BinPatch = z.infer<typeof binPatchSchema>
+
+const aisleLetter = z.preprocess((v) => (typeof v === 'string' ? v.trim().toUpperCase() : v), z.string({ error: 'One letter' }).regex(/^[A-Z]$/, 'One letter A to Z'))
+const rangeNumber = (max: number) => z.coerce.number({ error: 'A whole number' }).int('A whole number').min(1, 'At least 1').max(max, `At most ${max}`)
+
+interface RangeBounds {
+  aisleFrom: string
+  aisleTo: string
+  bayFrom: number
+  bayTo: number
+  levelFrom: number
+  levelTo: number
+}
+
+/** A block of bins: aisles A–C × bays 1–10 × levels 1–3 gives A-01-1 … C-10-3. */
+export const binRangeSchema = z
+  .object({
+    aisleFrom: aisleLetter,
+    aisleTo: aisleLetter,
+    bayFrom: rangeNumber(999),
+    bayTo: rangeNumber(999),
+    levelFrom: rangeNumber(99),
+    levelTo: rangeNumber(99),
+    bayDigits: z.coerce.number().int().min(1).max(3).default(2),
+  })
+  .refine((r) => r.aisleFrom <= r.aisleTo, { path: ['aisleTo'], message: 'Same as or after the first aisle' })
+  .refine((r) => r.bayFrom <= r.bayTo, { path: ['bayTo'], message: 'At least the first bay' })
+  .refine((r) => r.levelFrom <= r.levelTo, { path: ['levelTo'], message: 'At least the first level' })
+  .refine((r) => binRangeCount(r) <= MAX_BIN_RANGE, { path: ['bayTo'], message: `At most ${MAX_BIN_RANGE} bins at once` })
+export type BinRangeInput = z.infer<typeof binRangeSchema>
+
+
+/** How many bins a range stands for. */
+export function binRangeCount(r: RangeBounds): number {
+  return Math.max(0, r.aisleTo.charCodeAt(0) - r.aisleFrom.charCodeAt(0) + 1) * Math.max(0, r.bayTo - r.bayFrom + 1) * Math.max(0, r.levelTo - r.levelFrom + 1)
+}
+
+/** The codes a range stands for, aisle by aisle, bay by bay, level by level. */
+export function binRangeCodes(r: RangeBounds & { bayDigits?: number }): string[] {
+  const codes: string[] = []
+  for (let a = r.aisleFrom.charCodeAt(0); a <= r.aisleTo.charCodeAt(0); a++) {
+    for (let bay = r.bayFrom; bay <= r.bayTo; bay++) {
+      for (let level = r.levelFrom; level <= r.levelTo; level++) {
+        codes.push(`${String.fromCharCode(a)}-${String(bay).padStart(r.bayDigits ?? 2, '0')}-${level}`)
+      }
+    }
+  }
+  return codes
+}
+
+export interface BinRow {
+  id: number
+  warehouseId: number
+  code: string
+  kind: string
+  active: boolean
+  /** Distinct items with stock in the bin. */
+  items: number
+  onHand: number
+}
+
+export interface WarehouseRow {
+  id: number
+  code: string
+  name: string
+  address: string | null
+  binPattern: string
+  aisleOrder: string
+  walkDirection: 'serpentine' | 'oneWay'
+  active: boolean
+  bins: number
+}
+
+export interface WarehouseDetail {
+  warehouse: WarehouseRow
+  bins: BinRow[]
+}
+
+export interface BinRangeResult {
+  created: number
+  skipped: string[]
+}

@@ -1,0 +1,43 @@
+// Typed calls for pick lists. State changes carry an Idempotency-Key; scanner confirmations bring
+// their own (made when the picker confirmed, kept with the queued confirmation).
+import type {
+  BomForPicking, PickConfirmInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
+} from '@shared/schemas/picking'
+import { api } from './client'
+
+/** A key unique enough for Idempotency-Key; randomUUID needs a secure context, so a fallback for plain-HTTP handhelds. */
+export function newIdempotencyKey(): string {
+  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
+  const bytes = crypto.getRandomValues(new Uint8Array(16))
+  return [...bytes].map((b) => b.toString(16).padStart(2, '0')).join('')
+}
+
+const keyed = (key = newIdempotencyKey()) => ({ headers: { 'Idempotency-Key': key } })
+
+export interface ConfirmAnswer {
+  confirmationId: number
+  lineId: number
+  confirmedQty: number
+  shortQty: number
+  remaining: number
+  listStatus: string
+  replayed: boolean
+}
+
+export const pickingApi = {
+  list: (query: { warehouseId?: number; bomId?: number; jobId?: number; status?: string } = {}) => {
+    const params = new URLSearchParams(Object.entries(query).filter(([, v]) => v !== undefined).map(([k, v]) => [k, String(v)]))
+    return api.get<PickListSummary[]>(`/pick-lists${params.size ? `?${params}` : ''}`)
+  },
+  detail: (id: number) => api.get<PickListDetail>(`/pick-lists/${id}`),
+  boms: () => api.get<BomForPicking[]>('/pick-lists/boms'),
+  warehouses: () => api.get<WalkWarehouse[]>('/picking/warehouses'),
+  plan: (body: PickPlanInput) => api.post<PickPlan>('/pick-lists/plan', body),
+  create: (body: PickCreateInput) => api.post<{ ids: number[]; lists: PickListSummary[] }>('/pick-lists', body, keyed()),
+  release: (id: number) => api.post(`/pick-lists/${id}/release`, {}, keyed()),
+  cancel: (id: number, reason: string | null) => api.post(`/pick-lists/${id}/cancel`, { reason }, keyed()),
+  complete: (id: number, acceptShort: boolean) =>
+    api.post<{ issued: number; closedShort: number }>(`/pick-lists/${id}/complete`, { acceptShort }, keyed()),
+  ship: (id: number, fromWarehouseId: number) => api.post<{ transferId: number; qty: number }>(`/pick-lists/${id}/transfers/ship`, { fromWarehouseId }, keyed()),
+  confirm: (id: number, body: PickConfirmInput, key: string) => api.post<ConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
+}

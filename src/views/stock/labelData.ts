@@ -1,0 +1,62 @@
+// What each label says, for bins, items or lots, built from the payload definitions in
+// shared/barcode/scan.ts so printing and scanning agree.
+import { binLabelPayload, itemLabelPayload, lotLabelPayload, type LabelPayload } from '@shared/barcode/scan'
+import type { ItemDetail, LotRow } from '@shared/schemas/catalog'
+import type { WarehouseDetail } from '@shared/schemas/warehouses'
+import { api } from '@/api/client'
+import type { LabelSpec } from '@/components/labels/labelSpec'
+
+export type LabelKind = 'bin' | 'item' | 'lot'
+
+export interface LabelQuery {
+  kind: LabelKind
+  warehouseId?: number
+  itemId?: number
+  ids: number[]
+}
+
+function build(key: string, make: () => LabelPayload, title: string, lines: string[], qrUrl: string | null): LabelSpec {
+  try {
+    return { key, payload: make(), problem: null, title, lines, qrUrl }
+  } catch (err) {
+    return { key, payload: null, problem: err instanceof Error ? err.message : String(err), title, lines, qrUrl }
+  }
+}
+
+const itemUrl = (id: number) => `${window.location.origin}/stock/items/${id}`
+
+async function binLabels(q: LabelQuery): Promise<LabelSpec[]> {
+  if (!q.warehouseId) return []
+  const detail = await api.get<WarehouseDetail>(`/warehouses/${q.warehouseId}`)
+  const wanted = new Set(q.ids)
+  return detail.bins
+    .filter((b) => (wanted.size ? wanted.has(b.id) : b.kind !== 'transit'))
+    .map((b) => build(`bin-${b.id}`, () => binLabelPayload(b.code), b.code, [detail.warehouse.code], null))
+}
+
+async function itemLabels(q: LabelQuery): Promise<LabelSpec[]> {
+  const details = await Promise.all(q.ids.slice(0, 200).map((id) => api.get<ItemDetail>(`/items/${id}`)))
+  return details.map(({ item }) =>
+    build(`item-${item.id}`, () => itemLabelPayload({ sku: item.sku, gtin: item.gtin }), item.sku, [item.name], itemUrl(item.id)))
+}
+
+async function lotLabels(q: LabelQuery): Promise<LabelSpec[]> {
+  if (!q.itemId) return []
+  const [{ item }, lots] = await Promise.all([api.get<ItemDetail>(`/items/${q.itemId}`), api.get<LotRow[]>(`/items/${q.itemId}/lots`)])
+  const wanted = new Set(q.ids)
+  return lots
+    .filter((l) => (wanted.size ? wanted.has(l.id) : l.onHand > 0))
+    .map((l) => build(
+      `lot-${l.id}`,
+      () => lotLabelPayload({ sku: item.sku, lotCode: l.code, gtin: item.gtin }),
+      `${item.sku} · ${l.code}`,
+      [item.name, [l.receivedAt, l.tintNote].filter(Boolean).join(' · ')],
+      itemUrl(item.id),
+    ))
+}
+
+export function loadLabels(q: LabelQuery): Promise<LabelSpec[]> {
+  if (q.kind === 'bin') return binLabels(q)
+  if (q.kind === 'item') return itemLabels(q)
+  return lotLabels(q)
+}

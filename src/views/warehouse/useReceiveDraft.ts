@@ -1,0 +1,70 @@
+// The receipt being put together at the dock: rows per PO line, bin and lot, filled by scans or by
+// hand, posted once with an Idempotency-Key that stays the same until the post succeeds, so a retry
+// after a lost answer never receives twice.
+import { computed, ref } from 'vue'
+import { readReceivingScan, type ScanLine } from '@shared/purchasing/receiveScan'
+import type { ReceiveResult, ReceivingContext } from '@shared/schemas/purchasingViews'
+import { api } from '@/api/client'
+
+export interface DraftRow {
+  key: number
+  poLineId: number
+  binId: number | null
+  lotCode: string
+  qty: number
+  damagedQty: number
+  reason: string
+}
+
+const newKey = () => (crypto.randomUUID ? crypto.randomUUID() : `rcv-${Date.now()}-${Math.random().toString(36).slice(2)}`)
+
+export function useReceiveDraft(context: () => ReceivingContext | null) {
+  const rows = ref<DraftRow[]>([])
+  const binId = ref<number | null>(null)
+  let idempotencyKey = newKey()
+  let seq = 0
+
+  const lineOf = (id: number) => context()?.po.lines.find((l) => l.id === id)
+  const draftQty = (poLineId: number) => rows.value.filter((r) => r.poLineId === poLineId).reduce((s, r) => s + r.qty, 0)
+  const scanLines = computed<ScanLine[]>(() =>
+    (context()?.po.lines ?? []).map((l) => ({ poLineId: l.id, sku: l.sku, gtin: l.gtin, vendorSku: l.vendorSku, open: l.qtyOrdered - l.qtyReceived - draftQty(l.id) })),
+  )
+
+  function add(poLineId: number, qty: number, lotCode: string | null): void {
+    const lot = lotCode ?? ''
+    const row = rows.value.find((r) => r.poLineId === poLineId && r.binId === binId.value && r.lotCode === lot)
+    if (row) row.qty += qty
+    else rows.value.push({ key: ++seq, poLineId, binId: binId.value, lotCode: lot, qty, damagedQty: 0, reason: '' })
+  }
+
+  /** Applies one scan: adds units to a row, or switches the bin; says what happened for the screen. */
+  function scan(raw: string): { kind: 'line'; sku: string; qty: number; lot: string | null; warnings: string[] } | { kind: 'bin'; code: string } | { kind: 'error'; message: string } {
+    const result = readReceivingScan(raw, scanLines.value)
+    if (result.kind === 'error') return result
+    if (result.kind === 'bin') {
+      const bin = context()?.bins.find((b) => b.code.toUpperCase() === result.code.toUpperCase())
+      if (!bin) return { kind: 'error', message: `unknown-bin:${result.code}` }
+      binId.value = bin.id
+      return { kind: 'bin', code: bin.code }
+    }
+    add(result.poLineId, result.qty, result.lotCode)
+    return { kind: 'line', sku: lineOf(result.poLineId)?.sku ?? '', qty: result.qty, lot: result.lotCode, warnings: result.warnings }
+  }
+
+  function addByHand(poLineId: number): void {
+    rows.value.push({ key: ++seq, poLineId, binId: binId.value, lotCode: '', qty: 1, damagedQty: 0, reason: '' })
+  }
+
+  async function post(note: string | null): Promise<ReceiveResult> {
+    const body = {
+      note,
+      lines: rows.value.map((r) => ({ poLineId: r.poLineId, binId: r.binId, lotCode: r.lotCode || null, qty: r.qty, damagedQty: r.damagedQty, reason: r.reason || null })),
+    }
+    const result = await api.post<ReceiveResult>(`/purchase-orders/${context()!.po.id}/receipts`, body, { headers: { 'Idempotency-Key': idempotencyKey } })
+    idempotencyKey = newKey()
+    rows.value = []
+    return result
+  }
+
+  return { rows, binId, scan, addByHand, post, lineOf }
+}

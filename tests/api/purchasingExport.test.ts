@@ -1,0 +1,164 @@
+// The PO spreadsheets read back with exceljs, every cell checked: numbers stay numbers with number
+// formats, dates are dates, and text from users that starts like a formula is written as inert text.
+// source: OWASP "CSV Injection" (leading = + - @ tab CR LF; prefix a single quote)
+import ExcelJS from 'exceljs'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
+import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { createPurchasingFixture, insertId, type PurchasingFixture } from '../support/purchasingFixtures.js'
+
+let h: ApiHarness
+let f: PurchasingFixture
+let po: PoDetail
+let plain: PoDetail
+const EVIL_NAME = '=HYPERLINK("http://attacker.example/x","Open")'
+const EVIL_NOTE = '+SUM(1,2) deliver to the back gate'
+
+beforeAll(async () => {
+  h = await startApiHarness()
+  f = await createPurchasingFixture(h.ds)
+  const vendorId = await insertId(h.ds, 'INSERT INTO vendors (code, name, contact_name, email, phone, address, terms) VALUES (?, ?, ?, ?, ?, ?, ?)', [
+    `EV${f.tag}`, EVIL_NAME, '@Mallory', 'evil@vendor.example', '-555 0199', '\tTab Street 4', '=1+1',
+  ])
+  await insertId(h.ds, 'INSERT INTO vendor_items (vendor_id, item_id, vendor_sku, pack_qty, min_order_qty, unit_cost) VALUES (?, ?, ?, 24, 24, ?)', [
+    vendorId, f.block.id, '-EV8', '2.1250',
+  ])
+  const buyer = await h.as('buyer')
+  const res = await buyer.post('/api/purchase-orders').set(CSRF).send({
+    vendorId, warehouseId: f.warehouse.id, expectedDate: '2031-04-30', notes: EVIL_NOTE,
+    lines: [
+      { itemId: f.block.id, packsOrdered: 5 },
+      { itemId: f.sealant.id, packsOrdered: 3, packQty: 12, unitCost: '6.3333', description: '-Sealant, clear' },
+    ],
+  })
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  po = res.body
+  const other = await buyer.post('/api/purchase-orders').set(CSRF).send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 2 }] })
+  plain = other.body
+})
+afterAll(() => h?.close())
+
+async function download(path: string): Promise<ExcelJS.Workbook> {
+  const res = await (await h.as('buyer')).get(path).buffer(true).parse((r, done) => {
+    const chunks: Buffer[] = []
+    r.on('data', (c: Buffer) => chunks.push(c))
+    r.on('end', () => done(null, Buffer.concat(chunks)))
+  })
+  expect(res.status).toBe(200)
+  expect(res.headers['content-type']).toContain('spreadsheetml')
+  const book = new ExcelJS.Workbook()
+  await book.xlsx.load(res.body as unknown as ArrayBuffer)
+  return book
+}
+
+function cells(sheet: ExcelJS.Worksheet): Map<string, ExcelJS.CellValue> {
+  const out = new Map<string, ExcelJS.CellValue>()
+  sheet.eachRow({ includeEmpty: false }, (row) => row.eachCell({ includeEmpty: false }, (cell) => out.set(cell.address, cell.value)))
+  return out
+}
+
+const day = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`)
+
+/** What the PO sheet must hold, cell by cell (layout: server/services/purchasing/poSpreadsheet.ts). */
+function expectedPoSheet(p: PoDetail, terms: string | null): Map<string, ExcelJS.CellValue> {
+  const m = new Map<string, ExcelJS.CellValue>([
+    ['A1', `Purchase order ${p.number}`],
+    ['A3', 'Order date'], ['B3', day(p.createdAt)],
+    ['A4', 'Expected'],
+    ['A5', 'Status'], ['B5', 'draft'],
+    ['A6', 'Currency'], ['B6', 'USD'],
+    ['A7', 'Terms'],
+    ['D3', 'Vendor'], ['G3', 'Ship to'], ['G4', `Yard ${f.warehouse.code}`], ['G5', '12 Kiln Road, Brightwater'],
+  ])
+  if (p.expectedDate) m.set('B4', day(p.expectedDate))
+  if (terms) m.set('B7', terms)
+  ;['Line', 'Our SKU', 'Vendor SKU', 'Description', 'Packs', 'Pack size', 'Quantity', 'Unit', 'Unit cost', 'Line total'].forEach((t, i) =>
+    m.set(`${String.fromCharCode(65 + i)}10`, t))
+  return m
+}
+
+describe('one PO as a printable sheet', () => {
+  it('holds exactly the header, vendor, ship-to, lines and total, with injection attempts made inert', async () => {
+    const book = await download(`/api/purchase-orders/${po.id}/export`)
+    expect(book.worksheets.map((s) => s.name)).toEqual([po.number])
+    const sheet = book.worksheets[0]
+    const want = expectedPoSheet(po, "'=1+1")
+    want.set('D4', `'${EVIL_NAME}`)
+    want.set('D5', "'@Mallory")
+    want.set('D6', 'evil@vendor.example')
+    want.set('D7', "'-555 0199")
+    want.set('D8', "'\tTab Street 4")
+    // 5 packs × 24 = 120 × 2.1250 = 255.00; 3 × 12 = 36 × 6.3333 = 227.9988 → 228.00; total 483.00 (hand computed)
+    const rows: ExcelJS.CellValue[][] = [
+      [1, f.block.sku, "'-EV8", `Item ${f.block.sku}`, 5, 24, 120, 'each', 2.125, 255],
+      [2, f.sealant.sku, null, "'-Sealant, clear", 3, 12, 36, 'tube', 6.3333, 228],
+    ]
+    rows.forEach((r, i) => r.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${11 + i}`, v) }))
+    want.set('I14', 'Total')
+    want.set('J14', 483)
+    want.set('A16', 'Notes')
+    want.set('B16', `'${EVIL_NOTE}`)
+    expect(Object.fromEntries(cells(sheet))).toEqual(Object.fromEntries(want))
+
+    // numbers are numbers with number formats, not text
+    for (const ref of ['E11', 'F11', 'G11', 'I11', 'J11', 'J14']) expect(typeof sheet.getCell(ref).value, ref).toBe('number')
+    expect(sheet.getCell('I11').numFmt).toBe('#,##0.0000')
+    expect(sheet.getCell('J11').numFmt).toBe('#,##0.00')
+    expect(sheet.getCell('G11').numFmt).toBe('#,##0')
+    expect(sheet.getCell('B3').numFmt).toBe('yyyy-mm-dd')
+    // every text cell that starts with a formula trigger is inert: no formulas anywhere
+    sheet.eachRow((row) => row.eachCell((cell) => {
+      expect(cell.type, cell.address).not.toBe(ExcelJS.ValueType.Formula)
+      if (typeof cell.value === 'string') expect(/^[=+\-@\t\r\n]/.test(cell.value), `${cell.address}: ${cell.value}`).toBe(false)
+    }))
+  })
+
+  it('is set up for printing: frozen below the table header, column widths, landscape, one page wide', async () => {
+    const sheet = (await download(`/api/purchase-orders/${plain.id}/export`)).worksheets[0]
+    expect(sheet.views[0]).toMatchObject({ state: 'frozen', ySplit: 10 })
+    expect([1, 2, 3, 4, 5, 6, 7, 8, 9, 10].map((c) => sheet.getColumn(c).width)).toEqual([6, 16, 16, 50, 8, 10, 11, 8, 12, 14])
+    expect(sheet.pageSetup).toMatchObject({ orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '10:10' })
+    expect(sheet.headerFooter.oddFooter).toBe(`&L${plain.number}&RPage &P of &N`)
+    const want = expectedPoSheet(plain, 'Net 30')
+    ;['Vendor VA' + f.tag, 'Mara Quill', `orders-va${f.tag.toLowerCase()}@vendor.example`].forEach((v, i) => want.set(`D${4 + i}`, v))
+    want.set('D8', '3 Annealing Way, Corvale')
+    // 2 packs × 12 = 24 tubes × 6.2500 = 150.00
+    ;[1, f.sealant.sku, `LK-${f.tag}-S`, `Item ${f.sealant.sku}`, 2, 12, 24, 'tube', 6.25, 150].forEach((v, c) => want.set(`${String.fromCharCode(65 + c)}11`, v))
+    want.set('I13', 'Total')
+    want.set('J13', 150)
+    expect(Object.fromEntries(cells(sheet))).toEqual(Object.fromEntries(want))
+  })
+})
+
+describe('many POs for the buyer', () => {
+  it('lists the orders and every line, then each order on its own sheet', async () => {
+    const book = await download(`/api/purchase-orders/export?ids=${po.id},${plain.id}`)
+    expect(book.worksheets.map((s) => s.name)).toEqual(['Orders', 'Lines', po.number, plain.number])
+    const orders = book.getWorksheet('Orders')!
+    expect(orders.views[0]).toMatchObject({ state: 'frozen', ySplit: 1 })
+    const header = ['Number', 'Status', 'Vendor', 'Ship to', 'Job', 'Order date', 'Expected', 'Currency', 'Lines', 'Total']
+    const want = new Map<string, ExcelJS.CellValue>()
+    const put = (row: number, values: ExcelJS.CellValue[]) => values.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${row}`, v) })
+    put(1, header)
+    put(2, [po.number, 'draft', `'${EVIL_NAME}`, `Yard ${f.warehouse.code}`, null, day(po.createdAt), day('2031-04-30'), 'USD', 2, 483])
+    put(3, [plain.number, 'draft', `Vendor VA${f.tag}`, `Yard ${f.warehouse.code}`, null, day(plain.createdAt), day(plain.expectedDate!), 'USD', 1, 150])
+    expect(Object.fromEntries(cells(orders))).toEqual(Object.fromEntries(want))
+    expect(typeof orders.getCell('J2').value).toBe('number')
+
+    const lines = book.getWorksheet('Lines')!
+    const lw = new Map<string, ExcelJS.CellValue>()
+    const putL = (row: number, values: ExcelJS.CellValue[]) => values.forEach((v, c) => { if (v !== null) lw.set(`${String.fromCharCode(65 + c)}${row}`, v) })
+    putL(1, ['Number', 'Vendor', 'Line', 'Our SKU', 'Vendor SKU', 'Description', 'Packs', 'Pack size', 'Quantity', 'Received', 'Unit', 'Unit cost', 'Line total'])
+    putL(2, [po.number, `'${EVIL_NAME}`, 1, f.block.sku, "'-EV8", `Item ${f.block.sku}`, 5, 24, 120, 0, 'each', 2.125, 255])
+    putL(3, [po.number, `'${EVIL_NAME}`, 2, f.sealant.sku, null, "'-Sealant, clear", 3, 12, 36, 0, 'tube', 6.3333, 228])
+    putL(4, [plain.number, `Vendor VA${f.tag}`, 1, f.sealant.sku, `LK-${f.tag}-S`, `Item ${f.sealant.sku}`, 2, 12, 24, 0, 'tube', 6.25, 150])
+    expect(Object.fromEntries(cells(lines))).toEqual(Object.fromEntries(lw))
+  })
+
+  it('answers 400 for a bad id list and 404 for an unknown order', async () => {
+    const buyer = await h.as('buyer')
+    expect((await buyer.get('/api/purchase-orders/export?ids=abc')).status).toBe(400)
+    expect((await buyer.get('/api/purchase-orders/export')).status).toBe(400)
+    expect((await buyer.get('/api/purchase-orders/export?ids=999999999')).status).toBe(404)
+  })
+})

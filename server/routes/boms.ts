@@ -5,6 +5,7 @@ import { sendDownload } from '../http/fileResponse.js'
 import { idParam } from '../http/validate.js'
 import { bomFileName, bomWorkbook } from '../services/counter/bomExport.js'
 import { getBom } from '../services/counter/bomService.js'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 
 const counter = allow('admin', 'counter')
 const id = (raw: string | string[] | undefined) => idParam(raw, 'That bill of materials')
@@ -19,7 +20,7 @@ export default (ctx: AppContext) =>
       handler: async (req, res) => {
         const bom = await getBom(ctx.ds, id(req.params.id))
         const bytes = await bomWorkbook(bom)
-        return sendDownload(res, { name: bomFileName(bom), type: 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet', bytes })
+        return sendDownload(res, { name: bomFileName(bom), type: XLSX_TYPE, bytes })
       },
     },
   ])

@@ -17,7 +17,8 @@ import { createFromSuggestions, createManual } from '../services/purchasing/poCr
 import { createFromJob, specialOrderJobs } from '../services/purchasing/jobPurchasing.js'
 import { addLine, approve, cancel, close, markSent, removeLine, updateDraft } from '../services/purchasing/poLifecycle.js'
 import { listPurchaseOrders, poDetail } from '../services/purchasing/poRead.js'
-import { multiPoWorkbook, poWorkbook, XLSX_TYPE } from '../services/purchasing/poSpreadsheet.js'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
+import { multiPoWorkbook, poWorkbook } from '../services/purchasing/poSpreadsheet.js'
 import { acceptedSuggestions } from '../services/purchasing/suggestionsRead.js'
 
 const buyers = allow('admin', 'buyer')

@@ -8,6 +8,7 @@ import {
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 import { prepareLedgerExport } from '../services/stockLedgerExport.js'
 import { ledgerPage } from '../services/stockLedgerQuery.js'
 import { listMinimums, setMinimum } from '../services/stockMinimums.js'
@@ -35,7 +36,7 @@ export default (ctx: AppContext) =>
       handler: async (req, res) => {
         const plan = await prepareLedgerExport(ctx.ds, parseQuery(ledgerExportQuerySchema, req.query))
         res.status(200)
-        res.set('Content-Type', 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
+        res.set('Content-Type', XLSX_TYPE)
         res.set('Content-Disposition', `attachment; filename="${plan.filename}"`)
         await plan.write(res)
         return undefined

@@ -6,11 +6,11 @@ import { idParam, parseBody } from '../http/validate.js'
 import { loadCounterCatalog } from '../services/counter/counterCatalog.js'
 import { computeBill } from '../services/counter/takeoffCompute.js'
 import { takeoffTemplate, takeoffTemplateCsv } from '../services/counter/takeoffImport.js'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 import { sendDownload } from '../http/fileResponse.js'
 import { deleteTakeoff, getTakeoff, updateTakeoff } from '../services/counter/takeoffService.js'
 
 const counter = allow('admin', 'counter')
-const XLSX = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
 const id = (raw: string | string[] | undefined) => idParam(raw, 'That takeoff')
 
 export default (ctx: AppContext) =>
@@ -32,7 +32,7 @@ export default (ctx: AppContext) =>
       handler: async (req, res) =>
         req.query.format === 'csv'
           ? sendDownload(res, { name: 'lumenyard-takeoff-template.csv', type: 'text/csv; charset=utf-8', bytes: takeoffTemplateCsv() })
-          : sendDownload(res, { name: 'lumenyard-takeoff-template.xlsx', type: XLSX, bytes: await takeoffTemplate() }),
+          : sendDownload(res, { name: 'lumenyard-takeoff-template.xlsx', type: XLSX_TYPE, bytes: await takeoffTemplate() }),
     },
     { method: 'get', path: '/:id', access: counter, handler: (req) => getTakeoff(ctx.ds, id(req.params.id)) },
     {

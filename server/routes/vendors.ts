@@ -11,7 +11,7 @@ import {
 import { commitPriceList, previewPriceList, priceListTemplate } from '../services/purchasing/priceListImport.js'
 import { receiveUpload } from '../services/imports/uploadGuard.js'
 import { sendDownload } from '../http/fileResponse.js'
-import { XLSX_TYPE } from '../services/purchasing/poSpreadsheet.js'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 
 const buyers = allow('admin', 'buyer')
 const vendorId = (req: Request) => idParam(req.params.id, 'That vendor')

@@ -118,5 +118,32 @@ export function paretoSeries(result: AbcResult): ParetoSeries {
 export function annualUsageValue(annualQuantity: number, unitCost: Money): Money {
   if (!Number.isFinite(annualQuantity) || annualQuantity < 0) throw new RangeError('annual quantity must be ≥ 0')
   if (!isMoney(unitCost, 20)) throw new RangeError('unit cost must be an amount')
-  return roundMoney(new MoneyDecimal(unitCost).times(annualQuantity).toFixed())
+  return usageValueInCents(annualQuantity, unitCost) ?? roundMoney(new MoneyDecimal(unitCost).times(annualQuantity).toFixed())
+}
+
+const PLAIN_DECIMAL = /^(\d+)(?:\.(\d+))?$/
+
+/**
+ * The same amount in integer arithmetic (a list values thousands of lines): the exact product of the quantity as
+ * written (String(q), as decimal.js reads a number) and the cost, rounded half-up to cents. Null wherever the
+ * decimal path could round inside the product (over 40 digits) or refuse it (over 20 places), or for a negative
+ * cost; the caller then takes that path.
+ */
+function usageValueInCents(annualQuantity: number, unitCost: Money): Money | null {
+  const q = PLAIN_DECIMAL.exec(String(annualQuantity))
+  const c = PLAIN_DECIMAL.exec(unitCost)
+  if (!q || !c) return null
+  const qPlaces = (q[2] ?? '').replace(/0+$/, '')
+  const cPlaces = (c[2] ?? '').replace(/0+$/, '')
+  const places = qPlaces.length + cPlaces.length
+  const product = BigInt(q[1] + qPlaces) * BigInt(c[1] + cPlaces)
+  if (places > 20 || product.toString().length > 40) return null
+  let cents: bigint
+  if (places <= 2) cents = product * 10n ** BigInt(2 - places)
+  else {
+    const unit = 10n ** BigInt(places - 2)
+    cents = product / unit + (2n * (product % unit) >= unit ? 1n : 0n)
+  }
+  const digits = cents.toString().padStart(3, '0')
+  return `${digits.slice(0, -2)}.${digits.slice(-2)}`
 }

@@ -125,10 +125,19 @@ function requireRange(name: string, value: number, min: number, max = Infinity):
   if (!Number.isFinite(value) || value < min || value > max) throw new RangeError(`${name} must be in [${min}, ${max}], got ${value}`)
 }
 
+const Z_BY_LEVEL = new Map<number, number>()
+
 /** z such that Φ(z) = serviceLevel: the standard normal quantile. */
 export function zForServiceLevel(serviceLevel: number): number {
   if (!(serviceLevel > 0 && serviceLevel < 1)) throw new RangeError(`service level must be between 0 and 1, got ${serviceLevel}`)
-  return jStat.normal.inv(serviceLevel, 0, 1)
+  let z = Z_BY_LEVEL.get(serviceLevel)
+  if (z === undefined) {
+    // A list has a handful of service levels over thousands of lines: the quantile is worked out once for each.
+    if (Z_BY_LEVEL.size >= 256) Z_BY_LEVEL.clear()
+    z = jStat.normal.inv(serviceLevel, 0, 1) as number
+    Z_BY_LEVEL.set(serviceLevel, z)
+  }
+  return z
 }
 
 export interface SafetyStockInput {
@@ -205,25 +214,25 @@ function validate(input: ReorderInput): void {
 
 interface Targets { z: number; safetyStock: number; reorderPoint: number; orderUpToLevel: number | null }
 
-function computeTargets({ demand, policy }: ReorderInput, steps: string[]): Targets {
+function computeTargets({ demand, policy }: ReorderInput, steps: string[] | null): Targets {
   const { meanDaily: d, sdDaily: sd } = demand
   const { leadTimeDays: L, leadTimeSdDays: sL, overrides = {} } = policy
   const z = zForServiceLevel(policy.serviceLevel)
-  steps.push(`z = Φ⁻¹(${policy.serviceLevel}) = ${z.toFixed(4)}`)
+  steps?.push(`z = Φ⁻¹(${policy.serviceLevel}) = ${z.toFixed(4)}`)
   let ss = safetyStock({ z, meanDaily: d, sdDaily: sd, leadTimeDays: L, leadTimeSdDays: sL })
-  steps.push(sL === 0
+  steps?.push(sL === 0
     ? `SS = z·σd·√L = ${z.toFixed(4)} × ${show(sd)} × √${show(L)} = ${show(ss)}`
     : `SS = z·√(L·σd² + d̄²·σL²) = ${z.toFixed(4)} × √(${show(L)} × ${show(sd)}² + ${show(d)}² × ${show(sL)}²) = ${show(ss)}`)
   if (overrides.safetyStock) {
     ss = overrides.safetyStock.value
-    steps.push(`SS = ${show(ss)} (override: ${overrides.safetyStock.reason})`)
+    steps?.push(`SS = ${show(ss)} (override: ${overrides.safetyStock.reason})`)
   }
   const ropRaw = reorderPointRaw(d, L, ss)
   let reorderPoint = ceilQty(ropRaw)
-  steps.push(`ROP = d̄·L + SS = ${show(d)} × ${show(L)} + ${show(ss)} = ${show(ropRaw)} → ${reorderPoint}`)
+  steps?.push(`ROP = d̄·L + SS = ${show(d)} × ${show(L)} + ${show(ss)} = ${show(ropRaw)} → ${reorderPoint}`)
   if (overrides.reorderPoint) {
     reorderPoint = ceilQty(overrides.reorderPoint.value)
-    steps.push(`ROP = ${reorderPoint} (override: ${overrides.reorderPoint.reason})`)
+    steps?.push(`ROP = ${reorderPoint} (override: ${overrides.reorderPoint.reason})`)
   }
   let orderUpToLevel: number | null = null
   if (policy.method === 'orderUpTo') {
@@ -231,65 +240,76 @@ function computeTargets({ demand, policy }: ReorderInput, steps: string[]): Targ
     const ssP = z * Math.sqrt(P * sd ** 2 + d ** 2 * sL ** 2)
     const tRaw = d * P + ssP
     orderUpToLevel = ceilQty(tRaw)
-    steps.push(`T = d̄·(R+L) + z·√((R+L)·σd² + d̄²·σL²) = ${show(d)} × ${show(P)} + ${show(ssP)} = ${show(tRaw)} → ${orderUpToLevel}`)
+    steps?.push(`T = d̄·(R+L) + z·√((R+L)·σd² + d̄²·σL²) = ${show(d)} × ${show(P)} + ${show(ssP)} = ${show(tRaw)} → ${orderUpToLevel}`)
     if (overrides.orderUpToLevel) {
       orderUpToLevel = ceilQty(overrides.orderUpToLevel.value)
-      steps.push(`T = ${orderUpToLevel} (override: ${overrides.orderUpToLevel.reason})`)
+      steps?.push(`T = ${orderUpToLevel} (override: ${overrides.orderUpToLevel.reason})`)
     }
   }
   return { z, safetyStock: ss, reorderPoint, orderUpToLevel }
 }
 
-function computeLotSize({ demand, policy, unitCost, vendor }: ReorderInput, steps: string[]): { eoq: number | null; lotSize: number } {
+function computeLotSize({ demand, policy, unitCost, vendor }: ReorderInput, steps: string[] | null): { eoq: number | null; lotSize: number } {
   const D = demand.meanDaily * DAYS_PER_YEAR
   const S = Number(policy.costPerOrder)
   const H = policy.holdingRatePerYear * Number(unitCost)
   const eoq = economicOrderQuantity({ annualDemand: D, costPerOrder: S, holdingCostPerUnit: H })
-  steps.push(`D = d̄ × ${DAYS_PER_YEAR} = ${show(D)}; H = i × C = ${policy.holdingRatePerYear} × ${unitCost} = ${show(H, 4)}`)
-  steps.push(eoq === null
+  steps?.push(`D = d̄ × ${DAYS_PER_YEAR} = ${show(D)}; H = i × C = ${policy.holdingRatePerYear} × ${unitCost} = ${show(H, 4)}`)
+  steps?.push(eoq === null
     ? 'EOQ undefined (H = 0): lot size from need, pack and minimum only'
     : `EOQ = √(2DS/H) = √(2 × ${show(D)} × ${policy.costPerOrder} / ${show(H, 4)}) = ${show(eoq)}`)
   const override = policy.overrides?.orderQuantity
   const base = override ? override.value : (eoq ?? 0)
-  if (override) steps.push(`Q = ${show(base)} (override: ${override.reason})`)
+  if (override) steps?.push(`Q = ${show(base)} (override: ${override.reason})`)
   const lotSize = D === 0 && !override ? 0 : roundOrderQuantity(Math.max(base, 1), vendor)
-  if (vendor) steps.push(`lot size = ${show(base)} → whole packs of ${vendor.packSize}, minimum ${vendor.minimumOrder} → ${lotSize}`)
+  if (vendor) steps?.push(`lot size = ${show(base)} → whole packs of ${vendor.packSize}, minimum ${vendor.minimumOrder} → ${lotSize}`)
   return { eoq, lotSize }
 }
 
+export interface ReorderOptions {
+  /** false: the working is written out only when `explanation` is first read (a list of thousands needs none). */
+  explain?: boolean
+}
+
 /** The full reorder suggestion for one item in one warehouse. */
-export function reorderSuggestion(input: ReorderInput): ReorderResult {
+export function reorderSuggestion(input: ReorderInput, options: ReorderOptions = {}): ReorderResult {
   validate(input)
   const { demand, stock, policy, vendor } = input
-  const steps: string[] = []
+  const steps: string[] | null = options.explain === false ? null : []
   const position = inventoryPosition(stock)
-  steps.push(`position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
+  steps?.push(`position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
   const targets = computeTargets(input, steps)
   const { eoq, lotSize } = computeLotSize(input, steps)
   const ceiling = policyCeiling({ ...targets, lotSize, method: policy.method, packSize: vendor?.packSize ?? 1, minimumOrder: vendor?.minimumOrder ?? 0 })
-  const status = classifyLine({ position, stock, demand, policy, reorderPoint: targets.reorderPoint, ceiling }, steps)
+  const status = classifyLine({ position, stock, demand, policy, reorderPoint: targets.reorderPoint, ceiling }, steps ?? [])
   let suggestedOrder = 0
   if (status === 'orderNow' || status === 'orderSoon') {
     const need = status === 'orderNow' ? targets.reorderPoint + 1 - position : 0
     const raw = policy.method === 'orderUpTo' ? (targets.orderUpToLevel ?? 0) - position : Math.max(lotSize, need)
     suggestedOrder = roundOrderQuantity(Math.max(raw, need), vendor)
-    steps.push(policy.method === 'orderUpTo'
+    steps?.push(policy.method === 'orderUpTo'
       ? `order = T − position = ${targets.orderUpToLevel} − ${position} = ${show(raw)} → ${suggestedOrder}`
       : `order = max(lot size, ROP + 1 − position) = max(${lotSize}, ${need}) → ${suggestedOrder}`)
   }
-  return {
+  const figures = {
     status, ...targets, eoq, lotSize, position, suggestedOrder,
     daysOfSupply: demand.meanDaily > 0 ? position / demand.meanDaily : null,
-    explanation: {
-      inputs: {
-        'd̄ (units/day)': demand.meanDaily, 'σd (units/day)': demand.sdDaily, 'L (days)': policy.leadTimeDays,
-        'σL (days)': policy.leadTimeSdDays, 'R (days)': policy.reviewPeriodDays, 'service level': policy.serviceLevel,
-        'S (per order)': policy.costPerOrder, 'i (per year)': policy.holdingRatePerYear, 'C (unit cost)': input.unitCost,
-        'on hand': stock.onHand, 'on order': stock.onOrder, reserved: stock.reserved,
-        'days since last use': demand.daysSinceLastUse,
-        'pack size': vendor?.packSize ?? null, 'minimum order': vendor?.minimumOrder ?? null,
-      },
-      steps,
-    },
+  }
+  if (steps) return { ...figures, explanation: { inputs: explanationInputs(input), steps } }
+  let written: Explanation | undefined
+  return Object.defineProperty(figures, 'explanation', {
+    enumerable: true,
+    get: () => (written ??= reorderSuggestion(input).explanation),
+  }) as ReorderResult
+}
+
+function explanationInputs({ demand, stock, policy, vendor, unitCost }: ReorderInput): Explanation['inputs'] {
+  return {
+    'd̄ (units/day)': demand.meanDaily, 'σd (units/day)': demand.sdDaily, 'L (days)': policy.leadTimeDays,
+    'σL (days)': policy.leadTimeSdDays, 'R (days)': policy.reviewPeriodDays, 'service level': policy.serviceLevel,
+    'S (per order)': policy.costPerOrder, 'i (per year)': policy.holdingRatePerYear, 'C (unit cost)': unitCost,
+    'on hand': stock.onHand, 'on order': stock.onOrder, reserved: stock.reserved,
+    'days since last use': demand.daysSinceLastUse,
+    'pack size': vendor?.packSize ?? null, 'minimum order': vendor?.minimumOrder ?? null,
   }
 }

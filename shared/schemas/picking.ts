@@ -187,6 +187,17 @@ export interface PickListDetail extends PickListSummary {
   walk: { direction: 'serpentine' | 'oneWay'; aisleOrder: string[] }
 }
 
+/** The answer to one scan confirmation; `replayed` when the same Idempotency-Key was seen before. */
+export interface PickConfirmAnswer {
+  confirmationId: number
+  lineId: number
+  confirmedQty: number
+  shortQty: number
+  remaining: number
+  listStatus: string
+  replayed: boolean
+}
+
 export interface PlannedLine {
   bomLineId: number
   itemId: number

@@ -36,6 +36,7 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress: 
   return { done, abort: () => xhr.abort() }
 }
 
+/** Hands a downloaded file to the browser's save. */
 export function saveFile(blob: Blob, filename: string): void {
   const url = URL.createObjectURL(blob)
   const a = document.createElement('a')

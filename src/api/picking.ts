@@ -1,7 +1,7 @@
 // Typed calls for pick lists. State changes carry an Idempotency-Key; scanner confirmations bring
 // their own (made when the picker confirmed, kept with the queued confirmation).
 import type {
-  BomForPicking, PickConfirmInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
+  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
 } from '@shared/schemas/picking'
 import { api } from './client'
 
@@ -13,16 +13,6 @@ export function newIdempotencyKey(): string {
 }
 
 const keyed = (key = newIdempotencyKey()) => ({ headers: { 'Idempotency-Key': key } })
-
-export interface ConfirmAnswer {
-  confirmationId: number
-  lineId: number
-  confirmedQty: number
-  shortQty: number
-  remaining: number
-  listStatus: string
-  replayed: boolean
-}
 
 export const pickingApi = {
   list: (query: { warehouseId?: number; bomId?: number; jobId?: number; status?: string } = {}) => {
@@ -39,5 +29,5 @@ export const pickingApi = {
   complete: (id: number, acceptShort: boolean) =>
     api.post<{ issued: number; closedShort: number }>(`/pick-lists/${id}/complete`, { acceptShort }, keyed()),
   ship: (id: number, fromWarehouseId: number) => api.post<{ transferId: number; qty: number }>(`/pick-lists/${id}/transfers/ship`, { fromWarehouseId }, keyed()),
-  confirm: (id: number, body: PickConfirmInput, key: string) => api.post<ConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
+  confirm: (id: number, body: PickConfirmInput, key: string) => api.post<PickConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
 }

@@ -1,10 +1,10 @@
 // Counter test fixtures: a test glass block and its supplies written straight into the items table
 // (the catalog APIs are another feature's), each role mapped to them for that block only, so a test's
 // numbers never depend on the demo catalog.
-import { randomBytes } from 'node:crypto'
 import type { DataSource } from 'typeorm'
 import type { Takeoff } from '../../shared/schemas/takeoff.js'
 import { MM_PER_INCH } from '../../shared/units.js'
+import { insertId, tagOf } from './fixtureRows.js'
 
 export const IN = MM_PER_INCH // NIST SP 811: 1 in = 25.4 mm exactly
 
@@ -13,11 +13,6 @@ export interface CounterFixture {
   blockId: number
   blockSku: string
   items: Record<string, { id: number; sku: string }>
-}
-
-async function insertId(ds: DataSource, sql: string, params: unknown[]): Promise<number> {
-  const res = (await ds.query(sql, params)) as { insertId: number | string }
-  return Number(res.insertId)
 }
 
 interface ItemSpec { role: string; family: string; unit: string; caseQty?: number; sellByPack?: boolean; extra?: Record<string, string | number | boolean> }
@@ -55,7 +50,7 @@ async function insertItem(ds: DataSource, sku: string, spec: ItemSpec): Promise<
 }
 
 export async function createCounterFixture(ds: DataSource): Promise<CounterFixture> {
-  const tag = randomBytes(3).toString('hex').toUpperCase()
+  const tag = tagOf()
   const blockSku = `CTB-${tag}`
   const blockId = await insertItem(ds, blockSku, {
     role: 'block', family: 'glass_block', unit: 'each', caseQty: 8, sellByPack: true,

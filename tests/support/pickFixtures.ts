@@ -1,18 +1,13 @@
 // Pick list test fixtures: items, a warehouse with aisle-bay-level bins and a second one, lots with
 // their own received dates, stock received through the API, and a bill of materials written
 // straight into boms/bom_lines (the counter's screens save them in the app). Invented data.
-import { randomBytes } from 'node:crypto'
 import supertest from 'supertest'
 import type { DataSource } from 'typeorm'
 import { withCheckDigit } from '../../shared/barcode/checkDigit.js'
 import { CSRF } from './apiHarness.js'
+import { countRows, insertId, tagOf } from './fixtureRows.js'
 
-export const tagOf = () => randomBytes(3).toString('hex').toUpperCase()
-
-async function insertId(ds: DataSource, sql: string, params: unknown[]): Promise<number> {
-  const res = (await ds.query(sql, params)) as { insertId: number | string }
-  return Number(res.insertId)
-}
+export { countRows, tagOf }
 
 export interface FxItem { id: number; sku: string; gtin: string | null }
 export interface FxWarehouse { id: number; code: string; bins: Record<string, number> }
@@ -118,11 +113,6 @@ export async function ledgerMismatches(ds: DataSource, itemIds: number[]): Promi
 export async function balanceOf(ds: DataSource, itemId: number, binId: number): Promise<{ onHand: number; reserved: number }> {
   const [row] = (await ds.query('SELECT COALESCE(SUM(on_hand), 0) AS on_hand, COALESCE(SUM(reserved), 0) AS reserved FROM stock_balances WHERE item_id = ? AND bin_id = ?', [itemId, binId])) as { on_hand: string; reserved: string }[]
   return { onHand: Number(row.on_hand), reserved: Number(row.reserved) }
-}
-
-export async function countRows(ds: DataSource, table: string, where = '1=1', params: unknown[] = []): Promise<number> {
-  const [row] = (await ds.query(`SELECT COUNT(*) AS n FROM ${table} WHERE ${where}`, params)) as { n: string }[]
-  return Number(row.n)
 }
 
 /** A supertest agent signed in as one of the demo users (browser tests set up their data through the API). */

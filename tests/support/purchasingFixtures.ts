@@ -1,15 +1,11 @@
 // Purchasing fixtures written straight into the tables (the catalog and counter APIs are other
 // features'), each named with a fresh tag so test files and reruns never collide.
-import { randomBytes, randomInt } from 'node:crypto'
+import { randomInt } from 'node:crypto'
 import type { DataSource } from 'typeorm'
 import { withCheckDigit } from '../../shared/barcode/checkDigit.js'
+import { countRows, insertId, tagOf } from './fixtureRows.js'
 
-export const tagOf = () => randomBytes(3).toString('hex').toUpperCase()
-
-export async function insertId(ds: DataSource, sql: string, params: unknown[]): Promise<number> {
-  const res = (await ds.query(sql, params)) as { insertId: number | string }
-  return Number(res.insertId)
-}
+export { insertId, tagOf }
 
 /** A valid GTIN-13 in the 2xx "restricted circulation" range, so it never names a real product. */
 export function testGtin(): string {
@@ -112,6 +108,5 @@ export async function jobWithShowerBase(ds: DataSource, f: PurchasingFixture, du
 }
 
 export async function count(ds: DataSource, table: string): Promise<number> {
-  const [row] = await ds.query(`SELECT COUNT(*) AS n FROM ${table}`)
-  return Number(row.n)
+  return countRows(ds, table)
 }

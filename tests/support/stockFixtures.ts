@@ -1,10 +1,10 @@
 // Stock test fixtures written straight into the catalog tables (the catalog APIs are another
 // feature's), plus a real listening server and signed-in clients for concurrency tests.
-import { randomBytes } from 'node:crypto'
 import type { Server } from 'node:http'
 import supertest from 'supertest'
 import type { DataSource } from 'typeorm'
 import { CSRF, TEST_PASSWORD, type ApiHarness } from './apiHarness.js'
+import { insertId, tagOf } from './fixtureRows.js'
 
 export interface StockFixture {
   tag: string
@@ -15,13 +15,6 @@ export interface StockFixture {
   warehouses: { id: number; code: string }[]
   /** Storage bins by code: warehouse 0 gets A1…A5, warehouse 1 gets B1, B2. */
   bins: Record<string, number>
-}
-
-const tagOf = () => randomBytes(3).toString('hex').toUpperCase()
-
-async function insertId(ds: DataSource, sql: string, params: unknown[]): Promise<number> {
-  const res = (await ds.query(sql, params)) as { insertId: number | string }
-  return Number(res.insertId)
 }
 
 export async function createItem(ds: DataSource, sku: string, extra: { name?: string; gtin?: string | null } = {}): Promise<number> {

@@ -2,13 +2,11 @@
 // (shared/takeoff/billOfMaterials.ts). Demo catalog: an invented supplier, Brightwater Block Supply.
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { takeoffSchema, wallSchema, type CatalogMap, type Takeoff, type Wall } from '../../shared/schemas/takeoff.js'
+import { takeoffSchema, type CatalogMap, type Takeoff, type Wall } from '../../shared/schemas/takeoff.js'
 import { computeTakeoff, type BomLine, type WallResultOk } from '../../shared/takeoff/billOfMaterials.js'
 import { CLOSING_CAUTION } from '../../shared/takeoff/cautions.js'
+import { IN, wallMaker } from '../support/takeoffFixtures.js'
 
-const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
-// 8x8 nominal: face 7 3/4 in (common practice), standard depth 3 7/8 in (IRC 2021 R607.3); 2.5 kg is a demo weight
-const block8 = { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard' as const, weightKg: 2.5 }
 
 const catalog: CatalogMap = {
   block: { sku: 'BW-GB8-CLR', name: 'Clear 8x8 glass block', unit: 'each', packSize: 8, sellByPack: true },
@@ -26,20 +24,7 @@ const catalog: CatalogMap = {
   showerBase: { sku: 'BW-BASE-MTO', name: 'Shower base, made to order', unit: 'each', packSize: 1, sellByPack: false },
 }
 
-function wall(over: Partial<Wall> = {}): Wall {
-  return wallSchema.parse({
-    name: 'Okafor hall window',
-    sizing: 'opening',
-    heightMm: 84 * IN,
-    block: block8,
-    joint: { kind: 'spacer', jointMm: IN / 8 },
-    segments: [{ kind: 'straight', lengthMm: 72 * IN }],
-    freeEnds: { start: false, end: false, top: false },
-    exposure: 'interior',
-    wetArea: false,
-    ...over,
-  })
-}
+const wall = wallMaker('Okafor hall window')
 
 function takeoff(walls: Wall[], extra: Partial<Takeoff> = {}): Takeoff {
   return takeoffSchema.parse({ name: 'Okafor residence', walls, looseLines: [], ...extra })

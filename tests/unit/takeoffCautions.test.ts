@@ -3,7 +3,7 @@
 // and licensed practice (shared/takeoff/cautions.ts).
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { showerBaseSchema, wallSchema, type Wall } from '../../shared/schemas/takeoff.js'
+import { showerBaseSchema, type Wall } from '../../shared/schemas/takeoff.js'
 import {
   CLOSING_CAUTION,
   MIN_THICKNESS_MM,
@@ -14,32 +14,10 @@ import {
   type Caution,
 } from '../../shared/takeoff/cautions.js'
 import { planSections } from '../../shared/takeoff/sections.js'
-import { isWallRefusal, layoutWall, type WallGeometry } from '../../shared/takeoff/wallLayout.js'
+import type { WallGeometry } from '../../shared/takeoff/wallLayout.js'
+import { block8, FT, IN, laid, wallMaker } from '../support/takeoffFixtures.js'
 
-const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
-const FT = 304.8 // NIST SP 811: 1 ft = 0.3048 m exactly
-const block8 = { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard' as const, weightKg: 2.5 }
-
-function wall(over: Partial<Wall> = {}): Wall {
-  return wallSchema.parse({
-    name: 'Stair light',
-    sizing: 'opening',
-    heightMm: 84 * IN,
-    block: block8,
-    joint: { kind: 'spacer', jointMm: IN / 8 },
-    segments: [{ kind: 'straight', lengthMm: 72 * IN }],
-    freeEnds: { start: false, end: false, top: false },
-    exposure: 'interior',
-    wetArea: false,
-    ...over,
-  })
-}
-
-function laid(w: Wall): WallGeometry {
-  const g = layoutWall(w, 'in')
-  if (isWallRefusal(g)) throw new Error(g.reason)
-  return g
-}
+const wall = wallMaker('Stair light')
 
 function cautionsOf(w: Wall, blockWeightKg = w.block.weightKg): Caution[] {
   const geometry = laid(w)

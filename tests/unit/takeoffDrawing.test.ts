@@ -5,9 +5,7 @@ import { takeoffSchema, wallSchema, type Wall } from '../../shared/schemas/takeo
 import { computeTakeoff, type WallResultOk } from '../../shared/takeoff/billOfMaterials.js'
 import { toSvg } from '../../shared/takeoff/drawing.js'
 import { sectionTone } from '../../shared/takeoff/drawingSvg.js'
-
-const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
-const block8 = { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard' as const, weightKg: 2.5 }
+import { block8, IN } from '../support/takeoffFixtures.js'
 
 function wall(over: Partial<Wall> = {}): Wall {
   return wallSchema.parse({

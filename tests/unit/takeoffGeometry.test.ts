@@ -2,7 +2,6 @@
 // and laying a wall's run out as columns (shared/takeoff/geometry.ts, wallLayout.ts).
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { wallSchema, type Wall } from '../../shared/schemas/takeoff.js'
 import {
   actualFaceFromNominalInches,
   fitCourses,
@@ -14,33 +13,12 @@ import {
   roughOpeningHeight,
   roughOpeningWidth,
 } from '../../shared/takeoff/geometry.js'
-import { isWallRefusal, layoutWall, type WallGeometry } from '../../shared/takeoff/wallLayout.js'
-
-const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
+import { isWallRefusal, layoutWall } from '../../shared/takeoff/wallLayout.js'
+import { block8 as demoBlock8, IN, laid, wallMaker } from '../support/takeoffFixtures.js'
 
 // 8x8 nominal block: actual face 7 3/4 in (nominal − 1/4 in, common practice), standard depth 3 7/8 in (IRC 2021 R607.3).
-const block8 = { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard' as const, weightKg: 3 }
-
-function wall(over: Partial<Wall> = {}): Wall {
-  return wallSchema.parse({
-    name: 'Test wall',
-    sizing: 'opening',
-    heightMm: 84 * IN,
-    block: block8,
-    joint: { kind: 'spacer', jointMm: IN / 8 },
-    segments: [{ kind: 'straight', lengthMm: 72 * IN }],
-    freeEnds: { start: false, end: false, top: false },
-    exposure: 'interior',
-    wetArea: false,
-    ...over,
-  })
-}
-
-function laid(w: Wall): WallGeometry {
-  const g = layoutWall(w, 'in')
-  if (isWallRefusal(g)) throw new Error(g.reason)
-  return g
-}
+const block8 = { ...demoBlock8, weightKg: 3 }
+const wall = wallMaker('Test wall', block8)
 
 describe('block module', () => {
   it('inch blocks are 1/4 in under nominal', () => {

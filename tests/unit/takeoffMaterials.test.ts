@@ -3,7 +3,7 @@
 // fasteners.ts, packRounding.ts).
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { materialRuleSchema, wallSchema, type MaterialRule, type Wall } from '../../shared/schemas/takeoff.js'
+import { materialRuleSchema, type MaterialRule, type Wall } from '../../shared/schemas/takeoff.js'
 import { ANCHOR_SPACING_MM, jambScrews, panelAnchors, reinforcedBedJoints, spacedJoints } from '../../shared/takeoff/fasteners.js'
 import { defaultMaterialRules, evaluateRule, STANDARD_CARTRIDGE_ML, wasteFor } from '../../shared/takeoff/materials.js'
 import { roundUpToStock } from '../../shared/takeoff/packRounding.js'
@@ -11,24 +11,9 @@ import { planSections } from '../../shared/takeoff/sections.js'
 import { isWallRefusal, layoutWall } from '../../shared/takeoff/wallLayout.js'
 import { measureWall, type MeasuredWall, type WallMeasures } from '../../shared/takeoff/wallMeasures.js'
 import { flOzToIn3 } from '../../shared/units.js'
+import { IN, wallMaker } from '../support/takeoffFixtures.js'
 
-const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
-const block8 = { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard' as const, weightKg: 2.5 }
-
-function wall(over: Partial<Wall> = {}): Wall {
-  return wallSchema.parse({
-    name: 'Hall screen',
-    sizing: 'opening',
-    heightMm: 84 * IN,
-    block: block8,
-    joint: { kind: 'spacer', jointMm: IN / 8 },
-    segments: [{ kind: 'straight', lengthMm: 72 * IN }],
-    freeEnds: { start: false, end: false, top: false },
-    exposure: 'interior',
-    wetArea: false,
-    ...over,
-  })
-}
+const wall = wallMaker('Hall screen')
 
 function measured(w: Wall) {
   const geometry = layoutWall(w, 'in')

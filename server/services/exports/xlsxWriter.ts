@@ -3,6 +3,7 @@
 // Injection"). Reusable for any export.
 import ExcelJS from 'exceljs'
 import type { Response } from 'express'
+import { sendDownload } from '../../http/fileResponse.js'
 import { inertText } from '../spreadsheetSafety.js'
 
 export type CellKind = 'text' | 'integer' | 'decimal' | 'money' | 'boolean'
@@ -64,7 +65,5 @@ export const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsh
 
 /** Sends a workbook as a download; the file name is ours, never the user's text. */
 export function sendXlsx(res: Response, filename: string, body: Buffer): void {
-  res.set('Content-Type', XLSX_TYPE)
-  res.set('Content-Disposition', `attachment; filename="${filename.replace(/[^A-Za-z0-9._-]/g, '_')}"`)
-  res.send(body)
+  sendDownload(res, { name: filename, type: XLSX_TYPE, bytes: body })
 }

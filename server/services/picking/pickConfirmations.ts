@@ -3,7 +3,7 @@
 // and changes nothing. A short pick closes the line with the shortfall and why.
 import type { EntityManager } from 'typeorm'
 import { checkConfirmationScans } from '../../../shared/picking/pickScan.js'
-import type { PickConfirmInput } from '../../../shared/schemas/picking.js'
+import type { PickConfirmAnswer, PickConfirmInput } from '../../../shared/schemas/picking.js'
 import { Bin } from '../../entities/Bin.js'
 import { Item } from '../../entities/Item.js'
 import { Lot } from '../../entities/Lot.js'
@@ -22,17 +22,7 @@ const PROBLEM_TEXT: Record<string, string> = {
   wrong_lot: 'Wrong lot for this line.',
 }
 
-export interface ConfirmResult {
-  confirmationId: number
-  lineId: number
-  confirmedQty: number
-  shortQty: number
-  remaining: number
-  listStatus: string
-  replayed: boolean
-}
-
-function resultOf(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): ConfirmResult {
+function resultOf(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): PickConfirmAnswer {
   return {
     confirmationId: c.id, lineId: line.id, confirmedQty: line.confirmedQty, shortQty: line.shortQty,
     remaining: line.qty - line.confirmedQty - line.shortQty, listStatus, replayed,
@@ -54,7 +44,7 @@ async function checkScans(em: EntityManager, line: PickListLine, input: PickConf
 }
 
 /** A retry of a confirmation already stored (same key): its answer again, nothing added. */
-async function replay(em: EntityManager, pickListId: number, clientKey: string): Promise<ConfirmResult | null> {
+async function replay(em: EntityManager, pickListId: number, clientKey: string): Promise<PickConfirmAnswer | null> {
   const earlier = await em.findOneBy(PickConfirmation, { clientKey })
   if (!earlier) return null
   if (earlier.pickListId !== pickListId) throw AppError.unprocessable('This Idempotency-Key was already used for another pick list.', 'idempotency_key_reused')
@@ -63,7 +53,7 @@ async function replay(em: EntityManager, pickListId: number, clientKey: string):
   return resultOf(earlier, line, list.status, true)
 }
 
-export async function confirmPick(em: EntityManager, actor: StockActor, pickListId: number, input: PickConfirmInput, clientKey: string): Promise<ConfirmResult> {
+export async function confirmPick(em: EntityManager, actor: StockActor, pickListId: number, input: PickConfirmInput, clientKey: string): Promise<PickConfirmAnswer> {
   const earlier = await replay(em, pickListId, clientKey)
   if (earlier) return earlier
   const list = await lockPickList(em, pickListId)

@@ -15,7 +15,8 @@ import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { lockPo } from './poLifecycle.js'
 import { poDetail } from './poRead.js'
-import { poWorkbook, XLSX_TYPE } from './poSpreadsheet.js'
+import { XLSX_TYPE } from '../exports/xlsxWriter.js'
+import { poWorkbook } from './poSpreadsheet.js'
 
 export function mailTransport(smtp: AppConfig['smtp']) {
   return nodemailer.createTransport({

@@ -5,7 +5,6 @@ import ExcelJS from 'exceljs'
 import type { PoDetail } from '../../../shared/schemas/purchasingViews.js'
 import { inertCell, inertText } from '../spreadsheetSafety.js'
 
-export const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
 /** The row of the line table's header on a PO sheet; the sheet is frozen below it. */
 export const PO_TABLE_HEADER_ROW = 10
 

@@ -75,8 +75,11 @@ export function computeLine(
     unitCost: input.unitCost,
     policy: effective.policy,
     vendor: vendor ? { packSize: vendor.packSize, minimumOrder: vendor.minimumOrder } : undefined,
-  })
-  const explanation: Explanation = !explain ? result.explanation : {
+  }, { explain })
+  const line = toLine(input, usage, result, stats.mean, stats.sdSample, window)
+  // The list never reads the working: it stays unwritten there unless something asks for it.
+  if (!explain) return { line, usage: figures, get explanation() { return result.explanation } }
+  const explanation: Explanation = {
     inputs: {
       'window (days)': window.days, 'Σx (units)': sums.sum, 'Σx² (units²)': sums.sumSquares,
       'lead time from': leadTime.source, 'looked back for last use (days)': lookbackDays,
@@ -84,7 +87,7 @@ export function computeLine(
     },
     steps: [...demandSteps(figures, window.days, stats.mean, stats.sdSample), ...result.explanation.steps],
   }
-  return { line: toLine(input, usage, result, stats.mean, stats.sdSample, window), usage: figures, explanation }
+  return { line, usage: figures, explanation }
 }
 
 function blockedBy(input: PreparedLine, result: ReorderResult): ReorderLine['blockedBy'] {

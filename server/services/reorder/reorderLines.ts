@@ -30,15 +30,19 @@ export interface ComputedLines {
 
 interface Valued { abc: AbcResult; values: Map<string, Money> }
 
+// 'item:warehouse' → its ids without the two arrays split + map make for every line.
+const itemOfKey = (key: string) => Number(key.slice(0, key.indexOf(':')))
+const warehouseOfKey = (key: string) => Number(key.slice(key.indexOf(':') + 1))
+
 /** A line counts only for an active, stocked item in an active warehouse. */
 function isLive(facts: LineFacts, key: string): boolean {
-  const [itemId, warehouseId] = key.split(':').map(Number)
-  return facts.items.has(itemId) && facts.warehouses.has(warehouseId)
+  return facts.items.has(itemOfKey(key)) && facts.warehouses.has(warehouseOfKey(key))
 }
 
 /** Every line worth a look: anything with stock, usage, a cost record or something on order or pending. */
 function lineKeys(facts: LineFacts, usage: Map<string, unknown>): string[] {
-  const keys = new Set<string>([...facts.stock.keys(), ...facts.avgCost.keys(), ...usage.keys(), ...facts.onOrder.keys(), ...facts.pending.keys()])
+  const keys = new Set<string>()
+  for (const source of [facts.stock, facts.avgCost, usage, facts.onOrder, facts.pending]) for (const k of source.keys()) keys.add(k)
   return [...keys].filter((k) => isLive(facts, k))
 }
 
@@ -51,7 +55,7 @@ function valueLines(facts: LineFacts, windowQty: Map<string, number>, window: Wi
   const lines: LineValue[] = []
   const values = new Map<string, Money>()
   for (const key of lineKeys(facts, windowQty)) {
-    const itemId = Number(key.split(':')[0])
+    const itemId = itemOfKey(key)
     const qty = windowQty.get(key) ?? 0
     const annualValue = qty > 0 ? lineAnnualValue(qty, window.days, unitCostOf(facts, key, itemId)) : '0.00'
     values.set(key, annualValue)
@@ -82,7 +86,8 @@ interface Context {
 }
 
 function prepareLine(key: string, c: Context): PreparedLine {
-  const [itemId, warehouseId] = key.split(':').map(Number)
+  const itemId = itemOfKey(key)
+  const warehouseId = warehouseOfKey(key)
   const { facts } = c
   const item = facts.items.get(itemId)!
   const vendor = facts.vendorOf.get(itemId)
@@ -123,10 +128,11 @@ async function gather(em: EntityManager, layers: PolicyLayers, opts: ReorderLine
 export async function computeReorderLines(ds: DataSource, opts: ReorderLinesOptions = {}): Promise<ComputedLines> {
   const layers = await loadPolicyLayers(ds.manager)
   const { settings, window, usage, prepared, abc } = await gather(ds.manager, layers, opts)
-  const lines = [...prepared.values()].map((p) => ({
-    ...computeLine(p, usage.get(p.key), window, settings.lookbackDays, opts.explain ?? false),
-    effective: p.effective,
-    leadTime: p.leadTime,
-  }))
+  const lines: ComputedLines['lines'] = []
+  for (const p of prepared.values()) {
+    // Extended in place, not spread: a spread would read (and so write out) a lazy explanation.
+    const computed = computeLine(p, usage.get(p.key), window, settings.lookbackDays, opts.explain ?? false)
+    lines.push(Object.assign(computed, { effective: p.effective, leadTime: p.leadTime }))
+  }
   return { window, cutoffs: settings.cutoffs, abc, lines }
 }

@@ -4,9 +4,9 @@
 // same key is answered from the server's record, so nothing is ever issued twice.
 import { onBeforeUnmount, onMounted, ref } from 'vue'
 import { openDB, type DBSchema, type IDBPDatabase } from 'idb'
-import type { PickConfirmInput } from '@shared/schemas/picking'
+import type { PickConfirmAnswer, PickConfirmInput } from '@shared/schemas/picking'
 import { isApiError } from '@/api/client'
-import { newIdempotencyKey, pickingApi, type ConfirmAnswer } from '@/api/picking'
+import { newIdempotencyKey, pickingApi } from '@/api/picking'
 
 export interface QueuedConfirmation {
   key: string
@@ -41,7 +41,7 @@ const nextSeq = () => (lastSeq = Math.max(Date.now() * 1000, lastSeq + 1))
 const RETRY_MS = 5000
 
 export interface QueueEvents {
-  sent(answer: ConfirmAnswer, item: QueuedConfirmation): void
+  sent(answer: PickConfirmAnswer, item: QueuedConfirmation): void
   rejected(item: QueuedConfirmation): void
 }
 

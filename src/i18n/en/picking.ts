@@ -21,7 +21,7 @@ export default {
   col: {
     bin: 'Bin', item: 'Item', lot: 'Lot', qty: 'Qty', packs: 'Packs', weight: 'Weight', confirmed: 'Confirmed', short: 'Short', left: 'Left',
     job: 'Job', customer: 'Customer', warehouse: 'Warehouse', status: 'Status', progress: 'Progress', updated: 'Updated', lines: 'Lines',
-    revision: 'Rev.', created: 'Saved', picked: 'Picked', open: 'On lists',
+    revision: 'Rev.', created: 'Saved', picked: 'Picked', open: 'On lists', openQty: '{qty} on open pick lists',
   },
   anyLot: 'any lot',
   substituteFor: 'instead of {sku}',
@@ -94,6 +94,8 @@ export default {
     walk: 'Walk: {direction}',
     aisles: 'aisles {aisles}',
     walkEdit: 'The walking order is set on the warehouse’s settings.',
+    receivingLink: 'Receiving: purchase orders at the dock',
+    stockLink: 'Stock: adjust, move between bins, transfers',
     transfersWaiting: 'Waiting to ship from here: {qty} units for {number}',
   },
   sheet: {

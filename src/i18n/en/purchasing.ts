@@ -1,6 +1,12 @@
 export default {
   homeTitle: 'Purchasing',
   homeBlurb: 'From what to order to what arrived: vendors, purchase orders, sending and receiving.',
+  // One-line descriptions of the purchasing pages the landing lists by route name.
+  routeHints: {
+    'purchasing-reorder': 'Items at or below their reorder point, with how many to order and from whom.',
+    'purchasing-reorder-policies': 'Lead time, review period and safety stock that set each item’s reorder point.',
+    'purchasing-reorder-abc': 'Items ranked by yearly usage value, so the big movers get the closest watch.',
+  },
   tiles: {
     orders: 'Purchase orders',
     ordersHint: 'Drafts, approvals, sending, what is still open.',

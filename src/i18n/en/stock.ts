@@ -121,6 +121,7 @@ export default {
     notAllowed: 'Your role reads stock; the warehouse crew and administrators change it.',
     chooseFirst: 'Choose the warehouse, bin and item first.',
   },
+  handlingCaution: 'Glass block is heavy and broken block cuts: lift with your legs or use a pallet jack, wear cut-resistant gloves and safety glasses when handling damaged units, and keep pallets within the rack’s rated load. Follow your yard’s safety rules.',
   adjust: {
     title: 'Adjust stock',
     reason: 'Reason',

@@ -21,7 +21,7 @@ export default {
   col: {
     bin: 'Ubicación', item: 'Artículo', lot: 'Lote', qty: 'Cant.', packs: 'Embalajes', weight: 'Peso', confirmed: 'Confirmado', short: 'Faltante', left: 'Pendiente',
     job: 'Obra', customer: 'Cliente', warehouse: 'Almacén', status: 'Estado', progress: 'Avance', updated: 'Actualizada', lines: 'Líneas',
-    revision: 'Rev.', created: 'Guardada', picked: 'Preparado', open: 'En listas',
+    revision: 'Rev.', created: 'Guardada', picked: 'Preparado', open: 'En listas', openQty: '{qty} en listas abiertas',
   },
   anyLot: 'cualquier lote',
   substituteFor: 'en lugar de {sku}',
@@ -94,6 +94,8 @@ export default {
     walk: 'Recorrido: {direction}',
     aisles: 'pasillos {aisles}',
     walkEdit: 'El recorrido se define en la configuración del almacén.',
+    receivingLink: 'Recepción: órdenes de compra en el muelle',
+    stockLink: 'Existencias: ajustar, cambiar de ubicación, traslados',
     transfersWaiting: 'Por enviar desde aquí: {qty} unidades para {number}',
   },
   sheet: {

@@ -63,6 +63,7 @@ declare module 'vue' {
     StockAreaTabs: typeof import('./components/stock/StockAreaTabs.vue')['default']
     StockBinSelect: typeof import('./components/stock/StockBinSelect.vue')['default']
     StockConfirmDialog: typeof import('./components/stock/StockConfirmDialog.vue')['default']
+    StockFormHeader: typeof import('./components/stock/StockFormHeader.vue')['default']
     StockItemSelect: typeof import('./components/stock/StockItemSelect.vue')['default']
     StockLedgerTable: typeof import('./components/stock/StockLedgerTable.vue')['default']
     StockLotSelect: typeof import('./components/stock/StockLotSelect.vue')['default']

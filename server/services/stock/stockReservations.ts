@@ -4,6 +4,7 @@ import { In, type EntityManager } from 'typeorm'
 import { StockBalance } from '../../entities/StockBalance.js'
 import { StockReservation } from '../../entities/StockReservation.js'
 import { AppError } from '../../errors.js'
+import { currentAverage } from './averageCost.js'
 import { balanceKey, lockBalances } from './balanceLocks.js'
 import { notEnoughAvailable } from './stockErrors.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
@@ -85,10 +86,10 @@ export async function pickReserved(
   if (!r) throw AppError.conflict('That reservation was released meanwhile.')
   if (!Number.isSafeInteger(input.qty) || input.qty <= 0) throw AppError.badRequest('Pick a whole number above zero.')
   if (input.qty > r.qty) throw AppError.conflict(`Only ${r.qty} are held for this line; ${input.qty} cannot be picked.`, 'over_pick')
-  const cost = await em.query('SELECT avg_cost FROM item_warehouses WHERE item_id = ? AND warehouse_id = ?', [r.itemId, r.warehouseId])
+  const unitCost = await currentAverage(em, r.itemId, r.warehouseId)
   const applied = await applyMoves(em, actor, [{
     moveType: 'pick', itemId: r.itemId, binId: r.binId, lotId: r.lotId, qty: -input.qty, fromReserved: input.qty,
-    unitCost: cost[0]?.avg_cost ?? null, doc: input.doc, note: input.note ?? null,
+    unitCost, doc: input.doc, note: input.note ?? null,
   }])
   if (input.qty === r.qty) await em.delete(StockReservation, { id: r.id })
   else await em.update(StockReservation, { id: r.id }, { qty: r.qty - input.qty })

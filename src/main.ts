@@ -14,4 +14,5 @@ const app = createApp(App)
 app.use(createPinia())
 app.use(i18n)
 app.use(router)
-app.mount('#app')
+// Shown once the first page's code, data and messages are in (the guard loads them side by side).
+router.isReady().catch(() => undefined).then(() => app.mount('#app'))

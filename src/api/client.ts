@@ -69,8 +69,34 @@ export async function download(path: string): Promise<{ blob: Blob; filename: st
   return { blob: await res.blob(), filename }
 }
 
+/** GETs started before the page asked (see prefetchGet): taken once, by the first identical call. */
+const early = new Map<string, { at: number; answer: Promise<unknown> }>()
+const EARLY_MS = 15_000
+
+/**
+ * Starts a GET the page about to open will make, so it runs in parallel with the page's code instead of
+ * after it. Quiet on 401: the guard may start it before it knows the visitor is signed in.
+ */
+export function prefetchGet(path: string): void {
+  const answer = request<unknown>('GET', path, undefined, { quiet401: true })
+  const entry = { at: Date.now(), answer }
+  early.set(path, entry)
+  answer.catch(() => {
+    if (early.get(path) === entry) early.delete(path) // the page asks again itself
+  })
+}
+
+function get<T>(path: string, opts?: RequestOptions): Promise<T> {
+  const hit = early.get(path)
+  if (hit && !opts?.signal) {
+    early.delete(path)
+    if (Date.now() - hit.at < EARLY_MS) return hit.answer as Promise<T>
+  }
+  return request<T>('GET', path, undefined, opts)
+}
+
 export const api = {
-  get: <T>(path: string, opts?: RequestOptions) => request<T>('GET', path, undefined, opts),
+  get,
   post: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('POST', path, body ?? {}, opts),
   put: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PUT', path, body ?? {}, opts),
   patch: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PATCH', path, body ?? {}, opts),

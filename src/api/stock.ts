@@ -26,8 +26,13 @@ export interface MoveSummary {
 
 const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 
+export const stockPaths = {
+  levels: (q: QueryValues) => `/stock/levels${toQuery(q)}`,
+  places: '/stock/places',
+}
+
 export const stockApi = {
-  levels: (q: QueryValues) => api.get<StockLevelsAnswer>(`/stock/levels${toQuery(q)}`),
+  levels: (q: QueryValues) => api.get<StockLevelsAnswer>(stockPaths.levels(q)),
   binContents: (q: QueryValues) => api.get<BinContentsAnswer>(`/stock/bin-contents${toQuery(q)}`),
   lotLevels: (itemId: number) => api.get<LotLevelsAnswer>(`/stock/lot-levels${toQuery({ itemId })}`),
   ledger: (q: QueryValues) => api.get<LedgerPage>(`/stock/ledger${toQuery(q)}`),
@@ -36,7 +41,7 @@ export const stockApi = {
   minimums: (q: QueryValues) => api.get<MinimumRow[]>(`/stock/minimums${toQuery(q)}`),
   setMinimum: (itemId: number, warehouseId: number, minQty: number | null) =>
     api.put<MinimumRow>(`/stock/minimums/${itemId}/${warehouseId}`, { minQty }),
-  places: () => api.get<Place[]>('/stock/places'),
+  places: () => api.get<Place[]>(stockPaths.places),
   itemOptions: (q: { q?: string; ids?: readonly string[] }) => api.get<ItemOption[]>(`/stock/item-options${toQuery(q)}`),
   lookup: (q: QueryValues) => api.get<LookupAnswer>(`/stock/lookup${toQuery(q)}`),
 

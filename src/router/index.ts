@@ -1,6 +1,8 @@
-import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
+import { createRouter, createWebHistory, type RouteLocationNormalized, type RouteRecordRaw } from 'vue-router'
 import './meta'
 import { hasAnyRole } from '@shared/roles'
+import { prefetchGet } from '@/api/client'
+import { BOOT_AREAS, lastLocale, loadMessages } from '@/i18n'
 import { useSessionStore } from '@/stores/session'
 import HomeView from '@/views/HomeView.vue'
 import { adminRoutes } from './areas/admin'
@@ -28,18 +30,39 @@ const routes: RouteRecordRaw[] = [
 
 export const router = createRouter({ history: createWebHistory(), routes })
 
+type Lazy = () => Promise<unknown>
+/** A route's component given as `() => import(…)` (what vue-router itself resolves after the guards). */
+const isLazy = (c: unknown): c is Lazy => typeof c === 'function' && !('displayName' in c) && !('props' in c) && !('__vccOpts' in c)
+
+/**
+ * Starts what a page needs side by side, before the session has even answered: its code (with the
+ * chunks it imports, such as the grid), the data it declares in `meta.prefetch`, and its messages.
+ * vue-router asks for the same code after the guard and gets the module already loading or loaded.
+ */
+function startPageLoads(to: RouteLocationNormalized, locale: Parameters<typeof loadMessages>[1]): Promise<void> {
+  for (const record of to.matched) {
+    for (const c of Object.values(record.components ?? {})) if (isLazy(c)) c().catch(() => undefined)
+  }
+  for (const path of to.meta.prefetch?.(to) ?? []) prefetchGet(path)
+  return messagesFor(to, locale)
+}
+
+/** The sign-in page needs the boot areas; any signed-in page every area of the user's language. */
+const messagesFor = (to: RouteLocationNormalized, locale: Parameters<typeof loadMessages>[1]) =>
+  loadMessages(to.meta.public ? BOOT_AREAS : 'all', locale).catch(() => undefined)
+
 // Signed-out visitors go to sign-in; a page outside the user's roles is not reachable.
 router.beforeEach(async (to) => {
   const session = useSessionStore()
+  const early = startPageLoads(to, session.user?.locale ?? lastLocale())
   if (!session.loaded) await session.load().catch(() => undefined)
   if (to.meta.public) {
-    return session.signedIn && to.name === 'sign-in' ? { name: 'home' } : true
-  }
-  if (!session.signedIn) {
+    if (session.signedIn && to.name === 'sign-in') return { name: 'home' }
+  } else if (!session.signedIn) {
     return { name: 'sign-in', query: to.fullPath !== '/' ? { next: to.fullPath } : {} }
-  }
-  if (to.meta.roles && !hasAnyRole(session.user!.roles, to.meta.roles)) {
+  } else if (to.meta.roles && !hasAnyRole(session.user!.roles, to.meta.roles)) {
     return { name: 'home', query: { refused: '1' } }
   }
+  await Promise.all([early, messagesFor(to, session.user?.locale ?? 'en')])
   return true
 })

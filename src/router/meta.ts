@@ -1,4 +1,5 @@
 import 'vue-router'
+import type { RouteLocationNormalized } from 'vue-router'
 import type { Area, Role } from '@shared/roles'
 
 declare module 'vue-router' {
@@ -13,5 +14,10 @@ declare module 'vue-router' {
     title?: string
     /** Full-screen page without the shell (handheld screens). */
     bare?: boolean
+    /**
+     * API paths (GET) the page asks for as soon as it mounts: the guard starts them in parallel with the
+     * page's code, and the page's own identical call takes the answer (src/api/client.ts, prefetchGet).
+     */
+    prefetch?: (to: RouteLocationNormalized) => string[]
   }
 }

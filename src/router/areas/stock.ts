@@ -1,5 +1,7 @@
 import type { RouteRecordRaw } from 'vue-router'
 import { AREA_ROLES } from '@shared/roles'
+import { stockPaths } from '@/api/stock'
+import { levelFiltersFrom } from '@/views/stock/levelFilters'
 
 export const stockRoutes: RouteRecordRaw[] = [
   {
@@ -13,7 +15,10 @@ export const stockRoutes: RouteRecordRaw[] = [
     path: '/stock/overview',
     name: 'stock-overview',
     component: () => import('@/views/stock/StockOverviewView.vue'),
-    meta: { area: 'stock', roles: AREA_ROLES.stock, title: 'stock.overview.title' },
+    meta: {
+      area: 'stock', roles: AREA_ROLES.stock, title: 'stock.overview.title',
+      prefetch: (to) => [stockPaths.levels({ ...levelFiltersFrom(to.query) }), stockPaths.places],
+    },
   },
   {
     path: '/stock/bins',

@@ -3,6 +3,8 @@ import { AuditEntry } from './AuditEntry.js'
 import { Bin } from './Bin.js'
 import { Bom, BomLine } from './Bom.js'
 import { Customer, Job, Takeoff } from './Customer.js'
+import { CountBin, CountItem, CountLine, CycleCount } from './CycleCount.js'
+import { DeviceOutboxReport } from './DeviceOutboxReport.js'
 import { BomSnapshot, MaterialRoleItem, MaterialRuleRow, WasteAllowance } from './TakeoffSettings.js'
 import { IdempotencyRecord } from './IdempotencyRecord.js'
 import { Item } from './Item.js'
@@ -60,4 +62,9 @@ export const allEntities = [
   PickConfirmation,
   PickShortage,
   PickTransferProposal,
+  CycleCount,
+  CountItem,
+  CountBin,
+  CountLine,
+  DeviceOutboxReport,
 ]

@@ -20,8 +20,9 @@ import vendors from './vendors.js'
 import purchaseOrders from './purchaseOrders.js'
 import purchaseOrderDelivery from './purchaseOrderDelivery.js'
 import purchasing, { jobPurchasingRoutes } from './purchasing.js'
+import devices from './devices.js'
 
-export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes]
+export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

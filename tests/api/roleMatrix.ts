@@ -158,4 +158,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/purchasing/outbox': { access: ['admin'] },
   'GET /api/purchasing/outbox/:id/attachment': { access: ['admin'] },
   'GET /api/jobs/:id/purchase-lines': { access: ['admin', 'counter', 'buyer'] },
+  // Handheld outbox reports (counts and reports): devices report, the warehouse start page reads.
+  'GET /api/devices/outbox': { access: ['admin', 'warehouse'] },
+  'PUT /api/devices/:deviceId/outbox': { access: ['admin', 'warehouse'] },
 }

@@ -2,7 +2,8 @@
 import type { AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { sendDownload } from '../http/fileResponse.js'
-import { idParam } from '../http/validate.js'
+import { idParam, parseQuery } from '../http/validate.js'
+import { exportQuerySchema } from '../../shared/schemas/exportQuery.js'
 import { bomFileName, bomWorkbook } from '../services/counter/bomExport.js'
 import { getBom } from '../services/counter/bomService.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
@@ -18,8 +19,9 @@ export default (ctx: AppContext) =>
       path: '/:id/export',
       access: counter,
       handler: async (req, res) => {
+        const { tz } = parseQuery(exportQuerySchema, req.query)
         const bom = await getBom(ctx.ds, id(req.params.id))
-        const bytes = await bomWorkbook(bom)
+        const bytes = await bomWorkbook(bom, tz)
         return sendDownload(res, { name: bomFileName(bom), type: XLSX_TYPE, bytes })
       },
     },

@@ -1,26 +1,18 @@
-// Text from users written into a spreadsheet must never run as a formula (OWASP "CSV Injection"):
-// a cell starting with = + - @ tab, CR or LF is prefixed with a single quote, which spreadsheet
-// programs show as text. Numbers and dates are written as numbers and dates, never through here.
+// Text from people written into a spreadsheet must never run as a formula (OWASP "CSV Injection": a cell
+// starting with = + - @ tab, CR or LF). In an .xlsx file each cell carries its type and a string cell is never
+// evaluated, so the exports write every text as a string cell (exports/xlsxWriter.ts) and leave the text as
+// typed: no visible quote in front, and an exported file imports back unchanged. Only formula cells run, and
+// no export writes one.
 
-/** The leading characters OWASP lists as formula triggers. source: OWASP, CSV Injection */
-export const FORMULA_TRIGGERS: readonly string[] = ['=', '+', '-', '@', '\t', '\r', '\n']
+/** The most characters a spreadsheet cell holds (from memory: the usual limit of spreadsheet programs). */
+export const CELL_TEXT_MAX = 32_767
 
-export function needsInerting(text: string): boolean {
-  return text.length > 0 && FORMULA_TRIGGERS.includes(text[0])
-}
+// Characters XML 1.0 (§2.2, Char) does not allow in a document, C0 controls other than tab, LF and CR: one
+// of them in a cell makes the whole file unreadable until a spreadsheet program repairs it.
+const NOT_XML = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g
 
-/** The text as a spreadsheet shows it safely: unchanged, or with a leading single quote. */
-export function inertText(text: string): string {
-  return needsInerting(text) ? `'${text}` : text
-}
-
-/** For optional values: null and undefined stay empty cells. */
-export function inertCell(text: string | null | undefined): string | null {
-  return text === null || text === undefined ? null : inertText(text)
-}
-
-/** One CSV field: inerted, then quoted with inner quotes doubled (RFC 4180) when it needs quoting. */
-export function csvField(text: string): string {
-  const safe = inertText(text)
-  return /[",\r\n]/.test(safe) || safe !== text ? `"${safe.replace(/"/g, '""')}"` : safe
+/** The text as a string cell can hold it: characters XML forbids removed, at most CELL_TEXT_MAX characters. */
+export function cellText(text: string): string {
+  const clean = text.replace(NOT_XML, '')
+  return clean.length > CELL_TEXT_MAX ? clean.slice(0, CELL_TEXT_MAX) : clean
 }

@@ -1,92 +1,64 @@
-// The filtered ledger as a spreadsheet (xlsx, streamed with exceljs). Quantities and costs are numbers,
-// times are dates in the reader's time zone, and text typed by people is written inert: a leading
-// = + - @ tab CR LF gets a single quote in front (spreadsheetSafety.ts: OWASP "CSV Injection").
+// The filtered ledger as a spreadsheet, streamed through the one writer (exports/xlsxWriter.ts): quantities
+// and costs are numbers, times are dates in the reader's time zone, documents are named by their numbers.
 import type { Writable } from 'node:stream'
-import ExcelJS from 'exceljs'
 import { Decimal } from 'decimal.js'
 import type { DataSource } from 'typeorm'
 import type { LedgerExportQuery } from '../../shared/schemas/stockViews.js'
 import { AppError } from '../errors.js'
-import { inertCell } from './spreadsheetSafety.js'
-import { countLedger, LEDGER_SELECT, ledgerOrder, ledgerWhere, type LedgerSqlRow } from './stockLedgerQuery.js'
+import { fieldsSheet, sheet, streamXlsx, wallClockIn, type Field, type SheetColumn } from './exports/xlsxWriter.js'
+import { countLedger, documentReference, LEDGER_SELECT, ledgerOrder, ledgerWhere, type LedgerSqlRow } from './stockLedgerQuery.js'
 
 // A quarter of a busy yard's ledger; a whole year is exported a quarter at a time.
 export const EXPORT_LIMIT = 20_000
-
-/**
- * The wall-clock time in `zone` as a Date whose UTC fields carry it: spreadsheets keep no zone.
- * One formatter per export (building one per row cost more than writing the row).
- */
-export function wallClockIn(zone: string): (at: Date) => Date {
-  const format = new Intl.DateTimeFormat('en-US', {
-    timeZone: zone, hourCycle: 'h23', year: 'numeric', month: '2-digit', day: '2-digit', hour: '2-digit', minute: '2-digit', second: '2-digit',
-  })
-  return (at) => {
-    const parts = format.formatToParts(at)
-    const n = (type: string) => Number(parts.find((p) => p.type === type)!.value)
-    return new Date(Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second'), at.getUTCMilliseconds()))
-  }
-}
 
 const MOVE_WORDS: Record<string, string> = {
   receipt: 'Receipt', issue: 'Issue', pick: 'Pick', adjustment: 'Adjustment', count: 'Count', bin_move: 'Bin move',
   transfer_out: 'Transfer out', transfer_in: 'Transfer in', assembly: 'Assembly', return: 'Return',
 }
 
-const COLUMNS: Partial<ExcelJS.Column>[] = [
-  { header: 'When', key: 'at', width: 19, style: { numFmt: 'yyyy-mm-dd hh:mm:ss' } },
-  { header: 'Move', key: 'move', width: 13 },
-  { header: 'SKU', key: 'sku', width: 16 },
-  { header: 'Item', key: 'item', width: 34 },
-  { header: 'Warehouse', key: 'warehouse', width: 11 },
-  { header: 'Bin', key: 'bin', width: 12 },
-  { header: 'Lot', key: 'lot', width: 12 },
-  { header: 'Quantity', key: 'qty', width: 10, style: { numFmt: '#,##0;[Red]-#,##0' } },
-  { header: 'Unit', key: 'unit', width: 7 },
-  { header: 'Unit cost', key: 'unitCost', width: 11, style: { numFmt: '#,##0.0000' } },
-  { header: 'Value', key: 'value', width: 12, style: { numFmt: '#,##0.00;[Red]-#,##0.00' } },
-  { header: 'Document', key: 'doc', width: 16 },
-  { header: 'Reason', key: 'reason', width: 12 },
-  { header: 'Note', key: 'note', width: 40 },
-  { header: 'By', key: 'by', width: 18 },
-  { header: 'Move id', key: 'id', width: 10 },
+const DOCUMENT_WORDS: Record<string, string> = {
+  purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job',
+}
+
+/** The document as people name it: its number (PO-2026-00012, PL-00031), else its kind and id (Transfer 12). */
+function documentCell(r: LedgerSqlRow): string | null {
+  if (!r.doc_type) return null
+  const ref = documentReference(r)
+  if (ref) return r.doc_type === 'job' ? `Job ${ref}` : ref
+  return `${DOCUMENT_WORDS[r.doc_type] ?? r.doc_type.replace(/_/g, ' ')} ${r.doc_id ?? ''}`.trim()
+}
+
+type MoveRow = LedgerSqlRow & { wallClock: Date; value: number | null }
+
+const COLUMNS: SheetColumn<MoveRow>[] = [
+  { header: 'When', kind: 'datetime', value: (r) => r.wallClock, numFmt: 'yyyy-mm-dd hh:mm:ss' },
+  { header: 'Move', kind: 'text', value: (r) => MOVE_WORDS[r.move_type] ?? r.move_type },
+  { header: 'SKU', kind: 'text', value: (r) => r.sku },
+  { header: 'Item', kind: 'text', width: 30, value: (r) => r.item_name },
+  { header: 'Warehouse', kind: 'text', value: (r) => r.warehouse_code },
+  { header: 'Bin', kind: 'text', value: (r) => r.bin_code },
+  { header: 'Lot', kind: 'text', value: (r) => r.lot_code },
+  { header: 'Quantity', kind: 'integer', value: (r) => r.qty, numFmt: '#,##0;[Red]-#,##0' },
+  { header: 'Unit', kind: 'text', value: (r) => r.stock_unit },
+  { header: 'Unit cost', kind: 'cost', value: (r) => r.unit_cost },
+  { header: 'Value', kind: 'money', value: (r) => r.value, numFmt: '#,##0.00;[Red]-#,##0.00' },
+  { header: 'Document', kind: 'text', width: 28, value: documentCell },
+  { header: 'Reason', kind: 'text', value: (r) => r.reason },
+  { header: 'Note', kind: 'text', width: 30, value: (r) => r.note },
+  { header: 'By', kind: 'text', width: 18, value: (r) => r.user_name },
+  { header: 'Move id', kind: 'integer', value: (r) => Number(r.id), numFmt: '0' },
 ]
 
-function cells(r: LedgerSqlRow, clock: (at: Date) => Date) {
-  const value = r.unit_cost === null ? null : new Decimal(r.unit_cost).times(r.qty).toDecimalPlaces(2).toNumber()
-  return {
-    at: clock(new Date(r.at)), move: MOVE_WORDS[r.move_type] ?? r.move_type, sku: inertCell(r.sku), item: inertCell(r.item_name),
-    warehouse: inertCell(r.warehouse_code), bin: inertCell(r.bin_code), lot: inertCell(r.lot_code), qty: r.qty, unit: r.stock_unit,
-    unitCost: r.unit_cost === null ? null : Number(r.unit_cost), value,
-    doc: r.doc_type ? inertCell(`${r.doc_type} ${r.doc_id ?? ''}`.trim()) : null,
-    reason: inertCell(r.reason), note: inertCell(r.note), by: inertCell(r.user_name), id: Number(r.id),
-  }
-}
-
-function filterSheet(wb: ExcelJS.stream.xlsx.WorkbookWriter, q: LedgerExportQuery, total: number) {
-  const sheet = wb.addWorksheet('Filters')
-  sheet.columns = [{ header: 'Filter', key: 'k', width: 16 }, { header: 'Value', key: 'v', width: 40 }]
-  const shown: [string, unknown][] = [
-    ['Exported', new Date().toISOString()], ['Time zone', q.tz], ['Moves', total], ['Item id', q.itemId], ['Warehouse id', q.warehouseId],
-    ['Bin id', q.binId], ['Lot id', q.lotId], ['Move types', q.moveType?.join(', ')], ['Document', q.docType ? `${q.docType} ${q.docId ?? ''}` : undefined],
-    ['From', q.from], ['To', q.to], ['Sorted by', `${q.sort} ${q.dir}`],
+function filterFields(q: LedgerExportQuery, total: number, clock: (at: Date) => Date): Field[] {
+  const text = (label: string, value: string | undefined): Field => ({ label, kind: 'text', value })
+  const id = (label: string, value: number | undefined): Field => ({ label, kind: 'integer', value })
+  return [
+    { label: 'Exported', kind: 'datetime', value: clock(new Date()) }, text('Time zone', q.tz), id('Moves', total),
+    id('Item id', q.itemId), id('Warehouse id', q.warehouseId), id('Bin id', q.binId), id('Lot id', q.lotId),
+    text('Move types', q.moveType?.map((m) => MOVE_WORDS[m] ?? m).join(', ')),
+    text('Document', q.docType ? `${DOCUMENT_WORDS[q.docType] ?? q.docType} ${q.docId ?? ''}`.trim() : undefined),
+    { label: 'From', kind: 'date', value: q.from }, { label: 'To', kind: 'date', value: q.to }, text('Sorted by', `${q.sort} ${q.dir}`),
   ]
-  for (const [k, v] of shown) if (v !== undefined) sheet.addRow({ k, v: typeof v === 'string' ? inertCell(v) : v }).commit()
-  sheet.commit()
-}
-
-/** One query, capped by the count before it: a single statement reads one consistent snapshot, no paging. */
-async function writeMoves(ds: DataSource, wb: ExcelJS.stream.xlsx.WorkbookWriter, q: LedgerExportQuery): Promise<number> {
-  const sheet = wb.addWorksheet('Ledger', { views: [{ state: 'frozen', ySplit: 1 }] })
-  sheet.columns = COLUMNS
-  sheet.getRow(1).font = { bold: true }
-  sheet.getRow(1).commit()
-  const where = ledgerWhere(q)
-  const rows: LedgerSqlRow[] = await ds.query(`${LEDGER_SELECT} ${where.sql()} ORDER BY ${ledgerOrder(q)}`, where.params)
-  const clock = wallClockIn(q.tz)
-  for (const r of rows) sheet.addRow(cells(r, clock)).commit()
-  sheet.commit()
-  return rows.length
 }
 
 export interface LedgerExport {
@@ -105,9 +77,16 @@ export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, 
   return {
     filename: `stock-ledger-${new Date().toISOString().slice(0, 10)}.xlsx`,
     write: async (out) => {
-      const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: false })
-      filterSheet(wb, q, await writeMoves(ds, wb, q))
-      await wb.commit()
+      // One statement, capped by the count before it: it reads one consistent snapshot, no paging.
+      const where = ledgerWhere(q)
+      const raw: LedgerSqlRow[] = await ds.query(`${LEDGER_SELECT} ${where.sql()} ORDER BY ${ledgerOrder(q)}`, where.params)
+      const clock = wallClockIn(q.tz)
+      const rows: MoveRow[] = raw.map((r) => ({
+        ...r, wallClock: clock(new Date(r.at)),
+        value: r.unit_cost === null ? null : new Decimal(r.unit_cost).times(r.qty).toDecimalPlaces(2).toNumber(),
+      }))
+      const title = `Stock ledger${q.from || q.to ? `, ${q.from ?? '…'} to ${q.to ?? '…'}` : ''}`
+      await streamXlsx(out, sheet({ name: 'Ledger', title, columns: COLUMNS, rows }), fieldsSheet({ name: 'Filters', title, fields: filterFields(q, rows.length, clock) }))
     },
   }
 }

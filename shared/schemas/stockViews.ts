@@ -2,6 +2,7 @@
 // Query values arrive as strings; an empty value means "no filter".
 import { z } from 'zod'
 import { MOVE_TYPES, type BinKind, type MoveType, type StockUnit } from '../catalog.js'
+import { timeZoneParam } from './exportQuery.js'
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
 const optionalId = z.preprocess(blankToUndefined, z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one').optional())
@@ -160,22 +161,10 @@ export const ledgerExportQuerySchema = z
   .object({
     ...ledgerFilterShape,
     /** IANA time zone for the spreadsheet's dates (the screen sends the browser's). */
-    tz: z.preprocess(
-      blankToUndefined,
-      z.string().max(64).refine((zone) => isTimeZone(zone), 'Not a time zone').default('UTC'),
-    ),
+    tz: timeZoneParam,
   })
   .refine(fromBeforeTo, { path: ['to'], message: 'Ends before it starts' })
 export type LedgerExportQuery = z.infer<typeof ledgerExportQuerySchema>
-
-export function isTimeZone(zone: string): boolean {
-  try {
-    new Intl.DateTimeFormat('en-US', { timeZone: zone })
-    return true
-  } catch {
-    return false
-  }
-}
 
 export interface LedgerRow {
   id: string
@@ -195,6 +184,8 @@ export interface LedgerRow {
   unitCost: string | null
   docType: string | null
   docId: number | null
+  /** The document's own number or name (PO and pick list numbers, the job's name); null when it has none. */
+  docRef: string | null
   docLineId: number | null
   reason: string | null
   note: string | null

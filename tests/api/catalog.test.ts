@@ -216,7 +216,7 @@ async function fetchXlsx(role: 'buyer' | 'viewer', path: string) {
 }
 
 describe('spreadsheet export', () => {
-  it('writes numbers as numbers and formula-like text as inert text (OWASP CSV Injection)', async () => {
+  it('writes numbers as numbers and formula-like text as string cells, as typed (OWASP CSV Injection)', async () => {
     const admin = await h.as('admin')
     await admin.post('/api/items').set(CSRF).send(blockBody('XLS', { name: '=HYPERLINK("http://example.invalid","open")', description: '@SUM(A1:A9)' }))
     const res = await fetchXlsx('buyer', `/api/items/export.xlsx?q=${encodeURIComponent(sku('XLS'))}`)
@@ -230,9 +230,10 @@ describe('spreadsheet export', () => {
     const row = sheet.getRow(2)
     const col = (name: string) => row.getCell(headers.indexOf(name) + 1)
     expect(col('SKU').value).toBe(sku('XLS'))
-    expect(col('Name').value).toBe('\'=HYPERLINK("http://example.invalid","open")')
+    expect(col('Name').value).toBe('=HYPERLINK("http://example.invalid","open")')
     expect(col('Name').type).toBe(ExcelJS.ValueType.String)
-    expect(col('Description').value).toBe("'@SUM(A1:A9)")
+    expect(col('Description').value).toBe('@SUM(A1:A9)')
+    expect(col('Description').type).toBe(ExcelJS.ValueType.String)
     expect(col('Cost').value).toBe(7.8)
     expect(col('Case qty').value).toBe(8)
     expect(sheet.rowCount).toBe(2)

@@ -192,8 +192,8 @@ describe('save the bill on the job', () => {
 })
 
 describe('export', () => {
-  it('writes quantities as numbers and text that starts with = + - @ as inert text', async () => {
-    // OWASP "CSV Injection": cells starting with = + - @ tab CR LF must not become formulas.
+  it('writes quantities as numbers and text that starts with = + - @ as string cells, as typed', async () => {
+    // source: OWASP "CSV Injection": cells starting with = + - @ tab CR LF must not become formulas; a string cell never is.
     const hostile = await createCustomerAndJob(h.ds, `${fx.tag}X`)
     await h.ds.query('UPDATE jobs SET name = ? WHERE id = ?', ['=HYPERLINK("http://evil.example","x")', hostile.jobId])
     const input = { ...openingTakeoff(fx), looseLines: [{ sku: fx.items.panelAnchor.sku, name: '-2+3 spare anchors', quantity: 4, unit: 'each' }] }
@@ -217,11 +217,15 @@ describe('export', () => {
     const cells = job.getRows(2, job.rowCount - 1)!.map((r) => r.getCell(2))
     const jobCell = cells.find((c) => String(c.value).includes('HYPERLINK'))!
     expect(jobCell.type).toBe(ExcelJS.ValueType.String)
-    expect(String(jobCell.value).startsWith("'=")).toBe(true)
+    expect(jobCell.value).toBe('=HYPERLINK("http://evil.example","x")')
     const loose = lines.getRows(2, lines.rowCount - 1)!.find((r) => r.getCell(2).value === fx.items.panelAnchor.sku)!
-    expect(loose.getCell(3).value).toBe("'-2+3 spare anchors")
+    expect(loose.getCell(3).value).toBe('-2+3 spare anchors')
+    expect(loose.getCell(3).type).toBe(ExcelJS.ValueType.String)
     expect(loose.getCell(4).value).toBe(4)
-    expect(cells.find((c) => String(c.value).includes('cmd'))!.value).toBe("'+cmd")
+    expect(cells.find((c) => String(c.value).includes('cmd'))!.value).toBe('+cmd')
+    // the bill was saved at a moment, written as a date-time in the asked zone (UTC here)
+    const saved = cells.find((c) => c.value instanceof Date)!
+    expect(Math.abs((saved.value as Date).getTime() - new Date(bom.body.createdAt).getTime())).toBeLessThan(1000)
     for (const sheet of book.worksheets) sheet.eachRow((row) => row.eachCell((c) => expect(c.type).not.toBe(ExcelJS.ValueType.Formula)))
   })
 })

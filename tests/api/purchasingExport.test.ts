@@ -1,6 +1,6 @@
 // The PO spreadsheets read back with exceljs, every cell checked: numbers stay numbers with number
-// formats, dates are dates, and text from users that starts like a formula is written as inert text.
-// source: OWASP "CSV Injection" (leading = + - @ tab CR LF; prefix a single quote)
+// formats, dates are dates, and text from users that starts like a formula is a string cell, as typed.
+// source: OWASP "CSV Injection" (leading = + - @ tab CR LF must never become a formula)
 import ExcelJS from 'exceljs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
@@ -51,9 +51,13 @@ async function download(path: string): Promise<ExcelJS.Workbook> {
   return book
 }
 
+/** Each filled cell by address; a merged range counts once, at its top-left cell. */
 function cells(sheet: ExcelJS.Worksheet): Map<string, ExcelJS.CellValue> {
   const out = new Map<string, ExcelJS.CellValue>()
-  sheet.eachRow({ includeEmpty: false }, (row) => row.eachCell({ includeEmpty: false }, (cell) => out.set(cell.address, cell.value)))
+  sheet.eachRow({ includeEmpty: false }, (row) => row.eachCell({ includeEmpty: false }, (cell) => {
+    if (cell.isMerged && cell.master.address !== cell.address) return
+    out.set(cell.address, cell.value)
+  }))
   return out
 }
 
@@ -63,41 +67,41 @@ const day = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`)
 function expectedPoSheet(p: PoDetail, terms: string | null): Map<string, ExcelJS.CellValue> {
   const m = new Map<string, ExcelJS.CellValue>([
     ['A1', `Purchase order ${p.number}`],
-    ['A3', 'Order date'], ['B3', day(p.createdAt)],
+    ['A3', 'Order date'], ['C3', day(p.createdAt)],
     ['A4', 'Expected'],
-    ['A5', 'Status'], ['B5', 'draft'],
-    ['A6', 'Currency'], ['B6', 'USD'],
+    ['A5', 'Status'], ['C5', 'draft'],
+    ['A6', 'Currency'], ['C6', 'USD'],
     ['A7', 'Terms'],
     ['D3', 'Vendor'], ['G3', 'Ship to'], ['G4', `Yard ${f.warehouse.code}`], ['G5', '12 Kiln Road, Brightwater'],
   ])
-  if (p.expectedDate) m.set('B4', day(p.expectedDate))
-  if (terms) m.set('B7', terms)
+  if (p.expectedDate) m.set('C4', day(p.expectedDate))
+  if (terms) m.set('C7', terms)
   ;['Line', 'Our SKU', 'Vendor SKU', 'Description', 'Packs', 'Pack size', 'Quantity', 'Unit', 'Unit cost', 'Line total'].forEach((t, i) =>
     m.set(`${String.fromCharCode(65 + i)}10`, t))
   return m
 }
 
 describe('one PO as a printable sheet', () => {
-  it('holds exactly the header, vendor, ship-to, lines and total, with injection attempts made inert', async () => {
+  it('holds exactly the header, vendor, ship-to, lines and total, with injection attempts as plain string cells', async () => {
     const book = await download(`/api/purchase-orders/${po.id}/export`)
     expect(book.worksheets.map((s) => s.name)).toEqual([po.number])
     const sheet = book.worksheets[0]
-    const want = expectedPoSheet(po, "'=1+1")
-    want.set('D4', `'${EVIL_NAME}`)
-    want.set('D5', "'@Mallory")
+    const want = expectedPoSheet(po, '=1+1')
+    want.set('D4', EVIL_NAME)
+    want.set('D5', '@Mallory')
     want.set('D6', 'evil@vendor.example')
-    want.set('D7', "'-555 0199")
-    want.set('D8', "'\tTab Street 4")
+    want.set('D7', '-555 0199')
+    want.set('D8', '\tTab Street 4')
     // 5 packs × 24 = 120 × 2.1250 = 255.00; 3 × 12 = 36 × 6.3333 = 227.9988 → 228.00; total 483.00 (hand computed)
     const rows: ExcelJS.CellValue[][] = [
-      [1, f.block.sku, "'-EV8", `Item ${f.block.sku}`, 5, 24, 120, 'each', 2.125, 255],
-      [2, f.sealant.sku, null, "'-Sealant, clear", 3, 12, 36, 'tube', 6.3333, 228],
+      [1, f.block.sku, '-EV8', `Item ${f.block.sku}`, 5, 24, 120, 'each', 2.125, 255],
+      [2, f.sealant.sku, null, '-Sealant, clear', 3, 12, 36, 'tube', 6.3333, 228],
     ]
     rows.forEach((r, i) => r.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${11 + i}`, v) }))
     want.set('I14', 'Total')
     want.set('J14', 483)
     want.set('A16', 'Notes')
-    want.set('B16', `'${EVIL_NOTE}`)
+    want.set('C16', EVIL_NOTE)
     expect(Object.fromEntries(cells(sheet))).toEqual(Object.fromEntries(want))
 
     // numbers are numbers with number formats, not text
@@ -105,20 +109,38 @@ describe('one PO as a printable sheet', () => {
     expect(sheet.getCell('I11').numFmt).toBe('#,##0.0000')
     expect(sheet.getCell('J11').numFmt).toBe('#,##0.00')
     expect(sheet.getCell('G11').numFmt).toBe('#,##0')
-    expect(sheet.getCell('B3').numFmt).toBe('yyyy-mm-dd')
-    // every text cell that starts with a formula trigger is inert: no formulas anywhere
+    expect(sheet.getCell('C3').numFmt).toBe('yyyy-mm-dd')
+    // text that starts like a formula is a string cell, never a formula, and never carries a visible quote
     sheet.eachRow((row) => row.eachCell((cell) => {
       expect(cell.type, cell.address).not.toBe(ExcelJS.ValueType.Formula)
-      if (typeof cell.value === 'string') expect(/^[=+\-@\t\r\n]/.test(cell.value), `${cell.address}: ${cell.value}`).toBe(false)
+      if (typeof cell.value === 'string') expect(cell.value.startsWith("'"), `${cell.address}: ${cell.value}`).toBe(false)
     }))
+    for (const ref of ['D4', 'D5', 'D7', 'C7', 'C16', 'C11', 'D12']) expect(sheet.getCell(ref).type, ref).toBe(ExcelJS.ValueType.String)
   })
 
-  it('is set up for printing: frozen below the table header, column widths, landscape, one page wide', async () => {
+  it('is set up for printing: frozen below the table header, columns as wide as their text, one page wide', async () => {
     const sheet = (await download(`/api/purchase-orders/${plain.id}/export`)).worksheets[0]
     expect(sheet.views[0]).toMatchObject({ state: 'frozen', ySplit: 10 })
-    expect([1, 2, 3, 4, 5, 6, 7, 8, 9, 10].map((c) => sheet.getColumn(c).width)).toEqual([6, 16, 16, 50, 8, 10, 11, 8, 12, 14])
-    expect(sheet.pageSetup).toMatchObject({ orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '10:10' })
-    expect(sheet.headerFooter.oddFooter).toBe(`&L${plain.number}&RPage &P of &N`)
+    // every header and value fits its column (labels and values in the header block span merged cells)
+    for (let c = 1; c <= 10; c++) {
+      const header = String(sheet.getCell(10, c).value)
+      expect(sheet.getColumn(c).width!, header).toBeGreaterThanOrEqual(header.length)
+      expect(sheet.getColumn(c).width!, header).toBeGreaterThanOrEqual(String(sheet.getCell(11, c).value ?? '').length)
+    }
+    const merges = (sheet.model as unknown as { merges: string[] }).merges
+    const span = (ref: string) => {
+      const range = merges.find((m) => m.startsWith(`${ref}:`)) ?? `${ref}:${ref}`
+      const [from, to] = range.split(':').map((a) => Number(sheet.getCell(a).col))
+      let width = 0
+      for (let c = from; c <= to; c++) width += sheet.getColumn(c).width!
+      return width
+    }
+    for (const ref of ['A3', 'A4', 'A5', 'A6', 'A7', 'D3', 'D4', 'D6', 'D8', 'G4', 'G5']) {
+      expect(span(ref), `${ref} ${sheet.getCell(ref).value}`).toBeGreaterThanOrEqual(String(sheet.getCell(ref).value).length)
+    }
+    expect(sheet.pageSetup).toMatchObject({ orientation: 'portrait', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '10:10' })
+    expect(sheet.headerFooter.oddHeader).toContain(`Purchase order ${plain.number}`)
+    expect(sheet.headerFooter.oddFooter).toContain('Page &P of &N')
     const want = expectedPoSheet(plain, 'Net 30')
     ;['Vendor VA' + f.tag, 'Mara Quill', `orders-va${f.tag.toLowerCase()}@vendor.example`].forEach((v, i) => want.set(`D${4 + i}`, v))
     want.set('D8', '3 Annealing Way, Corvale')
@@ -140,7 +162,7 @@ describe('many POs for the buyer', () => {
     const want = new Map<string, ExcelJS.CellValue>()
     const put = (row: number, values: ExcelJS.CellValue[]) => values.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${row}`, v) })
     put(1, header)
-    put(2, [po.number, 'draft', `'${EVIL_NAME}`, `Yard ${f.warehouse.code}`, null, day(po.createdAt), day('2031-04-30'), 'USD', 2, 483])
+    put(2, [po.number, 'draft', EVIL_NAME, `Yard ${f.warehouse.code}`, null, day(po.createdAt), day('2031-04-30'), 'USD', 2, 483])
     put(3, [plain.number, 'draft', `Vendor VA${f.tag}`, `Yard ${f.warehouse.code}`, null, day(plain.createdAt), day(plain.expectedDate!), 'USD', 1, 150])
     expect(Object.fromEntries(cells(orders))).toEqual(Object.fromEntries(want))
     expect(typeof orders.getCell('J2').value).toBe('number')
@@ -149,8 +171,8 @@ describe('many POs for the buyer', () => {
     const lw = new Map<string, ExcelJS.CellValue>()
     const putL = (row: number, values: ExcelJS.CellValue[]) => values.forEach((v, c) => { if (v !== null) lw.set(`${String.fromCharCode(65 + c)}${row}`, v) })
     putL(1, ['Number', 'Vendor', 'Line', 'Our SKU', 'Vendor SKU', 'Description', 'Packs', 'Pack size', 'Quantity', 'Received', 'Unit', 'Unit cost', 'Line total'])
-    putL(2, [po.number, `'${EVIL_NAME}`, 1, f.block.sku, "'-EV8", `Item ${f.block.sku}`, 5, 24, 120, 0, 'each', 2.125, 255])
-    putL(3, [po.number, `'${EVIL_NAME}`, 2, f.sealant.sku, null, "'-Sealant, clear", 3, 12, 36, 0, 'tube', 6.3333, 228])
+    putL(2, [po.number, EVIL_NAME, 1, f.block.sku, '-EV8', `Item ${f.block.sku}`, 5, 24, 120, 0, 'each', 2.125, 255])
+    putL(3, [po.number, EVIL_NAME, 2, f.sealant.sku, null, '-Sealant, clear', 3, 12, 36, 0, 'tube', 6.3333, 228])
     putL(4, [plain.number, `Vendor VA${f.tag}`, 1, f.sealant.sku, `LK-${f.tag}-S`, `Item ${f.sealant.sku}`, 2, 12, 24, 0, 'tube', 6.25, 150])
     expect(Object.fromEntries(cells(lines))).toEqual(Object.fromEntries(lw))
   })

@@ -59,9 +59,10 @@ describe('e-mail to the vendor', () => {
     const sheet = book.worksheets[0]
     expect(sheet.name).toBe(po.number)
     expect(sheet.getCell('A1').value).toBe(`Purchase order ${po.number}`)
-    // source: OWASP "CSV Injection": a leading = is written as text behind a single quote
-    expect(sheet.getCell('D4').value).toBe(`'${EVIL}`)
-    expect(sheet.getCell('C11').value).toBe("'@EVL-S")
+    // source: OWASP "CSV Injection": a leading = never becomes a formula: it is a string cell, as typed
+    expect(sheet.getCell('D4').value).toBe(EVIL)
+    expect(sheet.getCell('D4').type).toBe(ExcelJS.ValueType.String)
+    expect(sheet.getCell('C11').value).toBe('@EVL-S')
     expect(sheet.getCell('G11').value).toBe(20)
     expect(sheet.getCell('J11').value).toBe(110) // 20 × 5.50
 

@@ -209,7 +209,7 @@ async function readWorkbook(agent: supertest.Agent, query: Record<string, unknow
 }
 
 describe('the ledger as a spreadsheet', () => {
-  it('writes numbers as numbers, times as dates in the asked zone, and people’s text inert', async () => {
+  it('writes numbers as numbers, times as dates in the asked zone, and people’s text as string cells, as typed', async () => {
     const viewer = await h.as('viewer')
     // source: IANA tz database — Etc/GMT+5 is UTC−05:00 all year (POSIX-style inverted sign).
     const { res, sheet } = await readWorkbook(viewer, { itemId: fx.itemId, sort: 'at', dir: 'asc', tz: 'Etc/GMT+5' })
@@ -231,8 +231,8 @@ describe('the ledger as a spreadsheet', () => {
     expect(when).toBeInstanceOf(Date)
     expect(when.getTime()).toBe(new Date(page[0].at).getTime() - 5 * 3_600_000)
     const notes = rows.map((r) => r.getCell(col('Note'))).filter((c) => c.value !== null && c.value !== '')
-    // OWASP "CSV Injection" / ASVS 5.0 1.2.10: a leading = + - @ is escaped with a single quote, never a formula.
-    expect(notes.map((c) => c.value).sort()).toEqual([`'-3 behind the rack`, `'=HYPERLINK("http://example.invalid","x")`])
+    // source: OWASP "CSV Injection" / ASVS 5.0 1.2.10: a leading = + - @ must never become a formula; a string cell never does.
+    expect(notes.map((c) => c.value).sort()).toEqual([`-3 behind the rack`, `=HYPERLINK("http://example.invalid","x")`])
     for (const c of notes) expect(c.type).toBe(ExcelJS.ValueType.String)
     for (const r of rows) r.eachCell((c) => expect(c.type).not.toBe(ExcelJS.ValueType.Formula))
   })

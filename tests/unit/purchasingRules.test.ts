@@ -1,5 +1,5 @@
 // Pure purchasing rules: PO statuses, pack rounding and money, over-receipt tolerance, the shower base
-// spec line, the spreadsheet text guard and what a dock scan means for the order on screen.
+// spec line and what a dock scan means for the order on screen.
 import { describe, expect, it } from 'vitest'
 import { buildElementString, GS } from '../../shared/barcode/elementString.js'
 import { lotLabelPayload } from '../../shared/barcode/scan.js'
@@ -8,7 +8,6 @@ import { formatPoNumber, lineTotal, orderTotal, packsFor } from '../../shared/pu
 import { checkLineReceipt, overReceiptAllowance } from '../../shared/purchasing/receiptRules.js'
 import { readReceivingScan, type ScanLine } from '../../shared/purchasing/receiveScan.js'
 import { specText } from '../../shared/purchasing/specText.js'
-import { csvField, inertText } from '../../server/services/spreadsheetSafety.js'
 
 describe('PO statuses', () => {
   it('allows each action only from its statuses', () => {
@@ -77,20 +76,6 @@ describe('shower base spec text', () => {
     expect(specText(flat)).toBe('1524 mm (60″) × 813 mm (32″); curb straight; drain 762 mm from left, 406 mm from back; entry center')
     expect(specText({ widthMm: 900, depthMm: 900, curbless: true, drain: { fromLeftMm: 450, fromBackMm: 450 }, entry: 'right' })).toContain('curbless')
     expect(specText(null)).toBeNull()
-  })
-})
-
-describe('spreadsheet text guard', () => {
-  // source: OWASP "CSV Injection": cells must not begin with = + - @ tab CR (and LF); prefix a single quote
-  it.each(['=1+1', '+1', '-1', '@SUM(A1)', '\tx', '\rx', '\nx'])('inerts %j', (text) => {
-    expect(inertText(text)).toBe(`'${text}`)
-  })
-  it('leaves other text alone and quotes CSV fields that need it', () => {
-    expect(inertText('Larkspur Glassworks')).toBe('Larkspur Glassworks')
-    expect(inertText('')).toBe('')
-    expect(csvField('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`)
-    expect(csvField('plain')).toBe('plain')
-    expect(csvField('a,b')).toBe('"a,b"')
   })
 })
 

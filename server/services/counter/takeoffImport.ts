@@ -1,6 +1,5 @@
 // Upload of a contractor's takeoff in Lumenyard's own template: the catalog import's guard and child-
 // process parser read the file; every row problem is reported before anything is saved.
-import ExcelJS from 'exceljs'
 import type { DataSource } from 'typeorm'
 import { MAX_SHEET_ROWS, TAKEOFF_COLUMNS, TAKEOFF_SHEET } from '../../../shared/counter/takeoffSheetColumns.js'
 import type { TakeoffRecord } from '../../../shared/schemas/counter.js'
@@ -8,6 +7,7 @@ import type { LengthUnit } from '../../../shared/units.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
+import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { ImportSpec, RowIssue } from '../imports/importTypes.js'
 import { parseSpreadsheet } from '../imports/spreadsheetParser.js'
 import type { GuardedUpload } from '../imports/uploadGuard.js'
@@ -51,22 +51,27 @@ export async function importTakeoff(
   return getTakeoff(ds, saved.id)
 }
 
+type HelpRow = { name: string; level: string; help: string }
+
 /** The blank template: the header row on the first sheet, what each column holds on the second. */
 export async function takeoffTemplate(): Promise<Buffer> {
-  const book = new ExcelJS.Workbook()
-  book.creator = 'Lumenyard'
-  const sheet = book.addWorksheet(TAKEOFF_SHEET)
-  sheet.columns = TAKEOFF_COLUMNS.map((c) => ({ header: c.name, key: c.name, width: Math.max(12, c.name.length + 4) }))
-  sheet.getRow(1).font = { bold: true }
-  sheet.views = [{ state: 'frozen', ySplit: 1 }]
-  const help = book.addWorksheet('Help')
-  help.columns = [{ header: 'column', key: 'name', width: 16 }, { header: 'row kind', key: 'level', width: 12 }, { header: 'what it holds', key: 'help', width: 100 }]
-  help.getRow(1).font = { bold: true }
-  for (const c of TAKEOFF_COLUMNS) help.addRow({ name: c.name, level: c.level === 'item' ? 'item row' : c.level === 'wall' ? 'wall, first row' : 'every wall row', help: c.help })
-  help.addRow({})
-  help.addRow({ help: 'Lengths: 84 in, 7\' 0", 7 3/4", 2134 mm. A bare number is read in the unit chosen on the upload screen.' })
-  help.addRow({ help: 'Only the first sheet is read; a .csv file holds the same columns. At most 2,000 rows.' })
-  return Buffer.from(await book.xlsx.writeBuffer())
+  const help: HelpRow[] = TAKEOFF_COLUMNS.map((c) => ({ name: c.name, level: c.level === 'item' ? 'item row' : c.level === 'wall' ? 'wall, first row' : 'every wall row', help: c.help }))
+  help.push(
+    { name: '', level: '', help: '' },
+    { name: '', level: '', help: 'Lengths: 84 in, 7\' 0", 7 3/4", 2134 mm. A bare number is read in the unit chosen on the upload screen.' },
+    { name: '', level: '', help: 'Only the first sheet is read; a .csv file holds the same columns. At most 2,000 rows.' },
+  )
+  return buildXlsx(
+    sheet<never>({ name: TAKEOFF_SHEET, title: 'Takeoff', rows: [], columns: TAKEOFF_COLUMNS.map((c) => ({ header: c.name, kind: 'text', value: () => null })) }),
+    sheet<HelpRow>({
+      name: 'Help', title: 'Takeoff template: the columns', rows: help,
+      columns: [
+        { header: 'column', kind: 'text', value: (r) => r.name },
+        { header: 'row kind', kind: 'text', value: (r) => r.level },
+        { header: 'what it holds', kind: 'text', width: 90, value: (r) => r.help },
+      ],
+    }),
+  )
 }
 
 export const takeoffTemplateCsv = () => Buffer.from(TAKEOFF_COLUMNS.map((c) => c.name).join(',') + '\r\n', 'utf8')

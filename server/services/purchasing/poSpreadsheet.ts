@@ -1,173 +1,176 @@
-// Purchase orders as workbooks: one printable sheet per PO (header, vendor, ship-to, lines, total),
-// and for the buyer a multi-PO book (orders, all lines, then each PO's sheet). Quantities and money
-// stay numbers with number formats; every text that came from a person goes through spreadsheetSafety.
-import ExcelJS from 'exceljs'
-import type { PoDetail } from '../../../shared/schemas/purchasingViews.js'
-import { inertCell, inertText } from '../spreadsheetSafety.js'
+// Purchase orders as workbooks: one printable sheet per PO (header, vendor, ship-to, lines, total, notes),
+// and for the buyer a multi-PO book (orders, all lines, then each PO's sheet). Cells, widths and the print
+// setup come from the one writer (exports/xlsxWriter.ts): numbers stay numbers, dates are dates, text is
+// written as string cells, and labels, addresses and notes sit in cells wide enough not to be cut.
+import type ExcelJS from 'exceljs'
+import type { PoDetail, PoLineView } from '../../../shared/schemas/purchasingViews.js'
+import {
+  buildXlsx, columnWidths, newWorkbook, printOptions, putCell, sheet, THIN_RULE, workbookBytes, type Book, type CellInput, type CellKind,
+  type SheetColumn,
+} from '../exports/xlsxWriter.js'
 
-/** The row of the line table's header on a PO sheet; the sheet is frozen below it. */
+/** The row of the line table's header on a PO sheet; the sheet is frozen below it and repeats it on every page. */
 export const PO_TABLE_HEADER_ROW = 10
 
 const HEADER_FILL: ExcelJS.Fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFE5F4F3' } }
-const THIN: ExcelJS.Border = { style: 'thin', color: { argb: 'FF9FB8BC' } }
-const DAY = 'yyyy-mm-dd'
-const QTY = '#,##0'
-const COST = '#,##0.0000'
-const MONEY = '#,##0.00'
+const LINE_HEIGHT = 15
 
 // Money reaches the sheet as a number only here: spreadsheet cells hold binary doubles, and a
 // two- or four-place amount of this size converts exactly enough for display and sums.
 const amount = (text: string | undefined) => (text === undefined ? null : Number(text))
-const day = (iso: string | null) => (iso ? new Date(`${iso.slice(0, 10)}T00:00:00Z`) : null)
 
-const PO_COLUMNS: { header: string; width: number; numFmt?: string }[] = [
-  { header: 'Line', width: 6 },
-  { header: 'Our SKU', width: 16 },
-  { header: 'Vendor SKU', width: 16 },
-  { header: 'Description', width: 50 },
-  { header: 'Packs', width: 8, numFmt: QTY },
-  { header: 'Pack size', width: 10, numFmt: QTY },
-  { header: 'Quantity', width: 11, numFmt: QTY },
-  { header: 'Unit', width: 8 },
-  { header: 'Unit cost', width: 12, numFmt: COST },
-  { header: 'Line total', width: 14, numFmt: MONEY },
+const PO_COLUMNS: SheetColumn<PoLineView>[] = [
+  { header: 'Line', kind: 'integer', value: (l) => l.lineNo },
+  { header: 'Our SKU', kind: 'text', width: 18, value: (l) => l.sku },
+  { header: 'Vendor SKU', kind: 'text', width: 18, value: (l) => l.vendorSku },
+  { header: 'Description', kind: 'text', width: 44, value: (l) => l.description },
+  { header: 'Packs', kind: 'integer', value: (l) => l.packsOrdered },
+  { header: 'Pack size', kind: 'integer', value: (l) => l.packQty },
+  { header: 'Quantity', kind: 'integer', value: (l) => l.qtyOrdered },
+  { header: 'Unit', kind: 'text', value: (l) => l.stockUnit },
+  { header: 'Unit cost', kind: 'cost', value: (l) => amount(l.unitCost) },
+  { header: 'Line total', kind: 'money', value: (l) => amount(l.lineTotal) },
 ]
 
-function put(sheet: ExcelJS.Worksheet, ref: string, value: ExcelJS.CellValue, style: Partial<ExcelJS.Style> = {}) {
+const colLetter = (n: number) => String.fromCharCode(64 + n)
+
+/**
+ * Writes `value` across columns from..to of `row` (merged when wider than one), wrapping, and makes the row tall
+ * enough for the wrapped text: a spreadsheet does not grow a merged cell's row by itself.
+ */
+function block(ws: ExcelJS.Worksheet, widths: number[], row: number, from: number, to: number, kind: CellKind, value: CellInput, style: Partial<ExcelJS.Style> = {}) {
   if (value === null || value === undefined || value === '') return
-  const cell = sheet.getCell(ref)
-  cell.value = value
+  if (to > from) ws.mergeCells(row, from, row, to)
+  const cell = ws.getCell(row, from)
+  putCell(cell, kind, value)
   Object.assign(cell, style)
+  cell.alignment = { wrapText: true, vertical: 'top', horizontal: 'left', ...(style.alignment ?? {}) }
+  if (typeof cell.value !== 'string') return
+  const room = widths.slice(from - 1, to).reduce((a, b) => a + b, 0) * 1.1 - 1
+  const lines = cell.value.split('\n').reduce((n, part) => n + Math.max(1, Math.ceil(part.length / room)), 0)
+  const r = ws.getRow(row)
+  if (lines * LINE_HEIGHT > (r.height ?? LINE_HEIGHT)) r.height = Math.min(409, lines * LINE_HEIGHT)
 }
 
-function headerBlock(sheet: ExcelJS.Worksheet, po: PoDetail) {
-  put(sheet, 'A1', `Purchase order ${po.number}`, { font: { bold: true, size: 16 } })
-  const label = { font: { bold: true } }
-  const facts: [string, ExcelJS.CellValue, string?][] = [
-    ['Order date', day(po.createdAt), DAY],
-    ['Expected', day(po.expectedDate), DAY],
-    ['Status', po.status.replace('_', ' ')],
-    ['Currency', po.currency],
-    ['Terms', inertCell(po.vendor.terms)],
+function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
+  const bold = { font: { bold: true } }
+  const last = PO_COLUMNS.length
+  block(ws, widths, 1, 1, last, 'text', `Purchase order ${po.number}`, { font: { bold: true, size: 16 } })
+  // Facts: the label across Line and Our SKU, the value under Vendor SKU.
+  const facts: [string, CellKind, CellInput][] = [
+    ['Order date', 'date', po.createdAt],
+    ['Expected', 'date', po.expectedDate],
+    ['Status', 'text', po.status.replace('_', ' ')],
+    ['Currency', 'text', po.currency],
+    ['Terms', 'text', po.vendor.terms],
   ]
-  facts.forEach(([name, value, numFmt], i) => {
-    put(sheet, `A${3 + i}`, name, label)
-    put(sheet, `B${3 + i}`, value, numFmt ? { numFmt, alignment: { horizontal: 'left' } } : {})
+  facts.forEach(([label, kind, value], i) => {
+    block(ws, widths, 3 + i, 1, 2, 'text', label, bold)
+    block(ws, widths, 3 + i, 3, 3, kind, value)
   })
-  if (po.job) {
-    put(sheet, 'A8', 'Job', label)
-    put(sheet, 'B8', inertText(po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name))
-  }
-  put(sheet, 'D3', 'Vendor', label)
+  // Vendor across Description to Pack size; ship-to and job across Quantity to Line total.
+  block(ws, widths, 3, 4, 6, 'text', 'Vendor', bold)
   const v = po.vendor
-  ;[v.name, v.contactName, v.email, v.phone, v.address].forEach((text, i) => put(sheet, `D${4 + i}`, inertCell(text)))
-  put(sheet, 'G3', 'Ship to', label)
-  put(sheet, 'G4', inertText(po.warehouse.name))
-  put(sheet, 'G5', inertCell(po.warehouse.address))
+  ;[v.name, v.contactName, v.email, v.phone, v.address].forEach((text, i) => block(ws, widths, 4 + i, 4, 6, 'text', text))
+  block(ws, widths, 3, 7, last, 'text', 'Ship to', bold)
+  block(ws, widths, 4, 7, last, 'text', po.warehouse.name)
+  block(ws, widths, 5, 7, last, 'text', po.warehouse.address)
+  if (po.job) {
+    block(ws, widths, 7, 7, last, 'text', 'Job', bold)
+    block(ws, widths, 8, 7, last, 'text', po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name)
+  }
 }
 
-function lineTable(sheet: ExcelJS.Worksheet, po: PoDetail): number {
-  const head = sheet.getRow(PO_TABLE_HEADER_ROW)
+function lineTable(ws: ExcelJS.Worksheet, widths: { width: number; wrap: boolean }[], po: PoDetail): number {
+  const head = ws.getRow(PO_TABLE_HEADER_ROW)
   PO_COLUMNS.forEach((c, i) => {
     const cell = head.getCell(i + 1)
     cell.value = c.header
     cell.font = { bold: true }
     cell.fill = HEADER_FILL
-    cell.border = { bottom: THIN }
-    cell.alignment = { horizontal: c.numFmt ? 'right' : 'left' }
+    cell.border = { bottom: THIN_RULE }
+    cell.alignment = { horizontal: c.kind === 'text' ? 'left' : 'right', wrapText: true }
   })
   po.lines.forEach((l, i) => {
-    const row = sheet.getRow(PO_TABLE_HEADER_ROW + 1 + i)
-    const values: ExcelJS.CellValue[] = [
-      l.lineNo, inertText(l.sku), inertCell(l.vendorSku), inertText(l.description), l.packsOrdered, l.packQty, l.qtyOrdered,
-      inertText(l.stockUnit), amount(l.unitCost), amount(l.lineTotal),
-    ]
-    values.forEach((value, c) => {
-      if (value === null) return
-      const cell = row.getCell(c + 1)
-      cell.value = value
-      if (PO_COLUMNS[c].numFmt) cell.numFmt = PO_COLUMNS[c].numFmt!
+    const row = ws.getRow(PO_TABLE_HEADER_ROW + 1 + i)
+    PO_COLUMNS.forEach((c, col) => {
+      const cell = row.getCell(col + 1)
+      putCell(cell, c.kind, c.value(l))
+      if (widths[col].wrap) cell.alignment = { wrapText: true, vertical: 'top' }
+      else if (c.kind === 'text') cell.alignment = { vertical: 'top' }
     })
-    row.getCell(4).alignment = { wrapText: true, vertical: 'top' }
   })
   return PO_TABLE_HEADER_ROW + po.lines.length
 }
 
 /** Adds one PO's printable sheet to a workbook. */
 export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.number): ExcelJS.Worksheet {
-  const sheet = book.addWorksheet(name, { properties: { defaultRowHeight: 16 } })
-  PO_COLUMNS.forEach((c, i) => (sheet.getColumn(i + 1).width = c.width))
-  headerBlock(sheet, po)
-  const lastLine = lineTable(sheet, po)
+  const widths = columnWidths(PO_COLUMNS, po.lines)
+  const lastLine = PO_TABLE_HEADER_ROW + po.lines.length
   const totalRow = lastLine + 2
+  const lastRow = po.notes ? totalRow + 2 : totalRow
+  const ws = book.addWorksheet(name, {
+    properties: { defaultRowHeight: LINE_HEIGHT },
+    views: [{ state: 'frozen', ySplit: PO_TABLE_HEADER_ROW, topLeftCell: `A${PO_TABLE_HEADER_ROW + 1}` }],
+    // Portrait, like any order form: a 30-line order fits one page at the width the writer scales to.
+    ...printOptions({
+      title: `Purchase order ${po.number}`, orientation: 'portrait',
+      titleRows: `${PO_TABLE_HEADER_ROW}:${PO_TABLE_HEADER_ROW}`, printArea: `A1:${colLetter(PO_COLUMNS.length)}${lastRow}`,
+    }),
+  })
+  widths.forEach((w, i) => (ws.getColumn(i + 1).width = w.width))
+  const w = widths.map((x) => x.width)
+  headerBlock(ws, w, po)
+  lineTable(ws, widths, po)
   if (po.total !== undefined) {
-    put(sheet, `I${totalRow}`, 'Total', { font: { bold: true } })
-    put(sheet, `J${totalRow}`, amount(po.total), { numFmt: MONEY, font: { bold: true }, border: { top: THIN } })
+    block(ws, w, totalRow, 9, 9, 'text', 'Total', { font: { bold: true }, alignment: { horizontal: 'right' } })
+    putCell(ws.getCell(totalRow, 10), 'money', amount(po.total))
+    Object.assign(ws.getCell(totalRow, 10), { font: { bold: true }, border: { top: THIN_RULE } })
   }
   if (po.notes) {
-    put(sheet, `A${totalRow + 2}`, 'Notes', { font: { bold: true } })
-    put(sheet, `B${totalRow + 2}`, inertText(po.notes), { alignment: { wrapText: true, vertical: 'top' } })
+    block(ws, w, totalRow + 2, 1, 2, 'text', 'Notes', { font: { bold: true } })
+    block(ws, w, totalRow + 2, 3, PO_COLUMNS.length, 'text', po.notes)
   }
-  const lastRow = po.notes ? totalRow + 2 : totalRow
-  sheet.views = [{ state: 'frozen', ySplit: PO_TABLE_HEADER_ROW, topLeftCell: `A${PO_TABLE_HEADER_ROW + 1}` }]
-  sheet.pageSetup = {
-    orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, horizontalCentered: true,
-    margins: { left: 0.5, right: 0.5, top: 0.6, bottom: 0.6, header: 0.3, footer: 0.3 },
-    printArea: `A1:J${lastRow}`, printTitlesRow: `${PO_TABLE_HEADER_ROW}:${PO_TABLE_HEADER_ROW}`,
-  }
-  sheet.headerFooter = { oddFooter: `&L${po.number}&RPage &P of &N` }
-  return sheet
-}
-
-function newBook(): ExcelJS.Workbook {
-  const book = new ExcelJS.Workbook()
-  book.creator = 'Lumenyard'
-  book.created = new Date()
-  return book
-}
-
-async function toBuffer(book: ExcelJS.Workbook): Promise<Buffer> {
-  return Buffer.from(await book.xlsx.writeBuffer())
+  return ws
 }
 
 export async function poWorkbook(po: PoDetail): Promise<Buffer> {
-  const book = newBook()
+  const book = newWorkbook()
   addPoSheet(book, po)
-  return toBuffer(book)
+  return workbookBytes(book)
 }
 
-function listSheet(book: ExcelJS.Workbook, name: string, columns: { header: string; width: number; numFmt?: string }[], rows: ExcelJS.CellValue[][]) {
-  const sheet = book.addWorksheet(name)
-  sheet.columns = columns.map((c) => ({ header: c.header, width: c.width, style: c.numFmt ? { numFmt: c.numFmt } : {} }))
-  const head = sheet.getRow(1)
-  head.font = { bold: true }
-  head.fill = HEADER_FILL
-  for (const r of rows) sheet.addRow(r)
-  sheet.views = [{ state: 'frozen', ySplit: 1 }]
-  sheet.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: columns.length } }
-  sheet.pageSetup = { orientation: 'landscape', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '1:1' }
-}
+type LineOfPo = PoLineView & { po: PoDetail }
 
 /** The buyer's book: one row per order, every line, then each order's printable sheet. */
 export async function multiPoWorkbook(pos: PoDetail[]): Promise<Buffer> {
-  const book = newBook()
-  listSheet(book, 'Orders', [
-    { header: 'Number', width: 16 }, { header: 'Status', width: 16 }, { header: 'Vendor', width: 32 }, { header: 'Ship to', width: 24 },
-    { header: 'Job', width: 28 }, { header: 'Order date', width: 12, numFmt: DAY }, { header: 'Expected', width: 12, numFmt: DAY },
-    { header: 'Currency', width: 9 }, { header: 'Lines', width: 7, numFmt: QTY }, { header: 'Total', width: 14, numFmt: MONEY },
-  ], pos.map((po) => [
-    po.number, po.status.replace('_', ' '), inertText(po.vendor.name), inertText(po.warehouse.name), inertCell(po.job?.name),
-    day(po.createdAt), day(po.expectedDate), po.currency, po.lines.length, amount(po.total),
-  ]))
-  listSheet(book, 'Lines', [
-    { header: 'Number', width: 16 }, { header: 'Vendor', width: 28 }, { header: 'Line', width: 6 }, { header: 'Our SKU', width: 16 },
-    { header: 'Vendor SKU', width: 16 }, { header: 'Description', width: 44 }, { header: 'Packs', width: 8, numFmt: QTY },
-    { header: 'Pack size', width: 10, numFmt: QTY }, { header: 'Quantity', width: 10, numFmt: QTY }, { header: 'Received', width: 10, numFmt: QTY },
-    { header: 'Unit', width: 8 }, { header: 'Unit cost', width: 12, numFmt: COST }, { header: 'Line total', width: 14, numFmt: MONEY },
-  ], pos.flatMap((po) => po.lines.map((l) => [
-    po.number, inertText(po.vendor.name), l.lineNo, inertText(l.sku), inertCell(l.vendorSku), inertText(l.description), l.packsOrdered,
-    l.packQty, l.qtyOrdered, l.qtyReceived, inertText(l.stockUnit), amount(l.unitCost), amount(l.lineTotal),
-  ])))
-  for (const po of pos) addPoSheet(book, po)
-  return toBuffer(book)
+  const title = `Purchase orders ${pos.map((p) => p.number).join(', ')}`.slice(0, 120)
+  const orderSheet = sheet<PoDetail>({
+    name: 'Orders', title, rows: pos,
+    columns: [
+      { header: 'Number', kind: 'text', value: (p) => p.number },
+      { header: 'Status', kind: 'text', value: (p) => p.status.replace('_', ' ') },
+      { header: 'Vendor', kind: 'text', width: 32, value: (p) => p.vendor.name },
+      { header: 'Ship to', kind: 'text', width: 24, value: (p) => p.warehouse.name },
+      { header: 'Job', kind: 'text', width: 28, value: (p) => p.job?.name },
+      { header: 'Order date', kind: 'date', value: (p) => p.createdAt },
+      { header: 'Expected', kind: 'date', value: (p) => p.expectedDate },
+      { header: 'Currency', kind: 'text', value: (p) => p.currency },
+      { header: 'Lines', kind: 'integer', value: (p) => p.lines.length },
+      { header: 'Total', kind: 'money', value: (p) => amount(p.total) },
+    ],
+  })
+  const lineSheet = sheet<LineOfPo>({
+    name: 'Lines', title, rows: pos.flatMap((po) => po.lines.map((l) => ({ ...l, po }))),
+    columns: [
+      { header: 'Number', kind: 'text', value: (l) => l.po.number },
+      { header: 'Vendor', kind: 'text', width: 28, value: (l) => l.po.vendor.name },
+      ...PO_COLUMNS.slice(0, 7),
+      { header: 'Received', kind: 'integer', value: (l) => l.qtyReceived },
+      ...PO_COLUMNS.slice(7),
+    ],
+  })
+  return buildXlsx(orderSheet, lineSheet, (book: Book) => {
+    for (const po of pos) addPoSheet(book as ExcelJS.Workbook, po)
+  })
 }

@@ -2,7 +2,6 @@
 // (server/services/imports): preview checks every row and writes nothing; commit checks again and
 // writes every row in one transaction, or nothing when any row fails. A row whose SKU the vendor
 // already sells updates that vendor item (absent columns keep their values); others are added.
-import ExcelJS from 'exceljs'
 import { In, type DataSource, type EntityManager } from 'typeorm'
 import { vendorItemSchema } from '../../../shared/schemas/purchasing.js'
 import { inTransaction } from '../../db/transaction.js'
@@ -10,6 +9,7 @@ import { Item } from '../../entities/Item.js'
 import { VendorItem } from '../../entities/Vendor.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { ImportRow, ImportSpec, ParsedSheet } from '../imports/importTypes.js'
 import { parseSpreadsheet } from '../imports/spreadsheetParser.js'
 import type { GuardedUpload } from '../imports/uploadGuard.js'
@@ -153,10 +153,9 @@ export async function commitPriceList(ds: DataSource, actor: AuditActor, vendorI
 
 /** An empty price list with the expected headers, for vendors or buyers to fill in. */
 export async function priceListTemplate(): Promise<Buffer> {
-  const book = new ExcelJS.Workbook()
-  const sheet = book.addWorksheet('Price list')
-  sheet.columns = [...PRICE_LIST_SPEC.columns.map((c) => ({ header: c.header, width: Math.max(14, c.header.length + 4) })), { header: 'Description', width: 40 }]
-  sheet.getRow(1).font = { bold: true }
-  sheet.views = [{ state: 'frozen', ySplit: 1 }]
-  return Buffer.from(await book.xlsx.writeBuffer())
+  const headers = [...PRICE_LIST_SPEC.columns.map((c) => c.header), 'Description']
+  return buildXlsx(sheet<never>({
+    name: 'Price list', title: 'Price list', rows: [],
+    columns: headers.map((header) => ({ header, kind: 'text', width: header === 'Description' ? 40 : undefined, value: () => null })),
+  }))
 }

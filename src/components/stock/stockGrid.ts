@@ -61,6 +61,14 @@ export const LEDGER_SORT_BY_FIELD: Partial<Record<keyof LedgerRow, string>> = {
   at: 'at', sku: 'sku', warehouseCode: 'warehouse', binCode: 'bin', lotCode: 'lot', moveType: 'moveType', qty: 'qty', userName: 'user', docType: 'doc',
 }
 
+/** The document a move belongs to as people name it: its number (PO, pick list), the job's name, else kind and id. */
+function documentName(label: (key: string, fallback: string) => string, row: LedgerRow | undefined): string {
+  if (!row?.docType) return ''
+  const kind = label(`stock.docKinds.${row.docType}`, row.docType.replace(/_/g, ' '))
+  if (row.docRef) return row.docType === 'job' ? `${kind} ${row.docRef}` : row.docRef
+  return `${kind} ${row.docId ?? ''}`.trim()
+}
+
 /** `label(key, fallback)`: the message for key, or the fallback when there is none (reasons are free text on issues). */
 export function ledgerColumns(label: (key: string, fallback: string) => string): ColDef<LedgerRow>[] {
   const t = (key: string) => label(key, key)
@@ -78,7 +86,7 @@ export function ledgerColumns(label: (key: string, fallback: string) => string):
     col('lotCode', 100),
     col('qty', 90, { type: 'rightAligned', cellClass: (p) => ((p.value ?? 0) < 0 ? 'qty-out' : 'qty-in'), valueFormatter: (p) => (p.value > 0 ? `+${p.value}` : String(p.value)) }),
     col('reason', 110, { valueFormatter: (p) => (p.value ? label(`stock.reasons.${p.value}`, String(p.value)) : '') }),
-    col('docType', 130, { valueGetter: (p) => (p.data?.docType ? `${p.data.docType} ${p.data.docId ?? ''}` : '') }),
+    col('docType', 150, { valueGetter: (p) => documentName(label, p.data) }),
     col('note', 180),
     col('userName', 140),
   ]

@@ -31,6 +31,7 @@ export default {
     receipt: 'Received', issue: 'Issued', pick: 'Picked', adjustment: 'Adjusted', count: 'Counted', bin_move: 'Bin move',
     transfer_out: 'Shipped out', transfer_in: 'Arriving', assembly: 'Assembled', return: 'Returned',
   },
+  docKinds: { purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job' },
   reasons: { damaged: 'Damaged', found: 'Found', counted: 'Counted', written_off: 'Written off' },
   binKinds: { storage: 'storage', receiving: 'receiving dock', staging: 'staging', transit: 'on the way' },
   overview: {

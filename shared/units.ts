@@ -34,6 +34,11 @@ export interface InchFormatOptions {
   denominator?: 2 | 4 | 8 | 16 | 32
   /** How to reach the nearest fraction: a minimum radius must round up so the named size works. */
   rounding?: 'nearest' | 'up' | 'down'
+  /**
+   * `marks` (default) writes 5′ 2 1/8″; `words` writes 5 ft 2 1/8 in, for sentences such as
+   * "at most 83 ft 4 in" and for text sent to other systems (order specs, spreadsheets).
+   */
+  style?: 'marks' | 'words'
 }
 
 const gcd = (a: number, b: number): number => (b === 0 ? a : gcd(b, a % b))
@@ -52,18 +57,27 @@ function wholeAndFraction(whole: number, parts: number, denominator: number): st
   return whole === 0 ? fraction : `${whole} ${fraction}`
 }
 
-/** Inches with fractions to 1/16 in by default, e.g. `7 3/4″` or, with `feet`, `5′ 2 1/8″`. */
+/**
+ * Inches with fractions to 1/16 in by default, e.g. `7 3/4″` or, with `feet`, `5′ 2 1/8″`;
+ * with `style: 'words'`, `7 3/4 in` and `5 ft 2 1/8 in` (a whole number of feet drops the `0 in`).
+ */
 export function formatInches(mm: number, options: InchFormatOptions = {}): string {
   const denominator = options.denominator ?? 16
+  const words = options.style === 'words'
+  const inchMark = words ? ' in' : '″'
   const steps = roundTo((Math.abs(mm) / MM_PER_INCH) * denominator, options.rounding)
   const sign = mm < 0 && steps > 0 ? '-' : ''
   const wholeInches = Math.floor(steps / denominator)
   const parts = steps % denominator
   if (!options.feet || wholeInches < INCHES_PER_FOOT) {
-    return `${sign}${wholeAndFraction(wholeInches, parts, denominator)}″`
+    return `${sign}${wholeAndFraction(wholeInches, parts, denominator)}${inchMark}`
   }
   const feet = Math.floor(wholeInches / INCHES_PER_FOOT)
   const inches = wholeInches % INCHES_PER_FOOT
+  if (words) {
+    const rest = inches === 0 && parts === 0 ? '' : ` ${wholeAndFraction(inches, parts, denominator)} in`
+    return `${sign}${feet} ft${rest}`
+  }
   return `${sign}${feet}′ ${wholeAndFraction(inches, parts, denominator)}″`
 }
 
@@ -78,12 +92,25 @@ export function formatLength(mm: number, unit: LengthUnit, options: InchFormatOp
   return unit === 'in' ? formatInches(mm, options) : formatMillimetres(mm, options.rounding)
 }
 
+/** Why a typed length was not read, as a stable code a screen can word in the user's language. */
+export type LengthParseCode = 'empty' | 'negative' | 'zero_denominator' | 'decimal_comma' | 'unreadable'
+
+const PARSE_DETAIL: Record<LengthParseCode, string> = {
+  empty: 'it is empty',
+  negative: 'a length cannot be negative',
+  zero_denominator: 'a fraction cannot have 0 below the line',
+  decimal_comma: 'write decimals with a point (1.5) and no thousands separator',
+  unreadable: 'the number or its unit is not one Lumenyard knows',
+}
+
 export class LengthParseError extends Error {
   readonly input: string
-  constructor(input: string, detail: string) {
-    super(`Can't read "${input}" as a length: ${detail}. Try 7 3/4", 7.75 in, 190 mm or 5' 2".`)
+  readonly code: LengthParseCode
+  constructor(input: string, code: LengthParseCode) {
+    super(`Can't read "${input}" as a length: ${PARSE_DETAIL[code]}. Try 7 3/4", 7.75 in, 190 mm or 5' 2".`)
     this.name = 'LengthParseError'
     this.input = input
+    this.code = code
   }
 }
 
@@ -113,7 +140,7 @@ function readQuantity(text: string, input: string): number | undefined {
   const mixed = /^(?:(\d+)[ -])?(\d+)\/(\d+)$/.exec(t)
   if (!mixed) return undefined
   const denominator = Number(mixed[3])
-  if (denominator === 0) throw new LengthParseError(input, 'a fraction cannot have 0 below the line')
+  if (denominator === 0) throw new LengthParseError(input, 'zero_denominator')
   return Number(mixed[1] ?? 0) + Number(mixed[2]) / denominator
 }
 
@@ -152,24 +179,26 @@ function readFeetAndInches(text: string, input: string): number | undefined {
  */
 export function parseLength(text: string, defaultUnit: LengthUnit = 'mm'): number {
   const s = normalise(text)
-  if (s === '') throw new LengthParseError(text, 'it is empty')
-  if (s.startsWith('-')) throw new LengthParseError(text, 'a length cannot be negative')
+  if (s === '') throw new LengthParseError(text, 'empty')
+  if (s.startsWith('-')) throw new LengthParseError(text, 'negative')
+  // "1,5" is a decimal comma and "1,500" a thousands separator: guessing either could be wrong by 1000×.
+  if (/\d,\d/.test(s)) throw new LengthParseError(text, 'decimal_comma')
   const feetInches = readFeetAndInches(s, text)
   if (feetInches !== undefined) return feetInches
   const { quantity, unit } = splitUnit(s)
   const value = readQuantity(quantity, text)
-  if (value === undefined) throw new LengthParseError(text, 'the number or its unit is not one Lumenyard knows')
+  if (value === undefined) throw new LengthParseError(text, 'unreadable')
   return value * (unit === '' ? (defaultUnit === 'in' ? MM_PER_INCH : 1) : UNIT_MM[unit])
 }
 
-export type LengthParseResult = { ok: true; mm: number } | { ok: false; message: string }
+export type LengthParseResult = { ok: true; mm: number } | { ok: false; message: string; code: LengthParseCode }
 
 /** parseLength without the throw, for form fields that validate as the user types. */
 export function tryParseLength(text: string, defaultUnit: LengthUnit = 'mm'): LengthParseResult {
   try {
     return { ok: true, mm: parseLength(text, defaultUnit) }
   } catch (error) {
-    if (error instanceof LengthParseError) return { ok: false, message: error.message }
+    if (error instanceof LengthParseError) return { ok: false, message: error.message, code: error.code }
     throw error
   }
 }

@@ -87,6 +87,29 @@ describe('formatInches', () => {
     expect(formatInches(196.85, { feet: true })).toBe('7 3/4″')
   })
 
+  it('writes feet and inches in words for sentences and order specs', () => {
+    // hand-worked: 1000 in = 83 ft 4 in = 25,400 mm
+    expect(formatInches(25_400, { feet: true, style: 'words' })).toBe('83 ft 4 in')
+    // hand-worked: 100 ft = 30,480 mm exactly (NIST SP 811: 1 ft = 0.3048 m); no trailing "0 in"
+    expect(formatLength(30_480, 'in', { feet: true, style: 'words' })).toBe('100 ft')
+    // hand-worked: 48 in = 1219.2 mm; stored as 1219.1999999999998 after 48 × 25.4
+    expect(formatLength(48 * 25.4, 'in', { style: 'words' })).toBe('48 in')
+    expect(formatLength(48 * 25.4, 'in', { feet: true, style: 'words' })).toBe('4 ft')
+    // hand-worked: 5 ft 2 1/8 in = 1577.975 mm
+    expect(formatLength(1577.975, 'in', { feet: true, style: 'words' })).toBe('5 ft 2 1/8 in')
+    expect(formatLength(196.85, 'in', { style: 'words' })).toBe('7 3/4 in')
+    expect(formatLength(48 * 25.4, 'mm', { style: 'words' })).toBe('1219.2 mm')
+  })
+
+  it('words read back through parseLength', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 20_000, noNaN: true }), (mm) => {
+        const back = parseLength(formatInches(mm, { feet: true, style: 'words' }))
+        expect(Math.abs(back - mm)).toBeLessThanOrEqual(25.4 / 32 + 1e-9)
+      }),
+    )
+  })
+
   it('formatLength picks the unit', () => {
     expect(formatLength(196.85, 'in')).toBe('7 3/4″')
     expect(formatLength(196.85, 'mm')).toBe('196.9 mm')
@@ -135,6 +158,24 @@ describe('parseLength', () => {
     expect(result.ok).toBe(false)
     if (!result.ok) expect(result.message).toContain('Try 7 3/4"')
     expect(tryParseLength('190 mm')).toEqual({ ok: true, mm: 190 })
+  })
+
+  it('gives each refusal a code a screen can word in the user’s language', () => {
+    const code = (text: string) => {
+      const r = tryParseLength(text, 'in')
+      return r.ok ? 'read' : r.code
+    }
+    expect(code('')).toBe('empty')
+    expect(code('-3')).toBe('negative')
+    expect(code('3/0')).toBe('zero_denominator')
+    // a comma between digits is refused: "1,5" (decimal comma) and "1,500" (thousands) differ 1000×
+    expect(code('1,5')).toBe('decimal_comma')
+    expect(code('1,500 mm')).toBe('decimal_comma')
+    expect(code('1e9')).toBe('unreadable')
+    // the ones a clerk types that are fine: 8' is 8 ft, 7 3/4 is inches in an inch takeoff
+    expect(code("8'")).toBe('read')
+    expect(parseLength("8'", 'in')).toBeCloseTo(2438.4, 9) // 8 × 304.8
+    expect(parseLength('7 3/4', 'in')).toBeCloseTo(196.85, 9) // 7.75 × 25.4
   })
 
   it('reads back what formatInches writes, within half a sixteenth', () => {

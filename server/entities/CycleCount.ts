@@ -71,6 +71,8 @@ export class CountLine {
   @Column({ name: 'unit_cost', type: 'decimal', precision: 12, scale: 4, nullable: true }) unitCost: string | null
   @Column({ name: 'counted_by', type: 'int', nullable: true }) countedBy: number | null
   @Column({ name: 'counted_at', type: 'datetime', precision: 3, nullable: true }) countedAt: Date | null
+  /** The ledger's last move id when the figure was entered: moves after it happened after the count. */
+  @Column({ name: 'counted_move_id', type: 'bigint', nullable: true }) countedMoveId: string | null
   @Column({ name: 'reviewed_by', type: 'int', nullable: true }) reviewedBy: number | null
   @Column({ name: 'reviewed_at', type: 'datetime', precision: 3, nullable: true }) reviewedAt: Date | null
   @Column({ name: 'review_note', type: 'varchar', length: 200, nullable: true }) reviewNote: string | null

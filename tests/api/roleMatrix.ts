@@ -161,4 +161,20 @@ export const designedAccess: Record<string, MatrixRow> = {
   // Handheld outbox reports (counts and reports): devices report, the warehouse start page reads.
   'GET /api/devices/outbox': { access: ['admin', 'warehouse'] },
   'PUT /api/devices/:deviceId/outbox': { access: ['admin', 'warehouse'] },
+  // Cycle counts: the warehouse crew opens and counts; reviewers (admin, or the roles the admin chose among
+  // warehouse and buyer; the service checks) decide; the admin cancels and sets who reviews.
+  'GET /api/counts': { access: ['admin', 'warehouse', 'buyer'] },
+  'POST /api/counts': { access: ['admin', 'warehouse'] },
+  'GET /api/counts/due': { access: ['admin', 'warehouse'], query: 'warehouseId=999999999' },
+  'GET /api/counts/settings': { access: ['admin', 'warehouse', 'buyer'] },
+  'PUT /api/counts/settings': { access: ['admin'] },
+  'GET /api/counts/history': { access: ['admin', 'warehouse', 'buyer'], query: 'itemId=999999999' },
+  'GET /api/counts/accuracy': { access: ['admin', 'warehouse', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
+  'GET /api/counts/:id': { access: ['admin', 'warehouse', 'buyer'] },
+  'GET /api/counts/:id/handheld': { access: ['admin', 'warehouse'] },
+  'POST /api/counts/:id/bins/start': { access: ['admin', 'warehouse'] },
+  'POST /api/counts/:id/entries': { access: ['admin', 'warehouse'] },
+  'POST /api/counts/:id/bins/:binId/finish': { access: ['admin', 'warehouse'] },
+  'POST /api/counts/:id/review': { access: ['admin', 'warehouse', 'buyer'] },
+  'POST /api/counts/:id/cancel': { access: ['admin'] },
 }

@@ -1,0 +1,241 @@
+// Cycle counts: what the screens send (parsed by the server with these) and the answers' shapes.
+// The handheld's answers never carry an expected quantity: counts are blind.
+import { z } from 'zod'
+import type { AbcClass } from '../inventory/abc.js'
+import { COUNT_REVIEWER_CHOICES, type CountReviewerChoice } from '../counts/countReviewRules.js'
+import type { CountBinStatus, CountLineSource, CountLineStatus, CountScope, CountStatus } from '../counts/countTerms.js'
+import type { CountIntervals } from '../counts/countFrequency.js'
+import { isTimeZone } from './stockViews.js'
+
+const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
+const id = z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one')
+const optionalId = z.preprocess(blankToUndefined, id.optional())
+const note = z.string().trim().max(200, 'At most 200 characters').optional().nullable()
+const abcClass = z.enum(['A', 'B', 'C'], { error: 'A, B or C' })
+
+// ---- opening a count ----
+const common = { warehouseId: id, note }
+export const countOpenSchema = z.discriminatedUnion('scope', [
+  z.object({ scope: z.literal('warehouse'), ...common }),
+  z.object({ scope: z.literal('aisle'), ...common, aisle: z.string({ error: 'Choose an aisle' }).trim().min(1, 'Choose an aisle').max(12, 'At most 12 characters') }),
+  z.object({ scope: z.literal('bins'), ...common, binIds: z.array(id, { error: 'Choose bins' }).min(1, 'Choose at least one bin').max(500, 'At most 500 bins') }),
+  z.object({
+    scope: z.literal('abc_due'),
+    ...common,
+    classes: z.array(abcClass, { error: 'Choose classes' }).min(1, 'Choose at least one class'),
+    limit: z.coerce.number({ error: 'A number' }).int('Whole items').min(1, 'At least 1').max(500, 'At most 500').default(50),
+  }),
+], { error: 'Choose what to count' })
+export type CountOpenInput = z.infer<typeof countOpenSchema>
+
+export const countsQuerySchema = z.object({
+  status: z.preprocess(blankToUndefined, z.enum(['open', 'closed', 'cancelled', 'all'], { error: 'open, closed, cancelled or all' }).default('open')),
+  warehouseId: optionalId,
+})
+export type CountsQuery = z.infer<typeof countsQuerySchema>
+
+export const countDueQuerySchema = z.object({ warehouseId: z.preprocess(blankToUndefined, id) })
+
+// ---- the handheld ----
+export const countStartBinSchema = z.object({
+  /** The bin label as scanned (B:code) or the code typed. */
+  binScan: z.string({ error: 'Scan a bin' }).trim().min(1, 'Scan a bin').max(80, 'At most 80 characters'),
+  /** Carry on a visit someone else started (their phone died, a shift change). */
+  takeOver: z.boolean().optional().default(false),
+})
+export type CountStartBinInput = z.infer<typeof countStartBinSchema>
+
+export const LOT_CODE_PATTERN = /^[A-Za-z0-9._/-]{1,20}$/
+export const countEntrySchema = z.object({
+  binId: id,
+  itemId: id,
+  lotCode: z.string().trim().regex(LOT_CODE_PATTERN, 'Letters, digits and . _ / - only, up to 20').nullable().optional().default(null),
+  qty: z.coerce.number({ error: 'Enter how many' }).int('Whole units only').min(0, 'Zero or more').max(1_000_000, 'That is more than a million units'),
+})
+export type CountEntryInput = z.infer<typeof countEntrySchema>
+
+// ---- review ----
+export const countReviewSchema = z.object({
+  decisions: z.array(z.object({
+    lineId: id,
+    action: z.enum(['approve', 'recount'], { error: 'approve or recount' }),
+    note,
+  })).min(1, 'Choose at least one line').max(500, 'At most 500 lines at once'),
+})
+export type CountReviewInput = z.infer<typeof countReviewSchema>
+
+export const countCancelSchema = z.object({
+  reason: z.string({ error: 'Say why' }).trim().min(1, 'Say why').max(200, 'At most 200 characters'),
+})
+
+export const countSettingsSchema = z.object({
+  reviewerRoles: z.array(z.enum(COUNT_REVIEWER_CHOICES, { error: 'warehouse or buyer' })).max(COUNT_REVIEWER_CHOICES.length).optional(),
+  intervals: z.object({
+    A: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
+    B: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
+    C: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
+  }).optional(),
+})
+export type CountSettingsInput = z.infer<typeof countSettingsSchema>
+
+// ---- history and accuracy ----
+export const countHistoryQuerySchema = z
+  .object({ binId: optionalId, itemId: optionalId, warehouseId: optionalId })
+  .refine((q) => q.binId !== undefined || q.itemId !== undefined, { path: ['itemId'], message: 'Choose an item or a bin' })
+export type CountHistoryQuery = z.infer<typeof countHistoryQuerySchema>
+
+export const countAccuracyQuerySchema = z
+  .object({
+    from: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-01-01' })),
+    to: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-12-31' })),
+    warehouseId: optionalId,
+    tz: z.preprocess(blankToUndefined, z.string().max(64).refine((zone) => isTimeZone(zone), 'Not a time zone').default('UTC')),
+  })
+  .refine((q) => q.from <= q.to, { path: ['to'], message: 'Ends before it starts' })
+export type CountAccuracyQuery = z.infer<typeof countAccuracyQuerySchema>
+
+// ---- answers ----
+/** What the screens put after the scope in a count's title (in the reader's language). */
+export interface CountScopeDetail {
+  aisle?: string
+  bins?: number
+  classes?: AbcClass[]
+  items?: number
+}
+
+export interface CountSettings {
+  reviewerRoles: CountReviewerChoice[]
+  intervals: CountIntervals
+}
+
+export interface CountSummary {
+  id: number
+  warehouse: { id: number; code: string; name: string }
+  scope: CountScope
+  scopeDetail: CountScopeDetail
+  status: CountStatus
+  note: string | null
+  createdBy: string | null
+  createdAt: string
+  closedAt: string | null
+  binCounts: { total: number; done: number }
+  lineCounts: { waiting: number; toReview: number; settled: number }
+  /** Σ |variance value| of the lines counted so far; absent for roles that do not see costs. */
+  valueOff?: string
+}
+
+export interface CountLineView {
+  id: number
+  binId: number
+  binCode: string
+  itemId: number
+  sku: string
+  itemName: string
+  stockUnit: string
+  lotId: number | null
+  lotCode: string | null
+  attempt: number
+  source: CountLineSource
+  status: CountLineStatus
+  /** Figures from the ledger: null until the line is counted (nobody sees what a waiting line expects). */
+  snapshotQty: number | null
+  movesSince: number | null
+  expectedQty: number | null
+  countedQty: number | null
+  variance: number | null
+  /** Absent for roles that do not see costs. */
+  unitCost?: string | null
+  varianceValue?: string | null
+  countedBy: string | null
+  countedById: number | null
+  countedAt: string | null
+  reviewedBy: string | null
+  reviewedAt: string | null
+  reviewNote: string | null
+  moveId: string | null
+  pickListId: number | null
+}
+
+export interface CountDetail extends CountSummary {
+  bins: { binId: number; binCode: string; status: CountBinStatus; visits: number; startedBy: string | null; finishedAt: string | null }[]
+  lines: CountLineView[]
+  /** The moves made in a line's bin × item × lot between its snapshot and its count (shown on review). */
+  movesDuring: Record<number, { id: string; at: string; moveType: string; qty: number; by: string | null }[]>
+  /** May the viewer approve or ask for recounts here (lines they counted themselves excepted)? */
+  canReview: boolean
+}
+
+/** What the counter's phone sees: bins and items, never quantities the ledger holds. */
+export interface HandheldBinRow {
+  binId: number
+  binCode: string
+  status: CountBinStatus
+  startedBy: string | null
+}
+
+export interface HandheldCountBin extends HandheldBinRow {
+  /** Items the counter is asked to count here (items-only counts and recounts); empty means "everything in the bin". */
+  asked: { itemId: number; sku: string; itemName: string; lotCode: string | null }[]
+  /** What the counter entered so far in this visit. */
+  entered: { lineId: number; itemId: number; sku: string; itemName: string; lotCode: string | null; qty: number }[]
+}
+
+export interface HandheldCount {
+  id: number
+  warehouse: { id: number; code: string; name: string }
+  scope: CountScope
+  scopeDetail: CountScopeDetail
+  status: CountStatus
+  itemsOnly: boolean
+  /** In walking order. */
+  bins: HandheldBinRow[]
+  /** The bin this person is counting now, if any. */
+  current: HandheldCountBin | null
+}
+
+export interface CountDueClass {
+  abcClass: AbcClass
+  intervalDays: number
+  items: number
+  due: number
+  /** Items of this class to count per working day to keep the interval. */
+  perDay: number
+}
+
+export interface CountDuePlan {
+  warehouseId: number
+  classes: CountDueClass[]
+  perDay: number
+}
+
+export interface CountHistoryRow {
+  lineId: number
+  countId: number
+  scope: CountScope
+  warehouseCode: string
+  binCode: string
+  sku: string
+  itemName: string
+  lotCode: string | null
+  attempt: number
+  status: CountLineStatus
+  expectedQty: number | null
+  countedQty: number | null
+  variance: number | null
+  varianceValue?: string | null
+  countedBy: string | null
+  countedAt: string | null
+  reviewedBy: string | null
+}
+
+export interface CountAccuracyRow {
+  warehouseId: number
+  warehouseCode: string
+  /** YYYY-MM in the asked time zone. */
+  month: string
+  linesCounted: number
+  linesRight: number
+  accuracy: number | null
+  valueOff?: string
+  valueNet?: string
+}

@@ -5,7 +5,7 @@ import type { AbcClass } from '../inventory/abc.js'
 import { COUNT_REVIEWER_CHOICES, type CountReviewerChoice } from '../counts/countReviewRules.js'
 import type { CountBinStatus, CountLineSource, CountLineStatus, CountScope, CountStatus } from '../counts/countTerms.js'
 import type { CountIntervals } from '../counts/countFrequency.js'
-import { isTimeZone } from './stockViews.js'
+import { timeZoneParam } from './exportQuery.js'
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
 const id = z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one')
@@ -89,7 +89,7 @@ export const countAccuracyQuerySchema = z
     from: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-01-01' })),
     to: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-12-31' })),
     warehouseId: optionalId,
-    tz: z.preprocess(blankToUndefined, z.string().max(64).refine((zone) => isTimeZone(zone), 'Not a time zone').default('UTC')),
+    tz: timeZoneParam,
   })
   .refine((q) => q.from <= q.to, { path: ['to'], message: 'Ends before it starts' })
 export type CountAccuracyQuery = z.infer<typeof countAccuracyQuerySchema>

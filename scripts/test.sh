@@ -6,5 +6,11 @@ cd "$(dirname "$0")/.."
 source scripts/bootstrap.sh
 need_database_server
 need_debian chromium chromium
+# Outside checkers of what Lumenyard prints and exports: a zip reader, a PDF rasteriser, a barcode reader
+# and a spreadsheet program (headless).
+need_debian unzip unzip
+need_debian pdftoppm poppler-utils
+need_debian zbarimg zbar-tools
+need_debian soffice libreoffice-calc-nogui
 need_node_modules
 exec $TSX scripts/testRun.ts "$@"

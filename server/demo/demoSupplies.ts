@@ -79,7 +79,7 @@ function sectionsAndShowerBases(): DemoItem[] {
       description: 'Shop-built panel. Heavy: lift with two people or a lifting aid; set and anchor to local code.' }, 0.15, [1, 2])
   const base = (sku: string, name: string, cost: string, list: string, kg: string) =>
     item({ sku, name, family: 'shower_base', stockUnit: 'each', cost, listPrice: list, weightKg: kg, madeToOrder: true,
-      description: 'Made to order for the job; ready for tile. Wet area: follow the waterproofing maker’s instructions and local code.' }, 0, [1, 1])
+      description: 'Made to order for the job, to be tiled over. Wet area: follow the waterproofing maker’s instructions and local code.' }, 0, [1, 1])
   return [
     section('WS-0808-WV-4X6', 'Wall section, 8×8 Wavy, 4 blocks × 6 courses', '236.0000', '419.00', '74.000'),
     section('WS-0808-CL-4X6', 'Wall section, 8×8 Clear, 4 blocks × 6 courses', '228.0000', '405.00', '74.000'),
@@ -88,11 +88,11 @@ function sectionsAndShowerBases(): DemoItem[] {
     section('WS-0808-WV-6X6', 'Wall section, 8×8 Wavy, 6 blocks × 6 courses', '348.0000', '619.00', '110.000'),
     section('WS-M190-CL-4X6', 'Wall section, 190×190 mm Clear, 4 blocks × 6 courses', '219.0000', '389.00', '60.000'),
     section('WS-0408-WV-2X10', 'Wall section, 4×8 Wavy, 2 blocks × 10 courses', '154.0000', '275.00', '36.000'),
-    base('SB-3648-L', 'Shower base, ready for tile, 36 × 48 in, curb opening left', '212.0000', '389.00', '18.000'),
-    base('SB-3648-R', 'Shower base, ready for tile, 36 × 48 in, curb opening right', '212.0000', '389.00', '18.000'),
-    base('SB-4260-C', 'Shower base, ready for tile, 42 × 60 in, centre drain', '268.0000', '489.00', '24.000'),
-    base('SB-3060-L', 'Shower base, ready for tile, 30 × 60 in, curb opening left', '236.0000', '429.00', '20.000'),
-    base('SB-3636-CRV', 'Shower base, ready for tile, 36 × 36 in, curved block wall', '248.0000', '455.00', '17.000'),
+    base('SB-3648-L', 'Shower base for tiling, made to order, 36 × 48 in, curb opening left', '212.0000', '389.00', '18.000'),
+    base('SB-3648-R', 'Shower base for tiling, made to order, 36 × 48 in, curb opening right', '212.0000', '389.00', '18.000'),
+    base('SB-4260-C', 'Shower base for tiling, made to order, 42 × 60 in, centre drain', '268.0000', '489.00', '24.000'),
+    base('SB-3060-L', 'Shower base for tiling, made to order, 30 × 60 in, curb opening left', '236.0000', '429.00', '20.000'),
+    base('SB-3636-CRV', 'Shower base for tiling, made to order, 36 × 36 in, curved block wall', '248.0000', '455.00', '17.000'),
   ]
 }
 

@@ -75,7 +75,7 @@ export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, 
     })
   }
   return {
-    filename: `stock-ledger-${new Date().toISOString().slice(0, 10)}.xlsx`,
+    filename: `stock-movements-${new Date().toISOString().slice(0, 10)}.xlsx`,
     write: async (out) => {
       // One statement, capped by the count before it: it reads one consistent snapshot, no paging.
       const where = ledgerWhere(q)
@@ -85,8 +85,8 @@ export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, 
         ...r, wallClock: clock(new Date(r.at)),
         value: r.unit_cost === null ? null : new Decimal(r.unit_cost).times(r.qty).toDecimalPlaces(2).toNumber(),
       }))
-      const title = `Stock ledger${q.from || q.to ? `, ${q.from ?? '…'} to ${q.to ?? '…'}` : ''}`
-      await streamXlsx(out, sheet({ name: 'Ledger', title, columns: COLUMNS, rows }), fieldsSheet({ name: 'Filters', title, fields: filterFields(q, rows.length, clock) }))
+      const title = `Stock movements${q.from || q.to ? `, ${q.from ?? '…'} to ${q.to ?? '…'}` : ''}`
+      await streamXlsx(out, sheet({ name: 'Stock movements', title, columns: COLUMNS, rows }), fieldsSheet({ name: 'Filters', title, fields: filterFields(q, rows.length, clock) }))
     },
   }
 }

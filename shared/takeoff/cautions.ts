@@ -154,7 +154,7 @@ export function endCautions(wall: Wall): Caution[] {
 
 export function wetAreaCautions(wall: Wall): Caution[] {
   if (!wall.wetArea) return []
-  const message = 'Wet area: waterproof the floor and curb under the wall, set it on a ready-for-tile base, ' +
+  const message = 'Wet area: waterproof the floor and curb under the wall, set it on a shower base for tiling, ' +
     'slope the floor to the drain and use a sealant rated for wet areas.'
   return [caution('info', message)]
 }

@@ -44,7 +44,7 @@ export const roleLabels: Record<MaterialRole, string> = {
   jointReinforcement: 'Joint reinforcement',
   expansionStrip: 'Expansion strip',
   wallSection: 'Shop-built wall section',
-  showerBase: 'Shower base, made to order',
+  showerBase: 'Shower base for tiling, made to order',
 }
 
 export const defaultUnits: Record<MaterialRole, string> = {

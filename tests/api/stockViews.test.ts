@@ -205,7 +205,7 @@ async function readWorkbook(agent: supertest.Agent, query: Record<string, unknow
     })
   const wb = new ExcelJS.Workbook()
   if (res.status === 200) await wb.xlsx.load(res.body as Buffer as never)
-  return { res, sheet: wb.getWorksheet('Ledger') }
+  return { res, sheet: wb.getWorksheet('Stock movements') }
 }
 
 describe('the ledger as a spreadsheet', () => {
@@ -215,7 +215,7 @@ describe('the ledger as a spreadsheet', () => {
     const { res, sheet } = await readWorkbook(viewer, { itemId: fx.itemId, sort: 'at', dir: 'asc', tz: 'Etc/GMT+5' })
     expect(res.status).toBe(200)
     expect(res.headers['content-type']).toContain('spreadsheetml')
-    expect(res.headers['content-disposition']).toMatch(/attachment; filename="stock-ledger-\d{4}-\d{2}-\d{2}\.xlsx"/)
+    expect(res.headers['content-disposition']).toMatch(/attachment; filename="stock-movements-\d{4}-\d{2}-\d{2}\.xlsx"/)
     expect(sheet).toBeDefined()
     const header = (sheet!.getRow(1).values as unknown[]).slice(1)
     expect(header.slice(0, 8)).toEqual(['When', 'Move', 'SKU', 'Item', 'Warehouse', 'Bin', 'Lot', 'Quantity'])

@@ -98,10 +98,10 @@ describe('stock screens for the warehouse crew', () => {
       await h.screenshot(page, 'stock-ledger-item')
       // The spreadsheet of what is on screen: the same two moves, quantities as numbers.
       const [download] = await Promise.all([page.waitForEvent('download'), page.locator('[data-test="ledger-export"]').click()])
-      expect(download.suggestedFilename()).toMatch(/^stock-ledger-\d{4}-\d{2}-\d{2}\.xlsx$/)
+      expect(download.suggestedFilename()).toMatch(/^stock-movements-\d{4}-\d{2}-\d{2}\.xlsx$/)
       const wb = new ExcelJS.Workbook()
       await wb.xlsx.readFile(await download.path())
-      const sheet = wb.getWorksheet('Ledger')!
+      const sheet = wb.getWorksheet('Stock movements')!
       expect(sheet.rowCount).toBe(3)
       expect([sheet.getRow(2).getCell(8).value, sheet.getRow(3).getCell(8).value]).toEqual([-3, 24])
       await page.goto('/stock/overview')

@@ -21,7 +21,7 @@ const catalog: CatalogMap = {
   panelAnchor: { sku: 'BW-ANC', name: 'Panel anchor', unit: 'each', packSize: 1, sellByPack: false },
   jointReinforcement: { sku: 'BW-JR10', name: 'Ladder wire 10 ft', unit: 'piece', packSize: 1, sellByPack: false, pieceLengthMm: 120 * IN },
   expansionStrip: { sku: 'BW-EXP48', name: 'Expansion strip 48 in', unit: 'piece', packSize: 1, sellByPack: false, pieceLengthMm: 48 * IN },
-  showerBase: { sku: 'BW-BASE-MTO', name: 'Shower base, made to order', unit: 'each', packSize: 1, sellByPack: false },
+  showerBase: { sku: 'BW-BASE-MTO', name: 'Shower base for tiling, made to order', unit: 'each', packSize: 1, sellByPack: false },
 }
 
 const wall = wallMaker('Okafor hall window')

@@ -137,7 +137,7 @@ describe('curves, ends, wet areas, lifting', () => {
   it('free ends, wet areas, drilling, curing and levelling', () => {
     const text = list.map((c) => c.message).join(' | ')
     expect(text).toContain('Free start')
-    expect(text).toContain('ready-for-tile base')
+    expect(text).toContain('shower base for tiling')
     expect(text).toContain('slope the floor to the drain')
     expect(text).toContain('eye protection')
     expect(text).toContain('overnight is safer')

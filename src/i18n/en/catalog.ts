@@ -1,7 +1,7 @@
 // Catalog, item, import, warehouse and label screens.
 export default {
   title: 'Catalog',
-  tabs: { catalog: 'Catalog', warehouses: 'Warehouses and bins', labels: 'Labels', ledger: 'Stock ledger' },
+  tabs: { catalog: 'Catalog', warehouses: 'Warehouses and bins', labels: 'Labels', ledger: 'Stock movements' },
   quickSearch: 'Find by SKU, name, GTIN or pattern',
   anyFamily: 'Every family',
   anySize: 'Every size',
@@ -36,7 +36,7 @@ export default {
     back: 'Back to the catalog',
     edit: 'Change',
     deactivate: 'Deactivate',
-    confirmDeactivate: 'Deactivate {sku}? It leaves the catalog lists and cannot be sold or ordered; its {onHand} units on hand stay in stock and in the ledger.',
+    confirmDeactivate: 'Deactivate {sku}? It leaves the catalog lists and cannot be sold or ordered; its {onHand} units on hand stay in stock and in its stock movements.',
     deactivated: '{sku} is deactivated.',
     details: 'Details',
     packs: 'Packs',
@@ -70,7 +70,7 @@ export default {
     leadTime: 'Lead time',
     days: '{n} days',
     preferred: 'preferred',
-    ledger: 'Stock ledger',
+    ledger: 'Stock movements',
     ledgerLink: 'Every movement of this item',
     printLabels: 'Labels',
     itemLabel: 'Item label',

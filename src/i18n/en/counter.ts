@@ -119,7 +119,7 @@ export default {
   fromDefaults: 'default',
   layoutSummary: '{across} across × {courses} courses = {total} blocks in {sections} sections',
   roughOpening: 'frame a rough opening of {size}',
-  showerBase: 'Shower base, made to order',
+  showerBase: 'Shower base for tiling, made to order',
   showerBaseHint: 'Built to this spec for the job; never drawn from stock.',
   baseWidth: 'Width',
   baseDepth: 'Depth (front to back)',

@@ -8,7 +8,7 @@ export default {
     admin: 'Admin',
   },
   areaBlurb: {
-    stock: 'Catalog, stock on hand by warehouse, bin and lot, and the stock ledger.',
+    stock: 'Catalog, stock on hand by warehouse, bin and lot, and every stock movement.',
     counter: 'Contractor accounts, jobs, wall takeoffs and bills of materials.',
     warehouse: 'Pick lists, receiving, counts and bin moves with a scanner.',
     purchasing: 'Reorder suggestions, vendors and purchase orders.',

@@ -1,4 +1,4 @@
-// Stock screens: levels, bins, the ledger, adjustments, bin moves and transfers.
+// Stock screens: levels, bins, stock movements, adjustments, bin moves and transfers.
 export default {
   home: {
     title: 'Stock',
@@ -7,7 +7,7 @@ export default {
     overviewText: 'On hand, held for pick lists, free to promise, and lines below their minimum.',
     bins: 'Bins',
     binsText: 'Pick a warehouse and see what each bin holds, lot by lot.',
-    ledger: 'Stock ledger',
+    ledger: 'Stock movements',
     ledgerText: 'Every receipt, issue, move, count and transfer, with who and when.',
     transfers: 'Transfers',
     transfersText: 'Stock on its way between warehouses, and putting it away on arrival.',
@@ -64,12 +64,12 @@ export default {
     noBins: 'No bins match.',
     moveFrom: 'Move from here',
     adjustHere: 'Adjust',
-    ledgerHere: 'Ledger',
+    ledgerHere: 'Movements',
     chooseWarehouse: 'Choose a warehouse to see its bins.',
     labels: 'Labels for these bins',
   },
   ledger: {
-    title: 'Stock ledger',
+    title: 'Stock movements',
     item: 'Item',
     warehouse: 'Warehouse',
     bin: 'Bin',
@@ -118,7 +118,7 @@ export default {
     confirm: 'Record it',
     recorded: 'Recorded.',
     again: 'Record another',
-    viewLedger: 'See it in the ledger',
+    viewLedger: 'See it in stock movements',
     notAllowed: 'Your role reads stock; the warehouse crew and administrators change it.',
     chooseFirst: 'Choose the warehouse, bin and item first.',
   },

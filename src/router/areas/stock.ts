@@ -27,7 +27,8 @@ export const stockRoutes: RouteRecordRaw[] = [
     meta: { area: 'stock', roles: AREA_ROLES.stock, title: 'stock.bins.title' },
   },
   {
-    path: '/stock/ledger',
+    path: '/stock/movements',
+    alias: '/stock/ledger',
     name: 'stock-ledger',
     component: () => import('@/views/stock/StockLedgerView.vue'),
     meta: { area: 'stock', roles: AREA_ROLES.stock, title: 'stock.ledger.title' },

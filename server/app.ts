@@ -1,11 +1,11 @@
 // Builds the Express app. API tests import this and run it in-process against a real database.
 import { existsSync } from 'node:fs'
 import path from 'node:path'
+import compression from 'compression'
 import express from 'express'
+import expressStaticGzip from 'express-static-gzip'
 import session from 'express-session'
-import MySQLStoreFactory from 'express-mysql-session'
 import helmet from 'helmet'
-import mysql from 'mysql2/promise'
 import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
 import type { DataSource } from 'typeorm'
@@ -13,6 +13,7 @@ import type { AppConfig } from './config.js'
 import type { AppContext } from './context.js'
 import { apiNotFound, errorMiddleware } from './http/errorMiddleware.js'
 import { csrfGuard } from './http/csrf.js'
+import { createSessionStore } from './db/sessionStore.js'
 import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport } from './services/authService.js'
 import { SignInThrottle } from './services/signInThrottle.js'
@@ -25,29 +26,14 @@ export interface AppDeps {
   config: AppConfig
   ds: DataSource
   logger?: Logger
+  /** The built client to serve (default: dist/, or LUMENYARD_CLIENT_DIST). */
+  clientDist?: string
 }
 
 export interface BuiltApp {
   app: express.Express
   ctx: AppContext
   close(): Promise<void>
-}
-
-function sessionStore(config: AppConfig) {
-  const MySQLStore = MySQLStoreFactory(session)
-  const pool = mysql.createPool({
-    host: config.db.host,
-    port: config.db.port,
-    user: config.db.user,
-    password: config.db.password,
-    database: config.db.database,
-    connectionLimit: 10,
-  })
-  const store = new MySQLStore(
-    { createDatabaseTable: false, clearExpired: true, checkExpirationInterval: 15 * 60_000, expiration: config.session.maxHours * 3_600_000 },
-    pool as never,
-  )
-  return { store, close: async () => { await store.close() ; await pool.end().catch(() => undefined) } }
 }
 
 function securityHeaders() {
@@ -71,6 +57,29 @@ function securityHeaders() {
     },
     strictTransportSecurity: false, // set by the TLS-terminating proxy in production
   })
+}
+
+/**
+ * The built client: the .br or .gz file the build wrote beside each asset when the browser takes it, file
+ * names with a content hash cached for a year, index.html for every other path (the client's router).
+ */
+function clientFiles(dist: string): express.RequestHandler {
+  const router = express.Router()
+  router.use(
+    expressStaticGzip(dist, {
+      enableBrotli: true,
+      orderPreference: ['br', 'gz'],
+      index: false,
+      serveStatic: {
+        setHeaders: (res, file) => {
+          const hashed = file.startsWith(path.join(dist, 'assets') + path.sep)
+          res.setHeader('Cache-Control', hashed ? 'public, max-age=31536000, immutable' : 'no-cache')
+        },
+      },
+    }),
+  )
+  router.get('/{*splat}', (_req, res) => res.set('Cache-Control', 'no-cache').sendFile(path.join(dist, 'index.html'), { dotfiles: 'allow' }))
+  return router
 }
 
 export function createApp(deps: AppDeps): BuiltApp {
@@ -100,8 +109,9 @@ export function createApp(deps: AppDeps): BuiltApp {
     }),
   )
   app.use(express.json({ limit: '1mb' }))
+  app.use('/api', compression()) // JSON answers over 1 KB; spreadsheets are zip files already and pass through
 
-  const { store, close: closeStore } = sessionStore(config)
+  const { store, close: closeStore } = createSessionStore(config)
   app.use(
     session({
       name: SESSION_COOKIE,
@@ -109,7 +119,7 @@ export function createApp(deps: AppDeps): BuiltApp {
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true, // the idle timeout restarts on every request
+      rolling: true, // the cookie's idle timeout restarts on every request; the row's at most once a minute (db/sessionStore.ts)
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -130,10 +140,8 @@ export function createApp(deps: AppDeps): BuiltApp {
   for (const { prefix, router } of buildRouters(ctx)) app.use('/api' + prefix, router)
   app.use('/api', apiNotFound)
 
-  if (existsSync(clientDist)) {
-    app.use(express.static(clientDist, { index: false, maxAge: '1h' }))
-    app.get('/{*splat}', (_req, res) => res.sendFile(path.join(clientDist, 'index.html'), { dotfiles: 'allow' }))
-  }
+  const dist = deps.clientDist ?? clientDist
+  if (existsSync(dist)) app.use(clientFiles(dist))
   app.use(errorMiddleware)
 
   return {

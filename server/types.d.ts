@@ -11,5 +11,7 @@ declare global {
 declare module 'express-session' {
   interface SessionData {
     signedInAt?: number
+    /** Written by passport: the signed-in user's id and session epoch. */
+    passport?: { user?: { id: number; epoch: number } }
   }
 }

@@ -1,7 +1,8 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
 
-const rolesTransformer = {
+/** Roles are stored as comma-separated text. */
+export const rolesTransformer = {
   to: (roles: Role[] | undefined) => (roles ?? []).join(','),
   from: (text: string | null) => (text ? (text.split(',') as Role[]) : []),
 }

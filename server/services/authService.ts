@@ -4,7 +4,8 @@ import passport from 'passport'
 import { Strategy as LocalStrategy } from 'passport-local'
 import type { DataSource } from 'typeorm'
 import type { SessionUser } from '../../shared/schemas/auth.js'
-import { User } from '../entities/User.js'
+import { rolesTransformer, User } from '../entities/User.js'
+import { sessionUserColumns, userReadWithSession, type SessionUserRow } from '../db/sessionStore.js'
 import { AppError } from '../errors.js'
 import { toSessionUser } from './userService.js'
 
@@ -14,6 +15,19 @@ const DUMMY_HASH = bcrypt.hashSync('lumenyard-no-such-user', 12)
 interface SessionRef {
   id: number
   epoch: number
+}
+
+async function userRowById(ds: DataSource, id: number | undefined): Promise<SessionUserRow | null> {
+  if (!id) return null
+  const [row] = await ds.query(`SELECT ${sessionUserColumns('u')} FROM users u WHERE u.id = ?`, [id])
+  return row ?? null
+}
+
+function sessionUserOf(row: SessionUserRow): SessionUser {
+  return toSessionUser({
+    id: row.id, username: row.username, displayName: row.display_name, roles: rolesTransformer.from(row.roles),
+    unitPreference: row.unit_preference, locale: row.locale,
+  } as User)
 }
 
 export function configurePassport(ds: DataSource): passport.PassportStatic {
@@ -34,12 +48,14 @@ export function configurePassport(ds: DataSource): passport.PassportStatic {
     const u = user as unknown as User
     done(null, { id: u.id, epoch: u.sessionEpoch } satisfies SessionRef)
   })
-  // Each request re-reads the user: a deactivated account or a bumped epoch ends the session.
-  pp.deserializeUser(async (ref: SessionRef, done) => {
+  // Each request checks the user's current row: a deactivated account or a bumped epoch ends the session.
+  // The session store reads that row in the same query as the session (server/db/sessionStore.ts).
+  pp.deserializeUser(async (req: Request, ref: SessionRef, done: (err: unknown, user?: SessionUser | false) => void) => {
     try {
-      const user = await ds.getRepository(User).findOneBy({ id: ref?.id })
-      if (!user || !user.active || user.sessionEpoch !== ref.epoch) return done(null, false)
-      done(null, toSessionUser(user))
+      const read = userReadWithSession(req.session?.passport)
+      const row = read !== undefined ? read : await userRowById(ds, ref?.id)
+      if (!row || !row.active || Number(row.session_epoch) !== ref.epoch) return done(null, false)
+      done(null, sessionUserOf(row))
     } catch (err) {
       done(err)
     }

@@ -2,6 +2,7 @@
 // code names (the screen classifies the scan with shared/barcode/scan.ts, this finds the records).
 import type { DataSource } from 'typeorm'
 import type { ItemOption, LookupAnswer, LookupQuery, Place } from '../../shared/schemas/stockViews.js'
+import { gtinForms } from '../../shared/barcode/checkDigit.js'
 import { containsPattern, prefixPattern } from '../db/likePattern.js'
 import { AppError } from '../errors.js'
 
@@ -35,11 +36,19 @@ export async function itemOptions(ds: DataSource, q: { q?: string; ids?: number[
   return rows.map(toItem)
 }
 
+/**
+ * The item a scanned GTIN or typed SKU names. GTINs match in any of their 8/12/13/14-digit forms, compared
+ * on the indexed column as stored (padding the column instead walked the whole index on every scan).
+ */
+export function itemLookupSql(kind: 'gtin' | 'sku', code: string): { sql: string; params: unknown[] } {
+  return kind === 'gtin'
+    ? { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.gtin IN (?)`, params: [gtinForms(code)] }
+    : { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.sku = ?`, params: [code] }
+}
+
 async function findItem(ds: DataSource, q: LookupQuery): Promise<ItemOption> {
-  // GTINs are compared as GTIN-14 (zero-padded), whatever length the catalog stored.
-  const rows: ItemSqlRow[] = q.kind === 'gtin'
-    ? await ds.query(`SELECT ${ITEM_COLUMNS} FROM items i WHERE LPAD(i.gtin, 14, '0') = LPAD(?, 14, '0')`, [q.code])
-    : await ds.query(`SELECT ${ITEM_COLUMNS} FROM items i WHERE i.sku = ?`, [q.code])
+  const { sql, params } = itemLookupSql(q.kind === 'gtin' ? 'gtin' : 'sku', q.code)
+  const rows: ItemSqlRow[] = await ds.query(sql, params)
   if (!rows.length) throw AppError.notFound(q.kind === 'gtin' ? `An item with GTIN ${q.code}` : `An item with SKU ${q.code}`)
   return toItem(rows[0])
 }

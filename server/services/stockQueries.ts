@@ -14,48 +14,57 @@ import { AppError } from '../errors.js'
 export const LEVELS_LIMIT = 5000
 
 
-/** The item-and-warehouse pairs to show: where stock was ever kept or a cost/minimum is set, or all. */
-function levelKeys(includeEmpty: boolean): string {
-  if (includeEmpty) {
-    return `SELECT i.id AS item_id, w.id AS warehouse_id FROM items i CROSS JOIN warehouses w
-             WHERE i.active = 1 AND i.made_to_order = 0 AND w.active = 1`
-  }
-  return `SELECT item_id, warehouse_id FROM stock_balances UNION SELECT item_id, warehouse_id FROM item_warehouses`
-}
-
 interface LevelSqlRow {
   item_id: number; sku: string; name: string; family: string; stock_unit: StockUnit
   warehouse_id: number; warehouse_code: string; on_hand: string; reserved: string; in_transit: string; min_qty: number | null
 }
 
-export async function stockLevels(ds: DataSource, q: LevelsQuery): Promise<StockLevelsAnswer> {
+/**
+ * The levels query. The item and warehouse filters go inside the aggregate, so its cost grows with the
+ * rows asked for, not with the balance table (grouping all balances first took 30 ms at 22,000 rows for
+ * one item). Without includeEmpty the pairs shown are those where stock was ever kept or a minimum or cost
+ * is set: the balances and item_warehouses rows, gathered in one UNION ALL and grouped once.
+ */
+export function levelsSql(q: LevelsQuery): { sql: string; params: unknown[] } {
   const text = containsPattern(q.q ?? '')
-  const where = new SqlWhere()
+  const itemConditions = (w: SqlWhere) => w
     .add('i.id = ?', [q.itemId], !!q.itemId)
-    .add('w.id = ?', [q.warehouseId], !!q.warehouseId)
     .add('i.family = ?', [q.family], !!q.family)
     .add('(i.sku LIKE ? OR i.name LIKE ? OR i.gtin LIKE ?)', [text, text, text], !!q.q)
+  const items = itemConditions(new SqlWhere())
+  const narrowed = (alias: string) => new SqlWhere()
+    .add(`${alias}.item_id = ?`, [q.itemId], !!q.itemId)
+    .add(`${alias}.item_id IN (SELECT i.id FROM items i ${items.sql()})`, items.params, !q.itemId && !!(q.family || q.q))
+    .add(`${alias}.warehouse_id = ?`, [q.warehouseId], !!q.warehouseId)
+  const inBalances = narrowed('b')
+  const inSettings = narrowed('x')
+  const totals = `
+    SELECT item_id, warehouse_id, SUM(on_hand) AS on_hand, SUM(reserved) AS reserved, SUM(in_transit) AS in_transit
+      FROM (SELECT b.item_id, b.warehouse_id, IF(bn.kind = 'transit', 0, b.on_hand) AS on_hand,
+                   IF(bn.kind = 'transit', 0, b.reserved) AS reserved, IF(bn.kind = 'transit', b.on_hand, 0) AS in_transit
+              FROM stock_balances b JOIN bins bn ON bn.id = b.bin_id ${inBalances.sql()}
+            ${q.includeEmpty ? '' : `UNION ALL SELECT x.item_id, x.warehouse_id, 0, 0, 0 FROM item_warehouses x ${inSettings.sql()}`}) u
+     GROUP BY item_id, warehouse_id`
+  const where = itemConditions(new SqlWhere())
+    .add('w.id = ?', [q.warehouseId], !!q.warehouseId)
     .add('iw.min_qty IS NOT NULL AND COALESCE(s.on_hand, 0) - COALESCE(s.reserved, 0) < iw.min_qty', [], q.lowOnly)
-  const rows: LevelSqlRow[] = await ds.query(
-    `SELECT i.id AS item_id, i.sku, i.name, i.family, i.stock_unit, w.id AS warehouse_id, w.code AS warehouse_code,
+  const from = q.includeEmpty
+    ? `items i CROSS JOIN warehouses w LEFT JOIN (${totals}) s ON s.item_id = i.id AND s.warehouse_id = w.id`
+    : `(${totals}) s JOIN items i ON i.id = s.item_id JOIN warehouses w ON w.id = s.warehouse_id`
+  if (q.includeEmpty) where.add('i.active = 1 AND i.made_to_order = 0 AND w.active = 1')
+  const sql = `SELECT i.id AS item_id, i.sku, i.name, i.family, i.stock_unit, w.id AS warehouse_id, w.code AS warehouse_code,
             COALESCE(s.on_hand, 0) AS on_hand, COALESCE(s.reserved, 0) AS reserved, COALESCE(s.in_transit, 0) AS in_transit, iw.min_qty
-       FROM (${levelKeys(q.includeEmpty)}) k
-       JOIN items i ON i.id = k.item_id
-       JOIN warehouses w ON w.id = k.warehouse_id
-       LEFT JOIN (
-         SELECT b.item_id, b.warehouse_id,
-                SUM(IF(bn.kind = 'transit', 0, b.on_hand)) AS on_hand,
-                SUM(IF(bn.kind = 'transit', 0, b.reserved)) AS reserved,
-                SUM(IF(bn.kind = 'transit', b.on_hand, 0)) AS in_transit
-           FROM stock_balances b JOIN bins bn ON bn.id = b.bin_id
-          GROUP BY b.item_id, b.warehouse_id
-       ) s ON s.item_id = k.item_id AND s.warehouse_id = k.warehouse_id
-       LEFT JOIN item_warehouses iw ON iw.item_id = k.item_id AND iw.warehouse_id = k.warehouse_id
+       FROM ${from}
+       LEFT JOIN item_warehouses iw ON iw.item_id = i.id AND iw.warehouse_id = w.id
       ${where.sql()}
       ORDER BY i.sku, w.code
-      LIMIT ${LEVELS_LIMIT + 1}`,
-    where.params,
-  )
+      LIMIT ${LEVELS_LIMIT + 1}`
+  return { sql, params: [...inBalances.params, ...(q.includeEmpty ? [] : inSettings.params), ...where.params] }
+}
+
+export async function stockLevels(ds: DataSource, q: LevelsQuery): Promise<StockLevelsAnswer> {
+  const { sql, params } = levelsSql(q)
+  const rows: LevelSqlRow[] = await ds.query(sql, params)
   return { rows: rows.slice(0, LEVELS_LIMIT).map(toLevelRow), truncated: rows.length > LEVELS_LIMIT }
 }
 

@@ -62,3 +62,14 @@ export function normalizeGtin(code: string): GtinNormalization {
   if (!check.ok) return check
   return { ok: true, gtin14: code.padStart(14, '0') }
 }
+
+/**
+ * Every form a GTIN can be written in: GTIN-8, -12 and -13 are the same number right-justified in 14 digits
+ * with leading zeros, so 036000291452 is also 0036000291452 and 00036000291452. Looking a stored GTIN up
+ * with `gtin IN (these forms)` uses the column's index whatever length was stored.
+ */
+export function gtinForms(code: string): string[] {
+  if (!/^\d{1,14}$/.test(code)) return [code]
+  const gtin14 = code.padStart(14, '0')
+  return [14, 13, 12, 8].filter((len) => /^0*$/.test(gtin14.slice(0, 14 - len))).map((len) => gtin14.slice(14 - len))
+}

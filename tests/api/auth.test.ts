@@ -119,6 +119,48 @@ describe('sign-in', () => {
   })
 })
 
+describe('session timeouts without a write on every read', () => {
+  // The session row's expiry is the idle timeout; it is pushed forward at most once a minute (server/db/sessionStore.ts).
+  const sidOf = (cookie: string) => decodeURIComponent(cookie.split('=')[1]).slice(2).split('.')[0]
+  const expiresOf = async (sid: string) => Number((await h.ds.query('SELECT expires FROM sessions WHERE session_id = ?', [sid]))[0].expires)
+
+  async function signedIn(name: string) {
+    await h.user(name, ['viewer'])
+    const agent = h.agent()
+    const res = await agent.post('/api/session').set(CSRF).send({ username: name, password: TEST_PASSWORD })
+    return { agent, sid: sidOf(sessionCookie(res)!) }
+  }
+
+  it('does not write the session row on reads within a minute of the last write', async () => {
+    const { agent, sid } = await signedIn('auth-touch')
+    const written = (await expiresOf(sid)) - 30 // as if written half a minute ago
+    await h.ds.query('UPDATE sessions SET expires = ? WHERE session_id = ?', [written, sid])
+    for (let i = 0; i < 3; i++) expect((await agent.get('/api/profile')).status).toBe(200)
+    expect(await expiresOf(sid)).toBe(written)
+  })
+
+  it('pushes the idle timeout forward on a read once the last write is over a minute old', async () => {
+    const { agent, sid } = await signedIn('auth-touch-old')
+    const twoMinutesAgo = (await expiresOf(sid)) - 120
+    await h.ds.query('UPDATE sessions SET expires = ? WHERE session_id = ?', [twoMinutesAgo, sid])
+    expect((await agent.get('/api/profile')).status).toBe(200)
+    expect(await expiresOf(sid)).toBeGreaterThanOrEqual(twoMinutesAgo + 115)
+  })
+
+  it('ends a session idle past its timeout (ASVS 7.3.1)', async () => {
+    const { agent, sid } = await signedIn('auth-idle')
+    await h.ds.query('UPDATE sessions SET expires = UNIX_TIMESTAMP() - 1 WHERE session_id = ?', [sid])
+    expect((await agent.get('/api/profile')).status).toBe(401)
+  })
+
+  it('ends a session past its absolute lifetime even while in use (ASVS 7.3.2)', async () => {
+    const { agent, sid } = await signedIn('auth-absolute')
+    const longAgo = Date.now() - 13 * 3_600_000 // the default absolute timeout is 12 hours
+    await h.ds.query("UPDATE sessions SET data = JSON_SET(data, '$.signedInAt', ?) WHERE session_id = ?", [longAgo, sid])
+    expect((await agent.get('/api/profile')).status).toBe(401)
+  })
+})
+
 describe('CSRF', () => {
   it('refuses a state-changing request without the app header', async () => {
     const res = await h.agent().post('/api/session').send({ username: 'x', password: 'y' })

@@ -298,6 +298,12 @@ describe('what the forms pick from', () => {
     const byGtin = await crew.get('/api/stock/lookup').query({ kind: 'gtin', code: '0' + gtin13 })
     expect(byGtin.status).toBe(200)
     expect(byGtin.body.item.id).toBe(itemId)
+    expect((await crew.get('/api/stock/lookup').query({ kind: 'gtin', code: gtin13 })).body.item.id).toBe(itemId)
+    // The other way round: stored as GTIN-14 (as the catalog form stores it), scanned from an EAN-13 symbol.
+    const stored14 = '0' + withCheckDigit(`21${String(parseInt(fx.tag, 16)).padStart(10, '0').slice(-10)}`)
+    const item14 = await createItem(h.ds, `GU-${fx.tag}`, { gtin: stored14 })
+    expect((await crew.get('/api/stock/lookup').query({ kind: 'gtin', code: stored14.slice(1) })).body.item.id).toBe(item14)
+    expect((await crew.get('/api/stock/lookup').query({ kind: 'gtin', code: '1' + stored14.slice(1) })).status).toBe(404)
     const lot = await crew.get('/api/stock/lookup').query({ kind: 'sku', code: fx.sku, lotCode: fx.lotCode })
     expect(lot.body).toMatchObject({ item: { id: fx.itemId }, lot: { id: fx.lotId } })
     const bin = await crew.get('/api/stock/lookup').query({ kind: 'bin', code: 'A-01-2', warehouseId: fx.warehouses[0].id })

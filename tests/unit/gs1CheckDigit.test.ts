@@ -3,7 +3,7 @@ import bwipjs from 'bwip-js'
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
-  gtinCheckDigit, isValidGtin, isValidSscc, normalizeGtin, withCheckDigit,
+  gtinCheckDigit, gtinForms, isValidGtin, isValidSscc, normalizeGtin, withCheckDigit,
 } from '../../shared/barcode/checkDigit.js'
 
 /** True when bwip-js (which checks GS1 check digits itself) accepts the text for that symbology. */
@@ -85,6 +85,18 @@ describe('withCheckDigit and normalizeGtin', () => {
     expect(normalizeGtin('012345000058')).toEqual({ ok: true, gtin14: '00012345000058' })
     expect(normalizeGtin('9506000134352')).toEqual({ ok: true, gtin14: '09506000134352' })
     expect(normalizeGtin('09506000134352')).toEqual({ ok: true, gtin14: '09506000134352' })
+  })
+
+  it('lists every stored form a scanned GTIN may match (GTIN-8/12/13 right-justified in 14 digits with zeros)', () => {
+    // source: GS1 General Specifications, GTIN data structures: shorter GTINs are right-justified in a 14-digit field (from memory);
+    // the codes are the bwip-js barcode.ps EAN-8, UPC-A and EAN-13 EXAM lines (read)
+    expect(gtinForms('95200002')).toEqual(['00000095200002', '0000095200002', '000095200002', '95200002'])
+    expect(gtinForms('00000095200002')).toEqual(['00000095200002', '0000095200002', '000095200002', '95200002'])
+    expect(gtinForms('012345000058')).toEqual(['00012345000058', '0012345000058', '012345000058'])
+    expect(gtinForms('9506000134352')).toEqual(['09506000134352', '9506000134352'])
+    expect(gtinForms('24012345678905')).toEqual(['24012345678905'])
+    // not digits: looked up as typed, so it finds nothing rather than everything
+    expect(gtinForms('95-200002')).toEqual(['95-200002'])
   })
 
   it('refuses to normalise an invalid GTIN and says why', () => {

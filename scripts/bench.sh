@@ -1,9 +1,10 @@
 #!/usr/bin/env bash
-# npm run bench: the reorder suggestion list against a hand-written SQL aggregate over 1,000,000 ledger moves,
-# on a separate database (lumenyard_bench) of the test MariaDB instance. Not part of npm test.
+# npm run bench: Lumenyard side by side with its floor (scripts/bench/), on the demo data and on 5,000 items ×
+# 20,000 balances × 1,000,000 moves, in databases of their own on the test MariaDB instance. Not part of npm test.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 source scripts/bootstrap.sh
 need_database_server
+need_debian chromium chromium
 need_node_modules
-exec $TSX scripts/benchReorder.ts "$@"
+exec $TSX scripts/bench/run.ts "$@"

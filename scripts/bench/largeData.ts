@@ -1,11 +1,13 @@
-// Invented bench data, generated fast: 5,000 items × 3 warehouses and 1,000,000 ledger moves over a year,
+// Invented bench data, generated fast: 5,000 items × 3 warehouses, 20,000 balances (every item in each
+// warehouse's first bin, and a second bin in the first warehouse) and 1,000,000 ledger moves over a year,
 // written as multi-row INSERTs of 5,000 rows with numbers inlined (no escaping needed) on a few connections.
 // Item popularity is skewed (a few fast movers, a long tail) so the ABC classes and statuses are realistic.
 import { randomUUID } from 'node:crypto'
 import type { DataSource } from 'typeorm'
-import { ITEM_FAMILIES } from '../shared/catalog.js'
+import { withCheckDigit } from '../../shared/barcode/checkDigit.js'
+import { ITEM_FAMILIES } from '../../shared/catalog.js'
 
-export const BENCH = { items: 5000, warehouses: 3, vendors: 60, moves: 1_000_000, days: 365, chunk: 5000, writers: 3 }
+export const BENCH = { items: 5000, warehouses: 3, balances: 20_000, vendors: 60, moves: 1_000_000, days: 365, chunk: 5000, writers: 3 }
 const DAY_MS = 86_400_000
 
 /** Small seeded generator (mulberry32) so every bench run builds the same data. */
@@ -32,19 +34,21 @@ async function inChunks(ds: DataSource, table: string, columns: string, rows: st
 
 async function catalog(ds: DataSource, random: () => number): Promise<void> {
   await inChunks(ds, 'warehouses', 'id, code, name', [1, 2, 3].map((i) => `(${i}, 'BW${i}', 'Bench yard ${i}')`))
-  await inChunks(ds, 'bins', 'id, warehouse_id, code', [1, 2, 3].map((i) => `(${i}, ${i}, 'A-01-1')`))
+  await inChunks(ds, 'bins', 'id, warehouse_id, code', [...[1, 2, 3].map((i) => `(${i}, ${i}, 'A-01-1')`), `(4, 1, 'A-01-2')`])
   await inChunks(ds, 'vendors', 'id, code, name, lead_time_days',
     Array.from({ length: BENCH.vendors }, (_, v) => `(${v + 1}, 'BV${v + 1}', 'Bench vendor ${v + 1}', ${7 + (v % 4) * 7})`))
   const items: string[] = []
   const vendorItems: string[] = []
   for (let i = 1; i <= BENCH.items; i++) {
     const cost = (0.5 + random() * 60).toFixed(4)
-    items.push(`(${i}, 'BI-${i}', 'Bench item ${i}', '${ITEM_FAMILIES[i % 7]}', 'each', ${cost})`)
+    // GTIN-13s in the restricted-circulation prefix 20, stored as GTIN-14 as the catalog form stores them.
+    const gtin = '0' + withCheckDigit(`20${String(i).padStart(10, '0')}`)
+    items.push(`(${i}, 'BI-${i}', 'Bench item ${i}', '${ITEM_FAMILIES[i % 7]}', 'each', ${cost}, '${gtin}')`)
     const pack = [1, 6, 12, 24, 48][i % 5]
     vendorItems.push(`(${1 + (i % BENCH.vendors)}, ${i}, 'V${i}', ${pack}, ${pack * (1 + (i % 3))}, ${cost}, ${i % 4 === 0 ? 'NULL' : 5 + (i % 20)}, 1)`)
     if (i % 3 === 0) vendorItems.push(`(${1 + ((i + 7) % BENCH.vendors)}, ${i}, 'W${i}', 1, 1, ${(Number(cost) * 1.1).toFixed(4)}, 30, 0)`)
   }
-  await inChunks(ds, 'items', 'id, sku, name, family, stock_unit, cost', items)
+  await inChunks(ds, 'items', 'id, sku, name, family, stock_unit, cost, gtin', items)
   await inChunks(ds, 'vendor_items', 'vendor_id, item_id, vendor_sku, pack_qty, min_order_qty, unit_cost, lead_time_days, preferred', vendorItems)
 }
 
@@ -58,6 +62,7 @@ async function positions(ds: DataSource, random: () => number): Promise<void> {
       balances.push(`(${i}, ${w}, ${w}, ${onHand}, ${Math.floor(onHand * random() * 0.2)})`)
       costs.push(`(${i}, ${w}, ${(0.5 + random() * 60).toFixed(4)})`)
     }
+    balances.push(`(${i}, 1, 4, ${Math.floor(random() * 100)}, 0)`)
   }
   await inChunks(ds, 'stock_balances', 'item_id, warehouse_id, bin_id, on_hand, reserved', balances)
   await inChunks(ds, 'item_warehouses', 'item_id, warehouse_id, avg_cost', costs)

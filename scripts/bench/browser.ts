@@ -1,0 +1,49 @@
+// What a person waits for in Chromium (Debian's /usr/bin/chromium through playwright-core): the first rows
+// of a grid from a cold start (a fresh browser context, so nothing cached), and the JavaScript a page loads.
+import { gzipSync } from 'node:zlib'
+import { chromium, type Browser } from 'playwright-core'
+
+export function launchChromium(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+  })
+}
+
+/** Milliseconds from the start of navigation to the first frame with grid rows on screen. */
+export async function firstGridRows(browser: Browser, url: string, cookie?: string): Promise<number> {
+  const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
+  try {
+    if (cookie) {
+      const [name, value] = cookie.split('=')
+      await context.addCookies([{ name, value, url }])
+    }
+    const page = await context.newPage()
+    await page.goto(url, { waitUntil: 'commit' })
+    const at = await page.waitForFunction(
+      () => (document.querySelector('.ag-center-cols-container .ag-row .ag-cell') ? performance.now() : false),
+      null,
+      { polling: 'raf', timeout: 60_000 },
+    )
+    return Number(await at.jsonValue())
+  } finally {
+    await context.close()
+  }
+}
+
+/** The JavaScript a page loads until the network is quiet, each file gzipped at level 9 (how most servers send it). */
+export async function pageScripts(browser: Browser, url: string): Promise<{ files: number; bytes: number; gzipBytes: number }> {
+  const context = await browser.newContext()
+  try {
+    const page = await context.newPage()
+    const bodies: Promise<Buffer>[] = []
+    page.on('response', (res) => {
+      if (res.request().resourceType() === 'script') bodies.push(res.body())
+    })
+    await page.goto(url, { waitUntil: 'networkidle' })
+    const all = await Promise.all(bodies)
+    return { files: all.length, bytes: all.reduce((s, b) => s + b.length, 0), gzipBytes: all.reduce((s, b) => s + gzipSync(b, { level: 9 }).length, 0) }
+  } finally {
+    await context.close()
+  }
+}

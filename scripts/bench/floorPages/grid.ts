@@ -1,0 +1,4 @@
+import { createApp } from 'vue'
+import Grid from './FloorGrid.vue'
+
+createApp(Grid).mount('#app')

@@ -1,0 +1,10 @@
+// Lumenyard for a benchmark: the production start (no demo loading, migrations already run), its
+// address sent to the parent process. Stops on SIGTERM.
+import { loadConfig } from '../../server/config.js'
+import { startServer } from '../../server/main.js'
+
+const running = await startServer(loadConfig(process.env))
+process.send?.({ url: running.url })
+process.once('SIGTERM', () => {
+  running.close().finally(() => process.exit(0))
+})

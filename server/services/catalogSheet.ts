@@ -66,6 +66,7 @@ export function itemSheetColumns<Row extends Partial<Record<keyof ItemFields, un
     width: c.width,
     kind: cellKind(c),
     places: c.places,
+    cost: c.key === 'cost',
     value: (row: Row) => row[c.key] as string | number | boolean | null | undefined,
   }))
 }

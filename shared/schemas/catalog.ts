@@ -154,8 +154,8 @@ export interface ItemRow {
   gtin: string | null
   caseQty: number | null
   palletQty: number | null
-  /** Null for roles that do not see costs (see server/services/purchasing/costVisibility.ts). */
-  cost: string | null
+  /** Absent for roles that do not see costs (server/services/costVisibility.ts). */
+  cost?: string
   listPrice: string
   active: boolean
   madeToOrder: boolean
@@ -177,8 +177,8 @@ export type ItemRecord = Required<{ [K in keyof ItemFields]: Exclude<ItemFields[
   updatedAt: string
 }
 
-/** An item as a reader sees it: the standard cost is null for roles that do not see costs. */
-export type ItemRecordView = Omit<ItemRecord, 'cost'> & { cost: string | null }
+/** An item as a reader sees it: the standard cost is absent for roles that do not see costs. */
+export type ItemRecordView = Omit<ItemRecord, 'cost'> & { cost?: string }
 
 export interface ItemWarehouseStock {
   warehouseId: number
@@ -186,7 +186,8 @@ export interface ItemWarehouseStock {
   warehouseName: string
   onHand: number
   reserved: number
-  avgCost: string | null
+  /** Null before the first receipt; absent for roles that do not see costs. */
+  avgCost?: string | null
   minQty: number | null
 }
 
@@ -211,7 +212,7 @@ export interface ItemVendorSource {
   vendorSku: string
   packQty: number
   minOrderQty: number
-  unitCost: string | null
+  unitCost?: string
   leadTimeDays: number | null
   preferred: boolean
 }

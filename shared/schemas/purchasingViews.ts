@@ -1,5 +1,5 @@
 // What the purchasing API answers. Money is decimal text; cost fields are absent (not null) for users
-// who may not see costs, so a client can't show what the server never sent.
+// who may not see costs (server/services/costVisibility.ts), so a client can't show what the server never sent.
 import type { PoStatus } from './purchasing.js'
 
 export interface VendorView {
@@ -90,7 +90,7 @@ export interface PoSummary {
   expectedDate: string | null
   createdAt: string
   lineCount: number
-  total?: string
+  orderTotal?: string
 }
 
 export interface OutboxSummary {
@@ -118,7 +118,6 @@ export interface PoDetail extends PoSummary {
   sendError: string | null
   closeReason: string | null
   cancelReason: string | null
-  costsVisible: boolean
   timeline: PoTimelineEntry[]
   lines: PoLineView[]
   messages: Omit<OutboxSummary, 'bodyText'>[]

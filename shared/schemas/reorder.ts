@@ -253,9 +253,9 @@ export interface AbcParetoItem {
 export interface AbcPareto {
   window: UsageWindow
   cutoffs: { a: number; b: number }
-  total: Money
+  annualValueTotal: Money
   items: AbcParetoItem[]
-  summary: Record<AbcClass, { count: number; value: Money; shareOfItems: number; shareOfValue: number }>
+  summary: Record<AbcClass, { count: number; annualValue: Money; shareOfItems: number; shareOfValue: number }>
 }
 
 export interface ReorderChoices {

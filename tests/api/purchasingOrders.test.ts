@@ -110,7 +110,7 @@ describe('money', () => {
     const po = await manualPo([{ itemId: f.sealant.id, packsOrdered: 7, unitCost: '1.2345' }, { itemId: f.block.id, packsOrdered: 3, unitCost: '0.3333' }])
     // the block's pack is 24: 3 packs × 24 = 72 units × 0.3333 = 23.9976 → 24.00; sealant pack 12: 84 × 1.2345 = 103.698 → 103.70
     expect(po.lines.map((l) => [l.qtyOrdered, l.unitCost, l.lineTotal])).toEqual([[84, '1.2345', '103.70'], [72, '0.3333', '24.00']])
-    expect(po.total).toBe('127.70')
+    expect(po.orderTotal).toBe('127.70')
     const [row] = await h.ds.query('SELECT total FROM purchase_orders WHERE id = ?', [po.id])
     expect(row.total).toBe('127.70')
   })
@@ -124,7 +124,7 @@ describe('the status life of a PO', () => {
     expect(edited.status).toBe(200)
     expect(edited.body).toMatchObject({ expectedDate: '2031-05-04', notes: 'Call before delivery' })
     expect(edited.body.lines[0]).toMatchObject({ packsOrdered: 4, qtyOrdered: 48, lineTotal: '300.00' }) // 48 × 6.25
-    expect(edited.body.total).toBe('300.00')
+    expect(edited.body.orderTotal).toBe('300.00')
 
     const warehouse = await h.as('warehouse')
     expect((await warehouse.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(403)
@@ -153,7 +153,7 @@ describe('the status life of a PO', () => {
     const sealantLine = po.lines.find((l) => l.itemId === f.sealant.id)!
     const removed = await buyer.delete(`/api/purchase-orders/${po.id}/lines/${sealantLine.id}`).set(CSRF)
     expect(removed.body.lines).toHaveLength(1)
-    expect(removed.body.total).toBe('120.00') // 48 × 2.50 (minimum 48)
+    expect(removed.body.orderTotal).toBe('120.00') // 48 × 2.50 (minimum 48)
     const [back] = await h.ds.query('SELECT status, po_line_id FROM purchase_suggestions WHERE id = ?', [s2])
     expect(back).toEqual({ status: 'accepted', po_line_id: null })
     await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)
@@ -182,13 +182,12 @@ describe('costs by role', () => {
     const warehouse = await h.as('warehouse')
     const hidden = await warehouse.get(`/api/purchase-orders/${po.id}`)
     expect(hidden.status).toBe(200)
-    expect(hidden.body.costsVisible).toBe(false)
-    expect(hidden.body).not.toHaveProperty('total')
+    expect(hidden.body).not.toHaveProperty('orderTotal')
     expect(hidden.body.lines[0]).not.toHaveProperty('unitCost')
     expect(hidden.body.lines[0]).not.toHaveProperty('lineTotal')
     expect(JSON.stringify(hidden.body)).not.toContain('7.7777')
     const list = await warehouse.get('/api/purchase-orders')
-    expect(list.body.every((p: object) => !('total' in p))).toBe(true)
+    expect(list.body.every((p: object) => !('orderTotal' in p))).toBe(true)
     expect((await warehouse.get(`/api/purchase-orders/${po.id}/export`)).status).toBe(403)
     expect((await (await h.as('counter')).get(`/api/purchase-orders/${po.id}`)).status).toBe(403)
 
@@ -199,7 +198,7 @@ describe('costs by role', () => {
     try {
       const shown = await warehouse.get(`/api/purchase-orders/${po.id}`)
       expect(shown.body.lines[0].unitCost).toBe('7.7777')
-      expect(shown.body.total).toBe('93.33') // 12 × 7.7777 = 93.3324 → 93.33
+      expect(shown.body.orderTotal).toBe('93.33') // 12 × 7.7777 = 93.3324 → 93.33
     } finally {
       await admin.patch('/api/purchasing/settings').set(CSRF).send({ warehouseSeesCosts: false })
     }

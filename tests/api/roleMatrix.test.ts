@@ -6,6 +6,8 @@ import type supertest from 'supertest'
 import { ROLES, type Role } from '../../shared/roles.js'
 import { routeTable } from '../../server/http/routeTable.js'
 import { CSRF, TEST_PASSWORD, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { createPurchasingFixture, suggestion } from '../support/purchasingFixtures.js'
+import { download, loadWorkbook, workbookTexts } from '../support/downloads.js'
 import { designedAccess } from './roleMatrix.js'
 
 let h: ApiHarness
@@ -64,10 +66,85 @@ describe('role matrix', () => {
           }
           if (!allowed && res.status !== 403) failures.push(`${key(route)} as ${role}: ${res.status}, want 403`)
           if (res.status >= 500) failures.push(`${key(route)} as ${role}: server error ${res.status}`)
+          if (!COST_ROLES.includes(role) && costKeysIn(res.body).length) failures.push(`${key(route)} as ${role}: answered a cost`)
         }),
       ])
     }
     expect(failures).toEqual([])
+  })
+})
+
+// The cost rule as DEVELOPERS.md states it ("Who sees costs"): buyers and admins always, the warehouse
+// crew only while the admin setting allows it, counter and viewer never. The names below are the API's
+// documented cost fields and export headers, written out here rather than taken from the server.
+const COST_ROLES: readonly Role[] = ['admin', 'buyer']
+const COST_KEYS = ['cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder']
+const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total']
+
+function costKeysIn(body: unknown, found: string[] = []): string[] {
+  if (Array.isArray(body)) for (const v of body) costKeysIn(v, found)
+  else if (body && typeof body === 'object' && !Buffer.isBuffer(body)) {
+    for (const [k, v] of Object.entries(body)) {
+      if (COST_KEYS.includes(k)) found.push(k)
+      costKeysIn(v, found)
+    }
+  }
+  return found
+}
+
+/** The costs an answer carries: cost fields of JSON, cost headers of a workbook. */
+async function costsAnswered(agent: supertest.Agent, path: string): Promise<{ status: number; costs: string[] }> {
+  if (/export|\.xlsx/.test(path)) {
+    const res = await download(agent, path)
+    if (res.status !== 200) return { status: res.status, costs: [] }
+    return { status: 200, costs: workbookTexts(await loadWorkbook(res.body as Buffer)).filter((t) => COST_HEADERS.includes(t)) }
+  }
+  const res = await agent.get(path)
+  return { status: res.status, costs: costKeysIn(res.body) }
+}
+
+describe('cost visibility', () => {
+  it('answers costs on every route that has them to exactly the roles the cost rule allows', { timeout: 120_000 }, async () => {
+    // One received order: an item with a standard cost, a vendor price, a PO with totals, a ledger
+    // receipt at cost and a moving average; and an accepted suggestion with the vendor's price.
+    const f = await createPurchasingFixture(h.ds)
+    const admin = await h.as('admin')
+    const created = await admin.post('/api/purchase-orders').set(CSRF)
+      .send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 2 }] })
+    expect(created.status).toBe(201)
+    const po = created.body as { id: number; number: string; lines: { id: number }[] }
+    expect((await admin.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(200)
+    expect((await admin.post(`/api/purchase-orders/${po.id}/mark-sent`).set(CSRF)).status).toBe(200)
+    const received = await admin.post(`/api/purchase-orders/${po.id}/receipts`).set(CSRF)
+      .send({ lines: [{ poLineId: po.lines[0].id, binId: f.warehouse.bins.a1, qty: 12 }] })
+    expect(received.status).toBe(201)
+    await suggestion(h.ds, { itemId: f.block.id, warehouseId: f.warehouse.id, vendorId: f.vendorA, qty: 48 })
+    const fill = (t: string) => t.replace('{item}', String(f.sealant.id)).replace('{sku}', encodeURIComponent(f.sealant.sku))
+      .replace('{warehouse}', String(f.warehouse.id)).replace('{vendor}', String(f.vendorA)).replace('{poNumber}', po.number).replace('{po}', String(po.id))
+
+    const rows = Object.entries(designedAccess).filter(([, row]) => row.costs)
+    expect(rows.length).toBeGreaterThanOrEqual(12)
+    const check = async (roles: readonly Role[], seen: (role: Role) => boolean) => {
+      const failures: string[] = []
+      for (const [name, row] of rows) {
+        for (const role of roles) {
+          if (row.access === 'public' || !row.access.includes(role)) continue
+          const { status, costs } = await costsAnswered(await h.as(role), fill(row.costs!))
+          if (status !== 200) failures.push(`${name} as ${role}: ${status}`)
+          else if (seen(role) && !costs.length) failures.push(`${name} as ${role}: no cost answered, want costs`)
+          else if (!seen(role) && costs.length) failures.push(`${name} as ${role}: answered ${costs.join(', ')}`)
+        }
+      }
+      expect(failures).toEqual([])
+    }
+    await check(ROLES as readonly Role[], (role) => COST_ROLES.includes(role))
+    // The admin lets the warehouse crew see costs: now they do, and nobody else changes.
+    expect((await admin.patch('/api/purchasing/settings').set(CSRF).send({ warehouseSeesCosts: true })).status).toBe(200)
+    try {
+      await check(['warehouse', 'viewer'], (role) => role === 'warehouse')
+    } finally {
+      await admin.patch('/api/purchasing/settings').set(CSRF).send({ warehouseSeesCosts: false })
+    }
   })
 })
 

@@ -12,6 +12,12 @@ export interface MatrixRow {
   freshSession?: boolean
   /** A query string that keeps a heavy read small (the matrix checks access, not the data). */
   query?: string
+  /**
+   * The route can answer with a cost: a real request for it (placeholders filled from the cost
+   * fixture: {item}, {sku}, {warehouse}, {vendor}, {po}, {poNumber}). The cost test calls it as every
+   * role allowed and asserts costs reach exactly the roles the cost rule allows.
+   */
+  costs?: string
 }
 
 export const designedAccess: Record<string, MatrixRow> = {
@@ -28,12 +34,12 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/users/:id/password': { access: ['admin'] },
   // Catalog (items, lots, import/export) and warehouses with bins: everyone signed in reads; the admin
   // keeps the catalog and sets up warehouses; the warehouse crew may note a lot's tint.
-  'GET /api/items': { access: EVERYONE },
-  'GET /api/items/export.xlsx': { access: EVERYONE },
+  'GET /api/items': { access: EVERYONE, costs: '/api/items?q={sku}' },
+  'GET /api/items/export.xlsx': { access: EVERYONE, costs: '/api/items/export.xlsx?q={sku}' },
   'GET /api/items/import/template.xlsx': { access: ['admin'] },
   'POST /api/items/import/preview': { access: ['admin'] },
   'POST /api/items/import/commit': { access: ['admin'] },
-  'GET /api/items/:id': { access: EVERYONE },
+  'GET /api/items/:id': { access: EVERYONE, costs: '/api/items/{item}' },
   'POST /api/items': { access: ['admin'] },
   'PATCH /api/items/:id': { access: ['admin'] },
   'POST /api/items/:id/deactivate': { access: ['admin'] },
@@ -58,8 +64,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/stock/levels': { access: EVERYONE },
   'GET /api/stock/bin-contents': { access: EVERYONE },
   'GET /api/stock/lot-levels': { access: EVERYONE },
-  'GET /api/stock/ledger': { access: EVERYONE, query: 'itemId=999999999' },
-  'GET /api/stock/ledger/export': { access: EVERYONE, query: 'itemId=999999999' },
+  'GET /api/stock/ledger': { access: EVERYONE, query: 'itemId=999999999', costs: '/api/stock/ledger?itemId={item}' },
+  'GET /api/stock/ledger/export': { access: EVERYONE, query: 'itemId=999999999', costs: '/api/stock/ledger/export?itemId={item}' },
   'GET /api/stock/transfers': { access: EVERYONE },
   'GET /api/stock/minimums': { access: EVERYONE },
   'PUT /api/stock/minimums/:itemId/:warehouseId': { access: ['admin', 'warehouse', 'buyer'] },
@@ -100,7 +106,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   // Reorder suggestions and policies: buyer and admin (the lines show costs and usage values).
   'GET /api/reorder/suggestions': { access: ['admin', 'buyer'] },
   'GET /api/reorder/choices': { access: ['admin', 'buyer'] },
-  'GET /api/reorder/lines/:itemId/:warehouseId': { access: ['admin', 'buyer'] },
+  'GET /api/reorder/lines/:itemId/:warehouseId': { access: ['admin', 'buyer'], costs: '/api/reorder/lines/{item}/{warehouse}' },
   'GET /api/reorder/abc': { access: ['admin', 'buyer'] },
   'POST /api/reorder/accept': { access: ['admin', 'buyer'] },
   'GET /api/reorder/policies': { access: ['admin', 'buyer'] },
@@ -124,22 +130,22 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/vendors': { access: ['admin', 'buyer'] },
   'GET /api/vendors/:id': { access: ['admin', 'buyer'] },
   'PATCH /api/vendors/:id': { access: ['admin', 'buyer'] },
-  'GET /api/vendors/:id/items': { access: ['admin', 'buyer'] },
+  'GET /api/vendors/:id/items': { access: ['admin', 'buyer'], costs: '/api/vendors/{vendor}/items' },
   'POST /api/vendors/:id/items': { access: ['admin', 'buyer'] },
   'PATCH /api/vendors/:id/items/:itemId': { access: ['admin', 'buyer'] },
   'DELETE /api/vendors/:id/items/:itemId': { access: ['admin', 'buyer'] },
   'GET /api/vendors/price-list/template': { access: ['admin', 'buyer'] },
   'POST /api/vendors/:id/price-list/preview': { access: ['admin', 'buyer'] },
   'POST /api/vendors/:id/price-list/commit': { access: ['admin', 'buyer'] },
-  'GET /api/purchase-orders': { access: ['admin', 'buyer', 'warehouse'] },
-  'GET /api/purchase-orders/suggestions': { access: ['admin', 'buyer'] },
+  'GET /api/purchase-orders': { access: ['admin', 'buyer', 'warehouse'], costs: '/api/purchase-orders?q={poNumber}' },
+  'GET /api/purchase-orders/suggestions': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/suggestions' },
   'GET /api/purchase-orders/special-orders': { access: ['admin', 'buyer'] },
-  'GET /api/purchase-orders/export': { access: ['admin', 'buyer'] },
+  'GET /api/purchase-orders/export': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/export?ids={po}' },
   'POST /api/purchase-orders': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/from-suggestions': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/from-job': { access: ['admin', 'buyer'] },
-  'GET /api/purchase-orders/:id': { access: ['admin', 'buyer', 'warehouse'] },
-  'GET /api/purchase-orders/:id/export': { access: ['admin', 'buyer'] },
+  'GET /api/purchase-orders/:id': { access: ['admin', 'buyer', 'warehouse'], costs: '/api/purchase-orders/{po}' },
+  'GET /api/purchase-orders/:id/export': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/{po}/export' },
   'PATCH /api/purchase-orders/:id': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/:id/lines': { access: ['admin', 'buyer'] },
   'DELETE /api/purchase-orders/:id/lines/:lineId': { access: ['admin', 'buyer'] },
@@ -148,7 +154,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/purchase-orders/:id/cancel': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/:id/close': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/:id/send': { access: ['admin', 'buyer'] },
-  'GET /api/purchase-orders/:id/receiving': { access: ['admin', 'warehouse'] },
+  'GET /api/purchase-orders/:id/receiving': { access: ['admin', 'warehouse'], costs: '/api/purchase-orders/{po}/receiving' },
   'GET /api/purchase-orders/:id/receipts': { access: ['admin', 'buyer', 'warehouse'] },
   'POST /api/purchase-orders/:id/receipts': { access: ['admin', 'warehouse'] },
   'GET /api/purchasing/items': { access: ['admin', 'buyer'] },

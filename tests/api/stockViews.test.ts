@@ -210,9 +210,9 @@ async function readWorkbook(agent: supertest.Agent, query: Record<string, unknow
 
 describe('the ledger as a spreadsheet', () => {
   it('writes numbers as numbers, times as dates in the asked zone, and people’s text as string cells, as typed', async () => {
-    const viewer = await h.as('viewer')
+    const buyer = await h.as('buyer')
     // source: IANA tz database — Etc/GMT+5 is UTC−05:00 all year (POSIX-style inverted sign).
-    const { res, sheet } = await readWorkbook(viewer, { itemId: fx.itemId, sort: 'at', dir: 'asc', tz: 'Etc/GMT+5' })
+    const { res, sheet } = await readWorkbook(buyer, { itemId: fx.itemId, sort: 'at', dir: 'asc', tz: 'Etc/GMT+5' })
     expect(res.status).toBe(200)
     expect(res.headers['content-type']).toContain('spreadsheetml')
     expect(res.headers['content-disposition']).toMatch(/attachment; filename="stock-movements-\d{4}-\d{2}-\d{2}\.xlsx"/)
@@ -227,6 +227,12 @@ describe('the ledger as a spreadsheet', () => {
     expect(typeof first.getCell(col('Quantity')).value).toBe('number')
     expect(first.getCell(col('Quantity')).value).toBe(page[0].qty)
     expect(first.getCell(col('Unit cost')).value).toBe(3.25)
+    // The read-only role gets the same moves without what they cost (the cost rule).
+    const forViewer = await readWorkbook(await h.as('viewer'), { itemId: fx.itemId, sort: 'at', dir: 'asc', tz: 'Etc/GMT+5' })
+    const viewerHeader = (forViewer.sheet!.getRow(1).values as unknown[]).slice(1)
+    expect(viewerHeader).toContain('Quantity')
+    expect(viewerHeader).not.toContain('Unit cost')
+    expect(viewerHeader).not.toContain('Value')
     const when = first.getCell(col('When')).value as Date
     expect(when).toBeInstanceOf(Date)
     expect(when.getTime()).toBe(new Date(page[0].at).getTime() - 5 * 3_600_000)

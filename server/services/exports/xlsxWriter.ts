@@ -9,6 +9,7 @@ import type { Writable } from 'node:stream'
 import ExcelJS from 'exceljs'
 import type { Response } from 'express'
 import { sendDownload } from '../../http/fileResponse.js'
+import { visibleColumns } from '../costVisibility.js'
 import { cellText } from '../spreadsheetSafety.js'
 
 export type CellKind = 'text' | 'integer' | 'decimal' | 'money' | 'cost' | 'boolean' | 'date' | 'datetime'
@@ -24,6 +25,8 @@ export interface SheetColumn<Row> {
   places?: number
   /** A number format other than the kind's (e.g. negatives in red). */
   numFmt?: string
+  /** What we pay (a cost, or a sum of costs): written only for callers who may see costs (services/costVisibility.ts). */
+  cost?: boolean
 }
 
 export interface SheetSpec<Row> {
@@ -182,8 +185,9 @@ function headerRow(row: ExcelJS.Row, count: number) {
 }
 
 /** A table: one header row, then one row per record. */
-export function sheet<Row>(spec: SheetSpec<Row>): Sheet {
+export function sheet<Row>(table: SheetSpec<Row>): Sheet {
   return (book) => {
+    const spec = { ...table, columns: visibleColumns(table.columns) }
     const widths = columnWidths(spec.columns, spec.rows)
     const ws = (book.addWorksheet as ExcelJS.Workbook['addWorksheet'])(spec.name.slice(0, 31), {
       views: [{ state: 'frozen', ySplit: 1 }],

@@ -46,7 +46,7 @@ function bodyText(po: PoDetail, message: string | null): string {
     '',
     ...lines,
     '',
-    po.total !== undefined ? `Total: ${formatMoney(po.total, { symbol: po.currency + ' ' })}` : null,
+    po.orderTotal !== undefined ? `Total: ${formatMoney(po.orderTotal, { symbol: po.currency + ' ' })}` : null,
     '',
     'Please confirm the order and the ship date by reply.',
   ]
@@ -87,7 +87,7 @@ async function record(ds: DataSource, actor: AuditActor, from: string, a: Attemp
 
 /** Sends (or sends again) the order to the vendor; a failure is recorded, leaves the PO unsent and answers 502. */
 export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
-  const po = await poDetail(ds, poId, true)
+  const po = await poDetail(ds, poId)
   if (!canDo('send', po.status) && !canDo('resend', po.status)) {
     throw AppError.conflict(`A ${po.status.replace('_', ' ')} purchase order cannot be e-mailed; approve it first.`, 'wrong_status')
   }
@@ -103,7 +103,7 @@ export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor
       attachments: [{ filename: attempt.file.name, content: attempt.file.bytes, contentType: XLSX_TYPE }],
     })
     const outboxId = await record(ds, actor, config.smtp.from, attempt, { messageId: info.messageId })
-    return { outboxId, status: 'sent' as const, po: await poDetail(ds, poId, true) }
+    return { outboxId, status: 'sent' as const, po: await poDetail(ds, poId) }
   } catch (err) {
     if (err instanceof AppError) throw err
     const error = err instanceof Error ? err.message : String(err)

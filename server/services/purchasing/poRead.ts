@@ -1,12 +1,11 @@
 // Reading purchase orders for the screens: list, detail with lines, timeline and mail attempts.
-// Cost fields are left out unless the caller may see costs.
+// Costs are always in the answer; the cost rule (services/costVisibility.ts) leaves them out for callers who may not see them.
 import type { DataSource, EntityManager } from 'typeorm'
 import type { PoStatus } from '../../../shared/schemas/purchasing.js'
 import type { PoDetail, PoLineView, PoSummary, PoTimelineEntry } from '../../../shared/schemas/purchasingViews.js'
 import { lineTotal } from '../../../shared/purchasing/poMoney.js'
 import { parseSpec, specText } from '../../../shared/purchasing/specText.js'
 import { AppError } from '../../errors.js'
-import { withoutCosts } from './costVisibility.js'
 import { listOutbox } from './outboxRead.js'
 import { isoDay as dateOnly, isoInstant as iso, likePattern } from './sqlValues.js'
 
@@ -20,8 +19,8 @@ const SUMMARY_SQL = `SELECT o.*, v.code AS v_code, v.name AS v_name, v.email AS 
 
 type PoRow = Record<string, unknown> & { id: number; number: string; status: PoStatus; total: string }
 
-function summaryOf(r: PoRow, costsVisible: boolean): PoSummary {
-  const summary: PoSummary = {
+function summaryOf(r: PoRow): PoSummary {
+  return {
     id: r.id,
     number: r.number,
     status: r.status,
@@ -32,9 +31,8 @@ function summaryOf(r: PoRow, costsVisible: boolean): PoSummary {
     expectedDate: dateOnly(r.expected_date as string | null),
     createdAt: iso(r.created_at as Date)!,
     lineCount: Number(r.line_count),
-    total: r.total,
+    orderTotal: r.total,
   }
-  return withoutCosts(summary, costsVisible, ['total'])
 }
 
 export interface PoFilter {
@@ -43,7 +41,7 @@ export interface PoFilter {
   q?: string
 }
 
-export async function listPurchaseOrders(db: Db, filter: PoFilter, costsVisible: boolean): Promise<PoSummary[]> {
+export async function listPurchaseOrders(db: Db, filter: PoFilter): Promise<PoSummary[]> {
   const where: string[] = []
   const params: unknown[] = []
   if (filter.status.length) {
@@ -60,7 +58,7 @@ export async function listPurchaseOrders(db: Db, filter: PoFilter, costsVisible:
     params.push(like, like, like)
   }
   const rows: PoRow[] = await db.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT 500`, params)
-  return rows.map((r) => summaryOf(r, costsVisible))
+  return rows.map(summaryOf)
 }
 
 interface LineRow {
@@ -70,25 +68,24 @@ interface LineRow {
   qty_damaged: number; unit_cost: string
 }
 
-function lineOf(r: LineRow, costsVisible: boolean): PoLineView {
+function lineOf(r: LineRow): PoLineView {
   const spec = parseSpec(r.spec_json)
-  const line: PoLineView = {
+  return {
     id: r.id, lineNo: r.line_no, itemId: r.item_id, sku: r.sku, itemName: r.item_name, gtin: r.gtin, stockUnit: r.stock_unit,
     madeToOrder: !!Number(r.made_to_order), matchLot: !!Number(r.match_lot), vendorSku: r.vendor_sku, description: r.description,
     spec, specText: specText(spec), bomLineId: r.bom_line_id, packQty: r.pack_qty, packsOrdered: r.packs_ordered,
     qtyOrdered: r.qty_ordered, qtyReceived: r.qty_received, qtyDamaged: r.qty_damaged,
     unitCost: r.unit_cost, lineTotal: lineTotal(r.unit_cost, r.qty_ordered),
   }
-  return withoutCosts(line, costsVisible, ['unitCost', 'lineTotal'])
 }
 
-export async function poLines(db: Db, poId: number, costsVisible: boolean): Promise<PoLineView[]> {
+export async function poLines(db: Db, poId: number): Promise<PoLineView[]> {
   const rows: LineRow[] = await db.query(
     `SELECT l.*, i.sku, i.name AS item_name, i.gtin, i.stock_unit, i.made_to_order, i.match_lot
        FROM purchase_order_lines l JOIN items i ON i.id = l.item_id WHERE l.po_id = ? ORDER BY l.line_no`,
     [poId],
   )
-  return rows.map((r) => lineOf(r, costsVisible))
+  return rows.map(lineOf)
 }
 
 async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
@@ -115,10 +112,10 @@ async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
     }))
 }
 
-export async function poDetail(db: Db, id: number, costsVisible: boolean): Promise<PoDetail> {
+export async function poDetail(db: Db, id: number): Promise<PoDetail> {
   const [r]: PoRow[] = await db.query(`${SUMMARY_SQL} WHERE o.id = ?`, [id])
   if (!r) throw AppError.notFound('That purchase order')
-  const base = summaryOf(r, costsVisible)
+  const base = summaryOf(r)
   return {
     ...base,
     vendor: { ...base.vendor, email: r.v_email as string | null, contactName: r.v_contact as string | null, phone: r.v_phone as string | null,
@@ -128,9 +125,8 @@ export async function poDetail(db: Db, id: number, costsVisible: boolean): Promi
     sendError: r.send_error as string | null,
     closeReason: r.close_reason as string | null,
     cancelReason: r.cancel_reason as string | null,
-    costsVisible,
     timeline: await timelineOf(db, r),
-    lines: await poLines(db, id, costsVisible),
+    lines: await poLines(db, id),
     messages: (await listOutbox(db, { poId: id })).map(({ bodyText: _body, ...m }) => m),
   }
 }

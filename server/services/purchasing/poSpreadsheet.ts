@@ -8,6 +8,7 @@ import {
   buildXlsx, columnWidths, newWorkbook, printOptions, putCell, sheet, THIN_RULE, workbookBytes, type Book, type CellInput, type CellKind,
   type SheetColumn,
 } from '../exports/xlsxWriter.js'
+import { costsVisible, visibleColumns } from '../costVisibility.js'
 
 /** The row of the line table's header on a PO sheet; the sheet is frozen below it and repeats it on every page. */
 export const PO_TABLE_HEADER_ROW = 10
@@ -28,8 +29,8 @@ const PO_COLUMNS: SheetColumn<PoLineView>[] = [
   { header: 'Pack size', kind: 'integer', value: (l) => l.packQty },
   { header: 'Quantity', kind: 'integer', value: (l) => l.qtyOrdered },
   { header: 'Unit', kind: 'text', value: (l) => l.stockUnit },
-  { header: 'Unit cost', kind: 'cost', value: (l) => amount(l.unitCost) },
-  { header: 'Line total', kind: 'money', value: (l) => amount(l.lineTotal) },
+  { header: 'Unit cost', kind: 'cost', value: (l) => amount(l.unitCost), cost: true },
+  { header: 'Line total', kind: 'money', value: (l) => amount(l.lineTotal), cost: true },
 ]
 
 const colLetter = (n: number) => String.fromCharCode(64 + n)
@@ -54,7 +55,7 @@ function block(ws: ExcelJS.Worksheet, widths: number[], row: number, from: numbe
 
 function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
   const bold = { font: { bold: true } }
-  const last = PO_COLUMNS.length
+  const last = widths.length
   block(ws, widths, 1, 1, last, 'text', `Purchase order ${po.number}`, { font: { bold: true, size: 16 } })
   // Facts: the label across Line and Our SKU, the value under Vendor SKU.
   const facts: [string, CellKind, CellInput][] = [
@@ -81,9 +82,9 @@ function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
   }
 }
 
-function lineTable(ws: ExcelJS.Worksheet, widths: { width: number; wrap: boolean }[], po: PoDetail): number {
+function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], widths: { width: number; wrap: boolean }[], po: PoDetail): number {
   const head = ws.getRow(PO_TABLE_HEADER_ROW)
-  PO_COLUMNS.forEach((c, i) => {
+  columns.forEach((c, i) => {
     const cell = head.getCell(i + 1)
     cell.value = c.header
     cell.font = { bold: true }
@@ -93,7 +94,7 @@ function lineTable(ws: ExcelJS.Worksheet, widths: { width: number; wrap: boolean
   })
   po.lines.forEach((l, i) => {
     const row = ws.getRow(PO_TABLE_HEADER_ROW + 1 + i)
-    PO_COLUMNS.forEach((c, col) => {
+    columns.forEach((c, col) => {
       const cell = row.getCell(col + 1)
       putCell(cell, c.kind, c.value(l))
       if (widths[col].wrap) cell.alignment = { wrapText: true, vertical: 'top' }
@@ -105,7 +106,9 @@ function lineTable(ws: ExcelJS.Worksheet, widths: { width: number; wrap: boolean
 
 /** Adds one PO's printable sheet to a workbook. */
 export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.number): ExcelJS.Worksheet {
-  const widths = columnWidths(PO_COLUMNS, po.lines)
+  // Prices only for callers who may see costs (the buyer e-mailing the vendor does).
+  const columns = visibleColumns(PO_COLUMNS)
+  const widths = columnWidths(columns, po.lines)
   const lastLine = PO_TABLE_HEADER_ROW + po.lines.length
   const totalRow = lastLine + 2
   const lastRow = po.notes ? totalRow + 2 : totalRow
@@ -115,21 +118,22 @@ export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.numbe
     // Portrait, like any order form: a 30-line order fits one page at the width the writer scales to.
     ...printOptions({
       title: `Purchase order ${po.number}`, orientation: 'portrait',
-      titleRows: `${PO_TABLE_HEADER_ROW}:${PO_TABLE_HEADER_ROW}`, printArea: `A1:${colLetter(PO_COLUMNS.length)}${lastRow}`,
+      titleRows: `${PO_TABLE_HEADER_ROW}:${PO_TABLE_HEADER_ROW}`, printArea: `A1:${colLetter(columns.length)}${lastRow}`,
     }),
   })
   widths.forEach((w, i) => (ws.getColumn(i + 1).width = w.width))
   const w = widths.map((x) => x.width)
   headerBlock(ws, w, po)
-  lineTable(ws, widths, po)
-  if (po.total !== undefined) {
-    block(ws, w, totalRow, 9, 9, 'text', 'Total', { font: { bold: true }, alignment: { horizontal: 'right' } })
-    putCell(ws.getCell(totalRow, 10), 'money', amount(po.total))
-    Object.assign(ws.getCell(totalRow, 10), { font: { bold: true }, border: { top: THIN_RULE } })
+  lineTable(ws, columns, widths, po)
+  if (costsVisible() && po.orderTotal !== undefined) {
+    const at = columns.length
+    block(ws, w, totalRow, at - 1, at - 1, 'text', 'Total', { font: { bold: true }, alignment: { horizontal: 'right' } })
+    putCell(ws.getCell(totalRow, at), 'money', amount(po.orderTotal))
+    Object.assign(ws.getCell(totalRow, at), { font: { bold: true }, border: { top: THIN_RULE } })
   }
   if (po.notes) {
     block(ws, w, totalRow + 2, 1, 2, 'text', 'Notes', { font: { bold: true } })
-    block(ws, w, totalRow + 2, 3, PO_COLUMNS.length, 'text', po.notes)
+    block(ws, w, totalRow + 2, 3, columns.length, 'text', po.notes)
   }
   return ws
 }
@@ -157,7 +161,7 @@ export async function multiPoWorkbook(pos: PoDetail[]): Promise<Buffer> {
       { header: 'Expected', kind: 'date', value: (p) => p.expectedDate },
       { header: 'Currency', kind: 'text', value: (p) => p.currency },
       { header: 'Lines', kind: 'integer', value: (p) => p.lines.length },
-      { header: 'Total', kind: 'money', value: (p) => amount(p.total) },
+      { header: 'Total', kind: 'money', value: (p) => amount(p.orderTotal), cost: true },
     ],
   })
   const lineSheet = sheet<LineOfPo>({

@@ -11,7 +11,7 @@ interface Row {
   pack_qty: number | null; min_order_qty: number | null; unit_cost: string | null
 }
 
-export async function acceptedSuggestions(ds: DataSource, costsVisible: boolean): Promise<SuggestionView[]> {
+export async function acceptedSuggestions(ds: DataSource): Promise<SuggestionView[]> {
   const rows: Row[] = await ds.query(
     `SELECT s.id, s.item_id, i.sku, i.name AS item_name, i.stock_unit, s.warehouse_id, w.code AS w_code, w.name AS w_name,
             v.id AS vendor_id, v.code AS v_code, v.name AS v_name, s.qty, s.source, s.accepted_at,
@@ -38,6 +38,6 @@ export async function acceptedSuggestions(ds: DataSource, costsVisible: boolean)
     acceptedAt: isoInstant(r.accepted_at)!,
     packQty: r.pack_qty,
     packs: r.pack_qty ? packsFor(r.qty, r.pack_qty, r.min_order_qty ?? 1) : null,
-    ...(costsVisible ? { unitCost: r.unit_cost } : {}),
+    unitCost: r.unit_cost,
   }))
 }

@@ -78,7 +78,9 @@ export async function abcPareto(ds: DataSource, windowDays?: number): Promise<Ab
     itemId: Number(i.id), sku: skus.get(Number(i.id)) ?? i.id, annualValue: i.annualValue,
     cumulativePercent: Math.round(i.cumulativeShare * 10000) / 100, abcClass: i.abcClass,
   }))
-  return { window: windowOf(computed.window), cutoffs: computed.cutoffs, total: computed.abc.total, items, summary: computed.abc.summary }
+  // Sums of cost go out under the cost rule's names (services/costVisibility.ts).
+  const summary = Object.fromEntries(Object.entries(computed.abc.summary).map(([c, { value, ...rest }]) => [c, { ...rest, annualValue: value }]))
+  return { window: windowOf(computed.window), cutoffs: computed.cutoffs, annualValueTotal: computed.abc.total, items, summary: summary as AbcPareto['summary'] }
 }
 
 export async function reorderChoices(ds: DataSource): Promise<ReorderChoices> {

@@ -40,8 +40,8 @@ export function catalogColumns(t: Translate): ColDef<ItemRow>[] {
     field, headerName: t(`catalog.col.${field}`), width, filter: 'agNumberColumnFilter', type: 'rightAligned', hide: HIDDEN_AT_FIRST.has(field), ...extra,
   })
   const money = (field: 'cost' | 'listPrice'): ColDef<ItemRow> => number(field, 110, {
-    valueGetter: (p) => (p.data && p.data[field] !== null ? Number(p.data[field]) : null),
-    valueFormatter: (p) => (p.data && p.data[field] !== null ? formatMoney(p.data[field]) : ''),
+    valueGetter: (p) => (p.data && p.data[field] != null ? Number(p.data[field]) : null),
+    valueFormatter: (p) => (p.data && p.data[field] != null ? formatMoney(p.data[field]) : ''),
   })
   return [
     text('sku', 190, { pinned: 'left', cellClass: 'sku-cell' }),

@@ -1,0 +1,70 @@
+// Who may see a cost, in one place. Buyers and admins always; the warehouse crew when the admin
+// setting allows it; nobody else. The rule is applied at the edges, never by each route:
+// - every JSON answer of the API is serialised through `costReplacer` (app.ts installs it as
+//   Express's JSON replacer), which drops the keys named in COST_FIELDS for a caller who may not
+//   see costs, however deep they sit and whichever route or idempotent replay wrote them;
+// - every spreadsheet column and document part that shows a cost asks `costsVisible()` (the
+//   xlsx writer drops columns marked `cost: true`; PO sheets and PDFs ask before printing prices).
+// The caller's answer is worked out once per API request (`costScope`) and carried with the
+// request's async context; outside a request nothing is visible (deny by default).
+// A service answers with every cost it has under one of these names; it never checks the role.
+import { AsyncLocalStorage } from 'node:async_hooks'
+import type { NextFunction, Request, Response } from 'express'
+import type { DataSource, EntityManager } from 'typeorm'
+import type { Role } from '../../shared/roles.js'
+import { purchasingSettings } from './appSettings.js'
+
+/**
+ * The only names under which a cost (what we pay, and sums of it) leaves the server. Never reuse
+ * one of them for something else (a count named `total` would vanish for a viewer), and never
+ * send a cost under another name.
+ */
+export const COST_FIELDS: ReadonlySet<string> = new Set([
+  'cost', // an item's standard cost
+  'avgCost', // moving-average cost in a warehouse
+  'unitCost', // a vendor's price, a PO line's cost, a stock move's cost
+  'previousCost', // a price list row's cost before the import
+  'lineTotal', // a PO line's cost × quantity
+  'orderTotal', // a PO's total
+  'moveValue', // a stock move's cost × quantity
+  'annualValue', // annual usage × cost (reorder, ABC)
+  'annualValueTotal',
+  'costPerOrder', // the ordering cost S of a reorder policy
+])
+
+export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {
+  if (roles.includes('admin') || roles.includes('buyer')) return true
+  if (!roles.includes('warehouse')) return false
+  return (await purchasingSettings(db)).warehouseSeesCosts
+}
+
+const scope = new AsyncLocalStorage<{ visible: boolean }>()
+
+/** Whether the caller of the current request may see costs; false outside a request. */
+export function costsVisible(): boolean {
+  return scope.getStore()?.visible ?? false
+}
+
+/** Runs `work` as a caller who may (or may not) see costs: the request scope, or a job of the system's own. */
+export function withCostAccess<T>(visible: boolean, work: () => T): T {
+  return scope.run({ visible }, work)
+}
+
+/** Express middleware for /api: works out the signed-in caller's access once, for the whole request. */
+export function costScope(ds: DataSource) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    const visible = req.user ? await costsVisibleTo(ds, req.user.roles) : false
+    scope.run({ visible }, next)
+  }
+}
+
+/** Express's JSON replacer: a cost field is left out of the answer unless the caller may see costs. */
+export function costReplacer(key: string, value: unknown): unknown {
+  return COST_FIELDS.has(key) && !costsVisible() ? undefined : value
+}
+
+/** The columns (of a sheet or a document table) the caller may see: those marked `cost` only with access. */
+export function visibleColumns<C extends { cost?: boolean }>(columns: readonly C[]): C[] {
+  const visible = costsVisible()
+  return columns.filter((c) => !c.cost || visible)
+}

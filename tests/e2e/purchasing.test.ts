@@ -53,7 +53,8 @@ describe('purchasing in the browser', () => {
 
       await page.locator('[data-test="send"]').click()
       await page.locator('[data-test="send-mail"]').click()
-      await expect.poll(() => page.locator('[data-test="po-status"]').getAttribute('data-status')).toBe('sent')
+      // The SMTP exchange and the attachments can take a few seconds on a busy machine.
+      await expect.poll(() => page.locator('[data-test="po-status"]').getAttribute('data-status'), { timeout: 15_000 }).toBe('sent')
       expect(smtp.messages.some((m) => m.raw.toString('latin1').includes(`Subject: Purchase order ${number}`))).toBe(true)
       await page.waitForTimeout(400) // tags zoom in when they appear
       await h.screenshot(page, 'purchasing-po-sent')

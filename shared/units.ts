@@ -92,21 +92,9 @@ export function formatLength(mm: number, unit: LengthUnit, options: InchFormatOp
   return unit === 'in' ? formatInches(mm, options) : formatMillimetres(mm, options.rounding)
 }
 
-/**
- * A measured size as a maker reads it on an order or in a message: inches to the sixteenth, or
- * millimetres whole from 100 mm up and to the tenth below (a 48 in side entered in inches is
- * stored as 1219.1999999999998 mm and reads 1219 mm, never with its binary noise).
- */
-export function formatDimension(mm: number, unit: LengthUnit, options: InchFormatOptions = {}): string {
-  if (unit === 'in') return formatInches(mm, options)
-  if (Math.abs(mm) < 100) return formatMillimetres(mm, options.rounding)
-  const whole = roundTo(mm, options.rounding)
-  return `${whole === 0 ? 0 : whole} mm`
-}
-
-/** Width × depth (× height) in one unit: `48″ × 36″`, or `1219 × 914 mm` with the unit written once. */
+/** Width × depth (× height) in one unit: `48″ × 36″` (or `48 in × 36 in` in words), `1219.2 × 914.4 mm`. */
 export function formatSize(mms: readonly number[], unit: LengthUnit, options: InchFormatOptions = {}): string {
-  const parts = mms.map((mm) => formatDimension(mm, unit, options))
+  const parts = mms.map((mm) => formatLength(mm, unit, options))
   return unit === 'in' ? parts.join(' × ') : `${parts.map((p) => p.replace(/ mm$/, '')).join(' × ')} mm`
 }
 

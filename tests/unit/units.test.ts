@@ -5,7 +5,6 @@ import {
   feetToMm,
   flOzToIn3,
   flOzToMl,
-  formatDimension,
   formatInches,
   formatLength,
   formatSize,
@@ -119,27 +118,15 @@ describe('formatInches', () => {
   })
 })
 
-describe('formatDimension and formatSize', () => {
+describe('formatSize', () => {
   // 1 in = 25.4 mm exactly (NIST SP 811, appendix B): 48 in = 1219.2 mm, 36 in = 914.4 mm, 42 in = 1066.8 mm.
-  it('writes a size typed in inches without binary noise, whole millimetres from 100 mm up', () => {
+  it('writes a size typed in inches in one unit, without binary noise, the millimetre sign once', () => {
     const inches48 = 48 * 25.4 // 1219.1999999999998 in binary floating point
     expect(String(inches48)).toBe('1219.1999999999998')
-    expect(formatDimension(inches48, 'mm')).toBe('1219 mm')
-    expect(formatDimension(inches48, 'in')).toBe('48″')
-    expect(formatDimension(1066.8, 'mm')).toBe('1067 mm')
-    expect(formatDimension(1066.8, 'mm', { rounding: 'down' })).toBe('1066 mm')
-  })
-
-  it('keeps a tenth of a millimetre below 100 mm, where it matters (a 1/4 in joint is 6.35 mm)', () => {
-    expect(formatDimension(6.35, 'mm')).toBe('6.4 mm')
-    expect(formatDimension(6.35, 'in')).toBe('1/4″')
-    expect(formatDimension(99.96, 'mm')).toBe('100 mm')
-  })
-
-  it('writes width × depth in one unit, the millimetre sign once', () => {
-    expect(formatSize([48 * 25.4, 36 * 25.4], 'in')).toBe('48″ × 36″')
-    expect(formatSize([48 * 25.4, 36 * 25.4], 'mm')).toBe('1219 × 914 mm')
-    expect(formatSize([1066.8, 1219.2, 88.9], 'mm')).toBe('1067 × 1219 × 88.9 mm')
+    expect(formatSize([inches48, 36 * 25.4], 'in')).toBe('48″ × 36″')
+    expect(formatSize([inches48, 36 * 25.4], 'in', { style: 'words' })).toBe('48 in × 36 in')
+    expect(formatSize([inches48, 36 * 25.4], 'mm')).toBe('1219.2 × 914.4 mm')
+    expect(formatSize([1066.8, 1219.2, 88.9], 'mm')).toBe('1066.8 × 1219.2 × 88.9 mm')
   })
 })
 

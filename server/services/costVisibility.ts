@@ -30,6 +30,9 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
   'annualValue', // annual usage × cost (reorder, ABC)
   'annualValueTotal',
   'costPerOrder', // the ordering cost S of a reorder policy
+  'valueOff', // a count's variances at cost, gross
+  'valueNet', // and net
+  'varianceValue', // one count line's variance at cost
 ])
 
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {
@@ -37,6 +40,9 @@ export async function costsVisibleTo(db: EntityManager | DataSource, roles: read
   if (!roles.includes('warehouse')) return false
   return (await purchasingSettings(db)).warehouseSeesCosts
 }
+
+/** The same answer for a signed-in user (services that word their answer by it, e.g. counts). */
+export const canSeeCosts = (db: EntityManager | DataSource, viewer: { roles: readonly Role[] }) => costsVisibleTo(db, viewer.roles)
 
 const scope = new AsyncLocalStorage<{ visible: boolean }>()
 

@@ -78,7 +78,10 @@ describe('role matrix', () => {
 // crew only while the admin setting allows it, counter and viewer never. The names below are the API's
 // documented cost fields and export headers, written out here rather than taken from the server.
 const COST_ROLES: readonly Role[] = ['admin', 'buyer']
-const COST_KEYS = ['cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder']
+const COST_KEYS = [
+  'cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder',
+  'valueOff', 'valueNet', 'varianceValue',
+]
 const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total']
 
 function costKeysIn(body: unknown, found: string[] = []): string[] {

@@ -4,7 +4,7 @@
 import type { DataSource } from 'typeorm'
 import { accuracyOf } from '../../../shared/counts/countVariance.js'
 import type { CountAccuracyQuery, CountAccuracyRow } from '../../../shared/schemas/counts.js'
-import { canSeeCosts } from '../purchasing/costVisibility.js'
+import { canSeeCosts } from '../costVisibility.js'
 import type { CountViewer } from './countRead.js'
 
 const DAY_MS = 86_400_000

@@ -12,7 +12,7 @@ import type { Role } from '../../../shared/roles.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError } from '../../errors.js'
 import { walkConfigOf } from '../picking/pickWalk.js'
-import { canSeeCosts } from '../purchasing/costVisibility.js'
+import { canSeeCosts } from '../costVisibility.js'
 import { countSettings } from './countSettings.js'
 
 export interface CountViewer {

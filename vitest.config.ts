@@ -1,8 +1,14 @@
+import { fileURLToPath, URL } from 'node:url'
 import { defineConfig } from 'vitest/config'
 
 // Three projects: unit (pure code, no services), api (supertest against the real app and MariaDB),
 // e2e (playwright-core driving Debian's Chromium). scripts/test.sh prepares the database first.
 const decorators = { decorator: { legacy: true, emitDecoratorMetadata: true } }
+// The client's aliases, for unit tests of client modules that run without a browser (message files, error words).
+const alias = {
+  '@': fileURLToPath(new URL('./src', import.meta.url)),
+  '@shared': fileURLToPath(new URL('./shared', import.meta.url)),
+}
 
 export default defineConfig({
   oxc: decorators,
@@ -10,6 +16,7 @@ export default defineConfig({
     projects: [
       {
         oxc: decorators,
+        resolve: { alias },
         test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' },
       },
       {

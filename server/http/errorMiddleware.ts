@@ -3,10 +3,13 @@ import { AppError } from '../errors.js'
 
 /** Unknown /api paths answer JSON 404, never the SPA page. */
 export const apiNotFound: RequestHandler = (req, _res, next) => {
-  next(new AppError(404, 'not_found', `No API route ${req.method} ${req.path}.`))
+  next(new AppError(404, 'route_not_found', `No API route ${req.method} ${req.path}.`))
 }
 
-/** Every error becomes { error: { code, message, fields? } }; stacks go to the log only. */
+/**
+ * Every error becomes { error: { code, message, params?, fields? } } (shared/schemas/apiError.ts):
+ * the client words the code in the user's language; stacks go to the log only.
+ */
 export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
   let appError: AppError
   if (err instanceof AppError) {
@@ -29,6 +32,7 @@ export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
     error: {
       code: appError.code,
       message: appError.message,
+      ...(Object.keys(appError.params).length ? { params: appError.params } : {}),
       ...(appError.fields ? { fields: appError.fields } : {}),
     },
   })

@@ -10,7 +10,7 @@ export function parseBody<S extends z.ZodType>(schema: S, body: unknown): z.infe
 
 export function parseQuery<S extends z.ZodType>(schema: S, query: unknown): z.infer<S> {
   const result = schema.safeParse(query ?? {})
-  if (!result.success) throw AppError.fromZod(result.error, 'Some filters are not valid.')
+  if (!result.success) throw AppError.fromZod(result.error, 'invalid_filters', 'Some filters are not valid.')
   return result.data
 }
 

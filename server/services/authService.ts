@@ -95,7 +95,7 @@ export function absoluteTimeout(maxHours: number) {
     const started = req.session?.signedInAt
     if (req.user && started && Date.now() - started > maxHours * 3_600_000) {
       await logOut(req).catch(() => undefined)
-      return next(AppError.unauthenticated('Your session has ended. Please sign in again.'))
+      return next(AppError.unauthenticated('session_ended', 'Your session has ended. Please sign in again.'))
     }
     next()
   }

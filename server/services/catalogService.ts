@@ -5,7 +5,7 @@ import type { BlockShape } from '../../shared/catalog.js'
 import { itemSchema, type ItemInput, type ItemPatch, type ItemRecord } from '../../shared/schemas/catalog.js'
 import { inTransaction, isDuplicateKey } from '../db/transaction.js'
 import { Item } from '../entities/Item.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
 import { audit, type AuditActor } from './auditService.js'
 
 export function toItemRecord(i: Item): ItemRecord {
@@ -39,9 +39,9 @@ export function duplicateItemError(err: unknown): AppError | null {
   if (!isDuplicateKey(err)) return null
   const message = String((err as Error).message)
   if (message.includes('uq_items_gtin')) {
-    return new AppError(409, 'duplicate', 'Another item already has that GTIN.', { gtin: 'Another item has this GTIN' })
+    return AppError.conflict('gtin_taken', 'Another item already has that GTIN.', { fields: { gtin: problem('gtin_taken') } })
   }
-  return new AppError(409, 'duplicate', 'Another item already has that SKU.', { sku: 'Another item has this SKU' })
+  return AppError.conflict('sku_taken', 'Another item already has that SKU.', { fields: { sku: problem('sku_taken') } })
 }
 
 export async function findItem(em: EntityManager, id: number, lock = false): Promise<Item> {

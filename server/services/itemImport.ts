@@ -6,7 +6,8 @@ import { In } from 'typeorm'
 import { itemSchema, type ImportPreview, type ImportPreviewRow, type ItemInput } from '../../shared/schemas/catalog.js'
 import { inTransaction } from '../db/transaction.js'
 import { Item } from '../entities/Item.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
+import { zodIssueProblem } from '../../shared/errors/zodProblems.js'
 import { audit, type AuditActor } from './auditService.js'
 import { itemColumns, toItemRecord } from './catalogService.js'
 import { columnOf, ITEM_COLUMNS, ITEM_IMPORT_SPEC } from './catalogSheet.js'
@@ -23,14 +24,14 @@ const HEADER_OF = new Map(ITEM_COLUMNS.map((c) => [c.key as string, c.header]))
 const headerOf = (key: string | null) => (key ? (HEADER_OF.get(key) ?? key) : null)
 
 function checkRow(r: ImportRow, existing: Item | undefined, parserIssues: RowIssue[]): CheckedRow {
-  const errors = parserIssues.map((i) => ({ column: headerOf(i.column), message: i.message }))
+  const errors = parserIssues.map((i) => ({ column: headerOf(i.column), problem: i.problem }))
   const present = Object.fromEntries(Object.entries(r.values).filter(([key]) => !parserIssues.some((i) => i.column === key)))
   const candidate = existing ? { ...toItemRecord(existing), ...present } : present
   const parsed = itemSchema.safeParse(candidate)
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const key = String(issue.path[0] ?? '')
-      if (!parserIssues.some((i) => i.column === key)) errors.push({ column: headerOf(key || null), message: issue.message })
+      if (!parserIssues.some((i) => i.column === key)) errors.push({ column: headerOf(key || null), problem: zodIssueProblem(issue) })
     }
   }
   const sku = typeof r.values.sku === 'string' ? r.values.sku : null
@@ -57,13 +58,13 @@ async function checkSheet(em: EntityManager, sheet: ParsedSheet): Promise<Checke
     if (!c.input) continue
     const { sku, gtin } = c.input
     const firstSku = seenSku.get(sku)
-    if (firstSku !== undefined) c.preview.errors.push({ column: 'SKU', message: `SKU ${sku} is also on row ${firstSku}` })
+    if (firstSku !== undefined) c.preview.errors.push({ column: 'SKU', problem: problem('sku_repeated', { sku, row: firstSku }) })
     else seenSku.set(sku, c.preview.row)
     if (!gtin) continue
     const owner = gtinOwner.get(gtin)
-    if (owner && owner !== sku) c.preview.errors.push({ column: 'GTIN', message: `GTIN ${gtin} belongs to item ${owner}` })
+    if (owner && owner !== sku) c.preview.errors.push({ column: 'GTIN', problem: problem('gtin_belongs_to', { gtin, sku: owner }) })
     const firstGtin = seenGtin.get(gtin)
-    if (firstGtin !== undefined) c.preview.errors.push({ column: 'GTIN', message: `GTIN ${gtin} is also on row ${firstGtin}` })
+    if (firstGtin !== undefined) c.preview.errors.push({ column: 'GTIN', problem: problem('gtin_repeated', { gtin, row: firstGtin }) })
     else seenGtin.set(gtin, c.preview.row)
   }
   return checked
@@ -112,10 +113,10 @@ export async function commitItemImport(ds: DataSource, actor: AuditActor, upload
     const checked = await checkSheet(em, sheet)
     const summary = summarise(upload.filename, checked)
     if (summary.errorRows > 0) {
-      const first = summary.rows.slice(0, 5).map((r) => [`row ${r.row}`, r.errors.map((e) => `${e.column ?? 'row'}: ${e.message}`).join('; ')])
-      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, Object.fromEntries(first))
+      const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
+      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
     }
-    if (summary.total === 0) throw new AppError(422, 'empty', 'The file holds no item rows; nothing was imported.')
+    if (summary.total === 0) throw AppError.unprocessable('items_file_empty', 'The file holds no item rows; nothing was imported.')
     await writeItems(em, checked.map((c) => c.input!))
     await audit(em, actor, 'item.import', 'item', null, { file: upload.filename, created: summary.creates, updated: summary.updates })
     return summary

@@ -27,14 +27,12 @@ export class SignInThrottle {
     ])
     const minutes = (ms: number) => Math.max(1, Math.ceil(ms / 60_000))
     if (account && account.consumedPoints >= this.limits.failsPerAccount) {
-      throw AppError.tooMany(
-        `Too many failed sign-ins for this account. Try again in ${minutes(account.msBeforeNext)} minutes, or ask an admin to reset the password.`,
-      )
+      const wait = minutes(account.msBeforeNext)
+      throw AppError.tooMany('too_many_signins_account', `Too many failed sign-ins for this account. Try again in ${wait} minutes, or ask an admin to reset the password.`, { params: { minutes: wait } })
     }
     if (address && address.consumedPoints >= this.limits.failsPerIp) {
-      throw AppError.tooMany(
-        `Too many failed sign-ins from this device. Try again in ${minutes(address.msBeforeNext)} minutes.`,
-      )
+      const wait = minutes(address.msBeforeNext)
+      throw AppError.tooMany('too_many_signins_device', `Too many failed sign-ins from this device. Try again in ${wait} minutes.`, { params: { minutes: wait } })
     }
   }
 

@@ -8,7 +8,7 @@ import type {
   UserUpdateInput,
 } from '../../shared/schemas/auth.js'
 import { User } from '../entities/User.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
 import { inTransaction, isDuplicateKey } from '../db/transaction.js'
 import { audit, type AuditActor } from './auditService.js'
 
@@ -69,7 +69,7 @@ export async function createUser(ds: DataSource, actor: AuditActor, input: UserC
     })
   } catch (err) {
     if (isDuplicateKey(err)) {
-      throw new AppError(409, 'duplicate', 'That user name is taken.', { username: 'That user name is taken' })
+      throw AppError.conflict('username_taken', 'That user name is taken.', { fields: { username: problem('username_taken') } })
     }
     throw err
   }

@@ -9,7 +9,7 @@ import {
 import { inTransaction, isDuplicateKey } from '../db/transaction.js'
 import { Bin } from '../entities/Bin.js'
 import { Warehouse } from '../entities/Warehouse.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
 import { audit, type AuditActor } from './auditService.js'
 
 function toWarehouseRow(w: Warehouse, bins: number): WarehouseRow {
@@ -24,7 +24,7 @@ export async function listWarehouses(ds: DataSource): Promise<WarehouseRow[]> {
 
 async function findWarehouse(em: EntityManager, id: number, lock = false): Promise<Warehouse> {
   const w = await em.findOne(Warehouse, { where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
-  if (!w) throw AppError.notFound('That warehouse')
+  if (!w) throw AppError.notFound('warehouse_not_found', 'That warehouse was not found.')
   return w
 }
 
@@ -50,7 +50,7 @@ export async function warehouseDetail(ds: DataSource, id: number): Promise<Wareh
 }
 
 const duplicateWarehouse = (err: unknown) =>
-  isDuplicateKey(err) ? new AppError(409, 'duplicate', 'Another warehouse has that code.', { code: 'Another warehouse has this code' }) : null
+  isDuplicateKey(err) ? AppError.conflict('warehouse_code_taken', 'Another warehouse has that code.', { fields: { code: problem('warehouse_code_taken') } }) : null
 
 export async function createWarehouse(ds: DataSource, actor: AuditActor, input: WarehouseInput): Promise<WarehouseRow> {
   try {
@@ -69,7 +69,8 @@ async function checkPatternFits(em: EntityManager, warehouseId: number, pattern:
   const bins = await em.findBy(Bin, { warehouseId, kind: 'storage' })
   const misfits = bins.filter((b) => !binCodeFitsPattern(b.code, pattern)).map((b) => b.code)
   if (misfits.length) {
-    throw AppError.badRequest('Some storage bins would not fit the new pattern.', { binPattern: `Does not fit ${misfits.slice(0, 5).join(', ')}${misfits.length > 5 ? ` and ${misfits.length - 5} more` : ''}` })
+    const params = { bins: misfits.slice(0, 5), more: Math.max(0, misfits.length - 5) }
+    throw AppError.badRequest('bin_pattern_misfits', 'Some storage bins would not fit the new pattern.', { params, fields: { binPattern: problem('bin_pattern_misfits', params) } })
   }
 }
 
@@ -91,12 +92,13 @@ export async function updateWarehouse(ds: DataSource, actor: AuditActor, id: num
 
 function checkBinCode(w: Warehouse, code: string, kind: string): void {
   if (kind === 'storage' && !binCodeFitsPattern(code, w.binPattern)) {
-    throw AppError.badRequest(`Bin ${code} does not fit the bin pattern of ${w.code}.`, { code: `Does not fit ${w.code}'s pattern, e.g. A-01-1` })
+    const params = { code, warehouse: w.code }
+    throw AppError.badRequest('bin_code_misfit', `Bin ${code} does not fit the bin pattern of ${w.code}.`, { params, fields: { code: problem('bin_code_misfit', params) } })
   }
 }
 
 const duplicateBin = (err: unknown) =>
-  isDuplicateKey(err) ? new AppError(409, 'duplicate', 'That warehouse already has a bin with this code.', { code: 'Already used in this warehouse' }) : null
+  isDuplicateKey(err) ? AppError.conflict('bin_code_taken', 'That warehouse already has a bin with this code.', { fields: { code: problem('bin_code_taken') } }) : null
 
 export async function createBin(ds: DataSource, actor: AuditActor, warehouseId: number, input: BinInput): Promise<BinRow> {
   try {
@@ -117,8 +119,8 @@ export async function updateBin(ds: DataSource, actor: AuditActor, warehouseId: 
     return await inTransaction(ds, async (em) => {
       const w = await findWarehouse(em, warehouseId)
       const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
-      if (!bin) throw AppError.notFound('That bin')
-      if (bin.kind === 'transit') throw AppError.conflict('The transit bin belongs to transfers and cannot be changed.')
+      if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+      if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
       const next = { code: patch.code ?? bin.code, kind: patch.kind ?? bin.kind, active: patch.active ?? bin.active }
       checkBinCode(w, next.code, next.kind)
       if (!next.active && bin.active) await refuseIfStocked(em, bin)
@@ -133,7 +135,7 @@ export async function updateBin(ds: DataSource, actor: AuditActor, warehouseId: 
 
 async function refuseIfStocked(em: EntityManager, bin: Bin): Promise<void> {
   const [row] = await em.query('SELECT COALESCE(SUM(on_hand), 0) AS n FROM stock_balances WHERE bin_id = ?', [bin.id])
-  if (Number(row.n) > 0) throw AppError.conflict(`Bin ${bin.code} still holds ${Number(row.n)} units; move them before taking the bin out of use.`, 'bin_stocked')
+  if (Number(row.n) > 0) throw AppError.conflict('bin_stocked', `Bin ${bin.code} still holds ${Number(row.n)} units; move them before taking the bin out of use.`, { params: { bin: bin.code, units: Number(row.n) } })
 }
 
 /** Creates every bin of a range that does not exist yet; existing codes are reported, not changed. */
@@ -142,7 +144,10 @@ export async function createBinRange(ds: DataSource, actor: AuditActor, warehous
     const w = await findWarehouse(em, warehouseId, true)
     const codes = binRangeCodes(range)
     const misfit = codes.find((c) => !binCodeFitsPattern(c, w.binPattern))
-    if (misfit) throw AppError.badRequest(`Bin ${misfit} would not fit the bin pattern of ${w.code}.`, { bayDigits: 'These codes do not fit the warehouse pattern' })
+    if (misfit) {
+      const params = { code: misfit, warehouse: w.code }
+      throw AppError.badRequest('bin_code_misfit', `Bin ${misfit} would not fit the bin pattern of ${w.code}.`, { params, fields: { bayDigits: problem('bin_code_misfit', params) } })
+    }
     const existing = new Set((await em.findBy(Bin, { warehouseId, code: In(codes) })).map((b) => b.code))
     const fresh = codes.filter((c) => !existing.has(c))
     for (let i = 0; i < fresh.length; i += 500) {

@@ -1,7 +1,10 @@
 // GS1 mod-10 check digits for GTINs and SSCCs (GS1 General Specifications §7.9.1).
 // The same rule serves every GS1 key length, so one function covers GTIN-8 to SSCC-18.
 
-export type Gs1Check = { ok: true } | { ok: false; reason: string }
+import { problem, type Problem } from '../errors/errorCodes.js'
+
+/** A failed check gives the English reason (logs, label errors) and the coded problem (screens). */
+export type Gs1Check = { ok: true } | { ok: false; reason: string; problem: Problem }
 export type GtinNormalization = { ok: true; gtin14: string } | { ok: false; reason: string }
 
 /** Lengths a GTIN can have; an 8-digit UPC-E code is a compressed GTIN-12, not a GTIN-8. */
@@ -34,22 +37,22 @@ function checkLastDigit(label: string, code: string): Gs1Check {
   const expected = gtinCheckDigit(code.slice(0, -1))
   const actual = Number(code[code.length - 1])
   if (expected === actual) return { ok: true }
-  return { ok: false, reason: `${label} check digit should be ${expected}, not ${actual}` }
+  return { ok: false, reason: `${label} check digit should be ${expected}, not ${actual}`, problem: problem('check_digit_wrong', { label, expected, actual }) }
 }
 
 /** A GTIN-8, -12, -13 or -14 with a correct check digit. */
 export function isValidGtin(code: string): Gs1Check {
-  if (!DIGITS_ONLY.test(code)) return { ok: false, reason: 'GTIN must contain digits only' }
+  if (!DIGITS_ONLY.test(code)) return { ok: false, reason: 'GTIN must contain digits only', problem: problem('gtin_digits_only') }
   if (!GTIN_LENGTHS.includes(code.length)) {
-    return { ok: false, reason: `GTIN must be 8, 12, 13 or 14 digits (got ${code.length})` }
+    return { ok: false, reason: `GTIN must be 8, 12, 13 or 14 digits (got ${code.length})`, problem: problem('gtin_length', { length: code.length }) }
   }
   return checkLastDigit(`GTIN-${code.length}`, code)
 }
 
 /** An 18-digit Serial Shipping Container Code with a correct check digit. */
 export function isValidSscc(code: string): Gs1Check {
-  if (!DIGITS_ONLY.test(code)) return { ok: false, reason: 'SSCC must contain digits only' }
-  if (code.length !== SSCC_LENGTH) return { ok: false, reason: `SSCC must be 18 digits (got ${code.length})` }
+  if (!DIGITS_ONLY.test(code)) return { ok: false, reason: 'SSCC must contain digits only', problem: problem('sscc_digits_only') }
+  if (code.length !== SSCC_LENGTH) return { ok: false, reason: `SSCC must be 18 digits (got ${code.length})`, problem: problem('sscc_length', { length: code.length }) }
   return checkLastDigit('SSCC', code)
 }
 

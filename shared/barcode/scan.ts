@@ -165,9 +165,16 @@ export interface LabelPayload {
   data: string
 }
 
+/** What is wrong with a SKU, as a code for screens; skuProblem gives the same in English. */
+export function skuIssue(sku: string): 'sku_chars' | 'sku_like_gtin' | null {
+  if (!SKU_PATTERN.test(sku)) return 'sku_chars'
+  return looksLikeGtin(sku) ? 'sku_like_gtin' : null
+}
+
 export function skuProblem(sku: string): string | null {
-  if (!SKU_PATTERN.test(sku)) return `SKU "${sku}" must be 1 to 40 letters, digits or - . _ /, starting with a letter or digit`
-  if (looksLikeGtin(sku)) return `SKU "${sku}" would read as a GTIN: a SKU cannot be all digits of length 8, 12, 13 or 14`
+  const issue = skuIssue(sku)
+  if (issue === 'sku_chars') return `SKU "${sku}" must be 1 to 40 letters, digits or - . _ /, starting with a letter or digit`
+  if (issue === 'sku_like_gtin') return `SKU "${sku}" would read as a GTIN: a SKU cannot be all digits of length 8, 12, 13 or 14`
   return null
 }
 

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { ROLES } from '../roles.js'
 
 export const roleSchema = z.enum(ROLES)
@@ -8,19 +9,19 @@ export const localeSchema = z.enum(['en', 'es'])
 export const usernameSchema = z
   .string()
   .trim()
-  .min(3, 'At least 3 characters')
-  .max(40, 'At most 40 characters')
-  .regex(/^[a-z0-9._-]+$/, 'Lower-case letters, digits, dot, dash and underscore only')
+  .min(3)
+  .max(40)
+  .regex(/^[a-z0-9._-]+$/, issueCode('username_chars'))
 
 // ASVS 6.2.1/6.2.9: at least 12 characters, long passphrases allowed, no composition rules.
 export const passwordSchema = z
   .string()
-  .min(12, 'At least 12 characters')
-  .max(128, 'At most 128 characters')
+  .min(12)
+  .max(128)
 
 export const signInSchema = z.object({
-  username: z.string().trim().min(1, 'Enter your user name').max(40),
-  password: z.string().min(1, 'Enter your password').max(128),
+  username: z.string().trim().min(1).max(40),
+  password: z.string().min(1).max(128),
 })
 export type SignInInput = z.infer<typeof signInSchema>
 
@@ -36,17 +37,17 @@ export type SessionUser = z.infer<typeof sessionUserSchema>
 
 export const userCreateSchema = z.object({
   username: usernameSchema,
-  displayName: z.string().trim().min(1, 'Enter a name').max(80),
-  email: z.email('Enter a valid e-mail address').max(120).optional().or(z.literal('')),
-  roles: z.array(roleSchema).min(1, 'Give the user at least one role'),
+  displayName: z.string().trim().min(1).max(80),
+  email: z.email().max(120).optional().or(z.literal('')),
+  roles: z.array(roleSchema).min(1),
   password: passwordSchema,
 })
 export type UserCreateInput = z.infer<typeof userCreateSchema>
 
 export const userUpdateSchema = z.object({
-  displayName: z.string().trim().min(1, 'Enter a name').max(80).optional(),
-  email: z.email('Enter a valid e-mail address').max(120).optional().or(z.literal('')),
-  roles: z.array(roleSchema).min(1, 'Give the user at least one role').optional(),
+  displayName: z.string().trim().min(1).max(80).optional(),
+  email: z.email().max(120).optional().or(z.literal('')),
+  roles: z.array(roleSchema).min(1).optional(),
   active: z.boolean().optional(),
 })
 export type UserUpdateInput = z.infer<typeof userUpdateSchema>
@@ -54,7 +55,7 @@ export type UserUpdateInput = z.infer<typeof userUpdateSchema>
 export const passwordResetSchema = z.object({ password: passwordSchema })
 
 export const profileUpdateSchema = z.object({
-  displayName: z.string().trim().min(1, 'Enter a name').max(80).optional(),
+  displayName: z.string().trim().min(1).max(80).optional(),
   unitPreference: unitPreferenceSchema.optional(),
   locale: localeSchema.optional(),
 })
@@ -62,12 +63,12 @@ export type ProfileUpdateInput = z.infer<typeof profileUpdateSchema>
 
 export const passwordChangeSchema = z
   .object({
-    currentPassword: z.string().min(1, 'Enter your current password'),
+    currentPassword: z.string().min(1),
     newPassword: passwordSchema,
   })
   .refine((v) => v.currentPassword !== v.newPassword, {
     path: ['newPassword'],
-    message: 'Choose a password different from the current one',
+    ...issueOf('password_unchanged'),
   })
 
 export const userSummarySchema = z.object({

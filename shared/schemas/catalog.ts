@@ -1,8 +1,10 @@
 // Catalog items: what the item form, the import and the API agree on. The server parses with these;
 // the client validates its forms with the same schemas.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
+import type { ErrorCode, ErrorParams, RowProblem } from '../errors/errorCodes.js'
 import { isValidGtin, normalizeGtin } from '../barcode/checkDigit.js'
-import { skuProblem } from '../barcode/scan.js'
+import { skuIssue } from '../barcode/scan.js'
 import { BLOCK_SHAPES, ITEM_FAMILIES, STOCK_UNITS, THICKNESS_CLASSES } from '../catalog.js'
 import { MM_PER_INCH } from '../units.js'
 
@@ -15,26 +17,26 @@ const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
 const trimmed = (v: unknown) => (typeof v === 'string' ? v.trim() : v)
 
 /** A decimal as text (money, weights, sizes): digits, optional point, at most `places` decimals. */
-function decimalText(places: number, message: string, maxWhole = 8) {
+function decimalText(places: number, code?: 'cost_format' | 'price_format' | 'weight_format', maxWhole = 8) {
   const pattern = new RegExp(`^\\d{1,${maxWhole}}(\\.\\d{1,${places}})?$`)
   return z.preprocess(
     (v) => (typeof v === 'number' && Number.isFinite(v) ? String(v) : trimmed(v)),
-    z.string({ error: message }).regex(pattern, message),
+    z.string().refine((text) => pattern.test(text), code ? issueOf(code) : issueOf('decimal_places', { places })),
   )
 }
-const optionalDecimal = (places: number, message: string) =>
-  z.preprocess(blankToNull, decimalText(places, message).nullable()).optional()
+const optionalDecimal = (places: number) =>
+  z.preprocess(blankToNull, decimalText(places).nullable()).optional()
 
 const packQty = z.preprocess(
   blankToNull,
-  z.coerce.number({ error: 'A whole number of stock units' }).int('A whole number of stock units').positive('More than zero').max(100_000, 'At most 100,000').nullable(),
+  z.coerce.number().int().positive().max(100_000).nullable(),
 ).optional()
 
 export const skuSchema = z.preprocess(
   trimmed,
-  z.string({ error: 'Enter a SKU' }).min(1, 'Enter a SKU').superRefine((sku, ctx) => {
-    const problem = skuProblem(sku)
-    if (problem) ctx.addIssue({ code: 'custom', message: problem })
+  z.string().min(1).superRefine((sku, ctx) => {
+    const issue = skuIssue(sku)
+    if (issue) ctx.addIssue({ code: 'custom', ...issueOf(issue) })
   }),
 )
 
@@ -45,7 +47,7 @@ export const gtinSchema = z.preprocess(
     .string()
     .superRefine((code, ctx) => {
       const check = isValidGtin(code)
-      if (!check.ok) ctx.addIssue({ code: 'custom', message: check.reason })
+      if (!check.ok) ctx.addIssue({ code: 'custom', message: check.problem.code, params: check.problem.params })
     })
     .transform((code) => {
       const n = normalizeGtin(code)
@@ -55,68 +57,64 @@ export const gtinSchema = z.preprocess(
 ).optional()
 
 const optionalText = (max: number) =>
-  z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(max, `At most ${max} characters`).nullable()).optional()
-const flag = z.preprocess((v) => (v === 'true' || v === 'yes' || v === '1' ? true : v === 'false' || v === 'no' || v === '0' ? false : v), z.boolean({ error: 'Yes or no' }))
+  z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(max).nullable()).optional()
+const flag = z.preprocess((v) => (v === 'true' || v === 'yes' || v === '1' ? true : v === 'false' || v === 'no' || v === '0' ? false : v), z.boolean({ error: issueCode('yes_or_no') }))
 
 /** Every field of an item; `itemSchema` adds the checks between fields. */
 export const itemFields = z.object({
   sku: skuSchema,
-  name: z.preprocess(trimmed, z.string({ error: 'Enter a name' }).min(1, 'Enter a name').max(120, 'At most 120 characters')),
-  family: z.enum(ITEM_FAMILIES, { error: 'Choose a family' }),
-  stockUnit: z.enum(STOCK_UNITS, { error: 'Choose a stock unit' }),
+  name: z.preprocess(trimmed, z.string().min(1).max(120)),
+  family: z.enum(ITEM_FAMILIES),
+  stockUnit: z.enum(STOCK_UNITS),
   caseQty: packQty,
   palletQty: packQty,
   sellByPack: flag.optional(),
   gtin: gtinSchema,
-  weightKg: z.preprocess((v) => (v === '' || v === null ? undefined : v), decimalText(3, 'A weight in kg like 2.858 (up to 3 decimals)', 6).optional()),
-  cost: decimalText(4, 'A cost like 7.80 (up to 4 decimals)'),
-  listPrice: decimalText(2, 'A price like 13.95 (up to 2 decimals)'),
+  weightKg: z.preprocess((v) => (v === '' || v === null ? undefined : v), decimalText(3, 'weight_format', 6).optional()),
+  cost: decimalText(4, 'cost_format'),
+  listPrice: decimalText(2, 'price_format'),
   active: flag.optional(),
   madeToOrder: flag.optional(),
   matchLot: flag.optional(),
   nominalSize: optionalText(16),
-  faceWidthMm: optionalDecimal(2, 'Millimetres, up to 2 decimals'),
-  faceHeightMm: optionalDecimal(2, 'Millimetres, up to 2 decimals'),
-  depthMm: optionalDecimal(2, 'Millimetres, up to 2 decimals'),
-  thicknessClass: z.preprocess(blankToNull, z.enum(THICKNESS_CLASSES, { error: 'Standard or thin' }).nullable()).optional(),
-  pattern: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(30, 'At most 30 characters').regex(/^[a-z0-9_ -]+$/, 'Lower-case letters, digits, space, - and _').nullable()).optional(),
-  shape: z.preprocess(blankToNull, z.enum(BLOCK_SHAPES, { error: 'Choose a shape' }).nullable()).optional(),
-  cartridgeMl: optionalDecimal(2, 'Millilitres, up to 2 decimals'),
-  groutYieldMl: optionalDecimal(2, 'Millilitres, up to 2 decimals'),
-  jointMm: optionalDecimal(3, 'Millimetres, up to 3 decimals'),
+  faceWidthMm: optionalDecimal(2),
+  faceHeightMm: optionalDecimal(2),
+  depthMm: optionalDecimal(2),
+  thicknessClass: z.preprocess(blankToNull, z.enum(THICKNESS_CLASSES).nullable()).optional(),
+  pattern: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(30).regex(/^[a-z0-9_ -]+$/, issueCode('pattern_chars')).nullable()).optional(),
+  shape: z.preprocess(blankToNull, z.enum(BLOCK_SHAPES).nullable()).optional(),
+  cartridgeMl: optionalDecimal(2),
+  groutYieldMl: optionalDecimal(2),
+  jointMm: optionalDecimal(3),
   description: optionalText(2000),
 })
 export type ItemFields = z.infer<typeof itemFields>
 
-type Issue = { path: keyof ItemFields; message: string }
+type Issue = { path: keyof ItemFields; code: ErrorCode; params?: ErrorParams }
 
 /** Checks that need several fields: packs, block attributes, thickness against IRC R607.3. */
 export function itemCrossFieldIssues(v: Partial<ItemFields>): Issue[] {
   const issues: Issue[] = []
   if (v.caseQty && v.palletQty && v.palletQty % v.caseQty !== 0) {
-    issues.push({ path: 'palletQty', message: `A pallet holds whole cases: a multiple of ${v.caseQty}` })
+    issues.push({ path: 'palletQty', code: 'pallet_whole_cases', params: { caseQty: v.caseQty } })
   }
-  if (v.sellByPack && !v.caseQty) issues.push({ path: 'caseQty', message: 'Sold by the case: enter the case quantity' })
+  if (v.sellByPack && !v.caseQty) issues.push({ path: 'caseQty', code: 'case_qty_needed' })
   if (v.family === 'glass_block') {
     for (const key of ['nominalSize', 'faceWidthMm', 'faceHeightMm', 'depthMm', 'thicknessClass', 'shape'] as const) {
-      if (v[key] === null || v[key] === undefined) issues.push({ path: key, message: 'Required for a glass block' })
+      if (v[key] === null || v[key] === undefined) issues.push({ path: key, code: 'block_field_required' })
     }
     const depth = v.depthMm ? Number(v.depthMm) : NaN
     if (v.thicknessClass && depth + THICKNESS_SLACK_MM < LEAST_THICKNESS_MM[v.thicknessClass]) {
-      issues.push({
-        path: 'depthMm',
-        message: v.thicknessClass === 'standard'
-          ? 'A standard unit is at least 3 7/8 in (98.4 mm) thick (IRC R607.3); a thinner one is a thin unit'
-          : 'A thin unit is at least 3 1/8 in (79.4 mm) thick (IRC R607.3)',
-      })
+      const code = v.thicknessClass === 'standard' ? 'standard_block_too_thin' : 'thin_block_too_thin'
+      issues.push({ path: 'depthMm', code, params: { min: LEAST_THICKNESS_MM[v.thicknessClass], unit: 'mm' } })
     }
   }
-  if (v.madeToOrder && v.matchLot) issues.push({ path: 'matchLot', message: 'Made-to-order items are not stocked in lots' })
+  if (v.madeToOrder && v.matchLot) issues.push({ path: 'matchLot', code: 'made_to_order_no_lots' })
   return issues
 }
 
 export const itemSchema = itemFields.superRefine((v, ctx) => {
-  for (const issue of itemCrossFieldIssues(v)) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.message })
+  for (const issue of itemCrossFieldIssues(v)) ctx.addIssue({ code: 'custom', path: [issue.path], message: issue.code, params: issue.params })
 })
 export type ItemInput = z.infer<typeof itemSchema>
 
@@ -127,12 +125,12 @@ export type ItemPatch = z.infer<typeof itemPatchSchema>
 export const ITEM_SORTS = ['sku', 'name', 'family', 'listPrice', 'onHand'] as const
 
 export const itemListQuerySchema = z.object({
-  q: z.string().trim().max(80, 'At most 80 characters').optional(),
-  family: z.enum(ITEM_FAMILIES, { error: 'Not a family' }).optional(),
+  q: z.string().trim().max(80).optional(),
+  family: z.enum(ITEM_FAMILIES).optional(),
   size: z.string().trim().max(16).optional(),
   pattern: z.string().trim().max(30).optional(),
-  shape: z.enum(BLOCK_SHAPES, { error: 'Not a shape' }).optional(),
-  thickness: z.enum(THICKNESS_CLASSES, { error: 'Standard or thin' }).optional(),
+  shape: z.enum(BLOCK_SHAPES).optional(),
+  thickness: z.enum(THICKNESS_CLASSES).optional(),
   active: z.enum(['true', 'false', 'all']).default('true'),
   page: z.coerce.number().int().min(1).max(100_000).default(1),
   pageSize: z.coerce.number().int().min(1).max(5000).default(100),
@@ -235,7 +233,7 @@ export interface LotRow {
 }
 
 export const lotUpdateSchema = z.object({
-  tintNote: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(120, 'At most 120 characters').nullable()),
+  tintNote: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(120).nullable()),
 })
 export type LotUpdateInput = z.infer<typeof lotUpdateSchema>
 
@@ -245,7 +243,7 @@ export interface ImportPreviewRow {
   sku: string | null
   name: string | null
   action: 'create' | 'update'
-  errors: { column: string | null; message: string }[]
+  errors: RowProblem[]
 }
 
 export interface ImportPreview {

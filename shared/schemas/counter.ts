@@ -1,6 +1,7 @@
 // The Counter's requests and answers: contractor accounts, jobs, saved takeoffs, bills of materials,
 // and the admin's material rules and role → item mapping. The forms validate with these same schemas.
 import { z } from 'zod'
+import { issueCode } from '../errors/zodProblems.js'
 import { idSchema } from './stock.js'
 import {
   jointKindSchema,
@@ -20,21 +21,21 @@ import type { BomExplanation, TakeoffTotals, WallResult } from '../takeoff/billO
 import type { Caution } from '../takeoff/cautions.js'
 
 const optionalText = (max: number) =>
-  z.string().trim().max(max, `At most ${max} characters`).optional().nullable().transform((v) => (v ? v : null))
+  z.string().trim().max(max).optional().nullable().transform((v) => (v ? v : null))
 
 export const customerCodeSchema = z
   .string()
   .trim()
-  .min(2, 'At least 2 characters')
-  .max(20, 'At most 20 characters')
-  .regex(/^[A-Za-z0-9-]+$/, 'Letters, digits and dashes only')
+  .min(2)
+  .max(20)
+  .regex(/^[A-Za-z0-9-]+$/, issueCode('customer_code_chars'))
   .transform((v) => v.toUpperCase())
 
 export const customerCreateSchema = z.object({
   code: customerCodeSchema,
-  name: z.string().trim().min(1, 'Enter the account name').max(120, 'At most 120 characters'),
+  name: z.string().trim().min(1).max(120),
   contactName: optionalText(80),
-  email: z.email('Enter a valid e-mail address').max(120).optional().nullable().or(z.literal('')).transform((v) => v || null),
+  email: z.email().max(120).optional().nullable().or(z.literal('')).transform((v) => v || null),
   phone: optionalText(40),
   address: optionalText(200),
   notes: optionalText(2000),
@@ -50,20 +51,20 @@ export const customerQuerySchema = z.object({
 })
 
 export const JOB_STATUSES = ['open', 'ordered', 'picking', 'complete', 'cancelled'] as const
-export const jobStatusSchema = z.enum(JOB_STATUSES, { error: 'Choose a status' })
+export const jobStatusSchema = z.enum(JOB_STATUSES)
 export type JobStatusName = z.infer<typeof jobStatusSchema>
 
 const dueDateSchema = z
   .string()
-  .regex(/^\d{4}-\d{2}-\d{2}$/, 'A date like 2025-06-30')
-  .refine((v) => !Number.isNaN(Date.parse(v + 'T00:00:00Z')) && new Date(v + 'T00:00:00Z').toISOString().startsWith(v), 'Not a real date')
+  .regex(/^\d{4}-\d{2}-\d{2}$/, issueCode('invalid_date'))
+  .refine((v) => !Number.isNaN(Date.parse(v + 'T00:00:00Z')) && new Date(v + 'T00:00:00Z').toISOString().startsWith(v), issueCode('invalid_date'))
   .optional()
   .nullable()
   .or(z.literal('').transform(() => null))
 
 export const jobCreateSchema = z.object({
   customerId: idSchema,
-  name: z.string().trim().min(1, 'Name the job').max(120, 'At most 120 characters'),
+  name: z.string().trim().min(1).max(120),
   siteAddress: optionalText(200),
   status: jobStatusSchema.default('open'),
   dueDate: dueDateSchema.transform((v) => v ?? null),
@@ -82,7 +83,7 @@ export const jobQuerySchema = z.object({
 })
 
 export const takeoffSaveSchema = z.object({
-  name: z.string().trim().min(1, 'Name the takeoff').max(120, 'At most 120 characters'),
+  name: z.string().trim().min(1).max(120),
   input: takeoffSchema,
 })
 export type TakeoffSaveInput = z.infer<typeof takeoffSaveSchema>
@@ -95,7 +96,7 @@ export type ComputeRequest = z.infer<typeof computeRequestSchema>
 
 /** The form fields sent with a takeoff spreadsheet. */
 export const takeoffImportFieldsSchema = z.object({
-  name: z.string().trim().min(1).max(120, 'At most 120 characters').optional(),
+  name: z.string().trim().min(1).max(120).optional(),
   unit: lengthUnitSchema.optional(),
 })
 

@@ -1,6 +1,7 @@
 // Spreadsheet downloads keep no time zone: the screen sends the reader's (IANA name) and the server writes
 // each time as the wall-clock time there.
 import { z } from 'zod'
+import { issueCode } from '../errors/zodProblems.js'
 
 export function isTimeZone(zone: string): boolean {
   try {
@@ -14,7 +15,7 @@ export function isTimeZone(zone: string): boolean {
 /** `tz`: an IANA time zone; UTC when absent. */
 export const timeZoneParam = z.preprocess(
   (v: unknown) => (v === '' || v === null ? undefined : v),
-  z.string().max(64).refine((zone) => isTimeZone(zone), 'Not a time zone').default('UTC'),
+  z.string().max(64).refine((zone) => isTimeZone(zone), issueCode('time_zone_unknown')).default('UTC'),
 )
 
 /** The query of a download that writes times. */

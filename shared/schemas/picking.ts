@@ -1,5 +1,6 @@
 // Pick lists: requests (parsed by the server, validated by the client's forms) and answers.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import type { HandlingCaution } from '../picking/handling.js'
 
 export const PICK_LIST_STATUSES = ['draft', 'released', 'picking', 'picked', 'cancelled'] as const
@@ -18,27 +19,27 @@ export type ShortageAction = (typeof SHORTAGE_ACTIONS)[number]
 export const PICK_MODES = ['single', 'split'] as const
 export type PickMode = (typeof PICK_MODES)[number]
 
-const id = z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one')
-const note = z.string().trim().max(200, 'At most 200 characters').optional().nullable()
-const scan = z.string().max(200, 'That scan is too long')
+const id = z.coerce.number().int().positive()
+const note = z.string().trim().max(200).optional().nullable()
+const scan = z.string().max(200)
 
 export const pickPlanSchema = z.object({
   bomId: id,
   warehouseId: id,
   /** single: one warehouse, shortages resolved by choice; split: the rest from the other warehouses. */
-  mode: z.enum(PICK_MODES, { error: 'Choose one warehouse or split' }).default('single'),
+  mode: z.enum(PICK_MODES).default('single'),
 })
 export type PickPlanInput = z.infer<typeof pickPlanSchema>
 
 export const shortageChoiceSchema = z
   .object({
     bomLineId: id,
-    action: z.enum(SHORTAGE_ACTIONS, { error: 'Choose what to do' }),
+    action: z.enum(SHORTAGE_ACTIONS),
     fromWarehouseId: id.optional().nullable(),
     substituteItemId: id.optional().nullable(),
   })
-  .refine((c) => c.action !== 'transfer' || !!c.fromWarehouseId, { path: ['fromWarehouseId'], message: 'Choose the warehouse to transfer from' })
-  .refine((c) => c.action !== 'substitute' || !!c.substituteItemId, { path: ['substituteItemId'], message: 'Choose the substitute item' })
+  .refine((c) => c.action !== 'transfer' || !!c.fromWarehouseId, { path: ['fromWarehouseId'], ...issueOf('transfer_source_needed') })
+  .refine((c) => c.action !== 'substitute' || !!c.substituteItemId, { path: ['substituteItemId'], ...issueOf('substitute_needed') })
 
 export const pickCreateSchema = pickPlanSchema.extend({
   release: z.boolean().default(false),
@@ -47,24 +48,24 @@ export const pickCreateSchema = pickPlanSchema.extend({
     .array(shortageChoiceSchema)
     .max(500)
     .default([])
-    .refine((list) => new Set(list.map((c) => c.bomLineId)).size === list.length, 'One choice per line'),
+    .refine((list) => new Set(list.map((c) => c.bomLineId)).size === list.length, issueCode('one_choice_per_line')),
 })
 export type PickCreateInput = z.infer<typeof pickCreateSchema>
 
 export const pickConfirmSchema = z
   .object({
     lineId: id,
-    binScan: scan.trim().min(1, 'Scan the bin'),
+    binScan: scan.trim().min(1),
     itemScan: scan.optional().nullable(),
     lotScan: scan.optional().nullable(),
-    qty: z.coerce.number({ error: 'Enter a quantity' }).int('Whole units only').min(0, 'Not below zero').max(1_000_000, 'Too large'),
+    qty: z.coerce.number().int().min(0).max(1_000_000),
     /** Closes the line short: what was not there and why. */
-    shortReason: z.enum(SHORT_REASONS, { error: 'Choose why' }).optional().nullable(),
+    shortReason: z.enum(SHORT_REASONS).optional().nullable(),
     /** When the picker confirmed on the device (it may reach the server much later). */
     scannedAt: z.iso.datetime({ offset: true, error: 'A date and time' }).optional().nullable(),
   })
-  .refine((c) => c.qty > 0 || !!c.shortReason, { path: ['qty'], message: 'More than zero, or close the line short' })
-  .refine((c) => c.qty === 0 || !!c.itemScan?.trim(), { path: ['itemScan'], message: 'Scan the item' })
+  .refine((c) => c.qty > 0 || !!c.shortReason, { path: ['qty'], ...issueOf('qty_or_short') })
+  .refine((c) => c.qty === 0 || !!c.itemScan?.trim(), { path: ['itemScan'], ...issueOf('scan_item') })
 export type PickConfirmInput = z.infer<typeof pickConfirmSchema>
 
 export const pickCompleteSchema = z.object({

@@ -1,6 +1,7 @@
 // Purchasing requests (vendors, vendor items, purchase orders, e-mail, receiving, settings). The server
 // parses with these; the client's forms validate with the same ones.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { idSchema } from './stock.js'
 
 /** Optional text: blank becomes null, so "clear the field" and "never set" store the same. */
@@ -8,17 +9,17 @@ const optionalText = (max: number) =>
   z
     .string()
     .trim()
-    .max(max, `At most ${max} characters`)
+    .max(max)
     .nullish()
     .transform((v) => (v ? v : null))
 
-const emailSchema = z.email('Enter a valid e-mail address').max(120, 'At most 120 characters')
-const daysSchema = z.coerce.number({ error: 'Enter a number of days' }).int('Whole days').min(0, 'Not negative').max(365, 'At most a year')
+const emailSchema = z.email().max(120)
+const daysSchema = z.coerce.number().int().min(0).max(365)
 export const unitCostSchema = z
-  .string({ error: 'Enter a cost' })
+  .string()
   .trim()
-  .regex(/^\d{1,8}(\.\d{1,4})?$/, 'A cost like 12.50 (up to 4 decimals)')
-const isoDate = z.iso.date('A date like 2026-03-31')
+  .regex(/^\d{1,8}(\.\d{1,4})?$/, issueCode('cost_format'))
+const isoDate = z.iso.date()
 
 export const PO_STATUSES = ['draft', 'approved', 'sent', 'partly_received', 'received', 'closed', 'cancelled'] as const
 export type PoStatus = (typeof PO_STATUSES)[number]
@@ -27,12 +28,12 @@ export type PoStatus = (typeof PO_STATUSES)[number]
 
 export const vendorCreateSchema = z.object({
   code: z
-    .string({ error: 'Enter a code' })
+    .string()
     .trim()
-    .min(1, 'Enter a code')
-    .max(20, 'At most 20 characters')
-    .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, 'Letters, digits and . _ - only'),
-  name: z.string({ error: 'Enter a name' }).trim().min(1, 'Enter a name').max(120, 'At most 120 characters'),
+    .min(1)
+    .max(20)
+    .regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, issueCode('vendor_code_chars')),
+  name: z.string().trim().min(1).max(120),
   contactName: optionalText(80),
   email: z
     .union([emailSchema, z.literal(''), z.null()])
@@ -44,7 +45,7 @@ export const vendorCreateSchema = z.object({
   currency: z
     .string()
     .trim()
-    .regex(/^[A-Z]{3}$/, 'A three-letter currency code such as USD')
+    .regex(/^[A-Z]{3}$/, issueCode('currency_code'))
     .default('USD'),
   leadTimeDays: daysSchema.default(14),
   active: z.boolean().default(true),
@@ -56,9 +57,9 @@ export type VendorUpdateInput = z.infer<typeof vendorUpdateSchema>
 
 export const vendorItemSchema = z.object({
   itemId: idSchema,
-  vendorSku: z.string({ error: "Enter the vendor's SKU" }).trim().min(1, "Enter the vendor's SKU").max(40, 'At most 40 characters'),
-  packQty: z.coerce.number({ error: 'Enter a pack size' }).int('Whole units').min(1, 'At least 1').max(100_000, 'Too large'),
-  minOrderQty: z.coerce.number({ error: 'Enter a minimum' }).int('Whole units').min(1, 'At least 1').max(1_000_000, 'Too large'),
+  vendorSku: z.string().trim().min(1).max(40),
+  packQty: z.coerce.number().int().min(1).max(100_000),
+  minOrderQty: z.coerce.number().int().min(1).max(1_000_000),
   unitCost: unitCostSchema,
   leadTimeDays: daysSchema.nullish().transform((v) => v ?? null),
   preferred: z.boolean().default(false),
@@ -69,15 +70,15 @@ export type VendorItemUpdateInput = z.infer<typeof vendorItemUpdateSchema>
 
 // ---- purchase orders ----
 
-const packsSchema = z.coerce.number({ error: 'Enter packs' }).int('Whole packs').min(1, 'At least one pack').max(100_000, 'Too many packs')
+const packsSchema = z.coerce.number().int().min(1).max(100_000)
 
 export const poLineInputSchema = z.object({
   itemId: idSchema,
   packsOrdered: packsSchema,
   /** Defaults to the vendor item's pack and cost. */
-  packQty: z.coerce.number().int('Whole units').min(1, 'At least 1').max(100_000).optional(),
+  packQty: z.coerce.number().int().min(1).max(100_000).optional(),
   unitCost: unitCostSchema.optional(),
-  description: z.string().trim().min(1).max(200, 'At most 200 characters').optional(),
+  description: z.string().trim().min(1).max(200).optional(),
 })
 export type PoLineInput = z.infer<typeof poLineInputSchema>
 
@@ -86,12 +87,12 @@ export const poManualSchema = z.object({
   warehouseId: idSchema,
   expectedDate: isoDate.nullish(),
   notes: optionalText(2000),
-  lines: z.array(poLineInputSchema).min(1, 'Add at least one line').max(300, 'At most 300 lines'),
+  lines: z.array(poLineInputSchema).min(1).max(300),
 })
 export type PoManualInput = z.infer<typeof poManualSchema>
 
 export const poFromSuggestionsSchema = z.object({
-  suggestionIds: z.array(idSchema).min(1, 'Choose at least one suggestion').max(500, 'At most 500 at once'),
+  suggestionIds: z.array(idSchema).min(1).max(500),
 })
 export type PoFromSuggestionsInput = z.infer<typeof poFromSuggestionsSchema>
 
@@ -123,7 +124,7 @@ export const poSendSchema = z.object({
     .union([emailSchema, z.literal('')])
     .optional()
     .transform((v) => (v ? v : undefined)),
-  cc: z.array(emailSchema).max(5, 'At most 5 copies').default([]),
+  cc: z.array(emailSchema).max(5).default([]),
   message: optionalText(2000),
 })
 export type PoSendInput = z.infer<typeof poSendSchema>
@@ -133,16 +134,16 @@ export const poListQuerySchema = z.object({
     .string()
     .optional()
     .transform((v) => (v ? v.split(',') : []))
-    .pipe(z.array(z.enum(PO_STATUSES, { error: 'Unknown status' }))),
+    .pipe(z.array(z.enum(PO_STATUSES))),
   vendorId: idSchema.optional(),
   q: z.string().trim().max(60).optional(),
 })
 
 export const poExportQuerySchema = z.object({
   ids: z
-    .string({ error: 'Choose purchase orders' })
+    .string()
     .transform((v) => v.split(',').map((s) => Number(s)))
-    .pipe(z.array(z.number().int('Not an order').positive('Not an order')).min(1, 'Choose purchase orders').max(200, 'At most 200 at once')),
+    .pipe(z.array(z.number().int().positive()).min(1).max(200)),
 })
 
 // ---- receiving ----
@@ -151,8 +152,8 @@ export const lotCodeSchema = z
   .string()
   .trim()
   .min(1)
-  .max(20, 'At most 20 characters')
-  .regex(/^[A-Za-z0-9._/-]+$/, 'Letters, digits and . _ / - only')
+  .max(20)
+  .regex(/^[A-Za-z0-9._/-]+$/, issueCode('lot_code_chars'))
 
 export const receiveLineSchema = z
   .object({
@@ -160,17 +161,17 @@ export const receiveLineSchema = z
     binId: idSchema,
     lotCode: lotCodeSchema.nullish().transform((v) => v ?? null),
     /** Good units into stock. */
-    qty: z.coerce.number({ error: 'Enter a quantity' }).int('Whole units').min(0, 'Not negative').max(1_000_000),
+    qty: z.coerce.number().int().min(0).max(1_000_000),
     /** Arrived damaged, refused: not stocked, still owed. */
-    damagedQty: z.coerce.number().int('Whole units').min(0, 'Not negative').max(1_000_000).default(0),
+    damagedQty: z.coerce.number().int().min(0).max(1_000_000).default(0),
     reason: optionalText(200),
   })
-  .refine((l) => l.qty + l.damagedQty > 0, { path: ['qty'], message: 'Enter what arrived' })
-  .refine((l) => l.damagedQty === 0 || !!l.reason, { path: ['reason'], message: 'Say what was damaged' })
+  .refine((l) => l.qty + l.damagedQty > 0, { path: ['qty'], ...issueOf('enter_what_arrived') })
+  .refine((l) => l.damagedQty === 0 || !!l.reason, { path: ['reason'], ...issueOf('damage_reason_needed') })
 export type ReceiveLineInput = z.infer<typeof receiveLineSchema>
 
 export const receiveSchema = z.object({
-  lines: z.array(receiveLineSchema).min(1, 'Add at least one line').max(500, 'At most 500 lines'),
+  lines: z.array(receiveLineSchema).min(1).max(500),
   note: optionalText(200),
 })
 export type ReceiveInput = z.infer<typeof receiveSchema>

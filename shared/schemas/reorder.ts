@@ -1,5 +1,6 @@
 // Reorder suggestions, policies and accepting: requests the server parses (and forms validate) and the answers.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { ITEM_FAMILIES, type ItemFamily } from '../catalog.js'
 import type { AbcClass } from '../inventory/abc.js'
 import type { Explanation, ReorderPolicy, ReorderStatus } from '../inventory/reorder.js'
@@ -17,17 +18,17 @@ export const USAGE_WINDOW_MIN_DAYS = 28
 export const USAGE_WINDOW_MAX_DAYS = 730
 
 const windowDaysSchema = z.coerce
-  .number({ error: 'Enter a number of days' })
-  .int('Whole days only')
-  .min(USAGE_WINDOW_MIN_DAYS, `At least ${USAGE_WINDOW_MIN_DAYS} days`)
-  .max(USAGE_WINDOW_MAX_DAYS, `At most ${USAGE_WINDOW_MAX_DAYS} days`)
+  .number()
+  .int()
+  .min(USAGE_WINDOW_MIN_DAYS)
+  .max(USAGE_WINDOW_MAX_DAYS)
 
 export const suggestionQuerySchema = z.object({
   warehouseId: idSchema.optional(),
   vendorId: idSchema.optional(),
-  family: z.enum(ITEM_FAMILIES, { error: 'Choose a family' }).optional(),
-  abc: z.enum(ABC_CLASSES, { error: 'Choose A, B or C' }).optional(),
-  status: z.enum(REORDER_STATUSES, { error: 'Choose a group' }).optional(),
+  family: z.enum(ITEM_FAMILIES).optional(),
+  abc: z.enum(ABC_CLASSES).optional(),
+  status: z.enum(REORDER_STATUSES).optional(),
   windowDays: windowDaysSchema.optional(),
 })
 export type SuggestionQuery = z.infer<typeof suggestionQuerySchema>
@@ -36,30 +37,30 @@ export const lineQuerySchema = z.object({ windowDays: windowDaysSchema.optional(
 
 export const historyQuerySchema = z.object({
   windowDays: windowDaysSchema.optional(),
-  horizonDays: z.coerce.number({ error: 'Enter days' }).int('Whole days only').min(0, 'Not negative').max(365, 'At most 365 days').optional(),
+  horizonDays: z.coerce.number().int().min(0).max(365).optional(),
 })
 
-const days = (max: number) => z.number({ error: 'Enter days' }).int('Whole days only').min(0, 'Not negative').max(max, `At most ${max} days`)
-const share = z.number({ error: 'Enter a share between 0 and 1' }).gt(0, 'More than 0').max(1, 'At most 1')
+const days = (max: number) => z.number().int().min(0).max(max)
+const share = z.number().gt(0).max(1)
 const nullable = <T extends z.ZodType>(schema: T) => schema.nullable().optional()
 
 /** Every setting a layer may hold; null or absent inherits from the layer before. */
 export const policyFieldsSchema = z.object({
-  serviceLevel: nullable(z.number({ error: 'Enter a service level' }).min(0.5, 'At least 0.5 (50 %)').max(0.999, 'At most 0.999 (99.9 %)')),
-  reviewPeriodDays: nullable(days(365).refine((v) => v >= 1, 'At least 1 day')),
-  costPerOrder: nullable(z.string().trim().regex(/^\d{1,8}(\.\d{1,2})?$/, 'An amount like 25.00')),
-  holdingRatePerYear: nullable(z.number({ error: 'Enter a rate like 0.25' }).min(0, 'Not negative').max(2, 'At most 2 (200 % a year)')),
-  method: nullable(z.enum(REORDER_METHODS, { error: 'Choose a method' })),
+  serviceLevel: nullable(z.number().min(0.5).max(0.999)),
+  reviewPeriodDays: nullable(days(365).min(1)),
+  costPerOrder: nullable(z.string().trim().regex(/^\d{1,8}(\.\d{1,2})?$/, issueCode('amount_format'))),
+  holdingRatePerYear: nullable(z.number().min(0).max(2)),
+  method: nullable(z.enum(REORDER_METHODS)),
   soonDays: nullable(days(365)),
   overstockMarginDays: nullable(days(730)),
-  deadStockDays: nullable(days(1095).refine((v) => v >= 1, 'At least 1 day')),
+  deadStockDays: nullable(days(1095).min(1)),
   usageWindowDays: nullable(windowDaysSchema),
   abcCutoffA: nullable(share),
   abcCutoffB: nullable(share),
-  overrideReorderPoint: nullable(z.number({ error: 'Enter a quantity' }).int('Whole units only').min(0, 'Not negative').max(1_000_000, 'Too large')),
-  overrideOrderQty: nullable(z.number({ error: 'Enter a quantity' }).int('Whole units only').min(1, 'More than zero').max(1_000_000, 'Too large')),
-  overrideReason: nullable(z.string().trim().max(200, 'At most 200 characters')),
-  note: nullable(z.string().trim().max(200, 'At most 200 characters')),
+  overrideReorderPoint: nullable(z.number().int().min(0).max(1_000_000)),
+  overrideOrderQty: nullable(z.number().int().min(1).max(1_000_000)),
+  overrideReason: nullable(z.string().trim().max(200)),
+  note: nullable(z.string().trim().max(200)),
 })
 
 const GLOBAL_ONLY = ['usageWindowDays', 'abcCutoffA', 'abcCutoffB'] as const
@@ -67,31 +68,31 @@ const OVERRIDES = ['overrideReorderPoint', 'overrideOrderQty'] as const
 
 export const policyUpsertSchema = policyFieldsSchema
   .extend({
-    scope: z.enum(POLICY_SCOPES, { error: 'Choose what the policy applies to' }),
-    family: z.enum(ITEM_FAMILIES, { error: 'Choose a family' }).optional(),
-    abcClass: z.enum(ABC_CLASSES, { error: 'Choose A, B or C' }).optional(),
+    scope: z.enum(POLICY_SCOPES),
+    family: z.enum(ITEM_FAMILIES).optional(),
+    abcClass: z.enum(ABC_CLASSES).optional(),
     itemId: idSchema.optional(),
     warehouseId: idSchema.optional(),
   })
   .superRefine((v, ctx) => {
     const need = (field: 'family' | 'abcClass' | 'itemId' | 'warehouseId') => {
-      if (v[field] === undefined) ctx.addIssue({ code: 'custom', path: [field], message: 'Required for this scope' })
+      if (v[field] === undefined) ctx.addIssue({ code: 'custom', path: [field], ...issueOf('required_for_scope') })
     }
     if (v.scope === 'family') need('family')
     if (v.scope === 'abc') need('abcClass')
     if (v.scope === 'item_warehouse') { need('itemId'); need('warehouseId') }
     if (v.scope !== 'global') {
-      for (const f of GLOBAL_ONLY) if (v[f] != null) ctx.addIssue({ code: 'custom', path: [f], message: 'Set this on the global policy' })
+      for (const f of GLOBAL_ONLY) if (v[f] != null) ctx.addIssue({ code: 'custom', path: [f], ...issueOf('global_policy_only') })
     }
     const overridden = OVERRIDES.filter((f) => v[f] != null)
     if (overridden.length && v.scope !== 'item_warehouse') {
-      for (const f of overridden) ctx.addIssue({ code: 'custom', path: [f], message: 'Overrides belong to one item in one warehouse' })
+      for (const f of overridden) ctx.addIssue({ code: 'custom', path: [f], ...issueOf('override_item_only') })
     }
     if (overridden.length && !v.overrideReason) {
-      ctx.addIssue({ code: 'custom', path: ['overrideReason'], message: 'Say why the computed figure is set aside' })
+      ctx.addIssue({ code: 'custom', path: ['overrideReason'], ...issueOf('override_reason_needed') })
     }
     if (v.abcCutoffA != null && v.abcCutoffB != null && v.abcCutoffA > v.abcCutoffB) {
-      ctx.addIssue({ code: 'custom', path: ['abcCutoffB'], message: 'B must reach at least as far as A' })
+      ctx.addIssue({ code: 'custom', path: ['abcCutoffB'], ...issueOf('abc_cutoffs_order') })
     }
   })
 export type PolicyUpsertInput = z.infer<typeof policyUpsertSchema>
@@ -101,10 +102,10 @@ export const acceptSchema = z.object({
     .array(z.object({
       itemId: idSchema,
       warehouseId: idSchema,
-      qty: z.number({ error: 'Enter a quantity' }).int('Whole units only').positive('More than zero').max(1_000_000, 'Too large').optional(),
+      qty: z.number().int().positive().max(1_000_000).optional(),
     }))
-    .min(1, 'Choose at least one line')
-    .max(2000, 'At most 2,000 lines at once'),
+    .min(1)
+    .max(2000),
 })
 export type AcceptInput = z.infer<typeof acceptSchema>
 

@@ -1,33 +1,34 @@
 // Requests that change stock. The server parses with these; the client's forms validate with them.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { ADJUSTMENT_REASONS } from '../catalog.js'
 
-export const idSchema = z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one')
+export const idSchema = z.coerce.number().int().positive()
 export const lotIdSchema = z.union([idSchema, z.null()]).default(null)
 export const qtySchema = z.coerce
-  .number({ error: 'Enter a quantity' })
-  .int('Whole units only')
-  .positive('More than zero')
-  .max(1_000_000, 'That is more than a million units')
-const noteSchema = z.string().trim().max(200, 'At most 200 characters').optional().nullable()
+  .number()
+  .int()
+  .positive()
+  .max(1_000_000)
+const noteSchema = z.string().trim().max(200).optional().nullable()
 const costSchema = z
   .string()
   .trim()
-  .regex(/^\d{1,8}(\.\d{1,4})?$/, 'A cost like 12.50 (up to 4 decimals)')
+  .regex(/^\d{1,8}(\.\d{1,4})?$/, issueCode('cost_format'))
 
 export const adjustmentSchema = z
   .object({
     itemId: idSchema,
     binId: idSchema,
     lotId: lotIdSchema,
-    delta: z.coerce.number({ error: 'Enter a change' }).int('Whole units only').refine((v) => v !== 0, 'Not zero').refine((v) => Math.abs(v) <= 1_000_000, 'Too large'),
-    reason: z.enum(ADJUSTMENT_REASONS, { error: 'Choose a reason' }),
+    delta: z.coerce.number().int().refine((v) => v !== 0, issueCode('not_zero')).min(-1_000_000).max(1_000_000),
+    reason: z.enum(ADJUSTMENT_REASONS),
     note: noteSchema,
   })
-  .refine((v) => !(v.reason === 'found' && v.delta < 0), { path: ['delta'], message: 'Found stock adds units' })
+  .refine((v) => !(v.reason === 'found' && v.delta < 0), { path: ['delta'], ...issueOf('found_adds_units') })
   .refine((v) => !((v.reason === 'damaged' || v.reason === 'written_off') && v.delta > 0), {
     path: ['delta'],
-    message: 'Damaged or written-off stock removes units',
+    ...issueOf('loss_removes_units'),
   })
 export type AdjustmentInput = z.infer<typeof adjustmentSchema>
 
@@ -42,7 +43,7 @@ export const binMoveSchema = z.object({
 export type BinMoveInput = z.infer<typeof binMoveSchema>
 
 export const issueSchema = z.object({
-  lines: z.array(z.object({ itemId: idSchema, binId: idSchema, lotId: lotIdSchema, qty: qtySchema })).min(1, 'Add at least one line').max(500),
+  lines: z.array(z.object({ itemId: idSchema, binId: idSchema, lotId: lotIdSchema, qty: qtySchema })).min(1).max(500),
   reason: z.string().trim().max(20).optional().nullable(),
   note: noteSchema,
 })
@@ -56,12 +57,12 @@ export const receiptSchema = z.object({
         itemId: idSchema,
         binId: idSchema,
         lotId: lotIdSchema.optional(),
-        lotCode: z.string().trim().min(1).max(20).regex(/^[A-Za-z0-9._/-]+$/, 'Letters, digits and . _ / - only').optional().nullable(),
+        lotCode: z.string().trim().min(1).max(20).regex(/^[A-Za-z0-9._/-]+$/, issueCode('lot_code_chars')).optional().nullable(),
         qty: qtySchema,
         unitCost: costSchema,
       }),
     )
-    .min(1, 'Add at least one line')
+    .min(1)
     .max(500),
   note: noteSchema,
 })
@@ -70,12 +71,12 @@ export type ReceiptInput = z.infer<typeof receiptSchema>
 export const transferShipSchema = z.object({
   fromWarehouseId: idSchema,
   toWarehouseId: idSchema,
-  lines: z.array(z.object({ itemId: idSchema, lotId: lotIdSchema, fromBinId: idSchema, qty: qtySchema })).min(1, 'Add at least one line').max(500),
+  lines: z.array(z.object({ itemId: idSchema, lotId: lotIdSchema, fromBinId: idSchema, qty: qtySchema })).min(1).max(500),
   note: noteSchema,
 })
 export type TransferShipInput = z.infer<typeof transferShipSchema>
 
 export const transferReceiveSchema = z.object({
-  lines: z.array(z.object({ lineId: idSchema, toBinId: idSchema, qty: qtySchema })).min(1, 'Add at least one line').max(500),
+  lines: z.array(z.object({ lineId: idSchema, toBinId: idSchema, qty: qtySchema })).min(1).max(500),
 })
 export type TransferReceiveInput = z.infer<typeof transferReceiveSchema>

@@ -1,14 +1,15 @@
 // Reading stock: query strings the server parses (and the screens build), and the answers' shapes.
 // Query values arrive as strings; an empty value means "no filter".
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { MOVE_TYPES, type BinKind, type MoveType, type StockUnit } from '../catalog.js'
 import { timeZoneParam } from './exportQuery.js'
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
-const optionalId = z.preprocess(blankToUndefined, z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one').optional())
-const requiredId = z.preprocess(blankToUndefined, z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one'))
-const flag = z.preprocess(blankToUndefined, z.enum(['true', 'false'], { error: 'true or false' }).optional()).transform((v) => v === 'true')
-const searchText = z.preprocess(blankToUndefined, z.string().trim().max(80, 'At most 80 characters').optional())
+const optionalId = z.preprocess(blankToUndefined, z.coerce.number().int().positive().optional())
+const requiredId = z.preprocess(blankToUndefined, z.coerce.number().int().positive())
+const flag = z.preprocess(blankToUndefined, z.enum(['true', 'false']).optional()).transform((v) => v === 'true')
+const searchText = z.preprocess(blankToUndefined, z.string().trim().max(80).optional())
 
 /** A day (YYYY-MM-DD, read as UTC) or an instant with its offset (what the screens send for local days). */
 const instant = z.preprocess(
@@ -125,7 +126,7 @@ const moveTypes = z.preprocess(
   z
     .array(z.string())
     .max(MOVE_TYPES.length)
-    .refine((xs) => xs.every((x) => (MOVE_TYPES as readonly string[]).includes(x)), 'Not a kind of move')
+    .refine((xs) => xs.every((x) => (MOVE_TYPES as readonly string[]).includes(x)), issueCode('invalid_choice'))
     .transform((xs) => xs as MoveType[])
     .optional(),
 )
@@ -136,14 +137,14 @@ const ledgerFilterShape = {
   binId: optionalId,
   lotId: optionalId,
   moveType: moveTypes,
-  docType: z.preprocess(blankToUndefined, z.string().trim().regex(/^[a-z_]{1,20}$/, 'Lower-case letters and _ only').optional()),
+  docType: z.preprocess(blankToUndefined, z.string().trim().regex(/^[a-z_]{1,20}$/, issueCode('invalid_format')).optional()),
   docId: optionalId,
   /** Inclusive start. */
   from: instant,
   /** A day: through its end. An instant: up to, not including, it. */
   to: instant,
-  sort: z.preprocess(blankToUndefined, z.enum(LEDGER_SORTS, { error: 'Not a sortable column' }).default('at')),
-  dir: z.preprocess(blankToUndefined, z.enum(['asc', 'desc'], { error: 'asc or desc' }).default('desc')),
+  sort: z.preprocess(blankToUndefined, z.enum(LEDGER_SORTS).default('at')),
+  dir: z.preprocess(blankToUndefined, z.enum(['asc', 'desc']).default('desc')),
 }
 
 const fromBeforeTo = (v: { from?: string; to?: string }) => !v.from || !v.to || new Date(v.from).getTime() <= new Date(v.to).getTime()
@@ -151,10 +152,10 @@ const fromBeforeTo = (v: { from?: string; to?: string }) => !v.from || !v.to || 
 export const ledgerQuerySchema = z
   .object({
     ...ledgerFilterShape,
-    page: z.preprocess(blankToUndefined, z.coerce.number({ error: 'A page number' }).int('A page number').min(1, 'From 1').max(100_000).default(1)),
-    pageSize: z.preprocess(blankToUndefined, z.coerce.number({ error: 'A number' }).int('A number').min(1, 'At least 1').max(500, 'At most 500').default(50)),
+    page: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(100_000).default(1)),
+    pageSize: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(500).default(50)),
   })
-  .refine(fromBeforeTo, { path: ['to'], message: 'Ends before it starts' })
+  .refine(fromBeforeTo, { path: ['to'], ...issueOf('ends_before_start') })
 export type LedgerQuery = z.infer<typeof ledgerQuerySchema>
 
 export const ledgerExportQuerySchema = z
@@ -163,7 +164,7 @@ export const ledgerExportQuerySchema = z
     /** IANA time zone for the spreadsheet's dates (the screen sends the browser's). */
     tz: timeZoneParam,
   })
-  .refine(fromBeforeTo, { path: ['to'], message: 'Ends before it starts' })
+  .refine(fromBeforeTo, { path: ['to'], ...issueOf('ends_before_start') })
 export type LedgerExportQuery = z.infer<typeof ledgerExportQuerySchema>
 
 export interface LedgerRow {
@@ -203,9 +204,9 @@ export interface LedgerPage {
 // ---- transfers ----
 export const TRANSFER_STATUSES = ['in_transit', 'received'] as const
 export const transfersQuerySchema = z.object({
-  status: z.preprocess(blankToUndefined, z.enum(TRANSFER_STATUSES, { error: 'in_transit or received' }).optional()),
+  status: z.preprocess(blankToUndefined, z.enum(TRANSFER_STATUSES).optional()),
   warehouseId: optionalId,
-  limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(500, 'At most 500').default(100)),
+  limit: z.preprocess(blankToUndefined, z.coerce.number().int().min(1).max(500).default(100)),
 })
 export type TransfersQuery = z.infer<typeof transfersQuerySchema>
 
@@ -295,8 +296,8 @@ export interface LotOption {
 
 /** What a scan names, once classified on the screen (shared/barcode/scan.ts classifyScan). */
 export const lookupQuerySchema = z.object({
-  kind: z.enum(['sku', 'gtin', 'bin'], { error: 'sku, gtin or bin' }),
-  code: z.string({ error: 'Scan or type a code' }).trim().min(1, 'Scan or type a code').max(80, 'At most 80 characters'),
+  kind: z.enum(['sku', 'gtin', 'bin']),
+  code: z.string().trim().min(1).max(80),
   lotCode: searchText,
   warehouseId: optionalId,
 })

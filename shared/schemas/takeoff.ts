@@ -1,6 +1,7 @@
 // The takeoff as the contractor describes it: walls, a shower base and loose lines. The form and the
 // API validate with these same schemas; lengths are millimetres, quantities whole numbers.
 import { z } from 'zod'
+import { issueOf } from '../errors/zodProblems.js'
 
 const mm = z.number().positive().max(1_000_000)
 // Caps keep a mistyped figure from freezing the live form; real panels are far smaller (R607.4).
@@ -37,7 +38,7 @@ export const jointSystemSchema = z
     expansionMm: z.number().positive().max(100).optional(),
   })
   .refine((j) => j.maxOutsideJointMm === undefined || j.maxOutsideJointMm > (j.curveInsideJointMm ?? 0), {
-    message: 'The widest outside joint must be wider than the inside joint',
+    ...issueOf('outside_joint_too_narrow'),
     path: ['maxOutsideJointMm'],
   })
 
@@ -63,7 +64,7 @@ export const curvedSegmentSchema = z
     direction: turnDirectionSchema,
   })
   .refine((s) => [s.arcAngleDeg, s.arcLengthMm, s.blocks].filter((v) => v !== undefined).length === 1, {
-    message: 'Give the arc as exactly one of: angle, length along the inside, or blocks',
+    ...issueOf('arc_one_measure'),
     path: ['arcAngleDeg'],
   })
 
@@ -133,18 +134,18 @@ export const wallSchema = z
   .superRefine((wall, ctx) => {
     const opening = wall.sizing === 'opening'
     if (opening && wall.heightMm === undefined) {
-      ctx.addIssue({ code: 'custom', message: 'Opening sizing needs the opening height', path: ['heightMm'] })
+      ctx.addIssue({ code: 'custom', ...issueOf('opening_height_needed'), path: ['heightMm'] })
     }
     if (!opening && wall.courses === undefined) {
-      ctx.addIssue({ code: 'custom', message: 'Count sizing needs the number of courses', path: ['courses'] })
+      ctx.addIssue({ code: 'custom', ...issueOf('courses_needed'), path: ['courses'] })
     }
     wall.segments.forEach((segment, index) => {
       if (segment.kind !== 'straight') return
       if (opening && segment.lengthMm === undefined) {
-        ctx.addIssue({ code: 'custom', message: 'Give the opening length', path: ['segments', index, 'lengthMm'] })
+        ctx.addIssue({ code: 'custom', ...issueOf('opening_length_needed'), path: ['segments', index, 'lengthMm'] })
       }
       if (!opening && segment.blocks === undefined) {
-        ctx.addIssue({ code: 'custom', message: 'Give the blocks across', path: ['segments', index, 'blocks'] })
+        ctx.addIssue({ code: 'custom', ...issueOf('blocks_across_needed'), path: ['segments', index, 'blocks'] })
       }
     })
   })
@@ -162,7 +163,7 @@ export const showerBaseSchema = z
     note: z.string().trim().max(500).optional(),
   })
   .refine((b) => b.drain.fromLeftMm <= b.widthMm && b.drain.fromBackMm <= b.depthMm, {
-    message: 'The drain must sit inside the footprint',
+    ...issueOf('drain_outside_footprint'),
     path: ['drain'],
   })
 
@@ -271,7 +272,7 @@ export const sectionOptionsSchema = z
     people: z.number().int().positive().max(8),
     allowanceKg: z.number().nonnegative().max(50),
   })
-  .refine((o) => o.minBlocks <= o.maxBlocks, { message: 'The smallest section must not exceed the largest' })
+  .refine((o) => o.minBlocks <= o.maxBlocks, { path: ['minBlocks'], ...issueOf('section_sizes_order') })
 
 export const takeoffOptionsSchema = z.object({
   unit: lengthUnitSchema,

@@ -1,6 +1,8 @@
 // Warehouses and bins: the admin forms, the bulk bin range and the API share these.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { BIN_CODE_PATTERN } from '../barcode/scan.js'
+import { problem, type Problem } from '../errors/errorCodes.js'
 
 export const DEFAULT_BIN_PATTERN = '^(?<aisle>[A-Z]+)-(?<bay>\\d+)-(?<level>\\d+)$'
 /** Bins a person may create; transit bins are made by transfers themselves. */
@@ -11,18 +13,18 @@ export const MAX_BIN_RANGE = 2000
 const trimmed = (v: unknown) => (typeof v === 'string' ? v.trim() : v)
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
 
-/** The reason a bin pattern is unusable, or null: it must compile and name aisle, bay and level. */
-export function binPatternProblem(pattern: string): string | null {
+/** Why a bin pattern is unusable, or null: it must compile and name aisle, bay and level. */
+export function binPatternProblem(pattern: string): Problem | null {
   let re: RegExp
   try {
     re = new RegExp(pattern)
   } catch {
-    return 'Not a valid pattern'
+    return problem('bin_pattern_invalid')
   }
-  if (!pattern.startsWith('^') || !pattern.endsWith('$')) return 'Start with ^ and end with $ so the whole code must match'
+  if (!pattern.startsWith('^') || !pattern.endsWith('$')) return problem('bin_pattern_anchors')
   const names = ['aisle', 'bay', 'level'].filter((g) => !pattern.includes(`(?<${g}>`))
-  if (names.length) return `Name the groups aisle, bay and level (missing: ${names.join(', ')})`
-  return re.test('') ? 'The pattern matches an empty code' : null
+  if (names.length) return problem('bin_pattern_groups', { missing: names })
+  return re.test('') ? problem('bin_pattern_empty_match') : null
 }
 
 /** Whether a bin code fits the warehouse's pattern (storage bins only; receiving and staging bins are named freely). */
@@ -35,18 +37,18 @@ export function binCodeFitsPattern(code: string, pattern: string): boolean {
 }
 
 export const warehouseSchema = z.object({
-  code: z.preprocess(trimmed, z.string({ error: 'Enter a code' }).regex(/^[A-Z0-9]{2,12}$/, '2 to 12 capital letters or digits')),
-  name: z.preprocess(trimmed, z.string({ error: 'Enter a name' }).min(1, 'Enter a name').max(80, 'At most 80 characters')),
-  address: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(200, 'At most 200 characters').nullable()).optional(),
+  code: z.preprocess(trimmed, z.string().regex(/^[A-Z0-9]{2,12}$/, '2 to 12 capital letters or digits')),
+  name: z.preprocess(trimmed, z.string().min(1).max(80)),
+  address: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(200).nullable()).optional(),
   binPattern: z
-    .preprocess(trimmed, z.string().max(120, 'At most 120 characters'))
+    .preprocess(trimmed, z.string().max(120))
     .superRefine((p, ctx) => {
-      const problem = binPatternProblem(p)
-      if (problem) ctx.addIssue({ code: 'custom', message: problem })
+      const found = binPatternProblem(p)
+      if (found) ctx.addIssue({ code: 'custom', message: found.code, params: found.params })
     })
     .default(DEFAULT_BIN_PATTERN),
-  aisleOrder: z.preprocess(trimmed, z.string().max(200, 'At most 200 characters').regex(/^([A-Z0-9]+(,[A-Z0-9]+)*)?$/, 'Aisles separated by commas, e.g. A,B,C')).default(''),
-  walkDirection: z.enum(['serpentine', 'oneWay'], { error: 'Serpentine or one way' }).default('serpentine'),
+  aisleOrder: z.preprocess(trimmed, z.string().max(200).regex(/^([A-Z0-9]+(,[A-Z0-9]+)*)?$/, issueCode('aisle_order_format'))).default(''),
+  walkDirection: z.enum(['serpentine', 'oneWay']).default('serpentine'),
   active: z.boolean().optional(),
 })
 export type WarehouseInput = z.infer<typeof warehouseSchema>
@@ -55,20 +57,20 @@ export type WarehousePatch = z.infer<typeof warehousePatchSchema>
 
 export const binCodeSchema = z.preprocess(
   (v) => (typeof v === 'string' ? v.trim().toUpperCase() : v),
-  z.string({ error: 'Enter a bin code' }).regex(BIN_CODE_PATTERN, 'Letters, digits and - . _ / only, at most 32'),
+  z.string().regex(BIN_CODE_PATTERN, issueCode('bin_code_chars')),
 )
 
 export const binSchema = z.object({
   code: binCodeSchema,
-  kind: z.enum(EDITABLE_BIN_KINDS, { error: 'Storage, receiving or staging' }).default('storage'),
+  kind: z.enum(EDITABLE_BIN_KINDS).default('storage'),
   active: z.boolean().optional(),
 })
 export type BinInput = z.infer<typeof binSchema>
 export const binPatchSchema = binSchema.partial()
 export type BinPatch = z.infer<typeof binPatchSchema>
 
-const aisleLetter = z.preprocess((v) => (typeof v === 'string' ? v.trim().toUpperCase() : v), z.string({ error: 'One letter' }).regex(/^[A-Z]$/, 'One letter A to Z'))
-const rangeNumber = (max: number) => z.coerce.number({ error: 'A whole number' }).int('A whole number').min(1, 'At least 1').max(max, `At most ${max}`)
+const aisleLetter = z.preprocess((v) => (typeof v === 'string' ? v.trim().toUpperCase() : v), z.string().regex(/^[A-Z]$/, issueCode('aisle_letter')))
+const rangeNumber = (max: number) => z.coerce.number().int().min(1).max(max)
 
 interface RangeBounds {
   aisleFrom: string
@@ -90,10 +92,10 @@ export const binRangeSchema = z
     levelTo: rangeNumber(99),
     bayDigits: z.coerce.number().int().min(1).max(3).default(2),
   })
-  .refine((r) => r.aisleFrom <= r.aisleTo, { path: ['aisleTo'], message: 'Same as or after the first aisle' })
-  .refine((r) => r.bayFrom <= r.bayTo, { path: ['bayTo'], message: 'At least the first bay' })
-  .refine((r) => r.levelFrom <= r.levelTo, { path: ['levelTo'], message: 'At least the first level' })
-  .refine((r) => binRangeCount(r) <= MAX_BIN_RANGE, { path: ['bayTo'], message: `At most ${MAX_BIN_RANGE} bins at once` })
+  .refine((r) => r.aisleFrom <= r.aisleTo, { path: ['aisleTo'], ...issueOf('range_backwards') })
+  .refine((r) => r.bayFrom <= r.bayTo, { path: ['bayTo'], ...issueOf('range_backwards') })
+  .refine((r) => r.levelFrom <= r.levelTo, { path: ['levelTo'], ...issueOf('range_backwards') })
+  .refine((r) => binRangeCount(r) <= MAX_BIN_RANGE, { path: ['bayTo'], ...issueOf('bin_range_too_big', { max: MAX_BIN_RANGE }) })
 export type BinRangeInput = z.infer<typeof binRangeSchema>
 
 

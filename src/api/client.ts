@@ -1,16 +1,35 @@
-// One typed client over fetch. Every failure becomes an ApiError with the server's code, message
-// and field messages, so forms show field errors beside inputs and the rest in a message.
+// One typed client over fetch. Every failure becomes an ApiError with the server's code, and its
+// message and field messages already worded in the user's language (src/i18n/errorText.ts), so forms
+// show field errors beside inputs and the rest in a message.
+import type { ErrorParams, Problem } from '@shared/errors/errorCodes'
 import type { ApiErrorBody } from '@shared/schemas/apiError'
+import { errorText, fieldTexts } from '@/i18n/errorText'
 
 export class ApiError extends Error {
   constructor(
     readonly status: number,
     readonly code: string,
+    /** In the user's language. */
     message: string,
+    /** Per field, in the user's language. */
     readonly fields: Record<string, string> = {},
+    readonly params: ErrorParams = {},
+    /** Per field, the code and values (to tell situations apart without reading words). */
+    readonly problems: Record<string, Problem> = {},
+    /** The server's English message, for the console. */
+    readonly serverMessage = '',
   ) {
     super(message)
   }
+}
+
+/** The one way an error answer (or a failure to get one) becomes an ApiError. */
+export function apiErrorFrom(status: number, body: unknown, fallbackCode = `http_${status}`): ApiError {
+  const e = (body as ApiErrorBody | null)?.error
+  const code = typeof e?.code === 'string' ? e.code : fallbackCode
+  const params = e?.params ?? {}
+  const problems = e?.fields ?? {}
+  return new ApiError(status, code, errorText({ status, code, params, message: e?.message }), fieldTexts(problems), params, problems, e?.message ?? '')
 }
 
 export function isApiError(err: unknown): err is ApiError {
@@ -44,15 +63,14 @@ async function request<T>(method: string, path: string, body?: unknown, opts: Re
     res = await fetch('/api' + path, { method, headers, body: payload, credentials: 'same-origin', signal: opts.signal })
   } catch (err) {
     if ((err as Error).name === 'AbortError') throw err
-    throw new ApiError(0, 'network', 'The server could not be reached. Check the connection and try again.')
+    throw apiErrorFrom(0, null, 'network')
   }
   if (res.status === 204) return undefined as T
   const type = res.headers.get('content-type') ?? ''
   const data = type.includes('application/json') ? await res.json().catch(() => null) : null
   if (!res.ok) {
-    const e = (data as ApiErrorBody | null)?.error
     if (res.status === 401 && !opts.quiet401) unauthenticatedListeners.forEach((l) => l())
-    throw new ApiError(res.status, e?.code ?? 'http_' + res.status, e?.message ?? `The server answered ${res.status}.`, e?.fields)
+    throw apiErrorFrom(res.status, data)
   }
   return data as T
 }
@@ -61,8 +79,7 @@ async function request<T>(method: string, path: string, body?: unknown, opts: Re
 export async function download(path: string): Promise<{ blob: Blob; filename: string }> {
   const res = await fetch('/api' + path, { credentials: 'same-origin', headers: { 'X-Lumenyard-Request': '1' } })
   if (!res.ok) {
-    const data = (await res.json().catch(() => null)) as ApiErrorBody | null
-    throw new ApiError(res.status, data?.error.code ?? 'http_' + res.status, data?.error.message ?? 'The download failed.')
+    throw apiErrorFrom(res.status, await res.json().catch(() => null))
   }
   const disposition = res.headers.get('content-disposition') ?? ''
   const filename = /filename="?([^";]+)"?/.exec(disposition)?.[1] ?? 'download'

@@ -1,7 +1,6 @@
 // File transfers the fetch client cannot do: uploads with a progress figure and a way to stop them
 // (XMLHttpRequest reports upload progress; fetch does not), and saving a downloaded file.
-import type { ApiErrorBody } from '@shared/schemas/apiError'
-import { ApiError } from './client'
+import { apiErrorFrom } from './client'
 
 export interface UploadHandle<T> {
   done: Promise<T>
@@ -18,8 +17,8 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress: 
     xhr.withCredentials = true
     xhr.upload.onprogress = (e) => onProgress(e.lengthComputable ? e.loaded / e.total : 0)
     xhr.upload.onload = () => onProgress(1)
-    xhr.onerror = () => reject(new ApiError(0, 'network', 'The server could not be reached. Check the connection and try again.'))
-    xhr.onabort = () => reject(new ApiError(0, 'aborted', 'Stopped.'))
+    xhr.onerror = () => reject(apiErrorFrom(0, null, 'network'))
+    xhr.onabort = () => reject(apiErrorFrom(0, null, 'aborted'))
     xhr.onload = () => {
       let body: unknown = null
       try {
@@ -28,8 +27,7 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress: 
         body = null
       }
       if (xhr.status >= 200 && xhr.status < 300) return resolve(body as T)
-      const e = (body as ApiErrorBody | null)?.error
-      reject(new ApiError(xhr.status, e?.code ?? `http_${xhr.status}`, e?.message ?? `The server answered ${xhr.status}.`, e?.fields))
+      reject(apiErrorFrom(xhr.status, body))
     }
     xhr.send(form)
   })

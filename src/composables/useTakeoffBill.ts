@@ -1,22 +1,13 @@
 import { ref, watch, type Ref } from 'vue'
-import type { ZodError } from 'zod'
 import { computeCounterBill, saveBlockers, type ComputeAnswer, type CounterBill } from '@shared/counter/counterBill'
 import type { CounterCatalog, LineAvailability } from '@shared/schemas/counter'
 import { takeoffSchema, type Takeoff } from '@shared/schemas/takeoff'
 import type { LengthUnit } from '@shared/units'
 import { api } from '@/api/client'
+import { fieldErrorsFromZod } from '@/i18n/errorText'
 
 const COMPUTE_DELAY_MS = 150
 const STOCK_DELAY_MS = 900
-
-function fieldErrorsOf(error: ZodError): Record<string, string> {
-  const out: Record<string, string> = {}
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || '_'
-    out[key] ??= issue.message
-  }
-  return out
-}
 
 /**
  * The bill as the user types: the shared computation runs in the browser a moment after each change;
@@ -47,7 +38,7 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
     if (!catalog.value) return
     const parsed = takeoffSchema.safeParse(takeoff.value)
     if (!parsed.success) {
-      errors.value = fieldErrorsOf(parsed.error)
+      errors.value = fieldErrorsFromZod(parsed.error)
       stale.value = true
       return
     }

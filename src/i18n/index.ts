@@ -8,6 +8,7 @@
 // A key of an area not loaded yet (a language switch, a message asked for outside a page) starts loading
 // its file; the text appears when it arrives.
 import { createI18n, type I18nOptions } from 'vue-i18n'
+import { datetimeFormats, fallbackLocale, numberFormats } from './formats'
 
 export type Locale = 'en' | 'es'
 type Messages = Record<string, unknown>
@@ -31,8 +32,10 @@ const loads = new Map<string, Promise<void>>()
 
 const options: I18nOptions = {
   locale: FALLBACK,
-  fallbackLocale: FALLBACK,
+  fallbackLocale,
   messages: { en: {}, es: {} },
+  numberFormats,
+  datetimeFormats,
   missingWarn: false,
   fallbackWarn: false,
   missing: (locale, key) => {

@@ -180,7 +180,7 @@ describe('errors', () => {
   it('answers unknown API paths with the JSON error shape', async () => {
     const res = await h.agent().get('/api/no-such-thing')
     expect(res.status).toBe(404)
-    expect(res.body).toEqual({ error: { code: 'not_found', message: expect.any(String) } })
+    expect(res.body).toEqual({ error: { code: 'route_not_found', message: expect.any(String) } })
   })
 
   it('answers malformed JSON with 400 and no stack trace', async () => {

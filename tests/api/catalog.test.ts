@@ -126,13 +126,15 @@ describe('changing the catalog', () => {
     const res = await (await h.as('admin')).post('/api/items').set(CSRF).send(
       blockBody('BAD', { gtin: wrongCheck, cost: '7,80', palletQty: 321, depthMm: '90' }))
     expect(res.status).toBe(400)
-    const fields = res.body.error.fields as Record<string, string>
-    expect(fields.gtin).toMatch(new RegExp(`check digit should be ${gtin.at(-1)}`))
-    expect(fields.cost).toMatch(/cost like/i)
-    expect(fields.depthMm).toMatch(/R607\.3/) // 90 mm is under the 3 7/8 in a standard unit needs
+    const fields = res.body.error.fields
+    // source: GS1 General Specifications §7.9.1 (mod-10 check digit), computed by withCheckDigit above
+    expect(fields.gtin).toEqual({ code: 'check_digit_wrong', params: { label: 'GTIN-13', expected: Number(gtin.at(-1)), actual: Number(wrongCheck.at(-1)) } })
+    expect(fields.cost).toEqual({ code: 'cost_format' })
+    // source: IRC 2021 R607.3: a standard unit is at least 3 7/8 in (98.425 mm) thick; 90 mm is under it
+    expect(fields.depthMm).toEqual({ code: 'standard_block_too_thin', params: { min: 98.425, unit: 'mm' } })
     expect(await countBySku(sku('BAD'))).toBe(0)
     const [cross] = [(await (await h.as('admin')).post('/api/items').set(CSRF).send(blockBody('BAD', { palletQty: 321 }))).body]
-    expect(cross.error.fields.palletQty).toMatch(/multiple of 8/)
+    expect(cross.error.fields.palletQty).toEqual({ code: 'pallet_whole_cases', params: { caseQty: 8 } })
     expect(await countBySku(sku('BAD'))).toBe(0)
   })
 
@@ -140,7 +142,7 @@ describe('changing the catalog', () => {
     const admin = await h.as('admin')
     const digits = await admin.post('/api/items').set(CSRF).send(blockBody('X', { sku: '123456789012' }))
     expect(digits.status).toBe(400)
-    expect(digits.body.error.fields.sku).toMatch(/GTIN/)
+    expect(digits.body.error.fields.sku).toEqual({ code: 'sku_like_gtin' })
     await admin.post('/api/items').set(CSRF).send(blockBody('DUP'))
     const again = await admin.post('/api/items').set(CSRF).send(blockBody('DUP'))
     expect(again.status).toBe(409)
@@ -200,7 +202,7 @@ describe('lots', () => {
     expect((await (await h.as('counter')).patch(`/api/items/${item.item_id}/lots/${lot.id}`).set(CSRF).send({ tintNote: 'x' })).status).toBe(403)
     const long = await (await h.as('admin')).patch(`/api/items/${item.item_id}/lots/${lot.id}`).set(CSRF).send({ tintNote: 'x'.repeat(121) })
     expect(long.status).toBe(400)
-    expect(long.body.error.fields.tintNote).toMatch(/120/)
+    expect(long.body.error.fields.tintNote).toEqual({ code: 'too_long', params: { max: 120 } })
     const [after] = await h.ds.query('SELECT tint_note FROM lots WHERE id = ?', [lot.id])
     expect(after.tint_note).toBe('Greener than the last run')
     expect((await (await h.as('admin')).patch(`/api/items/${Number(item.item_id) + 100000}/lots/${lot.id}`).set(CSRF).send({ tintNote: 'y' })).status).toBe(404)

@@ -133,8 +133,8 @@ describe('customers', () => {
       const bad = { ...input, walls: [{ ...input.walls[0], heightMm: undefined, segments: [{ kind: 'curved', insideRadiusMm: 900, direction: 'left' }] }] }
       const res = await counter.post(`/api/jobs/${jobId}/takeoffs`).set(CSRF).send({ name: 'Broken', input: bad })
       expect(res.status).toBe(400)
-      expect(res.body.error.fields['input.walls.0.heightMm']).toMatch(/height/)
-      expect(res.body.error.fields['input.walls.0.segments.0.arcAngleDeg']).toMatch(/exactly one/)
+      expect(res.body.error.fields['input.walls.0.heightMm']).toEqual({ code: 'opening_height_needed' })
+      expect(res.body.error.fields['input.walls.0.segments.0.arcAngleDeg']).toEqual({ code: 'arc_one_measure' })
       expect(await count('takeoffs')).toBe(before)
       const unchanged = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ name: 'Broken', input: bad })
       expect(unchanged.status).toBe(400)

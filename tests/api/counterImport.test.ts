@@ -103,9 +103,9 @@ describe('bad and hostile files: a clear answer, nothing saved', () => {
     expect(res.status).toBe(400)
     expect(res.body.error.code).toBe('sheet_rows')
     const fields = res.body.error.fields
-    expect(fields['2:courses']).toMatch(/whole number/)
-    expect(fields['3:block_sku']).toMatch(/NO-SUCH-BLOCK/)
-    expect(fields['3:height']).toMatch(/Can't read/)
+    expect(fields['2:courses']).toEqual({ code: 'cell_whole_number', params: { text: 'ten' } })
+    expect(fields['3:block_sku']).toEqual({ code: 'block_not_in_catalog', params: { sku: 'NO-SUCH-BLOCK' } })
+    expect(fields['3:height']).toEqual({ code: 'length_unreadable', params: { input: '7 feet-ish' } })
     expect(await takeoffCount()).toBe(before)
   })
 
@@ -113,7 +113,7 @@ describe('bad and hostile files: a clear answer, nothing saved', () => {
     const file = await workbook([HEADER, ['East', fx.blockSku, 'opening', '84 in', null, 'straight', null, null, null, null, null, null, null, null, null]])
     const res = await upload(file, 'no-length.xlsx')
     expect(res.status).toBe(400)
-    expect(res.body.error.fields['2:length']).toMatch(/opening length/)
+    expect(res.body.error.fields['2:length']).toEqual({ code: 'opening_length_needed' })
   })
 
   it('wrong columns: 422 naming them', async () => {

@@ -95,7 +95,7 @@ describe('role → item mapping', () => {
     const before = await count('material_role_items')
     const wrongFamily = await admin.post('/api/takeoff-settings/role-items').set(CSRF).send({ role: 'sealant', itemId: fx.items.screw.id })
     expect(wrongFamily.status).toBe(400)
-    expect(wrongFamily.body.error.fields.itemId).toMatch(/sealant/)
+    expect(wrongFamily.body.error.fields.itemId).toMatchObject({ code: 'role_family_mismatch', params: { families: ['sealant'] } })
     const noLength = await admin.post('/api/takeoff-settings/role-items').set(CSRF).send({ role: 'jointReinforcement', itemId: fx.items.jointReinforcement.id, jointKind: 'mortar' })
     expect(noLength.status).toBe(400)
     expect(noLength.body.error.fields.pieceLengthMm).toBeTruthy()

@@ -9,6 +9,7 @@ import { createDataSource } from '../../server/db/dataSource.js'
 import { User } from '../../server/entities/User.js'
 import { hashPassword } from '../../server/services/userService.js'
 import { isDuplicateKey } from '../../server/db/transaction.js'
+import { unknownErrorCodes } from './errorCodeCheck.js'
 
 export const TEST_PASSWORD = 'test-password-123'
 export const CSRF = { 'X-Lumenyard-Request': '1' }
@@ -34,6 +35,13 @@ export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}
   await ds.initialize()
   const built = createApp({ config, ds })
   const signedIn = new Map<string, supertest.Agent>()
+  // Every error any API test provokes must carry a code the client can word in both languages.
+  const unknown = new Set<string>()
+  const json = built.app.response.json
+  built.app.response.json = function (this: typeof built.app.response, body: unknown) {
+    if (this.statusCode >= 400) for (const problem of unknownErrorCodes(body)) unknown.add(`${this.statusCode} ${problem}`)
+    return json.call(this, body)
+  }
 
   async function user(username: string, roles: Role[]): Promise<User> {
     const repo = ds.getRepository(User)
@@ -71,6 +79,7 @@ export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}
     close: async () => {
       await built.close()
       await ds.destroy()
+      if (unknown.size) throw new Error(`error answers with codes the client cannot word: ${[...unknown].join('; ')}`)
     },
   }
 }

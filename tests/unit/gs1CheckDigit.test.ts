@@ -100,35 +100,36 @@ describe('withCheckDigit and normalizeGtin', () => {
   })
 
   it('refuses to normalise an invalid GTIN and says why', () => {
-    expect(normalizeGtin('9506000134353')).toEqual({ ok: false, reason: 'GTIN-13 check digit should be 2, not 3' })
+    expect(normalizeGtin('9506000134353')).toMatchObject({ ok: false, reason: 'GTIN-13 check digit should be 2, not 3' })
   })
 })
 
 describe('invalid input gets a reason', () => {
   it('a 12-digit string is judged as a GTIN-12', () => {
     // by hand: data 9 5 0 6 0 0 0 1 3 4 3; odd positions ×3: (9+0+0+0+3+3)×3 = 45; even: 5+6+0+1+4 = 16; 61 → 70 − 61 = 9
-    expect(isValidGtin('950600013435')).toEqual({ ok: false, reason: 'GTIN-12 check digit should be 9, not 5' })
+    expect(isValidGtin('950600013435')).toMatchObject({ ok: false, reason: 'GTIN-12 check digit should be 9, not 5' })
+    expect(isValidGtin('950600013435')).toMatchObject({ problem: { code: 'check_digit_wrong', params: { label: 'GTIN-12', expected: 9, actual: 5 } } })
   })
 
   it('wrong lengths', () => {
-    expect(isValidGtin('95060001343')).toEqual({ ok: false, reason: 'GTIN must be 8, 12, 13 or 14 digits (got 11)' })
-    expect(isValidGtin('109506000134352')).toEqual({ ok: false, reason: 'GTIN must be 8, 12, 13 or 14 digits (got 15)' })
-    expect(isValidSscc('10614141123456789')).toEqual({ ok: false, reason: 'SSCC must be 18 digits (got 17)' })
+    expect(isValidGtin('95060001343')).toMatchObject({ ok: false, reason: 'GTIN must be 8, 12, 13 or 14 digits (got 11)', problem: { code: 'gtin_length', params: { length: 11 } } })
+    expect(isValidGtin('109506000134352')).toMatchObject({ ok: false, reason: 'GTIN must be 8, 12, 13 or 14 digits (got 15)' })
+    expect(isValidSscc('10614141123456789')).toMatchObject({ ok: false, reason: 'SSCC must be 18 digits (got 17)' })
   })
 
   it('non-digits and empty strings', () => {
-    expect(isValidGtin('95060001343X2')).toEqual({ ok: false, reason: 'GTIN must contain digits only' })
-    expect(isValidGtin('')).toEqual({ ok: false, reason: 'GTIN must contain digits only' })
-    expect(isValidGtin(' 9506000134352')).toEqual({ ok: false, reason: 'GTIN must contain digits only' })
-    expect(isValidSscc('10614141123456789O')).toEqual({ ok: false, reason: 'SSCC must contain digits only' })
+    expect(isValidGtin('95060001343X2')).toMatchObject({ ok: false, reason: 'GTIN must contain digits only' })
+    expect(isValidGtin('')).toMatchObject({ ok: false, reason: 'GTIN must contain digits only' })
+    expect(isValidGtin(' 9506000134352')).toMatchObject({ ok: false, reason: 'GTIN must contain digits only' })
+    expect(isValidSscc('10614141123456789O')).toMatchObject({ ok: false, reason: 'SSCC must contain digits only' })
     expect(() => gtinCheckDigit('12a4')).toThrow(RangeError)
     expect(() => gtinCheckDigit('')).toThrow(RangeError)
   })
 
   it('wrong check digits name the expected digit', () => {
     // source: bwip-js barcode.ps EAN-13 and SSCC-18 EXAM lines (read), last digit altered
-    expect(isValidGtin('9520123456787')).toEqual({ ok: false, reason: 'GTIN-13 check digit should be 8, not 7' })
-    expect(isValidSscc('095287654321012340')).toEqual({ ok: false, reason: 'SSCC check digit should be 6, not 0' })
+    expect(isValidGtin('9520123456787')).toMatchObject({ ok: false, reason: 'GTIN-13 check digit should be 8, not 7' })
+    expect(isValidSscc('095287654321012340')).toMatchObject({ ok: false, reason: 'SSCC check digit should be 6, not 0' })
   })
 })
 

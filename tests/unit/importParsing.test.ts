@@ -46,19 +46,20 @@ describe('header matching and cell types', () => {
   it('reports text in number cells per row and column', () => {
     const out = rowsFromRecords([rec(1, 'SKU', 'Case qty', 'Cost'), rec(2, 'A-1', 'a dozen', 'twelve'), rec(3, '', '2.5', '1')], SPEC)
     expect(out.ok && out.sheet.issues).toEqual([
-      { row: 2, column: 'qty', message: 'Case qty must be a whole number, not "a dozen"' },
-      { row: 2, column: 'cost', message: 'Cost must be a number, not "twelve"' },
-      { row: 3, column: 'sku', message: 'SKU is required' },
-      { row: 3, column: 'qty', message: 'Case qty must be a whole number, not "2.5"' },
+      { row: 2, column: 'qty', problem: { code: 'cell_whole_number', params: { text: 'a dozen' } } },
+      { row: 2, column: 'cost', problem: { code: 'cell_number', params: { text: 'twelve' } } },
+      { row: 3, column: 'sku', problem: { code: 'required' } },
+      { row: 3, column: 'qty', problem: { code: 'cell_whole_number', params: { text: '2.5' } } },
     ])
   })
 
   it('refuses missing, unknown and repeated columns, and too many rows', () => {
     const bad = rowsFromRecords([rec(1, 'Part', 'Cost', 'Cost')], SPEC)
-    expect(bad).toMatchObject({ ok: false, code: 'bad_columns' })
+    expect(bad).toMatchObject({ ok: false, code: 'sheet_columns' })
     expect(!bad.ok && bad.message).toBe('The columns do not match the template (missing SKU; not known: Part, Cost (twice)).')
+    expect(!bad.ok && bad.params).toEqual({ missing: ['SKU'], unknown: ['Part', 'Cost (twice)'] })
     const many = [rec(1, 'SKU', 'Cost'), ...[2, 3, 4, 5].map((r) => rec(r, `S${r}`, '1'))]
-    expect(rowsFromRecords(many, SPEC)).toMatchObject({ ok: false, code: 'too_many_rows' })
+    expect(rowsFromRecords(many, SPEC)).toMatchObject({ ok: false, code: 'sheet_too_many_rows' })
   })
 })
 

@@ -3,7 +3,7 @@ import type { DataSource } from 'typeorm'
 import type { CustomerCreateInput, CustomerSummary, CustomerUpdateInput } from '../../../shared/schemas/counter.js'
 import { Customer, Job } from '../../entities/Customer.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 
 export function toCustomerSummary(c: Customer, openJobs = 0): CustomerSummary {
@@ -57,7 +57,7 @@ export async function getCustomer(ds: DataSource, id: number): Promise<CustomerS
   return toCustomerSummary(c, counts.get(id) ?? 0)
 }
 
-const duplicateCode = () => new AppError(409, 'duplicate', 'Another account already uses that code.', { code: 'Another account uses this code' })
+const duplicateCode = () => AppError.conflict('customer_code_taken', 'Another account already uses that code.', { fields: { code: problem('customer_code_taken') } })
 
 export async function createCustomer(ds: DataSource, actor: AuditActor, input: CustomerCreateInput): Promise<CustomerSummary> {
   try {

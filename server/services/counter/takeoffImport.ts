@@ -5,7 +5,7 @@ import { MAX_SHEET_ROWS, TAKEOFF_COLUMNS, TAKEOFF_SHEET } from '../../../shared/
 import type { TakeoffRecord } from '../../../shared/schemas/counter.js'
 import type { LengthUnit } from '../../../shared/units.js'
 import { inTransaction } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem, type FieldProblems } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { ImportSpec, RowIssue } from '../imports/importTypes.js'
@@ -22,12 +22,10 @@ export const TAKEOFF_IMPORT_SPEC: ImportSpec = {
 }
 
 /** Row problems as field messages keyed "row:column", the first 200 of them. */
-function rowFields(issues: RowIssue[]): Record<string, string> {
-  const fields: Record<string, string> = {}
-  for (const i of [...issues].sort((a, b) => a.row - b.row).slice(0, 200)) {
-    const key = `${i.row}:${i.column ?? ''}`
-    fields[key] = fields[key] ? `${fields[key]}; ${i.message}` : i.message
-  }
+/** Field problems keyed `row:column` (the first per cell), for the upload screen's table. */
+function rowFields(issues: RowIssue[]): FieldProblems {
+  const fields: FieldProblems = {}
+  for (const i of [...issues].sort((a, b) => a.row - b.row).slice(0, 200)) fields[`${i.row}:${i.column ?? ''}`] ??= i.problem
   return fields
 }
 
@@ -44,9 +42,9 @@ export async function importTakeoff(
   const all = [...sheet.issues, ...issues]
   if (all.length > 0 || !takeoff) {
     const rows = new Set(all.map((i) => i.row)).size
-    throw new AppError(400, 'sheet_rows', `${rows} row${rows === 1 ? '' : 's'} of the file need attention; nothing was saved.`, rowFields(all))
+    throw AppError.badRequest('sheet_rows', `${rows} row${rows === 1 ? '' : 's'} of the file need attention; nothing was saved.`, { params: { rows }, fields: rowFields(all) })
   }
-  if (takeoff.walls.length === 0 && takeoff.looseLines.length === 0) throw AppError.badRequest('The file holds no walls and no items; nothing was saved.', { file: 'No rows' })
+  if (takeoff.walls.length === 0 && takeoff.looseLines.length === 0) throw AppError.badRequest('takeoff_file_empty', 'The file holds no walls and no items; nothing was saved.', { fields: { file: problem('takeoff_file_empty') } })
   const saved = await inTransaction(ds, (em) => insertTakeoff(em, actor, jobId, options.name, takeoff, 'takeoff.import'))
   return getTakeoff(ds, saved.id)
 }

@@ -8,14 +8,14 @@ import { defaultMaterialRules } from '../../../shared/takeoff/materials.js'
 import { Item } from '../../entities/Item.js'
 import { MaterialRoleItem, MaterialRuleRow, WasteAllowance } from '../../entities/TakeoffSettings.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { loadRoleItems, loadRuleRecords, loadWastePct, roleItemRecord } from './counterCatalog.js'
 
 export const listRules = (ds: DataSource): Promise<RuleRecord[]> => loadRuleRecords(ds.manager)
 
 export async function saveRule(ds: DataSource, actor: AuditActor, ruleKey: string, input: RuleOverrideInput): Promise<RuleRecord[]> {
-  if (input.rule.id !== ruleKey) throw AppError.badRequest('The rule id must match the address.', { 'rule.id': 'Must match the rule being saved' })
+  if (input.rule.id !== ruleKey) throw AppError.badRequest('rule_id_mismatch', 'The rule id must match the address.', { fields: { 'rule.id': problem('rule_id_mismatch') } })
   await inTransaction(ds, async (em) => {
     const row = (await em.findOne(MaterialRuleRow, { where: { ruleKey }, lock: { mode: 'pessimistic_write' } })) ?? em.create(MaterialRuleRow, { ruleKey })
     row.ruleJson = JSON.stringify(input.rule)
@@ -33,7 +33,7 @@ export async function resetRule(ds: DataSource, actor: AuditActor, ruleKey: stri
     const { affected } = await em.delete(MaterialRuleRow, { ruleKey })
     if (!affected) {
       const shipped = defaultMaterialRules.some((r) => r.id === ruleKey)
-      throw shipped ? AppError.conflict('That rule is already as shipped.', 'unchanged') : AppError.notFound('That rule')
+      throw shipped ? AppError.conflict('rule_as_shipped', 'That rule is already as shipped.') : AppError.notFound('rule_not_found', 'That rule was not found.')
     }
     await audit(em, actor, 'takeoff.rule.reset', 'material_rule', ruleKey)
   })
@@ -57,33 +57,34 @@ export async function updateWaste(ds: DataSource, actor: AuditActor, input: Wast
 export const listRoleItems = (ds: DataSource): Promise<RoleItemRecord[]> => loadRoleItems(ds.manager)
 
 async function checkRoleItem(em: EntityManager, input: RoleItemInput): Promise<{ item: Item; block: Item | null }> {
-  if (input.role === 'block') throw AppError.badRequest('The block is the one picked on each wall.', { role: 'The block role is filled by the wall’s block' })
+  if (input.role === 'block') throw AppError.badRequest('block_role_is_wall', 'The block is the one picked on each wall.', { fields: { role: problem('block_role_is_wall') } })
   const item = await em.findOneBy(Item, { id: input.itemId })
-  if (!item) throw AppError.badRequest('Choose an existing item.', { itemId: 'No such item' })
+  if (!item) throw AppError.badRequest('item_not_found', 'Choose an existing item.', { fields: { itemId: problem('item_not_found') } })
   const families = ROLE_FAMILIES[input.role]
   if (!families.includes(item.family)) {
-    throw AppError.badRequest(`${item.sku} is a ${item.family} item; this role takes ${families.join(' or ')}.`, { itemId: `Choose a ${families.join(' or ')} item` })
+    const params = { sku: item.sku, family: item.family, families: [...families] }
+    throw AppError.badRequest('role_family_mismatch', `${item.sku} is a ${item.family} item; this role takes ${families.join(' or ')}.`, { params, fields: { itemId: problem('role_family_mismatch', params) } })
   }
   if (LENGTH_ROLES.includes(input.role) && item.stockUnit !== 'foot' && !input.pieceLengthMm) {
-    throw AppError.badRequest('Give the length of one piece.', { pieceLengthMm: 'Needed: the item is not sold by the foot' })
+    throw AppError.badRequest('piece_length_needed', 'Give the length of one piece.', { fields: { pieceLengthMm: problem('piece_length_needed') } })
   }
   if (YIELD_ROLES.includes(input.role) && !item.groutYieldMl && !input.yieldMl) {
-    throw AppError.badRequest('Give the yield of one bag.', { yieldMl: 'Needed: the item has no yield' })
+    throw AppError.badRequest('bag_yield_needed', 'Give the yield of one bag.', { fields: { yieldMl: problem('bag_yield_needed') } })
   }
   const block = input.blockItemId ? await em.findOneBy(Item, { id: input.blockItemId }) : null
-  if (input.blockItemId && block?.family !== 'glass_block') throw AppError.badRequest('Choose a glass block.', { blockItemId: 'Not a glass block' })
+  if (input.blockItemId && block?.family !== 'glass_block') throw AppError.badRequest('not_a_glass_block', 'Choose a glass block.', { fields: { blockItemId: problem('not_a_glass_block') } })
   return { item, block }
 }
 
 const duplicateMapping = () =>
-  new AppError(409, 'duplicate', 'A mapping for that role, joint system and block already exists; change it instead.', { role: 'Already mapped for this block and joint system' })
+  AppError.conflict('role_mapping_exists', 'A mapping for that role, joint system and block already exists; change it instead.', { fields: { role: problem('role_mapping_exists') } })
 
 async function writeRoleItem(ds: DataSource, actor: AuditActor, id: number | null, input: RoleItemInput): Promise<RoleItemRecord> {
   try {
     return await inTransaction(ds, async (em) => {
       const { item, block } = await checkRoleItem(em, input)
       const row = id === null ? em.create(MaterialRoleItem, {}) : await em.findOne(MaterialRoleItem, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!row) throw AppError.notFound('That mapping')
+      if (!row) throw AppError.notFound('role_mapping_not_found', 'That mapping was not found.')
       Object.assign(row, {
         role: input.role,
         jointKind: input.jointKind,
@@ -110,7 +111,7 @@ export const updateRoleItem = (ds: DataSource, actor: AuditActor, id: number, in
 export async function deleteRoleItem(ds: DataSource, actor: AuditActor, id: number): Promise<{ ok: true }> {
   return inTransaction(ds, async (em) => {
     const { affected } = await em.delete(MaterialRoleItem, { id })
-    if (!affected) throw AppError.notFound('That mapping')
+    if (!affected) throw AppError.notFound('role_mapping_not_found', 'That mapping was not found.')
     await audit(em, actor, 'takeoff.role-item.delete', 'material_role_item', id)
     return { ok: true as const }
   })

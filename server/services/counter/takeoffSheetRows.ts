@@ -1,6 +1,8 @@
 // Rows of Lumenyard's takeoff sheet to a takeoff: segment rows grouped into walls by name, loose item
 // rows to loose lines, and every problem tied to the row and column it came from.
 import { wallBlockFields } from '../../../shared/counter/counterBill.js'
+import { lengthProblem, problem } from '../../../shared/errors/errorCodes.js'
+import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import type { CounterCatalog } from '../../../shared/schemas/counter.js'
 import { takeoffSchema, type LooseLine, type Segment, type Takeoff, type Wall } from '../../../shared/schemas/takeoff.js'
 import { JOINT_FACTS } from '../../../shared/takeoff/geometry.js'
@@ -25,18 +27,18 @@ function length(ctx: Ctx, row: ImportRow, column: string): number | undefined {
   if (raw === '') return undefined
   const parsed = tryParseLength(raw, ctx.unit)
   if (parsed.ok) return parsed.mm
-  ctx.issues.push({ row: row.row, column, message: parsed.message })
+  ctx.issues.push({ row: row.row, column, problem: lengthProblem(parsed.code, raw) })
   return undefined
 }
 
 function choice<T extends string>(ctx: Ctx, row: ImportRow, column: string, options: readonly T[], fallback?: T): T | undefined {
   const raw = text(row.values[column] ?? null).toLowerCase()
   if (raw === '') {
-    if (fallback === undefined) ctx.issues.push({ row: row.row, column, message: `${column} is required (${options.join(' or ')})` })
+    if (fallback === undefined) ctx.issues.push({ row: row.row, column, problem: problem('cell_choice_needed', { options: [...options] }) })
     return fallback
   }
   if ((options as readonly string[]).includes(raw)) return raw as T
-  ctx.issues.push({ row: row.row, column, message: `${column} must be ${options.join(' or ')}, not "${raw.slice(0, 40)}"` })
+  ctx.issues.push({ row: row.row, column, problem: problem('cell_choice', { options: [...options], text: raw.slice(0, 40) }) })
   return fallback
 }
 
@@ -65,7 +67,7 @@ function checkRepeats(ctx: Ctx, rows: ImportRow[]) {
     for (const column of WALL_LEVEL) {
       const value = row.values[column] ?? null
       if (value !== null && text(value) !== text(rows[0].values[column] ?? null)) {
-        ctx.issues.push({ row: row.row, column, message: `differs from the wall's first row (row ${rows[0].row}); give wall details once` })
+        ctx.issues.push({ row: row.row, column, problem: problem('wall_row_differs', { row: rows[0].row }) })
       }
     }
   }
@@ -77,8 +79,8 @@ function wallOf(ctx: Ctx, name: string, rows: ImportRow[]): Wall {
   checkRepeats(ctx, rows)
   const sku = text(v.block_sku ?? null)
   const block = ctx.catalog.blocks.find((b) => b.sku.toLowerCase() === sku.toLowerCase())
-  if (!sku) ctx.issues.push({ row: first.row, column: 'block_sku', message: 'block_sku is required on the wall’s first row' })
-  else if (!block) ctx.issues.push({ row: first.row, column: 'block_sku', message: `${sku.slice(0, 40)} is not a glass block in the catalog` })
+  if (!sku) ctx.issues.push({ row: first.row, column: 'block_sku', problem: problem('block_sku_needed') })
+  else if (!block) ctx.issues.push({ row: first.row, column: 'block_sku', problem: problem('block_not_in_catalog', { sku: sku.slice(0, 40) }) })
   const kind = choice(ctx, first, 'joint', ['spacer', 'mortar'] as const, 'spacer')!
   const sizing = choice(ctx, first, 'sizing', ['opening', 'count'] as const) ?? 'opening'
   const jointMm = length(ctx, first, 'joint_width') ?? (kind === 'mortar' ? JOINT_FACTS.mortarJointMm : JOINT_FACTS.spacerJointMm)
@@ -101,11 +103,11 @@ function looseOf(ctx: Ctx, row: ImportRow): LooseLine | undefined {
   const sku = text(row.values.item_sku ?? null)
   const item = ctx.catalog.looseItems.find((i) => i.sku.toLowerCase() === sku.toLowerCase())
   if (!item) {
-    ctx.issues.push({ row: row.row, column: 'item_sku', message: `${sku.slice(0, 40)} is not an item in the catalog` })
+    ctx.issues.push({ row: row.row, column: 'item_sku', problem: problem('sku_not_in_catalog', { sku: sku.slice(0, 40) }) })
     return undefined
   }
   const quantity = row.values.quantity
-  if (typeof quantity !== 'number') ctx.issues.push({ row: row.row, column: 'quantity', message: 'quantity is required for an item row' })
+  if (typeof quantity !== 'number') ctx.issues.push({ row: row.row, column: 'quantity', problem: problem('required') })
   const note = text(row.values.note ?? null)
   return { sku: item.sku, name: item.name, unit: item.unit, quantity: typeof quantity === 'number' ? quantity : 1, ...(note ? { note } : {}) }
 }
@@ -119,7 +121,7 @@ function schemaIssues(ctx: Ctx, takeoff: Takeoff, wallRows: ImportRow[][], itemR
     const rows = top === 'walls' ? wallRows[Number(i)] : undefined
     const row = top === 'looseLines' ? itemRows[Number(i)] : sub === 'segments' && rows ? rows[Number(j)] ?? rows[0] : rows?.[0]
     const key = String(sub === 'segments' ? field ?? '' : top === 'looseLines' ? sub ?? '' : sub ?? '')
-    ctx.issues.push({ row: row?.row ?? 1, column: COLUMN_OF[key] ?? null, message: issue.message })
+    ctx.issues.push({ row: row?.row ?? 1, column: COLUMN_OF[key] ?? null, problem: zodIssueProblem(issue) })
   }
   return undefined
 }
@@ -132,10 +134,10 @@ export function takeoffFromRows(rows: ImportRow[], catalog: CounterCatalog, unit
   for (const row of rows) {
     const wall = text(row.values.wall ?? null)
     const item = text(row.values.item_sku ?? null)
-    if (wall && item) ctx.issues.push({ row: row.row, column: 'item_sku', message: 'a row is either a wall segment or a loose item, not both' })
+    if (wall && item) ctx.issues.push({ row: row.row, column: 'item_sku', problem: problem('row_wall_and_item') })
     else if (wall) walls.set(wall, [...(walls.get(wall) ?? []), row])
     else if (item) itemRows.push(row)
-    else ctx.issues.push({ row: row.row, column: 'wall', message: 'give a wall name (segment row) or an item_sku (loose item row)' })
+    else ctx.issues.push({ row: row.row, column: 'wall', problem: problem('row_wall_or_item') })
   }
   const wallRows = [...walls.values()]
   const takeoff: Takeoff = {

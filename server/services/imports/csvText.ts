@@ -9,7 +9,10 @@ export interface CsvOptions {
   delimiter?: ',' | ';' | '\t'
 }
 
-export type CsvResult = { ok: true; records: string[][]; truncated: boolean } | { ok: false; message: string }
+export type CsvResult =
+  | { ok: true; records: string[][]; truncated: boolean }
+  | { ok: false; code: 'sheet_too_many_columns'; params: { row: number; max: number }; message: string }
+  | { ok: false; code: 'csv_open_quote'; params: { row: number }; message: string }
 
 /** Guesses the delimiter from the header line: the most frequent of , ; and tab outside quotes. */
 export function sniffDelimiter(text: string): ',' | ';' | '\t' {
@@ -42,7 +45,7 @@ export function readCsv(text: string, options: CsvOptions): CsvResult {
     if (c === delimiter) { endField(); i++; continue }
     if (c === '\r' || c === '\n') {
       endField()
-      if (record.length > options.maxFields) return { ok: false, message: `Row ${records.length + 1} has ${record.length} columns; at most ${options.maxFields} are read.` }
+      if (record.length > options.maxFields) return { ok: false, code: 'sheet_too_many_columns', params: { row: records.length + 1, max: options.maxFields }, message: `Row ${records.length + 1} has ${record.length} columns; at most ${options.maxFields} are read.` }
       if (!(record.length === 1 && record[0] === '')) records.push(record)
       record = []
       i += c === '\r' && text[i + 1] === '\n' ? 2 : 1
@@ -52,10 +55,10 @@ export function readCsv(text: string, options: CsvOptions): CsvResult {
     field += c
     i++
   }
-  if (quoted) return { ok: false, message: `A quoted field that starts in row ${records.length + 1} never ends.` }
+  if (quoted) return { ok: false, code: 'csv_open_quote', params: { row: records.length + 1 }, message: `A quoted field that starts in row ${records.length + 1} never ends.` }
   if (field !== '' || record.length) {
     endField()
-    if (record.length > options.maxFields) return { ok: false, message: `Row ${records.length + 1} has ${record.length} columns; at most ${options.maxFields} are read.` }
+    if (record.length > options.maxFields) return { ok: false, code: 'sheet_too_many_columns', params: { row: records.length + 1, max: options.maxFields }, message: `Row ${records.length + 1} has ${record.length} columns; at most ${options.maxFields} are read.` }
     records.push(record)
   }
   return { ok: true, records, truncated: false }

@@ -1,5 +1,6 @@
 // The generic import contract: a column spec in, typed rows and per-row issues out. Items use it for
 // the catalog import; other imports (vendor price lists) pass their own spec.
+import type { ErrorParams, Problem } from '../../../shared/errors/errorCodes.js'
 
 export type ColumnKind = 'text' | 'integer' | 'decimal' | 'boolean'
 
@@ -34,7 +35,7 @@ export interface RowIssue {
   row: number
   /** The column key, or null for the whole row. */
   column: string | null
-  message: string
+  problem: Problem
 }
 
 export interface ParsedSheet {
@@ -42,6 +43,7 @@ export interface ParsedSheet {
   issues: RowIssue[]
 }
 
-export type RefusalCode = 'empty' | 'bad_columns' | 'too_many_rows' | 'too_many_columns' | 'unreadable' | 'timeout' | 'out_of_memory'
+export type RefusalCode = 'sheet_empty' | 'sheet_columns' | 'sheet_too_many_rows' | 'sheet_too_many_columns' | 'csv_open_quote' | 'sheet_unreadable' | 'sheet_timeout' | 'sheet_too_big'
 
-export type ParseOutcome = { ok: true; sheet: ParsedSheet } | { ok: false; code: RefusalCode; message: string }
+/** A refusal of the whole file: its code and values for the screen, the English message for the log. */
+export type ParseOutcome = { ok: true; sheet: ParsedSheet } | { ok: false; code: RefusalCode; params?: ErrorParams; message: string }

@@ -13,7 +13,7 @@ async function parse(request: WorkerRequest): Promise<ParseOutcome> {
   try {
     return request.kind === 'csv' ? parseCsvRows(request.data, request.spec) : await parseXlsxRows(request.data, request.spec)
   } catch {
-    return { ok: false, code: 'unreadable', message: 'The workbook could not be read; it may be damaged. Save it again from the spreadsheet and retry.' }
+    return { ok: false, code: 'sheet_unreadable', message: 'The workbook could not be read; it may be damaged. Save it again from the spreadsheet and retry.' }
   }
 }
 

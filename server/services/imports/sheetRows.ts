@@ -1,6 +1,7 @@
 // Reads the first sheet of an .xlsx (streaming, so a row cap stops it early) or a CSV, matches the
 // header row to a column spec, and types each cell. Runs inside the parse worker (parseWorker.ts);
 // pure otherwise, so tests can call it directly.
+import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
 import { Readable } from 'node:stream'
 import ExcelJS from 'exceljs'
 import { readCsv } from './csvText.js'
@@ -28,25 +29,25 @@ const numberText = (n: number) => String(Number(n.toPrecision(15)))
 
 const BOOLEAN_WORDS: Record<string, boolean> = { true: true, false: false, yes: true, no: false, y: true, n: false, '1': true, '0': false, x: true }
 
-function typedCell(column: ImportColumn, raw: RawCell): { value: CellValue } | { issue: string } {
+function typedCell(column: ImportColumn, raw: RawCell): { value: CellValue } | { issue: Problem } {
   const text = raw === null ? '' : typeof raw === 'number' ? numberText(raw) : String(raw).trim()
-  if (text === '') return column.required ? { issue: `${column.header} is required` } : { value: null }
+  if (text === '') return column.required ? { issue: problem('required') } : { value: null }
   switch (column.kind) {
     case 'text':
       return { value: text }
     case 'integer':
-      return /^-?\d+$/.test(text) ? { value: Number(text) } : { issue: `${column.header} must be a whole number, not "${text.slice(0, 40)}"` }
+      return /^-?\d+$/.test(text) ? { value: Number(text) } : { issue: problem('cell_whole_number', { text: text.slice(0, 40) }) }
     case 'decimal':
-      return /^-?\d+(\.\d+)?$/.test(text) ? { value: text } : { issue: `${column.header} must be a number, not "${text.slice(0, 40)}"` }
+      return /^-?\d+(\.\d+)?$/.test(text) ? { value: text } : { issue: problem('cell_number', { text: text.slice(0, 40) }) }
     case 'boolean': {
       const word = BOOLEAN_WORDS[text.toLowerCase()]
-      return word === undefined ? { issue: `${column.header} must be yes or no, not "${text.slice(0, 40)}"` } : { value: word }
+      return word === undefined ? { issue: problem('cell_yes_no', { text: text.slice(0, 40) }) } : { value: word }
     }
   }
 }
 
 /** Which spec column each sheet column is (null: ignored), or why the header row does not fit. */
-function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (ImportColumn | null)[] } | { ok: false; message: string } {
+function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (ImportColumn | null)[] } | { ok: false; missing: string[]; unknown: string[]; message: string } {
   const byName = new Map<string, ImportColumn>()
   for (const c of spec.columns) for (const name of [c.key, c.header, ...(c.aliases ?? [])]) byName.set(normalise(name), c)
   const ignored = new Set((spec.ignore ?? []).map(normalise))
@@ -67,7 +68,7 @@ function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (Impor
   const missing = spec.columns.filter((c) => c.required && !seen.has(c.key)).map((c) => c.header)
   if (missing.length || unknown.length) {
     const parts = [missing.length ? `missing ${missing.join(', ')}` : '', unknown.length ? `not known: ${unknown.join(', ')}` : '']
-    return { ok: false, message: `The columns do not match the template (${parts.filter(Boolean).join('; ')}).` }
+    return { ok: false, missing, unknown, message: `The columns do not match the template (${parts.filter(Boolean).join('; ')}).` }
   }
   return { ok: true, map }
 }
@@ -75,9 +76,9 @@ function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (Impor
 /** Header in the first non-empty record, then typed rows with their spreadsheet row numbers. */
 export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], spec: ImportSpec): ParseOutcome {
   const start = records.findIndex((r) => r.cells.some((c) => c !== null && String(c).trim() !== ''))
-  if (start === -1) return { ok: false, code: 'empty', message: 'The file holds no rows.' }
+  if (start === -1) return { ok: false, code: 'sheet_empty', message: 'The file holds no rows.' }
   const header = mapHeader(records[start].cells, spec)
-  if (!header.ok) return { ok: false, code: 'bad_columns', message: header.message }
+  if (!header.ok) return { ok: false, code: 'sheet_columns', params: { missing: header.missing, unknown: header.unknown }, message: header.message }
   const rows: ImportRow[] = []
   const issues: RowIssue[] = []
   for (const record of records.slice(start + 1)) {
@@ -87,7 +88,7 @@ export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], sp
     header.map.forEach((column, i) => {
       if (!column) return
       const typed = typedCell(column, record.cells[i] ?? null)
-      if ('issue' in typed) issues.push({ row: record.row, column: column.key, message: typed.issue })
+      if ('issue' in typed) issues.push({ row: record.row, column: column.key, problem: typed.issue })
       else values[column.key] = typed.value
     })
     rows.push({ row: record.row, values })
@@ -96,13 +97,13 @@ export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], sp
 }
 
 const tooManyRows = (spec: ImportSpec): ParseOutcome => ({
-  ok: false, code: 'too_many_rows', message: `The file has more than ${spec.maxRows.toLocaleString('en-US')} rows; split it into smaller files.`,
+  ok: false, code: 'sheet_too_many_rows', params: { max: spec.maxRows }, message: `The file has more than ${spec.maxRows.toLocaleString('en-US')} rows; split it into smaller files.`,
 })
 
 export function parseCsvRows(data: Uint8Array, spec: ImportSpec): ParseOutcome {
   const text = new TextDecoder('utf-8').decode(data).replace(/^\uFEFF/, '')
   const csv = readCsv(text, { maxRecords: spec.maxRows + 2, maxFields: spec.maxColumns })
-  if (!csv.ok) return { ok: false, code: 'unreadable', message: csv.message }
+  if (!csv.ok) return { ok: false, code: csv.code, params: csv.params, message: csv.message }
   if (csv.records.length > spec.maxRows + 1) return tooManyRows(spec)
   return rowsFromRecords(csv.records.map((cells, i) => ({ row: i + 1, cells })), spec)
 }
@@ -115,7 +116,7 @@ export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec): Promise
   for await (const sheet of reader) {
     for await (const row of sheet) {
       const values = row.values as unknown[]
-      if (values.length - 1 > spec.maxColumns) return { ok: false, code: 'too_many_columns', message: `Row ${row.number} has more than ${spec.maxColumns} columns.` }
+      if (values.length - 1 > spec.maxColumns) return { ok: false, code: 'sheet_too_many_columns', params: { row: row.number, max: spec.maxColumns }, message: `Row ${row.number} has more than ${spec.maxColumns} columns.` }
       records.push({ row: row.number, cells: values.slice(1).map(plainCell) })
       if (records.length > spec.maxRows + 1) return tooManyRows(spec)
     }

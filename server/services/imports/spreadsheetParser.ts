@@ -43,27 +43,27 @@ export function parseInChild(request: WorkerRequest, limits: ParseLimits = DEFAU
       if (child.exitCode === null) child.kill('SIGKILL')
       resolve(outcome)
     }
-    const timer = setTimeout(() => finish({ ok: false, code: 'timeout', message: 'Reading the file took too long; it was stopped. Split it into smaller files.' }), limits.timeoutMs)
+    const timer = setTimeout(() => finish({ ok: false, code: 'sheet_timeout', message: 'Reading the file took too long; it was stopped. Split it into smaller files.' }), limits.timeoutMs)
     child.stderr?.on('data', (chunk: Buffer) => { stderr = (stderr + chunk.toString()).slice(-4000) })
     child.on('message', (outcome: ParseOutcome) => finish(outcome))
-    child.on('error', () => finish({ ok: false, code: 'unreadable', message: 'The file could not be read.' }))
+    child.on('error', () => finish({ ok: false, code: 'sheet_unreadable', message: 'The file could not be read.' }))
     child.on('exit', () => {
       const memory = /heap out of memory|Allocation failed/i.test(stderr)
       finish(memory
-        ? { ok: false, code: 'out_of_memory', message: 'The file needs more memory to read than an upload may use; split it into smaller files.' }
-        : { ok: false, code: 'unreadable', message: 'The file could not be read; it may be damaged.' })
+        ? { ok: false, code: 'sheet_too_big', message: 'The file needs more memory to read than an upload may use; split it into smaller files.' }
+        : { ok: false, code: 'sheet_unreadable', message: 'The file could not be read; it may be damaged.' })
     })
     child.send({ ...request, data: new Uint8Array(request.data) })
   })
 }
 
 const STATUS: Record<RefusalCode, number> = {
-  empty: 422, bad_columns: 422, too_many_rows: 413, too_many_columns: 422, unreadable: 422, timeout: 422, out_of_memory: 413,
+  sheet_empty: 422, sheet_columns: 422, sheet_too_many_rows: 413, sheet_too_many_columns: 422, csv_open_quote: 422, sheet_unreadable: 422, sheet_timeout: 422, sheet_too_big: 413,
 }
 
 /** The upload's rows against the spec; a file that cannot be read as a whole becomes an AppError. */
 export async function parseSpreadsheet(upload: GuardedUpload, spec: ImportSpec, limits?: ParseLimits): Promise<ParsedSheet> {
   const outcome = await parseInChild({ kind: upload.kind, data: upload.data, spec }, limits)
-  if (!outcome.ok) throw new AppError(STATUS[outcome.code], outcome.code, outcome.message)
+  if (!outcome.ok) throw new AppError(STATUS[outcome.code], outcome.code, outcome.message, { params: outcome.params })
   return outcome.sheet
 }

@@ -6,7 +6,7 @@ import path from 'node:path'
 import type { Request, Response } from 'express'
 import multer from 'multer'
 import yauzl from 'yauzl'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 
 export type UploadKind = 'xlsx' | 'csv'
 
@@ -33,8 +33,10 @@ export const DEFAULT_ARCHIVE_LIMITS: ArchiveLimits = {
   ratioFloorBytes: 1024 * 1024,
 }
 
-const refuse = (message: string) => new AppError(415, 'wrong_file_type', message)
-const tooBig = (message: string) => new AppError(422, 'archive_refused', message)
+type Refusal = 'file_not_xlsx' | 'csv_binary' | 'csv_not_utf8' | 'xlsx_damaged'
+const refuse = (code: Refusal, message: string) => new AppError(415, code, message)
+type Excess = 'archive_too_many_parts' | 'archive_too_big' | 'archive_packed_too_tight'
+const tooBig = (code: Excess, message: string, params: Record<string, number>) => new AppError(422, code, message, { params })
 
 /** Runs multer for one field named "file" with the configured size cap. */
 function receive(req: Request, res: Response, maxBytes: number): Promise<void> {
@@ -48,7 +50,8 @@ function receive(req: Request, res: Response, maxBytes: number): Promise<void> {
 export function kindOf(filename: string, allowed: readonly UploadKind[]): UploadKind {
   const ext = path.extname(filename).toLowerCase().slice(1)
   if (!(allowed as readonly string[]).includes(ext)) {
-    throw refuse(`Upload ${allowed.map((k) => `.${k}`).join(' or ')} files only; “${path.basename(filename).slice(0, 60)}” is not one.`)
+    const name = path.basename(filename).slice(0, 60)
+    throw AppError.of(415, 'file_type_not_allowed', `Upload ${allowed.map((k) => `.${k}`).join(' or ')} files only; “${name}” is not one.`, { params: { name, allowed: allowed.map((k) => `.${k}`) } })
   }
   return ext as UploadKind
 }
@@ -57,25 +60,25 @@ export function kindOf(filename: string, allowed: readonly UploadKind[]): Upload
 export async function receiveUpload(req: Request, res: Response, opts: { maxBytes: number; allowed?: readonly UploadKind[]; limits?: ArchiveLimits }): Promise<GuardedUpload> {
   await receive(req, res, opts.maxBytes)
   const file = req.file
-  if (!file) throw AppError.badRequest('Choose a file to upload.', { file: 'Choose a file' })
+  if (!file) throw AppError.badRequest('file_missing', 'Choose a file to upload.', { fields: { file: problem('file_missing') } })
   const kind = kindOf(file.originalname, opts.allowed ?? ['xlsx', 'csv'])
   await checkContent(kind, file.buffer, opts.limits ?? DEFAULT_ARCHIVE_LIMITS)
   return { kind, filename: path.basename(file.originalname), data: file.buffer }
 }
 
 export async function checkContent(kind: UploadKind, data: Buffer, limits: ArchiveLimits = DEFAULT_ARCHIVE_LIMITS): Promise<void> {
-  if (data.length === 0) throw AppError.badRequest('The file is empty.', { file: 'The file is empty' })
+  if (data.length === 0) throw AppError.badRequest('file_empty', 'The file is empty.', { fields: { file: problem('file_empty') } })
   if (kind === 'csv') return checkCsvText(data)
-  if (data.readUInt32LE(0) !== 0x04034b50) throw refuse('This file is not an .xlsx workbook (it is not a zip archive). Save it from the spreadsheet as .xlsx.')
+  if (data.readUInt32LE(0) !== 0x04034b50) throw refuse('file_not_xlsx', 'This file is not an .xlsx workbook (it is not a zip archive). Save it from the spreadsheet as .xlsx.')
   await inspectZip(data, limits)
 }
 
 function checkCsvText(data: Buffer): void {
-  if (data.includes(0)) throw refuse('This .csv holds binary data, not text (is it another kind of file renamed?).')
+  if (data.includes(0)) throw refuse('csv_binary', 'This .csv holds binary data, not text (is it another kind of file renamed?).')
   try {
     new TextDecoder('utf-8', { fatal: true }).decode(data)
   } catch {
-    throw refuse('This .csv is not UTF-8 text. Save it as “CSV UTF-8” and upload it again.')
+    throw refuse('csv_not_utf8', 'This .csv is not UTF-8 text. Save it as “CSV UTF-8” and upload it again.')
   }
 }
 
@@ -83,7 +86,7 @@ function checkCsvText(data: Buffer): void {
 function inspectZip(data: Buffer, limits: ArchiveLimits): Promise<void> {
   return new Promise((resolve, reject) => {
     yauzl.fromBuffer(data, { lazyEntries: true, validateEntrySizes: true }, (openError, zip) => {
-      if (openError || !zip) return reject(refuse('This file is not an .xlsx workbook (the zip archive cannot be read).'))
+      if (openError || !zip) return reject(refuse('file_not_xlsx', 'This file is not an .xlsx workbook (the zip archive cannot be read).'))
       let settled = false
       let entries = 0
       let unpacked = 0
@@ -94,19 +97,19 @@ function inspectZip(data: Buffer, limits: ArchiveLimits): Promise<void> {
         zip.close()
         reject(err)
       }
-      zip.on('error', () => fail(refuse('This workbook is damaged: its zip archive cannot be read.')))
+      zip.on('error', () => fail(refuse('xlsx_damaged', 'This workbook is damaged: its zip archive cannot be read.')))
       zip.on('end', () => {
         if (settled) return
         settled = true
         if (contentTypes) resolve()
-        else reject(refuse('This file is a zip archive but not an .xlsx workbook ([Content_Types].xml is missing).'))
+        else reject(refuse('file_not_xlsx', 'This file is a zip archive but not an .xlsx workbook ([Content_Types].xml is missing).'))
       })
       zip.on('entry', (entry: yauzl.Entry) => {
-        const problem = entryProblem(entry, ++entries, unpacked, limits)
-        if (problem) return fail(tooBig(problem))
+        const excess = entryProblem(entry, ++entries, unpacked, limits)
+        if (excess) return fail(excess)
         if (entry.fileName === '[Content_Types].xml') contentTypes = true
         if (entry.fileName.endsWith('/')) return zip.readEntry()
-        measureEntry(zip, entry, limits.maxUnpackedBytes - unpacked).then((size) => {
+        measureEntry(zip, entry, limits, limits.maxUnpackedBytes - unpacked).then((size) => {
           unpacked += size
           zip.readEntry()
         }, fail)
@@ -116,32 +119,35 @@ function inspectZip(data: Buffer, limits: ArchiveLimits): Promise<void> {
   })
 }
 
-function entryProblem(entry: yauzl.Entry, count: number, unpackedSoFar: number, limits: ArchiveLimits): string | null {
-  if (count > limits.maxEntries) return `The workbook holds more than ${limits.maxEntries} parts; it was refused.`
-  if (unpackedSoFar + entry.uncompressedSize > limits.maxUnpackedBytes) {
-    return `The workbook unpacks to more than ${Math.round(limits.maxUnpackedBytes / 1048576)} MB; it was refused (split it into smaller files).`
-  }
+const tooBigToUnpack = (limits: ArchiveLimits) => {
+  const mb = Math.round(limits.maxUnpackedBytes / 1048576)
+  return tooBig('archive_too_big', `The workbook unpacks to more than ${mb} MB; it was refused (split it into smaller files).`, { mb })
+}
+
+function entryProblem(entry: yauzl.Entry, count: number, unpackedSoFar: number, limits: ArchiveLimits): AppError | null {
+  if (count > limits.maxEntries) return tooBig('archive_too_many_parts', `The workbook holds more than ${limits.maxEntries} parts; it was refused.`, { max: limits.maxEntries })
+  if (unpackedSoFar + entry.uncompressedSize > limits.maxUnpackedBytes) return tooBigToUnpack(limits)
   const ratio = entry.uncompressedSize / Math.max(1, entry.compressedSize)
   if (entry.uncompressedSize > limits.ratioFloorBytes && ratio > limits.maxRatio) {
-    return `A part of the workbook is packed ${Math.round(ratio)} to 1, far more than a real spreadsheet; it was refused.`
+    return tooBig('archive_packed_too_tight', `A part of the workbook is packed ${Math.round(ratio)} to 1, far more than a real spreadsheet; it was refused.`, { ratio: Math.round(ratio) })
   }
   return null
 }
 
 /** Inflates one entry into nothing, counting bytes; yauzl also refuses an entry larger than it declared. */
-function measureEntry(zip: yauzl.ZipFile, entry: yauzl.Entry, budget: number): Promise<number> {
+function measureEntry(zip: yauzl.ZipFile, entry: yauzl.Entry, limits: ArchiveLimits, budget: number): Promise<number> {
   return new Promise((resolve, reject) => {
     zip.openReadStream(entry, (err, stream) => {
-      if (err || !stream) return reject(refuse('This workbook is damaged or encrypted: a part cannot be read.'))
+      if (err || !stream) return reject(refuse('xlsx_damaged', 'This workbook is damaged or encrypted: a part cannot be read.'))
       let size = 0
       stream.on('data', (chunk: Buffer) => {
         size += chunk.length
         if (size > budget) {
           stream.destroy()
-          reject(tooBig('The workbook unpacks to more than the upload allows; it was refused.'))
+          reject(tooBigToUnpack(limits))
         }
       })
-      stream.on('error', () => reject(refuse('This workbook is damaged: a part does not unpack to its stated size.')))
+      stream.on('error', () => reject(refuse('xlsx_damaged', 'This workbook is damaged: a part does not unpack to its stated size.')))
       stream.on('end', () => resolve(size))
     })
   })

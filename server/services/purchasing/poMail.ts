@@ -108,6 +108,6 @@ export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor
     if (err instanceof AppError) throw err
     const error = err instanceof Error ? err.message : String(err)
     await record(ds, actor, config.smtp.from, attempt, { error })
-    throw new AppError(502, 'mail_failed', `The e-mail could not be sent (${error}). The order stays unsent; check the address or the mail server and send again.`)
+    throw new AppError(502, 'mail_failed', `The e-mail could not be sent (${error}). The order stays unsent; check the address or the mail server and send again.`, { params: { detail: error } })
   }
 }

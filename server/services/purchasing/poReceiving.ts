@@ -10,7 +10,7 @@ import { statusAfterReceipt } from '../../../shared/purchasing/poStatus.js'
 import { Item } from '../../entities/Item.js'
 import { PurchaseOrder, PurchaseOrderLine } from '../../entities/PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from '../../entities/PurchaseReceipt.js'
-import { AppError } from '../../errors.js'
+import { AppError, textFields } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { purchasingSettings } from '../appSettings.js'
 import { findOrCreateLot, issue, receive, type ReceiptLine } from '../stock/stockService.js'
@@ -58,7 +58,7 @@ function checkQuantities(entries: Entry[]): void {
     else for (const e of mine) e.variance = e.damagedQty > 0 ? 'damaged' : verdict.variance
   }
   if (Object.keys(missing).length) throw AppError.badRequest('Some lines need attention.', missing)
-  if (Object.keys(conflicts).length) throw new AppError(409, 'over_receipt', Object.values(conflicts)[0], conflicts)
+  if (Object.keys(conflicts).length) throw new AppError(409, 'over_receipt', Object.values(conflicts)[0], { fields: textFields(conflicts) })
 }
 
 async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder, entries: Entry[]): Promise<string | null> {

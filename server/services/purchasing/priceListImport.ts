@@ -7,7 +7,9 @@ import { vendorItemSchema } from '../../../shared/schemas/purchasing.js'
 import { inTransaction } from '../../db/transaction.js'
 import { Item } from '../../entities/Item.js'
 import { VendorItem } from '../../entities/Vendor.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
+import type { RowProblem } from '../../../shared/errors/errorCodes.js'
+import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { ImportRow, ImportSpec, ParsedSheet } from '../imports/importTypes.js'
@@ -37,7 +39,7 @@ export interface PriceListRow {
   action: 'add' | 'update'
   unitCost: string | null
   previousCost: string | null
-  errors: { column: string | null; message: string }[]
+  errors: RowProblem[]
 }
 
 export interface PriceListPreview {
@@ -61,10 +63,10 @@ const headerOf = (key: string | null) => (key ? (HEADER.get(key) ?? key) : null)
 
 function checkRow(r: ImportRow, sheet: ParsedSheet, item: Item | undefined, existing: VendorItem | undefined): Checked {
   const issues = sheet.issues.filter((i) => i.row === r.row)
-  const errors = issues.map((i) => ({ column: headerOf(i.column), message: i.message }))
+  const errors: RowProblem[] = issues.map((i) => ({ column: headerOf(i.column), problem: i.problem }))
   const sku = typeof r.values.sku === 'string' ? r.values.sku : null
   const present = Object.fromEntries(Object.entries(r.values).filter(([k, v]) => k !== 'sku' && v !== null && !issues.some((i) => i.column === k)))
-  if (sku && !item) errors.push({ column: 'Our SKU', message: `${sku} is not in the catalog` })
+  if (sku && !item) errors.push({ column: 'Our SKU', problem: problem('sku_not_in_catalog', { sku }) })
   const base = existing
     ? { vendorSku: existing.vendorSku, packQty: existing.packQty, minOrderQty: existing.minOrderQty, unitCost: existing.unitCost, leadTimeDays: existing.leadTimeDays, preferred: existing.preferred }
     : { packQty: 1, minOrderQty: 1 }
@@ -72,7 +74,7 @@ function checkRow(r: ImportRow, sheet: ParsedSheet, item: Item | undefined, exis
   if (!parsed.success) {
     for (const issue of parsed.error.issues) {
       const key = String(issue.path[0] ?? '')
-      if (!issues.some((i) => i.column === key)) errors.push({ column: headerOf(key || null), message: issue.message })
+      if (!issues.some((i) => i.column === key)) errors.push({ column: headerOf(key || null), problem: zodIssueProblem(issue) })
     }
   }
   const preview: PriceListRow = {
@@ -95,7 +97,7 @@ async function checkSheet(em: EntityManager, vendorId: number, sheet: ParsedShee
     const checked = checkRow(r, sheet, item, item ? byItem.get(item.id) : undefined)
     const first = seen.get(sku)
     if (sku && first !== undefined) {
-      checked.preview.errors.push({ column: 'Our SKU', message: `${sku} is also on row ${first}` })
+      checked.preview.errors.push({ column: 'Our SKU', problem: problem('sku_repeated', { sku, row: first }) })
       checked.write = null
     } else if (sku) seen.set(sku, r.row)
     return checked
@@ -141,10 +143,10 @@ export async function commitPriceList(ds: DataSource, actor: AuditActor, vendorI
     const checked = await checkSheet(em, vendorId, sheet)
     const summary = summarise(upload.filename, checked)
     if (summary.errorRows) {
-      const first = summary.rows.slice(0, 5).map((r) => [`row ${r.row}`, r.errors.map((e) => `${e.column ?? 'row'}: ${e.message}`).join('; ')])
-      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, Object.fromEntries(first))
+      const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
+      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
     }
-    if (!summary.total) throw new AppError(422, 'empty', 'The file holds no price rows; nothing was imported.')
+    if (!summary.total) throw AppError.unprocessable('price_list_empty', 'The file holds no price rows; nothing was imported.')
     await writeRows(em, vendorId, checked.map((c) => c.write!))
     await audit(em, actor, 'vendor_item.import', 'vendor', vendorId, { file: upload.filename, added: summary.adds, updated: summary.updates })
     return summary

@@ -6,7 +6,7 @@ import type { ItemChoice, VendorItemView, VendorView, WarehouseChoice } from '..
 import { Item } from '../../entities/Item.js'
 import { Vendor, VendorItem } from '../../entities/Vendor.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { likePattern } from './sqlValues.js'
 
@@ -35,7 +35,7 @@ export async function getVendor(ds: DataSource, id: number): Promise<VendorView>
   return vendorView(vendor, await ds.getRepository(VendorItem).countBy({ vendorId: id }))
 }
 
-const duplicateCode = () => new AppError(409, 'duplicate', 'Another vendor has that code.', { code: 'Another vendor has that code' })
+const duplicateCode = () => AppError.conflict('vendor_code_taken', 'Another vendor has that code.', { fields: { code: problem('vendor_code_taken') } })
 
 export async function createVendor(ds: DataSource, actor: AuditActor, input: VendorCreateInput): Promise<VendorView> {
   try {
@@ -113,7 +113,7 @@ export async function addVendorItem(ds: DataSource, actor: AuditActor, vendorId:
       return vendorItemById(em, vendorId, vi.id)
     })
   } catch (err) {
-    if (isDuplicateKey(err)) throw new AppError(409, 'duplicate', 'This vendor already sells that item: edit its line instead.', { itemId: 'Already listed' })
+    if (isDuplicateKey(err)) throw AppError.conflict('vendor_item_exists', 'This vendor already sells that item: edit its line instead.', { fields: { itemId: problem('vendor_item_exists') } })
     throw err
   }
 }

@@ -1,0 +1,281 @@
+// Every error the server can answer and every problem a form can show has a stable code here, with
+// the names of the values its message needs. The words live in the client's message files
+// (src/i18n/en/errors.ts and src/i18n/es/errors.ts, one message per code); a test fails when a code
+// has no message in either language or a message uses a value not listed here.
+// Any code may also carry `unit` (see MeasureUnit): the client then shows min, max and value in the
+// user's unit (a length in inches or millimetres).
+import type { LengthParseCode } from '../units.js'
+
+export const ERROR_CODES = {
+  // Form fields (from the shared zod schemas, see zodProblems.ts)
+  required: [],
+  enter_number: [],
+  whole_number: [],
+  at_least: ['min'],
+  more_than: ['min'],
+  at_most: ['max'],
+  less_than: ['max'],
+  too_short: ['min'],
+  too_long: ['max'],
+  too_few: ['min'],
+  too_many_items: ['max'],
+  not_multiple: ['divisor'],
+  invalid_choice: [],
+  invalid_email: [],
+  invalid_date: [],
+  invalid_format: [],
+  invalid_value: [],
+  unknown_fields: ['keys'],
+  not_negative: [],
+  more_than_zero: [],
+  not_zero: [],
+  yes_or_no: [],
+  decimal_places: ['places'],
+  cost_format: [],
+  price_format: [],
+  weight_format: [],
+  amount_format: [],
+  ends_before_start: [],
+  range_backwards: [],
+  time_zone_unknown: [],
+
+  // Codes and identifiers typed into forms
+  username_chars: [],
+  password_unchanged: [],
+  customer_code_chars: [],
+  vendor_code_chars: [],
+  currency_code: [],
+  lot_code_chars: [],
+  bin_code_chars: [],
+  aisle_letter: [],
+  aisle_order_format: [],
+  pattern_chars: [],
+  sku_chars: [],
+  sku_like_gtin: [],
+  check_digit_wrong: ['label', 'expected', 'actual'],
+  gtin_digits_only: [],
+  gtin_length: ['length'],
+  sscc_digits_only: [],
+  sscc_length: ['length'],
+  bin_pattern_invalid: [],
+  bin_pattern_anchors: [],
+  bin_pattern_groups: ['missing'],
+  bin_pattern_empty_match: [],
+  bin_range_too_big: ['max'],
+
+  // Catalog items
+  pallet_whole_cases: ['caseQty'],
+  case_qty_needed: [],
+  block_field_required: [],
+  standard_block_too_thin: ['min'],
+  thin_block_too_thin: ['min'],
+  made_to_order_no_lots: [],
+
+  // Stock, picking and receiving forms
+  found_adds_units: [],
+  loss_removes_units: [],
+  transfer_source_needed: [],
+  substitute_needed: [],
+  one_choice_per_line: [],
+  qty_or_short: [],
+  scan_item: [],
+  enter_what_arrived: [],
+  damage_reason_needed: [],
+
+  // Reorder policies
+  required_for_scope: [],
+  global_policy_only: [],
+  override_item_only: [],
+  override_reason_needed: [],
+  abc_cutoffs_order: [],
+
+  // Takeoffs
+  outside_joint_too_narrow: [],
+  arc_one_measure: [],
+  opening_height_needed: [],
+  courses_needed: [],
+  opening_length_needed: [],
+  blocks_across_needed: [],
+  drain_outside_footprint: [],
+  section_sizes_order: [],
+
+  // Requests, sessions and access
+  invalid_input: [],
+  invalid_filters: [],
+  route_not_found: [],
+  bad_json: [],
+  too_large: [],
+  file_too_large: [],
+  bad_upload: [],
+  csrf: [],
+  unauthenticated: [],
+  session_ended: [],
+  forbidden: [],
+  bad_credentials: [],
+  too_many_signins_account: ['minutes'],
+  too_many_signins_device: ['minutes'],
+  internal: [],
+  db_unavailable: [],
+  network: [],
+  idempotency_key_invalid: [],
+  idempotency_key_required: [],
+  idempotency_key_reused: [],
+  request_in_progress: [],
+
+  // Records that must be unique
+  username_taken: [],
+  customer_code_taken: [],
+  vendor_code_taken: [],
+  vendor_item_exists: [],
+  warehouse_code_taken: [],
+  bin_code_taken: [],
+  gtin_taken: [],
+  sku_taken: [],
+  role_mapping_exists: [],
+
+  // Uploads and imported sheets
+  file_missing: [],
+  file_empty: [],
+  file_type_not_allowed: ['name', 'allowed'],
+  file_not_xlsx: [],
+  csv_binary: [],
+  csv_not_utf8: [],
+  csv_open_quote: ['row'],
+  xlsx_damaged: [],
+  archive_too_many_parts: ['max'],
+  archive_too_big: ['mb'],
+  archive_packed_too_tight: ['ratio'],
+  sheet_empty: [],
+  sheet_columns: ['missing', 'unknown'],
+  sheet_too_many_rows: ['max'],
+  sheet_too_many_columns: ['row', 'max'],
+  sheet_unreadable: [],
+  sheet_timeout: [],
+  sheet_too_big: [],
+  items_file_empty: [],
+  price_list_empty: [],
+  takeoff_file_empty: [],
+  cell_whole_number: ['text'],
+  cell_number: ['text'],
+  cell_yes_no: ['text'],
+  cell_choice_needed: ['options'],
+  cell_choice: ['options', 'text'],
+  sku_repeated: ['sku', 'row'],
+  gtin_repeated: ['gtin', 'row'],
+  gtin_belongs_to: ['gtin', 'sku'],
+  sku_not_in_catalog: ['sku'],
+  block_sku_needed: [],
+  block_not_in_catalog: ['sku'],
+  wall_row_differs: ['row'],
+  row_wall_and_item: [],
+  row_wall_or_item: [],
+  length_empty: ['input'],
+  length_negative: ['input'],
+  length_zero_denominator: ['input'],
+  length_decimal_comma: ['input'],
+  length_unreadable: ['input'],
+
+  // Warehouses, bins and takeoff settings
+  warehouse_not_found: [],
+  bin_not_found: [],
+  item_not_found: [],
+  transit_bin_fixed: [],
+  bin_stocked: ['bin', 'units'],
+  bin_pattern_misfits: ['bins', 'more'],
+  bin_code_misfit: ['code', 'warehouse'],
+  rule_id_mismatch: [],
+  rule_as_shipped: [],
+  rule_not_found: [],
+  role_mapping_not_found: [],
+  block_role_is_wall: [],
+  role_family_mismatch: ['sku', 'family', 'families'],
+  piece_length_needed: [],
+  bag_yield_needed: [],
+  not_a_glass_block: [],
+
+  // Cycle counts and devices
+  device_id_invalid: [],
+  count_busy: [],
+
+  // Codes answered before each area had its own (kept until every area names its situations)
+  bad_request: ['text'],
+  not_found: ['text'],
+  conflict: ['text'],
+  unprocessable: ['text'],
+  duplicate: ['text'],
+  wrong_status: ['text'],
+  field_invalid: ['text'],
+  stock_taken: [],
+  nothing_to_pick: [],
+  unreadable: [],
+  not_a_bin: [],
+  not_an_item: [],
+  wrong_bin: [],
+  wrong_item: [],
+  wrong_lot: [],
+  over_pick: [],
+  duplicate_confirmation: [],
+  lines_open: [],
+  reservation_missing: [],
+  nothing_to_ship: [],
+  job_closed: [],
+  bill_not_ready: [],
+  bill_empty: [],
+  has_jobs: [],
+  has_bom: [],
+  sheet_rows: ['rows'],
+  unchanged: [],
+  item_reserved: [],
+  insufficient_stock: [],
+  mail_failed: ['detail'],
+  over_receipt: [],
+  import_invalid: ['rows', 'total'],
+  aborted: [],
+} as const satisfies Record<string, readonly string[]>
+
+export type ErrorCode = keyof typeof ERROR_CODES
+
+/** The unit a figure in a message is in; the client converts lengths to the user's unit. */
+export type MeasureUnit = 'mm' | 'ml' | 'kg' | 'days' | 'deg'
+
+export type ParamValue = string | number | boolean | null | readonly string[]
+export type ErrorParams = Record<string, ParamValue>
+
+type ParamName<C extends ErrorCode> = (typeof ERROR_CODES)[C][number]
+/** The values a code's message needs, by name, plus an optional unit. */
+export type ParamsOf<C extends ErrorCode> = { [K in ParamName<C>]: ParamValue } & { unit?: MeasureUnit }
+/** `problem('at_least', { min: 1 })`: params are required exactly when the code names some. */
+export type ParamArgs<C extends ErrorCode> = [ParamName<C>] extends [never] ? [params?: { unit?: MeasureUnit }] : [params: ParamsOf<C>]
+
+/** One problem: a code and the values its message needs. Field errors and whole errors both carry one. */
+export interface Problem {
+  code: ErrorCode
+  params?: ErrorParams
+}
+
+/** A problem on one row of an uploaded sheet, with the column it is in (null: the whole row). */
+export interface RowProblem {
+  column: string | null
+  problem: Problem
+}
+
+const LENGTH_CODES: Record<LengthParseCode, ErrorCode> = {
+  empty: 'length_empty',
+  negative: 'length_negative',
+  zero_denominator: 'length_zero_denominator',
+  decimal_comma: 'length_decimal_comma',
+  unreadable: 'length_unreadable',
+}
+
+/** A length the user typed that parseLength could not read (shared/units.ts), as a problem to word. */
+export function lengthProblem(code: LengthParseCode, input: string): Problem {
+  return { code: LENGTH_CODES[code], params: { input } }
+}
+
+export function isErrorCode(value: unknown): value is ErrorCode {
+  return typeof value === 'string' && Object.hasOwn(ERROR_CODES, value)
+}
+
+export function problem<C extends ErrorCode>(code: C, ...[params]: ParamArgs<C>): Problem {
+  return params && Object.keys(params).length ? { code, params: params as ErrorParams } : { code }
+}

@@ -1,0 +1,23 @@
+// How numbers and dates are written per language, through vue-i18n's d() and n(). Messages are kept
+// per language ('en', 'es'); the formats are those of the United States for both (the crew works in
+// a US yard: 1,234.5 and month names in Spanish), reached through the fallback chain below, because
+// vue-i18n hands Intl the locale under which it found the format.
+import type { IntlDateTimeFormats, IntlNumberFormats } from 'vue-i18n'
+
+export const fallbackLocale = { en: ['en-US'], es: ['es-US', 'en'], default: ['en'] }
+
+const numbers = {
+  integer: { maximumFractionDigits: 0 },
+  decimal: { maximumFractionDigits: 3 },
+  percent: { style: 'percent', maximumFractionDigits: 1 },
+} as const
+
+export const numberFormats: IntlNumberFormats = { 'en-US': numbers, 'es-US': numbers }
+
+const dates = {
+  date: { year: 'numeric', month: 'short', day: 'numeric' },
+  dateTime: { year: 'numeric', month: 'short', day: 'numeric', hour: 'numeric', minute: '2-digit' },
+  time: { hour: 'numeric', minute: '2-digit' },
+} as const
+
+export const datetimeFormats: IntlDateTimeFormats = { 'en-US': dates, 'es-US': dates }

@@ -1,6 +1,15 @@
 export default {
   title: 'Mi perfil',
+  displayName: 'Nombre',
+  unitPreference: 'Medidas en',
+  inches: 'Pulgadas (fracciones de 1/16″)',
+  millimetres: 'Milímetros',
   locale: 'Idioma',
   english: 'English',
   spanish: 'Español',
+  changePassword: 'Cambiar la contraseña',
+  currentPassword: 'Contraseña actual',
+  newPassword: 'Contraseña nueva',
+  newPasswordHint: 'Al menos 12 caracteres. Una frase de varias palabras es fácil de recordar y difícil de adivinar.',
+  passwordChanged: 'Contraseña cambiada. Se cerraron sus otras sesiones.',
 }

@@ -77,6 +77,8 @@ export const ERROR_CODES = {
   transfer_source_needed: [],
   substitute_needed: [],
   one_choice_per_line: [],
+  item_or_bin_needed: [],
+  minimum_qty: [],
   qty_or_short: [],
   scan_item: [],
   enter_what_arrived: [],
@@ -196,6 +198,29 @@ export const ERROR_CODES = {
   // Cycle counts and devices
   device_id_invalid: [],
   count_busy: [],
+
+  // Cycle counts
+  count_not_found: [],
+  count_not_open: ['countStatus'],
+  count_scan_not_bin: [],
+  count_bin_unknown: ['bin'],
+  count_bin_not_in_count: [],
+  count_bin_done: ['bin'],
+  count_bin_taken: ['who'],
+  count_bin_not_started: [],
+  count_item_not_asked: ['sku'],
+  count_line_settled: ['sku', 'lot'],
+  count_reviewer_role: [],
+  count_self_approval: ['line'],
+  count_line_not_counted: ['line'],
+  count_line_stale: ['line'],
+  count_decision_twice: [],
+  count_line_not_in_count: ['line'],
+  warehouse_inactive: ['warehouse'],
+  count_aisle_empty: ['warehouse', 'aisle'],
+  count_bin_not_in_warehouse: ['n', 'warehouse'],
+  count_nothing_due: [],
+  count_no_bins: ['warehouse'],
 
   // Codes answered before each area had its own (kept until every area names its situations)
   bad_request: ['text'],

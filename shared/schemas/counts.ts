@@ -1,6 +1,7 @@
 // Cycle counts: what the screens send (parsed by the server with these) and the answers' shapes.
 // The handheld's answers never carry an expected quantity: counts are blind.
 import { z } from 'zod'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import type { AbcClass } from '../inventory/abc.js'
 import { COUNT_REVIEWER_CHOICES, type CountReviewerChoice } from '../counts/countReviewRules.js'
 import type { CountBinStatus, CountLineSource, CountLineStatus, CountScope, CountStatus } from '../counts/countTerms.js'
@@ -8,28 +9,28 @@ import type { CountIntervals } from '../counts/countFrequency.js'
 import { timeZoneParam } from './exportQuery.js'
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
-const id = z.coerce.number({ error: 'Choose one' }).int('Choose one').positive('Choose one')
+const id = z.coerce.number().int().positive()
 const optionalId = z.preprocess(blankToUndefined, id.optional())
-const note = z.string().trim().max(200, 'At most 200 characters').optional().nullable()
-const abcClass = z.enum(['A', 'B', 'C'], { error: 'A, B or C' })
+const note = z.string().trim().max(200).optional().nullable()
+const abcClass = z.enum(['A', 'B', 'C'])
 
 // ---- opening a count ----
 const common = { warehouseId: id, note }
 export const countOpenSchema = z.discriminatedUnion('scope', [
   z.object({ scope: z.literal('warehouse'), ...common }),
-  z.object({ scope: z.literal('aisle'), ...common, aisle: z.string({ error: 'Choose an aisle' }).trim().min(1, 'Choose an aisle').max(12, 'At most 12 characters') }),
-  z.object({ scope: z.literal('bins'), ...common, binIds: z.array(id, { error: 'Choose bins' }).min(1, 'Choose at least one bin').max(500, 'At most 500 bins') }),
+  z.object({ scope: z.literal('aisle'), ...common, aisle: z.string().trim().min(1).max(12) }),
+  z.object({ scope: z.literal('bins'), ...common, binIds: z.array(id).min(1).max(500) }),
   z.object({
     scope: z.literal('abc_due'),
     ...common,
-    classes: z.array(abcClass, { error: 'Choose classes' }).min(1, 'Choose at least one class'),
-    limit: z.coerce.number({ error: 'A number' }).int('Whole items').min(1, 'At least 1').max(500, 'At most 500').default(50),
+    classes: z.array(abcClass).min(1),
+    limit: z.coerce.number().int().min(1).max(500).default(50),
   }),
-], { error: 'Choose what to count' })
+])
 export type CountOpenInput = z.infer<typeof countOpenSchema>
 
 export const countsQuerySchema = z.object({
-  status: z.preprocess(blankToUndefined, z.enum(['open', 'closed', 'cancelled', 'all'], { error: 'open, closed, cancelled or all' }).default('open')),
+  status: z.preprocess(blankToUndefined, z.enum(['open', 'closed', 'cancelled', 'all']).default('open')),
   warehouseId: optionalId,
 })
 export type CountsQuery = z.infer<typeof countsQuerySchema>
@@ -39,7 +40,7 @@ export const countDueQuerySchema = z.object({ warehouseId: z.preprocess(blankToU
 // ---- the handheld ----
 export const countStartBinSchema = z.object({
   /** The bin label as scanned (B:code) or the code typed. */
-  binScan: z.string({ error: 'Scan a bin' }).trim().min(1, 'Scan a bin').max(80, 'At most 80 characters'),
+  binScan: z.string().trim().min(1).max(80),
   /** Carry on a visit someone else started (their phone died, a shift change). */
   takeOver: z.boolean().optional().default(false),
 })
@@ -49,8 +50,8 @@ export const LOT_CODE_PATTERN = /^[A-Za-z0-9._/-]{1,20}$/
 export const countEntrySchema = z.object({
   binId: id,
   itemId: id,
-  lotCode: z.string().trim().regex(LOT_CODE_PATTERN, 'Letters, digits and . _ / - only, up to 20').nullable().optional().default(null),
-  qty: z.coerce.number({ error: 'Enter how many' }).int('Whole units only').min(0, 'Zero or more').max(1_000_000, 'That is more than a million units'),
+  lotCode: z.string().trim().regex(LOT_CODE_PATTERN, issueCode('lot_code_chars')).nullable().optional().default(null),
+  qty: z.coerce.number().int().min(0).max(1_000_000),
 })
 export type CountEntryInput = z.infer<typeof countEntrySchema>
 
@@ -58,22 +59,22 @@ export type CountEntryInput = z.infer<typeof countEntrySchema>
 export const countReviewSchema = z.object({
   decisions: z.array(z.object({
     lineId: id,
-    action: z.enum(['approve', 'recount'], { error: 'approve or recount' }),
+    action: z.enum(['approve', 'recount']),
     note,
-  })).min(1, 'Choose at least one line').max(500, 'At most 500 lines at once'),
+  })).min(1).max(500),
 })
 export type CountReviewInput = z.infer<typeof countReviewSchema>
 
 export const countCancelSchema = z.object({
-  reason: z.string({ error: 'Say why' }).trim().min(1, 'Say why').max(200, 'At most 200 characters'),
+  reason: z.string().trim().min(1).max(200),
 })
 
 export const countSettingsSchema = z.object({
-  reviewerRoles: z.array(z.enum(COUNT_REVIEWER_CHOICES, { error: 'warehouse or buyer' })).max(COUNT_REVIEWER_CHOICES.length).optional(),
+  reviewerRoles: z.array(z.enum(COUNT_REVIEWER_CHOICES)).max(COUNT_REVIEWER_CHOICES.length).optional(),
   intervals: z.object({
-    A: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
-    B: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
-    C: z.number({ error: 'Days' }).int('Whole days').min(1, 'At least 1 day').max(730, 'At most 730 days'),
+    A: z.number().int().min(1).max(730),
+    B: z.number().int().min(1).max(730),
+    C: z.number().int().min(1).max(730),
   }).optional(),
 })
 export type CountSettingsInput = z.infer<typeof countSettingsSchema>
@@ -81,17 +82,17 @@ export type CountSettingsInput = z.infer<typeof countSettingsSchema>
 // ---- history and accuracy ----
 export const countHistoryQuerySchema = z
   .object({ binId: optionalId, itemId: optionalId, warehouseId: optionalId })
-  .refine((q) => q.binId !== undefined || q.itemId !== undefined, { path: ['itemId'], message: 'Choose an item or a bin' })
+  .refine((q) => q.binId !== undefined || q.itemId !== undefined, { path: ['itemId'], ...issueOf('item_or_bin_needed') })
 export type CountHistoryQuery = z.infer<typeof countHistoryQuerySchema>
 
 export const countAccuracyQuerySchema = z
   .object({
-    from: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-01-01' })),
-    to: z.preprocess(blankToUndefined, z.iso.date({ error: 'A date like 2026-12-31' })),
+    from: z.preprocess(blankToUndefined, z.iso.date()),
+    to: z.preprocess(blankToUndefined, z.iso.date()),
     warehouseId: optionalId,
     tz: timeZoneParam,
   })
-  .refine((q) => q.from <= q.to, { path: ['to'], message: 'Ends before it starts' })
+  .refine((q) => q.from <= q.to, { path: ['to'], ...issueOf('ends_before_start') })
 export type CountAccuracyQuery = z.infer<typeof countAccuracyQuerySchema>
 
 // ---- answers ----

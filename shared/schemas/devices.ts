@@ -5,8 +5,8 @@ import { z } from 'zod'
 export const DEVICE_ID_PATTERN = /^[A-Za-z0-9-]{8,64}$/
 
 export const deviceOutboxReportSchema = z.object({
-  waiting: z.number({ error: 'A count of waiting confirmations' }).int().min(0).max(100_000),
-  refused: z.number({ error: 'A count of refused confirmations' }).int().min(0).max(100_000),
+  waiting: z.number().int().min(0).max(100_000),
+  refused: z.number().int().min(0).max(100_000),
   oldestWaitingAt: z.iso.datetime({ offset: true, error: 'A date and time' }).nullable().optional(),
   warehouseId: z.number().int().positive().nullable().optional(),
 })

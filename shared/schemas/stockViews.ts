@@ -14,7 +14,7 @@ const searchText = z.preprocess(blankToUndefined, z.string().trim().max(80).opti
 /** A day (YYYY-MM-DD, read as UTC) or an instant with its offset (what the screens send for local days). */
 const instant = z.preprocess(
   blankToUndefined,
-  z.union([z.iso.date(), z.iso.datetime({ offset: true })], { error: 'A date like 2025-06-30' }).optional(),
+  z.union([z.iso.date(), z.iso.datetime({ offset: true })], { error: issueCode('invalid_date') }).optional(),
 )
 
 // ---- stock by item and warehouse ----
@@ -242,7 +242,7 @@ export interface TransferView {
 export const minimumsQuerySchema = z.object({ itemId: optionalId, warehouseId: optionalId })
 
 export const minimumSchema = z.object({
-  minQty: z.union([z.null(), z.number().int().min(0).max(1_000_000)], { error: 'A whole number from 0, or empty for no minimum' }),
+  minQty: z.union([z.null(), z.number().int().min(0).max(1_000_000)], { error: issueCode('minimum_qty') }),
 })
 export type MinimumInput = z.infer<typeof minimumSchema>
 

@@ -8,7 +8,7 @@ import type { CountDuePlan, CountOpenInput, CountScopeDetail } from '../../../sh
 import { Bin } from '../../entities/Bin.js'
 import { CycleCount } from '../../entities/CycleCount.js'
 import { Warehouse } from '../../entities/Warehouse.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { inTransaction } from '../../db/transaction.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { walkConfigOf } from '../picking/pickWalk.js'
@@ -24,7 +24,7 @@ interface DueItem {
 async function requireWarehouse(em: EntityManager, id: number): Promise<Warehouse> {
   const wh = await em.findOneBy(Warehouse, { id })
   if (!wh) throw new AppError(404, 'warehouse_not_found', 'That warehouse was not found.')
-  if (!wh.active) throw new AppError(409, 'warehouse_inactive', `Warehouse ${wh.code} is not in use.`)
+  if (!wh.active) throw new AppError(409, 'warehouse_inactive', `Warehouse ${wh.code} is not in use.`, { params: { warehouse: wh.code } })
   return wh
 }
 
@@ -95,20 +95,20 @@ async function planBins(ds: DataSource, em: EntityManager, wh: Warehouse, input:
       const config = walkConfigOf(wh)
       const aisle = input.aisle.toUpperCase()
       const inAisle = bins.filter((b) => parseBinCode(b.code, config)?.aisle === aisle)
-      if (!inAisle.length) throw new AppError(422, 'count_aisle_empty', `Warehouse ${wh.code} has no bins in aisle ${aisle}.`, { aisle: 'No bins in this aisle' })
+      if (!inAisle.length) throw new AppError(422, 'count_aisle_empty', `Warehouse ${wh.code} has no bins in aisle ${aisle}.`, { params: { warehouse: wh.code, aisle }, fields: { aisle: problem('count_aisle_empty', { warehouse: wh.code, aisle }) } })
       return { binIds: inAisle.map((b) => b.id), itemIds: null, detail: { aisle, bins: inAisle.length } }
     }
     case 'bins': {
       const known = new Set(bins.map((b) => b.id))
       const wanted = [...new Set(input.binIds)]
       const stray = wanted.filter((id) => !known.has(id))
-      if (stray.length) throw new AppError(400, 'count_bin_not_in_warehouse', `${stray.length} of the bins are not bins of ${wh.code} that can be counted.`, { binIds: 'Not a bin of this warehouse' })
+      if (stray.length) throw new AppError(400, 'count_bin_not_in_warehouse', `${stray.length} of the bins are not bins of ${wh.code} that can be counted.`, { params: { n: stray.length, warehouse: wh.code }, fields: { binIds: problem('count_bin_not_in_warehouse', { n: stray.length, warehouse: wh.code }) } })
       return { binIds: wanted, itemIds: null, detail: { bins: wanted.length } }
     }
     case 'abc_due': {
       const { due } = await dueItems(ds, wh.id)
       const chosen = due.filter((i) => input.classes.includes(i.abcClass)).slice(0, input.limit)
-      if (!chosen.length) throw new AppError(422, 'count_nothing_due', 'No item of these classes is due for a count here.', { classes: 'Nothing due' })
+      if (!chosen.length) throw new AppError(422, 'count_nothing_due', 'No item of these classes is due for a count here.', { fields: { classes: problem('count_nothing_due') } })
       const itemIds = chosen.map((i) => i.itemId)
       const rows: { bin_id: number }[] = await em.query(
         `SELECT DISTINCT sb.bin_id FROM stock_balances sb JOIN bins b ON b.id = sb.bin_id
@@ -124,7 +124,7 @@ export async function openCount(ds: DataSource, actor: AuditActor, input: CountO
   const wh = await requireWarehouse(ds.manager, input.warehouseId)
   // The plan reads outside the transaction (the ABC classes read the whole ledger); the bins are checked again inside.
   const plan = await planBins(ds, ds.manager, wh, input)
-  if (!plan.binIds.length) throw new AppError(422, 'count_no_bins', `Warehouse ${wh.code} has no bins to count.`)
+  if (!plan.binIds.length) throw new AppError(422, 'count_no_bins', `Warehouse ${wh.code} has no bins to count.`, { params: { warehouse: wh.code } })
   return inTransaction(ds, async (em) => {
     const count = await em.save(em.create(CycleCount, {
       warehouseId: wh.id, scope: input.scope, scopeDetail: JSON.stringify(plan.detail), itemsOnly: plan.itemIds !== null,

@@ -6,7 +6,7 @@ import { reviewRefusal, type ReviewRefusal } from '../../../shared/counts/countR
 import type { CountReviewInput } from '../../../shared/schemas/counts.js'
 import type { Role } from '../../../shared/roles.js'
 import { CountBin, CountLine } from '../../entities/CycleCount.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { adjust } from '../stock/stockService.js'
 import { countSettings } from './countSettings.js'
@@ -19,8 +19,8 @@ export interface Reviewer extends AuditActor {
 
 const REFUSALS: Record<ReviewRefusal, (lineId: number) => AppError> = {
   count_reviewer_role: () => new AppError(403, 'count_reviewer_role', 'Your role does not review counts; an admin decides who does.'),
-  count_self_approval: (id) => new AppError(403, 'count_self_approval', `You counted line ${id} yourself; someone else approves it.`),
-  count_line_not_counted: (id) => new AppError(409, 'count_line_not_counted', `Line ${id} is not waiting for a decision (not counted yet, or decided already).`),
+  count_self_approval: (id) => new AppError(403, 'count_self_approval', `You counted line ${id} yourself; someone else approves it.`, { params: { line: id } }),
+  count_line_not_counted: (id) => new AppError(409, 'count_line_not_counted', `Line ${id} is not waiting for a decision (not counted yet, or decided already).`, { params: { line: id } }),
 }
 
 /**
@@ -38,7 +38,7 @@ async function staleSince(em: EntityManager, line: CountLine): Promise<boolean> 
 
 async function approve(em: EntityManager, reviewer: Reviewer, line: CountLine, note: string | null): Promise<void> {
   if (await staleSince(em, line)) {
-    throw new AppError(409, 'count_line_stale', `Line ${line.id}: another count adjusted this bin and item after it was counted; ask for a recount.`)
+    throw new AppError(409, 'count_line_stale', `Line ${line.id}: another count adjusted this bin and item after it was counted; ask for a recount.`, { params: { line: line.id } })
   }
   const applied = await adjust(em, { userId: reviewer.userId }, {
     itemId: line.itemId, binId: line.binId, lotId: line.lotId, delta: line.variance!, reason: 'counted',
@@ -62,13 +62,13 @@ export async function reviewCount(em: EntityManager, reviewer: Reviewer, countId
   requireOpen(count)
   const { reviewerRoles } = await countSettings(em)
   const ids = [...new Set(input.decisions.map((d) => d.lineId))]
-  if (ids.length !== input.decisions.length) throw new AppError(400, 'count_decision_twice', 'Each line takes one decision.', { decisions: 'A line is listed twice' })
+  if (ids.length !== input.decisions.length) throw new AppError(400, 'count_decision_twice', 'Each line takes one decision.', { fields: { decisions: problem('count_decision_twice') } })
   let approved = 0
   let recounts = 0
   // In line order, so two reviews of one count lock its lines (and their balances) in the same order.
   for (const d of [...input.decisions].sort((a, b) => a.lineId - b.lineId)) {
     const line = await em.findOne(CountLine, { where: { id: d.lineId, countId: count.id }, lock: { mode: 'pessimistic_write' } })
-    if (!line) throw new AppError(400, 'count_line_not_in_count', `Line ${d.lineId} is not on this count.`, { decisions: 'Not on this count' })
+    if (!line) throw new AppError(400, 'count_line_not_in_count', `Line ${d.lineId} is not on this count.`, { params: { line: d.lineId }, fields: { decisions: problem('count_line_not_in_count', { line: d.lineId }) } })
     const refusal = reviewRefusal(reviewer, reviewerRoles, line, d.action)
     if (refusal) throw REFUSALS[refusal](line.id)
     if (d.action === 'approve') {

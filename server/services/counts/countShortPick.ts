@@ -45,7 +45,7 @@ async function openShortPickCount(em: EntityManager, actor: StockActor, warehous
   }
   // A locking read: a count opened by a concurrent request after this transaction's snapshot is invisible to a plain read.
   const [row] = await em.query('SELECT id FROM cycle_counts WHERE open_short_pick_key = ? LOCK IN SHARE MODE', [warehouseId])
-  if (!row) throw AppError.conflict('The short-pick count changed meanwhile; try again.', 'count_busy')
+  if (!row) throw AppError.conflict('count_busy', 'The short-pick count changed meanwhile; try again.')
   return { countId: Number(row.id), opened: false }
 }
 
@@ -75,7 +75,7 @@ export async function nextAttempt(em: EntityManager, countId: number, k: { binId
  */
 export async function requestCountForShortPick(em: EntityManager, actor: StockActor, req: ShortPickCountRequest): Promise<ShortPickCountAnswer> {
   const bin = await em.findOneBy(Bin, { id: req.binId })
-  if (!bin) throw AppError.notFound('That bin')
+  if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
   const [waiting] = await em.query(
     `SELECT l.id, l.count_id FROM count_lines l
       WHERE l.bin_id = ? AND l.item_id = ? AND l.lot_key = ? AND l.status IN ('waiting', 'counted') LIMIT 1`,

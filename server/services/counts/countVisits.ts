@@ -9,7 +9,7 @@ import { Bin } from '../../entities/Bin.js'
 import { CountBin, CountLine, CycleCount } from '../../entities/CycleCount.js'
 import { Item } from '../../entities/Item.js'
 import { User } from '../../entities/User.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { currentAverage } from '../stock/averageCost.js'
 import { findOrCreateLot } from '../stock/stockService.js'
@@ -23,7 +23,7 @@ export async function lockCount(em: EntityManager, countId: number): Promise<Cyc
 }
 
 export function requireOpen(count: CycleCount): void {
-  if (count.status !== 'open') throw new AppError(409, 'count_not_open', `This count is ${count.status}; nothing more can be counted or decided on it.`)
+  if (count.status !== 'open') throw new AppError(409, 'count_not_open', `This count is ${count.status}; nothing more can be counted or decided on it.`, { params: { countStatus: count.status } })
 }
 
 async function lockCountBin(em: EntityManager, countId: number, binId: number): Promise<CountBin | null> {
@@ -39,9 +39,9 @@ async function personName(em: EntityManager, userId: number | null): Promise<str
 async function binFromScan(em: EntityManager, warehouseId: number, scan: string): Promise<Bin> {
   const read = classifyScan(scan)
   const code = read.kind === 'bin' ? read.code : read.kind === 'sku' ? read.sku : null
-  if (code === null) throw new AppError(400, 'count_scan_not_bin', 'That is not a bin label: scan the bin first.', { binScan: 'Scan a bin label' })
+  if (code === null) throw new AppError(400, 'count_scan_not_bin', 'That is not a bin label: scan the bin first.', { fields: { binScan: problem('count_scan_not_bin') } })
   const bin = await em.findOneBy(Bin, { warehouseId, code })
-  if (!bin) throw new AppError(404, 'count_bin_unknown', `There is no bin ${code} in this warehouse.`, { binScan: 'Not a bin here' })
+  if (!bin) throw new AppError(404, 'count_bin_unknown', `There is no bin ${code} in this warehouse.`, { params: { bin: code }, fields: { binScan: problem('count_bin_unknown', { bin: code }) } })
   return bin
 }
 
@@ -68,12 +68,13 @@ export async function startBinVisit(em: EntityManager, actor: AuditActor & { use
   requireOpen(count)
   const bin = await binFromScan(em, count.warehouseId, input.binScan)
   const countBin = await lockCountBin(em, count.id, bin.id)
-  if (!countBin) throw new AppError(409, 'count_bin_not_in_count', `Bin ${bin.code} is not part of this count.`, { binScan: 'Not in this count' })
-  if (countBin.status === 'done') throw new AppError(409, 'count_bin_done', `Bin ${bin.code} is already counted.`)
+  if (!countBin) throw new AppError(409, 'count_bin_not_in_count', `Bin ${bin.code} is not part of this count.`, { fields: { binScan: problem('count_bin_not_in_count') } })
+  if (countBin.status === 'done') throw new AppError(409, 'count_bin_done', `Bin ${bin.code} is already counted.`, { params: { bin: bin.code } })
   if (countBin.status === 'counting') {
     if (countBin.startedBy !== actor.userId) {
       if (!input.takeOver) {
-        throw new AppError(409, 'count_bin_taken', `${await personName(em, countBin.startedBy)} is counting bin ${bin.code}. Take it over only if they stopped.`)
+        const who = await personName(em, countBin.startedBy)
+        throw new AppError(409, 'count_bin_taken', `${who} is counting bin ${bin.code}. Take it over only if they stopped.`, { params: { who } })
       }
       // The visit goes on with its snapshot and what was entered; only who carries it on changes.
       await em.update(CountBin, { id: countBin.id }, { startedBy: actor.userId })
@@ -103,7 +104,8 @@ async function requireOwnVisit(em: EntityManager, count: CycleCount, binId: numb
   if (!countBin) throw new AppError(409, 'count_bin_not_in_count', 'That bin is not part of this count.')
   if (countBin.status !== 'counting') throw new AppError(409, 'count_bin_not_started', 'Scan the bin to start counting it first.')
   if (countBin.startedBy !== userId) {
-    throw new AppError(409, 'count_bin_taken', `${await personName(em, countBin.startedBy)} is counting this bin now.`)
+    const who = await personName(em, countBin.startedBy)
+    throw new AppError(409, 'count_bin_taken', `${who} is counting this bin now.`, { params: { who } })
   }
   return countBin
 }
@@ -126,10 +128,10 @@ export async function enterCount(em: EntityManager, actor: AuditActor & { userId
   requireOpen(count)
   const countBin = await requireOwnVisit(em, count, input.binId, actor.userId)
   const item = await em.findOneBy(Item, { id: input.itemId })
-  if (!item) throw new AppError(404, 'item_not_found', 'That item was not found.', { itemId: 'Not an item' })
+  if (!item) throw new AppError(404, 'item_not_found', 'That item was not found.', { fields: { itemId: problem('item_not_found') } })
   if (count.itemsOnly) {
     const [asked] = await em.query('SELECT 1 AS yes FROM count_items WHERE count_id = ? AND item_id = ?', [count.id, item.id])
-    if (!asked) throw new AppError(409, 'count_item_not_asked', `${item.sku} is not one of the items this count looks at; count only the listed items.`, { itemId: 'Not in this count' })
+    if (!asked) throw new AppError(409, 'count_item_not_asked', `${item.sku} is not one of the items this count looks at; count only the listed items.`, { params: { sku: item.sku }, fields: { itemId: problem('count_item_not_asked', { sku: item.sku }) } })
   }
   const lotId = input.lotCode ? (await findOrCreateLot(em, item.id, input.lotCode)).id : null
   const key = { binId: input.binId, itemId: item.id, lotId }
@@ -147,7 +149,7 @@ export async function enterCount(em: EntityManager, actor: AuditActor & { userId
       source: 'found', status: 'waiting', snapshotQty: Math.max(0, snapshot), snapshotMoveId: countBin.snapshotMoveId, snapshotAt: countBin.startedAt,
     }))
   } else if (same.status !== 'waiting') {
-    throw new AppError(409, 'count_line_settled', `${item.sku}${lotId ? ` lot ${input.lotCode}` : ''} was already counted in this count; a reviewer can ask for a recount.`)
+    throw new AppError(409, 'count_line_settled', `${item.sku}${lotId ? ` lot ${input.lotCode}` : ''} was already counted in this count; a reviewer can ask for a recount.`, { params: { sku: item.sku, lot: lotId ? (input.lotCode ?? '') : '' } })
   } else {
     line = same
   }

@@ -3,7 +3,7 @@
 // each report; devices whose outbox is empty drop out of the summary.
 import type { DataSource } from 'typeorm'
 import type { DeviceOutboxReportInput, DeviceOutboxRow, DeviceOutboxSummary } from '../../../shared/schemas/devices.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 
 export async function reportDeviceOutbox(ds: DataSource, userId: number, deviceId: string, input: DeviceOutboxReportInput): Promise<{ ok: true }> {
   await ds.query(
@@ -13,7 +13,7 @@ export async function reportDeviceOutbox(ds: DataSource, userId: number, deviceI
        refused = VALUES(refused), oldest_waiting_at = VALUES(oldest_waiting_at), reported_at = VALUES(reported_at)`,
     [deviceId, userId, input.warehouseId ?? null, input.waiting, input.refused, input.oldestWaitingAt ? new Date(input.oldestWaitingAt) : null],
   ).catch((err: { errno?: number; driverError?: { errno?: number } }) => {
-    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.badRequest('That warehouse does not exist.', { warehouseId: 'Not a warehouse' })
+    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.badRequest('warehouse_not_found', 'That warehouse does not exist.', { fields: { warehouseId: problem('warehouse_not_found') } })
     throw err
   })
   return { ok: true }

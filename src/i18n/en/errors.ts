@@ -67,6 +67,8 @@ export default {
   transfer_source_needed: 'Choose the warehouse to transfer from',
   substitute_needed: 'Choose the substitute item',
   one_choice_per_line: 'One choice per line',
+  item_or_bin_needed: 'Choose an item or a bin',
+  minimum_qty: 'A whole number from 0, or empty for no minimum',
   qty_or_short: 'More than zero, or close the line short',
   scan_item: 'Scan the item',
   enter_what_arrived: 'Enter what arrived',
@@ -183,6 +185,29 @@ export default {
   device_id_invalid: 'This device’s id is not valid (8–64 letters, digits or dashes). Reload the page.',
   count_busy: 'The short-pick count changed meanwhile; try again.',
 
+  // Cycle counts
+  count_not_found: 'That count was not found.',
+  count_not_open: 'This count is {countStatus}; nothing more can be counted or decided on it.',
+  count_scan_not_bin: 'That is not a bin label: scan the bin first.',
+  count_bin_unknown: 'There is no bin {bin} in this warehouse.',
+  count_bin_not_in_count: 'That bin is not part of this count.',
+  count_bin_done: 'Bin {bin} is already counted.',
+  count_bin_taken: '{who} is counting this bin now. Take it over only if they stopped.',
+  count_bin_not_started: 'Scan the bin to start counting it first.',
+  count_item_not_asked: '{sku} is not one of the items this count looks at; count only the listed items.',
+  count_line_settled: '{sku} {lot} was already counted in this count; a reviewer can ask for a recount.',
+  count_reviewer_role: 'Your role does not review counts; an administrator decides who does.',
+  count_self_approval: 'You counted line {line} yourself; someone else approves it.',
+  count_line_not_counted: 'Line {line} is not waiting for a decision (not counted yet, or decided already).',
+  count_line_stale: 'Line {line}: another count adjusted this bin and item after it was counted; ask for a recount.',
+  count_decision_twice: 'Each line takes one decision.',
+  count_line_not_in_count: 'Line {line} is not on this count.',
+  warehouse_inactive: 'Warehouse {warehouse} is not in use.',
+  count_aisle_empty: 'Warehouse {warehouse} has no bins in aisle {aisle}.',
+  count_bin_not_in_warehouse: '{n} of the bins are not bins of {warehouse} that can be counted.',
+  count_nothing_due: 'No item of these classes is due for a count here.',
+  count_no_bins: 'Warehouse {warehouse} has no bins to count.',
+
   // Codes answered before each area had its own
   bad_request: '{text}',
   not_found: '{text}',
@@ -219,7 +244,9 @@ export default {
   aborted: 'Stopped.',
 
   /** Enumerated values named in messages: values.<param>.<value>. */
-  values: {},
+  values: {
+    countStatus: { open: 'open', closed: 'closed', cancelled: 'cancelled' },
+  },
   /** For a code this version does not know, by HTTP status. */
   fallback: {
     badInput: 'The request was refused: check what was entered.',

@@ -66,6 +66,8 @@ export default {
   transfer_source_needed: 'Elija el almacén desde el que se traslada',
   substitute_needed: 'Elija el artículo sustituto',
   one_choice_per_line: 'Una sola opción por línea',
+  item_or_bin_needed: 'Elija un artículo o una ubicación',
+  minimum_qty: 'Un número entero desde 0, o vacío para no tener mínimo',
   qty_or_short: 'Más de cero, o cierre la línea con faltante',
   scan_item: 'Escanee el artículo',
   enter_what_arrived: 'Anote lo que llegó',
@@ -182,6 +184,29 @@ export default {
   device_id_invalid: 'El identificador de este dispositivo no es válido (de 8 a 64 letras, dígitos o guiones). Vuelva a cargar la página.',
   count_busy: 'El conteo por faltante cambió mientras tanto; inténtelo de nuevo.',
 
+  // Conteos cíclicos
+  count_not_found: 'No se encontró ese conteo.',
+  count_not_open: 'Este conteo está {countStatus}; ya no se puede contar ni decidir nada en él.',
+  count_scan_not_bin: 'Esa no es una etiqueta de ubicación: escanee primero la ubicación.',
+  count_bin_unknown: 'No hay ninguna ubicación {bin} en este almacén.',
+  count_bin_not_in_count: 'Esa ubicación no forma parte de este conteo.',
+  count_bin_done: 'La ubicación {bin} ya está contada.',
+  count_bin_taken: '{who} está contando esta ubicación ahora. Tómela solo si dejó de contar.',
+  count_bin_not_started: 'Escanee la ubicación para empezar a contarla.',
+  count_item_not_asked: '{sku} no es uno de los artículos de este conteo; cuente solo los artículos de la lista.',
+  count_line_settled: '{sku} {lot} ya se contó en este conteo; quien revisa puede pedir un reconteo.',
+  count_reviewer_role: 'Su rol no revisa conteos; un administrador decide quién lo hace.',
+  count_self_approval: 'Usted contó la línea {line}; la aprueba otra persona.',
+  count_line_not_counted: 'La línea {line} no espera una decisión (todavía no se cuenta o ya se decidió).',
+  count_line_stale: 'Línea {line}: otro conteo ajustó esta ubicación y este artículo después de contarlo; pida un reconteo.',
+  count_decision_twice: 'Cada línea lleva una sola decisión.',
+  count_line_not_in_count: 'La línea {line} no está en este conteo.',
+  warehouse_inactive: 'El almacén {warehouse} no está en uso.',
+  count_aisle_empty: 'El almacén {warehouse} no tiene ubicaciones en el pasillo {aisle}.',
+  count_bin_not_in_warehouse: '{n} de las ubicaciones no son ubicaciones de {warehouse} que se puedan contar.',
+  count_nothing_due: 'Ningún artículo de estas clases toca contarse aquí.',
+  count_no_bins: 'El almacén {warehouse} no tiene ubicaciones que contar.',
+
   // Códigos de antes de que cada área tuviera los suyos
   bad_request: 'No se pudo completar la solicitud: revise los datos.',
   not_found: 'No se encontró. Puede que lo hayan eliminado.',
@@ -217,7 +242,9 @@ export default {
   import_invalid: '{rows} de {total} filas necesitan atención; no se importó nada.',
   aborted: 'Detenido.',
 
-  values: {},
+  values: {
+    countStatus: { open: 'abierto', closed: 'cerrado', cancelled: 'cancelado' },
+  },
   fallback: {
     badInput: 'Se rechazó la solicitud: revise lo que escribió.',
     forbidden: 'Su rol no permite hacer esto.',

@@ -6,7 +6,8 @@ import type { EntityManager } from 'typeorm'
 import type { MoveType } from '../../../shared/catalog.js'
 import { StockBalance } from '../../entities/StockBalance.js'
 import { StockMove } from '../../entities/StockMove.js'
-import { balanceKey, lockBalances } from './balanceLocks.js'
+import { blendAverages, COSTED_IN, lockCostRows } from './averageCost.js'
+import { balanceKey, groupKey, lockBalances, type WarehouseGroup } from './balanceLocks.js'
 import { notEnoughAvailable, notEnoughOnHand } from './stockErrors.js'
 import { loadLookups, type Lookups } from './stockLookups.js'
 
@@ -56,7 +57,19 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
   checkQuantities(specs)
   const lookups = await loadLookups(em, specs)
   const keys = specs.map((s) => ({ ...s, warehouseId: lookups.bin(s.binId).warehouseId }))
-  const balances = await lockBalances(em, keys, { create: specs.some((s) => s.qty > 0) })
+  // Stock coming in at a cost blends into its warehouse's moving average: the cost rows first, then the
+  // item's whole balance group there, all in the one lock order (balanceLocks.ts).
+  const costed = keys.filter((k) => COSTED_IN.has(k.moveType))
+  const groups = new Map<string, WarehouseGroup>(costed.map((k) => [groupKey(k), { itemId: k.itemId, warehouseId: k.warehouseId }]))
+  const averages = await lockCostRows(em, [...groups.values()])
+  const locked = await lockBalances(em, keys, { create: specs.some((s) => s.qty > 0), wholeGroups: [...groups.values()] })
+  if (costed.length) {
+    await blendAverages(em, averages, locked.groupOnHand, costed.map((k) => {
+      if (k.unitCost == null) throw new RangeError(`a ${k.moveType} needs a unit cost`)
+      return { itemId: k.itemId, warehouseId: k.warehouseId, qty: k.qty, unitCost: k.unitCost }
+    }))
+  }
+  const balances = locked.rows
   for (const s of specs) {
     const key = balanceKey(s)
     const bal = balances.get(key)

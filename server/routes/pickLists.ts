@@ -51,7 +51,7 @@ export default (ctx: AppContext) =>
       access: counter,
       handler: (req, res) => {
         const input = parseBody(pickCreateSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => {
+        return runStockRequest(ctx, req, res, input, async (em) => {
           const { ids } = await createPickLists(em, actorOf(req), input)
           return { ids, lists: await pickListSummaries(em, { ids, status: 'all' }) }
         }, 201)
@@ -64,7 +64,7 @@ export default (ctx: AppContext) =>
       access: counter,
       handler: (req, res) => {
         const id = listId(req)
-        return runStockRequest(ctx, req, res, async (em) => {
+        return runStockRequest(ctx, req, res, null, async (em) => {
           await releasePickList(em, actorOf(req), id)
           return { id, status: 'released' }
         })
@@ -77,7 +77,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const { reason } = parseBody(pickCancelSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, reason ?? null)) }))
+        return runStockRequest(ctx, req, res, { reason }, async (em) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, reason ?? null)) }))
       },
     },
     {
@@ -88,7 +88,7 @@ export default (ctx: AppContext) =>
         const id = listId(req)
         const input = parseBody(pickConfirmSchema, req.body)
         const key = confirmationKey(req)
-        return runStockRequest(ctx, req, res, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
+        return runStockRequest(ctx, req, res, input, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
       },
     },
     {
@@ -98,7 +98,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const input = parseBody(pickCompleteSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }))
+        return runStockRequest(ctx, req, res, input, async (em) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }))
       },
     },
     {
@@ -108,7 +108,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const { fromWarehouseId } = parseBody(pickShipSchema, req.body)
-        return runStockRequest(ctx, req, res, (em) => shipProposedTransfer(em, actorOf(req), id, fromWarehouseId), 201)
+        return runStockRequest(ctx, req, res, { fromWarehouseId }, (em) => shipProposedTransfer(em, actorOf(req), id, fromWarehouseId), 201)
       },
     },
   ])

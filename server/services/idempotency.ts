@@ -12,7 +12,8 @@ export interface IdempotentRequest {
   userId: number
   key: string | undefined
   scope: string
-  body: unknown
+  /** The request as its schema parsed it: the fingerprint covers what the operation uses, nothing else. */
+  input: unknown
 }
 
 export interface StoredAnswer<T> {
@@ -30,7 +31,7 @@ function canonical(value: unknown): string {
   return JSON.stringify(value ?? null)
 }
 
-export const requestHash = (scope: string, body: unknown) => createHash('sha256').update(scope + '\n' + canonical(body)).digest('hex')
+export const requestHash = (scope: string, input: unknown) => createHash('sha256').update(scope + '\n' + canonical(input)).digest('hex')
 
 function checkKey(key: string): void {
   if (key.length < 8 || key.length > 100 || !/^[A-Za-z0-9._:-]+$/.test(key)) {
@@ -59,7 +60,7 @@ export async function runIdempotent<T>(
   }
   checkKey(req.key)
   const key = req.key
-  const hash = requestHash(req.scope, req.body)
+  const hash = requestHash(req.scope, req.input)
   try {
     return await inTransaction(ds, async (em) => {
       await em.insert(IdempotencyRecord, { userId: req.userId, key, scope: req.scope, requestHash: hash, responseStatus: 0, responseBody: 'null' })

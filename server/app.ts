@@ -92,7 +92,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     ds,
     logger,
     passport: pp,
-    throttle: new SignInThrottle(config.signin),
+    throttle: new SignInThrottle(config.signin, config.db),
   }
   const app = express()
   app.disable('x-powered-by')
@@ -153,6 +153,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     ctx,
     close: async () => {
       await closeStore()
+      await ctx.throttle.close()
     },
   }
 }

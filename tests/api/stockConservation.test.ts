@@ -1,4 +1,4 @@
-// Conservation under load: 20 warehouse clients send random receipts, issues, bin moves, transfers (shipped
+// Conservation under load: 20 warehouse clients (25 operations each) send random receipts, issues, bin moves, transfers (shipped
 // and put away) and pick confirmations, half of them on one hot bin, some sent twice with one key, while
 // readers take consistent snapshots. Afterwards and at every snapshot: totals = seed + acknowledged
 // receipts − acknowledged issues and picks, no negative balance, ledger = balances, as many ledger
@@ -31,7 +31,7 @@ describe('stock conservation under concurrent load', () => {
     const fx = await createWorkloadFixture(h.ds, clients[0], counter)
     const deadlocksBefore = await innodbDeadlocks(h.ds)
     const retriesBefore = transactionRetries.count
-    const stats = await runWorkload(h.ds, fx, clients, { seed, opsPerClient: 30, readers: 2 })
+    const stats = await runWorkload(h.ds, fx, clients, { seed, opsPerClient: 25, readers: 2 })
     const report = await checkConservation(h.ds, fx, stats)
     const figures = {
       ...report.figures,
@@ -49,5 +49,5 @@ describe('stock conservation under concurrent load', () => {
     expect(stats.acked.confirmations).toBeGreaterThan(2)
     expect(stats.replays.sent).toBeGreaterThan(5)
     expect(stats.snapshots.taken).toBeGreaterThan(3)
-  })
+  }, 300_000) // a bound for a loaded CI machine; the figures print the time it took
 })

@@ -3,6 +3,7 @@ import type { Server } from 'node:http'
 import type { AppConfig } from './config.js'
 import { createApp } from './app.js'
 import { createDataSource } from './db/dataSource.js'
+import { checkDurability } from './db/outage.js'
 import { isDatabaseEmpty, loadDemoScenario } from './demo/index.js'
 import { createLogger } from './logger.js'
 
@@ -15,6 +16,7 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
   const logger = createLogger(config.logLevel)
   const ds = createDataSource(config)
   await ds.initialize()
+  await checkDurability(ds, logger)
   const ran = await ds.runMigrations({ transaction: 'each' })
   if (ran.length) logger.info({ migrations: ran.map((m) => m.name) }, 'migrations applied')
   if (opts.loadDemo && config.env !== 'production' && (await isDatabaseEmpty(ds))) {

@@ -1,4 +1,5 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { isDatabaseUnavailable } from '../db/outage.js'
 import { AppError } from '../errors.js'
 
 /** Unknown /api paths answer JSON 404, never the SPA page. */
@@ -19,6 +20,12 @@ export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
     appError = new AppError(413, 'file_too_large', 'The file is larger than the upload limit.')
   } else if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
     appError = new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`)
+  } else if (isDatabaseUnavailable(err)) {
+    // An outage, not a bug: the client shows its banner and reads again by itself; writes were not saved
+    // (or, when only the answer was lost, a retry with the same Idempotency-Key returns it).
+    req.log?.warn({ err: { code: err?.code ?? err?.driverError?.code, message: err?.message } }, 'database unavailable')
+    appError = new AppError(503, 'db_unavailable', 'The database is not answering. Nothing was saved; try again in a moment.')
+    if (!res.headersSent) res.set('Retry-After', '5')
   } else {
     req.log?.error({ err }, 'unhandled error')
     appError = new AppError(500, 'internal', 'Something went wrong on the server. The error was logged.')

@@ -41,7 +41,7 @@ function checkKey(key: string): void {
 
 async function storedAnswer<T>(ds: DataSource, req: IdempotentRequest & { key: string }, hash: string): Promise<StoredAnswer<T>> {
   const rec = await ds.getRepository(IdempotencyRecord).findOneBy({ userId: req.userId, key: req.key })
-  if (!rec) throw AppError.conflict('The earlier request with this key is still running; try again.')
+  if (!rec) throw AppError.conflict('The earlier request with this key is still running; try again.', 'idempotency_in_progress')
   if (rec.requestHash !== hash) {
     throw AppError.unprocessable('This Idempotency-Key was already used for a different request.', 'idempotency_key_reused')
   }

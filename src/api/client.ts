@@ -1,6 +1,7 @@
 // One typed client over fetch. Every failure becomes an ApiError with the server's code, message
 // and field messages, so forms show field errors beside inputs and the rest in a message.
 import type { ApiErrorBody } from '@shared/schemas/apiError'
+import { answered, OUTAGE_STATUSES, outageSeen, pause, READ_RETRY_DELAYS_MS, readRetryDone } from './outage'
 
 export class ApiError extends Error {
   constructor(
@@ -31,7 +32,27 @@ export interface RequestOptions {
   quiet401?: boolean
 }
 
+/** A read the server could not answer for an outage is tried again by itself; anything else is answered once. */
 async function request<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
+  if (method !== 'GET') return requestOnce<T>(method, path, body, opts)
+  let retrying = false
+  try {
+    for (let attempt = 0; ; attempt++) {
+      try {
+        return await requestOnce<T>(method, path, body, opts)
+      } catch (err) {
+        if (!(err instanceof ApiError) || !OUTAGE_STATUSES.has(err.status) || attempt >= READ_RETRY_DELAYS_MS.length) throw err
+        if (!retrying) outageSeen(true)
+        retrying = true
+        await pause(READ_RETRY_DELAYS_MS[attempt], opts.signal)
+      }
+    }
+  } finally {
+    if (retrying) readRetryDone()
+  }
+}
+
+async function requestOnce<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json', 'X-Lumenyard-Request': '1', ...opts.headers }
   let payload: BodyInit | undefined
   if (body instanceof FormData) payload = body
@@ -46,6 +67,8 @@ async function request<T>(method: string, path: string, body?: unknown, opts: Re
     if ((err as Error).name === 'AbortError') throw err
     throw new ApiError(0, 'network', 'The server could not be reached. Check the connection and try again.')
   }
+  if (OUTAGE_STATUSES.has(res.status)) outageSeen(false)
+  else answered()
   if (res.status === 204) return undefined as T
   const type = res.headers.get('content-type') ?? ''
   const data = type.includes('application/json') ? await res.json().catch(() => null) : null

@@ -7,4 +7,9 @@ export default {
   greeting: 'Hola, {name}',
   yourAreas: 'Sus áreas',
   open: 'Abrir',
+  outage: {
+    title: 'Lumenyard no puede comunicarse con su base de datos en este momento.',
+    retrying: 'Esta página vuelve a leer sola en cuanto se restablezca.',
+    notSaved: 'Lo que acaba de guardar no se registró: envíelo de nuevo cuando desaparezca este aviso.',
+  },
 }

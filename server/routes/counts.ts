@@ -41,7 +41,7 @@ function countStep<S extends z.ZodType>(
     method: 'post', path, access,
     handler: (req, res) => {
       const input = parseBody(schema, req.body)
-      return runStockRequest(ctx, req, res, (em) => step(em, req, input))
+      return runStockRequest(ctx, req, res, input, (em) => step(em, req, input))
     },
   }
 }

@@ -23,7 +23,13 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
     logger.info('empty database: loading the demo scenario')
     await loadDemoScenario(ds, (m) => logger.info(m))
   }
-  const built = createApp({ config, ds, logger })
+  // Reports and dashboards read the replica when one is configured (ctx.readDs).
+  const readDs = config.readDb ? createDataSource({ db: config.readDb }) : undefined
+  if (readDs) {
+    await readDs.initialize()
+    logger.info({ host: config.readDb!.host, port: config.readDb!.port }, 'reports read from the replica')
+  }
+  const built = createApp({ config, ds, readDs, logger })
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s))
     s.once('error', (err: NodeJS.ErrnoException) => {
@@ -42,6 +48,7 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
         server.closeAllConnections?.()
       })
       await built.close()
+      await readDs?.destroy()
       await ds.destroy()
     },
   }

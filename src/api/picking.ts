@@ -1,7 +1,7 @@
 // Typed calls for pick lists. State changes carry an Idempotency-Key; scanner confirmations bring
 // their own (made when the picker confirmed, kept with the queued confirmation).
 import type {
-  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
+  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickDiscardAnswer, PickDiscardInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
 } from '@shared/schemas/picking'
 import { api } from './client'
 
@@ -30,4 +30,5 @@ export const pickingApi = {
     api.post<{ issued: number; closedShort: number }>(`/pick-lists/${id}/complete`, { acceptShort }, keyed()),
   ship: (id: number, fromWarehouseId: number) => api.post<{ transferId: number; qty: number }>(`/pick-lists/${id}/transfers/ship`, { fromWarehouseId }, keyed()),
   confirm: (id: number, body: PickConfirmInput, key: string) => api.post<PickConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
+  discard: (id: number, body: PickDiscardInput, key: string) => api.post<PickDiscardAnswer>(`/pick-lists/${id}/discards`, body, keyed(key)),
 }

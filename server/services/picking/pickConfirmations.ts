@@ -22,7 +22,7 @@ const PROBLEM_TEXT: Record<string, string> = {
   wrong_lot: 'Wrong lot for this line.',
 }
 
-function resultOf(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): PickConfirmAnswer {
+export function confirmationAnswer(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): PickConfirmAnswer {
   return {
     confirmationId: c.id, lineId: line.id, confirmedQty: line.confirmedQty, shortQty: line.shortQty,
     remaining: line.qty - line.confirmedQty - line.shortQty, listStatus, replayed,
@@ -50,7 +50,7 @@ async function replay(em: EntityManager, pickListId: number, clientKey: string):
   if (earlier.pickListId !== pickListId) throw AppError.unprocessable('This Idempotency-Key was already used for another pick list.', 'idempotency_key_reused')
   const line = await em.findOneByOrFail(PickListLine, { id: earlier.lineId })
   const list = await lockPickList(em, pickListId)
-  return resultOf(earlier, line, list.status, true)
+  return confirmationAnswer(earlier, line, list.status, true)
 }
 
 export async function confirmPick(em: EntityManager, actor: StockActor, pickListId: number, input: PickConfirmInput, clientKey: string): Promise<PickConfirmAnswer> {
@@ -86,5 +86,5 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
   }
   // update() also sets updated_at, so pollers see a change even when the status stays.
   await em.update(PickList, { id: list.id }, { status: list.status, startedBy: list.startedBy, startedAt: list.startedAt })
-  return resultOf(confirmation, line, list.status, false)
+  return confirmationAnswer(confirmation, line, list.status, false)
 }

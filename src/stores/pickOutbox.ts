@@ -21,11 +21,27 @@ export type OutboxEvent =
 export interface NewConfirmation {
   pickListId: number
   listNumber: string
+  warehouseId: number | null
   body: PickConfirmInput
   label: OutboxItem['label']
 }
 
 const RETRY_MS = 5000
+const REPORT_DELAY_MS = 1500
+const DEVICE_KEY = 'lumenyard.deviceId'
+
+/** This browser's own random id, for its outbox reports. */
+function deviceId(): string {
+  try {
+    const known = localStorage.getItem(DEVICE_KEY)
+    if (known) return known
+    const made = newIdempotencyKey()
+    localStorage.setItem(DEVICE_KEY, made)
+    return made
+  } catch {
+    return newIdempotencyKey() // no storage: a new id for this page
+  }
+}
 
 let lastSeq = 0
 const nextSeq = () => (lastSeq = Math.max(Date.now() * 1000, lastSeq + 1))
@@ -156,7 +172,7 @@ export const usePickOutboxStore = defineStore('pickOutbox', () => {
   async function add(c: NewConfirmation): Promise<OutboxItem> {
     await load()
     const stored = await pickDevice.putConfirmation({
-      key: newIdempotencyKey(), seq: nextSeq(), pickListId: c.pickListId, listNumber: c.listNumber,
+      key: newIdempotencyKey(), seq: nextSeq(), pickListId: c.pickListId, listNumber: c.listNumber, warehouseId: c.warehouseId,
       userId: session.user?.id ?? null, userName: session.user?.displayName ?? '', body: c.body, label: c.label,
       state: 'waiting', refusal: null, attempts: 0,
     })
@@ -194,6 +210,33 @@ export const usePickOutboxStore = defineStore('pickOutbox', () => {
     } else await acknowledge(item, answer.recorded)
     return answer
   }
+
+  // The warehouse's start page shows work that exists only on devices: tell the server how much waits here.
+  let lastReport = ''
+  let reportTimer: ReturnType<typeof setTimeout> | undefined
+  async function report(): Promise<void> {
+    if (!session.user || !loaded.value) return
+    const mineWaiting = waiting.value.filter(isMine)
+    const body = {
+      waiting: mineWaiting.length,
+      refused: refused.value.filter(isMine).length,
+      oldestWaitingAt: mineWaiting.map((i) => i.body.scannedAt).filter((at): at is string => !!at).sort()[0] ?? null,
+      warehouseId: (mineWaiting[0] ?? refused.value[0])?.warehouseId ?? null,
+    }
+    const signature = JSON.stringify([session.user.id, body])
+    if (signature === lastReport) return
+    try {
+      await pickingApi.reportOutbox(deviceId(), body)
+      lastReport = signature
+    } catch {
+      // offline or signed out: the next change or retry reports again
+    }
+  }
+  const scheduleReport = () => {
+    clearTimeout(reportTimer)
+    reportTimer = setTimeout(() => void report(), REPORT_DELAY_MS)
+  }
+  watch(() => [waiting.value.length, refused.value.length, reachable.value, session.user?.id], scheduleReport)
 
   if (typeof window !== 'undefined') {
     window.addEventListener('online', () => void flush())

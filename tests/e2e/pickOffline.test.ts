@@ -200,6 +200,9 @@ describe('conflicts and sessions', () => {
     expect(await page.locator('[data-test="refusal"]').textContent()).toContain('otra persona la preparó')
     expect(await page.locator('[data-test="refused-count"]').textContent()).toContain('1 rechazada')
     await h.screenshot(page, 'pick-refused-replay')
+    // The device tells the server what it holds, for the warehouse's start page.
+    await poll(async () => (await h.ds.query(`SELECT r.refused FROM device_outbox_reports r JOIN users u ON u.id = r.user_id WHERE u.username = 'warehouse'`))
+      .map((r: { refused: number }) => r.refused)).toEqual([1])
 
     await page.locator('[data-test="outbox-link"]').click()
     await page.locator('[data-test="outbox-page"]').waitFor()

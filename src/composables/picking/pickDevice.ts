@@ -24,6 +24,8 @@ export interface OutboxItem {
   seq: number
   pickListId: number
   listNumber: string
+  /** The list's warehouse, for the device's outbox report. */
+  warehouseId: number | null
   /** Who made it: only they send it (a colleague signing in on the same device does not). */
   userId: number | null
   userName: string

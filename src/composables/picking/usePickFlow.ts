@@ -120,7 +120,8 @@ export function usePickFlow(d: PickFlowDeps) {
     } finally {
       busy.value = false
     }
-    d.feedback.ok(d.t(shortReason ? 'picking.handheld.shortSaved' : 'picking.handheld.confirmed', { qty: d.units(line, units), sku: line.sku }))
+    const said = d.t(shortReason ? 'picking.handheld.shortSaved' : 'picking.handheld.confirmed', { qty: d.units(line, units), sku: line.sku })
+    d.feedback.ok(shortReason === 'not_found' ? `${said} ${d.t('picking.handheld.countAsked', { bin: line.binCode })}` : said)
     if (left(line) > 0 && !shortReason) reset()
     else selectNextOpen()
   }

@@ -116,6 +116,7 @@ export default {
     refusedCount: '{n} refused | {n} refused',
     deviceCopy: 'No connection: showing this device\'s copy of the list from {when}. Scans are still checked.',
     notOnDevice: 'No connection, and this pick list is not on this device yet. Open it once with a connection.',
+    countAsked: 'Bin {bin} will be counted.',
     stepDone: 'done',
     lineSending: '{qty} waiting to send',
     lineShort: 'Short: {found} of {qty} found · {reasons}',

@@ -116,6 +116,7 @@ export default {
     refusedCount: '{n} rechazada | {n} rechazadas',
     deviceCopy: 'Sin conexión: se muestra la copia de la lista guardada en este equipo el {when}. Los escaneos se siguen comprobando.',
     notOnDevice: 'Sin conexión, y esta lista aún no está en este equipo. Ábrala una vez con conexión.',
+    countAsked: 'Se contará la ubicación {bin}.',
     stepDone: 'hecho',
     lineSending: '{qty} por enviar',
     lineShort: 'Faltante: {found} de {qty} encontradas · {reasons}',

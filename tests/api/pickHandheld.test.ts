@@ -1,4 +1,6 @@
-// A confirmation a handheld will not send, against the real MariaDB: the discard is recorded on the
+// What the handheld needs from the server, against the real MariaDB. A short pick "not in the bin"
+// asks for a count of that bin (one waiting count line, not two for a second short pick there).
+// A confirmation a handheld will not send: the discard is recorded on the
 // audit trail (who, why, what it said) and changes no stock or pick line; a discard of a confirmation
 // the server already has (its answer was lost on the way back) discards nothing and answers with it;
 // two people on one line: the second confirmation is refused with its own code (what the handheld
@@ -90,5 +92,26 @@ describe('discarding a confirmation held on a device', () => {
       expect(Object.keys(res.body.error.fields ?? {})).toContain(field)
     }
     expect(await discardAudits()).toBe(audits)
+  })
+})
+
+describe('a short pick "not in the bin"', () => {
+  it('asks for a count of that bin, item and lot once, and a damaged short pick does not', async () => {
+    const bom = await fxBom(h.ds, s.tag, [{ itemId: s.altBlock.id, qty: 10 }, { itemId: s.block.id, qty: 5 }])
+    const id = await releasedPickList(counter, bom.bomId, s.main.id)
+    const lines = ((await crew.get(`/api/pick-lists/${id}`)).body as PickListDetail).lines
+    const alt = lines.find((l) => l.sku === s.altBlock.sku)!
+    const block = lines.find((l) => l.sku === s.block.sku)!
+    const countLines = (line: typeof alt) => countRows(h.ds, 'count_lines', `bin_id = ? AND item_id = ? AND lot_key = ? AND status = 'waiting' AND source = 'short_pick'`,
+      [line.binId, line.itemId, line.lotId ?? 0])
+    const short = (line: typeof alt, reason: string) => crew.post(`/api/pick-lists/${id}/confirmations`).set(CSRF).set('Idempotency-Key', randomUUID())
+      .send({ lineId: line.id, binScan: `B:${line.binCode}`, qty: 0, shortReason: reason })
+    expect(await countLines(alt)).toBe(0)
+    expect((await short(alt, 'not_found')).status).toBe(201)
+    const [row] = await h.ds.query(`SELECT pick_list_id, pick_list_line_id FROM count_lines WHERE bin_id = ? AND item_id = ? AND source = 'short_pick'`, [alt.binId, alt.itemId])
+    expect(row).toEqual({ pick_list_id: id, pick_list_line_id: alt.id })
+    expect(await countLines(alt)).toBe(1)
+    expect((await short(block, 'damaged')).status).toBe(201)
+    expect(await countLines(block)).toBe(0)
   })
 })

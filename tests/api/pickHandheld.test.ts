@@ -1,10 +1,10 @@
-// What the handheld needs from the server, against the real MariaDB. A short pick "not in the bin"
-// asks for a count of that bin (one waiting count line, not two for a second short pick there).
-// A confirmation a handheld will not send: the discard is recorded on the
-// audit trail (who, why, what it said) and changes no stock or pick line; a discard of a confirmation
-// the server already has (its answer was lost on the way back) discards nothing and answers with it;
-// two people on one line: the second confirmation is refused with its own code (what the handheld
-// shows as a per-line outcome). Bad input: 400, nothing written.
+// What the handheld needs from the server, against the real MariaDB: each person's weight unit, read
+// back with the session; a short pick "not in the bin" asks for a count of that bin (once); a
+// confirmation a handheld will not send is discarded with who, why and what it said on the audit
+// trail, changing no stock or pick line; a discard of a confirmation the server already has (its
+// answer was lost on the way back) discards nothing and answers with it; two people on one line: the
+// second confirmation is refused with its own code (what the handheld shows as a per-line outcome).
+// Bad input: 400, nothing written.
 import { randomUUID } from 'node:crypto'
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -113,5 +113,20 @@ describe('a short pick "not in the bin"', () => {
     expect(await countLines(alt)).toBe(1)
     expect((await short(block, 'damaged')).status).toBe(201)
     expect(await countLines(block)).toBe(0)
+  })
+})
+
+describe('the weight unit the handheld shows', () => {
+  it('is each person\'s own, kept in the profile and read back with the session', async () => {
+    const person = await h.as('warehouse', 'counter') // a user of its own, so other tests keep theirs
+    expect((await person.get('/api/session')).body.user.weightUnit).toBe('lb')
+    const changed = await person.patch('/api/profile').set(CSRF).send({ weightUnit: 'kg' })
+    expect(changed.status).toBe(200)
+    expect(changed.body.user.weightUnit).toBe('kg')
+    expect((await person.get('/api/session')).body.user.weightUnit).toBe('kg')
+    const bad = await person.patch('/api/profile').set(CSRF).send({ weightUnit: 'stone' })
+    expect(bad.status).toBe(400)
+    expect(Object.keys(bad.body.error.fields)).toEqual(['weightUnit'])
+    expect((await person.get('/api/session')).body.user.weightUnit).toBe('kg')
   })
 })

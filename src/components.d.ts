@@ -56,6 +56,8 @@ declare module 'vue' {
     LabelSheet: typeof import('./components/labels/LabelSheet.vue')['default']
     LumenyardLogo: typeof import('./components/shell/LumenyardLogo.vue')['default']
     PickCautions: typeof import('./components/picking/PickCautions.vue')['default']
+    PickOutboxDiscard: typeof import('./components/picking/PickOutboxDiscard.vue')['default']
+    PickOutboxItem: typeof import('./components/picking/PickOutboxItem.vue')['default']
     PickStatusTag: typeof import('./components/picking/PickStatusTag.vue')['default']
     PurchasingItemPicker: typeof import('./components/purchasing/PurchasingItemPicker.vue')['default']
     RouterLink: typeof import('vue-router')['RouterLink']

@@ -3,7 +3,7 @@
 // transaction, deadlock retry, Idempotency-Key).
 import type { Request } from 'express'
 import {
-  pickCancelSchema, pickCompleteSchema, pickConfirmSchema, pickCreateSchema, pickListQuerySchema, pickPlanSchema, pickShipSchema,
+  pickCancelSchema, pickCompleteSchema, pickConfirmSchema, pickDiscardSchema, pickCreateSchema, pickListQuerySchema, pickPlanSchema, pickShipSchema,
 } from '../../shared/schemas/picking.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
@@ -13,6 +13,7 @@ import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { cancelPickList, releasePickList } from '../services/picking/pickListStates.js'
 import { completePickList } from '../services/picking/pickCompletion.js'
 import { confirmPick } from '../services/picking/pickConfirmations.js'
+import { discardConfirmation } from '../services/picking/pickDiscards.js'
 import { createPickLists } from '../services/picking/pickListCreate.js'
 import { pickListDetail } from '../services/picking/pickListDetail.js'
 import { bomsForPicking, pickListSummaries } from '../services/picking/pickListSummaries.js'
@@ -89,6 +90,16 @@ export default (ctx: AppContext) =>
         const input = parseBody(pickConfirmSchema, req.body)
         const key = confirmationKey(req)
         return runStockRequest(ctx, req, res, input, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
+      },
+    },
+    {
+      method: 'post',
+      path: '/:id/discards',
+      access: pickers,
+      handler: (req, res) => {
+        const id = listId(req)
+        const input = parseBody(pickDiscardSchema, req.body)
+        return runStockRequest(ctx, req, res, (em) => discardConfirmation(em, actorOf(req), id, input))
       },
     },
     {

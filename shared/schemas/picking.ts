@@ -67,6 +67,25 @@ export const pickConfirmSchema = z
   .refine((c) => c.qty === 0 || !!c.itemScan?.trim(), { path: ['itemScan'], message: 'Scan the item' })
 export type PickConfirmInput = z.infer<typeof pickConfirmSchema>
 
+/** Why a confirmation waiting on a device was dropped instead of sent (recorded on the audit trail). */
+export const PICK_DISCARD_REASONS = ['refusal_seen', 'entered_by_mistake', 'recorded_elsewhere', 'other'] as const
+export type PickDiscardReason = (typeof PICK_DISCARD_REASONS)[number]
+
+export const pickDiscardSchema = z
+  .object({
+    /** The Idempotency-Key the confirmation was made with. */
+    clientKey: z.string().trim().min(8, 'Not a confirmation key').max(100, 'Not a confirmation key').regex(/^[A-Za-z0-9._:-]+$/, 'Not a confirmation key'),
+    lineId: id,
+    qty: z.coerce.number({ error: 'Enter a quantity' }).int('Whole units only').min(0, 'Not below zero').max(1_000_000, 'Too large'),
+    shortReason: z.enum(SHORT_REASONS).optional().nullable(),
+    /** The code the server refused it with, when it was refused. */
+    refusedCode: z.string().trim().max(40).optional().nullable(),
+    reason: z.enum(PICK_DISCARD_REASONS, { error: 'Choose why' }),
+    note,
+  })
+  .refine((d) => d.reason !== 'other' || !!d.note?.trim(), { path: ['note'], message: 'Say why' })
+export type PickDiscardInput = z.infer<typeof pickDiscardSchema>
+
 export const pickCompleteSchema = z.object({
   /** Lines not fully confirmed are closed short ('not_picked'); without this they stop the completion. */
   acceptShort: z.boolean().default(false),
@@ -197,6 +216,9 @@ export interface PickConfirmAnswer {
   listStatus: string
   replayed: boolean
 }
+
+/** A discard is recorded, unless the server had the confirmation already: then it answers with it. */
+export type PickDiscardAnswer = { discarded: true } | { discarded: false; recorded: PickConfirmAnswer }
 
 export interface PlannedLine {
   bomLineId: number

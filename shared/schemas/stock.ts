@@ -20,14 +20,17 @@ export const adjustmentSchema = z
     itemId: idSchema,
     binId: idSchema,
     lotId: lotIdSchema,
-    delta: z.coerce.number({ error: 'Enter a change' }).int('Whole units only').refine((v) => v !== 0, 'Not zero').refine((v) => Math.abs(v) <= 1_000_000, 'Too large'),
+    delta: z.coerce.number({ error: 'Enter a change' }).int('Whole units only')
+      .refine((v) => v !== 0, { message: 'Not zero', params: { code: 'no_change' } })
+      .refine((v) => Math.abs(v) <= 1_000_000, { message: 'Too large', params: { code: 'too_large' } }),
     reason: z.enum(ADJUSTMENT_REASONS, { error: 'Choose a reason' }),
     note: noteSchema,
   })
-  .refine((v) => !(v.reason === 'found' && v.delta < 0), { path: ['delta'], message: 'Found stock adds units' })
+  .refine((v) => !(v.reason === 'found' && v.delta < 0), { path: ['delta'], message: 'Found stock adds units', params: { code: 'found_adds' } })
   .refine((v) => !((v.reason === 'damaged' || v.reason === 'written_off') && v.delta > 0), {
     path: ['delta'],
     message: 'Damaged or written-off stock removes units',
+    params: { code: 'removal_takes' },
   })
 export type AdjustmentInput = z.infer<typeof adjustmentSchema>
 

@@ -121,6 +121,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/pick-lists/:id/release': { access: ['admin', 'counter'] },
   'POST /api/pick-lists/:id/cancel': { access: ['admin', 'counter'] },
   'POST /api/pick-lists/:id/confirmations': { access: ['admin', 'warehouse'] },
+  'POST /api/pick-lists/:id/discards': { access: ['admin', 'warehouse'] },
   'POST /api/pick-lists/:id/complete': { access: ['admin', 'warehouse'] },
   'POST /api/pick-lists/:id/transfers/ship': { access: ['admin', 'warehouse'] },
   'GET /api/picking/warehouses': { access: ['admin', 'counter', 'warehouse'] },

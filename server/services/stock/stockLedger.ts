@@ -4,6 +4,7 @@
 import { randomUUID } from 'node:crypto'
 import type { EntityManager } from 'typeorm'
 import type { MoveType } from '../../../shared/catalog.js'
+import { balanceAfter } from '../../../shared/inventory/balanceAfter.js'
 import { StockBalance } from '../../entities/StockBalance.js'
 import { StockMove } from '../../entities/StockMove.js'
 import { blendAverages, COSTED_IN, lockCostRows } from './averageCost.js'
@@ -76,13 +77,13 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
     const described = lookups.describe(s)
     if (!bal) throw notEnoughOnHand(described, 0, -s.qty)
     const fromReserved = s.fromReserved ?? 0
-    const onHand = bal.onHand + s.qty
-    const reserved = bal.reserved - fromReserved
-    if (onHand < 0) throw notEnoughOnHand(described, bal.onHand, -s.qty)
-    if (reserved < 0) throw new RangeError(`reservation of ${described.sku} larger than the reserved quantity`)
-    if (onHand < reserved) throw notEnoughAvailable(described, bal.onHand, bal.reserved, -s.qty)
-    bal.onHand = onHand
-    bal.reserved = reserved
+    if (bal.reserved - fromReserved < 0) throw new RangeError(`reservation of ${described.sku} larger than the reserved quantity`)
+    const after = balanceAfter(bal, s.qty, fromReserved)
+    if (!after.ok) {
+      throw after.problem === 'not_enough_on_hand' ? notEnoughOnHand(described, bal.onHand, -s.qty) : notEnoughAvailable(described, bal.onHand, bal.reserved, -s.qty)
+    }
+    bal.onHand = after.onHand
+    bal.reserved = after.reserved
   }
   for (const bal of balances.values()) {
     await em.update(StockBalance, { id: bal.id }, { onHand: bal.onHand, reserved: bal.reserved })

@@ -15,6 +15,13 @@ export const warehouseRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/warehouse/PickHandheldView.vue'),
     meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'picking.title', bare: true },
   },
+  // What this device holds for the server: confirmations waiting or refused.
+  {
+    path: '/warehouse/outbox',
+    name: 'warehouse-outbox',
+    component: () => import('@/views/warehouse/WarehouseOutboxView.vue'),
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'picking.outbox.title', bare: true },
+  },
   // Receiving against purchase orders, with scans.
   {
     path: '/warehouse/receiving',

@@ -8,5 +8,6 @@ import { Purchasing1764760000000 } from './1764760000000-Purchasing.js'
 import { CounterTakeoffSettings1764770000000 } from './1764770000000-CounterTakeoffSettings.js'
 import { CycleCounts1796396073322 } from './1796396073322-CycleCounts.js'
 import { CountEntryPoint1796397796030 } from './1796397796030-CountEntryPoint.js'
+import { BuyingTrust1796403775001 } from './1796403775001-BuyingTrust.js'
 
-export const allMigrations = [Foundation1764633600000, StockCore1764700000000, CounterPurchasing1764730000000, ReorderPolicies1764740000000, Picking1764750000000, Purchasing1764760000000, CounterTakeoffSettings1764770000000, CycleCounts1796396073322, CountEntryPoint1796397796030]
+export const allMigrations = [Foundation1764633600000, StockCore1764700000000, CounterPurchasing1764730000000, ReorderPolicies1764740000000, Picking1764750000000, Purchasing1764760000000, CounterTakeoffSettings1764770000000, CycleCounts1796396073322, CountEntryPoint1796397796030, BuyingTrust1796403775001]

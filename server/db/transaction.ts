@@ -28,6 +28,14 @@ export async function inTransaction<T>(
   }
 }
 
+/**
+ * A value too large for its column (MariaDB 1264 out of range, 1690 numeric overflow): the request asked for more than the record can hold, not a server fault.
+ */
+export function isOutOfRange(err: unknown): boolean {
+  const errno = errnoOf(err)
+  return errno === 1264 || errno === 1690
+}
+
 export function isDuplicateKey(err: unknown): boolean {
   return errnoOf(err) === 1062
 }

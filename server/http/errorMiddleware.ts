@@ -1,5 +1,6 @@
 import type { ErrorRequestHandler, RequestHandler } from 'express'
 import { isDatabaseUnavailable } from '../db/outage.js'
+import { isOutOfRange } from '../db/transaction.js'
 import { AppError } from '../errors.js'
 
 /** Unknown /api paths answer JSON 404, never the SPA page. */
@@ -18,6 +19,10 @@ export const errorMiddleware: ErrorRequestHandler = (err, req, res, _next) => {
     appError = new AppError(400, 'bad_json', 'The request body is not valid JSON.')
   } else if (err?.code === 'LIMIT_FILE_SIZE') {
     appError = new AppError(413, 'file_too_large', 'The file is larger than the upload limit.')
+  } else if (isOutOfRange(err)) {
+    // Validation should have caught it first; a total that still overflows its column changed nothing (rolled back).
+    req.log?.warn({ err }, 'value out of column range')
+    appError = new AppError(409, 'value_out_of_range', 'A quantity or amount would grow larger than Lumenyard can record. Nothing was changed; split it into smaller ones.')
   } else if (typeof err?.code === 'string' && err.code.startsWith('LIMIT_')) {
     appError = new AppError(400, 'bad_upload', `The upload was refused: ${err.message}.`)
   } else if (isDatabaseUnavailable(err)) {

@@ -140,6 +140,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/vendors/:id/price-list/commit': { access: ['admin', 'buyer'] },
   'GET /api/purchase-orders': { access: ['admin', 'buyer', 'warehouse'], costs: '/api/purchase-orders?q={poNumber}' },
   'GET /api/purchase-orders/suggestions': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/suggestions' },
+  'PATCH /api/purchase-orders/suggestions/:suggestionId': { access: ['admin', 'buyer'] },
+  'POST /api/purchase-orders/suggestions/:suggestionId/dismiss': { access: ['admin', 'buyer'] },
   'GET /api/purchase-orders/special-orders': { access: ['admin', 'buyer'] },
   'GET /api/purchase-orders/export': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/export?ids={po}' },
   'POST /api/purchase-orders': { access: ['admin', 'buyer'] },
@@ -163,7 +165,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/purchasing/settings': { access: ['admin'] },
   'PATCH /api/purchasing/settings': { access: ['admin'] },
   'GET /api/purchasing/outbox': { access: ['admin'] },
-  'GET /api/purchasing/outbox/:id/attachment': { access: ['admin'] },
+  'GET /api/purchasing/outbox/:id/attachments/:attachmentId': { access: ['admin'] },
+  'POST /api/purchasing/outbox/:id/send-again': { access: ['admin'] },
   'GET /api/jobs/:id/purchase-lines': { access: ['admin', 'counter', 'buyer'] },
   // Handheld outbox reports (counts and reports): devices report, the warehouse start page reads.
   'GET /api/devices/outbox': { access: ['admin', 'warehouse'] },

@@ -14,6 +14,7 @@ declare module 'vue' {
     AbcParetoChart: typeof import('./components/charts/AbcParetoChart.vue')['default']
     AppShell: typeof import('./components/shell/AppShell.vue')['default']
     AppShellNav: typeof import('./components/shell/AppShellNav.vue')['default']
+    BarcodeSymbol: typeof import('./components/labels/BarcodeSymbol.vue')['default']
     BaseLengthInput: typeof import('./components/base/BaseLengthInput.vue')['default']
     BillOfMaterialsExplain: typeof import('./components/counter/BillOfMaterialsExplain.vue')['default']
     BillOfMaterialsTable: typeof import('./components/counter/BillOfMaterialsTable.vue')['default']

@@ -53,6 +53,7 @@ declare module 'vue' {
     ElTag: typeof import('element-plus/es')['ElTag']
     ElTimeline: typeof import('element-plus/es')['ElTimeline']
     ElTimelineItem: typeof import('element-plus/es')['ElTimelineItem']
+    ElTooltip: typeof import('element-plus/es')['ElTooltip']
     LabelCard: typeof import('./components/labels/LabelCard.vue')['default']
     LabelSheet: typeof import('./components/labels/LabelSheet.vue')['default']
     LumenyardLogo: typeof import('./components/shell/LumenyardLogo.vue')['default']

@@ -99,7 +99,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const input = parseBody(pickDiscardSchema, req.body)
-        return runStockRequest(ctx, req, res, (em) => discardConfirmation(em, actorOf(req), id, input))
+        return runStockRequest(ctx, req, res, input, (em) => discardConfirmation(em, actorOf(req), id, input))
       },
     },
     {

@@ -3,6 +3,7 @@ import { defineConfig } from 'vitest/config'
 
 // Three projects: unit (pure code, no services), api (supertest against the real app and MariaDB),
 // e2e (playwright-core driving Debian's Chromium). scripts/test.sh prepares the database first.
+// A fourth, faults, runs only on request (npm run test:faults): crash tests with their own database.
 const decorators = { decorator: { legacy: true, emitDecoratorMetadata: true } }
 // The client's aliases, for unit tests of client modules that run without a browser (message files, error words).
 const alias = {
@@ -39,6 +40,17 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 120_000,
           hookTimeout: 180_000,
+        },
+      },
+      {
+        oxc: decorators,
+        test: {
+          name: 'faults',
+          include: ['tests/faults/**/*.test.ts'],
+          environment: 'node',
+          fileParallelism: false,
+          testTimeout: 180_000,
+          hookTimeout: 240_000,
         },
       },
     ],

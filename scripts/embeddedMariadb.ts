@@ -17,6 +17,8 @@ export const dataRoot = path.join(projectRoot, '.data')
 export interface EmbeddedProfile {
   name: string
   port: number
+  /** More mariadbd options (a replication pair: --log-bin, --server-id, --read-only …). */
+  extraArgs?: string[]
 }
 
 export interface EmbeddedServer {
@@ -117,7 +119,7 @@ export async function ensureEmbeddedServer(profile: EmbeddedProfile): Promise<Em
     `--pid-file=${dirs.pidFile}`,
     `--port=${profile.port}`,
     '--bind-address=127.0.0.1',
-    '--skip-log-bin',
+    ...(profile.extraArgs?.some((a) => a.startsWith('--log-bin')) ? [] : ['--skip-log-bin']),
     '--skip-name-resolve',
     '--innodb-flush-log-at-trx-commit=1',
     '--innodb-buffer-pool-size=256M',
@@ -125,6 +127,7 @@ export async function ensureEmbeddedServer(profile: EmbeddedProfile): Promise<Em
     '--character-set-server=utf8mb4',
     '--collation-server=utf8mb4_unicode_ci',
     `--log-error=${dirs.logFile}`,
+    ...(profile.extraArgs ?? []),
   ]
   if (isRoot()) args.push('--user=root')
   const out = openSync(dirs.logFile, 'a')

@@ -12,5 +12,7 @@ need_debian unzip unzip
 need_debian pdftoppm poppler-utils
 need_debian zbarimg zbar-tools
 need_debian soffice libreoffice-calc-nogui
+# The crash and scale tests (npm run test:faults) put Debian's nginx in front of two app processes.
+if [[ " $* " == *" faults "* ]]; then need_debian nginx nginx; fi
 need_node_modules
 exec $TSX scripts/testRun.ts "$@"

@@ -10,6 +10,9 @@ import { dataRoot, projectRoot } from './embeddedMariadb.js'
 import { prepareEnvironment } from './environment.js'
 
 const PROJECTS = ['unit', 'api', 'e2e'] as const
+/** Run only when named (`npm run test:faults`): they start and kill their own database and app processes. */
+const ON_REQUEST = ['faults'] as const
+const KNOWN: readonly string[] = [...PROJECTS, ...ON_REQUEST]
 
 async function migrateAndLoadDemo(env: Record<string, string>) {
   const config = loadConfig({ ...process.env, ...env, NODE_ENV: 'test' })
@@ -61,14 +64,14 @@ function summarise(resultsFile: string): string {
 
 async function main() {
   const args = process.argv.slice(2)
-  const wanted = args.filter((a) => (PROJECTS as readonly string[]).includes(a))
+  const wanted = args.filter((a) => KNOWN.includes(a))
   // Anything else narrows the run to matching test files (vitest filters), e.g. tests/api/stock.
-  const filters = args.filter((a) => !(PROJECTS as readonly string[]).includes(a))
+  const filters = args.filter((a) => !KNOWN.includes(a))
   const projects = wanted.length ? wanted : [...PROJECTS]
   const database = process.env.LUMENYARD_TEST_DB ?? 'lumenyard_test'
   const started = Date.now()
   const env: Record<string, string> = { NODE_ENV: 'test', LUMENYARD_LOG_LEVEL: process.env.LUMENYARD_LOG_LEVEL ?? 'silent' }
-  const needsDb = projects.some((p) => p !== 'unit')
+  const needsDb = projects.some((p) => p === 'api' || p === 'e2e')
   let stop = async () => {}
   if (needsDb) {
     const prepared = await prepareEnvironment('test', { database, reset: true })

@@ -26,6 +26,8 @@ export const clientDist = process.env.LUMENYARD_CLIENT_DIST ?? path.resolve(impo
 export interface AppDeps {
   config: AppConfig
   ds: DataSource
+  /** The replica's DataSource for reports (ctx.readDs); the primary when absent. */
+  readDs?: DataSource
   logger?: Logger
   /** The built client to serve (default: dist/, or LUMENYARD_CLIENT_DIST). */
   clientDist?: string
@@ -90,9 +92,10 @@ export function createApp(deps: AppDeps): BuiltApp {
   const ctx: AppContext = {
     config,
     ds,
+    readDs: deps.readDs ?? ds,
     logger,
     passport: pp,
-    throttle: new SignInThrottle(config.signin),
+    throttle: new SignInThrottle(config.signin, config.db),
   }
   const app = express()
   app.disable('x-powered-by')
@@ -153,6 +156,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     ctx,
     close: async () => {
       await closeStore()
+      await ctx.throttle.close()
     },
   }
 }

@@ -20,11 +20,15 @@ const schema = z.object({
   LUMENYARD_DB_PASSWORD: z.string().min(1, 'LUMENYARD_DB_PASSWORD is required (npm start sets it for the embedded database)'),
   LUMENYARD_DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/, 'letters, digits and _ only').default('lumenyard'),
   LUMENYARD_DB_POOL: z.coerce.number().int().min(2).max(500).default(40),
+  LUMENYARD_DB_READ_HOST: z.string().min(1).optional(),
+  LUMENYARD_DB_READ_PORT: port.optional(),
+  LUMENYARD_DB_READ_USER: z.string().min(1).optional(),
+  LUMENYARD_DB_READ_PASSWORD: z.string().min(1).optional(),
 
   LUMENYARD_SESSION_SECRET: z.string().min(32, 'must be at least 32 characters'),
   LUMENYARD_SESSION_IDLE_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(30),
   LUMENYARD_SESSION_MAX_HOURS: z.coerce.number().int().min(1).max(24 * 7).default(12),
-  LUMENYARD_SECURE_COOKIES: bool.default(false),
+  LUMENYARD_SECURE_COOKIES: bool.optional(),
   LUMENYARD_TRUST_PROXY: bool.default(false),
 
   LUMENYARD_SIGNIN_FAILS_PER_ACCOUNT: z.coerce.number().int().min(1).default(5),
@@ -48,6 +52,8 @@ export interface AppConfig {
   publicUrl?: string
   logLevel: string
   db: { host: string; port: number; user: string; password: string; database: string; pool: number }
+  /** A read-only replica for reports and dashboards; absent: they read the primary. */
+  readDb?: { host: string; port: number; user: string; password: string; database: string; pool: number }
   session: {
     secret: string
     idleMinutes: number
@@ -83,11 +89,22 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       database: e.LUMENYARD_DB_NAME,
       pool: e.LUMENYARD_DB_POOL,
     },
+    readDb: e.LUMENYARD_DB_READ_HOST || e.LUMENYARD_DB_READ_PORT
+      ? {
+          host: e.LUMENYARD_DB_READ_HOST ?? e.LUMENYARD_DB_HOST,
+          port: e.LUMENYARD_DB_READ_PORT ?? e.LUMENYARD_DB_PORT,
+          user: e.LUMENYARD_DB_READ_USER ?? e.LUMENYARD_DB_USER,
+          password: e.LUMENYARD_DB_READ_PASSWORD ?? e.LUMENYARD_DB_PASSWORD,
+          database: e.LUMENYARD_DB_NAME,
+          pool: e.LUMENYARD_DB_POOL,
+        }
+      : undefined,
     session: {
       secret: e.LUMENYARD_SESSION_SECRET,
       idleMinutes: e.LUMENYARD_SESSION_IDLE_MINUTES,
       maxHours: e.LUMENYARD_SESSION_MAX_HOURS,
-      secureCookies: e.LUMENYARD_SECURE_COOKIES,
+      // Secure by default in production (ASVS V3.3.1); plain http in development needs it off.
+      secureCookies: e.LUMENYARD_SECURE_COOKIES ?? e.NODE_ENV === 'production',
       trustProxy: e.LUMENYARD_TRUST_PROXY,
     },
     signin: {

@@ -11,6 +11,11 @@ import { AppError } from './errors.js'
 export interface AppContext {
   config: AppConfig
   ds: DataSource
+  /**
+   * For reports and dashboards only: a read-only replica when LUMENYARD_DB_READ_HOST/PORT is set, else the
+   * primary (the same object as ds). A replica lags: never read from it what decides a write.
+   */
+  readDs: DataSource
   passport: passport.PassportStatic
   throttle: SignInThrottle
   logger: Logger

@@ -3,6 +3,7 @@ import type { Server } from 'node:http'
 import type { AppConfig } from './config.js'
 import { createApp } from './app.js'
 import { createDataSource } from './db/dataSource.js'
+import { checkDurability } from './db/outage.js'
 import { isDatabaseEmpty, loadDemoScenario } from './demo/index.js'
 import { createLogger } from './logger.js'
 
@@ -15,13 +16,20 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
   const logger = createLogger(config.logLevel)
   const ds = createDataSource(config)
   await ds.initialize()
+  await checkDurability(ds, logger)
   const ran = await ds.runMigrations({ transaction: 'each' })
   if (ran.length) logger.info({ migrations: ran.map((m) => m.name) }, 'migrations applied')
   if (opts.loadDemo && config.env !== 'production' && (await isDatabaseEmpty(ds))) {
     logger.info('empty database: loading the demo scenario')
     await loadDemoScenario(ds, (m) => logger.info(m))
   }
-  const built = createApp({ config, ds, logger })
+  // Reports and dashboards read the replica when one is configured (ctx.readDs).
+  const readDs = config.readDb ? createDataSource({ db: config.readDb }) : undefined
+  if (readDs) {
+    await readDs.initialize()
+    logger.info({ host: config.readDb!.host, port: config.readDb!.port }, 'reports read from the replica')
+  }
+  const built = createApp({ config, ds, readDs, logger })
   const server: Server = await new Promise((resolve, reject) => {
     const s = built.app.listen(config.port, config.host, () => resolve(s))
     s.once('error', (err: NodeJS.ErrnoException) => {
@@ -40,6 +48,7 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
         server.closeAllConnections?.()
       })
       await built.close()
+      await readDs?.destroy()
       await ds.destroy()
     },
   }

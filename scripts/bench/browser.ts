@@ -21,7 +21,7 @@ export async function firstGridRows(browser: Browser, url: string, cookie?: stri
     const page = await context.newPage()
     await page.goto(url, { waitUntil: 'commit' })
     const at = await page.waitForFunction(
-      () => (document.querySelector('.ag-center-cols-container .ag-row .ag-cell') ? performance.now() : false),
+      () => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false),
       null,
       { polling: 'raf', timeout: 60_000 },
     )
@@ -38,7 +38,7 @@ export async function pageScripts(browser: Browser, url: string): Promise<{ file
     const page = await context.newPage()
     const bodies: Promise<Buffer>[] = []
     page.on('response', (res) => {
-      if (res.request().resourceType() === 'script') bodies.push(res.body())
+      if (res.request().resourceType() === 'script') bodies.push(res.body().catch(() => Buffer.alloc(0)))
     })
     await page.goto(url, { waitUntil: 'networkidle' })
     const all = await Promise.all(bodies)

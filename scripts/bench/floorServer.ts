@@ -150,3 +150,5 @@ process.once('SIGTERM', () => {
   server.closeAllConnections()
   pool.end().finally(() => process.exit(0))
 })
+// The bench runner gone (stopped, or failed midway): stop too, rather than keep the port.
+process.once('disconnect', () => process.exit(0))

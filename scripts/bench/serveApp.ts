@@ -8,3 +8,5 @@ process.send?.({ url: running.url })
 process.once('SIGTERM', () => {
   running.close().finally(() => process.exit(0))
 })
+// The bench runner gone (stopped, or failed midway): stop too, rather than keep the port.
+process.once('disconnect', () => process.exit(0))

@@ -33,6 +33,7 @@ export function startNodeServer(name: string, entry: string, env: Record<string,
             if (child.exitCode !== null) return done()
             child.once('exit', () => done())
             child.kill('SIGTERM')
+            setTimeout(() => child.kill('SIGKILL'), 5000).unref()
           }),
       })
     })

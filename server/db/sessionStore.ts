@@ -21,13 +21,14 @@ export interface SessionUserRow {
   display_name: string
   roles: string | null
   unit_preference: SessionUser['unitPreference']
+  weight_unit: SessionUser['weightUnit']
   locale: SessionUser['locale']
   active: number
   session_epoch: number
 }
 
 export const sessionUserColumns = (alias: string) =>
-  ['id', 'username', 'display_name', 'roles', 'unit_preference', 'locale', 'active', 'session_epoch'].map((c) => `${alias}.${c}`).join(', ')
+  ['id', 'username', 'display_name', 'roles', 'unit_preference', 'weight_unit', 'locale', 'active', 'session_epoch'].map((c) => `${alias}.${c}`).join(', ')
 
 interface Loaded {
   /** When the row's expiry was last written, in ms (its expiry less the idle timeout). */

@@ -7,6 +7,9 @@ function errnoOf(err: unknown): number | undefined {
   return e?.errno ?? e?.driverError?.errno
 }
 
+/** How many transactions were run again after a deadlock or lock wait (the load tests print it). */
+export const transactionRetries = { count: 0 }
+
 /** Runs work in one transaction and retries the whole of it on a deadlock. */
 export async function inTransaction<T>(
   ds: DataSource,
@@ -19,9 +22,18 @@ export async function inTransaction<T>(
     } catch (err) {
       const errno = errnoOf(err)
       if (attempt >= attempts || errno === undefined || !RETRYABLE.has(errno)) throw err
+      transactionRetries.count++
       await new Promise((r) => setTimeout(r, 5 + Math.random() * 20 * attempt))
     }
   }
+}
+
+/**
+ * A value too large for its column (MariaDB 1264 out of range, 1690 numeric overflow): the request asked for more than the record can hold, not a server fault.
+ */
+export function isOutOfRange(err: unknown): boolean {
+  const errno = errnoOf(err)
+  return errno === 1264 || errno === 1690
 }
 
 export function isDuplicateKey(err: unknown): boolean {

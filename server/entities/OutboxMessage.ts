@@ -1,6 +1,6 @@
 import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm'
 
-/** Every e-mail the app tried to send, with its attachment, whatever SMTP server took (or refused) it. */
+/** Every e-mail the app tried to send, with its attachments, whatever SMTP server took (or refused) it. */
 @Entity({ name: 'outbox_messages' })
 export class OutboxMessage {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
@@ -16,8 +16,16 @@ export class OutboxMessage {
   @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null
   @Column({ name: 'message_id', type: 'varchar', length: 200, nullable: true }) messageId: string | null
   @Column({ name: 'po_id', type: 'int', nullable: true }) poId: number | null
-  @Column({ name: 'attachment_name', type: 'varchar', length: 120, nullable: true }) attachmentName: string | null
-  @Column({ name: 'attachment_type', type: 'varchar', length: 100, nullable: true }) attachmentType: string | null
-  @Column({ type: 'mediumblob', nullable: true, select: false }) attachment: Buffer | null
   @Column({ name: 'created_by', type: 'int', nullable: true }) createdBy: number | null
+  /** The failed message this one sends again (each failed message is sent again at most once). */
+  @Column({ name: 'retry_of', type: 'int', nullable: true }) retryOf: number | null
+}
+
+@Entity({ name: 'outbox_attachments' })
+export class OutboxAttachment {
+  @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  @Column({ name: 'message_id', type: 'int' }) messageId: number
+  @Column({ type: 'varchar', length: 120 }) name: string
+  @Column({ name: 'content_type', type: 'varchar', length: 100 }) contentType: string
+  @Column({ type: 'mediumblob', select: false }) bytes: Buffer
 }

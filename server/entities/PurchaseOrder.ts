@@ -33,6 +33,8 @@ export class PurchaseOrder {
   @Column({ name: 'cancel_reason', type: 'varchar', length: 200, nullable: true }) cancelReason: string | null
   /** The last e-mail attempt's error; cleared by a send that works. */
   @Column({ name: 'send_error', type: 'varchar', length: 500, nullable: true }) sendError: string | null
+  /** Goes up with every change; an edit or approval made on an older version is refused. */
+  @Column({ type: 'int', default: 1 }) version: number
 }
 
 /** Ordered in purchase packs; qty_ordered = packs_ordered × pack_qty stock units. */

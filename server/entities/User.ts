@@ -33,6 +33,9 @@ export class User {
   @Column({ name: 'unit_preference', type: 'varchar', length: 2, default: 'in' })
   unitPreference: 'in' | 'mm'
 
+  @Column({ name: 'weight_unit', type: 'varchar', length: 2, default: 'lb' })
+  weightUnit: 'lb' | 'kg'
+
   @Column({ type: 'varchar', length: 2, default: 'en' })
   locale: 'en' | 'es'
 

@@ -13,7 +13,7 @@ import { Lot } from './Lot.js'
 import { PickConfirmation, PickList, PickListLine, PickShortage, PickTransferProposal } from './PickList.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from './PurchaseReceipt.js'
-import { OutboxMessage } from './OutboxMessage.js'
+import { OutboxAttachment, OutboxMessage } from './OutboxMessage.js'
 import { AppSetting } from './AppSetting.js'
 import { ReorderPolicyRow } from './ReorderPolicy.js'
 import { StockBalance } from './StockBalance.js'
@@ -51,6 +51,7 @@ export const allEntities = [
   PurchaseReceipt,
   PurchaseReceiptLine,
   OutboxMessage,
+  OutboxAttachment,
   AppSetting,
   ReorderPolicyRow,
   MaterialRuleRow,

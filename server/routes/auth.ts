@@ -17,14 +17,13 @@ export default (ctx: AppContext) =>
       handler: async (req, res) => {
         const input = parseBody(signInSchema, req.body)
         const ip = req.ip ?? 'unknown'
-        await ctx.throttle.check(input.username, ip)
+        // The attempt is counted before the password is checked (atomic in the database), so a burst
+        // of parallel guesses gets no more checks than the limit.
+        await ctx.throttle.reserve(input.username, ip)
         req.body = { username: input.username.toLowerCase(), password: input.password }
         const user = await authenticate(ctx.passport, req, res)
-        if (!user) {
-          await ctx.throttle.fail(input.username, ip)
-          throw new AppError(401, 'bad_credentials', 'The user name or password is not right.')
-        }
-        await ctx.throttle.succeed(input.username)
+        if (!user) throw new AppError(401, 'bad_credentials', 'The user name or password is not right.')
+        await ctx.throttle.succeeded(input.username, ip)
         await logIn(req, user) // passport 0.7 regenerates the session id here
         req.session.signedInAt = Date.now()
         await ctx.ds.getRepository(User).update({ id: user.id }, { lastSignInAt: new Date() })

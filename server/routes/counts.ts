@@ -41,20 +41,20 @@ function countStep<S extends z.ZodType>(
     method: 'post', path, access,
     handler: (req, res) => {
       const input = parseBody(schema, req.body)
-      return runStockRequest(ctx, req, res, (em) => step(em, req, input))
+      return runStockRequest(ctx, req, res, input, (em) => step(em, req, input))
     },
   }
 }
 
 export default (ctx: AppContext) =>
   defineRoutes('/counts', [
-    { method: 'get', path: '/', access: readers, handler: (req) => listCounts(readSource(ctx), viewer(req), parseQuery(countsQuerySchema, req.query)) },
+    { method: 'get', path: '/', access: readers, handler: (req) => listCounts(readSource(ctx), parseQuery(countsQuerySchema, req.query)) },
     { method: 'post', path: '/', access: counters, status: 201, handler: (req) => openCount(ctx.ds, actorOf(req), parseBody(countOpenSchema, req.body)) },
     { method: 'get', path: '/due', access: counters, handler: (req) => countDuePlan(readSource(ctx), parseQuery(countDueQuerySchema, req.query).warehouseId) },
     { method: 'get', path: '/settings', access: readers, handler: () => countSettings(ctx.ds) },
     { method: 'put', path: '/settings', access: allow('admin'), handler: (req) => updateCountSettings(ctx.ds, actorOf(req), parseBody(countSettingsSchema, req.body)) },
     { method: 'get', path: '/history', access: readers, handler: (req) => countHistory(readSource(ctx), viewer(req), parseQuery(countHistoryQuerySchema, req.query)) },
-    { method: 'get', path: '/accuracy', access: readers, handler: (req) => countAccuracy(readSource(ctx), viewer(req), parseQuery(countAccuracyQuerySchema, req.query)) },
+    { method: 'get', path: '/accuracy', access: readers, handler: (req) => countAccuracy(readSource(ctx), parseQuery(countAccuracyQuerySchema, req.query)) },
     { method: 'get', path: '/:id', access: readers, handler: (req) => countDetail(ctx.ds, viewer(req), countId(req)) },
     { method: 'get', path: '/:id/handheld', access: counters, handler: (req) => handheldCount(ctx.ds, viewer(req), countId(req)) },
     countStep(ctx, '/:id/bins/start', counters, countStartBinSchema, (em, req, input) => startBinVisit(em, actorOf(req), countId(req), input)),

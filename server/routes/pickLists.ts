@@ -3,7 +3,7 @@
 // transaction, deadlock retry, Idempotency-Key).
 import type { Request } from 'express'
 import {
-  pickCancelSchema, pickCompleteSchema, pickConfirmSchema, pickCreateSchema, pickListQuerySchema, pickPlanSchema, pickShipSchema,
+  pickCancelSchema, pickCompleteSchema, pickConfirmSchema, pickDiscardSchema, pickCreateSchema, pickListQuerySchema, pickPlanSchema, pickShipSchema,
 } from '../../shared/schemas/picking.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
@@ -13,6 +13,7 @@ import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { cancelPickList, releasePickList } from '../services/picking/pickListStates.js'
 import { completePickList } from '../services/picking/pickCompletion.js'
 import { confirmPick } from '../services/picking/pickConfirmations.js'
+import { discardConfirmation } from '../services/picking/pickDiscards.js'
 import { createPickLists } from '../services/picking/pickListCreate.js'
 import { pickListDetail } from '../services/picking/pickListDetail.js'
 import { bomsForPicking, pickListSummaries } from '../services/picking/pickListSummaries.js'
@@ -51,7 +52,7 @@ export default (ctx: AppContext) =>
       access: counter,
       handler: (req, res) => {
         const input = parseBody(pickCreateSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => {
+        return runStockRequest(ctx, req, res, input, async (em) => {
           const { ids } = await createPickLists(em, actorOf(req), input)
           return { ids, lists: await pickListSummaries(em, { ids, status: 'all' }) }
         }, 201)
@@ -64,7 +65,7 @@ export default (ctx: AppContext) =>
       access: counter,
       handler: (req, res) => {
         const id = listId(req)
-        return runStockRequest(ctx, req, res, async (em) => {
+        return runStockRequest(ctx, req, res, null, async (em) => {
           await releasePickList(em, actorOf(req), id)
           return { id, status: 'released' }
         })
@@ -77,7 +78,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const { reason } = parseBody(pickCancelSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, reason ?? null)) }))
+        return runStockRequest(ctx, req, res, { reason }, async (em) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, reason ?? null)) }))
       },
     },
     {
@@ -88,7 +89,17 @@ export default (ctx: AppContext) =>
         const id = listId(req)
         const input = parseBody(pickConfirmSchema, req.body)
         const key = confirmationKey(req)
-        return runStockRequest(ctx, req, res, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
+        return runStockRequest(ctx, req, res, input, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
+      },
+    },
+    {
+      method: 'post',
+      path: '/:id/discards',
+      access: pickers,
+      handler: (req, res) => {
+        const id = listId(req)
+        const input = parseBody(pickDiscardSchema, req.body)
+        return runStockRequest(ctx, req, res, input, (em) => discardConfirmation(em, actorOf(req), id, input))
       },
     },
     {
@@ -98,7 +109,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const input = parseBody(pickCompleteSchema, req.body)
-        return runStockRequest(ctx, req, res, async (em) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }))
+        return runStockRequest(ctx, req, res, input, async (em) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }))
       },
     },
     {
@@ -108,7 +119,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = listId(req)
         const { fromWarehouseId } = parseBody(pickShipSchema, req.body)
-        return runStockRequest(ctx, req, res, (em) => shipProposedTransfer(em, actorOf(req), id, fromWarehouseId), 201)
+        return runStockRequest(ctx, req, res, { fromWarehouseId }, (em) => shipProposedTransfer(em, actorOf(req), id, fromWarehouseId), 201)
       },
     },
   ])

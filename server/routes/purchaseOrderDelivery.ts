@@ -43,7 +43,7 @@ export default (ctx: AppContext) =>
       handler: (req, res) => {
         const id = poId(req)
         const input = parseBody(receiveSchema, req.body)
-        return runStockRequest(ctx, req, res, (em) => receivePurchaseOrder(em, actorOf(req), id, input), 201)
+        return runStockRequest(ctx, req, res, input, (em) => receivePurchaseOrder(em, actorOf(req), id, input), 201)
       },
     },
   ])

@@ -3,8 +3,8 @@
 import type { Request } from 'express'
 import type { EntityManager } from 'typeorm'
 import {
-  poExportQuerySchema, poFromJobSchema, poFromSuggestionsSchema, poLineInputSchema, poListQuerySchema, poManualSchema, poReasonSchema,
-  poUpdateSchema,
+  poApproveSchema, poExportQuerySchema, poFromJobSchema, poFromSuggestionsSchema, poLineInputSchema, poListQuerySchema, poManualSchema, poReasonSchema,
+  poUpdateSchema, suggestionUpdateSchema,
 } from '../../shared/schemas/purchasing.js'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
@@ -19,10 +19,12 @@ import { listPurchaseOrders, poDetail } from '../services/purchasing/poRead.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 import { multiPoWorkbook, poWorkbook } from '../services/purchasing/poSpreadsheet.js'
 import { acceptedSuggestions } from '../services/purchasing/suggestionsRead.js'
+import { dismissSuggestion, updateSuggestion } from '../services/purchasing/suggestionEdits.js'
 
 const buyers = allow('admin', 'buyer')
 const readers = allow('admin', 'buyer', 'warehouse')
 const poId = (req: Request) => idParam(req.params.id, 'That purchase order')
+const suggestionId = (req: Request) => idParam(req.params.suggestionId, 'That suggestion')
 
 export default (ctx: AppContext) => {
   const detail = (_req: Request, id: number) => poDetail(ctx.ds, id)
@@ -39,6 +41,21 @@ export default (ctx: AppContext) => {
       handler: (req) => listPurchaseOrders(ctx.ds, parseQuery(poListQuerySchema, req.query)),
     },
     { method: 'get', path: '/suggestions', access: buyers, handler: () => acceptedSuggestions(ctx.ds) },
+    {
+      method: 'patch', path: '/suggestions/:suggestionId', access: buyers,
+      handler: async (req) => {
+        const input = parseBody(suggestionUpdateSchema, req.body)
+        await inTransaction(ctx.ds, (em) => updateSuggestion(em, actorOf(req), suggestionId(req), input))
+        return acceptedSuggestions(ctx.ds)
+      },
+    },
+    {
+      method: 'post', path: '/suggestions/:suggestionId/dismiss', access: buyers,
+      handler: async (req) => {
+        await inTransaction(ctx.ds, (em) => dismissSuggestion(em, actorOf(req), suggestionId(req)))
+        return acceptedSuggestions(ctx.ds)
+      },
+    },
     { method: 'get', path: '/special-orders', access: buyers, handler: () => specialOrderJobs(ctx.ds) },
     {
       method: 'get', path: '/export', access: buyers,
@@ -95,7 +112,13 @@ export default (ctx: AppContext) => {
       method: 'delete', path: '/:id/lines/:lineId', access: buyers,
       handler: (req) => change(req, (em, id) => removeLine(em, actorOf(req), id, idParam(req.params.lineId, 'That line'))),
     },
-    { method: 'post', path: '/:id/approve', access: buyers, handler: (req) => change(req, (em, id) => approve(em, actorOf(req), id)) },
+    {
+      method: 'post', path: '/:id/approve', access: buyers,
+      handler: (req) => {
+        const { version } = parseBody(poApproveSchema, req.body ?? {})
+        return change(req, (em, id) => approve(em, actorOf(req), id, version))
+      },
+    },
     { method: 'post', path: '/:id/mark-sent', access: buyers, handler: (req) => change(req, (em, id) => markSent(em, actorOf(req), id, 'by hand')) },
     {
       method: 'post', path: '/:id/cancel', access: buyers,

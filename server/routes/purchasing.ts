@@ -10,6 +10,7 @@ import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { purchasingSettings, updatePurchasingSettings } from '../services/appSettings.js'
 import { jobPurchaseLines } from '../services/purchasing/jobPurchasing.js'
 import { listOutbox, outboxAttachment } from '../services/purchasing/outboxRead.js'
+import { sendAgain } from '../services/purchasing/poMail.js'
 import { itemChoices, warehouseChoices } from '../services/purchasing/vendorService.js'
 
 const buyers = allow('admin', 'buyer')
@@ -27,8 +28,13 @@ const purchasing = (ctx: AppContext) =>
     },
     { method: 'get', path: '/outbox', access: admin, handler: () => listOutbox(ctx.ds) },
     {
-      method: 'get', path: '/outbox/:id/attachment', access: admin,
-      handler: async (req, res) => sendDownload(res, await outboxAttachment(ctx.ds, idParam(req.params.id, 'That message'))),
+      method: 'get', path: '/outbox/:id/attachments/:attachmentId', access: admin,
+      handler: async (req, res) =>
+        sendDownload(res, await outboxAttachment(ctx.ds, idParam(req.params.id, 'That message'), idParam(req.params.attachmentId, 'That attachment'))),
+    },
+    {
+      method: 'post', path: '/outbox/:id/send-again', access: admin,
+      handler: (req) => sendAgain(ctx.ds, ctx.config, actorOf(req), idParam(req.params.id, 'That message')),
     },
   ])
 

@@ -42,7 +42,7 @@ export default (ctx: AppContext) =>
         const write = await prepareAccept(ctx.ds, input)
         const answer = await runIdempotent(
           ctx.ds,
-          { userId: actor.userId, key: req.get('idempotency-key') ?? undefined, scope: 'POST /api/reorder/accept', body: req.body },
+          { userId: actor.userId, key: req.get('idempotency-key') ?? undefined, scope: 'POST /api/reorder/accept', input },
           async (em) => {
             const body = await write(em, actor)
             return { status: body.accepted.length ? 201 : 200, body }

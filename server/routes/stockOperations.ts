@@ -40,7 +40,7 @@ function stockPost<S extends z.ZodType>(
     handler: (req, res) => {
       const input = parseBody(schema, req.body)
       const params = req.params as Record<string, string>
-      return runStockRequest(ctx, req, res, (em) => operation(em, { userId: req.user!.id }, input, params), status)
+      return runStockRequest(ctx, req, res, input, (em) => operation(em, { userId: req.user!.id }, input, params), status)
     },
   }
 }

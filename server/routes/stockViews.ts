@@ -28,7 +28,7 @@ export default (ctx: AppContext) =>
       access: readers,
       handler: (req) => lotLevels(ctx.ds, parseQuery(lotLevelsQuerySchema, req.query).itemId),
     },
-    { method: 'get', path: '/ledger', access: readers, handler: (req) => ledgerPage(ctx.ds, parseQuery(ledgerQuerySchema, req.query)) },
+    { method: 'get', path: '/ledger', access: readers, handler: (req) => ledgerPage(ctx.readDs, parseQuery(ledgerQuerySchema, req.query)) }, // a report: the replica when there is one
     {
       method: 'get',
       path: '/ledger/export',

@@ -26,7 +26,7 @@ async function userRowById(ds: DataSource, id: number | undefined): Promise<Sess
 function sessionUserOf(row: SessionUserRow): SessionUser {
   return toSessionUser({
     id: row.id, username: row.username, displayName: row.display_name, roles: rolesTransformer.from(row.roles),
-    unitPreference: row.unit_preference, locale: row.locale,
+    unitPreference: row.unit_preference, weightUnit: row.weight_unit, locale: row.locale,
   } as User)
 }
 

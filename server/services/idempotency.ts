@@ -12,7 +12,8 @@ export interface IdempotentRequest {
   userId: number
   key: string | undefined
   scope: string
-  body: unknown
+  /** The request as its schema parsed it: the fingerprint covers what the operation uses, nothing else. */
+  input: unknown
 }
 
 export interface StoredAnswer<T> {
@@ -30,19 +31,19 @@ function canonical(value: unknown): string {
   return JSON.stringify(value ?? null)
 }
 
-export const requestHash = (scope: string, body: unknown) => createHash('sha256').update(scope + '\n' + canonical(body)).digest('hex')
+export const requestHash = (scope: string, input: unknown) => createHash('sha256').update(scope + '\n' + canonical(input)).digest('hex')
 
 function checkKey(key: string): void {
   if (key.length < 8 || key.length > 100 || !/^[A-Za-z0-9._:-]+$/.test(key)) {
-    throw AppError.badRequest('The Idempotency-Key must be 8–100 letters, digits or . _ : -')
+    throw AppError.badRequest('idempotency_key_invalid', 'The Idempotency-Key must be 8–100 letters, digits or . _ : -')
   }
 }
 
 async function storedAnswer<T>(ds: DataSource, req: IdempotentRequest & { key: string }, hash: string): Promise<StoredAnswer<T>> {
   const rec = await ds.getRepository(IdempotencyRecord).findOneBy({ userId: req.userId, key: req.key })
-  if (!rec) throw AppError.conflict('The earlier request with this key is still running; try again.')
+  if (!rec) throw AppError.conflict('idempotency_in_progress', 'The earlier request with this key is still running; try again.')
   if (rec.requestHash !== hash) {
-    throw AppError.unprocessable('This Idempotency-Key was already used for a different request.', 'idempotency_key_reused')
+    throw AppError.unprocessable('idempotency_key_reused', 'This Idempotency-Key was already used for a different request.')
   }
   return { status: rec.responseStatus, body: JSON.parse(rec.responseBody) as T, replayed: true }
 }
@@ -59,7 +60,7 @@ export async function runIdempotent<T>(
   }
   checkKey(req.key)
   const key = req.key
-  const hash = requestHash(req.scope, req.body)
+  const hash = requestHash(req.scope, req.input)
   try {
     return await inTransaction(ds, async (em) => {
       await em.insert(IdempotencyRecord, { userId: req.userId, key, scope: req.scope, requestHash: hash, responseStatus: 0, responseBody: 'null' })

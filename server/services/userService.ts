@@ -23,6 +23,7 @@ export function toSessionUser(u: User): SessionUser {
     displayName: u.displayName,
     roles: u.roles,
     unitPreference: u.unitPreference,
+    weightUnit: u.weightUnit,
     locale: u.locale,
   }
 }
@@ -127,6 +128,7 @@ export async function updateProfile(ds: DataSource, userId: number, input: Profi
   const user = await findUser(ds, userId)
   if (input.displayName !== undefined) user.displayName = input.displayName
   if (input.unitPreference !== undefined) user.unitPreference = input.unitPreference
+  if (input.weightUnit !== undefined) user.weightUnit = input.weightUnit
   if (input.locale !== undefined) user.locale = input.locale
   await ds.getRepository(User).save(user)
   return toSessionUser(user)

@@ -74,6 +74,7 @@ export const ERROR_CODES = {
   // Stock, picking and receiving forms
   found_adds_units: [],
   loss_removes_units: [],
+  change_too_large: ['max'],
   transfer_source_needed: [],
   substitute_needed: [],
   one_choice_per_line: [],
@@ -122,7 +123,7 @@ export const ERROR_CODES = {
   idempotency_key_invalid: [],
   idempotency_key_required: [],
   idempotency_key_reused: [],
-  request_in_progress: [],
+  idempotency_in_progress: [],
 
   // Records that must be unique
   username_taken: [],
@@ -221,6 +222,26 @@ export const ERROR_CODES = {
   count_bin_not_in_warehouse: ['n', 'warehouse'],
   count_nothing_due: [],
   count_no_bins: ['warehouse'],
+
+  // Purchase orders, their mail and suggestions; picking discards
+  value_out_of_range: [],
+  po_not_found: [],
+  po_changed: ['number'],
+  po_not_sendable: ['poStatus'],
+  vendor_email_missing: [],
+  message_not_found: [],
+  message_was_sent: [],
+  message_without_order: [],
+  already_sent_again: [],
+  suggestion_not_found: [],
+  suggestion_ordered: [],
+  suggestion_dismissed: [],
+  order_total_too_large: ['total', 'max'],
+  order_total_at_most: ['max'],
+  line_too_large: [],
+  line_units_at_most: ['max'],
+  confirmation_key_invalid: [],
+  discard_note_needed: [],
 
   // Codes answered before each area had its own (kept until every area names its situations)
   bad_request: ['text'],

@@ -70,6 +70,8 @@ export interface StockPosition {
   onHand: number
   onOrder: number
   reserved: number
+  /** Ordered in intent, not yet on a sent order: accepted suggestions and draft PO lines (default 0). */
+  pending?: number
 }
 
 export interface VendorTerms {
@@ -173,9 +175,9 @@ export function economicOrderQuantity({ annualDemand, costPerOrder, holdingCostP
   return Math.sqrt((2 * annualDemand * costPerOrder) / holdingCostPerUnit)
 }
 
-/** Inventory position = on hand + on order − reserved. */
-export function inventoryPosition({ onHand, onOrder, reserved }: StockPosition): number {
-  return onHand + onOrder - reserved
+/** Inventory position = on hand + on order (+ pending) − reserved: what is already coming counts once. */
+export function inventoryPosition({ onHand, onOrder, reserved, pending = 0 }: StockPosition): number {
+  return onHand + onOrder + pending - reserved
 }
 
 /** Raw need → whole vendor packs, at least the minimum order (itself rounded up to packs); 0 stays 0. */
@@ -200,7 +202,7 @@ function validate(input: ReorderInput): void {
   if (policy.method === 'orderUpTo' && policy.reviewPeriodDays <= 0) throw new RangeError('order-up-to needs a review period > 0')
   if (!isMoney(policy.costPerOrder, 4) || policy.costPerOrder.startsWith('-')) throw new RangeError('cost per order must be a non-negative amount')
   if (!isMoney(input.unitCost, 4) || input.unitCost.startsWith('-')) throw new RangeError('unit cost must be a non-negative amount')
-  for (const q of [stock.onHand, stock.onOrder, stock.reserved]) if (!Number.isSafeInteger(q)) throw new RangeError('stock quantities must be integers')
+  for (const q of [stock.onHand, stock.onOrder, stock.reserved, stock.pending ?? 0]) if (!Number.isSafeInteger(q)) throw new RangeError('stock quantities must be integers')
   if (input.vendor) {
     requireRange('pack size', input.vendor.packSize, 1)
     requireRange('minimum order', input.vendor.minimumOrder, 0)
@@ -277,7 +279,9 @@ export function reorderSuggestion(input: ReorderInput, options: ReorderOptions =
   const { demand, stock, policy, vendor } = input
   const steps: string[] | null = options.explain === false ? null : []
   const position = inventoryPosition(stock)
-  steps?.push(`position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
+  steps?.push(stock.pending
+    ? `position = on hand + on order + pending − reserved = ${stock.onHand} + ${stock.onOrder} + ${stock.pending} − ${stock.reserved} = ${position}`
+    : `position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
   const targets = computeTargets(input, steps)
   const { eoq, lotSize } = computeLotSize(input, steps)
   const ceiling = policyCeiling({ ...targets, lotSize, method: policy.method, packSize: vendor?.packSize ?? 1, minimumOrder: vendor?.minimumOrder ?? 0 })
@@ -308,7 +312,7 @@ function explanationInputs({ demand, stock, policy, vendor, unitCost }: ReorderI
     'd̄ (units/day)': demand.meanDaily, 'σd (units/day)': demand.sdDaily, 'L (days)': policy.leadTimeDays,
     'σL (days)': policy.leadTimeSdDays, 'R (days)': policy.reviewPeriodDays, 'service level': policy.serviceLevel,
     'S (per order)': policy.costPerOrder, 'i (per year)': policy.holdingRatePerYear, 'C (unit cost)': unitCost,
-    'on hand': stock.onHand, 'on order': stock.onOrder, reserved: stock.reserved,
+    'on hand': stock.onHand, 'on order': stock.onOrder, pending: stock.pending ?? 0, reserved: stock.reserved,
     'days since last use': demand.daysSinceLastUse,
     'pack size': vendor?.packSize ?? null, 'minimum order': vendor?.minimumOrder ?? null,
   }

@@ -1,6 +1,6 @@
 // PO money: a line's total is its unit cost (per stock unit, up to 4 decimals) × stock units, rounded
 // half-up to cents; the order's total is the sum of the rounded line totals, as an invoice adds up.
-import { addMoney, multiplyMoney, roundMoney, type Money } from '../money.js'
+import { addMoney, MoneyDecimal, multiplyMoney, roundMoney, type Money } from '../money.js'
 
 export function lineTotal(unitCost: Money, qtyOrdered: number): Money {
   return roundMoney(multiplyMoney(unitCost, qtyOrdered))
@@ -9,6 +9,12 @@ export function lineTotal(unitCost: Money, qtyOrdered: number): Money {
 export function orderTotal(lines: readonly { unitCost: Money; qtyOrdered: number }[]): Money {
   return roundMoney(addMoney('0', ...lines.map((l) => lineTotal(l.unitCost, l.qtyOrdered))))
 }
+
+/** The largest order total the purchase_orders.total column (DECIMAL(14,2)) holds. */
+export const MAX_ORDER_TOTAL = '999999999999.99'
+
+/** Whether an order total fits its column. */
+export const orderTotalFits = (total: Money): boolean => new MoneyDecimal(total).lte(MAX_ORDER_TOTAL)
 
 /** Stock units one PO line may hold (a sanity bound well inside the INT columns). */
 export const MAX_LINE_QTY = 1_000_000

@@ -4,6 +4,7 @@ import { ROLES } from '../roles.js'
 
 export const roleSchema = z.enum(ROLES)
 export const unitPreferenceSchema = z.enum(['in', 'mm'])
+export const weightUnitSchema = z.enum(['lb', 'kg'])
 export const localeSchema = z.enum(['en', 'es'])
 
 export const usernameSchema = z
@@ -31,6 +32,7 @@ export const sessionUserSchema = z.object({
   displayName: z.string(),
   roles: z.array(roleSchema),
   unitPreference: unitPreferenceSchema,
+  weightUnit: weightUnitSchema,
   locale: localeSchema,
 })
 export type SessionUser = z.infer<typeof sessionUserSchema>
@@ -57,6 +59,7 @@ export const passwordResetSchema = z.object({ password: passwordSchema })
 export const profileUpdateSchema = z.object({
   displayName: z.string().trim().min(1).max(80).optional(),
   unitPreference: unitPreferenceSchema.optional(),
+  weightUnit: weightUnitSchema.optional(),
   locale: localeSchema.optional(),
 })
 export type ProfileUpdateInput = z.infer<typeof profileUpdateSchema>

@@ -68,6 +68,25 @@ export const pickConfirmSchema = z
   .refine((c) => c.qty === 0 || !!c.itemScan?.trim(), { path: ['itemScan'], ...issueOf('scan_item') })
 export type PickConfirmInput = z.infer<typeof pickConfirmSchema>
 
+/** Why a confirmation waiting on a device was dropped instead of sent (recorded on the audit trail). */
+export const PICK_DISCARD_REASONS = ['refusal_seen', 'entered_by_mistake', 'recorded_elsewhere', 'other'] as const
+export type PickDiscardReason = (typeof PICK_DISCARD_REASONS)[number]
+
+export const pickDiscardSchema = z
+  .object({
+    /** The Idempotency-Key the confirmation was made with. */
+    clientKey: z.string().trim().min(8, issueCode('confirmation_key_invalid')).max(100, issueCode('confirmation_key_invalid')).regex(/^[A-Za-z0-9._:-]+$/, issueCode('confirmation_key_invalid')),
+    lineId: id,
+    qty: z.coerce.number().int().min(0).max(1_000_000),
+    shortReason: z.enum(SHORT_REASONS).optional().nullable(),
+    /** The code the server refused it with, when it was refused. */
+    refusedCode: z.string().trim().max(40).optional().nullable(),
+    reason: z.enum(PICK_DISCARD_REASONS),
+    note,
+  })
+  .refine((d) => d.reason !== 'other' || !!d.note?.trim(), { path: ['note'], ...issueOf('discard_note_needed') })
+export type PickDiscardInput = z.infer<typeof pickDiscardSchema>
+
 export const pickCompleteSchema = z.object({
   /** Lines not fully confirmed are closed short ('not_picked'); without this they stop the completion. */
   acceptShort: z.boolean().default(false),
@@ -198,6 +217,9 @@ export interface PickConfirmAnswer {
   listStatus: string
   replayed: boolean
 }
+
+/** A discard is recorded, unless the server had the confirmation already: then it answers with it. */
+export type PickDiscardAnswer = { discarded: true } | { discarded: false; recorded: PickConfirmAnswer }
 
 export interface PlannedLine {
   bomLineId: number

@@ -96,6 +96,12 @@ export const poFromSuggestionsSchema = z.object({
 })
 export type PoFromSuggestionsInput = z.infer<typeof poFromSuggestionsSchema>
 
+/** A new quantity for an accepted suggestion, in stock units (rounded up to packs when ordered). */
+export const suggestionUpdateSchema = z.object({
+  qty: z.coerce.number().int().min(1).max(1_000_000),
+})
+export type SuggestionUpdateInput = z.infer<typeof suggestionUpdateSchema>
+
 export const poFromJobSchema = z.object({
   jobId: idSchema,
   warehouseId: idSchema,
@@ -106,7 +112,11 @@ export const poFromJobSchema = z.object({
 })
 export type PoFromJobInput = z.infer<typeof poFromJobSchema>
 
+/** The order's version as the screen showed it: a change made meanwhile is refused (409 po_changed). */
+const seenVersionSchema = z.number().int().positive().optional()
+
 export const poUpdateSchema = z.object({
+  version: seenVersionSchema,
   expectedDate: isoDate.nullish(),
   notes: optionalText(2000),
   lines: z
@@ -117,6 +127,8 @@ export const poUpdateSchema = z.object({
 export type PoUpdateInput = z.infer<typeof poUpdateSchema>
 
 export const poReasonSchema = z.object({ reason: optionalText(200) })
+
+export const poApproveSchema = z.object({ version: seenVersionSchema })
 
 export const poSendSchema = z.object({
   /** Defaults to the vendor's e-mail. */

@@ -91,6 +91,8 @@ export interface PoSummary {
   createdAt: string
   lineCount: number
   orderTotal?: string
+  /** Goes up with every change; send it back with an edit or approval. */
+  version: number
 }
 
 export interface OutboxSummary {
@@ -106,9 +108,12 @@ export interface OutboxSummary {
   error: string | null
   poId: number | null
   poNumber: string | null
-  attachmentName: string | null
-  attachmentBytes: number
+  attachments: { id: number; name: string; bytes: number }[]
   createdBy: string | null
+  /** The failed message this one sent again. */
+  retryOf: number | null
+  /** The message that sent this failed one again, once it was. */
+  sentAgainAs: number | null
 }
 
 export interface PoDetail extends PoSummary {

@@ -3,13 +3,16 @@ import { z } from 'zod'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { ADJUSTMENT_REASONS } from '../catalog.js'
 
+/** The most units one stock change may carry. */
+const MAX_UNITS = 1_000_000
+
 export const idSchema = z.coerce.number().int().positive()
 export const lotIdSchema = z.union([idSchema, z.null()]).default(null)
 export const qtySchema = z.coerce
   .number()
   .int()
   .positive()
-  .max(1_000_000)
+  .max(MAX_UNITS)
 const noteSchema = z.string().trim().max(200).optional().nullable()
 const costSchema = z
   .string()
@@ -21,7 +24,9 @@ export const adjustmentSchema = z
     itemId: idSchema,
     binId: idSchema,
     lotId: lotIdSchema,
-    delta: z.coerce.number().int().refine((v) => v !== 0, issueCode('not_zero')).min(-1_000_000).max(1_000_000),
+    delta: z.coerce.number().int()
+      .refine((v) => v !== 0, issueCode('not_zero'))
+      .refine((v) => Math.abs(v) <= MAX_UNITS, issueOf('change_too_large', { max: MAX_UNITS })),
     reason: z.enum(ADJUSTMENT_REASONS),
     note: noteSchema,
   })

@@ -4,6 +4,7 @@
 import type { ErrorParams, Problem } from '@shared/errors/errorCodes'
 import type { ApiErrorBody } from '@shared/schemas/apiError'
 import { errorText, fieldTexts } from '@/i18n/errorText'
+import { answered, OUTAGE_STATUSES, outageSeen, pause, READ_RETRY_DELAYS_MS, readRetryDone } from './outage'
 
 export class ApiError extends Error {
   constructor(
@@ -50,7 +51,27 @@ export interface RequestOptions {
   quiet401?: boolean
 }
 
+/** A read the server could not answer for an outage is tried again by itself; anything else is answered once. */
 async function request<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
+  if (method !== 'GET') return requestOnce<T>(method, path, body, opts)
+  let retrying = false
+  try {
+    for (let attempt = 0; ; attempt++) {
+      try {
+        return await requestOnce<T>(method, path, body, opts)
+      } catch (err) {
+        if (!(err instanceof ApiError) || !OUTAGE_STATUSES.has(err.status) || attempt >= READ_RETRY_DELAYS_MS.length) throw err
+        if (!retrying) outageSeen(true)
+        retrying = true
+        await pause(READ_RETRY_DELAYS_MS[attempt], opts.signal)
+      }
+    }
+  } finally {
+    if (retrying) readRetryDone()
+  }
+}
+
+async function requestOnce<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json', 'X-Lumenyard-Request': '1', ...opts.headers }
   let payload: BodyInit | undefined
   if (body instanceof FormData) payload = body
@@ -65,6 +86,8 @@ async function request<T>(method: string, path: string, body?: unknown, opts: Re
     if ((err as Error).name === 'AbortError') throw err
     throw apiErrorFrom(0, null, 'network')
   }
+  if (OUTAGE_STATUSES.has(res.status)) outageSeen(false)
+  else answered()
   if (res.status === 204) return undefined as T
   const type = res.headers.get('content-type') ?? ''
   const data = type.includes('application/json') ? await res.json().catch(() => null) : null

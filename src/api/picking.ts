@@ -1,8 +1,9 @@
 // Typed calls for pick lists. State changes carry an Idempotency-Key; scanner confirmations bring
 // their own (made when the picker confirmed, kept with the queued confirmation).
 import type {
-  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
+  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickDiscardAnswer, PickDiscardInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
 } from '@shared/schemas/picking'
+import type { DeviceOutboxReportInput } from '@shared/schemas/devices'
 import { api } from './client'
 
 /** A key unique enough for Idempotency-Key; randomUUID needs a secure context, so a fallback for plain-HTTP handhelds. */
@@ -30,4 +31,7 @@ export const pickingApi = {
     api.post<{ issued: number; closedShort: number }>(`/pick-lists/${id}/complete`, { acceptShort }, keyed()),
   ship: (id: number, fromWarehouseId: number) => api.post<{ transferId: number; qty: number }>(`/pick-lists/${id}/transfers/ship`, { fromWarehouseId }, keyed()),
   confirm: (id: number, body: PickConfirmInput, key: string) => api.post<PickConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
+  /** How many confirmations wait or were refused on this device, for the warehouse's start page. */
+  reportOutbox: (deviceId: string, body: DeviceOutboxReportInput) => api.put<{ ok: true }>(`/devices/${deviceId}/outbox`, body),
+  discard: (id: number, body: PickDiscardInput, key: string) => api.post<PickDiscardAnswer>(`/pick-lists/${id}/discards`, body, keyed(key)),
 }

@@ -40,6 +40,7 @@ function measure(value: number, unit: MeasureUnit, lengthUnit: LengthUnit): stri
 const VALUE_WORDS: Record<string, string> = {
   family: 'catalog.families',
   families: 'catalog.families',
+  poStatus: 'purchasing.statuses',
 }
 
 function valueWord(name: string, value: string): string {

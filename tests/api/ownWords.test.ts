@@ -2,7 +2,7 @@
 // (English and Spanish), not in the demo data, not in a spreadsheet export (file names, sheet names, cells).
 // The exports are read as raw SpreadsheetML with Info-ZIP's unzip (Debian package unzip).
 import { execFileSync } from 'node:child_process'
-import { mkdtempSync, readdirSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import type supertest from 'supertest'
@@ -96,5 +96,6 @@ describe('the exports', () => {
     // the renamed words reach the bill: the base's line and the wet-area caution
     expect(files[1].text).toContain('shower base for tiling')
     expect(files[0].text).toContain('Shower base for tiling, made to order')
+    rmSync(dir, { recursive: true, force: true })
   })
 })

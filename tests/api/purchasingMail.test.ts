@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
 import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { download } from '../support/downloads.js'
 import { count, createPurchasingFixture, vendor, vendorItem, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
 let h: ApiHarness
@@ -68,13 +69,10 @@ describe('e-mail to the vendor', () => {
 
     const outbox = await (await h.as('admin')).get('/api/purchasing/outbox')
     const entry = outbox.body.find((m: { poId: number }) => m.poId === po.id)
-    expect(entry).toMatchObject({ status: 'sent', toAddress: `buyer-desk-${f.tag.toLowerCase()}@vendor.example`, cc: 'yard-office@lumenyard.example', attachmentName: `${po.number}.xlsx`, error: null })
-    expect(entry.attachmentBytes).toBe(att.content.length)
-    const stored = await (await h.as('admin')).get(`/api/purchasing/outbox/${entry.id}/attachment`).buffer(true).parse((r, done) => {
-      const chunks: Buffer[] = []
-      r.on('data', (c: Buffer) => chunks.push(c))
-      r.on('end', () => done(null, Buffer.concat(chunks)))
-    })
+    expect(entry).toMatchObject({ status: 'sent', toAddress: `buyer-desk-${f.tag.toLowerCase()}@vendor.example`, cc: 'yard-office@lumenyard.example', error: null })
+    const kept = entry.attachments.find((a: { name: string }) => a.name === `${po.number}.xlsx`)
+    expect(kept.bytes).toBe(att.content.length)
+    const stored = await download(await h.as('admin'), `/api/purchasing/outbox/${entry.id}/attachments/${kept.id}`)
     expect(Buffer.compare(stored.body as Buffer, att.content)).toBe(0)
     expect((await (await h.as('buyer')).get('/api/purchasing/outbox')).status).toBe(403)
   })
@@ -102,6 +100,38 @@ describe('e-mail to the vendor', () => {
     const resend = await buyer.post(`/api/purchase-orders/${po.id}/send`).set(CSRF).send({ to: 'second-desk@vendor.example' })
     expect(resend.body.po.status).toBe('sent')
     expect(smtp.messages[1].to).toEqual(['second-desk@vendor.example'])
+  })
+
+  it("sends a failed message again from the outbox, exactly as it was, once", async () => {
+    const po = await approvedPo()
+    const admin = await h.as('admin')
+    await smtp.close()
+    expect((await admin.post(`/api/purchase-orders/${po.id}/send`).set(CSRF).send({ cc: ['yard-office@lumenyard.example'] })).status).toBe(502)
+    const failed = (await admin.get('/api/purchasing/outbox')).body.find((m: { poId: number }) => m.poId === po.id)
+    expect(failed).toMatchObject({ status: 'failed', sentAgainAs: null })
+    // still down: the retry fails too and is recorded; the failed message may still be sent again
+    expect((await admin.post(`/api/purchasing/outbox/${failed.id}/send-again`).set(CSRF)).status).toBe(502)
+    const stillDown = (await admin.get('/api/purchasing/outbox')).body.filter((m: { poId: number }) => m.poId === po.id)
+    expect(stillDown.map((m: { status: string; retryOf: number | null }) => [m.status, m.retryOf])).toEqual([['failed', failed.id], ['failed', null]])
+
+    smtp = await startSmtpFake({ port: smtpPort })
+    const before = smtp.messages.length
+    const retryOfRetry = stillDown[0].id
+    const sent = await admin.post(`/api/purchasing/outbox/${retryOfRetry}/send-again`).set(CSRF)
+    expect(sent.status, JSON.stringify(sent.body)).toBe(200)
+    expect(sent.body.po.status).toBe('sent')
+    expect(smtp.messages.length).toBe(before + 1)
+    const mail = await simpleParser(smtp.messages[smtp.messages.length - 1].raw)
+    expect(mail.subject).toBe(`Purchase order ${po.number}`)
+    expect(mail.cc).toBeTruthy()
+    expect(mail.attachments.map((a) => a.filename)).toContain(`${po.number}.xlsx`)
+    // a second click: refused, nothing sent twice; a message that went out is not "sent again"
+    const twice = await admin.post(`/api/purchasing/outbox/${retryOfRetry}/send-again`).set(CSRF)
+    expect(twice.status).toBe(409)
+    expect(twice.body.error.code).toBe('already_sent_again')
+    const newest = (await admin.get('/api/purchasing/outbox')).body.find((m: { poId: number }) => m.poId === po.id)
+    expect((await admin.post(`/api/purchasing/outbox/${newest.id}/send-again`).set(CSRF)).body.error.code).toBe('message_was_sent')
+    expect(smtp.messages.length).toBe(before + 1)
   })
 
   it('validates addresses and refuses drafts, sending nothing', async () => {

@@ -147,6 +147,8 @@ describe('the status life of a PO', () => {
 
   it('cancelling gives the suggestions back, and removing a draft line does too', async () => {
     const buyer = await h.as('buyer')
+    // New lines join the open draft of their vendor and ship-to: start this order on its own.
+    await h.ds.query(`UPDATE purchase_orders SET status = 'cancelled' WHERE status = 'draft' AND vendor_id = ? AND warehouse_id = ?`, [f.vendorA, f.warehouse.id])
     const s1 = await suggestion(h.ds, { itemId: f.block.id, warehouseId: f.warehouse.id, vendorId: f.vendorA, qty: 24 })
     const s2 = await suggestion(h.ds, { itemId: f.sealant.id, warehouseId: f.warehouse.id, vendorId: f.vendorA, qty: 12 })
     const [po] = (await buyer.post('/api/purchase-orders/from-suggestions').set(CSRF).send({ suggestionIds: [s1, s2] })).body as PoDetail[]

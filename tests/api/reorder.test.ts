@@ -237,6 +237,31 @@ describe('accepting suggestions', () => {
     return (key ? req.set('Idempotency-Key', key) : req).send(body)
   }
 
+  it('counts what is already coming: an accepted backorder of 100 raises the position, and accepting orders only the rest', async () => {
+    const before = lineFor(await list(), fx.itemId)
+    // A pick list's shortage waits as an accepted backorder suggestion for the same item and warehouse.
+    const backorder = Number((await h.ds.query(
+      `INSERT INTO purchase_suggestions (item_id, warehouse_id, vendor_id, qty, status, source) VALUES (?, ?, ?, 100, 'accepted', 'backorder')`,
+      [fx.itemId, fx.warehouseId, fx.vendorId])).insertId)
+    try {
+      const after = lineFor(await list(), fx.itemId)
+      expect(after.pendingQty).toBe(before.pendingQty + 100)
+      expect(after.position).toBe(before.position + 100)
+      const working = await detail()
+      expect(working.explanation.steps.join('\n')).toContain(`+ ${after.pendingQty} − ${after.reserved} = ${after.position}`)
+      // The line asks for no more than the policy wants on top of what is coming; accepting takes exactly that.
+      const res = await accept({ lines: [line()] })
+      expect(res.status).toBe(after.suggestedOrder > 0 ? 201 : 200)
+      const accepted = res.body.accepted.reduce((n: number, a: { qty: number }) => n + a.qty, 0)
+      expect(accepted).toBe(after.suggestedOrder)
+      const last = lineFor(await list(), fx.itemId)
+      expect(last.pendingQty).toBe(before.pendingQty + 100 + accepted)
+    } finally {
+      await h.ds.query(`UPDATE purchase_suggestions SET status = 'dismissed' WHERE item_id = ? AND warehouse_id = ? AND status = 'accepted'`, [fx.itemId, fx.warehouseId])
+      expect(backorder).toBeGreaterThan(0)
+    }
+  })
+
   it('writes one accepted row for the preferred vendor with its working', async () => {
     const expected = lineFor(await list(), fx.itemId)
     const res = await accept({ lines: [line(), { itemId: fx.noVendorItemId, warehouseId: fx.warehouseId }] })

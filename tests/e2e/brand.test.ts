@@ -1,7 +1,7 @@
 // Lumenyard's mark where people see it: the sign-in screen (on white), the navigation rail (light on dark),
 // the favicon at 16 px and a printed document (one ink). Screenshots go to test-results/screenshots.
 import { execFileSync } from 'node:child_process'
-import { mkdtempSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import type { Page } from 'playwright-core'
@@ -109,6 +109,7 @@ describe('the mark', () => {
       writeFileSync(pdf, await page.pdf({ format: 'Letter', printBackground: true }))
       // pdftoppm (poppler-utils) rasterises the first printed page as someone would see it on paper
       execFileSync('pdftoppm', ['-png', '-r', '100', '-f', '1', '-l', '1', '-singlefile', pdf, path.join(SCREENSHOTS, 'brand-printed-bill')])
+      rmSync(dir, { recursive: true, force: true })
     } finally {
       await context.close()
     }

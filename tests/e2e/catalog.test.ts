@@ -60,7 +60,9 @@ describe('catalog screens', () => {
       await page.locator('aside.rail').waitFor({ state: 'detached', timeout: 1000 }).catch(() => undefined)
       expect(await page.locator('aside.rail').count()).toBe(0) // printed without the app's shell
       await h.screenshot(page, 'catalog-bin-labels')
-      const png = await page.locator('[data-test="label"] .bars img').first().screenshot()
+      // Barcodes are drawn at their printed size (a module is about one screen pixel): zoom in to read one off the screen.
+      await page.evaluate(() => { document.body.style.zoom = '4' })
+      const png = await page.locator('[data-test="label"] [data-barcode] svg').first().screenshot()
       // source: ZXing (@zxing/library), an independent Code 128 decoder
       expect(decodePng(png, 'code128')).toBe(`B:${bins[0].code}`)
     } finally {

@@ -58,6 +58,8 @@ describe('counter and pick lists', () => {
       await expect.poll(() => rows.count()).toBe(detail.lines.length)
       expect(await rows.evaluateAll((els) => els.map((e) => e.getAttribute('data-bin')))).toEqual(detail.lines.map((l: { binCode: string }) => l.binCode))
       await h.screenshot(page, 'pick-sheet')
+      // Barcodes are drawn at their printed size (0.25 mm modules are about one screen pixel): zoom in to read them off the screen.
+      await page.evaluate(() => { document.body.style.zoom = '4' })
       const binCode = page.locator('[data-barcode="B:A-02-1"]').first()
       // source: decoded by ZXing (@zxing/library), an independent general-purpose barcode reader
       expect(decodePng(await binCode.screenshot(), 'code128')).toBe('B:A-02-1')

@@ -56,20 +56,28 @@ describe('stock screens for the warehouse crew', () => {
       // Our lot label: "L:" + SKU + "|" + lot code (shared/barcode/scan.ts) fills item and lot at once.
       await scan(page, `L:${fx.sku}|${fx.lotCode}`)
       await poll(() => page.locator('[data-test="scan-message"]').textContent()).toContain(fx.lotCode)
-      await poll(() => page.locator('[data-test="adjust-here"]').textContent()).toMatch(/24 (on hand|en mano)/) // the warehouse demo user reads Spanish
+      await poll(() => page.locator('[data-test="adjust-here"]').textContent()).toMatch(/24 uds\. en mano/) // the warehouse demo user reads Spanish
 
       // Bad input first: no reason chosen is refused beside the field, nothing is sent.
       await page.locator('[data-test="adjust-review"]').click()
       await poll(() => page.locator('.el-form-item.is-error').count()).toBeGreaterThan(0)
       expect(await onHand()).toBe(24)
 
+      // An impossible change is refused beside the quantity, in Spanish, before any confirmation.
       await page.locator('[data-reason="damaged"]').click()
+      await page.locator('[data-test="adjust-qty"] input').fill('99999')
+      await page.locator('[data-test="adjust-review"]').click()
+      // source: CLDR Spanish number format, "." groups thousands from five digits (checked with Node's Intl)
+      await poll(() => page.locator('.el-form-item__error').first().textContent()).toContain('Solo hay 24 uds. en esta ubicación: no pueden salir 99.999 uds.')
+      expect(await page.locator('[data-test="confirm-dialog"]').isVisible()).toBe(false)
+      expect(await onHand()).toBe(24)
+
       await page.locator('[data-test="adjust-qty"] input').fill('3')
       await page.locator('[data-test="adjust-note"]').fill('Two chipped, one cracked')
       await page.locator('[data-test="adjust-review"]').click()
       const dialog = page.locator('[data-test="confirm-dialog"]')
       await dialog.waitFor()
-      await poll(() => dialog.textContent()).toMatch(/24\s*→\s*21 \(-3\)/)
+      await poll(() => dialog.textContent()).toMatch(/24 uds\.\s*→\s*21 uds\. \(-3\)/)
       await h.screenshot(page, 'stock-adjust-confirm')
       // A double click on confirm must apply once: same submission, same Idempotency-Key.
       await page.locator('[data-test="confirm-submit"]').dblclick()

@@ -129,3 +129,26 @@ export async function releasedPickList(counter: supertest.Agent, bomId: number, 
   if (res.status !== 201) throw new Error(`making the pick list failed: ${res.status} ${JSON.stringify(res.body)}`)
   return res.body.ids[0] as number
 }
+
+/**
+ * A completed list's ledger against its confirmations: the units taken by each confirmation (in the
+ * order recorded), and anything wrong: a confirmation with no move, a move with no confirmation or
+ * of another size, a move issued twice.
+ */
+export async function pickLedgerCheck(ds: DataSource, listId: number): Promise<{ taken: number[]; problems: string[] }> {
+  const confirmations = (await ds.query(
+    'SELECT id, qty, move_id FROM pick_confirmations WHERE pick_list_id = ? AND qty > 0 ORDER BY id', [listId])) as { id: number; qty: number; move_id: string | null }[]
+  const moves = (await ds.query(
+    `SELECT id, qty, move_type FROM stock_moves WHERE doc_type = 'pick_list' AND doc_id = ? ORDER BY id`, [listId])) as { id: string; qty: number; move_type: string }[]
+  const problems: string[] = []
+  const used = new Set<string>()
+  for (const c of confirmations) {
+    const move = moves.find((m) => String(m.id) === String(c.move_id))
+    if (!move) problems.push(`confirmation ${c.id} has no move`)
+    else if (move.move_type !== 'pick' || Number(move.qty) !== -Number(c.qty)) problems.push(`confirmation ${c.id} (${c.qty}) issued as ${move.move_type} ${move.qty}`)
+    else if (used.has(String(move.id))) problems.push(`move ${move.id} issued twice`)
+    else used.add(String(move.id))
+  }
+  for (const m of moves) if (!used.has(String(m.id))) problems.push(`move ${m.id} (${m.qty}) belongs to no confirmation`)
+  return { taken: confirmations.map((c) => Number(c.qty)), problems }
+}

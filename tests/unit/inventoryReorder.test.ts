@@ -152,6 +152,10 @@ describe('reorder suggestion: hand-worked scenario', () => {
 
   it('computes the inventory position', () => {
     expect(inventoryPosition({ onHand: 120, onOrder: 48, reserved: 30 })).toBe(138)
+    // Quantities already committed to come (accepted, drafted) count like on order, so they are not
+    // ordered twice: source: Silver, Pyke & Peterson, Inventory Management and Production Planning and
+    // Scheduling, 3rd ed., ch. 7 (inventory position includes every outstanding order) (from memory)
+    expect(inventoryPosition({ onHand: 120, onOrder: 48, reserved: 30, pending: 100 })).toBe(238)
   })
 })
 

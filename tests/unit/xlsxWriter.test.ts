@@ -2,11 +2,11 @@
 // through the library that wrote it: text is a string cell however it starts, numbers and dates are numbers,
 // and every sheet carries a print setup with the flag that turns fit-to-page on.
 import { execFileSync } from 'node:child_process'
-import { mkdtempSync, writeFileSync, createWriteStream } from 'node:fs'
+import { createWriteStream, mkdtempSync, rmSync, writeFileSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import { once } from 'node:events'
-import { describe, expect, it } from 'vitest'
+import { afterAll, describe, expect, it } from 'vitest'
 import { buildXlsx, fieldsSheet, sheet, streamXlsx, type SheetColumn } from '../../server/services/exports/xlsxWriter.js'
 
 // source: OWASP "CSV Injection": the leading characters that make a spreadsheet read a cell as a formula
@@ -22,6 +22,7 @@ const COLUMNS: SheetColumn<Row>[] = [
 const ROWS: Row[] = HOSTILE.map((text, i) => ({ text, qty: 1234 + i, day: '2026-12-02', price: '19.90' }))
 
 const dir = mkdtempSync(path.join(tmpdir(), 'lumenyard-xlsx-'))
+afterAll(() => rmSync(dir, { recursive: true, force: true }))
 function part(file: string, name: string): string {
   return execFileSync('unzip', ['-p', file, name], { encoding: 'utf8' })
 }

@@ -4,8 +4,6 @@
 import type { DataSource } from 'typeorm'
 import { accuracyOf } from '../../../shared/counts/countVariance.js'
 import type { CountAccuracyQuery, CountAccuracyRow } from '../../../shared/schemas/counts.js'
-import { canSeeCosts } from '../costVisibility.js'
-import type { CountViewer } from './countRead.js'
 
 const DAY_MS = 86_400_000
 
@@ -15,7 +13,7 @@ export function localDay(zone: string): (at: Date) => string {
   return (at) => format.format(at)
 }
 
-export async function countAccuracy(ds: DataSource, viewer: CountViewer, q: CountAccuracyQuery): Promise<CountAccuracyRow[]> {
+export async function countAccuracy(ds: DataSource, q: CountAccuracyQuery): Promise<CountAccuracyRow[]> {
   // A day either side covers every time zone; the exact days are kept below.
   const from = new Date(new Date(`${q.from}T00:00:00Z`).getTime() - DAY_MS)
   const to = new Date(new Date(`${q.to}T00:00:00Z`).getTime() + 2 * DAY_MS)
@@ -36,14 +34,13 @@ export async function countAccuracy(ds: DataSource, viewer: CountViewer, q: Coun
     g.lines.push({ variance: Number(r.variance), unitCost: r.unit_cost })
     groups.set(key, g)
   }
-  const costs = await canSeeCosts(ds, viewer)
   return [...groups.values()]
     .sort((a, b) => a.code.localeCompare(b.code) || a.month.localeCompare(b.month))
     .map((g) => {
       const f = accuracyOf(g.lines)
       return {
         warehouseId: g.warehouseId, warehouseCode: g.code, month: g.month, linesCounted: f.linesCounted, linesRight: f.linesRight, accuracy: f.accuracy,
-        ...(costs ? { valueOff: f.valueOff, valueNet: f.valueNet } : {}),
+        valueOff: f.valueOff, valueNet: f.valueNet,
       }
     })
 }

@@ -1,6 +1,7 @@
 // Reading counts: the list, one count for review, the counter's handheld view (blind), and a bin's or
 // an item's count history. Ledger figures (snapshot, expected, variance) reach only reviewers, and only
-// for lines already counted; costs only roles that see costs.
+// for lines already counted. Costs go out under the cost field names (unitCost, varianceValue, valueOff),
+// which the one cost rule (services/costVisibility.ts) removes for callers who may not see them.
 import type { DataSource } from 'typeorm'
 import { varianceValue } from '../../../shared/counts/countVariance.js'
 import { mayReview } from '../../../shared/counts/countReviewRules.js'
@@ -12,7 +13,6 @@ import type { Role } from '../../../shared/roles.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError } from '../../errors.js'
 import { walkConfigOf } from '../picking/pickWalk.js'
-import { canSeeCosts } from '../costVisibility.js'
 import { countSettings } from './countSettings.js'
 
 export interface CountViewer {
@@ -65,7 +65,7 @@ function detailOf(text: string | null): CountScopeDetail {
 
 const iso = (d: Date | string | null) => (d === null ? null : new Date(d).toISOString())
 
-function toSummary(r: SummaryRow, costs: boolean): CountSummary {
+function toSummary(r: SummaryRow): CountSummary {
   return {
     id: r.id,
     warehouse: { id: r.warehouse_id, code: r.warehouse_code, name: r.warehouse_name },
@@ -73,11 +73,11 @@ function toSummary(r: SummaryRow, costs: boolean): CountSummary {
     createdBy: r.created_by_name, createdAt: iso(r.created_at)!, closedAt: iso(r.closed_at),
     binCounts: { total: Number(r.bins_total), done: Number(r.bins_done) },
     lineCounts: { waiting: Number(r.lines_waiting), toReview: Number(r.lines_counted), settled: Number(r.lines_settled) },
-    ...(costs ? { valueOff: Number(r.value_off ?? 0).toFixed(2) } : {}),
+    valueOff: Number(r.value_off ?? 0).toFixed(2),
   }
 }
 
-export async function listCounts(ds: DataSource, viewer: CountViewer, q: CountsQuery): Promise<CountSummary[]> {
+export async function listCounts(ds: DataSource, q: CountsQuery): Promise<CountSummary[]> {
   const where: string[] = []
   const params: unknown[] = []
   if (q.status !== 'all') { where.push('c.status = ?'); params.push(q.status) }
@@ -86,8 +86,7 @@ export async function listCounts(ds: DataSource, viewer: CountViewer, q: CountsQ
     `${SUMMARY_SELECT} ${where.length ? `WHERE ${where.join(' AND ')}` : ''} ORDER BY c.status = 'open' DESC, c.id DESC LIMIT 200`,
     params,
   )
-  const costs = await canSeeCosts(ds, viewer)
-  return rows.map((r) => toSummary(r, costs))
+  return rows.map(toSummary)
 }
 
 interface LineRow {
@@ -134,7 +133,7 @@ const LINE_SELECT = `
     LEFT JOIN users cu ON cu.id = l.counted_by
     LEFT JOIN users ru ON ru.id = l.reviewed_by`
 
-function toLineView(r: LineRow, figures: boolean, costs: boolean): CountLineView {
+function toLineView(r: LineRow, figures: boolean): CountLineView {
   // A line still waiting shows nothing of the ledger to anyone; a counted one shows it to reviewers.
   const show = figures && r.status !== 'waiting' && r.status !== 'cancelled'
   const counted = r.status !== 'waiting' && r.status !== 'cancelled'
@@ -143,19 +142,17 @@ function toLineView(r: LineRow, figures: boolean, costs: boolean): CountLineView
     lotId: r.lot_id, lotCode: r.lot_code, attempt: r.attempt, source: r.source, status: r.status,
     snapshotQty: show ? r.snapshot_qty : null, movesSince: show ? r.moves_since : null, expectedQty: show ? r.expected_qty : null,
     countedQty: counted ? r.counted_qty : null, variance: show ? r.variance : null,
-    ...(costs ? {
-      unitCost: show ? r.unit_cost : null,
-      varianceValue: show && r.variance !== null && r.unit_cost !== null ? varianceValue(r.variance, r.unit_cost) : null,
-    } : {}),
+    unitCost: show ? r.unit_cost : null,
+    varianceValue: show && r.variance !== null && r.unit_cost !== null ? varianceValue(r.variance, r.unit_cost) : null,
     countedBy: counted ? r.counted_by_name : null, countedById: counted ? r.counted_by : null, countedAt: counted ? iso(r.counted_at) : null,
     reviewedBy: r.reviewed_by_name, reviewedAt: iso(r.reviewed_at), reviewNote: r.review_note, moveId: r.move_id, pickListId: r.pick_list_id,
   }
 }
 
-async function summaryById(ds: DataSource, id: number, costs: boolean): Promise<CountSummary & { itemsOnly: boolean }> {
+async function summaryById(ds: DataSource, id: number): Promise<CountSummary & { itemsOnly: boolean }> {
   const [row]: SummaryRow[] = await ds.query(`${SUMMARY_SELECT} WHERE c.id = ?`, [id])
   if (!row) throw new AppError(404, 'count_not_found', 'That count was not found.')
-  return { ...toSummary(row, costs), itemsOnly: Boolean(row.items_only) }
+  return { ...toSummary(row), itemsOnly: Boolean(row.items_only) }
 }
 
 /** The moves in each counted line's bin × item × lot between its snapshot and its count. */
@@ -174,8 +171,8 @@ async function movesDuring(ds: DataSource, lines: LineRow[]): Promise<CountDetai
 }
 
 export async function countDetail(ds: DataSource, viewer: CountViewer, id: number): Promise<CountDetail> {
-  const [costs, settings] = await Promise.all([canSeeCosts(ds, viewer), countSettings(ds)])
-  const summary = await summaryById(ds, id, costs)
+  const settings = await countSettings(ds)
+  const summary = await summaryById(ds, id)
   const canReview = mayReview(viewer.roles, settings.reviewerRoles)
   const [lineRows, binRows] = await Promise.all([
     ds.query(`${LINE_SELECT} WHERE l.count_id = ? ORDER BY b.code, i.sku, l.lot_id, l.attempt`, [id]) as Promise<LineRow[]>,
@@ -189,7 +186,7 @@ export async function countDetail(ds: DataSource, viewer: CountViewer, id: numbe
   return {
     ...rest,
     bins: binRows.map((b) => ({ binId: b.bin_id, binCode: b.bin_code, status: b.status, visits: Number(b.visits), startedBy: b.started_by, finishedAt: iso(b.finished_at) })),
-    lines: lineRows.map((r) => toLineView(r, canReview, costs)),
+    lines: lineRows.map((r) => toLineView(r, canReview)),
     movesDuring: canReview ? await movesDuring(ds, lineRows.filter((r) => r.status === 'counted')) : {},
     canReview,
   }
@@ -197,7 +194,7 @@ export async function countDetail(ds: DataSource, viewer: CountViewer, id: numbe
 
 /** The counter's view: the bins in walking order and, for the bin they are counting, what to count and what they entered. */
 export async function handheldCount(ds: DataSource, viewer: CountViewer, id: number): Promise<HandheldCount> {
-  const summary = await summaryById(ds, id, false)
+  const summary = await summaryById(ds, id)
   const wh = await ds.manager.findOneByOrFail(Warehouse, { id: summary.warehouse.id })
   const binRows: { bin_id: number; bin_code: string; status: HandheldCount['bins'][number]['status']; started_by: number | null; started_by_name: string | null }[] = await ds.query(
     `SELECT cb.bin_id, b.code AS bin_code, cb.status, cb.started_by, u.display_name AS started_by_name
@@ -227,8 +224,7 @@ export async function handheldCount(ds: DataSource, viewer: CountViewer, id: num
 }
 
 export async function countHistory(ds: DataSource, viewer: CountViewer, q: CountHistoryQuery): Promise<CountHistoryRow[]> {
-  const [costs, settings] = await Promise.all([canSeeCosts(ds, viewer), countSettings(ds)])
-  const figures = mayReview(viewer.roles, settings.reviewerRoles)
+  const figures = mayReview(viewer.roles, (await countSettings(ds)).reviewerRoles)
   const where = ["l.status IN ('matched', 'approved', 'recounted', 'counted')"]
   const params: unknown[] = []
   if (q.binId) { where.push('l.bin_id = ?'); params.push(q.binId) }
@@ -241,11 +237,11 @@ export async function countHistory(ds: DataSource, viewer: CountViewer, q: Count
     params,
   )
   return rows.map((r) => {
-    const v = toLineView(r, figures, costs)
+    const v = toLineView(r, figures)
     return {
       lineId: r.id, countId: Number(r.count_id ?? 0), scope: r.scope, warehouseCode: r.warehouse_code, binCode: r.bin_code, sku: r.sku, itemName: r.item_name,
       lotCode: r.lot_code, attempt: r.attempt, status: r.status, expectedQty: v.expectedQty, countedQty: v.countedQty, variance: v.variance,
-      ...(costs ? { varianceValue: v.varianceValue ?? null } : {}),
+      varianceValue: v.varianceValue ?? null,
       countedBy: v.countedBy, countedAt: v.countedAt, reviewedBy: v.reviewedBy,
     }
   })

@@ -6,7 +6,7 @@ import { Bom } from '../../entities/Bom.js'
 import { PickConfirmation, PickList, PickListLine } from '../../entities/PickList.js'
 import { StockReservation } from '../../entities/StockReservation.js'
 import { AppError } from '../../errors.js'
-import { pickReserved, releaseReservations } from '../stock/stockReservations.js'
+import { lockDocumentBalances, pickReserved, releaseReservations } from '../stock/stockReservations.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { PICK_DOC } from './pickListCreate.js'
 import { lockPickList, pickNumber, requireStatus } from './pickListLocks.js'
@@ -60,6 +60,7 @@ export async function completePickList(em: EntityManager, actor: StockActor, id:
   const closedShort = await closeOpenLines(em, actor, list, lines, opts.acceptShort)
   // Locking reads see every confirmation committed before the list lock was granted, not an older snapshot.
   const confirmations = await em.find(PickConfirmation, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
+  await lockDocumentBalances(em, { docType: PICK_DOC, docId: list.id })
   const issuedByBomLine = new Map<number, number>()
   let moves = 0
   for (const c of confirmations) {

@@ -1,6 +1,7 @@
 // One scanner confirmation: bin → item/lot → quantity, checked against the line with the same
 // rules the handheld uses. Wrong bin, item or lot, or more than the line still needs, is refused
-// and changes nothing. A short pick closes the line with the shortfall and why.
+// and changes nothing. A short pick closes the line with the shortfall and why; "not in the bin" also
+// asks for a count of that bin.
 import type { EntityManager } from 'typeorm'
 import { checkConfirmationScans } from '../../../shared/picking/pickScan.js'
 import type { PickConfirmAnswer, PickConfirmInput } from '../../../shared/schemas/picking.js'
@@ -11,6 +12,7 @@ import { PickConfirmation, PickList, PickListLine } from '../../entities/PickLis
 import { AppError } from '../../errors.js'
 import { isDuplicateKey } from '../../db/transaction.js'
 import type { StockActor } from '../stock/stockLedger.js'
+import { requestCountForShortPick } from '../counts/countShortPick.js'
 import { lockPickList, requireStatus } from './pickListLocks.js'
 
 const PROBLEM_TEXT: Record<string, string> = {
@@ -22,7 +24,7 @@ const PROBLEM_TEXT: Record<string, string> = {
   wrong_lot: 'Wrong lot for this line.',
 }
 
-function resultOf(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): PickConfirmAnswer {
+export function confirmationAnswer(c: PickConfirmation, line: PickListLine, listStatus: string, replayed: boolean): PickConfirmAnswer {
   return {
     confirmationId: c.id, lineId: line.id, confirmedQty: line.confirmedQty, shortQty: line.shortQty,
     remaining: line.qty - line.confirmedQty - line.shortQty, listStatus, replayed,
@@ -50,7 +52,7 @@ async function replay(em: EntityManager, pickListId: number, clientKey: string):
   if (earlier.pickListId !== pickListId) throw AppError.unprocessable('This Idempotency-Key was already used for another pick list.', 'idempotency_key_reused')
   const line = await em.findOneByOrFail(PickListLine, { id: earlier.lineId })
   const list = await lockPickList(em, pickListId)
-  return resultOf(earlier, line, list.status, true)
+  return confirmationAnswer(earlier, line, list.status, true)
 }
 
 export async function confirmPick(em: EntityManager, actor: StockActor, pickListId: number, input: PickConfirmInput, clientKey: string): Promise<PickConfirmAnswer> {
@@ -76,6 +78,10 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
     if (isDuplicateKey(err)) throw AppError.conflict('This confirmation is already being recorded; it will show in a moment.', 'duplicate_confirmation')
     throw err
   })
+  // Not in the bin: the bin is counted, so the stock figures catch up with the shelf.
+  if (shortQty > 0 && input.shortReason === 'not_found') {
+    await requestCountForShortPick(em, actor, { pickListId, pickListLineId: line.id, binId: line.binId, itemId: line.itemId, lotId: line.lotId })
+  }
   line.confirmedQty += input.qty
   line.shortQty += shortQty
   await em.update(PickListLine, { id: line.id }, { confirmedQty: line.confirmedQty, shortQty: line.shortQty })
@@ -86,5 +92,5 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
   }
   // update() also sets updated_at, so pollers see a change even when the status stays.
   await em.update(PickList, { id: list.id }, { status: list.status, startedBy: list.startedBy, startedAt: list.startedAt })
-  return resultOf(confirmation, line, list.status, false)
+  return confirmationAnswer(confirmation, line, list.status, false)
 }

@@ -12,7 +12,7 @@ import { Vendor } from '../../entities/Vendor.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { isoDay } from './sqlValues.js'
-import { addDays, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
+import { addDays, addToOpenDraft, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
 
 type Db = EntityManager | DataSource
 
@@ -75,7 +75,7 @@ export async function createFromJob(em: EntityManager, actor: AuditActor, input:
     })
     const due = job.dueDate ? ` (due ${isoDay(job.dueDate)})` : ''
     const head = { vendorId, warehouseId: input.warehouseId, jobId: job.id, expectedDate: addDays(leadDays(vendor, [...priced.values()])), notes: `Special order for job ${job.name}${due}` }
-    const { po } = await insertPo(em, actor, head, poLines, 'job')
+    const { po } = (await addToOpenDraft(em, actor, head, poLines, 'job')) ?? (await insertPo(em, actor, head, poLines, 'job'))
     for (const l of poLines) await em.increment(BomLine, { id: l.bomLineId! }, 'orderedQty', l.packsOrdered * l.packQty)
     ids.push(po.id)
   }

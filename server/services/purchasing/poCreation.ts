@@ -8,7 +8,7 @@ import { PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
 import { Vendor } from '../../entities/Vendor.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
-import { addDays, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
+import { addDays, addToOpenDraft, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
 
 async function lockSuggestions(em: EntityManager, ids: number[]): Promise<PurchaseSuggestion[]> {
   const rows = await em.find(PurchaseSuggestion, { where: { id: In(ids) }, lock: { mode: 'pessimistic_write' }, order: { id: 'ASC' } })
@@ -46,14 +46,14 @@ async function orderGroup(em: EntityManager, actor: AuditActor, g: { vendorId: n
     }
   })
   const head = { vendorId: g.vendorId, warehouseId: g.warehouseId, expectedDate: addDays(leadDays(vendor, [...priced.values()])) }
-  const { po, lineIds } = await insertPo(em, actor, head, lines, 'suggestions')
+  const { po, lineIds } = (await addToOpenDraft(em, actor, head, lines, 'suggestions')) ?? (await insertPo(em, actor, head, lines, 'suggestions'))
   for (const s of g.rows) {
     await em.update(PurchaseSuggestion, { id: s.id }, { status: 'ordered', poLineId: lineIds[itemIds.indexOf(s.itemId)], vendorId: g.vendorId })
   }
   return po.id
 }
 
-/** Accepted suggestions → one draft PO per vendor and warehouse; the suggestions become 'ordered'. */
+/** Accepted suggestions → the draft PO of each vendor and warehouse (the open one, else a new one); the suggestions become 'ordered'. */
 export async function createFromSuggestions(em: EntityManager, actor: AuditActor, input: PoFromSuggestionsInput): Promise<number[]> {
   const rows = await lockSuggestions(em, [...new Set(input.suggestionIds)])
   const preferred = await preferredVendors(em, rows.filter((s) => !s.vendorId).map((s) => s.itemId))

@@ -10,9 +10,17 @@ import { audit, type AuditActor } from '../auditService.js'
 import { manualLines } from './poCreation.js'
 import { checkLineSizes, recomputeTotal } from './poWrite.js'
 
-export async function lockPo(em: EntityManager, id: number): Promise<PurchaseOrder> {
+/**
+ * Locks the order for a change and moves it to its next version. With `seenVersion` (the version the
+ * screen showed), a change made meanwhile in another tab or by another buyer is refused, never overwritten.
+ */
+export async function lockPo(em: EntityManager, id: number, seenVersion?: number): Promise<PurchaseOrder> {
   const po = await em.findOne(PurchaseOrder, { where: { id }, lock: { mode: 'pessimistic_write' } })
-  if (!po) throw AppError.notFound('That purchase order')
+  if (!po) throw AppError.notFound('po_not_found', 'That purchase order was not found.')
+  if (seenVersion !== undefined && seenVersion !== po.version) {
+    throw AppError.conflict('po_changed', `${po.number} was changed meanwhile (by another tab or person). Reload it to see the changes, then try again.`, { params: { number: po.number } })
+  }
+  await em.update(PurchaseOrder, { id }, { version: po.version + 1 })
   return po
 }
 
@@ -62,7 +70,7 @@ async function releaseLines(em: EntityManager, lines: PurchaseOrderLine[]): Prom
 }
 
 export async function updateDraft(em: EntityManager, actor: AuditActor, id: number, input: PoUpdateInput): Promise<void> {
-  const po = await lockPo(em, id)
+  const po = await lockPo(em, id, input.version)
   ensure('edit', po)
   const head: Partial<PurchaseOrder> = {}
   if (input.expectedDate !== undefined) head.expectedDate = input.expectedDate
@@ -105,8 +113,9 @@ export async function removeLine(em: EntityManager, actor: AuditActor, id: numbe
   await audit(em, actor, 'po.line_remove', 'purchase_order', id, { lineId, itemId: line.itemId })
 }
 
-export async function approve(em: EntityManager, actor: AuditActor, id: number): Promise<void> {
-  const po = await lockPo(em, id)
+/** Approves the order as the approver saw it: `seenVersion` refuses an order changed since (or with edits saved meanwhile). */
+export async function approve(em: EntityManager, actor: AuditActor, id: number, seenVersion?: number): Promise<void> {
+  const po = await lockPo(em, id, seenVersion)
   ensure('approve', po)
   if (!(await em.countBy(PurchaseOrderLine, { poId: id }))) throw AppError.conflict('Add a line before approving.')
   await setStatus(em, actor, po, 'approved', { approvedBy: actor.userId, approvedAt: new Date() })

@@ -8,10 +8,10 @@ import type { PoSendInput } from '../../../shared/schemas/purchasing.js'
 import type { PoDetail } from '../../../shared/schemas/purchasingViews.js'
 import { canDo } from '../../../shared/purchasing/poStatus.js'
 import { formatMoney } from '../../../shared/money.js'
-import { OutboxMessage } from '../../entities/OutboxMessage.js'
+import { OutboxAttachment, OutboxMessage } from '../../entities/OutboxMessage.js'
 import { PurchaseOrder } from '../../entities/PurchaseOrder.js'
 import { inTransaction } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { lockPo } from './poLifecycle.js'
 import { poDetail } from './poRead.js'
@@ -54,13 +54,25 @@ function bodyText(po: PoDetail, message: string | null): string {
     .join('\n')
 }
 
+interface MailFile {
+  name: string
+  type: string
+  bytes: Buffer
+}
+
 interface Attempt {
-  po: PoDetail
+  poId: number
   to: string
   cc: string[]
   subject: string
   text: string
-  file: { name: string; bytes: Buffer }
+  files: MailFile[]
+  retryOf?: number
+}
+
+/** What goes to the vendor with the message: the order as a spreadsheet. */
+async function poFiles(po: PoDetail): Promise<MailFile[]> {
+  return [{ name: `${po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(po) }]
 }
 
 async function record(ds: DataSource, actor: AuditActor, from: string, a: Attempt, outcome: { messageId?: string; error?: string }) {
@@ -68,11 +80,11 @@ async function record(ds: DataSource, actor: AuditActor, from: string, a: Attemp
     const row = em.create(OutboxMessage, {
       status: outcome.error ? 'failed' : 'sent', sentAt: outcome.error ? null : new Date(), fromAddress: from, toAddress: a.to,
       cc: a.cc.length ? a.cc.join(', ') : null, subject: a.subject, bodyText: a.text, error: outcome.error?.slice(0, 500) ?? null,
-      messageId: outcome.messageId ?? null, poId: a.po.id, attachmentName: a.file.name, attachmentType: XLSX_TYPE,
-      attachment: a.file.bytes, createdBy: actor.userId,
+      messageId: outcome.messageId ?? null, poId: a.poId, createdBy: actor.userId, retryOf: a.retryOf ?? null,
     })
     await em.save(row)
-    const po = await lockPo(em, a.po.id)
+    for (const f of a.files) await em.insert(OutboxAttachment, { messageId: row.id, name: f.name, contentType: f.type, bytes: f.bytes })
+    const po = await lockPo(em, a.poId)
     if (outcome.error) {
       await em.update(PurchaseOrder, { id: po.id }, { sendError: outcome.error.slice(0, 500) })
       await audit(em, actor, 'po.send_failed', 'purchase_order', po.id, { to: a.to, error: outcome.error })
@@ -85,29 +97,64 @@ async function record(ds: DataSource, actor: AuditActor, from: string, a: Attemp
   })
 }
 
-/** Sends (or sends again) the order to the vendor; a failure is recorded, leaves the PO unsent and answers 502. */
-export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
-  const po = await poDetail(ds, poId)
-  if (!canDo('send', po.status) && !canDo('resend', po.status)) {
-    throw AppError.conflict(`A ${po.status.replace('_', ' ')} purchase order cannot be e-mailed; approve it first.`, 'wrong_status')
-  }
-  const to = input.to ?? po.vendor.email
-  if (!to) throw AppError.badRequest('This vendor has no e-mail address: enter one.', { to: 'Enter the e-mail address to send to' })
-  const attempt: Attempt = {
-    po, to, cc: input.cc, subject: `Purchase order ${po.number}`, text: bodyText(po, input.message),
-    file: { name: `${po.number}.xlsx`, bytes: await poWorkbook(po) },
-  }
+/** One SMTP attempt, recorded sent or failed; a failure leaves the PO unsent and answers 502. */
+async function attempt(ds: DataSource, config: AppConfig, actor: AuditActor, a: Attempt) {
   try {
     const info = await mailTransport(config.smtp).sendMail({
-      from: config.smtp.from, to, cc: input.cc, subject: attempt.subject, text: attempt.text,
-      attachments: [{ filename: attempt.file.name, content: attempt.file.bytes, contentType: XLSX_TYPE }],
+      from: config.smtp.from, to: a.to, cc: a.cc, subject: a.subject, text: a.text,
+      attachments: a.files.map((f) => ({ filename: f.name, content: f.bytes, contentType: f.type })),
     })
-    const outboxId = await record(ds, actor, config.smtp.from, attempt, { messageId: info.messageId })
-    return { outboxId, status: 'sent' as const, po: await poDetail(ds, poId) }
+    const outboxId = await record(ds, actor, config.smtp.from, a, { messageId: info.messageId })
+    return { outboxId, status: 'sent' as const, po: await poDetail(ds, a.poId) }
   } catch (err) {
     if (err instanceof AppError) throw err
     const error = err instanceof Error ? err.message : String(err)
-    await record(ds, actor, config.smtp.from, attempt, { error })
+    await record(ds, actor, config.smtp.from, a, { error })
     throw new AppError(502, 'mail_failed', `The e-mail could not be sent (${error}). The order stays unsent; check the address or the mail server and send again.`, { params: { detail: error } })
+  }
+}
+
+function ensureSendable(po: PoDetail): void {
+  if (!canDo('send', po.status) && !canDo('resend', po.status)) {
+    throw AppError.conflict('po_not_sendable', `A ${po.status.replace('_', ' ')} purchase order cannot be e-mailed; approve it first.`, { params: { poStatus: po.status } })
+  }
+}
+
+/** Sends (or sends again) the order to the vendor. */
+export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
+  const po = await poDetail(ds, poId)
+  ensureSendable(po)
+  const to = input.to ?? po.vendor.email
+  if (!to) throw AppError.badRequest('vendor_email_missing', 'This vendor has no e-mail address: enter one.', { fields: { to: problem('required') } })
+  return attempt(ds, config, actor, {
+    poId, to, cc: input.cc, subject: `Purchase order ${po.number}`, text: bodyText(po, input.message), files: await poFiles(po),
+  })
+}
+
+/** Messages being sent again right now: a second click while the first is with the mail server is refused. */
+const inFlight = new Set<number>()
+
+/**
+ * Sends a failed message again exactly as it was (same address, text and attachments), once: the outbox's
+ * retry_of key holds even across processes, and a click repeated while the first is out is refused.
+ */
+export async function sendAgain(ds: DataSource, config: AppConfig, actor: AuditActor, messageId: number) {
+  const message = await ds.getRepository(OutboxMessage).findOneBy({ id: messageId })
+  if (!message) throw AppError.notFound('message_not_found', 'That message was not found.')
+  if (message.status !== 'failed') throw AppError.conflict('message_was_sent', 'That message was sent; there is nothing to send again.')
+  if (!message.poId) throw AppError.conflict('message_without_order', 'That message belongs to no purchase order.')
+  const [again] = await ds.query('SELECT id FROM outbox_messages WHERE retry_of = ?', [messageId])
+  if (again || inFlight.has(messageId)) throw AppError.conflict('already_sent_again', 'That message was already sent again; see the newer attempt.')
+  inFlight.add(messageId)
+  try {
+    ensureSendable(await poDetail(ds, message.poId))
+    const files: { name: string; content_type: string; bytes: Buffer }[] = await ds.query(
+      'SELECT name, content_type, bytes FROM outbox_attachments WHERE message_id = ? ORDER BY id', [messageId])
+    return await attempt(ds, config, actor, {
+      poId: message.poId, to: message.toAddress, cc: message.cc ? message.cc.split(', ') : [], subject: message.subject, text: message.bodyText,
+      files: files.map((f) => ({ name: f.name, type: f.content_type, bytes: f.bytes })), retryOf: messageId,
+    })
+  } finally {
+    inFlight.delete(messageId)
   }
 }

@@ -32,6 +32,7 @@ function summaryOf(r: PoRow): PoSummary {
     createdAt: iso(r.created_at as Date)!,
     lineCount: Number(r.line_count),
     orderTotal: r.total,
+    version: Number(r.version),
   }
 }
 

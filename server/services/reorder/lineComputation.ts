@@ -71,7 +71,9 @@ export function computeLine(
   }
   const result = reorderSuggestion({
     demand: { meanDaily: Math.max(0, stats.mean), sdDaily: stats.sdSample, daysSinceLastUse: idle },
-    stock: { onHand: stock.onHand, onOrder: input.onOrder, reserved: stock.reserved },
+    // Accepted suggestions and draft lines are already coming: they count in the position, so the
+    // line never suggests ordering them a second time.
+    stock: { onHand: stock.onHand, onOrder: input.onOrder, reserved: stock.reserved, pending: input.pending?.qty ?? 0 },
     unitCost: input.unitCost,
     policy: effective.policy,
     vendor: vendor ? { packSize: vendor.packSize, minimumOrder: vendor.minimumOrder } : undefined,

@@ -1,53 +1,62 @@
-// Moving-average unit cost per item and warehouse, updated on every receipt (and transfer in).
-// The item_warehouses row is locked first, then the warehouse's on-hand read with a locking read,
-// so two receipts of one item into one warehouse apply one after the other.
+// Moving-average unit cost per item and warehouse, blended by every move that brings stock into a
+// warehouse at a cost (a receipt, a transfer in). applyMoves locks the cost rows first, exclusively and
+// sorted, then the item's whole balance group in that warehouse in the one balance order (see
+// balanceLocks.ts), so the on hand the average blends with cannot change under it and nothing waits
+// to upgrade a shared lock.
 import type { EntityManager } from 'typeorm'
+import type { MoveType } from '../../../shared/catalog.js'
 import { applyReceipt } from '../../../shared/inventory/movingAverage.js'
 import { ItemWarehouse } from '../../entities/ItemWarehouse.js'
 import { AppError } from '../../errors.js'
+import { groupKey, type WarehouseGroup } from './balanceLocks.js'
 
-export async function lockItemWarehouse(em: EntityManager, itemId: number, warehouseId: number): Promise<ItemWarehouse> {
-  // ON DUPLICATE KEY UPDATE takes an exclusive lock on an existing row; INSERT IGNORE took a shared one, and two
-  // receipts holding it both waited to upgrade to FOR UPDATE: a deadlock on every concurrent receipt or transfer-in.
+/** Moves that blend their unit cost into the receiving warehouse's average. */
+export const COSTED_IN: ReadonlySet<MoveType> = new Set<MoveType>(['receipt', 'transfer_in'])
+
+/** Creates missing cost rows and locks them all exclusively, in (item, warehouse) order. Returns the averages. */
+export async function lockCostRows(em: EntityManager, groups: readonly WarehouseGroup[]): Promise<Map<string, string>> {
+  const sorted = [...groups].sort((a, b) => a.itemId - b.itemId || a.warehouseId - b.warehouseId)
+  if (!sorted.length) return new Map()
+  // ON DUPLICATE KEY UPDATE takes an exclusive lock on an existing row (INSERT IGNORE took a shared one).
   await em.query(
-    'INSERT INTO item_warehouses (item_id, warehouse_id, avg_cost) VALUES (?, ?, 0) ON DUPLICATE KEY UPDATE avg_cost = avg_cost',
-    [itemId, warehouseId],
+    `INSERT INTO item_warehouses (item_id, warehouse_id, avg_cost) VALUES ${sorted.map(() => '(?, ?, 0)').join(', ')} ON DUPLICATE KEY UPDATE avg_cost = avg_cost`,
+    sorted.flatMap((g) => [g.itemId, g.warehouseId]),
   ).catch((err: { errno?: number; driverError?: { errno?: number } }) => {
     // 1452: the item (or warehouse) does not exist; answer 404, not a failed lookup's 500.
-    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.notFound(`Item ${itemId} or warehouse ${warehouseId}`)
+    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.notFound('That item or warehouse')
     throw err
   })
-  return em.findOneOrFail(ItemWarehouse, { where: { itemId, warehouseId }, lock: { mode: 'pessimistic_write' } })
-}
-
-async function warehouseOnHand(em: EntityManager, itemId: number, warehouseId: number): Promise<number> {
-  // FORCE INDEX: left to itself the optimizer may scan a small table, and the shared locks then cover the
-  // item's balances in every warehouse, so transfers in deadlocked with bin moves at the shipping end.
-  const [row] = await em.query(
-    'SELECT COALESCE(SUM(on_hand), 0) AS qty FROM stock_balances FORCE INDEX (ix_balance_item_wh) WHERE item_id = ? AND warehouse_id = ? LOCK IN SHARE MODE',
-    [itemId, warehouseId],
+  // Already locked by the insert; a locking read sees the latest committed average, not a snapshot.
+  const rows: { item_id: number; warehouse_id: number; avg_cost: string }[] = await em.query(
+    `SELECT item_id, warehouse_id, avg_cost FROM item_warehouses WHERE (item_id, warehouse_id) IN (${sorted.map(() => '(?, ?)').join(', ')}) FOR UPDATE`,
+    sorted.flatMap((g) => [g.itemId, g.warehouseId]),
   )
-  return Number(row.qty)
+  return new Map(rows.map((r) => [groupKey({ itemId: r.item_id, warehouseId: r.warehouse_id }), r.avg_cost]))
 }
 
 /**
- * Call before the receipt's moves are applied: the average blends the stock already there.
- * `pendingQty`: units of this item and warehouse taken in earlier in the same operation whose moves
- * are not applied yet (a receipt with two lines of one item), so the second line blends with the first.
+ * Blends the costed moves, in order, into the averages: each move sees the on hand before the operation
+ * plus what earlier moves of the same operation brought in. Writes the changed averages.
  */
-export async function averageInReceipt(
+export async function blendAverages(
   em: EntityManager,
-  itemId: number,
-  warehouseId: number,
-  qty: number,
-  unitCost: string,
-  pendingQty = 0,
-): Promise<string> {
-  const row = await lockItemWarehouse(em, itemId, warehouseId)
-  const onHand = (await warehouseOnHand(em, itemId, warehouseId)) + pendingQty
-  const step = applyReceipt({ onHand, averageCost: row.avgCost }, qty, unitCost)
-  await em.update(ItemWarehouse, { itemId, warehouseId }, { avgCost: step.after.averageCost })
-  return step.after.averageCost
+  averages: Map<string, string>,
+  groupOnHand: Map<string, number>,
+  moves: readonly { itemId: number; warehouseId: number; qty: number; unitCost: string }[],
+): Promise<void> {
+  const onHand = new Map(groupOnHand)
+  const changed = new Set<string>()
+  for (const m of moves) {
+    const gk = groupKey(m)
+    const step = applyReceipt({ onHand: onHand.get(gk) ?? 0, averageCost: averages.get(gk) ?? '0.0000' }, m.qty, m.unitCost)
+    averages.set(gk, step.after.averageCost)
+    onHand.set(gk, step.after.onHand)
+    changed.add(gk)
+  }
+  for (const gk of changed) {
+    const [itemId, warehouseId] = gk.split(':').map(Number)
+    await em.update(ItemWarehouse, { itemId, warehouseId }, { avgCost: averages.get(gk)! })
+  }
 }
 
 export async function currentAverage(em: EntityManager, itemId: number, warehouseId: number): Promise<string> {

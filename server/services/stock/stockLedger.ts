@@ -4,9 +4,11 @@
 import { randomUUID } from 'node:crypto'
 import type { EntityManager } from 'typeorm'
 import type { MoveType } from '../../../shared/catalog.js'
+import { balanceAfter } from '../../../shared/inventory/balanceAfter.js'
 import { StockBalance } from '../../entities/StockBalance.js'
 import { StockMove } from '../../entities/StockMove.js'
-import { balanceKey, lockBalances } from './balanceLocks.js'
+import { blendAverages, COSTED_IN, lockCostRows } from './averageCost.js'
+import { balanceKey, groupKey, lockBalances, type WarehouseGroup } from './balanceLocks.js'
 import { notEnoughAvailable, notEnoughOnHand } from './stockErrors.js'
 import { loadLookups, type Lookups } from './stockLookups.js'
 
@@ -56,20 +58,32 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
   checkQuantities(specs)
   const lookups = await loadLookups(em, specs)
   const keys = specs.map((s) => ({ ...s, warehouseId: lookups.bin(s.binId).warehouseId }))
-  const balances = await lockBalances(em, keys, { create: specs.some((s) => s.qty > 0) })
+  // Stock coming in at a cost blends into its warehouse's moving average: the cost rows first, then the
+  // item's whole balance group there, all in the one lock order (balanceLocks.ts).
+  const costed = keys.filter((k) => COSTED_IN.has(k.moveType))
+  const groups = new Map<string, WarehouseGroup>(costed.map((k) => [groupKey(k), { itemId: k.itemId, warehouseId: k.warehouseId }]))
+  const averages = await lockCostRows(em, [...groups.values()])
+  const locked = await lockBalances(em, keys, { create: specs.some((s) => s.qty > 0), wholeGroups: [...groups.values()] })
+  if (costed.length) {
+    await blendAverages(em, averages, locked.groupOnHand, costed.map((k) => {
+      if (k.unitCost == null) throw new RangeError(`a ${k.moveType} needs a unit cost`)
+      return { itemId: k.itemId, warehouseId: k.warehouseId, qty: k.qty, unitCost: k.unitCost }
+    }))
+  }
+  const balances = locked.rows
   for (const s of specs) {
     const key = balanceKey(s)
     const bal = balances.get(key)
     const described = lookups.describe(s)
     if (!bal) throw notEnoughOnHand(described, 0, -s.qty)
     const fromReserved = s.fromReserved ?? 0
-    const onHand = bal.onHand + s.qty
-    const reserved = bal.reserved - fromReserved
-    if (onHand < 0) throw notEnoughOnHand(described, bal.onHand, -s.qty)
-    if (reserved < 0) throw new RangeError(`reservation of ${described.sku} larger than the reserved quantity`)
-    if (onHand < reserved) throw notEnoughAvailable(described, bal.onHand, bal.reserved, -s.qty)
-    bal.onHand = onHand
-    bal.reserved = reserved
+    if (bal.reserved - fromReserved < 0) throw new RangeError(`reservation of ${described.sku} larger than the reserved quantity`)
+    const after = balanceAfter(bal, s.qty, fromReserved)
+    if (!after.ok) {
+      throw after.problem === 'not_enough_on_hand' ? notEnoughOnHand(described, bal.onHand, -s.qty) : notEnoughAvailable(described, bal.onHand, bal.reserved, -s.qty)
+    }
+    bal.onHand = after.onHand
+    bal.reserved = after.reserved
   }
   for (const bal of balances.values()) {
     await em.update(StockBalance, { id: bal.id }, { onHand: bal.onHand, reserved: bal.reserved })

@@ -25,7 +25,7 @@ export async function reserve(
 ): Promise<StockReservation[]> {
   const lookups = await loadLookups(em, input.lines)
   const keys = input.lines.map((l) => ({ ...l, warehouseId: lookups.bin(l.binId).warehouseId }))
-  const balances = await lockBalances(em, keys, { create: false })
+  const balances = (await lockBalances(em, keys, { create: false })).rows
   const created: StockReservation[] = []
   for (const l of input.lines) {
     if (!Number.isSafeInteger(l.qty) || l.qty <= 0) throw AppError.badRequest('Reserve a whole number above zero.')
@@ -46,10 +46,18 @@ export async function reserve(
 async function lockReservations(em: EntityManager, where: { docType: string; docId: number; docLineId?: number }) {
   const rows = await em.find(StockReservation, { where, order: { id: 'ASC' } })
   if (!rows.length) return { rows, balances: new Map<string, StockBalance>() }
-  const balances = await lockBalances(em, rows, { create: false })
+  const balances = (await lockBalances(em, rows, { create: false })).rows
   // Re-read under the balance locks: a concurrent release or pick may have changed them.
   const locked = await em.find(StockReservation, { where: { id: In(rows.map((r) => r.id)) }, lock: { mode: 'pessimistic_write' } })
   return { rows: locked, balances }
+}
+
+/**
+ * Locks every balance a document holds stock in, in one sorted pass, before it is issued line by line:
+ * issuing each line with its own lock would take them out of the one balance order.
+ */
+export async function lockDocumentBalances(em: EntityManager, where: { docType: string; docId: number }): Promise<void> {
+  await lockReservations(em, where)
 }
 
 /** Releases what a document (or one of its lines) holds: cancelling a pick list. */

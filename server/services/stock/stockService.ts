@@ -6,7 +6,7 @@ import type { AdjustmentReason } from '../../../shared/catalog.js'
 import { Bin } from '../../entities/Bin.js'
 import { Lot } from '../../entities/Lot.js'
 import { AppError } from '../../errors.js'
-import { averageInReceipt, currentAverage } from './averageCost.js'
+import { currentAverage } from './averageCost.js'
 import { currentLotByCode } from './currentRows.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
 
@@ -67,17 +67,15 @@ export async function receive(
   input: { warehouseId: number; lines: ReceiptLine[]; doc?: DocRef; note?: string | null },
 ): Promise<AppliedMoves> {
   if (!input.lines.length) throw AppError.badRequest('A receipt needs at least one line.')
+  // Lots are found or made in (item, code) order, so two receipts creating the same lots queue up; the
+  // moving average is blended by applyMoves under the cost-row and balance locks.
+  const lines = [...input.lines].sort((a, b) => a.itemId - b.itemId || (a.lotCode ?? '').localeCompare(b.lotCode ?? ''))
+  for (const line of lines) await storageBin(em, line.binId, input.warehouseId)
   const specs = []
-  // Sorted so concurrent receipts lock item_warehouses rows in one order.
-  const lines = [...input.lines].sort((a, b) => a.itemId - b.itemId)
-  const pending = new Map<number, number>()
   for (const line of lines) {
-    await storageBin(em, line.binId, input.warehouseId)
     const lotId = line.lotId ?? (line.lotCode ? (await findOrCreateLot(em, line.itemId, line.lotCode, {
       receivedAt: line.lotReceivedAt, vendorId: line.vendorId, tintNote: line.tintNote,
     })).id : null)
-    await averageInReceipt(em, line.itemId, input.warehouseId, line.qty, line.unitCost, pending.get(line.itemId) ?? 0)
-    pending.set(line.itemId, (pending.get(line.itemId) ?? 0) + line.qty)
     specs.push({
       moveType: 'receipt' as const,
       itemId: line.itemId,

@@ -5,7 +5,7 @@ import { Bin } from '../../entities/Bin.js'
 import { Transfer, TransferLine } from '../../entities/Transfer.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError } from '../../errors.js'
-import { averageInReceipt, currentAverage } from './averageCost.js'
+import { currentAverage } from './averageCost.js'
 import { currentBinByCode } from './currentRows.js'
 import { applyMoves, type StockActor } from './stockLedger.js'
 
@@ -50,12 +50,9 @@ export async function shipTransfer(
   }))
   const lines = await em.save(input.lines.map((l) => em.create(TransferLine, { transferId: transfer.id, itemId: l.itemId, lotId: l.lotId, fromBinId: l.fromBinId, qty: l.qty, receivedQty: 0 })))
   const specs = []
-  const pending = new Map<number, number>()
-  // By item, so concurrent transfers lock item_warehouses rows in one order (as receipts do).
-  for (const line of [...lines].sort((a, b) => a.itemId - b.itemId)) {
+  // The shipped cost blends into the receiving warehouse's average in applyMoves (transfer_in is costed).
+  for (const line of lines) {
     const unitCost = await currentAverage(em, line.itemId, input.fromWarehouseId)
-    await averageInReceipt(em, line.itemId, input.toWarehouseId, line.qty, unitCost, pending.get(line.itemId) ?? 0)
-    pending.set(line.itemId, (pending.get(line.itemId) ?? 0) + line.qty)
     const doc = { docType: 'transfer', docId: transfer.id, docLineId: line.id }
     specs.push(
       { moveType: 'transfer_out' as const, itemId: line.itemId, lotId: line.lotId, binId: line.fromBinId, qty: -line.qty, unitCost, doc },

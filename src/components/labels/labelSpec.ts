@@ -8,5 +8,6 @@ export interface LabelSpec {
   problem: string | null
   title: string
   lines: string[]
-  qrUrl: string | null
+  /** Whether the label may carry a QR Code too: it holds the same data as the bars, for camera scanners. */
+  qr: boolean
 }

@@ -1,6 +1,7 @@
 // One confirmation on the handheld: bin → item (and lot) → quantity, each scan checked at once
 // against the line with the same shared rules the server applies. A wrong scan is refused with a
-// clear message and a buzz, and nothing changes; a right one moves to the next step.
+// clear message and a buzz, and nothing changes; a right one moves to the next step. One intent makes
+// one confirmation: while one is being kept, a second Enter, tap or scanner echo does nothing.
 import { computed, reactive, ref, type Ref } from 'vue'
 import { checkBinScan, checkItemScan, checkLotScan, type PickScanProblem, type PickTarget } from '@shared/picking/pickScan'
 import type { PickConfirmInput, PickLineView, ShortReason } from '@shared/schemas/picking'
@@ -15,6 +16,8 @@ export interface PickFlowDeps {
   pending(lineId: number): { qty: number; closed: boolean }
   feedback: ReturnType<typeof useScanFeedback>
   t: Translate
+  /** A quantity of the line with its unit ("17 ft"). */
+  units(line: PickLineView, qty: number): string
   submit(body: PickConfirmInput, line: PickLineView): Promise<void>
 }
 
@@ -23,6 +26,8 @@ export function usePickFlow(d: PickFlowDeps) {
   const step = ref<PickStep>('bin')
   const scans = reactive({ bin: '', item: '', lot: '' })
   const qty = ref(0)
+  /** A confirmation is being kept on the device right now. */
+  const busy = ref(false)
   const current = computed(() => d.lines.value.find((l) => l.id === currentId.value) ?? null)
 
   /** Still to take on a line, counting what waits in the outbox. */
@@ -57,7 +62,7 @@ export function usePickFlow(d: PickFlowDeps) {
   }
 
   function refuse(problem: PickScanProblem | 'over_pick' | 'bad_qty' | 'need_bin' | 'need_item', scanned: string, line: PickLineView) {
-    d.feedback.error(d.t(`picking.handheld.problem.${problem}`, { scanned, bin: line.binCode, sku: line.sku, lot: line.lotCode ?? '', left: left(line) }))
+    d.feedback.error(d.t(`picking.handheld.problem.${problem}`, { scanned, bin: line.binCode, sku: line.sku, lot: line.lotCode ?? '', left: d.units(line, left(line)) }))
   }
 
   function scanItem(raw: string, line: PickLineView) {
@@ -71,7 +76,7 @@ export function usePickFlow(d: PickFlowDeps) {
 
   function scan(raw: string) {
     const line = current.value
-    if (!line || !raw.trim()) return
+    if (!line || !raw.trim() || busy.value) return
     if (step.value === 'bin') {
       const check = checkBinScan(raw, target(line))
       if (!check.ok) return refuse(check.problem, check.scanned, line)
@@ -100,14 +105,23 @@ export function usePickFlow(d: PickFlowDeps) {
 
   async function send(units: number, shortReason: ShortReason | null) {
     const line = current.value
-    if (!line) return
+    if (!line || busy.value) return
     // A short pick of nothing needs only the bin; taking units needs the item (and lot) scanned too.
     if (step.value === 'bin') return refuse('need_bin', '', line)
     if (units > 0 && step.value !== 'qty') return refuse('need_item', '', line)
     if (!Number.isSafeInteger(units) || units < 0 || (units === 0 && !shortReason)) return refuse('bad_qty', String(units), line)
     if (units > left(line)) return refuse('over_pick', String(units), line)
-    await d.submit(body(line, units, shortReason), line)
-    d.feedback.ok(d.t(shortReason ? 'picking.handheld.shortSaved' : 'picking.handheld.confirmed', { qty: units, sku: line.sku, short: left(line) }))
+    busy.value = true
+    try {
+      await d.submit(body(line, units, shortReason), line)
+    } catch (err) {
+      console.error(err)
+      return d.feedback.error(d.t('picking.handheld.notKept'))
+    } finally {
+      busy.value = false
+    }
+    const said = d.t(shortReason ? 'picking.handheld.shortSaved' : 'picking.handheld.confirmed', { qty: d.units(line, units), sku: line.sku })
+    d.feedback.ok(shortReason === 'not_found' ? `${said} ${d.t('picking.handheld.countAsked', { bin: line.binCode })}` : said)
     if (left(line) > 0 && !shortReason) reset()
     else selectNextOpen()
   }
@@ -115,5 +129,5 @@ export function usePickFlow(d: PickFlowDeps) {
   const confirm = () => send(qty.value, null)
   const short = (found: number, reason: ShortReason) => send(found, reason)
 
-  return { current, currentId, step, scans, qty, left, select, selectNextOpen, scan, confirm, short }
+  return { current, currentId, step, scans, qty, busy, left, select, selectNextOpen, scan, confirm, short }
 }

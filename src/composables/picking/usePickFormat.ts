@@ -1,10 +1,14 @@
-// How pick lines read on screen and paper: packs (pallets, cases, loose), weights and cautions.
+// How pick lines read on screen and paper: packs (pallets, cases, loose), weights in the person's
+// unit and handling cautions.
 import { useI18n } from 'vue-i18n'
+import { Decimal } from 'decimal.js'
 import { lineHandling, type HandlingCaution } from '@shared/picking/handling'
 import type { PickLineView } from '@shared/schemas/picking'
+import { useStockQty } from '@/composables/useStockQty'
 
 export function usePickFormat() {
   const { t } = useI18n()
+  const units = useStockQty()
 
   const handling = (line: PickLineView, qty = line.qty) =>
     lineHandling({ qty, weightKg: line.weightKg, caseQty: line.caseQty, palletQty: line.palletQty, family: line.family })
@@ -18,16 +22,15 @@ export function usePickFormat() {
     return parts.length ? parts.join(' + ') : t('picking.packs.none')
   }
 
+  /** The whole line's weight, from the unit weight (not from a rounded total). */
+  const lineKg = (line: PickLineView, qty = line.qty) => new Decimal(line.weightKg || '0').times(qty)
+
   function cautionText(line: PickLineView, caution: HandlingCaution, qty = line.qty): string {
-    const h = handling(line, qty)
-    return t(`picking.caution.${caution}`, { kg: caution === 'team_lift' ? h.heaviestLiftKg : h.totalKg })
+    const weight = caution === 'team_lift' ? units.weightText(handling(line, qty).heaviestLiftKg) : units.weightText(lineKg(line, qty))
+    return t(`picking.caution.${caution}`, { weight })
   }
 
-  // Light lines (spacers) round to 0.0 kg: say "under 0.1 kg" rather than nothing.
-  const weightText = (line: PickLineView, qty = line.qty) => {
-    const kg = handling(line, qty).totalKg
-    return kg === '0.0' && qty > 0 && Number(line.weightKg) > 0 ? '< 0.1 kg' : `${kg} kg`
-  }
+  const weightText = (line: PickLineView, qty = line.qty) => units.weightText(lineKg(line, qty))
 
-  return { handling, packsText, cautionText, weightText }
+  return { handling, packsText, cautionText, weightText, lineKg }
 }

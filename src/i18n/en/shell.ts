@@ -31,4 +31,9 @@ export default {
   yourAreas: 'Your areas',
   comingNext: 'This area is being built: its screens arrive with the next releases.',
   open: 'Open',
+  outage: {
+    title: 'Lumenyard cannot reach its database right now.',
+    retrying: 'This page reads again by itself as soon as it is back.',
+    notSaved: 'What you saved just now was not stored: send it again when this message is gone.',
+  },
 }

@@ -31,4 +31,9 @@ export default {
   yourAreas: 'Sus áreas',
   comingNext: 'Esta área está en construcción: sus pantallas llegan con las próximas versiones.',
   open: 'Abrir',
+  outage: {
+    title: 'Lumenyard no puede comunicarse con su base de datos en este momento.',
+    retrying: 'Esta página vuelve a leer sola en cuanto se restablezca.',
+    notSaved: 'Lo que acaba de guardar no se registró: envíelo de nuevo cuando desaparezca este aviso.',
+  },
 }

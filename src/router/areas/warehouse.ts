@@ -15,6 +15,13 @@ export const warehouseRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/warehouse/PickHandheldView.vue'),
     meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'picking.title', bare: true },
   },
+  // What this device holds for the server: confirmations waiting or refused.
+  {
+    path: '/warehouse/outbox',
+    name: 'warehouse-outbox',
+    component: () => import('@/views/warehouse/WarehouseOutboxView.vue'),
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'picking.outbox.title', bare: true },
+  },
   // Receiving against purchase orders, with scans.
   {
     path: '/warehouse/receiving',
@@ -35,5 +42,31 @@ export const warehouseRoutes: RouteRecordRaw[] = [
     name: 'warehouse-pick-sheet',
     component: () => import('@/views/warehouse/PickSheetView.vue'),
     meta: { area: 'warehouse', roles: ['admin', 'counter', 'warehouse'], title: 'picking.sheet.title', bare: true },
+  },
+  // Cycle counts: the list and review open to reviewers too (the buyer, when the admin chose them); the
+  // handheld count is the crew's.
+  {
+    path: '/warehouse/counts',
+    name: 'warehouse-counts',
+    component: () => import('@/views/warehouse/CountsView.vue'),
+    meta: { area: 'warehouse', roles: ['admin', 'warehouse', 'buyer'], title: 'counts.title' },
+  },
+  {
+    path: '/warehouse/counts/history',
+    name: 'warehouse-count-history',
+    component: () => import('@/views/warehouse/CountHistoryView.vue'),
+    meta: { area: 'warehouse', roles: ['admin', 'warehouse', 'buyer'], title: 'counts.history.title' },
+  },
+  {
+    path: '/warehouse/counts/:id(\\d+)',
+    name: 'warehouse-count-review',
+    component: () => import('@/views/warehouse/CountReviewView.vue'),
+    meta: { area: 'warehouse', roles: ['admin', 'warehouse', 'buyer'], title: 'counts.title' },
+  },
+  {
+    path: '/warehouse/counts/:id(\\d+)/count',
+    name: 'warehouse-count',
+    component: () => import('@/views/warehouse/CountHandheldView.vue'),
+    meta: { area: 'warehouse', roles: AREA_ROLES.warehouse, title: 'counts.handheld.title', bare: true },
   },
 ]

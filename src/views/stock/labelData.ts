@@ -15,15 +15,13 @@ export interface LabelQuery {
   ids: number[]
 }
 
-function build(key: string, make: () => LabelPayload, title: string, lines: string[], qrUrl: string | null): LabelSpec {
+function build(key: string, make: () => LabelPayload, title: string, lines: string[], qr: boolean): LabelSpec {
   try {
-    return { key, payload: make(), problem: null, title, lines, qrUrl }
+    return { key, payload: make(), problem: null, title, lines, qr }
   } catch (err) {
-    return { key, payload: null, problem: err instanceof Error ? err.message : String(err), title, lines, qrUrl }
+    return { key, payload: null, problem: err instanceof Error ? err.message : String(err), title, lines, qr }
   }
 }
-
-const itemUrl = (id: number) => `${window.location.origin}/stock/items/${id}`
 
 async function binLabels(q: LabelQuery): Promise<LabelSpec[]> {
   if (!q.warehouseId) return []
@@ -31,13 +29,13 @@ async function binLabels(q: LabelQuery): Promise<LabelSpec[]> {
   const wanted = new Set(q.ids)
   return detail.bins
     .filter((b) => (wanted.size ? wanted.has(b.id) : b.kind !== 'transit'))
-    .map((b) => build(`bin-${b.id}`, () => binLabelPayload(b.code), b.code, [detail.warehouse.code], null))
+    .map((b) => build(`bin-${b.id}`, () => binLabelPayload(b.code), b.code, [detail.warehouse.code], false))
 }
 
 async function itemLabels(q: LabelQuery): Promise<LabelSpec[]> {
   const details = await Promise.all(q.ids.slice(0, 200).map((id) => api.get<ItemDetail>(`/items/${id}`)))
   return details.map(({ item }) =>
-    build(`item-${item.id}`, () => itemLabelPayload({ sku: item.sku, gtin: item.gtin }), item.sku, [item.name], itemUrl(item.id)))
+    build(`item-${item.id}`, () => itemLabelPayload({ sku: item.sku, gtin: item.gtin }), item.sku, [item.name], true))
 }
 
 async function lotLabels(q: LabelQuery): Promise<LabelSpec[]> {
@@ -51,7 +49,7 @@ async function lotLabels(q: LabelQuery): Promise<LabelSpec[]> {
       () => lotLabelPayload({ sku: item.sku, lotCode: l.code, gtin: item.gtin }),
       `${item.sku} · ${l.code}`,
       [item.name, [l.receivedAt, l.tintNote].filter(Boolean).join(' · ')],
-      itemUrl(item.id),
+      true,
     ))
 }
 

@@ -5,6 +5,7 @@ import {
   RowStyleModule, TextFilterModule, themeQuartz, type ColDef,
 } from 'ag-grid-community'
 import type { LedgerRow, StockLevelRow } from '@shared/schemas/stockViews'
+import { dateTimeText } from '@/i18n/when'
 
 ModuleRegistry.registerModules([
   ClientSideRowModelModule, ClientSideRowModelApiModule, TextFilterModule, NumberFilterModule, QuickFilterModule, ColumnApiModule, CellStyleModule, RowStyleModule,
@@ -77,7 +78,7 @@ export function ledgerColumns(label: (key: string, fallback: string) => string):
     field, headerName: t(`stock.col.${field}`), width, ...sortable(field), ...extra,
   })
   return [
-    col('at', 165, { valueFormatter: (p) => (p.value ? new Date(p.value).toLocaleString() : ''), sort: 'desc' }),
+    col('at', 165, { valueFormatter: (p) => dateTimeText(p.value, ''), sort: 'desc' }),
     col('moveType', 130, { valueFormatter: (p) => label(`stock.moveTypes.${p.value}`, String(p.value ?? '')) }),
     col('sku', 150, { cellClass: 'sku-cell' }),
     col('itemName', 200, { flex: 1, minWidth: 160 }),

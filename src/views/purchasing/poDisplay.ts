@@ -1,6 +1,7 @@
 // How purchase orders read on screen: status colours and money text (decimal strings, never floats).
 import { formatMoney } from '@shared/money'
 import type { PoStatus } from '@shared/schemas/purchasing'
+import { dateTimeText } from '@/i18n/when'
 
 type Tone = 'info' | 'warning' | 'success' | 'danger' | 'primary'
 
@@ -26,4 +27,4 @@ export const unitMoney = (amount: string | null | undefined, currency = 'USD') =
   amount === null || amount === undefined ? '—' : formatMoney(amount, { symbol: currency === 'USD' ? '$' : `${currency} `, decimals: 4 })
 
 export const shortDate = (iso: string | null) => (iso ? iso.slice(0, 10) : '—')
-export const dateTime = (iso: string | null) => (iso ? new Date(iso).toLocaleString() : '—')
+export const dateTime = (iso: string | null) => dateTimeText(iso)

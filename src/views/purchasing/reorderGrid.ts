@@ -5,6 +5,7 @@ import {
 } from 'ag-grid-community'
 import { formatMoney } from '@shared/money'
 import type { ReorderLine } from '@shared/schemas/reorder'
+import { i18n } from '@/i18n'
 
 ModuleRegistry.registerModules([ClientSideRowModelModule, RowSelectionModule, CellStyleModule, RowStyleModule, TooltipModule])
 
@@ -28,7 +29,7 @@ export const reorderSelection: RowSelectionOptions<ReorderLine> = {
 type Translate = (key: string, named?: Record<string, unknown>) => string
 
 const num = (digits = 0) => (p: { value: number | null | undefined }) =>
-  p.value === null || p.value === undefined ? '—' : p.value.toLocaleString('en', { maximumFractionDigits: digits })
+  p.value === null || p.value === undefined ? '—' : i18n.global.n(p.value, { key: 'decimal', maximumFractionDigits: digits })
 
 export function reorderColumns(t: Translate): ColDef<ReorderLine>[] {
   const col = (field: keyof ReorderLine, header: string, width: number, extra: ColDef<ReorderLine> = {}): ColDef<ReorderLine> =>

@@ -243,6 +243,17 @@ export const ERROR_CODES = {
   confirmation_key_invalid: [],
   discard_note_needed: [],
 
+  // Takeoff limits and computation; bills behind pick lists
+  takeoff_too_large: [],
+  wall_too_large: ['blocks', 'across', 'courses', 'limit'],
+  takeoff_blocks_over: ['blocks', 'limit'],
+  compute_busy: [],
+  compute_stopped: [],
+  compute_failed: [],
+  compute_unavailable: [],
+  compute_timeout: ['seconds'],
+  bill_superseded: ['revision', 'latest'],
+
   // Codes answered before each area had its own (kept until every area names its situations)
   bad_request: ['text'],
   not_found: ['text'],

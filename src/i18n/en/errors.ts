@@ -239,6 +239,17 @@ export default {
   unchanged: 'Nothing to change: it is already as shipped.',
   item_reserved: 'Some of this item is held for pick lists; release it before deactivating.',
   insufficient_stock: 'Not enough stock on hand for this.',
+  // Takeoff limits and computation; bills behind pick lists
+  takeoff_too_large: 'This takeoff is larger than Lumenyard takes; see the fields marked.',
+  wall_too_large: 'About {blocks} blocks ({across} across × {courses} courses); a wall takes at most {limit}. Split it into panels.',
+  takeoff_blocks_over: 'About {blocks} blocks in all; a takeoff takes at most {limit}. Split the job into several takeoffs.',
+  compute_busy: 'Lumenyard is working through many takeoffs at once; try again in a moment.',
+  compute_stopped: 'The server is stopping; try again in a moment.',
+  compute_failed: 'The takeoff could not be computed. The error was logged.',
+  compute_unavailable: 'The takeoff computation could not start; try again in a moment.',
+  compute_timeout: 'The takeoff took more than {seconds} s to compute and was stopped; split it into smaller takeoffs.',
+  bill_superseded: 'Revision {revision} of this job’s bill was replaced by revision {latest}; start the pick list from revision {latest}.',
+
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'A quantity or amount would grow larger than Lumenyard can record. Nothing was changed; split it into smaller ones.',
   po_not_found: 'That purchase order was not found. It may have been removed.',

@@ -238,6 +238,17 @@ export default {
   unchanged: 'No hay nada que cambiar: ya está como viene de fábrica.',
   item_reserved: 'Parte de este artículo está reservada para listas de preparación; libérela antes de desactivarlo.',
   insufficient_stock: 'No hay suficientes existencias para esto.',
+  // Takeoff limits and computation; bills behind pick lists
+  takeoff_too_large: 'Este cálculo de materiales es más grande de lo que Lumenyard admite; vea los campos marcados.',
+  wall_too_large: 'Unos {blocks} bloques ({across} de ancho × {courses} hiladas); un muro admite como máximo {limit}. Divídalo en paneles.',
+  takeoff_blocks_over: 'Unos {blocks} bloques en total; un cálculo admite como máximo {limit}. Divida la obra en varios cálculos.',
+  compute_busy: 'Lumenyard está calculando muchos pedidos a la vez; inténtelo de nuevo en un momento.',
+  compute_stopped: 'El servidor se está deteniendo; inténtelo de nuevo en un momento.',
+  compute_failed: 'No se pudo calcular. El error quedó registrado.',
+  compute_unavailable: 'El cálculo no pudo empezar; inténtelo de nuevo en un momento.',
+  compute_timeout: 'El cálculo tardó más de {seconds} s y se detuvo; divídalo en cálculos más pequeños.',
+  bill_superseded: 'La revisión {revision} de la lista de materiales de esta obra se sustituyó por la revisión {latest}; empiece la lista de preparación desde la revisión {latest}.',
+
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'Una cantidad o un importe crecería más de lo que Lumenyard puede registrar. No se cambió nada; divídalo en partes más pequeñas.',
   po_not_found: 'No se encontró esa orden de compra. Puede que se haya eliminado.',

@@ -15,8 +15,6 @@ const SRC = path.resolve(import.meta.dirname, '..', '..', 'src')
 /** Reviewed v-html sites: file → the expression bound, and where its markup comes from. */
 const REVIEWED: Record<string, { bound: string; producer: string }> = {
   'components/counter/WallDrawing.vue': { bound: 'd.svg', producer: 'shared/takeoff/drawing toSvg, which escapes every text (checked below)' },
-  'views/warehouse/PickSheetBarcode.vue': { bound: 'svg', producer: 'bwip-js toSVG of our own label payload: bars and no text' },
-  'views/warehouse/ReceiveOrderLabels.vue': { bound: 'l.svg', producer: 'bwip-js toSVG of our own label payload, includetext off' },
 }
 
 function vueFiles(dir: string): string[] {

@@ -57,6 +57,7 @@ declare module 'vue' {
     LabelCard: typeof import('./components/labels/LabelCard.vue')['default']
     LabelSheet: typeof import('./components/labels/LabelSheet.vue')['default']
     LumenyardLogo: typeof import('./components/shell/LumenyardLogo.vue')['default']
+    OutageBanner: typeof import('./components/shell/OutageBanner.vue')['default']
     PickCautions: typeof import('./components/picking/PickCautions.vue')['default']
     PickOutboxDiscard: typeof import('./components/picking/PickOutboxDiscard.vue')['default']
     PickOutboxItem: typeof import('./components/picking/PickOutboxItem.vue')['default']

@@ -35,9 +35,13 @@ function blockMappings(blocks: Item[], bySku: Map<string, Item>): Partial<Materi
     // The demo's SKUs name the shape: GB-0808-WV-SQ has its end-finish twin GB-0808-WV-EF.
     const twin = (code: string) => bySku.get(b.sku.replace(/-(SQ|RC)(?=-|$)/, `-${code}`))
     const end = twin('EF')
+    const twoEdges = twin('DE')
     const corner = twin('CR')
+    const angle = twin('AN')
     if (end) rows.push({ role: 'endBlock', jointKind: null, blockItemId: b.id, itemId: end.id })
+    if (twoEdges) rows.push({ role: 'doubleEndBlock', jointKind: null, blockItemId: b.id, itemId: twoEdges.id })
     if (corner) rows.push({ role: 'cornerBlock', jointKind: null, blockItemId: b.id, itemId: corner.id })
+    if (angle) rows.push({ role: 'angleBlock', jointKind: null, blockItemId: b.id, itemId: angle.id })
     if (b.thicknessClass !== 'thin') continue
     for (const [role, sku] of Object.entries(THIN)) {
       const item = bySku.get(sku)
@@ -76,13 +80,17 @@ function showerTakeoff(): TakeoffInput {
       // Sizes are filled from the catalog by the block SKU when the bill is computed.
       block: { nominal: '6x6', faceWidthMm: 5.75 * IN, faceHeightMm: 5.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard', weightKg: 1.77 },
       joint: { kind: 'spacer', jointMm: IN / 8 },
-      segments: [{ kind: 'straight', blocks: 3 }, { kind: 'curved', insideRadiusMm: 48 * IN, arcAngleDeg: 90, direction: 'left' }],
+      segments: [{ kind: 'straight', blocks: 3 }, { kind: 'curved', insideRadiusMm: 48 * IN, arcAngleDeg: 90, direction: 'left', closing: 'radius' }],
       freeEnds: { start: false, end: true, top: true },
       exposure: 'interior',
       wetArea: true,
       catalog: { block: { sku: 'GB-0606-WV-SQ', name: 'block', packSize: 1, sellByPack: false } },
     }],
-    showerBase: { widthMm: 42 * IN, depthMm: 48 * IN, curb: { radiusMm: 48 * IN, arcDeg: 90 }, drain: { fromLeftMm: 21 * IN, fromBackMm: 24 * IN }, entry: 'right', curbless: false },
+    // The base follows the wall as built: its footprint, curb radius and arc come from the wall's plan.
+    showerBase: {
+      widthMm: 42 * IN, depthMm: 48 * IN, curb: { radiusMm: 48 * IN, arcDeg: 90 }, drain: { fromLeftMm: 21 * IN, fromBackMm: 24 * IN },
+      entry: 'right', curbless: false, wall: 'Shower wall', fit: 'follow',
+    },
     looseLines: [{ sku: 'AC-GLV-CUT', name: 'Cut-resistant gloves, pair', quantity: 2, unit: 'each' }],
   }
 }
@@ -93,10 +101,11 @@ function windowTakeoff(): TakeoffInput {
     walls: [{
       name: 'North window',
       sizing: 'opening',
-      heightMm: 24 * IN,
+      // 4 × 3 blocks of 8 in modules with 3/8 in expansion at jambs and head: 32 1/2 × 24 3/8 in
+      heightMm: 24.375 * IN,
       block: { nominal: '8x8', faceWidthMm: 7.75 * IN, faceHeightMm: 7.75 * IN, depthMm: 3.875 * IN, thicknessClass: 'standard', weightKg: 2.86 },
       joint: { kind: 'mortar', jointMm: IN / 4 },
-      segments: [{ kind: 'straight', lengthMm: 32 * IN }],
+      segments: [{ kind: 'straight', lengthMm: 32.5 * IN }],
       freeEnds: { start: false, end: false, top: false },
       exposure: 'exterior',
       wetArea: false,

@@ -3,6 +3,7 @@ import { bomSaveSchema, jobCreateSchema, jobQuerySchema, jobUpdateSchema, takeof
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { parseTakeoffBody, requestUnit } from '../http/takeoffValidate.js'
 import { saveBom } from '../services/counter/bomService.js'
 import { createJob, getJob, listJobs, updateJob } from '../services/counter/jobService.js'
 import { importTakeoff } from '../services/counter/takeoffImport.js'
@@ -31,7 +32,8 @@ export default (ctx: AppContext) =>
       path: '/:id/takeoffs',
       access: counter,
       status: 201,
-      handler: (req) => createTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseBody(takeoffSaveSchema, req.body)),
+      handler: (req) =>
+        createTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseTakeoffBody(takeoffSaveSchema, req.body, requestUnit(req.body, req.user?.unitPreference))),
     },
     {
       method: 'post',
@@ -52,6 +54,6 @@ export default (ctx: AppContext) =>
       access: counter,
       status: 201,
       handler: (req) =>
-        saveBom(ctx.ds, actorOf(req), id(req.params.id), parseBody(bomSaveSchema, req.body), req.user?.unitPreference ?? 'in'),
+        saveBom(ctx.ds, actorOf(req), id(req.params.id), parseTakeoffBody(bomSaveSchema, req.body, requestUnit(req.body, req.user?.unitPreference)), req.user?.unitPreference ?? 'in'),
     },
   ])

@@ -1,7 +1,7 @@
-// The admin's takeoff settings: material rules, waste allowances, and the role → item mapping.
+// The admin's takeoff settings: material rules, waste allowances, site figures, and the role → item mapping.
 // The counter may read them (the explanations quote them); only an admin changes them.
 import { z } from 'zod'
-import { roleItemInputSchema, ruleOverrideSchema, wasteUpdateSchema } from '../../shared/schemas/counter.js'
+import { roleItemInputSchema, ruleOverrideSchema, siteFiguresUpdateSchema, wasteUpdateSchema } from '../../shared/schemas/counter.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
@@ -9,12 +9,14 @@ import { idParam, parseBody } from '../http/validate.js'
 import {
   createRoleItem,
   deleteRoleItem,
+  getSiteFigures,
   getWaste,
   listRoleItems,
   listRules,
   resetRule,
   saveRule,
   updateRoleItem,
+  updateSiteFigures,
   updateWaste,
 } from '../services/counter/takeoffSettingsService.js'
 
@@ -39,6 +41,13 @@ export default (ctx: AppContext) =>
     { method: 'delete', path: '/rules/:key', access: admin, handler: (req) => resetRule(ctx.ds, actorOf(req), ruleKey(req.params.key)) },
     { method: 'get', path: '/waste', access: readers, handler: () => getWaste(ctx.ds) },
     { method: 'patch', path: '/waste', access: admin, handler: (req) => updateWaste(ctx.ds, actorOf(req), parseBody(wasteUpdateSchema, req.body)) },
+    { method: 'get', path: '/figures', access: readers, handler: () => getSiteFigures(ctx.ds) },
+    {
+      method: 'patch',
+      path: '/figures',
+      access: admin,
+      handler: (req) => updateSiteFigures(ctx.ds, actorOf(req), parseBody(siteFiguresUpdateSchema, req.body)),
+    },
     { method: 'get', path: '/role-items', access: readers, handler: () => listRoleItems(ctx.ds) },
     {
       method: 'post',

@@ -2,7 +2,8 @@
 import { computeRequestSchema, takeoffSaveSchema } from '../../shared/schemas/counter.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
-import { idParam, parseBody } from '../http/validate.js'
+import { idParam } from '../http/validate.js'
+import { parseTakeoffBody, requestUnit } from '../http/takeoffValidate.js'
 import { loadCounterCatalog } from '../services/counter/counterCatalog.js'
 import { computeBill } from '../services/counter/takeoffCompute.js'
 import { takeoffTemplate, takeoffTemplateCsv } from '../services/counter/takeoffImport.js'
@@ -21,8 +22,9 @@ export default (ctx: AppContext) =>
       path: '/compute',
       access: counter,
       handler: (req) => {
-        const { takeoff, unit } = parseBody(computeRequestSchema, req.body)
-        return computeBill(ctx.ds, takeoff, unit ?? req.user?.unitPreference ?? 'in')
+        const fallback = req.user?.unitPreference ?? 'in'
+        const { takeoff, unit } = parseTakeoffBody(computeRequestSchema, req.body, requestUnit(req.body, fallback))
+        return computeBill(ctx.ds, takeoff, unit ?? fallback)
       },
     },
     {
@@ -39,7 +41,8 @@ export default (ctx: AppContext) =>
       method: 'put',
       path: '/:id',
       access: counter,
-      handler: (req) => updateTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseBody(takeoffSaveSchema, req.body)),
+      handler: (req) =>
+        updateTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseTakeoffBody(takeoffSaveSchema, req.body, requestUnit(req.body, req.user?.unitPreference))),
     },
     { method: 'delete', path: '/:id', access: counter, handler: (req) => deleteTakeoff(ctx.ds, actorOf(req), id(req.params.id)) },
   ])

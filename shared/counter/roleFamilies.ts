@@ -5,7 +5,9 @@ export type MappedRole = Exclude<MaterialRole, 'block'>
 
 export const ROLE_FAMILIES: Record<MappedRole, readonly string[]> = {
   endBlock: ['glass_block'],
+  doubleEndBlock: ['glass_block'],
   cornerBlock: ['glass_block'],
+  angleBlock: ['glass_block'],
   spacer: ['spacer'],
   arcSpacer: ['arc_spacer', 'spacer'],
   spacerBase: ['spacer', 'accessory'],

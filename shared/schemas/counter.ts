@@ -8,12 +8,14 @@ import {
   materialFamilySchema,
   materialRoleSchema,
   materialRuleSchema,
+  siteFiguresSchema,
   takeoffSchema,
   type CatalogItem,
   type JointKind,
   type MaterialFamily,
   type MaterialRole,
   type MaterialRule,
+  type SiteFigures,
   type ThicknessClass,
 } from './takeoff.js'
 import type { BomExplanation, TakeoffTotals, WallResult } from '../takeoff/billOfMaterials.js'
@@ -129,6 +131,14 @@ export const ruleOverrideSchema = z.object({
 })
 export type RuleOverrideInput = z.infer<typeof ruleOverrideSchema>
 
+/** The admin's site figures: a number sets one, null puts it back to the default. */
+export const siteFiguresUpdateSchema = z.object(
+  Object.fromEntries(Object.entries(siteFiguresSchema.shape).map(([k, v]) => [k, v.nullable().optional()])) as {
+    [K in keyof typeof siteFiguresSchema.shape]: z.ZodOptional<z.ZodNullable<(typeof siteFiguresSchema.shape)[K]>>
+  },
+)
+export type SiteFiguresUpdateInput = z.infer<typeof siteFiguresUpdateSchema>
+
 export const wasteUpdateSchema = z.partialRecord(materialFamilySchema, z.number().nonnegative().max(100).nullable())
 export type WasteUpdateInput = z.infer<typeof wasteUpdateSchema>
 
@@ -227,6 +237,8 @@ export interface CounterCatalog {
   roleItems: RoleItemRecord[]
   rules: MaterialRule[]
   wastePct: Partial<Record<MaterialFamily, number>>
+  /** Site figures in force (grout depth, fixing spacing, leftover gap, base tolerance). */
+  figures: SiteFigures
   looseItems: LooseItemOption[]
 }
 

@@ -1,11 +1,15 @@
 // The takeoff as the contractor describes it: walls, a shower base and loose lines. The form and the
 // API validate with these same schemas; lengths are millimetres, quantities whole numbers.
 import { z } from 'zod'
+import { estimateWallBlocks, TAKEOFF_LIMITS } from '../takeoff/bounds.js'
 
+const L = TAKEOFF_LIMITS
 const mm = z.number().positive().max(1_000_000)
 // Caps keep a mistyped figure from freezing the live form; real panels are far smaller (R607.4).
-const wholeCount = z.number().int().positive().max(2_000)
-const courseCount = z.number().int().positive().max(500)
+/** A length on site: an opening, a height, a radius. Nobody builds a glass block run over 100 ft. */
+const siteMm = z.number().positive().max(L.lengthMm)
+const wholeCount = z.number().int().positive().max(L.blocksAcross)
+const courseCount = z.number().int().positive().max(L.courses)
 
 export const lengthUnitSchema = z.enum(['in', 'mm'])
 
@@ -14,9 +18,9 @@ export const thicknessClassSchema = z.enum(['standard', 'thin'])
 export const blockSpecSchema = z.object({
   /** Trade label such as `8x8` or `190x190`; the actual sizes below are what the math uses. */
   nominal: z.string().trim().min(1).max(40),
-  faceWidthMm: mm,
-  faceHeightMm: mm,
-  depthMm: mm,
+  faceWidthMm: z.number().min(L.blockFaceMinMm).max(L.blockFaceMaxMm),
+  faceHeightMm: z.number().min(L.blockFaceMinMm).max(L.blockFaceMaxMm),
+  depthMm: z.number().min(L.blockDepthMinMm).max(L.blockDepthMaxMm),
   thicknessClass: thicknessClassSchema,
   weightKg: z.number().positive().max(100),
   pattern: z.string().trim().max(60).optional(),
@@ -46,29 +50,41 @@ export const turnDirectionSchema = z.enum(['left', 'right'])
 export const straightSegmentSchema = z.object({
   kind: z.literal('straight'),
   /** Opening sizing: the rough opening length this segment fills. */
-  lengthMm: mm.optional(),
+  lengthMm: siteMm.optional(),
   /** Count sizing: blocks across in this segment. */
   blocks: wholeCount.optional(),
 })
+
+/**
+ * When whole blocks do not close the arc asked for: lay out at the radius where they close it exactly,
+ * use one block fewer with wider joints at the same radius, or keep the radius and build a little more arc.
+ */
+export const curveClosingSchema = z.enum(['radius', 'joints', 'overshoot'])
 
 export const curvedSegmentSchema = z
   .object({
     kind: z.literal('curved'),
     /** Radius of the circle through the blocks' inside corners (the layout line on the floor). */
-    insideRadiusMm: mm,
+    insideRadiusMm: siteMm,
     arcAngleDeg: z.number().positive().max(360).optional(),
     /** Length along the inside layout circle. */
-    arcLengthMm: mm.optional(),
+    arcLengthMm: siteMm.optional(),
     blocks: wholeCount.optional(),
     direction: turnDirectionSchema,
+    /** The clerk's choice when whole blocks overshoot the arc; saved with the takeoff. */
+    closing: curveClosingSchema.optional(),
   })
   .refine((s) => [s.arcAngleDeg, s.arcLengthMm, s.blocks].filter((v) => v !== undefined).length === 1, {
     message: 'Give the arc as exactly one of: angle, length along the inside, or blocks',
     path: ['arcAngleDeg'],
   })
 
-/** A 90° turn made with one corner block per course. */
-export const cornerSegmentSchema = z.object({ kind: z.literal('corner'), direction: turnDirectionSchema })
+/** A turn made with one corner unit per course: 90° (corner unit) or 45° (angle unit). */
+export const cornerSegmentSchema = z.object({
+  kind: z.literal('corner'),
+  direction: turnDirectionSchema,
+  angleDeg: z.union([z.literal(90), z.literal(45)]).optional(),
+})
 
 export const segmentSchema = z.discriminatedUnion('kind', [
   straightSegmentSchema,
@@ -79,7 +95,9 @@ export const segmentSchema = z.discriminatedUnion('kind', [
 export const materialRoleSchema = z.enum([
   'block',
   'endBlock',
+  'doubleEndBlock',
   'cornerBlock',
+  'angleBlock',
   'spacer',
   'arcSpacer',
   'spacerBase',
@@ -116,12 +134,14 @@ export const wallSchema = z
     name: z.string().trim().min(1).max(80),
     sizing: z.enum(['opening', 'count']),
     /** Opening sizing: rough opening height. */
-    heightMm: mm.optional(),
+    heightMm: siteMm.optional(),
     /** Count sizing: courses high. */
     courses: courseCount.optional(),
     block: blockSpecSchema,
+    /** Rectangular units set on end: the short side runs along the wall (tighter curves). */
+    blockOnEnd: z.boolean().optional(),
     joint: jointSystemSchema,
-    segments: z.array(segmentSchema).min(1).max(24),
+    segments: z.array(segmentSchema).min(1).max(L.segments),
     /** Exposed ends take end-finish blocks; a free top has no head to fix to. */
     freeEnds: z.object({ start: z.boolean(), end: z.boolean(), top: z.boolean() }),
     exposure: z.enum(['interior', 'exterior']),
@@ -138,6 +158,11 @@ export const wallSchema = z
     if (!opening && wall.courses === undefined) {
       ctx.addIssue({ code: 'custom', message: 'Count sizing needs the number of courses', path: ['courses'] })
     }
+    const size = estimateWallBlocks(wall)
+    if (size.blocks > L.blocksPerWall) {
+      const message = `About ${size.blocks} blocks (${size.across} across × ${size.courses} courses); a wall takes at most ${L.blocksPerWall}. Split it into panels.`
+      ctx.addIssue({ code: 'custom', message, path: ['segments'], params: { key: 'wall_too_large', ...size, limit: L.blocksPerWall } })
+    }
     wall.segments.forEach((segment, index) => {
       if (segment.kind !== 'straight') return
       if (opening && segment.lengthMm === undefined) {
@@ -151,10 +176,14 @@ export const wallSchema = z
 
 export const showerBaseSchema = z
   .object({
-    widthMm: mm,
-    depthMm: mm,
+    widthMm: siteMm,
+    depthMm: siteMm,
     /** Curved curb; omit for a straight curb. */
-    curb: z.object({ radiusMm: mm, arcDeg: z.number().positive().max(360) }).optional(),
+    curb: z.object({ radiusMm: siteMm, arcDeg: z.number().positive().max(360) }).optional(),
+    /** The wall the base carries (by name): its size is taken from that wall, or checked against it. */
+    wall: z.string().trim().min(1).max(80).optional(),
+    /** 'follow': footprint, curb radius and arc come from the wall as built; 'check': as entered, checked. */
+    fit: z.enum(['follow', 'check']).optional(),
     /** Drain centre measured from the back-left corner of the footprint. */
     drain: z.object({ fromLeftMm: z.number().nonnegative(), fromBackMm: z.number().nonnegative() }),
     entry: z.enum(['left', 'right', 'center']),
@@ -174,12 +203,23 @@ export const looseLineSchema = z.object({
   note: z.string().trim().max(300).optional(),
 })
 
-export const takeoffSchema = z.object({
-  name: z.string().trim().max(120).optional(),
-  walls: z.array(wallSchema).max(50),
-  looseLines: z.array(looseLineSchema).max(500),
-  showerBase: showerBaseSchema.optional(),
-})
+export const takeoffSchema = z
+  .object({
+    name: z.string().trim().max(120).optional(),
+    /** The unit this takeoff is read and printed in; the user's profile unit when absent. */
+    unit: lengthUnitSchema.optional(),
+    walls: z.array(wallSchema).max(L.walls),
+    looseLines: z.array(looseLineSchema).max(500),
+    showerBase: showerBaseSchema.optional(),
+  })
+  .superRefine((takeoff, ctx) => {
+    // Bounds before any layout is built: counted from the typed figures in a few steps per segment.
+    const blocks = takeoff.walls.reduce((sum, wall) => sum + estimateWallBlocks(wall).blocks, 0)
+    if (blocks > L.blocksPerTakeoff) {
+      const message = `About ${blocks} blocks in all; a takeoff takes at most ${L.blocksPerTakeoff}. Split the job into several takeoffs.`
+      ctx.addIssue({ code: 'custom', message, path: ['walls'], params: { key: 'takeoff_too_large', blocks, limit: L.blocksPerTakeoff } })
+    }
+  })
 
 // Material rules are data so an admin can edit them later; measures are what a wall's layout yields.
 export const materialFamilySchema = z.enum([
@@ -198,7 +238,9 @@ export const materialFamilySchema = z.enum([
 export const countMeasureSchema = z.enum([
   'standardBlocks',
   'endBlocks',
+  'doubleEndBlocks',
   'cornerBlocks',
+  'angleBlocks',
   'interiorIntersectionsStraight',
   'interiorIntersectionsCurved',
   'edgeIntersectionsStraight',
@@ -212,6 +254,7 @@ export const countMeasureSchema = z.enum([
 export const lengthMeasureSchema = z.enum([
   'bottomRunMm',
   'sectionTopsMm',
+  'sectionSeamsMm',
   'jambLengthMm',
   'headLengthMm',
   'reinforcedJointLengthMm',
@@ -230,6 +273,10 @@ const ruleBase = {
   source: z.string().max(200),
   /** Skip the line when no catalog item fills the role (e.g. a service not every supplier sells). */
   optional: z.boolean().optional(),
+  /** Applies to walls marked as a wet area only (showers). */
+  wetAreaOnly: z.boolean().optional(),
+  /** When no item fills the role, the item of this role stands in (its line says so). */
+  fallbackRole: materialRoleSchema.optional(),
 }
 
 export const materialRuleSchema = z.discriminatedUnion('method', [
@@ -273,15 +320,29 @@ export const sectionOptionsSchema = z
   })
   .refine((o) => o.minBlocks <= o.maxBlocks, { message: 'The smallest section must not exceed the largest' })
 
+/**
+ * Site figures a maker's instructions may set differently; an admin edits them under takeoff settings.
+ * Each has a default with its source (shared/takeoff/siteFigures.ts).
+ */
+export const siteFiguresSchema = z.object({
+  /** Grout filled into each face joint, from the face to the spacer. */
+  groutDepthMm: z.number().positive().max(50),
+  /** Anchors or screws along fixed jambs and heads at most this far apart, centre to centre. */
+  fixingSpacingMm: z.number().min(100).max(1000),
+  /** Space left at a jamb or head after whole blocks that earns a warning. */
+  leftoverWarnMm: z.number().positive().max(300),
+  /** How far a shower base may differ from the wall it carries before saving for ordering is stopped. */
+  baseToleranceMm: z.number().positive().max(100),
+  baseToleranceDeg: z.number().positive().max(20),
+})
+
 export const takeoffOptionsSchema = z.object({
   unit: lengthUnitSchema,
   rules: z.array(materialRuleSchema).optional(),
   wastePct: wastePctSchema.optional(),
   sections: sectionOptionsSchema.optional(),
-  screwsPerJambContact: z.number().int().nonnegative().max(20).optional(),
-  anchorSpacingMm: mm.optional(),
+  figures: siteFiguresSchema.partial().optional(),
   reinforcementSpacingMm: mm.optional(),
-  groutDepthMm: mm.optional(),
 })
 
 export type LengthUnitName = z.infer<typeof lengthUnitSchema>
@@ -292,6 +353,8 @@ export type JointSystem = z.infer<typeof jointSystemSchema>
 export type TurnDirection = z.infer<typeof turnDirectionSchema>
 export type StraightSegment = z.infer<typeof straightSegmentSchema>
 export type CurvedSegment = z.infer<typeof curvedSegmentSchema>
+export type CurveClosing = z.infer<typeof curveClosingSchema>
+export type SiteFigures = z.infer<typeof siteFiguresSchema>
 export type CornerSegment = z.infer<typeof cornerSegmentSchema>
 export type Segment = z.infer<typeof segmentSchema>
 export type MaterialRole = z.infer<typeof materialRoleSchema>

@@ -2,12 +2,14 @@
 // rule, formula, rounding). Pure and deterministic, so the client runs it as the user types and the
 // server runs the same code when it saves.
 import type {
+  BlockSpec,
   CatalogItem,
   CatalogMap,
   MaterialFamily,
   MaterialRole,
   MaterialRule,
   Takeoff,
+  SiteFigures,
   TakeoffOptions,
   Wall,
 } from '../schemas/takeoff.js'
@@ -15,13 +17,14 @@ import { materialRoleSchema } from '../schemas/takeoff.js'
 import { CLOSING_CAUTION, showerBaseCautions, wallCautions, withClosingLine, type Caution } from './cautions.js'
 import type { CurveLayout } from './curve.js'
 import { buildWallDrawing, type WallDrawing } from './drawing.js'
-import { jambScrews, panelAnchors, reinforcedBedJoints, type Fixing } from './fasteners.js'
+import { edgeFixings, reinforcedBedJoints, type Fixing } from './fasteners.js'
 import { defaultMaterialRules, evaluateRule, roleLabels, wasteFor, type RuleNeed } from './materials.js'
 import { roundUpToStock } from './packRounding.js'
 import { planSections, type SectionPlan } from './sections.js'
+import { fitShowerBase, showerBaseLine, type ShowerBaseFit } from './showerBaseLine.js'
+import { siteFigures } from './siteFigures.js'
 import { measureWall, type WallMeasures } from './wallMeasures.js'
 import { isWallRefusal, layoutWall, type WallGeometry } from './wallLayout.js'
-import { showerBaseLine } from './showerBaseLine.js'
 
 export interface BomExplanation {
   inputs: Record<string, string | number>
@@ -50,10 +53,13 @@ export interface BomLine {
 export interface WallResultOk {
   status: 'ok'
   name: string
+  /** The block as laid (a unit set on end has its faces swapped). */
+  block: BlockSpec
   geometry: WallGeometry
   curve?: CurveLayout[]
   sections: SectionPlan
-  drawing: WallDrawing
+  /** The drawing model; left out of a lean computation (the compute endpoint's answer). */
+  drawing?: WallDrawing
   measures: WallMeasures
   fixings: Fixing[]
   cautions: Caution[]
@@ -63,6 +69,9 @@ export interface WallResultRefused {
   status: 'refused'
   name: string
   reason: string
+  /** The refusal's stable name and figures (lengths in mm), for screens to word in any language and unit. */
+  key: string
+  params: Record<string, string | number>
   smallestRadiusMm?: number
   cautions: Caution[]
 }
@@ -85,52 +94,87 @@ export interface TakeoffResult {
   lines: BomLine[]
   cautions: Caution[]
   totals: TakeoffTotals
+  /** The made-to-order base as it will be ordered: its true size, and whether it fits its wall. */
+  showerBase?: ShowerBaseFit
 }
 
-export type ComputeOptions = Partial<TakeoffOptions>
+export type ComputeOptions = Partial<TakeoffOptions> & {
+  /** 'lean' skips the drawing models: the bill and cautions only (the server's compute answer). */
+  detail?: 'full' | 'lean'
+}
 
-interface Contribution { wall: string; need: RuleNeed; rule: MaterialRule; item?: CatalogItem }
+interface Contribution { wall: string; need: RuleNeed; rule: MaterialRule; item?: CatalogItem; role: MaterialRole; standIn?: boolean }
 interface Pending { role: MaterialRole; family: MaterialFamily; item?: CatalogItem; parts: Contribution[] }
 
-function rulesFor(wall: Wall, options: ComputeOptions): MaterialRule[] {
-  return (options.rules ?? defaultMaterialRules).filter((r) => r.systems.includes(wall.joint.kind))
+function rulesFor(wall: Wall, rules: MaterialRule[]): MaterialRule[] {
+  return rules.filter((r) => r.systems.includes(wall.joint.kind) && (!r.wetAreaOnly || wall.wetArea))
 }
 
-function computeWall(wall: Wall, catalog: CatalogMap, options: ComputeOptions): { result: WallResult; needs: Contribution[] } {
+/** A rectangular unit set on end: its short side runs along the wall. */
+function laidBlock(wall: Wall): Wall {
+  if (!wall.blockOnEnd) return wall
+  return { ...wall, block: { ...wall.block, faceWidthMm: wall.block.faceHeightMm, faceHeightMm: wall.block.faceWidthMm } }
+}
+
+/** The item for a rule's role, or its stand-in role's item when the catalog has none (said on the line). */
+function itemFor(rule: MaterialRule, wall: Wall, catalog: CatalogMap): { item?: CatalogItem; role: MaterialRole; standIn: boolean } {
+  const own = wall.catalog?.[rule.role] ?? catalog[rule.role]
+  if (own || !rule.fallbackRole) return { item: own, role: rule.role, standIn: false }
+  const standIn = wall.catalog?.[rule.fallbackRole] ?? catalog[rule.fallbackRole]
+  return standIn ? { item: standIn, role: rule.fallbackRole, standIn: true } : { item: undefined, role: rule.role, standIn: false }
+}
+
+/**
+ * Section plans of one computation by wall shape: a job's walls of the same size and block (a row of
+ * identical windows) are planned once. The plan depends on nothing else in a computation.
+ */
+type SectionMemo = Map<string, SectionPlan>
+
+function sectionsFor(memo: SectionMemo, wall: { columns: number; courses: number; curved: boolean; blockWeightKg: number }, options: ComputeOptions): SectionPlan {
+  const key = `${wall.columns}|${wall.courses}|${wall.curved}|${wall.blockWeightKg}`
+  let plan = memo.get(key)
+  if (!plan) memo.set(key, (plan = planSections(wall, options.sections)))
+  return plan
+}
+
+/** What every wall of one computation shares: its options, site figures, rules and section plans. */
+interface WallContext { options: ComputeOptions; figures: SiteFigures; rules: MaterialRule[]; memo: SectionMemo }
+
+function computeWall(entered: Wall, catalog: CatalogMap, ctx: WallContext): { result: WallResult; needs: Contribution[] } {
+  const { options, figures, memo } = ctx
   const unit = options.unit ?? 'in'
+  const wall = laidBlock(entered)
   const geometry = layoutWall(wall, unit)
   if (isWallRefusal(geometry)) {
-    const cautions = withClosingLine([{ level: 'stop', message: geometry.reason, wall: wall.name }])
-    const { reason, smallestRadiusMm } = geometry
-    return { result: { status: 'refused', name: wall.name, reason, smallestRadiusMm, cautions }, needs: [] }
+    const { reason, smallestRadiusMm, key, params } = geometry
+    const cautions = withClosingLine([{ level: 'stop', message: reason, wall: wall.name, key, params }])
+    return { result: { status: 'refused', name: wall.name, reason, key, params, smallestRadiusMm, cautions }, needs: [] }
   }
-  const plan = planSections(
-    { columns: geometry.blocksAcross, courses: geometry.courses, curved: geometry.hasCurve, blockWeightKg: wall.block.weightKg },
-    options.sections,
-  )
-  const anchors = panelAnchors(geometry, wall.freeEnds, options.anchorSpacingMm)
-  const screws = geometry.joint.kind === 'spacer' ? jambScrews(geometry, plan, wall.freeEnds, options.screwsPerJambContact) : []
+  const plan = sectionsFor(memo, { columns: geometry.blocksAcross, courses: geometry.courses, curved: geometry.hasCurve, blockWeightKg: wall.block.weightKg }, options)
+  const fixings = edgeFixings(geometry, wall.freeEnds, figures.fixingSpacingMm)
   const reinforcedJoints = reinforcedBedJoints(geometry, options.reinforcementSpacingMm)
   const measured = measureWall({
-    geometry, plan, anchors, screws, reinforcedJoints, blockDepthMm: wall.block.depthMm, groutDepthMm: options.groutDepthMm,
+    geometry, plan, fixings, reinforcedJoints, blockDepthMm: wall.block.depthMm,
+    groutDepthMm: figures.groutDepthMm, fixingSpacingMm: figures.fixingSpacingMm,
   })
-  const fixings = [...anchors, ...screws]
   const curve = geometry.segments.flatMap((s) => (s.kind === 'curved' ? [s.curve] : []))
+  const needs = rulesFor(wall, ctx.rules).map((rule): Contribution => {
+    const { item, role, standIn } = itemFor(rule, wall, catalog)
+    return { wall: wall.name, rule, item, role, standIn, need: evaluateRule(rule, measured, item) }
+  })
+  const standIns = needs.filter((c) => c.standIn && c.need.demand > 0)
   const result: WallResultOk = {
     status: 'ok',
     name: wall.name,
+    block: wall.block,
     geometry,
     curve: curve.length > 0 ? curve : undefined,
     sections: plan,
-    drawing: buildWallDrawing({ wall, geometry, plan, fixings, unit }),
+    drawing: options.detail === 'lean' ? undefined : buildWallDrawing({ wall, geometry, plan, fixings, unit }),
     measures: measured.measures,
     fixings,
-    cautions: wallCautions({ wall, geometry, plan, fixings: fixings.length, unit }),
+    cautions: wallCautions({ wall, geometry, plan, fixings, unit, figures, standIns: standIns.map((c) => c.rule.role) }),
   }
-  const needs = rulesFor(wall, options).map((rule) => {
-    const item = wall.catalog?.[rule.role] ?? catalog[rule.role]
-    return { wall: wall.name, rule, item, need: evaluateRule(rule, measured, item) }
-  })
   return { result, needs }
 }
 
@@ -138,12 +182,14 @@ function computeWall(wall: Wall, catalog: CatalogMap, options: ComputeOptions): 
 function groupNeeds(walls: Wall[], options: ComputeOptions, catalog: CatalogMap) {
   const pending = new Map<string, Pending>()
   const results: WallResult[] = []
+  const ctx: WallContext = { options, figures: siteFigures(options.figures), rules: options.rules ?? defaultMaterialRules, memo: new Map() }
   for (const wall of walls) {
-    const { result, needs } = computeWall(wall, catalog, options)
+    const { result, needs } = computeWall(wall, catalog, ctx)
     results.push(result)
     for (const c of needs) {
-      const key = `${c.rule.role}|${c.item?.sku ?? ''}`
-      const entry = pending.get(key) ?? { role: c.rule.role, family: c.rule.family, item: c.item, parts: [] }
+      // A stand-in joins the line of the item it borrows, so one item is rounded once.
+      const key = `${c.role}|${c.item?.sku ?? ''}`
+      const entry = pending.get(key) ?? { role: c.role, family: c.rule.family, item: c.item, parts: [] }
       entry.parts.push(c)
       pending.set(key, entry)
     }
@@ -151,15 +197,49 @@ function groupNeeds(walls: Wall[], options: ComputeOptions, catalog: CatalogMap)
   return { pending, results }
 }
 
+/** Walls whose working a line lists one by one; a longer job lists these and sums the rest. */
+export const EXPLAINED_WALLS = 8
+
+/** Numeric inputs summed across parts (lengths, counts, volumes); other values as the first part gave them. */
+const SUMMED = /Mm$|Ml$|Blocks$|Intersections|Ft$|^sections$|Screws$|Anchors$/
+const summable = new Map<string, boolean>()
+
+function summedInputs(parts: Contribution[]): Record<string, string | number> {
+  const out: Record<string, string | number> = {}
+  for (const p of parts) {
+    for (const k in p.need.inputs) {
+      const v = p.need.inputs[k]
+      const before = out[k]
+      let sum = summable.get(k)
+      if (sum === undefined) summable.set(k, (sum = SUMMED.test(k) && !/^(piece|lap|bead|cartridge)/.test(k)))
+      if (before === undefined) out[k] = v
+      else if (sum && typeof v === 'number' && typeof before === 'number') out[k] = before + v
+    }
+  }
+  for (const k in out) if (typeof out[k] === 'number') out[k] = Number((out[k] as number).toFixed(3))
+  return out
+}
+
 function explanationOf(entry: Pending): Omit<BomExplanation, 'rounding'> {
-  const many = new Set(entry.parts.map((p) => p.wall)).size > 1
+  const walls = [...new Set(entry.parts.map((p) => p.wall))]
+  const many = walls.length > 1
+  const shown = new Set(walls.slice(0, EXPLAINED_WALLS))
+  const detailed = entry.parts.filter((p) => shown.has(p.wall))
+  const rest = entry.parts.filter((p) => !shown.has(p.wall))
   const inputs: Record<string, string | number> = {}
-  for (const p of entry.parts) {
+  for (const p of detailed) {
     for (const [k, v] of Object.entries(p.need.inputs)) inputs[many ? `${p.wall} · ${k}` : k] = v
   }
-  const rules = [...new Map(entry.parts.map((p) => [p.rule.id, `${p.rule.note} (${p.rule.source})`])).values()]
+  if (rest.length > 0) {
+    const others = `${walls.length - shown.size} other walls`
+    for (const [k, v] of Object.entries(summedInputs(rest))) inputs[`${others} · ${k}`] = v
+  }
+  const standIn = (p: Contribution) => (p.standIn ? ` No ${roleLabels[p.rule.role].toLowerCase()} is in the catalog for this block: this item stands in.` : '')
+  const rules = [...new Map(entry.parts.map((p) => [p.rule.id, `${p.rule.note} (${p.rule.source})${standIn(p)}`])).values()]
   const total = entry.parts.reduce((s, p) => s + p.need.needed, 0)
-  const formula = entry.parts.map((p) => (many ? `${p.wall}: ${p.need.formula}` : p.need.formula)).join('; ')
+  const restTotal = rest.reduce((s, p) => s + p.need.needed, 0)
+  const formula = detailed.map((p) => (many ? `${p.wall}: ${p.need.formula}` : p.need.formula)).join('; ') +
+    (rest.length > 0 ? `; ${walls.length - shown.size} other walls: ${Number(restTotal.toFixed(3))}` : '')
   return { inputs, rule: rules.join(' '), formula: many ? `${formula}; total ${Number(total.toFixed(3))}` : formula }
 }
 
@@ -224,6 +304,29 @@ function totalsOf(walls: WallResult[], lines: BomLine[], cautions: Caution[], ta
   }
 }
 
+/** Walls named on one caution before the rest are counted. */
+const NAMED_WALLS = 3
+
+/**
+ * The same caution from several walls once, naming the walls ("Bath, Hall, Stair and 4 more"): a job of
+ * many alike walls reads as a few cautions, not hundreds. Each wall's result keeps its own list.
+ */
+function mergeWallCautions(list: Caution[]): Caution[] {
+  const byText = new Map<string, { caution: Caution; walls: string[] }>()
+  for (const c of list) {
+    const key = `${c.level}|${c.code ?? ''}|${c.key ?? ''}|${c.message}`
+    const found = byText.get(key)
+    if (found) {
+      if (c.wall && !found.walls.includes(c.wall)) found.walls.push(c.wall)
+    } else byText.set(key, { caution: c, walls: c.wall ? [c.wall] : [] })
+  }
+  return [...byText.values()].map(({ caution, walls }) => {
+    if (walls.length <= 1) return caution
+    const named = walls.slice(0, NAMED_WALLS).join(', ')
+    return { ...caution, wall: walls.length > NAMED_WALLS ? `${named} and ${walls.length - NAMED_WALLS} more` : named }
+  })
+}
+
 /**
  * Walls to an explained bill of materials. `catalog` maps each material role to the stock item that fills
  * it (a wall's own `catalog` overrides it); unmapped roles still get a line, flagged with an issue.
@@ -234,15 +337,17 @@ export function computeTakeoff(takeoff: Takeoff, catalog: CatalogMap = {}, optio
     (a, b) => ROLE_ORDER.indexOf(a.role) - ROLE_ORDER.indexOf(b.role) || (a.item?.sku ?? '').localeCompare(b.item?.sku ?? ''),
   )
   const wallLines = ordered.map((e) => lineOf(e, options)).filter((l): l is BomLine => l !== undefined)
-  const base = showerBaseLine(takeoff.showerBase, catalog.showerBase)
+  const unit = options.unit ?? 'in'
+  const baseFit = takeoff.showerBase ? fitShowerBase(takeoff, results, siteFigures(options.figures), unit) : undefined
+  const base = baseFit ? showerBaseLine(baseFit, catalog.showerBase, unit) : undefined
   const lines = [...wallLines, ...(base ? [base] : []), ...looseLines(takeoff)]
   const issues: Caution[] = lines
     .filter((l) => l.issue)
     .map((l) => ({ level: 'warn', message: `${l.name}: ${l.issue}; the quantity cannot be ordered until it is fixed.` }))
   const cautions = withClosingLine([
-    ...results.flatMap((w) => w.cautions.filter((c) => c !== CLOSING_CAUTION)),
-    ...showerBaseCautions(takeoff.showerBase),
+    ...mergeWallCautions(results.flatMap((w) => w.cautions.filter((c) => c !== CLOSING_CAUTION))),
+    ...showerBaseCautions(takeoff.showerBase, baseFit, unit),
     ...issues,
   ])
-  return { walls: results, lines, cautions, totals: totalsOf(results, lines, cautions, takeoff) }
+  return { walls: results, lines, cautions, totals: totalsOf(results, lines, cautions, takeoff), ...(baseFit ? { showerBase: baseFit } : {}) }
 }

@@ -1,19 +1,29 @@
 // Safety and code cautions shown beside a takeoff. Code limits come from the glass unit masonry section of
 // the International Residential Code (R607, 2021 edition); the rest is trade practice. Every list ends by
 // deferring to local codes and licensed practice.
-import type { BlockSpec, ShowerBase, Wall } from '../schemas/takeoff.js'
+import type { BlockSpec, ShowerBase, SiteFigures, Wall } from '../schemas/takeoff.js'
 import { formatLength, ft2ToM2, kgToPounds, MM_PER_FOOT, MM_PER_INCH, type LengthUnit } from '../units.js'
 import { JOINT_FACTS } from './geometry.js'
+import { largestGap, type Fixing } from './fasteners.js'
 import type { SectionPlan } from './sections.js'
+import type { ShowerBaseFit } from './showerBaseLine.js'
 import type { WallGeometry } from './wallLayout.js'
 
 export type CautionLevel = 'stop' | 'warn' | 'info'
 
 export interface Caution {
   level: CautionLevel
+  /** The code section or standard it rests on (IRC 2021 R607.4.1 …), shown beside it. */
   code?: string
+  /** English text, for logs, exports and screens without a translation. */
   message: string
   wall?: string
+  /**
+   * A stable name and the figures in it (lengths in mm, angles in degrees), so a screen can word the
+   * caution in the reader's language and unit.
+   */
+  key?: string
+  params?: Record<string, string | number>
 }
 
 export const CLOSING_CAUTION: Caution = {
@@ -137,9 +147,85 @@ export function curveCautions(wall: Wall, g: WallGeometry, unit: LengthUnit): Ca
   const where = inflections > 0 ? ` and at each of the ${inflections} point(s) where the curve reverses.` : ' and at any point where the curve reverses.'
   const out = [caution('warn', `Curved panels keep the same size limits and need support where the curve meets a straight run${where}`, 'IRC 2021 R607.4.4')]
   for (const s of g.segments) {
-    if (s.kind !== 'curved' || s.curve.radiusForExactArcMm === undefined) continue
-    const angles = `${s.blocks} blocks turn ${s.curve.builtAngleDeg.toFixed(1)}° against ${s.curve.requestedAngleDeg.toFixed(1)}° asked`
-    out.push(caution('info', `Segment ${s.index + 1}: ${angles}; an inside radius of ${formatLength(s.curve.radiusForExactArcMm, unit)} closes the arc exactly.`))
+    if (s.kind !== 'curved' || !s.curve.closings) continue
+    const c = s.curve
+    const over = c.closings?.find((o) => o.closing === 'overshoot')
+    const params = {
+      segment: s.index + 1,
+      requestedDeg: Number(c.requestedAngleDeg.toFixed(1)),
+      blocks: over?.blocks ?? c.blocks,
+      builtDeg: Number((over?.builtAngleDeg ?? c.builtAngleDeg).toFixed(1)),
+      radiusMm: c.insideRadiusMm,
+      closing: c.closing ?? 'overshoot',
+    }
+    if (!c.closingChosen) {
+      const message = `Segment ${s.index + 1}: ${params.blocks} whole blocks build ${params.builtDeg}° against the ${params.requestedDeg}° asked. ` +
+        'Choose how to close the arc: another radius, one block fewer with wider joints, or keep the radius and the extra arc.'
+      out.push({ ...caution('warn', message), key: 'curve_closing_choose', params })
+    } else {
+      const message = `Segment ${s.index + 1}: ${c.blocks} blocks at an inside radius of ${formatLength(c.insideRadiusMm, unit)} build ${c.builtAngleDeg.toFixed(1)}°, as chosen.`
+      out.push({ ...caution('info', message), key: 'curve_closing_chosen', params: { ...params, blocks: c.blocks, builtDeg: Number(c.builtAngleDeg.toFixed(1)) } })
+    }
+  }
+  return out
+}
+
+/** More space than the set gap left at a jamb or head (or in a segment) after whole blocks. */
+export function leftoverCautions(g: WallGeometry, figures: SiteFigures, unit: LengthUnit): Caution[] {
+  return g.gaps
+    .filter((gap) => gap.gapMm > figures.leftoverWarnMm + 1e-9)
+    .map((gap) => {
+      const where = gap.where === 'jambs' ? 'at each jamb' : gap.where === 'head' ? 'at the head' : `in segment ${(gap.segment ?? 0) + 1}`
+      const message = `${formatLength(gap.gapMm, unit)} is left ${where} after whole blocks, more than ${formatLength(figures.leftoverWarnMm, unit)}. ` +
+        `Use the next block size, fill it with a filler or framing, or change the opening to ${formatLength(gap.openingForBlocksMm, unit)} ` +
+        `(${gap.blocks}) or ${formatLength(gap.openingForOneMoreMm, unit)} (${gap.blocks + 1}).`
+      const params = {
+        where: gap.where,
+        segment: (gap.segment ?? 0) + 1,
+        gapMm: gap.gapMm,
+        limitMm: figures.leftoverWarnMm,
+        blocks: gap.blocks,
+        blocksMore: gap.blocks + 1,
+        openingMm: gap.openingForBlocksMm,
+        openingOneMoreMm: gap.openingForOneMoreMm,
+      }
+      return { ...caution('warn', message), key: 'leftover_space', params }
+    })
+}
+
+/** Every fixed edge's fixings no more than the spacing apart; blocks larger than the spacing cannot keep it. */
+export function fixingCautions(g: WallGeometry, fixings: Fixing[], figures: SiteFigures, unit: LengthUnit): Caution[] {
+  const edges: { side: Fixing['side']; length: number; along: (f: Fixing) => number; fixed: boolean }[] = [
+    { side: 'start', length: g.panelHeightMm, along: (f) => f.yMm, fixed: true },
+    { side: 'end', length: g.panelHeightMm, along: (f) => f.yMm, fixed: true },
+    { side: 'head', length: g.panelWidthMm, along: (f) => f.xMm, fixed: g.headFramed },
+  ]
+  const out: Caution[] = []
+  for (const edge of edges) {
+    const on = fixings.filter((f) => f.side === edge.side)
+    if (on.length === 0 || !edge.fixed) continue
+    const gap = largestGap(on.map(edge.along), edge.length)
+    if (gap > figures.fixingSpacingMm + 1e-6) {
+      const message = `Fixings along the ${edge.side === 'head' ? 'head' : `${edge.side} jamb`} can only sit in the joints, ` +
+        `${formatLength(gap, unit)} apart, more than the ${formatLength(figures.fixingSpacingMm, unit)} asked: ask the maker for this block size.`
+      out.push({ ...caution('warn', message), key: 'fixing_gap', params: { side: edge.side, gapMm: gap, limitMm: figures.fixingSpacingMm } })
+    }
+  }
+  return out
+}
+
+const ROLE_WORDS: Record<string, string> = { doubleEndBlock: 'unit finished on two edges', endBlock: 'unit finished on one edge' }
+
+/** Exposed edges no unit covers, and units standing in for ones the catalog lacks (roles by name). */
+export function finishCautions(g: WallGeometry, standIns: string[]): Caution[] {
+  const out: Caution[] = []
+  if (g.finished.uncovered > 0) {
+    const message = `${g.finished.uncovered} exposed edge(s) stay unfinished: a one-block-wide column free on both sides and on top shows three edges.`
+    out.push({ ...caution('warn', message), key: 'edges_unfinished', params: { edges: g.finished.uncovered } })
+  }
+  for (const role of standIns) {
+    const message = `No ${ROLE_WORDS[role] ?? role} is in the catalog for this block; units finished on one edge stand in, so one edge of each stays unfinished.`
+    out.push({ ...caution('warn', message), key: 'finished_stand_in', params: { role } })
   }
   return out
 }
@@ -159,9 +245,39 @@ export function wetAreaCautions(wall: Wall): Caution[] {
   return [caution('info', message)]
 }
 
-export function showerBaseCautions(base: ShowerBase | undefined): Caution[] {
+const MISMATCH_WORDS = { footprint: 'footprint', curbRadius: 'curb radius', curbArc: 'curb arc', curbShape: 'curb' } as const
+
+function baseFitCautions(fit: ShowerBaseFit, unit: LengthUnit): Caution[] {
+  const out: Caution[] = []
+  if (fit.wallProblem === 'missing') {
+    const message = `The shower base is set to carry “${fit.wall}”, which is not in this takeoff: choose the wall it carries.`
+    out.push({ ...caution('stop', message), key: 'base_wall_missing', params: { wall: fit.wall ?? '' } })
+  }
+  if (fit.mismatches.length > 0 && fit.fromWall) {
+    const show = (m: (typeof fit.mismatches)[number]) => {
+      const value = (v: number | string) =>
+        typeof v === 'number' && m.field === 'curbRadius' ? formatLength(v, unit) : typeof v === 'number' && m.field === 'curbArc' ? `${v}°` : String(v)
+      return `${MISMATCH_WORDS[m.field]} ${value(m.entered)} entered, ${value(m.wall)} for the wall`
+    }
+    const message = `The shower base does not fit ${fit.wall} as built (${fit.mismatches.map(show).join('; ')}). ` +
+      'Let the base follow the wall, or change the wall or the base, before the bill is saved for ordering.'
+    out.push({ ...caution('stop', message), wall: fit.wall, key: 'base_mismatch', params: { wall: fit.wall ?? '', fields: fit.mismatches.map((m) => m.field).join(',') } })
+  }
+  if (fit.drainOutside) {
+    const message = 'The drain falls outside the footprint the base is made to: move the drain before the bill is saved for ordering.'
+    out.push({ ...caution('stop', message), key: 'base_drain_outside', params: { widthMm: fit.base.widthMm, depthMm: fit.base.depthMm } })
+  }
+  if (fit.fit === 'none') {
+    const message = 'Choose the wall the shower base carries, so its curb and footprint are taken from the wall, or checked against it.'
+    out.push({ ...caution('warn', message), key: 'base_no_wall', params: {} })
+  }
+  return out
+}
+
+export function showerBaseCautions(base: ShowerBase | undefined, fit: ShowerBaseFit | undefined, unit: LengthUnit): Caution[] {
   if (!base) return []
   const out = [
+    ...(fit ? baseFitCautions(fit, unit) : []),
     caution('info', 'The shower base is made to order: confirm the footprint, curb, drain position and entry side on site ' +
       'before ordering; it cannot be returned to stock.'),
     caution('info', 'The floor must slope to the drain and be waterproofed under the base and up the walls.'),
@@ -205,20 +321,26 @@ export interface WallCautionInput {
   wall: Wall
   geometry: WallGeometry
   plan: SectionPlan
-  fixings: number
+  fixings: Fixing[]
   unit: LengthUnit
+  figures: SiteFigures
+  /** Roles whose units are missing from the catalog, with a stand-in used. */
+  standIns?: string[]
 }
 
 /** All cautions for one wall, closing line included. */
-export function wallCautions({ wall, geometry, plan, fixings, unit }: WallCautionInput): Caution[] {
+export function wallCautions({ wall, geometry, plan, fixings, unit, figures, standIns = [] }: WallCautionInput): Caution[] {
   const list = [
     ...thicknessCautions(wall.block, unit),
     ...panelLimitCautions(wall, geometry, unit),
     ...jointCautions(geometry, unit),
     ...curveCautions(wall, geometry, unit),
+    ...leftoverCautions(geometry, figures, unit),
+    ...fixingCautions(geometry, fixings, figures, unit),
+    ...finishCautions(geometry, standIns),
     ...endCautions(wall),
     ...wetAreaCautions(wall),
-    ...workCautions(geometry, plan, fixings),
+    ...workCautions(geometry, plan, fixings.length),
   ]
   return withClosingLine(list.map((c) => ({ ...c, wall: wall.name })))
 }

@@ -4,8 +4,8 @@
 //   outside joint    jo = ji + 2·t·sin(θ / 2)          (the small-angle form is jo ≈ ji + t·θ)
 //   radius from θ    d = (ji + w·cos(θ/2)) / (2·sin(θ/2)),  R = √(d² + (w/2)²)
 // where d is the distance from the centre to a block's inside face.
-import type { BlockSpec, CurvedSegment, TurnDirection } from '../schemas/takeoff.js'
-import { formatLength, type LengthUnit } from '../units.js'
+import type { BlockSpec, CurveClosing, CurvedSegment, TurnDirection } from '../schemas/takeoff.js'
+import { formatLength, MM_PER_INCH, type LengthUnit } from '../units.js'
 import { FIT_TOLERANCE, type ResolvedJoint } from './geometry.js'
 
 const DEG = 180 / Math.PI
@@ -58,6 +58,16 @@ export function minInsideRadiusMm(
   return radiusForAnglePerBlock(faceWidthMm, insideJointMm, theta)
 }
 
+/**
+ * A starting radius a block can turn, for a new curved segment: 60 in, or the block's smallest inside
+ * radius rounded up to the next whole inch when that is larger (an 8x8 unit with 1/8 in inside and 5/8 in
+ * outside joints needs 61 1/16 in, so it starts at 62 in).
+ */
+export function workableRadiusMm(faceWidthMm: number, depthMm: number, joint: ResolvedJoint): number {
+  const smallest = minInsideRadiusMm(faceWidthMm, depthMm, joint.curveInsideJointMm, joint.maxOutsideJointMm)
+  return Math.max(60, Math.ceil(smallest / MM_PER_INCH - 1e-9)) * MM_PER_INCH
+}
+
 /** Small-angle estimate from arc lengths: R ≈ (w + ji)·t / (jo − ji). */
 export function approxMinInsideRadiusMm(
   faceWidthMm: number,
@@ -68,10 +78,24 @@ export function approxMinInsideRadiusMm(
   return ((faceWidthMm + insideJointMm) * depthMm) / (maxOutsideJointMm - insideJointMm)
 }
 
+/** One way to close the arc asked for when whole blocks do not close it at the radius given. */
+export interface CurveClosingOption {
+  closing: CurveClosing
+  blocks: number
+  insideRadiusMm: number
+  insideJointMm: number
+  outsideJointMm: number
+  builtAngleDeg: number
+  /** False when the joints would pass their limits (one block fewer can open them too far). */
+  withinLimits: boolean
+}
+
 export interface CurveLayout {
   ok: true
   direction: TurnDirection
+  /** The radius the blocks are laid to: the one entered, or the one that closes the arc exactly. */
   insideRadiusMm: number
+  enteredRadiusMm: number
   outsideRadiusMm: number
   insideJointMm: number
   outsideJointMm: number
@@ -85,8 +109,12 @@ export interface CurveLayout {
   builtAngleDeg: number
   /** How far the whole-block arc runs past the one asked for. */
   overshootDeg: number
-  /** Radius at which the same blocks close the asked arc exactly (only when rounding added some). */
-  radiusForExactArcMm?: number
+  /** The ways to close the asked arc, when whole blocks at the entered radius overshoot it. */
+  closings?: CurveClosingOption[]
+  /** The way applied: the clerk's choice, or 'overshoot' until one is made. */
+  closing?: CurveClosing
+  /** Whether the clerk chose the way (false: the overshoot is applied until they do). */
+  closingChosen: boolean
   insideArcMm: number
   /** Length along the run for the developed elevation: faces plus mean joints. */
   developedLengthMm: number
@@ -98,8 +126,14 @@ export interface CurveLayout {
 export interface CurveRefusal {
   ok: false
   reason: string
+  /** A stable name for the refusal and its figures, so a screen can word it in the user's language. */
+  key: 'radius_too_tight' | 'closing_joints_over_limit'
+  params: Record<string, string | number>
   smallestRadiusMm: number
 }
+
+/** A radius named by rounding up to 1/16 in or 0.1 mm may sit a hair under the exact smallest; accept it. */
+export const RADIUS_TOLERANCE_MM = 1e-6
 
 function requestedAngleRad(segment: CurvedSegment, anglePerBlock: number): number {
   if (segment.arcAngleDeg !== undefined) return segment.arcAngleDeg / DEG
@@ -125,11 +159,73 @@ function refusal(
   const named = formatLength(smallest, unit, { rounding: 'up' })
   return {
     ok: false,
+    key: 'radius_too_tight',
+    params: {
+      radiusMm: R,
+      smallestRadiusMm: smallest,
+      nominal: block.nominal,
+      insideJointMm: joint.curveInsideJointMm,
+      maxOutsideJointMm: joint.maxOutsideJointMm,
+      ...(Number.isFinite(jo) ? { outsideJointMm: jo } : {}),
+    },
     smallestRadiusMm: smallest,
     reason:
       `An inside radius of ${show(R)} is tighter than ${block.nominal} blocks with a ${show(joint.curveInsideJointMm)} ` +
       `inside joint can turn: ${why}. The smallest inside radius that works is ${named}.`,
   }
+}
+
+/**
+ * The three ways to close an arc that n whole blocks overshoot at radius R:
+ * - radius: n blocks each turning arc/n, laid to R' = radiusForAnglePerBlock(w, ji, arc/n) (R' > R);
+ * - joints: n − 1 blocks at R, each turning arc/(n − 1): the inside joint opens to ji' = 2R·sin((θ' − α)/2),
+ *   α = 2·asin(w/2R) the block's own angle, and the outside joint to ji' + 2t·sin(θ'/2);
+ * - overshoot: n blocks at R, the built arc n·θ a little past the one asked for.
+ */
+export function closingOptions(
+  w: number,
+  t: number,
+  joint: ResolvedJoint,
+  R: number,
+  requested: number,
+  n: number,
+): CurveClosingOption[] {
+  const ji = joint.curveInsideJointMm
+  const theta = anglePerBlockRad(w, ji, R)
+  const exact = requested / n
+  const options: CurveClosingOption[] = [{
+    closing: 'radius',
+    blocks: n,
+    insideRadiusMm: radiusForAnglePerBlock(w, ji, exact),
+    insideJointMm: ji,
+    outsideJointMm: outsideJointMm(ji, t, exact),
+    builtAngleDeg: requested * DEG,
+    withinLimits: true,
+  }]
+  if (n > 1) {
+    const wider = requested / (n - 1)
+    const insideJoint = 2 * R * Math.sin((wider - blockAngleRad(w, R)) / 2)
+    const outside = outsideJointMm(insideJoint, t, wider)
+    options.push({
+      closing: 'joints',
+      blocks: n - 1,
+      insideRadiusMm: R,
+      insideJointMm: insideJoint,
+      outsideJointMm: outside,
+      builtAngleDeg: requested * DEG,
+      withinLimits: outside <= joint.maxOutsideJointMm + 1e-9 && insideJoint <= joint.maxOutsideJointMm + 1e-9,
+    })
+  }
+  options.push({
+    closing: 'overshoot',
+    blocks: n,
+    insideRadiusMm: R,
+    insideJointMm: ji,
+    outsideJointMm: outsideJointMm(ji, t, theta),
+    builtAngleDeg: n * theta * DEG,
+    withinLimits: true,
+  })
+  return options
 }
 
 /** Whole blocks for a curved segment, the joints that result, or a refusal naming the radius that works. */
@@ -141,44 +237,70 @@ export function planCurvedSegment(
 ): CurveLayout | CurveRefusal {
   const w = block.faceWidthMm
   const t = block.depthMm
-  const ji = joint.curveInsideJointMm
-  const R = segment.insideRadiusMm
-  const smallest = minInsideRadiusMm(w, t, ji, joint.maxOutsideJointMm)
-  if (R < smallest * (1 - 1e-12)) return refusal(segment, block, joint, smallest, unit)
-  const theta = anglePerBlockRad(w, ji, R)
-  const requested = requestedAngleRad(segment, theta)
-  const blocks = segment.blocks ?? Math.max(1, Math.ceil(requested / theta - FIT_TOLERANCE))
+  const R0 = segment.insideRadiusMm
+  const smallest = minInsideRadiusMm(w, t, joint.curveInsideJointMm, joint.maxOutsideJointMm)
+  if (R0 < smallest - RADIUS_TOLERANCE_MM) return refusal(segment, block, joint, smallest, unit)
+  const theta0 = anglePerBlockRad(w, joint.curveInsideJointMm, R0)
+  const requested = requestedAngleRad(segment, theta0)
+  const n = segment.blocks ?? Math.max(1, Math.ceil(requested / theta0 - FIT_TOLERANCE))
+  const closings = segment.blocks === undefined && n * theta0 - requested > 1e-9 ? closingOptions(w, t, joint, R0, requested, n) : undefined
+  const closing = closings ? (segment.closing ?? 'overshoot') : undefined
+  const applied = closings?.find((o) => o.closing === closing)
+  if (applied && !applied.withinLimits) {
+    const show = (mm: number) => formatLength(mm, unit)
+    return {
+      ok: false,
+      key: 'closing_joints_over_limit',
+      params: { blocks: applied.blocks, outsideJointMm: applied.outsideJointMm, insideJointMm: applied.insideJointMm, maxOutsideJointMm: joint.maxOutsideJointMm },
+      smallestRadiusMm: smallest,
+      reason:
+        `Closing the arc with ${applied.blocks} blocks at this radius opens the joints to ${show(applied.insideJointMm)} inside and ` +
+        `${show(applied.outsideJointMm)} outside, past the ${show(joint.maxOutsideJointMm)} allowed. Choose another way to close the arc.`,
+    }
+  }
+  const R = applied?.insideRadiusMm ?? R0
+  const ji = applied?.insideJointMm ?? joint.curveInsideJointMm
+  const blocks = applied?.blocks ?? n
+  const theta = closing === 'radius' || closing === 'joints' ? requested / blocks : theta0
   const built = blocks * theta
   const jo = outsideJointMm(ji, t, theta)
-  const rounded = built - requested > 1e-9
   const layout: CurveLayout = {
     ok: true,
     direction: segment.direction,
     insideRadiusMm: R,
+    enteredRadiusMm: R0,
     outsideRadiusMm: outsideCornerRadiusMm(w, t, R),
     insideJointMm: ji,
     outsideJointMm: jo,
     maxOutsideJointMm: joint.maxOutsideJointMm,
     blockAngleDeg: blockAngleRad(w, R) * DEG,
-    jointAngleDeg: jointAngleRad(ji, R) * DEG,
+    jointAngleDeg: (theta - blockAngleRad(w, R)) * DEG,
     anglePerBlockDeg: theta * DEG,
     requestedAngleDeg: requested * DEG,
     blocks,
     builtAngleDeg: built * DEG,
     overshootDeg: (built - requested) * DEG,
-    radiusForExactArcMm: rounded ? radiusForAnglePerBlock(w, ji, requested / blocks) : undefined,
+    closings,
+    closing,
+    closingChosen: closings !== undefined && segment.closing !== undefined,
     insideArcMm: R * built,
     developedLengthMm: blocks * (w + (ji + jo) / 2),
     minInsideRadiusMm: smallest,
     approx: {
       anglePerBlockDeg: ((w + ji) / R) * DEG,
       outsideJointMm: ji + (t * (w + ji)) / R,
-      minInsideRadiusMm: approxMinInsideRadiusMm(w, t, ji, joint.maxOutsideJointMm),
+      minInsideRadiusMm: approxMinInsideRadiusMm(w, t, joint.curveInsideJointMm, joint.maxOutsideJointMm),
     },
     explanation: [],
   }
   layout.explanation = explainCurve(layout, segment, block, unit)
   return layout
+}
+
+const CLOSING_WORDS: Record<CurveClosing, string> = {
+  radius: 'laid to the radius at which the blocks close the arc exactly',
+  joints: 'one block fewer, the joints opened to close the arc at the radius entered',
+  overshoot: 'the radius entered, the built arc a little past the one asked for',
 }
 
 function explainCurve(c: CurveLayout, segment: CurvedSegment, block: BlockSpec, unit: LengthUnit): string[] {
@@ -192,15 +314,14 @@ function explainCurve(c: CurveLayout, segment: CurvedSegment, block: BlockSpec, 
   ]
   if (segment.blocks !== undefined) {
     lines.push(`${c.blocks} blocks turn ${deg(c.builtAngleDeg)}.`)
-  } else {
-    const ratio = c.requestedAngleDeg / c.anglePerBlockDeg
+  } else if (c.closings && c.closing) {
+    const atEntered = c.closings.find((o) => o.closing === 'overshoot') as CurveClosingOption
     lines.push(
-      `${deg(c.requestedAngleDeg)} ÷ ${deg(c.anglePerBlockDeg)} = ${ratio.toFixed(2)} → ${c.blocks} blocks ` +
-        `(rounded up to whole blocks; the built arc is ${deg(c.builtAngleDeg)}).`,
+      `At ${show(c.enteredRadiusMm)}, ${deg(c.requestedAngleDeg)} needs ${atEntered.blocks} whole blocks, which build ` +
+        `${deg(atEntered.builtAngleDeg)}. Closed as chosen: ${CLOSING_WORDS[c.closing]}${c.closingChosen ? '' : ' (until a way is chosen)'}.`,
     )
-  }
-  if (c.radiusForExactArcMm !== undefined) {
-    lines.push(`To close exactly ${deg(c.requestedAngleDeg)} with ${c.blocks} blocks, lay out R = ${show(c.radiusForExactArcMm)}.`)
+  } else {
+    lines.push(`${deg(c.requestedAngleDeg)} ÷ ${deg(c.anglePerBlockDeg)} = ${c.blocks} whole blocks; the arc closes exactly.`)
   }
   lines.push(`The tightest inside radius for these limits is ${formatLength(c.minInsideRadiusMm, unit, { rounding: 'up' })}.`)
   return lines

@@ -4,7 +4,7 @@ import type { Wall } from '../schemas/takeoff.js'
 import type { LengthUnit } from '../units.js'
 import type { Fixing } from './fasteners.js'
 import { buildPlanView, type WallPlanView } from './planView.js'
-import type { SectionPlan } from './sections.js'
+import { sectionOwners, type SectionPlan } from './sections.js'
 import type { WallGeometry } from './wallLayout.js'
 
 export type { WallPlanView, PlanFootprint, PlanArc, PlanLabel, Point } from './planView.js'
@@ -21,7 +21,8 @@ export interface ElevationBlock {
   column: number
   segment: number
   section: number
-  kind: 'standard' | 'end' | 'corner'
+  /** end: finished on one edge; double: on two; corner and angle: 90° and 45° corner units. */
+  kind: 'standard' | 'end' | 'double' | 'corner' | 'angle'
   curved: boolean
 }
 
@@ -57,17 +58,17 @@ export interface DrawingInput {
   unit: LengthUnit
 }
 
-function blockKind(column: number, g: WallGeometry, wall: Wall): ElevationBlock['kind'] {
+/** The same rule as finishedEdges: exposed edges of the cell decide its unit. */
+function blockKind(column: number, course: number, g: WallGeometry, wall: Wall): ElevationBlock['kind'] {
   const col = g.columns[column]
-  if (col.kind === 'corner') return 'corner'
-  const atFreeStart = column === 0 && wall.freeEnds.start
-  const atFreeEnd = column === g.columns.length - 1 && wall.freeEnds.end
-  return atFreeStart || atFreeEnd ? 'end' : 'standard'
+  if (col.kind === 'corner') return col.cornerDeg === 45 ? 'angle' : 'corner'
+  const edges = Number(column === 0 && wall.freeEnds.start) + Number(column === g.columns.length - 1 && wall.freeEnds.end) +
+    Number(course === g.courses - 1 && wall.freeEnds.top)
+  return edges === 0 ? 'standard' : edges === 1 ? 'end' : 'double'
 }
 
 function elevationBlocks(wall: Wall, g: WallGeometry, plan: SectionPlan): ElevationBlock[] {
-  const sectionOf = new Map<string, number>()
-  plan.sections.forEach((s) => s.cells.forEach((c) => sectionOf.set(`${c.course},${c.column}`, s.index)))
+  const owner = sectionOwners(plan, g.columns.length, g.courses)
   const blocks: ElevationBlock[] = []
   for (let course = 0; course < g.courses; course++) {
     for (const col of g.columns) {
@@ -79,8 +80,8 @@ function elevationBlocks(wall: Wall, g: WallGeometry, plan: SectionPlan): Elevat
         course,
         column: col.index,
         segment: col.segment,
-        section: sectionOf.get(`${course},${col.index}`) ?? -1,
-        kind: blockKind(col.index, g, wall),
+        section: owner[course * g.columns.length + col.index],
+        kind: blockKind(col.index, course, g, wall),
         curved: col.kind === 'curved',
       })
     }

@@ -1,8 +1,26 @@
 // Renders a wall drawing model to a standalone SVG string: the elevation with one tone per section, the
 // plan view of a turning run, and a legend. Lumenyard's own look: cool glass tones on a white sheet.
-import { formatLength } from '../units.js'
+import { formatLength, type LengthUnit } from '../units.js'
 import type { ElevationBlock, WallDrawing, WallElevation } from './drawing.js'
 import type { Point, WallPlanView } from './planView.js'
+
+/** The drawing's words, so a screen can pass them in the reader's language. */
+export interface SvgWords {
+  elevation: string
+  plan: string
+  freeEnd: string
+  /** "Section {n}: {blocks} blocks, {kg} kg" */
+  section: (n: number, blocks: number, kg: string, heavy: boolean) => string
+  key: string
+}
+
+export const SVG_WORDS_EN: SvgWords = {
+  elevation: 'Elevation (developed)',
+  plan: 'Plan',
+  freeEnd: 'free end',
+  section: (n, blocks, kg, heavy) => `Section ${n}: ${blocks} blocks, ${kg} kg${heavy ? ' (heavy)' : ''}`,
+  key: '▲ anchor  ● screw  heavy edge: finished unit',
+}
 
 export interface SvgOptions {
   view?: 'elevation' | 'plan' | 'both'
@@ -10,6 +28,9 @@ export interface SvgOptions {
   widthPx?: number
   title?: string
   legend?: boolean
+  /** The unit to write lengths in, when not the drawing's own. */
+  unit?: LengthUnit
+  words?: SvgWords
 }
 
 const MARGIN = 24
@@ -39,19 +60,20 @@ function blockRect(b: ElevationBlock, x0: number, y0: number, s: number, heightM
   const x = x0 + b.xMm * s
   const y = y0 + (heightMm - b.yMm - b.heightMm) * s
   const stroke = heavy.has(b.section) ? WARN : tone.stroke
-  const dash = b.kind === 'corner' ? ' stroke-dasharray="3 2"' : ''
-  const width = b.kind === 'end' ? 2 : 1
+  const dash = b.kind === 'corner' ? ' stroke-dasharray="3 2"' : b.kind === 'angle' ? ' stroke-dasharray="1 2"' : ''
+  const width = b.kind === 'end' ? 2 : b.kind === 'double' ? 3 : 1
   return `<rect x="${num(x)}" y="${num(y)}" width="${num(b.widthMm * s)}" height="${num(b.heightMm * s)}" ` +
     `fill="${tone.fill}" stroke="${stroke}" stroke-width="${width}"${dash} data-section="${b.section + 1}" ` +
-    `data-course="${b.course + 1}" data-column="${b.column + 1}"/>`
+    `data-course="${b.course + 1}" data-column="${b.column + 1}" data-unit="${b.kind}"/>`
 }
 
 function fixingMarks(e: WallElevation, x0: number, y0: number, s: number): string[] {
   return e.fixings.map((f) => {
     const x = x0 + f.xMm * s
     const y = y0 + (e.heightMm - f.yMm) * s
-    if (f.kind === 'screw') return `<circle cx="${num(x)}" cy="${num(y)}" r="3" fill="${INK}"/>`
-    return `<path d="M${num(x - 4)} ${num(y + 4)} L${num(x + 4)} ${num(y + 4)} L${num(x)} ${num(y - 4)} Z" fill="${WARN}"/>`
+    const data = ` data-fixing="${f.side}" data-at-mm="${num(f.side === 'head' ? f.xMm : f.yMm)}"`
+    if (f.kind === 'screw') return `<circle cx="${num(x)}" cy="${num(y)}" r="3" fill="${INK}"${data}/>`
+    return `<path d="M${num(x - 4)} ${num(y + 4)} L${num(x + 4)} ${num(y + 4)} L${num(x)} ${num(y - 4)} Z" fill="${WARN}"${data}/>`
   })
 }
 
@@ -65,20 +87,20 @@ function sectionNumbers(e: WallElevation, x0: number, y0: number, s: number): st
   })
 }
 
-function elevationSvg(d: WallDrawing, top: number, widthPx: number): { body: string[]; height: number } {
+function elevationSvg(d: WallDrawing, top: number, widthPx: number, unit: LengthUnit, words: SvgWords): { body: string[]; height: number } {
   const e = d.elevation
   const s = e.widthMm > 0 ? widthPx / e.widthMm : 1
   const heavy = new Set(e.sections.filter((x) => x.overweight).map((x) => x.index))
   const y0 = top + LINE
   const body = [
     '<g class="elevation">',
-    text(MARGIN, top + 12, `Elevation (developed) · ${formatLength(e.widthMm, d.unit, { feet: true })} × ${formatLength(e.heightMm, d.unit, { feet: true })}`, ' font-weight="600"'),
+    text(MARGIN, top + 12, `${words.elevation} · ${formatLength(e.widthMm, unit, { feet: true })} × ${formatLength(e.heightMm, unit, { feet: true })}`, ' font-weight="600"'),
     ...e.blocks.map((b) => blockRect(b, MARGIN, y0, s, e.heightMm, heavy)),
     ...fixingMarks(e, MARGIN, y0, s),
     ...sectionNumbers(e, MARGIN, y0, s),
   ]
-  if (e.freeEnds.start) body.push(text(MARGIN, y0 + e.heightMm * s + 14, 'free end'))
-  if (e.freeEnds.end) body.push(text(MARGIN + e.widthMm * s, y0 + e.heightMm * s + 14, 'free end', ' text-anchor="end"'))
+  if (e.freeEnds.start) body.push(text(MARGIN, y0 + e.heightMm * s + 14, words.freeEnd))
+  if (e.freeEnds.end) body.push(text(MARGIN + e.widthMm * s, y0 + e.heightMm * s + 14, words.freeEnd, ' text-anchor="end"'))
   body.push('</g>')
   return { body, height: LINE + e.heightMm * s + LINE + 6 }
 }
@@ -91,14 +113,14 @@ function arcPoints(centre: Point, r: number, startDeg: number, endDeg: number): 
   })
 }
 
-function planSvg(plan: WallPlanView, top: number, widthPx: number): { body: string[]; height: number } {
+function planSvg(plan: WallPlanView, top: number, widthPx: number, unit: LengthUnit, words: SvgWords): { body: string[]; height: number } {
   const b = plan.bounds
   const spanX = Math.max(b.maxX - b.minX, 1)
   const spanY = Math.max(b.maxY - b.minY, 1)
   const s = Math.min(widthPx / spanX, (1.5 * widthPx) / spanY)
   const y0 = top + LINE
   const at = (p: Point) => `${num(MARGIN + (p.x - b.minX) * s)},${num(y0 + (b.maxY - p.y) * s)}`
-  const body = ['<g class="plan">', text(MARGIN, top + 12, 'Plan', ' font-weight="600"')]
+  const body = ['<g class="plan">', text(MARGIN, top + 12, words.plan, ' font-weight="600"')]
   for (const f of plan.footprints) {
     const fill = f.kind === 'curved' ? '#cfe6ef' : f.kind === 'corner' ? '#d9d4ec' : '#e3eef2'
     body.push(`<polygon points="${f.corners.map(at).join(' ')}" fill="${fill}" stroke="${INK}" stroke-width="0.8"/>`)
@@ -108,20 +130,20 @@ function planSvg(plan: WallPlanView, top: number, widthPx: number): { body: stri
   }
   for (const l of plan.labels) {
     const [x, y] = at(l.at).split(',').map(Number)
-    body.push(text(x, y, l.text, ' text-anchor="middle"'))
+    body.push(text(x, y, l.radiusMm !== undefined ? `R ${formatLength(l.radiusMm, unit)}` : l.text, ' text-anchor="middle"'))
   }
   body.push('</g>')
   return { body, height: LINE + spanY * s + LINE }
 }
 
-function legendSvg(d: WallDrawing, top: number, widthPx: number): { body: string[]; height: number } {
+function legendSvg(d: WallDrawing, top: number, widthPx: number, words: SvgWords): { body: string[]; height: number } {
   const perRow = Math.max(1, Math.floor(widthPx / 200))
   const items = d.elevation.sections.map((sec) => {
     const tone = sectionTone(sec.index)
-    const label = `Section ${sec.index + 1}: ${sec.blocks} blocks, ${sec.weightKg.toFixed(1)} kg${sec.overweight ? ' (heavy)' : ''}`
+    const label = words.section(sec.index + 1, sec.blocks, sec.weightKg.toFixed(1), sec.overweight)
     return { fill: tone.fill, stroke: sec.overweight ? WARN : tone.stroke, label }
   })
-  items.push({ fill: '#ffffff', stroke: INK, label: '▲ anchor  ● screw  bold edge: end block' })
+  items.push({ fill: '#ffffff', stroke: INK, label: words.key })
   const body = ['<g class="legend">']
   items.forEach((item, i) => {
     const x = MARGIN + (i % perRow) * 200
@@ -139,20 +161,22 @@ export function toSvg(drawing: WallDrawing, options: SvgOptions = {}): string {
   const inner = widthPx - 2 * MARGIN
   const view = options.view ?? 'both'
   const title = options.title ?? drawing.wallName
+  const unit = options.unit ?? drawing.unit
+  const words = options.words ?? SVG_WORDS_EN
   const parts: string[] = [text(MARGIN, MARGIN, title, ' font-size="15" font-weight="700"')]
   let y = MARGIN + 10
   if (view !== 'plan') {
-    const e = elevationSvg(drawing, y, inner)
+    const e = elevationSvg(drawing, y, inner, unit, words)
     parts.push(...e.body)
     y += e.height
   }
   if (view !== 'elevation' && drawing.plan) {
-    const p = planSvg(drawing.plan, y, inner)
+    const p = planSvg(drawing.plan, y, inner, unit, words)
     parts.push(...p.body)
     y += p.height
   }
   if (options.legend !== false) {
-    const l = legendSvg(drawing, y, inner)
+    const l = legendSvg(drawing, y, inner, words)
     parts.push(...l.body)
     y += l.height
   }

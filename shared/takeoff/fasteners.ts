@@ -1,15 +1,17 @@
-// Where fixings go: panel anchors in the joints at the jambs and head of mortar panels, screws through
-// each section's jamb edge, and which bed joints carry joint reinforcement.
+// Where fixings go: anchors (mortar panels) or screws (spacer systems) in the joints along every fixed
+// jamb and head at no more than a set spacing, whatever the sections; and which bed joints carry joint
+// reinforcement.
 import { MM_PER_INCH } from '../units.js'
-import type { SectionPlan } from './sections.js'
 import type { WallGeometry } from './wallLayout.js'
 
-/** Panel anchors at most 16 in on centre at jambs and head (IRC 2021 R607.5.2.1, from memory). */
-export const ANCHOR_SPACING_MM = 16 * MM_PER_INCH
+/**
+ * Fixings at most 16 in on centre along jambs and head: panel anchors in mortar panels (IRC 2021
+ * R607.5.2.1, from memory), and the same default for spacer systems, whose makers set their own
+ * (common practice).
+ */
+export const FIXING_SPACING_MM = 16 * MM_PER_INCH
 /** Joint reinforcement at most 16 in on centre vertically (IRC 2021 R607.9, from memory). */
 export const REINFORCEMENT_SPACING_MM = 16 * MM_PER_INCH
-/** Screws per section edge that meets a jamb (common practice). */
-export const SCREWS_PER_JAMB_CONTACT = 2
 
 export type FixingSide = 'start' | 'end' | 'head'
 
@@ -55,50 +57,39 @@ export function headJointCentres(geometry: WallGeometry): number[] {
   return geometry.columns.slice(0, -1).map((c) => c.xMm + c.faceMm + c.jointAfterMm / 2)
 }
 
-/** Mortar panels: anchors at jambs that are framed and across a framed head. */
-export function panelAnchors(
+/**
+ * Fixings along each fixed edge: both jambs when framed, and the head when framed, in the joints, so that
+ * no gap, from either end of the edge or between neighbours, passes the spacing. Anchors in a mortar
+ * panel, screws in a spacer system; the sections do not move them.
+ */
+export function edgeFixings(
   geometry: WallGeometry,
   freeEnds: { start: boolean; end: boolean },
-  spacingMm = ANCHOR_SPACING_MM,
+  spacingMm = FIXING_SPACING_MM,
 ): Fixing[] {
-  if (geometry.joint.kind !== 'mortar') return []
+  const kind: Fixing['kind'] = geometry.joint.kind === 'mortar' ? 'anchor' : 'screw'
   const fixings: Fixing[] = []
   const up = spacedJoints(bedJointCentres(geometry), geometry.panelHeightMm, spacingMm)
-  if (!freeEnds.start) up.forEach((y) => fixings.push({ kind: 'anchor', side: 'start', xMm: 0, yMm: y }))
-  if (!freeEnds.end) up.forEach((y) => fixings.push({ kind: 'anchor', side: 'end', xMm: geometry.panelWidthMm, yMm: y }))
+  if (!freeEnds.start) up.forEach((y) => fixings.push({ kind, side: 'start', xMm: 0, yMm: y }))
+  if (!freeEnds.end) up.forEach((y) => fixings.push({ kind, side: 'end', xMm: geometry.panelWidthMm, yMm: y }))
   if (geometry.headFramed) {
     spacedJoints(headJointCentres(geometry), geometry.panelWidthMm, spacingMm).forEach((x) =>
-      fixings.push({ kind: 'anchor', side: 'head', xMm: x, yMm: geometry.panelHeightMm }),
+      fixings.push({ kind, side: 'head', xMm: x, yMm: geometry.panelHeightMm }),
     )
   }
   return fixings
 }
 
-/** Screws through each section's edge where it meets a framed jamb, spread over that edge's height. */
-export function jambScrews(
-  geometry: WallGeometry,
-  plan: SectionPlan,
-  freeEnds: { start: boolean; end: boolean },
-  perContact = SCREWS_PER_JAMB_CONTACT,
-): Fixing[] {
-  const lastColumn = geometry.blocksAcross - 1
-  const jambs: { side: FixingSide; column: number; x: number }[] = []
-  if (!freeEnds.start) jambs.push({ side: 'start', column: 0, x: 0 })
-  if (!freeEnds.end) jambs.push({ side: 'end', column: lastColumn, x: geometry.panelWidthMm })
-  const fixings: Fixing[] = []
-  for (const section of plan.sections) {
-    for (const jamb of jambs) {
-      const courses = section.cells.filter((c) => c.column === jamb.column).map((c) => c.course)
-      if (courses.length === 0) continue
-      const bottom = Math.min(...courses) * geometry.moduleUpMm
-      const height = (Math.max(...courses) + 1) * geometry.moduleUpMm - geometry.joint.jointMm - bottom
-      for (let i = 0; i < perContact; i++) {
-        const yMm = bottom + ((i + 0.5) * height) / perContact
-        fixings.push({ kind: 'screw', side: jamb.side, xMm: jamb.x, yMm, section: section.index })
-      }
-    }
+/** The largest gap along one edge: from its start to the first fixing, between neighbours, to its end. */
+export function largestGap(positions: number[], lengthMm: number): number {
+  const sorted = [...positions].sort((a, b) => a - b)
+  let last = 0
+  let largest = 0
+  for (const p of [...sorted, lengthMm]) {
+    largest = Math.max(largest, p - last)
+    last = p
   }
-  return fixings
+  return largest
 }
 
 /** Mortar panels: the bed joints that carry joint reinforcement. */

@@ -14,7 +14,8 @@ export interface PlanFootprint {
 }
 
 export interface PlanArc { centre: Point; radiusMm: number; startDeg: number; endDeg: number }
-export interface PlanLabel { at: Point; text: string }
+/** A label; a radius label keeps its length so a reader's unit can be applied when drawn. */
+export interface PlanLabel { at: Point; text: string; radiusMm?: number }
 
 export interface WallPlanView {
   footprints: PlanFootprint[]
@@ -46,15 +47,18 @@ function traceStraight(pose: Pose, blocks: number, block: BlockSpec, joint: numb
   return { p, heading: pose.heading }
 }
 
-function traceCorner(pose: Pose, turn: 'left' | 'right', block: BlockSpec, joint: number, segment: number, out: PlanFootprint[]): Pose {
+/** A corner unit (90°) or angle unit (45°): drawn as a t × t square, the run turning by its angle after it. */
+function traceCorner(pose: Pose, turn: 'left' | 'right', angleDeg: number, block: BlockSpec, joint: number, segment: number, out: PlanFootprint[]): Pose {
   const t = block.depthMm
+  const a = (angleDeg * Math.PI) / 180
   out.push({ corners: rectangle(pose.p, pose.heading, t, t), segment, kind: 'corner' })
   if (turn === 'left') {
-    const heading = pose.heading + Math.PI / 2
-    return { p: add(pose.p, scale(dir(heading), joint)), heading }
+    const heading = pose.heading + a
+    const start = angleDeg === 90 ? pose.p : add(pose.p, scale(dir(pose.heading), t))
+    return { p: add(start, scale(dir(heading), joint)), heading }
   }
-  const heading = pose.heading - Math.PI / 2
-  const outer = add(add(pose.p, scale(dir(pose.heading), t)), scale(rightOf(pose.heading), t))
+  const heading = pose.heading - a
+  const outer = add(add(pose.p, scale(dir(pose.heading), t)), scale(rightOf(pose.heading), angleDeg === 90 ? t : 0))
   return { p: add(outer, scale(dir(heading), joint)), heading }
 }
 
@@ -88,7 +92,7 @@ function traceCurve(pose: Pose, curve: CurveLayout, block: BlockSpec, segment: n
     pose: { p, heading },
     arc: { centre, radiusMm: R, startDeg: toDeg(Math.min(start, end)), endDeg: toDeg(Math.max(start, end)) },
     labels: [
-      { at: add(centre, scale(dir(mid), R * 0.5)), text: `R ${formatLength(R, unit)}` },
+      { at: add(centre, scale(dir(mid), R * 0.5)), text: `R ${formatLength(R, unit)}`, radiusMm: R },
       { at: centre, text: `${curve.builtAngleDeg.toFixed(1)}° · ${curve.blocks} blocks` },
     ],
   }
@@ -108,7 +112,7 @@ export function buildPlanView(segments: SegmentLayout[], block: BlockSpec, joint
   let pose: Pose = { p: { x: 0, y: 0 }, heading: 0 }
   for (const segment of segments) {
     if (segment.kind === 'straight') pose = traceStraight(pose, segment.blocks, block, jointMm, segment.index, footprints)
-    else if (segment.kind === 'corner') pose = traceCorner(pose, segment.direction, block, jointMm, segment.index, footprints)
+    else if (segment.kind === 'corner') pose = traceCorner(pose, segment.direction, segment.angleDeg, block, jointMm, segment.index, footprints)
     else {
       const traced = traceCurve(pose, segment.curve, block, segment.index, unit, footprints)
       pose = traced.pose

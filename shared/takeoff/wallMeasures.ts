@@ -1,9 +1,10 @@
-// The quantities material rules multiply: joint intersections, lengths along the curb, jambs and head,
-// section tops, fixing counts and joint volumes. Each measure says how it was found.
+// The quantities material rules multiply: finished units, joint intersections, lengths along the curb,
+// jambs and head, section tops and seams, fixing counts and joint volumes. Each measure says how it was
+// found, in the trade's words.
 import type { CountMeasure, LengthMeasure, VolumeMeasure } from '../schemas/takeoff.js'
 import { MM_PER_FOOT } from '../units.js'
 import type { Fixing } from './fasteners.js'
-import type { SectionPlan } from './sections.js'
+import { sectionOwners, type SectionPlan } from './sections.js'
 import type { Column, WallGeometry } from './wallLayout.js'
 
 export type MeasureName = CountMeasure | LengthMeasure | VolumeMeasure
@@ -12,18 +13,23 @@ export type WallMeasures = Record<MeasureName, number>
 export interface MeasureInput {
   geometry: WallGeometry
   plan: SectionPlan
-  anchors: Fixing[]
-  screws: Fixing[]
+  fixings: Fixing[]
   reinforcedJoints: number[]
   blockDepthMm: number
-  /** Grout fill depth; the full block depth unless set (an upper bound). */
-  groutDepthMm?: number
+  /** Grout filled into each face joint, from the face to the spacer; both faces are grouted. */
+  groutDepthMm: number
+  fixingSpacingMm: number
 }
+
+/** Faces of a spacer wall that are grouted (common practice: both). */
+export const GROUTED_FACES = 2
 
 export interface MeasuredWall {
   measures: WallMeasures
   /** How each measure was found, for the explanation. */
   derivation: Partial<Record<MeasureName, string>>
+  /** Joints inside the sections: sealed in the shop when sections are shop-built, not on the site bill. */
+  shopJointsMm: number
 }
 
 const fmt = (n: number, places = 1) => Number(n.toFixed(places)).toString()
@@ -37,29 +43,49 @@ function jointKinds(columns: Column[]): { straight: number; curved: number } {
   return { straight: Math.max(0, columns.length - 1) - curved, curved }
 }
 
-/** Length of section tops that another section sits on (where a bead of sealant goes). */
-export function sectionTopsMm(plan: SectionPlan, columns: Column[]): number {
-  const owner = new Map<string, number>()
-  plan.sections.forEach((s) => s.cells.forEach((c) => owner.set(`${c.course},${c.column}`, s.index)))
-  let length = 0
-  for (const s of plan.sections) {
-    for (const c of s.cells) {
-      const above = owner.get(`${c.course + 1},${c.column}`)
-      if (above !== undefined && above !== s.index) length += columns[c.column].faceMm + columns[c.column].jointAfterMm
+/**
+ * Seams between sections: tops that another section sits on (horizontal, length along the run) and the
+ * vertical seams where neighbouring sections meet (one course module high each), and the joints inside
+ * sections (sealed in the shop when sections are shop-built).
+ */
+export function sectionJoints(plan: SectionPlan, columns: Column[], courses: number, moduleUpMm: number) {
+  const owner = sectionOwners(plan, columns.length, courses)
+  const width = columns.length
+  let tops = 0
+  let seams = 0
+  let inside = 0
+  for (let course = 0; course < courses; course++) {
+    for (let x = 0; x < width; x++) {
+      const here = owner[course * width + x]
+      if (x + 1 < width) {
+        if (owner[course * width + x + 1] !== here) seams += moduleUpMm
+        else inside += moduleUpMm
+      }
+      if (course + 1 < courses) {
+        const along = columns[x].faceMm + columns[x].jointAfterMm
+        if (owner[(course + 1) * width + x] !== here) tops += along
+        else inside += along
+      }
     }
   }
-  return length
+  return { topsMm: tops, seamsMm: seams, insideMm: inside }
 }
 
-function jointVolumesMl(input: MeasureInput): { grout: number; mortar: number; faceArea: number } {
+/**
+ * Joint volumes. Face area of the joints: head joints (each joint's width × panel height) plus inner bed
+ * joints (courses − 1 × panel length × joint). Spacer walls: grouted from each face to the spacer, depth
+ * per face × 2 faces, never more than the block's depth. Mortar walls: head, bed and sill joints full depth.
+ */
+function jointVolumesMl(input: MeasureInput): { grout: number; mortar: number; faceArea: number; groutDepth: number } {
   const g = input.geometry
   const verticalArea = g.columns.reduce((sum, c) => sum + c.jointAfterMm, 0) * g.panelHeightMm
   const bedArea = Math.max(0, g.courses - 1) * g.panelWidthMm * g.joint.jointMm
   const sillArea = g.panelWidthMm * g.joint.jointMm
   const faceArea = verticalArea + bedArea
-  const groutDepth = input.groutDepthMm ?? input.blockDepthMm
+  const groutDepth = Math.min(input.groutDepthMm * GROUTED_FACES, input.blockDepthMm)
   return {
     faceArea,
+    groutDepth,
     grout: g.joint.kind === 'spacer' ? (faceArea * groutDepth) / 1000 : 0,
     mortar: g.joint.kind === 'mortar' ? ((faceArea + sillArea) * input.blockDepthMm) / 1000 : 0,
   }
@@ -71,57 +97,86 @@ export function measureWall(input: MeasureInput): MeasuredWall {
   const joints = jointKinds(g.columns)
   const innerBeds = Math.max(0, g.courses - 1)
   const volumes = jointVolumesMl(input)
+  const sections = sectionJoints(input.plan, g.columns, g.courses, g.moduleUpMm)
   const perimeterMm = 2 * (g.panelWidthMm + g.panelHeightMm)
   const measures: WallMeasures = {
     standardBlocks: g.standardBlocks,
     endBlocks: g.endBlocks,
+    doubleEndBlocks: g.doubleEndBlocks,
     cornerBlocks: g.cornerBlocks,
+    angleBlocks: g.angleBlocks,
     interiorIntersectionsStraight: joints.straight * innerBeds,
     interiorIntersectionsCurved: joints.curved * innerBeds,
     edgeIntersectionsStraight: 2 * joints.straight + 2 * innerBeds,
     edgeIntersectionsCurved: 2 * joints.curved,
     perimeterFt: perimeterMm / MM_PER_FOOT,
     sections: input.plan.sections.length,
-    jambScrews: input.screws.length,
-    panelAnchors: input.anchors.length,
+    jambScrews: input.fixings.filter((f) => f.kind === 'screw').length,
+    panelAnchors: input.fixings.filter((f) => f.kind === 'anchor').length,
     bottomRunMm: g.panelWidthMm,
-    sectionTopsMm: sectionTopsMm(input.plan, g.columns),
+    sectionTopsMm: sections.topsMm,
+    sectionSeamsMm: sections.seamsMm,
     jambLengthMm: g.panelHeightMm * g.framedEnds,
     headLengthMm: g.headFramed ? g.panelWidthMm : 0,
     reinforcedJointLengthMm: input.reinforcedJoints.length * g.panelWidthMm,
     groutVolumeMl: volumes.grout,
     mortarVolumeMl: volumes.mortar,
   }
-  return { measures, derivation: derive(g, joints, innerBeds, input, volumes.faceArea) }
+  let derivation: Partial<Record<MeasureName, string>> | undefined
+  return {
+    measures,
+    // Written when an explanation reads it.
+    get derivation() {
+      return (derivation ??= derive(g, joints, innerBeds, input, volumes, sections.insideMm))
+    },
+    shopJointsMm: sections.insideMm,
+  }
 }
+
+const edgeText = (f: WallGeometry['finished']) =>
+  [
+    f.startCourses ? `free start ${f.startCourses} courses` : '',
+    f.endCourses ? `free end ${f.endCourses} courses` : '',
+    f.topBlocks ? `free top ${f.topBlocks} blocks across` : '',
+  ].filter(Boolean).join(', ') || 'no free edges'
 
 function derive(
   g: WallGeometry,
   joints: { straight: number; curved: number },
   innerBeds: number,
   input: MeasureInput,
-  faceArea: number,
+  volumes: { faceArea: number; groutDepth: number },
+  shopJointsMm: number,
 ): Partial<Record<MeasureName, string>> {
   const W = fmt(g.panelWidthMm)
   const H = fmt(g.panelHeightMm)
+  const f = g.finished
+  const corners = g.cornerBlocks + g.angleBlocks
+  const fixings = (side: string) => input.fixings.filter((x) => x.side === side).length
+  const fixingText = `start jamb ${fixings('start')}, end jamb ${fixings('end')}, head ${fixings('head')}`
   return {
-    standardBlocks: `${g.blocksAcross} across × ${g.courses} courses = ${g.totalBlocks}, less ${g.endBlocks} end and ${g.cornerBlocks} corner blocks`,
-    endBlocks: `${g.courses} courses × free ends that end in a standard column`,
-    cornerBlocks: `${g.courses} courses × corner columns`,
+    standardBlocks: `${g.blocksAcross} across × ${g.courses} courses = ${g.totalBlocks}, less ${f.oneEdge + f.twoEdges} finished and ${corners} corner units`,
+    endBlocks: `exposed edges: ${edgeText(f)}; ${f.oneEdge} units show one edge`,
+    doubleEndBlocks: `${f.twoEdges} units show two edges, where the free top meets a free end`,
+    cornerBlocks: `${g.courses} courses × 90° corners`,
+    angleBlocks: `${g.courses} courses × 45° corners`,
     interiorIntersectionsStraight: `${joints.straight} straight head joints × ${innerBeds} inner bed joints`,
     interiorIntersectionsCurved: `${joints.curved} wedge head joints on the curve × ${innerBeds} inner bed joints`,
     edgeIntersectionsStraight: `2 × ${joints.straight} head joints (curb and top) + 2 × ${innerBeds} bed joints (ends)`,
     edgeIntersectionsCurved: `2 × ${joints.curved} wedge head joints (curb and top)`,
     perimeterFt: `2 × (${W} + ${H}) mm ÷ 304.8 mm/ft`,
-    sections: `sections planned`,
-    jambScrews: `${input.screws.length} screws at section edges on framed jambs`,
-    panelAnchors: `${input.anchors.length} anchors at ≤ 16 in on centre at framed jambs and head`,
-    bottomRunMm: `panel length along the curb ${W} mm`,
+    sections: `sections planned; the ${fmt(shopJointsMm / 1000, 2)} m of joints inside them are sealed in the shop as part of the section build`,
+    jambScrews: `screws at no more than ${fmt(input.fixingSpacingMm)} mm on centre along fixed jambs and head: ${fixingText}`,
+    panelAnchors: `anchors at no more than ${fmt(input.fixingSpacingMm)} mm on centre along fixed jambs and head: ${fixingText}`,
+    bottomRunMm: `curb bed along the panel, ${W} mm`,
     sectionTopsMm: `tops of sections that carry another section`,
-    jambLengthMm: `${H} mm × ${g.framedEnds} framed jambs`,
-    headLengthMm: g.headFramed ? `framed head ${W} mm` : 'head is free: none',
+    sectionSeamsMm: `vertical seams where sections meet, one course high each`,
+    jambLengthMm: `${H} mm × ${g.framedEnds} fixed jambs`,
+    headLengthMm: g.headFramed ? `fixed head ${W} mm` : 'head is free: none',
     reinforcedJointLengthMm: `${input.reinforcedJoints.length} reinforced bed joints × ${W} mm`,
-    groutVolumeMl: `joint face area ${fmt(faceArea / 1e6, 4)} m² × depth ${fmt(input.groutDepthMm ?? input.blockDepthMm)} mm`,
+    groutVolumeMl:
+      `joint face area ${fmt(volumes.faceArea / 1e6, 4)} m² × grout depth ${fmt(volumes.groutDepth)} mm ` +
+      `(${fmt(input.groutDepthMm)} mm from each of ${GROUTED_FACES} faces to the spacer)`,
     mortarVolumeMl: `(joint face area + sill bed) × block depth ${fmt(input.blockDepthMm)} mm`,
   }
 }

@@ -1,33 +1,30 @@
-import { ref, watch, type Ref } from 'vue'
-import type { ZodError } from 'zod'
+import { computed, ref, watch, type Ref } from 'vue'
+import { useI18n } from 'vue-i18n'
 import { computeCounterBill, saveBlockers, type ComputeAnswer, type CounterBill } from '@shared/counter/counterBill'
 import type { CounterCatalog, LineAvailability } from '@shared/schemas/counter'
 import { takeoffSchema, type Takeoff } from '@shared/schemas/takeoff'
 import type { LengthUnit } from '@shared/units'
 import { api } from '@/api/client'
+import { fieldProblems } from '@/components/counter/takeoffText'
 
 const COMPUTE_DELAY_MS = 150
 const STOCK_DELAY_MS = 900
 
-function fieldErrorsOf(error: ZodError): Record<string, string> {
-  const out: Record<string, string> = {}
-  for (const issue of error.issues) {
-    const key = issue.path.join('.') || '_'
-    out[key] ??= issue.message
-  }
-  return out
-}
-
 /**
  * The bill as the user types: the shared computation runs in the browser a moment after each change;
- * stock per warehouse follows from the server a little later (it needs the database).
+ * stock per warehouse follows from the server a little later (it needs the database). The schema's
+ * limits refuse an impossible takeoff (an opening of 20,000 in, say) before anything is laid out, so
+ * the page never stalls; field problems come back in the user's language and unit. While a length
+ * field holds text it cannot read (`unreadable` > 0), the bill keeps its last figures and says they are stale.
  */
-export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalog | null>, unit: Ref<LengthUnit>) {
+export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalog | null>, unit: Ref<LengthUnit>, unreadable: Ref<number>) {
+  const { t, te } = useI18n()
   const bill = ref<CounterBill | null>(null)
   const errors = ref<Record<string, string>>({})
   const blockers = ref<string[]>([])
   const availability = ref<Map<number, LineAvailability>>(new Map())
-  const stale = ref(false)
+  const invalid = ref(false)
+  const stale = computed(() => invalid.value || unreadable.value > 0)
   let computeTimer: ReturnType<typeof setTimeout> | undefined
   let stockTimer: ReturnType<typeof setTimeout> | undefined
   let stockAbort: AbortController | undefined
@@ -47,12 +44,12 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
     if (!catalog.value) return
     const parsed = takeoffSchema.safeParse(takeoff.value)
     if (!parsed.success) {
-      errors.value = fieldErrorsOf(parsed.error)
-      stale.value = true
+      errors.value = fieldProblems(parsed.error, unit.value, t, te)
+      invalid.value = true
       return
     }
     errors.value = {}
-    stale.value = false
+    invalid.value = false
     bill.value = computeCounterBill(parsed.data, catalog.value, unit.value)
     blockers.value = saveBlockers(bill.value)
     clearTimeout(stockTimer)

@@ -99,6 +99,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'DELETE /api/takeoff-settings/rules/:key': { access: ['admin'] },
   'GET /api/takeoff-settings/waste': { access: ['admin', 'counter'] },
   'PATCH /api/takeoff-settings/waste': { access: ['admin'] },
+  'GET /api/takeoff-settings/figures': { access: ['admin', 'counter'] },
+  'PATCH /api/takeoff-settings/figures': { access: ['admin'] },
   'GET /api/takeoff-settings/role-items': { access: ['admin', 'counter'] },
   'POST /api/takeoff-settings/role-items': { access: ['admin'] },
   'PUT /api/takeoff-settings/role-items/:id': { access: ['admin'] },

@@ -1,6 +1,7 @@
 // Feature: the Counter in a real browser, as the counter role: start a takeoff for an account, build a
-// block shower with a straight run and a curved run, watch the bill update, open one line's explanation,
-// see the drawing (screenshots), and save the bill on the job.
+// block shower with a straight run and a curved run; a radius too tight for the block is refused with the
+// catalog's blocks that turn it, one click swaps the block, the clerk chooses how to close the arc, the
+// shower base follows the wall; open one line's explanation, see the drawing (screenshots), save the bill.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import path from 'node:path'
@@ -27,7 +28,7 @@ async function fillNumber(page: Page, test: string, value: string) {
 }
 
 describe('counter: a curved block shower from takeoff to saved bill', () => {
-  it('builds the takeoff, explains a line, draws the wall and saves the bill', async () => {
+  it('refuses a radius too tight, swaps the block, closes the arc, lets the base follow, explains, draws and saves', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1440, height: 1000 } })
     try {
       await h.signIn(page, 'counter')
@@ -43,24 +44,42 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       await page.locator('[data-test="add-wall"]').click()
       await pickOption(page, 'wall-0-block', 'GB-0606-WV-SQ', 'GB-0606-WV-SQ')
       await page.locator('[data-test="wall-0-sizing"]').getByText('Block count').click()
-      await fillNumber(page, 'wall-0-courses', '13')
+      await fillNumber(page, 'wall-0-courses', '10')
       await fillNumber(page, 'segment-0-blocks', '3')
       await page.locator('[data-test="wall-0-add-curved"]').click()
       const radius = page.locator('[data-test="segment-1-radius"]')
-      await radius.fill('48"')
+      await radius.fill('32"')
       await radius.blur()
+
+      // A 6x6 unit with 1/8 in inside and 5/8 in outside joints turns no tighter than about
+      // (5.75 + 0.125) × 3.875 / 0.5 = 45.5 in (small-angle form, arc length = radius × angle): 32 in is refused,
+      // and the 4x8 set on end, (3.75 + 0.125) × 3.875 / 0.5 = 30.0 in, is offered first (same pattern and thickness).
+      const refusal = page.locator('[data-test="wall-0-refusal"]')
+      await refusal.waitFor()
+      expect(await refusal.textContent()).toMatch(/The smallest inside radius that works is 45 9\/16 in/)
+      await refusal.scrollIntoViewIfNeeded()
+      await h.screenshot(page, 'counter-radius-too-tight')
+      await page.locator('[data-test="swap-GB-0408-WV-RC-on-end"]').click()
+      await refusal.waitFor({ state: 'hidden' })
+
+      // 90° does not close in whole 4x8 blocks at 32 in: the three ways side by side; lay out to the exact radius.
+      const closing = page.locator('[data-test="segment-1-closing"]')
+      await closing.waitFor()
+      await closing.scrollIntoViewIfNeeded()
+      await h.screenshot(page, 'counter-closing-choices')
+      await page.locator('[data-test="choose-radius"]').click()
+      await page.locator('[data-test="closing-radius"]').getByText('Chosen').waitFor()
+
       await page.locator('[data-test="wall-0-free-end"]').click()
       await page.locator('[data-test="wall-0-free-top"]').click()
       await page.locator('[data-test="wall-0-wet"]').click()
       await page.locator('[data-test="shower-base-toggle"]').click()
-
-      // 3 straight + 13 on the curve, 13 courses. Small-angle estimate (REFERENCES.md): each 5 3/4 in
-      // block with a 1/8 in inside joint turns (5.75 + 0.125) / 48 rad = 7.01°, so 90° takes 12.8 → 13 blocks.
-      const summary = page.locator('[data-test="wall-0-summary"]')
-      await expect.poll(() => summary.textContent(), { timeout: 10_000 }).toMatch(/16 across × 13 courses = 208 blocks/)
-      await expect.poll(() => page.locator('[data-test="qty-arcSpacer"]').count()).toBe(1)
-      expect(await page.locator('[data-test="qty-showerBase"]').textContent()).toBe('1')
+      // The base carries the wet curved wall and follows it as built: its curb turns the 90° closed above.
+      const trueSize = page.locator('[data-test="base-true-size"]')
+      await expect.poll(() => trueSize.textContent(), { timeout: 10_000 }).toMatch(/curved curb R [\d ./]+ in, 90°/)
       await expect.poll(() => page.locator('[data-test="blockers"]').count()).toBe(0)
+      await trueSize.scrollIntoViewIfNeeded()
+      await h.screenshot(page, 'counter-base-follows-wall')
 
       // Cautions are never silent: a code section, the curved-panel support caution, and the deferral line.
       const cautions = page.locator('[data-test="cautions"]')
@@ -68,18 +87,25 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       expect(await page.locator('[data-test="defer"]').textContent()).toMatch(/local building codes/)
       expect(await page.locator('[data-test="install-notes"] li').count()).toBeGreaterThanOrEqual(4)
 
+      // The elevation: one finished unit where the free top meets the free end, fixings drawn on the fixed jamb.
       const drawing = page.locator('[data-test="wall-drawing"] svg')
       await drawing.first().waitFor()
       expect(await page.locator('[data-test="wall-drawing"] svg g.plan').count()).toBe(1)
-      expect(await page.locator('[data-test="wall-drawing"] svg rect[data-course]').count()).toBe(208)
+      expect(await page.locator('[data-test="wall-drawing"] svg rect[data-unit="double"]').count()).toBe(1)
+      expect(await page.locator('[data-test="wall-drawing"] svg [data-fixing="start"]').count()).toBeGreaterThan(0)
+      expect(await page.locator('[data-test="wall-drawing"] svg [data-fixing="end"]').count()).toBe(0)
       await drawing.first().scrollIntoViewIfNeeded()
       await h.screenshot(page, 'counter-curved-shower-drawing')
 
-      await page.locator('[data-test="explain-arcSpacer"]').click()
+      // The sealant line lists each bead in the trade's words: the curb bed, and the fixed jamb on both faces.
+      await page.locator('[data-test="explain-sealant"]').click()
       const explain = page.locator('[data-test="explain-drawer"]')
       await explain.waitFor()
-      expect(await page.locator('[data-test="explain-formula"]').textContent()).toMatch(/interiorIntersectionsCurved/)
-      // The drawer sits over the page: a viewport shot shows it where a full-page one would not.
+      const formula = await page.locator('[data-test="explain-formula"]').textContent()
+      expect(formula).toMatch(/curb bed [\d.]+ mm/)
+      expect(formula).toMatch(/fixed jambs [\d.]+ mm .* × 2 faces/)
+      expect(await explain.textContent()).toContain('Curb bed (mm)')
+      expect(await explain.textContent()).not.toMatch(/bottomRunMm|standardBlocks/)
       await page.screenshot({ path: path.join(SCREENSHOTS, 'counter-explain-line.png') })
       await page.keyboard.press('Escape')
       await explain.waitFor({ state: 'hidden' })
@@ -88,14 +114,15 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       await page.waitForURL(/\/counter\/boms\/\d+/)
       expect(await page.locator('[data-test="bom-title"]').textContent()).toMatch(/revision 1/)
       const bomId = Number(new URL(page.url()).pathname.split('/').pop())
-      const rows = await h.ds.query('SELECT role, qty FROM bom_lines WHERE bom_id = ? ORDER BY line_no', [bomId])
-      expect(rows.find((r: { role: string }) => r.role === 'showerBase')).toMatchObject({ qty: 1 })
-      // 208 cells less 13 end-finish blocks at the free end = 195 × 1.05 (5 % block waste, common practice) = 204.75 → 205;
-      // the end blocks 13 × 1.05 = 13.65 → 14.
-      expect(rows.find((r: { role: string }) => r.role === 'block').qty).toBe(205)
-      expect(rows.find((r: { role: string }) => r.role === 'endBlock').qty).toBe(14)
-      // Inch entries shown back in inches to 1/16 (shared/units.ts): the 36 × 48 in base the toggle started with.
-      expect(await page.locator('[data-test="base-spec"]').textContent()).toMatch(/36″ wide × 48″ deep/)
+      const rows = (await h.ds.query('SELECT role, sku, qty, spec_json AS spec FROM bom_lines WHERE bom_id = ? ORDER BY line_no', [bomId])) as { role: string; sku: string; qty: number; spec: string | null }[]
+      const line = (role: string) => rows.find((r) => r.role === role)!
+      expect(line('block').sku).toBe('GB-0408-WV-RC')
+      const spec = JSON.parse(line('showerBase').spec ?? '{}')
+      expect(spec.trueSize.curbArcDeg).toBeCloseTo(90, 6)
+      expect(line('doubleEndBlock').sku).toBe('GB-0408-WV-DE')
+      expect(await page.locator('[data-test="base-spec"]').textContent()).toMatch(/curved curb, radius [\d ./]+″, 90°/)
+      await page.locator('[data-test="bom-unit"]').getByText('mm').click()
+      expect(await page.locator('[data-test="base-spec"]').textContent()).toMatch(/curved curb, radius [\d.]+ mm, 90°/)
       await page.locator('[data-test="wall-drawing"] svg').first().waitFor()
       await h.screenshot(page, 'counter-saved-bill')
 

@@ -33,6 +33,8 @@ const SUPPLIES: ItemSpec[] = [
   { role: 'jointReinforcement', family: 'accessory', unit: 'piece' },
   { role: 'expansionStrip', family: 'accessory', unit: 'foot' },
   { role: 'showerBase', family: 'shower_base', unit: 'each', extra: { made_to_order: true } },
+  { role: 'doubleEndBlock', family: 'glass_block', unit: 'each', extra: { shape: 'double_end_finish' } },
+  { role: 'angleBlock', family: 'glass_block', unit: 'each', extra: { shape: 'angle_45' } },
 ]
 
 async function insertItem(ds: DataSource, sku: string, spec: ItemSpec): Promise<number> {

@@ -4,6 +4,7 @@ import { describe, expect, it } from 'vitest'
 import { computeCounterBill, resolveWallCatalog, saveBlockers } from '../../shared/counter/counterBill.js'
 import type { BlockOption, CounterCatalog, RoleItemRecord } from '../../shared/schemas/counter.js'
 import type { Takeoff } from '../../shared/schemas/takeoff.js'
+import { DEFAULT_SITE_FIGURES } from '../../shared/takeoff/siteFigures.js'
 
 const IN = 25.4 // NIST SP 811: 1 in = 25.4 mm exactly
 
@@ -53,6 +54,7 @@ describe('computeCounterBill', () => {
       { id: 'blocks', role: 'block', family: 'block', method: 'count', systems: ['spacer', 'mortar'], terms: [{ measure: 'standardBlocks', rate: 1 }], note: 'test', source: 'test' },
     ],
     wastePct: { block: 0 },
+    figures: DEFAULT_SITE_FIGURES,
     looseItems: [{ itemId: 9, sku: 'GLOVES', name: 'Gloves', unit: 'each', family: 'accessory', madeToOrder: false }],
   }
   const takeoff = (extra: Partial<Takeoff> = {}): Takeoff => ({

@@ -62,29 +62,38 @@ describe('worked example: 8x8 clear block, spacer system, 6 ft × 7 ft opening',
     expect(line(result.lines, 'spacerBase').needed).toBeCloseTo(70.75 / 48, 9)
   })
 
-  it('sealant: curb + section tops, 1/4 in bead, 10.1 oz tubes', () => {
-    // The plan stacks rectangular bands, so each band boundary carries a bead the full 70.75 in.
-    // length = 70.75 × bands in; bead area π × 0.25² / 4 = 0.049087 in²;
-    // 10.1 US fl oz = 18.227 in³ (NIST SP 811: 1.8046875 in³ per fl oz).
-    // With 3 bands: 212.25 in × 0.049087 = 10.419 in³ ÷ 18.227 = 0.5716 tube × 1.10 = 0.629 → 1 tube
+  it('sealant: curb bed, section tops and the seams where sections meet, 1/4 in bead, 10.1 oz tubes', () => {
+    // The plan stacks rectangular bands, so each band boundary carries a bead the full 70.75 in, and each
+    // seam between sections in a band runs one course module (7.875 in) per course of the band.
+    // bead area π × 0.25² / 4 = 0.049087 in²; 10.1 US fl oz = 18.227 in³ (NIST SP 811: 1.8046875 in³ per fl oz).
+    // For the plan of bands 3 + 3 + 4 courses cut 2, 2 and 3 wide: curb 70.75 + 2 tops × 70.75 = 212.25 in;
+    // seams 1 × 3 + 1 × 3 + 2 × 4 = 14 courses × 7.875 = 110.25 in; 322.5 in × 0.049087 = 15.831 in³
+    // ÷ 18.227 = 0.8685 tube × 1.10 = 0.955 → 1 tube. Not a wet area: no jamb beads.
     expect(w.sections.sections.every((s) => s.rectangular)).toBe(true)
-    const bands = w.sections.bands.length
-    const tubes = (70.75 * bands * ((Math.PI * 0.25 ** 2) / 4)) / 18.22734375
+    const seams = w.sections.bands.reduce((sum, b, i) => sum + (w.sections.sections.filter((s) => s.band === i).length - 1) * b.courses, 0)
+    expect(seams).toBe(14)
+    const inches = 70.75 * w.sections.bands.length + seams * 7.875
+    const tubes = (inches * ((Math.PI * 0.25 ** 2) / 4)) / 18.22734375
     const sealant = line(result.lines, 'sealant')
-    expect(sealant.needed).toBeCloseTo(tubes, 3)
-    expect(sealant.quantity).toBe(Math.ceil(tubes * 1.1))
-    expect(sealant.explanation.formula).toContain('bead area π × 6.35² ÷ 4')
+    expect(sealant.needed).toBeCloseTo(0.8685, 4)
+    // the catalog tube is 298.69 mL, a hair under 18.22734375 in³ = 298.6926 mL
+    expect(sealant.needed).toBeCloseTo(tubes, 4)
+    expect(sealant.quantity).toBe(1)
+    expect(sealant.explanation.formula).toContain('π × 6.35² ÷ 4')
     expect(sealant.explanation.formula).toContain('298.69 mL per tube')
+    expect(sealant.explanation.formula).not.toContain('fixed jambs')
   })
 
-  it('grout: 10,046.87 mL ÷ 3000 mL = 3.349 × 1.10 = 3.684 → 4 bags', () => {
-    expect(line(result.lines, 'grout')).toMatchObject({ quantity: 4, unit: 'bag' })
+  it('grout: joints filled 3/8 in from each face: 1,944.56 mL ÷ 3000 mL = 0.648 × 1.10 = 0.713 → 1 bag', () => {
+    // face area 102,076.41 mm² (see the material tests) × 2 × 9.525 mm = 1,944.56 mL
+    expect(line(result.lines, 'grout')).toMatchObject({ quantity: 1, unit: 'bag' })
+    expect(line(result.lines, 'grout').needed).toBeCloseTo(1944.556 / 3000, 5)
   })
 
-  it('screws: 2 per section edge at each jamb; expansion strip: 228 in ÷ 48 in → 6 pieces', () => {
-    // contacts: one section per band against each jamb → 2 × bands contacts × 2 screws (common practice)
+  it('screws: 4 per jamb and 4 across the head at ≤ 16 in; expansion strip: 228 in ÷ 48 in → 6 pieces', () => {
+    // fixing positions hand-worked in the material tests: 4 + 4 + 4 = 12 × 1.10 = 13.2 → 14 → 1 pack of 100
     const screws = line(result.lines, 'screw')
-    expect(screws.needed).toBe(4 * w.sections.bands.length)
+    expect(screws.needed).toBe(12)
     expect(screws.packs).toBe(1)
     // strip: 2 × 78.625 + 70.75 = 228 in ÷ 48 = 4.75 × 1.10 = 5.225 → 6
     expect(line(result.lines, 'expansionStrip')).toMatchObject({ quantity: 6 })

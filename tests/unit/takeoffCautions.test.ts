@@ -13,7 +13,9 @@ import {
   wallCautions,
   type Caution,
 } from '../../shared/takeoff/cautions.js'
+import { edgeFixings } from '../../shared/takeoff/fasteners.js'
 import { planSections } from '../../shared/takeoff/sections.js'
+import { DEFAULT_SITE_FIGURES } from '../../shared/takeoff/siteFigures.js'
 import type { WallGeometry } from '../../shared/takeoff/wallLayout.js'
 import { block8, FT, IN, laid, wallMaker } from '../support/takeoffFixtures.js'
 
@@ -22,7 +24,7 @@ const wall = wallMaker('Stair light')
 function cautionsOf(w: Wall, blockWeightKg = w.block.weightKg): Caution[] {
   const geometry = laid(w)
   const plan = planSections({ columns: geometry.blocksAcross, courses: geometry.courses, curved: geometry.hasCurve, blockWeightKg })
-  return wallCautions({ wall: w, geometry, plan, fixings: 4, unit: 'in' })
+  return wallCautions({ wall: w, geometry, plan, fixings: edgeFixings(geometry, w.freeEnds), unit: 'in', figures: DEFAULT_SITE_FIGURES })
 }
 
 /** A real layout with its panel size replaced, to probe the limits at their edges. */
@@ -153,10 +155,10 @@ describe('curves, ends, wet areas, lifting', () => {
 
   it('a made-to-order shower base brings its own notes', () => {
     const base = showerBaseSchema.parse({ widthMm: 1500, depthMm: 900, drain: { fromLeftMm: 750, fromBackMm: 450 }, entry: 'left', curbless: true })
-    const notes = showerBaseCautions(base)
+    const notes = showerBaseCautions(base, undefined, 'in')
     expect(notes.some((c) => c.message.includes('made to order'))).toBe(true)
     expect(notes.find((c) => c.message.includes('curbless'))?.level).toBe('warn')
-    expect(showerBaseCautions(undefined)).toEqual([])
+    expect(showerBaseCautions(undefined, undefined, 'in')).toEqual([])
   })
 })
 

@@ -140,10 +140,45 @@ describe('blocks on an arc', () => {
     expect(c.blocks).toBe(13)
     expect(c.builtAngleDeg).toBeCloseTo(93.175, 2)
     expect(c.outsideJointMm).toBeCloseTo(15.479, 2)
-    expect(c.explanation.join(' ')).toContain('12.56 → 13 blocks')
-    // the radius that closes 90° exactly with 13 blocks turns each block 90/13°
-    expect(c.radiusForExactArcMm).toBeDefined()
-    expect((anglePerBlockRad(W, JI, c.radiusForExactArcMm as number) * 13 * 180) / Math.PI).toBeCloseTo(90, 9)
+    expect(c.explanation.join(' ')).toContain('needs 13 whole blocks, which build 93.1')
+    // Until the clerk chooses, the radius is kept and the extra arc built.
+    expect(c.closing).toBe('overshoot')
+    expect(c.closingChosen).toBe(false)
+    const [radius, joints, overshoot] = c.closings ?? []
+    // the radius that closes 90° exactly with 13 blocks turns each block 90/13°, joints as before
+    expect(radius.closing).toBe('radius')
+    expect((anglePerBlockRad(W, JI, radius.insideRadiusMm) * 13 * 180) / Math.PI).toBeCloseTo(90, 9)
+    expect(radius.insideRadiusMm).toBeGreaterThan(1600)
+    expect(radius.insideJointMm).toBe(JI)
+    // one block fewer at R = 1600: each turns 90/12 = 7.5° = 0.1308997 rad; the block itself turns
+    // α = 2·asin(196.85/3200) = 0.123109 rad, so the inside joint opens to 2 × 1600 × sin((0.1308997 − 0.123109)/2)
+    // = 3200 × 0.0038953 = 12.465 mm and the outside to 12.465 + 2 × 98.425 × sin(0.0654498) = 12.465 + 12.875
+    // = 25.34 mm: past the 5/8 in (15.875 mm) limit (IRC 2021 R607.10, from memory)
+    expect(joints).toMatchObject({ closing: 'joints', blocks: 12, withinLimits: false })
+    expect(joints.insideJointMm).toBeCloseTo(12.465, 2)
+    expect(joints.outsideJointMm).toBeCloseTo(25.34, 1)
+    expect(overshoot).toMatchObject({ closing: 'overshoot', blocks: 13 })
+    expect(overshoot.builtAngleDeg).toBeCloseTo(93.175, 2)
+  })
+
+  it('closes the arc the way the clerk chose', () => {
+    const exact = planned({ kind: 'curved', insideRadiusMm: 1600, arcAngleDeg: 90, direction: 'left', closing: 'radius' })
+    expect(exact).toMatchObject({ closing: 'radius', closingChosen: true, blocks: 13, enteredRadiusMm: 1600 })
+    expect(exact.builtAngleDeg).toBeCloseTo(90, 9)
+    expect(exact.insideRadiusMm).toBeCloseTo(exact.closings?.[0].insideRadiusMm as number, 9)
+    // a wider radius turns each block less: the outside joint narrows
+    expect(exact.outsideJointMm).toBeLessThan(15.479)
+    const kept = planned({ kind: 'curved', insideRadiusMm: 1600, arcAngleDeg: 90, direction: 'left', closing: 'overshoot' })
+    expect(kept).toMatchObject({ closingChosen: true, insideRadiusMm: 1600, blocks: 13 })
+    // one block fewer opens the joints past the limit: refused, saying why
+    const fewer = planCurvedSegment(curvedSegmentSchema.parse({ kind: 'curved', insideRadiusMm: 1600, arcAngleDeg: 90, direction: 'left', closing: 'joints' }), block8, mortar, 'mm')
+    expect(fewer.ok).toBe(false)
+    if (!fewer.ok) expect(fewer.key).toBe('closing_joints_over_limit')
+    // at a large radius the joints stay within limits: 90° at 3000 mm
+    const wide = planned({ kind: 'curved', insideRadiusMm: 3000, arcAngleDeg: 90, direction: 'left', closing: 'joints' })
+    expect(wide.builtAngleDeg).toBeCloseTo(90, 9)
+    expect(wide.outsideJointMm).toBeLessThanOrEqual(JO_MAX + 1e-9)
+    expect(wide.blocks).toBe((wide.closings?.[2].blocks as number) - 1)
   })
 
   it('takes the arc as an inside length or as a block count', () => {
@@ -152,7 +187,7 @@ describe('blocks on an arc', () => {
     const byCount = planned({ kind: 'curved', insideRadiusMm: 1600, blocks: 10, direction: 'left' })
     expect(byCount.blocks).toBe(10)
     expect(byCount.builtAngleDeg).toBeCloseTo(71.673, 2)
-    expect(byCount.radiusForExactArcMm).toBeUndefined()
+    expect(byCount.closings).toBeUndefined()
   })
 })
 

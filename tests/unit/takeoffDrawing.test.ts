@@ -30,7 +30,7 @@ function computed(w: Wall): WallResultOk {
 
 describe('elevation model', () => {
   const w = computed(wall())
-  const e = w.drawing.elevation
+  const e = w.drawing!.elevation
 
   it('one rectangle per block, each in a section, placed on the column grid', () => {
     expect(e.blocks).toHaveLength(w.geometry.totalBlocks)
@@ -44,10 +44,15 @@ describe('elevation model', () => {
     expect(top).toBeCloseTo(e.heightMm, 9)
   })
 
-  it('tags end blocks at the free end and screws at the framed jamb', () => {
+  it('tags finished units along the free end and free top, and screws at the framed jamb', () => {
     const last = w.geometry.blocksAcross - 1
-    expect(e.blocks.filter((b) => b.kind === 'end').every((b) => b.column === last)).toBe(true)
-    expect(e.blocks.filter((b) => b.kind === 'end')).toHaveLength(8)
+    const top = 7
+    // free end: courses 1–7 of the last column show one edge; free top: every other column of course 8;
+    // where they meet, one unit shows two (common practice: every exposed edge finished)
+    const ends = e.blocks.filter((b) => b.kind === 'end')
+    expect(ends.every((b) => (b.column === last && b.course < top) || (b.course === top && b.column < last))).toBe(true)
+    expect(ends).toHaveLength(7 + last)
+    expect(e.blocks.filter((b) => b.kind === 'double').map((b) => [b.column, b.course])).toEqual([[last, top]])
     expect(e.fixings.length).toBeGreaterThan(0)
     expect(e.fixings.every((f) => f.kind === 'screw' && f.side === 'start' && f.xMm === 0)).toBe(true)
     expect(e.fixings.every((f) => f.yMm > 0 && f.yMm < e.heightMm)).toBe(true)
@@ -56,7 +61,7 @@ describe('elevation model', () => {
 
 describe('plan model', () => {
   const w = computed(wall())
-  const plan = w.drawing.plan
+  const plan = w.drawing!.plan
 
   it('traces one footprint per column, curved ones with inside corners on the layout circle', () => {
     expect(plan).toBeDefined()
@@ -76,13 +81,13 @@ describe('plan model', () => {
   })
 
   it('a straight wall has no plan view', () => {
-    expect(computed(wall({ segments: [{ kind: 'straight', blocks: 6 }] })).drawing.plan).toBeUndefined()
+    expect(computed(wall({ segments: [{ kind: 'straight', blocks: 6 }] })).drawing!.plan).toBeUndefined()
   })
 })
 
 describe('SVG', () => {
   const w = computed(wall({ name: 'Bath <north> & "east"' }))
-  const svg = toSvg(w.drawing)
+  const svg = toSvg(w.drawing!)
 
   it('is a standalone document with a rectangle per block and a legend entry per section', () => {
     expect(svg.startsWith('<svg xmlns="http://www.w3.org/2000/svg"')).toBe(true)
@@ -96,8 +101,15 @@ describe('SVG', () => {
   it('escapes text and can leave out views', () => {
     expect(svg).toContain('Bath &lt;north&gt; &amp; &quot;east&quot;')
     expect(svg).not.toContain('<north>')
-    expect(toSvg(w.drawing, { view: 'elevation' })).not.toContain('class="plan"')
-    expect(toSvg(w.drawing, { view: 'plan', legend: false })).not.toContain('data-section=')
+    expect(toSvg(w.drawing!, { view: 'elevation' })).not.toContain('class="plan"')
+    expect(toSvg(w.drawing!, { view: 'plan', legend: false })).not.toContain('data-section=')
+  })
+
+  it('draws every fixing on the elevation, and writes lengths in the unit asked', () => {
+    expect(svg.match(/data-fixing="start"/g)?.length).toBe(w.fixings.filter((f) => f.side === 'start').length)
+    expect(w.fixings.length).toBeGreaterThan(0)
+    // 1700 mm = 66 15/16 in (÷ 25.4); in millimetres the plan label reads 1700 mm
+    expect(toSvg(w.drawing!, { unit: 'mm' })).toContain('R 1700 mm')
   })
 
   it('gives neighbouring sections distinct tones', () => {

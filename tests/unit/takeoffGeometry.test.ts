@@ -133,9 +133,11 @@ describe('count sizing', () => {
 })
 
 describe('runs of segments', () => {
-  it('counts end blocks at free ends and corner blocks at corners', () => {
-    // 3 + corner + 4 blocks across, 5 courses, free end at the finish: 8 columns × 5 = 40 blocks,
-    // 5 corner blocks, 5 end blocks (one per course at the free end), 30 standard
+  it('counts finished units at free edges and corner blocks at corners', () => {
+    // 3 + corner + 4 blocks across, 5 courses, free end at the finish and a free top: 8 columns × 5 = 40
+    // blocks, 5 corner blocks. Exposed edges (common practice: each takes a finished face): the free end
+    // shows 5 (one per course), the free top 7 (one per non-corner column) = 12 edge modules. The top of the
+    // end column shows two, so: 4 + 6 = 10 units finished on one edge, 1 on two (10 + 2 × 1 = 12); 24 plain.
     const g = laid(
       wall({
         sizing: 'count',
@@ -148,8 +150,10 @@ describe('runs of segments', () => {
     expect(g.blocksAcross).toBe(8)
     expect(g.totalBlocks).toBe(40)
     expect(g.cornerBlocks).toBe(5)
-    expect(g.endBlocks).toBe(5)
-    expect(g.standardBlocks).toBe(30)
+    expect(g.endBlocks).toBe(10)
+    expect(g.doubleEndBlocks).toBe(1)
+    expect(g.finished).toMatchObject({ endCourses: 5, topBlocks: 7, edgeModules: 12, uncovered: 0 })
+    expect(g.standardBlocks).toBe(24)
     expect(g.framedEnds).toBe(1)
     expect(g.headFramed).toBe(false)
   })

@@ -4,10 +4,11 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { materialRuleSchema, type MaterialRule, type Wall } from '../../shared/schemas/takeoff.js'
-import { ANCHOR_SPACING_MM, jambScrews, panelAnchors, reinforcedBedJoints, spacedJoints } from '../../shared/takeoff/fasteners.js'
+import { edgeFixings, FIXING_SPACING_MM, largestGap, reinforcedBedJoints, spacedJoints } from '../../shared/takeoff/fasteners.js'
 import { defaultMaterialRules, evaluateRule, STANDARD_CARTRIDGE_ML, wasteFor } from '../../shared/takeoff/materials.js'
 import { roundUpToStock } from '../../shared/takeoff/packRounding.js'
 import { planSections } from '../../shared/takeoff/sections.js'
+import { DEFAULT_SITE_FIGURES } from '../../shared/takeoff/siteFigures.js'
 import { isWallRefusal, layoutWall } from '../../shared/takeoff/wallLayout.js'
 import { measureWall, type MeasuredWall, type WallMeasures } from '../../shared/takeoff/wallMeasures.js'
 import { flOzToIn3 } from '../../shared/units.js'
@@ -19,15 +20,15 @@ function measured(w: Wall) {
   const geometry = layoutWall(w, 'in')
   if (isWallRefusal(geometry)) throw new Error(geometry.reason)
   const plan = planSections({ columns: geometry.blocksAcross, courses: geometry.courses, curved: geometry.hasCurve, blockWeightKg: w.block.weightKg })
-  const anchors = panelAnchors(geometry, w.freeEnds)
-  const screws = geometry.joint.kind === 'spacer' ? jambScrews(geometry, plan, w.freeEnds) : []
+  const fixings = edgeFixings(geometry, w.freeEnds)
   const reinforcedJoints = reinforcedBedJoints(geometry)
-  return { geometry, plan, anchors, screws, ...measureWall({ geometry, plan, anchors, screws, reinforcedJoints, blockDepthMm: w.block.depthMm }) }
+  const figures = { groutDepthMm: DEFAULT_SITE_FIGURES.groutDepthMm, fixingSpacingMm: DEFAULT_SITE_FIGURES.fixingSpacingMm }
+  return { geometry, plan, fixings, ...measureWall({ geometry, plan, fixings, reinforcedJoints, blockDepthMm: w.block.depthMm, ...figures }) }
 }
 
 function synthetic(over: Partial<WallMeasures>): MeasuredWall {
   const zero = Object.fromEntries(Object.keys(measured(wall()).measures).map((k) => [k, 0])) as WallMeasures
-  return { measures: { ...zero, ...over }, derivation: {} }
+  return { measures: { ...zero, ...over }, derivation: {}, shopJointsMm: 0 }
 }
 
 const rule = (id: string): MaterialRule => defaultMaterialRules.find((r) => r.id === id) as MaterialRule
@@ -52,18 +53,34 @@ describe('measures of the worked example (9 × 10 blocks of 8x8, 1/8 in spacer j
     expect(m.measures.headLengthMm).toBeCloseTo(70.75 * IN, 9)
   })
 
-  it('joint volume for grout: width × depth × length', () => {
+  it('grout by joint volume: face joints filled from each face to the spacer', () => {
     // hand-worked: head joints 8 × 3.175 mm × 1997.075 mm = 25.4 × 1997.075 = 50,725.71 mm²;
-    // bed joints 9 × 3.175 × 1797.05 = 28.575 × 1797.05 = 51,350.70 mm²;
-    // face area 102,076.41 mm² × 98.425 mm depth = 10,046,870 mm³ = 10,046.87 mL
-    expect(m.measures.groutVolumeMl).toBeCloseTo(10_046.87, 1)
+    // bed joints 9 × 3.175 × 1797.05 = 28.575 × 1797.05 = 51,350.70 mm²; face area 102,076.41 mm².
+    // Fill 3/8 in = 9.525 mm from each face (common practice, from memory) × 2 faces = 19.05 mm:
+    // 102,076.41 × 19.05 = 1,944,555.6 mm³ = 1,944.56 mL (full depth would be 10,046.87 mL, 5.2× more)
+    expect(m.measures.groutVolumeMl).toBeCloseTo(1_944.56, 1)
     expect(m.measures.mortarVolumeMl).toBe(0)
+    expect(m.derivation.groutVolumeMl).toContain('9.5 mm from each of 2 faces')
   })
 
-  it('two screws at each section edge on a framed jamb', () => {
-    // every band has one section against each jamb, so contacts = 2 × bands; 2 screws each (common practice)
-    expect(m.measures.jambScrews).toBe(2 * 2 * m.plan.bands.length)
-    expect(m.screws.every((s) => s.xMm === 0 || Math.abs(s.xMm - 70.75 * IN) < 1e-9)).toBe(true)
+  it('screws at no more than 16 in on centre along both jambs and the head, whatever the sections', () => {
+    // source: the 16 in spacing of IRC 2021 R607.5.2.1 (from memory), the spacer maker's default (common practice).
+    // hand-worked: bed joints at 7.875k − 1/16 in: 7.8125, 15.6875, 23.5625 … Farthest within 16 in of the last:
+    // 15.6875, 31.4375, 47.1875, 62.9375; then 78.625 − 62.9375 = 15.6875 ≤ 16 → 4 per jamb.
+    // Head joints at the same spacing along 70.75 in: 15.6875 … 62.9375; 70.75 − 62.9375 = 7.8125 → 4. Total 12.
+    const at = (side: string) => m.fixings.filter((f) => f.side === side)
+    expect(at('start').map((f) => f.yMm / IN)).toEqual([15.6875, 31.4375, 47.1875, 62.9375].map((v) => expect.closeTo(v, 9)))
+    expect(at('end')).toHaveLength(4)
+    expect(at('head').map((f) => f.xMm / IN)).toEqual([15.6875, 31.4375, 47.1875, 62.9375].map((v) => expect.closeTo(v, 9)))
+    expect(m.measures.jambScrews).toBe(12)
+    expect(m.fixings.every((f) => f.kind === 'screw')).toBe(true)
+    // gaps: 15.6875 from the sill, then 2 modules of 7.875 = 15.75 between neighbours, 15.6875 to the top: ≤ 16 in
+    expect(largestGap(at('start').map((f) => f.yMm), 78.625 * IN) / IN).toBeCloseTo(15.75, 9)
+  })
+
+  it('a free end or free top takes no fixings', () => {
+    const free = measured(wall({ freeEnds: { start: true, end: false, top: true } }))
+    expect(free.fixings.map((f) => f.side)).toEqual(['end', 'end', 'end', 'end'])
   })
 })
 
@@ -114,6 +131,25 @@ describe('sealant', () => {
     expect(need.needed).toBeCloseTo(96.528 / 828.06, 4)
   })
 
+  it('wet areas: jambs and head full length on both faces', () => {
+    // source: common practice (the spacer maker's instructions). Hand-worked: jambs 2 × 2000 mm + head 0
+    // = 4000 mm × 2 faces = 8000 mm × 31.669 mm² = 253,354 mm³ = 253.35 mL ÷ 298.69 mL = 0.8482 tubes
+    const wet = rule('sealant-wet')
+    expect(wet.wetAreaOnly).toBe(true)
+    const need = evaluateRule(wet, synthetic({ jambLengthMm: 4000, headLengthMm: 0 }), undefined)
+    expect(need.needed).toBeCloseTo((8000 * ((Math.PI * 6.35 ** 2) / 4)) / 1000 / 298.6926, 4)
+    expect(need.formula).toContain('fixed jambs 4000 mm')
+    expect(need.formula).toContain('× 2 faces')
+  })
+
+  it('curb bed, section tops and seams, each bead listed with its length and size', () => {
+    // hand-worked: 1000 + 500 + 250 = 1750 mm × 31.669 mm² = 55,421 mm³ = 55.42 mL ÷ 298.69 = 0.1855 tubes
+    const need = evaluateRule(rule('sealant-spacer'), synthetic({ bottomRunMm: 1000, sectionTopsMm: 500, sectionSeamsMm: 250 }), undefined)
+    expect(need.needed).toBeCloseTo((1750 * ((Math.PI * 6.35 ** 2) / 4)) / 1000 / 298.6926, 4)
+    expect(need.formula).toContain('curb bed 1000 mm + section tops 500 mm + seams between sections 250 mm = 1750 mm')
+    expect(need.formula).toContain('6.35 mm round bead')
+  })
+
   it('mortar panels: both faces of the jamb and head joints', () => {
     const need = evaluateRule(rule('sealant-mortar'), synthetic({ jambLengthMm: 2000, headLengthMm: 1000 }), undefined)
     // hand-worked: 3000 mm × 2 beads × 31.669 mm² = 190,014 mm³ = 190.01 mL ÷ 298.69 = 0.6362
@@ -125,8 +161,8 @@ describe('grout and mortar', () => {
   it('bags by declared yield, and flags an item without one', () => {
     const m = measured(wall())
     const need = evaluateRule(rule('grout'), m, { sku: 'GR-10', name: 'Grout 10 lb', packSize: 1, sellByPack: false, groutYieldMl: 3000 })
-    // hand-worked: 10,046.87 mL ÷ 3000 mL per bag = 3.349 bags
-    expect(need.needed).toBeCloseTo(3.349, 3)
+    // hand-worked: 1,944.56 mL ÷ 3000 mL per bag = 0.6482 bags
+    expect(need.needed).toBeCloseTo(0.6482, 4)
     expect(evaluateRule(rule('grout'), m, { sku: 'GR', name: 'Grout', packSize: 1, sellByPack: false }).issue).toContain('groutYieldMl')
   })
 })
@@ -141,8 +177,9 @@ describe('mortar panel fixings', () => {
     // hand-worked: bed joint centres at 8k − 1/8 in: 7.875, 15.875, …, 71.875. Farthest within 16 in of the
     // last pick: 15.875, 31.875, 47.875, 63.875; then 79.75 − 63.875 = 15.875 ≤ 16 → 4 per jamb.
     // head joints at 7.875 … 39.875 along 47.75 in: 15.875, 31.875 (47.75 − 31.875 = 15.875) → 2. Total 10.
-    expect(m.anchors.filter((a) => a.side === 'start').map((a) => a.yMm / IN)).toEqual([15.875, 31.875, 47.875, 63.875].map((v) => expect.closeTo(v, 9)))
-    expect(m.anchors.filter((a) => a.side === 'head')).toHaveLength(2)
+    expect(m.fixings.filter((a) => a.side === 'start').map((a) => a.yMm / IN)).toEqual([15.875, 31.875, 47.875, 63.875].map((v) => expect.closeTo(v, 9)))
+    expect(m.fixings.filter((a) => a.side === 'head')).toHaveLength(2)
+    expect(m.fixings.every((a) => a.kind === 'anchor')).toBe(true)
     expect(m.measures.panelAnchors).toBe(10)
     expect(m.measures.jambScrews).toBe(0)
   })
@@ -173,7 +210,8 @@ describe('mortar panel fixings', () => {
         expect(chosen.length).toBeGreaterThanOrEqual(1)
       }),
     )
-    expect(ANCHOR_SPACING_MM).toBeCloseTo(406.4, 9)
+    // 16 in × 25.4 mm (NIST SP 811) = 406.4 mm
+    expect(FIXING_SPACING_MM).toBeCloseTo(406.4, 9)
   })
 })
 

@@ -2,9 +2,10 @@
 // client's lines) and writes a new revision, its lines with their explanations, the snapshot and the
 // audit entry in one transaction. Pick lists and purchase lines read bom_lines from here on.
 import type { DataSource, EntityManager } from 'typeorm'
-import { computeCounterBill, saveBlockers, type CounterBill, type CounterBillLine } from '../../../shared/counter/counterBill.js'
+import { saveBlockers, type CounterBill, type CounterBillLine } from '../../../shared/counter/counterBill.js'
 import type { BomLineRecord, BomRecord, BomSaveInput, StoredExplanation } from '../../../shared/schemas/counter.js'
-import { takeoffSchema, type LengthUnitName, type Takeoff as TakeoffInput } from '../../../shared/schemas/takeoff.js'
+import { takeoffSchema, type LengthUnitName } from '../../../shared/schemas/takeoff.js'
+import { baseSpec } from '../../../shared/takeoff/showerBaseLine.js'
 import { Bom, BomLine } from '../../entities/Bom.js'
 import { Job, Takeoff } from '../../entities/Customer.js'
 import { BomSnapshot } from '../../entities/TakeoffSettings.js'
@@ -13,6 +14,7 @@ import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { availabilityFor } from './availability.js'
+import { computeOffThread } from './computeRunner.js'
 import { loadCounterCatalog } from './counterCatalog.js'
 import { getJobSummary } from './jobService.js'
 import { replaceTakeoffInput } from './takeoffService.js'
@@ -27,7 +29,7 @@ function storedExplanation(line: CounterBillLine): StoredExplanation {
   }
 }
 
-function lineRows(bill: CounterBill, bomId: number, takeoff: TakeoffInput): Partial<BomLine>[] {
+function lineRows(bill: CounterBill, bomId: number): Partial<BomLine>[] {
   return bill.lines.map((line, i) => ({
     bomId,
     lineNo: i + 1,
@@ -38,7 +40,7 @@ function lineRows(bill: CounterBill, bomId: number, takeoff: TakeoffInput): Part
     qty: line.quantity,
     unit: line.unit.slice(0, 10),
     madeToOrder: line.madeToOrder,
-    specJson: line.role === 'showerBase' && takeoff.showerBase ? JSON.stringify(takeoff.showerBase) : null,
+    specJson: line.role === 'showerBase' && bill.showerBase ? JSON.stringify(baseSpec(bill.showerBase, bill.unit)) : null,
     explanationJson: JSON.stringify(storedExplanation(line)),
   }))
 }
@@ -59,12 +61,12 @@ async function takeoffOfJob(em: EntityManager, actor: AuditActor, jobId: number,
   return input.input ? replaceTakeoffInput(em, actor, takeoff.id, input.input) : takeoff
 }
 
-/** Writes the next revision inside the caller's transaction; returns the new bom's id. */
+/** Writes the next revision inside the caller's transaction, in the takeoff's own unit (else `unit`); returns the new bom's id. */
 export async function writeBomRevision(em: EntityManager, actor: AuditActor, jobId: number, input: BomSaveInput, unit: LengthUnitName): Promise<number> {
   await lockedJob(em, jobId)
   const takeoff = await takeoffOfJob(em, actor, jobId, input)
   const takeoffInput = takeoffSchema.parse(JSON.parse(takeoff.inputJson))
-  const bill = computeCounterBill(takeoffInput, await loadCounterCatalog(em), unit)
+  const bill = await computeOffThread(takeoffInput, await loadCounterCatalog(em), unit, 'full')
   const blockers = saveBlockers(bill)
   if (blockers.length > 0) throw AppError.unprocessable(`The bill cannot be saved yet: ${blockers.join(' ')}`, 'bill_not_ready')
   if (bill.lines.length === 0) throw AppError.unprocessable('The takeoff gives no lines: add a wall or an item first.', 'bill_empty')
@@ -84,8 +86,8 @@ export async function writeBomRevision(em: EntityManager, actor: AuditActor, job
     createdBy: actor.userId,
   })
   await em.save(bom)
-  await em.insert(BomLine, lineRows(bill, bom.id, takeoffInput))
-  await em.insert(BomSnapshot, { bomId: bom.id, unit, inputJson: JSON.stringify(bill.bound), wallsJson: JSON.stringify(bill.walls) })
+  await em.insert(BomLine, lineRows(bill, bom.id))
+  await em.insert(BomSnapshot, { bomId: bom.id, unit: bill.unit, inputJson: JSON.stringify(bill.bound), wallsJson: JSON.stringify(bill.walls) })
   await audit(em, actor, 'bom.save', 'bom', bom.id, { jobId, revision, takeoffId: takeoff.id, lines: bill.lines.length })
   return bom.id
 }

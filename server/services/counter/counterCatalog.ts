@@ -3,9 +3,11 @@
 // a loose line may name. The editor gets the same object, so the browser computes what the server saves.
 import type { EntityManager } from 'typeorm'
 import type { BlockOption, CounterCatalog, LooseItemOption, RoleItemRecord, RuleRecord } from '../../../shared/schemas/counter.js'
-import { materialRuleSchema, type MaterialFamily, type MaterialRole, type ThicknessClass } from '../../../shared/schemas/takeoff.js'
+import { materialRuleSchema, siteFiguresSchema, type MaterialFamily, type MaterialRole, type SiteFigures, type ThicknessClass } from '../../../shared/schemas/takeoff.js'
 import { defaultMaterialRules, defaultWastePct } from '../../../shared/takeoff/materials.js'
+import { DEFAULT_SITE_FIGURES } from '../../../shared/takeoff/siteFigures.js'
 import { MM_PER_FOOT } from '../../../shared/units.js'
+import { AppSetting } from '../../entities/AppSetting.js'
 import { Item } from '../../entities/Item.js'
 import { MaterialRoleItem, MaterialRuleRow, WasteAllowance } from '../../entities/TakeoffSettings.js'
 
@@ -96,6 +98,28 @@ export async function loadWastePct(em: EntityManager): Promise<Record<MaterialFa
   return out
 }
 
+/** app_settings key of each site figure. */
+export const FIGURE_KEYS: Record<keyof SiteFigures, string> = {
+  groutDepthMm: 'takeoff.grout_depth_mm',
+  fixingSpacingMm: 'takeoff.fixing_spacing_mm',
+  leftoverWarnMm: 'takeoff.leftover_warn_mm',
+  baseToleranceMm: 'takeoff.base_tolerance_mm',
+  baseToleranceDeg: 'takeoff.base_tolerance_deg',
+}
+
+/** The site figures in force: an admin's stored value where it still passes the schema, else the default. */
+export async function loadSiteFigures(em: EntityManager): Promise<SiteFigures> {
+  const rows = await em.getRepository(AppSetting).find()
+  const byKey = new Map(rows.map((r) => [r.key, r.value]))
+  const out = { ...DEFAULT_SITE_FIGURES }
+  for (const [name, key] of Object.entries(FIGURE_KEYS) as [keyof SiteFigures, string][]) {
+    const stored = byKey.get(key)
+    const value = stored === undefined ? undefined : Number(stored)
+    if (value !== undefined && siteFiguresSchema.shape[name].safeParse(value).success) out[name] = value
+  }
+  return out
+}
+
 async function loadBlocksAndLooseItems(em: EntityManager): Promise<{ blocks: BlockOption[]; looseItems: LooseItemOption[] }> {
   const items = await em.find(Item, { where: { active: true }, order: { sku: 'ASC' } })
   // Walls are laid in the base block; end-finish and corner shapes come in through the role mapping.
@@ -106,11 +130,12 @@ async function loadBlocksAndLooseItems(em: EntityManager): Promise<{ blocks: Blo
 }
 
 export async function loadCounterCatalog(em: EntityManager): Promise<CounterCatalog> {
-  const [{ blocks, looseItems }, roleItems, rules, wastePct] = await Promise.all([
+  const [{ blocks, looseItems }, roleItems, rules, wastePct, figures] = await Promise.all([
     loadBlocksAndLooseItems(em),
     loadRoleItems(em),
     loadRuleRecords(em),
     loadWastePct(em),
+    loadSiteFigures(em),
   ])
-  return { blocks, looseItems, roleItems, rules: rules.filter((r) => r.enabled).map((r) => r.rule), wastePct }
+  return { blocks, looseItems, roleItems, rules: rules.filter((r) => r.enabled).map((r) => r.rule), wastePct, figures }
 }

@@ -1,16 +1,16 @@
 // The admin's side of the takeoff: material rules (change a shipped one, add one, switch one off, go back
 // to the shipped rule), waste allowances per family, and which catalog item fills each material role.
 import type { DataSource, EntityManager } from 'typeorm'
-import type { RoleItemInput, RoleItemRecord, RuleOverrideInput, RuleRecord, WasteUpdateInput } from '../../../shared/schemas/counter.js'
+import type { RoleItemInput, RoleItemRecord, RuleOverrideInput, RuleRecord, SiteFiguresUpdateInput, WasteUpdateInput } from '../../../shared/schemas/counter.js'
 import { LENGTH_ROLES, ROLE_FAMILIES, YIELD_ROLES } from '../../../shared/counter/roleFamilies.js'
-import type { MaterialFamily } from '../../../shared/schemas/takeoff.js'
+import type { MaterialFamily, SiteFigures } from '../../../shared/schemas/takeoff.js'
 import { defaultMaterialRules } from '../../../shared/takeoff/materials.js'
 import { Item } from '../../entities/Item.js'
 import { MaterialRoleItem, MaterialRuleRow, WasteAllowance } from '../../entities/TakeoffSettings.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
-import { loadRoleItems, loadRuleRecords, loadWastePct, roleItemRecord } from './counterCatalog.js'
+import { FIGURE_KEYS, loadRoleItems, loadRuleRecords, loadSiteFigures, loadWastePct, roleItemRecord } from './counterCatalog.js'
 
 export const listRules = (ds: DataSource): Promise<RuleRecord[]> => loadRuleRecords(ds.manager)
 
@@ -52,6 +52,26 @@ export async function updateWaste(ds: DataSource, actor: AuditActor, input: Wast
     await audit(em, actor, 'takeoff.waste.update', 'waste_allowance', null, input)
   })
   return getWaste(ds)
+}
+
+export const getSiteFigures = (ds: DataSource) => loadSiteFigures(ds.manager)
+
+/** A number sets a figure; null puts it back to the default. */
+export async function updateSiteFigures(ds: DataSource, actor: AuditActor, input: SiteFiguresUpdateInput): Promise<SiteFigures> {
+  await inTransaction(ds, async (em) => {
+    for (const [name, value] of Object.entries(input) as [keyof SiteFigures, number | null | undefined][]) {
+      if (value === undefined) continue
+      if (value === null) await em.query('DELETE FROM app_settings WHERE setting_key = ?', [FIGURE_KEYS[name]])
+      else {
+        await em.query(
+          'INSERT INTO app_settings (setting_key, value, updated_by) VALUES (?, ?, ?) ON DUPLICATE KEY UPDATE value = VALUES(value), updated_by = VALUES(updated_by)',
+          [FIGURE_KEYS[name], String(value), actor.userId],
+        )
+      }
+    }
+    await audit(em, actor, 'takeoff.figures.update', 'app_settings', 'takeoff', input)
+  })
+  return getSiteFigures(ds)
 }
 
 export const listRoleItems = (ds: DataSource): Promise<RoleItemRecord[]> => loadRoleItems(ds.manager)

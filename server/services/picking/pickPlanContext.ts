@@ -73,9 +73,19 @@ export async function loadWarehouse(em: EntityManager, id: number, field = 'ware
   return wh
 }
 
+/** A bill replaced by a later revision of its job's bill is never picked from again. */
+async function refuseSuperseded(em: EntityManager, bom: Bom, locking: boolean): Promise<void> {
+  const [row] = (await em.query(`SELECT MAX(revision) AS latest FROM boms WHERE job_id = ?${locking ? ' LOCK IN SHARE MODE' : ''}`, [bom.jobId])) as { latest: number | null }[]
+  const latest = Number(row?.latest ?? bom.revision)
+  if (latest > bom.revision) {
+    throw new AppError(409, 'bill_superseded', `Revision ${bom.revision} of this job's bill was replaced by revision ${latest}; start the pick list from revision ${latest}.`)
+  }
+}
+
 export async function loadPlanContext(em: EntityManager, bomId: number, warehouseId: number, opts: { locking: boolean }): Promise<PlanContext> {
   const bom = await em.findOne(Bom, { where: { id: bomId }, ...(opts.locking && { lock: { mode: 'pessimistic_write' as const } }) })
   if (!bom) throw AppError.badRequest('That bill of materials does not exist.', { bomId: 'Choose a saved bill of materials' })
+  await refuseSuperseded(em, bom, opts.locking)
   const warehouse = await loadWarehouse(em, warehouseId)
   const job = await em.findOneByOrFail(Job, { id: bom.jobId })
   const customer = await em.findOneBy(Customer, { id: job.customerId })

@@ -4,7 +4,8 @@ import { wallBlockFields } from '@shared/counter/counterBill'
 import type { BlockOption } from '@shared/schemas/counter'
 import type { JointKind, Segment, Takeoff, Wall } from '@shared/schemas/takeoff'
 import type { WallResult } from '@shared/takeoff/billOfMaterials'
-import { JOINT_FACTS } from '@shared/takeoff/geometry'
+import { workableRadiusMm } from '@shared/takeoff/curve'
+import { JOINT_FACTS, resolveJoint } from '@shared/takeoff/geometry'
 import { MM_PER_INCH } from '@shared/units'
 
 export const defaultJointMm = (kind: JointKind) => (kind === 'mortar' ? JOINT_FACTS.mortarJointMm : JOINT_FACTS.spacerJointMm)
@@ -15,7 +16,8 @@ export function newWall(index: number, block: BlockOption | undefined): Wall {
   return {
     name: `Wall ${index + 1}`,
     sizing: 'opening',
-    heightMm: 84 * MM_PER_INCH,
+    // 10 courses of 8x8 on 1/8 in joints with 3/8 in at the head: 10 × 7 7/8 + 3/8 = 79 1/8 in
+    heightMm: 79.125 * MM_PER_INCH,
     block: { nominal: '8x8', faceWidthMm: 7.75 * MM_PER_INCH, faceHeightMm: 7.75 * MM_PER_INCH, depthMm: 3.875 * MM_PER_INCH, thicknessClass: 'standard', weightKg: 2.9 },
     ...(block ? blockFields(block) : {}),
     joint: { kind: 'spacer', jointMm: defaultJointMm('spacer') },
@@ -26,10 +28,13 @@ export function newWall(index: number, block: BlockOption | undefined): Wall {
   }
 }
 
-export function newSegment(kind: Segment['kind'], sizing: Wall['sizing']): Segment {
+export function newSegment(kind: Segment['kind'], wall: Pick<Wall, 'sizing' | 'block' | 'joint' | 'blockOnEnd'>): Segment {
   if (kind === 'corner') return { kind: 'corner', direction: 'left' }
-  if (kind === 'curved') return { kind: 'curved', insideRadiusMm: 60 * MM_PER_INCH, arcAngleDeg: 90, direction: 'left' }
-  return sizing === 'opening' ? { kind: 'straight', lengthMm: 48 * MM_PER_INCH } : { kind: 'straight', blocks: 6 }
+  if (kind === 'curved') {
+    const face = wall.blockOnEnd ? wall.block.faceHeightMm : wall.block.faceWidthMm
+    return { kind: 'curved', insideRadiusMm: workableRadiusMm(face, wall.block.depthMm, resolveJoint(wall.joint)), arcAngleDeg: 90, direction: 'left' }
+  }
+  return wall.sizing === 'opening' ? { kind: 'straight', lengthMm: 48 * MM_PER_INCH } : { kind: 'straight', blocks: 6 }
 }
 
 export function emptyTakeoff(name = ''): Takeoff {

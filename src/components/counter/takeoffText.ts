@@ -1,0 +1,73 @@
+// The takeoff's computed words in the reader's language and unit: cautions, refusals and field problems
+// carry a key and their figures (lengths in mm); these helpers word them through vue-i18n, and fall
+// back to the English text the computation wrote when a key has no translation.
+import type { ZodError } from 'zod'
+import type { Caution } from '@shared/takeoff/cautions'
+import type { SvgWords } from '@shared/takeoff/drawingSvg'
+import { takeoffIssues } from '@shared/takeoff/issues'
+import { formatLength, type LengthUnit } from '@shared/units'
+
+type Translate = (key: string, values?: Record<string, unknown>) => string
+type Exists = (key: string) => boolean
+
+/** Lengths (…Mm) in the reader's unit, a smallest radius rounded up so the size named works. */
+export function wordParams(params: Record<string, string | number> = {}, unit: LengthUnit, t?: Translate): Record<string, string | number> {
+  const out: Record<string, string | number> = {}
+  for (const [k, v] of Object.entries(params)) {
+    if (typeof v === 'number' && /Mm$/.test(k)) {
+      out[k] = formatLength(v, unit, { feet: v >= 120 * 25.4, style: 'words', rounding: /^smallest/.test(k) ? 'up' : 'nearest' })
+    } else if (t && k === 'side') out[k] = t(`takeoff.side.${v}`)
+    else if (t && k === 'role') out[k] = t(`takeoff.roleName.${v}`)
+    else if (t && k === 'fields') out[k] = String(v).split(',').map((f) => t(`takeoff.mismatch.${f}`)).join(', ')
+    else out[k] = v
+  }
+  return out
+}
+
+function keyed(prefix: string, item: { key?: string; params?: Record<string, string | number> }): string | undefined {
+  if (!item.key) return undefined
+  if (item.key === 'leftover_space') return `${prefix}.leftover_space.${item.params?.where ?? 'jambs'}`
+  return `${prefix}.${item.key}`
+}
+
+/** A caution in the reader's language and unit; its English text when it has no key. */
+export function cautionText(c: Caution, unit: LengthUnit, t: Translate, te: Exists): string {
+  const key = keyed('takeoff.caution', c) ?? keyed('takeoff.refusal', c)
+  for (const k of [key, c.key ? `takeoff.refusal.${c.key}` : undefined]) {
+    if (k && te(k)) return t(k, wordParams(c.params, unit, t))
+  }
+  return c.message
+}
+
+/** Why a wall cannot be built, in the reader's language and unit. */
+export function refusalText(w: { key?: string; params?: Record<string, string | number>; reason: string }, unit: LengthUnit, t: Translate, te: Exists): string {
+  const k = w.key ? `takeoff.refusal.${w.key}` : undefined
+  return k && te(k) ? t(k, wordParams(w.params, unit, t)) : w.reason
+}
+
+/** Field problems of a takeoff form, per path, in the reader's language and unit ("At most 100 ft"). */
+export function fieldProblems(error: ZodError, unit: LengthUnit, t: Translate, te: Exists): Record<string, string> {
+  const out: Record<string, string> = {}
+  for (const issue of takeoffIssues(error, unit)) {
+    const k = `takeoff.errors.${issue.key}`
+    const p = issue.params
+    const values = {
+      ...wordParams(p, unit, t),
+      ...(typeof p.maxMm === 'number' ? { max: formatLength(p.maxMm, unit, { feet: true, style: 'words' }) } : {}),
+      ...(typeof p.minMm === 'number' ? { min: formatLength(p.minMm, unit, { feet: true, style: 'words' }) } : {}),
+    }
+    out[issue.path] = te(k) ? t(k, values) : issue.message
+  }
+  return out
+}
+
+/** The drawing's words in the reader's language. */
+export function svgWords(t: Translate): SvgWords {
+  return {
+    elevation: t('takeoff.svg.elevation'),
+    plan: t('takeoff.svg.plan'),
+    freeEnd: t('takeoff.svg.freeEnd'),
+    section: (n, blocks, kg, heavy) => `${t('takeoff.svg.section', { n, blocks, kg })}${heavy ? ` ${t('takeoff.svg.heavy')}` : ''}`,
+    key: t('takeoff.svg.key'),
+  }
+}

@@ -41,7 +41,7 @@ describe('v-html', () => {
       segments: [{ kind: 'straight', blocks: 3 }], freeEnds: { start: false, end: false, top: false }, exposure: 'interior', wetArea: false,
     })
     const result = computeTakeoff(takeoffSchema.parse({ walls: [wall], looseLines: [] }), {}, { unit: 'in' }).walls[0]
-    if (result.status !== 'ok') throw new Error('the test wall was refused')
+    if (result.status !== 'ok' || !result.drawing) throw new Error('the test wall was refused or drawn without its drawing')
     const svg = toSvg(result.drawing, { widthPx: 760, title: hostile })
     expect(svg).not.toMatch(/<img|<script|onerror="/)
     // source: XML 1.0 §2.4, & and < in character data are written as &amp; and &lt;

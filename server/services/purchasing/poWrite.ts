@@ -101,8 +101,10 @@ export async function insertPo(em: EntityManager, actor: AuditActor, head: NewPo
  */
 export async function addToOpenDraft(em: EntityManager, actor: AuditActor, head: NewPo, lines: NewPoLine[], source: string) {
   await em.query('SELECT id FROM vendors WHERE id = ? FOR UPDATE', [head.vendorId])
+  // A locking read: it sees the draft another transaction committed while this one waited for the vendor
+  // row, which a plain read under REPEATABLE READ (snapshot taken at this transaction's first read) would not.
   const [open]: { id: number }[] = await em.query(
-    `SELECT id FROM purchase_orders WHERE status = 'draft' AND vendor_id = ? AND warehouse_id = ? AND job_id <=> ? ORDER BY id LIMIT 1`,
+    `SELECT id FROM purchase_orders WHERE status = 'draft' AND vendor_id = ? AND warehouse_id = ? AND job_id <=> ? ORDER BY id LIMIT 1 FOR UPDATE`,
     [head.vendorId, head.warehouseId, head.jobId ?? null],
   )
   if (!open) return null

@@ -206,6 +206,8 @@ export interface PickListSummary {
   customerName: string
   warehouse: { id: number; code: string; name: string }
   lineCount: number
+  /** Lines done, short (not settled), settled and left: the same rule as the handheld's progress. */
+  lineStates: { total: number; done: number; short: number; resolved: number; left: number }
   qty: number
   confirmedQty: number
   shortQty: number

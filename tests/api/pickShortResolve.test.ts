@@ -18,12 +18,14 @@ let counter: supertest.Agent
 let s: PickScenario
 let listId: number
 let line: PickLineView
+let bomId: number
 beforeAll(async () => {
   h = await startApiHarness()
   crew = await h.as('warehouse')
   counter = await h.as('counter')
   s = await pickScenario(h.ds, crew)
   const bom = await fxBom(h.ds, s.tag, [{ itemId: s.altBlock.id, qty: 10 }])
+  bomId = bom.bomId
   listId = await releasedPickList(counter, bom.bomId, s.main.id)
   line = (await detail()).lines[0]
 })
@@ -32,6 +34,8 @@ afterAll(() => h?.close())
 async function detail(): Promise<PickListDetail> {
   return (await crew.get(`/api/pick-lists/${listId}`)).body as PickListDetail
 }
+/** The list as the warehouse's start page reads it: lines done, short, settled and left. */
+const lineStates = async () => (await crew.get(`/api/pick-lists?bomId=${bomId}&status=all`)).body[0].lineStates
 const lineNow = async (id = line.id) => (await detail()).lines.find((l) => l.id === id)!
 const confirm = (body: object) => crew.post(`/api/pick-lists/${listId}/confirmations`).set(CSRF).set('Idempotency-Key', randomUUID()).send(body)
 const resolve = (agent: supertest.Agent, body: object) =>
@@ -44,6 +48,7 @@ describe('a line closed short', () => {
     expect((await confirm({ lineId: line.id, binScan: altScan.binScan, itemScan: lotScan, qty: 4, shortReason: 'damaged' })).status).toBe(201)
     let now = await lineNow()
     expect({ short: now.shortQty, resolved: now.shortResolvedQty, state: lineProgress(now) }).toEqual({ short: 6, resolved: 0, state: 'short' })
+    expect(await lineStates()).toEqual({ total: 1, done: 0, short: 1, resolved: 0, left: 0 })
 
     // The counter backorders 2 of the 6: purchasing gets an accepted backorder suggestion.
     const suggestions = await countRows(h.ds, 'purchase_suggestions', `item_id = ? AND source = 'backorder'`, [s.altBlock.id])
@@ -85,6 +90,8 @@ describe('a line closed short', () => {
     expect(again.body.error.code).toBe('short_settled')
 
     expect((await confirm({ lineId: added.id, binScan: `B:${added.binCode}`, itemScan: s.block.sku, lotScan: `R1${s.tag}`, qty: 1 })).status).toBe(201)
+    // hand-worked: the substitute line picked in full, the short line settled
+    expect(await lineStates()).toEqual({ total: 2, done: 1, short: 0, resolved: 1, left: 0 })
     expect((await crew.post(`/api/pick-lists/${listId}/complete`).set(CSRF).send({ acceptShort: false })).status).toBe(200)
     expect(await pickLedgerCheck(h.ds, listId)).toEqual({ taken: [4, 3, 1], problems: [] })
     expect(await ledgerMismatches(h.ds, [s.block.id, s.altBlock.id])).toEqual([])

@@ -115,6 +115,16 @@ describe('handheld pick screen', () => {
     await scan(page, `L:${s.altBlock.sku}|W1${s.tag}`) // our own lot label: item and lot in one scan
     await poll(() => step(page)).toBe('qty')
     await page.locator('[data-test="short-pick"]').click()
+    // 12 found of 10 wanted can't be a short pick: refused beside the field, never quietly made 9.
+    await page.locator('[data-test="short-found"]').fill('12')
+    await page.locator('[data-test="short-reason-damaged"]').click()
+    await page.locator('[data-test="short-save"]').click()
+    expect(await page.locator('[data-test="short-found-problem"]').textContent())
+      .toBe('Escriba un número entero de 0 a 9 uds.: si encontró todas, confirme la línea en vez de marcar faltante.')
+    await page.locator('[data-test="short-found"]').fill('1,5')
+    await page.locator('[data-test="short-save"]').click()
+    await page.locator('[data-test="short-found-problem"]').waitFor()
+    expect(await countRows(h.ds, 'pick_confirmations', 'pick_list_id = ?', [id])).toBe(0)
     await page.locator('[data-test="short-found"]').fill('4')
     await page.locator('[data-test="short-reason-damaged"]').click()
     await h.screenshot(page, 'pick-handheld-short')

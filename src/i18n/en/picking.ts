@@ -151,6 +151,7 @@ export default {
     shortPick: 'Short pick',
     shortTitle: 'Short pick',
     found: 'How many did you find? ({left} were wanted)',
+    foundProblem: 'Enter a whole number from 0 to {max}: a line with everything found is confirmed, not short.',
     why: 'Why is it short?',
     saveShort: 'Record short pick',
     cancel: 'Cancel',

@@ -151,6 +151,7 @@ export default {
     shortPick: 'Falta material',
     shortTitle: 'Falta material',
     found: '¿Cuántas encontró? (se pedían {left})',
+    foundProblem: 'Escriba un número entero de 0 a {max}: si encontró todas, confirme la línea en vez de marcar faltante.',
     why: '¿Por qué falta?',
     saveShort: 'Registrar faltante',
     cancel: 'Cancelar',

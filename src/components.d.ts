@@ -61,6 +61,8 @@ declare module 'vue' {
     PickCautions: typeof import('./components/picking/PickCautions.vue')['default']
     PickOutboxDiscard: typeof import('./components/picking/PickOutboxDiscard.vue')['default']
     PickOutboxItem: typeof import('./components/picking/PickOutboxItem.vue')['default']
+    PickProgress: typeof import('./components/picking/PickProgress.vue')['default']
+    PickShortResolve: typeof import('./components/picking/PickShortResolve.vue')['default']
     PickStatusTag: typeof import('./components/picking/PickStatusTag.vue')['default']
     PurchasingItemPicker: typeof import('./components/purchasing/PurchasingItemPicker.vue')['default']
     RouterLink: typeof import('vue-router')['RouterLink']

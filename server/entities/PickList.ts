@@ -68,6 +68,8 @@ export class PickShortage {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
   @Column({ name: 'pick_list_id', type: 'int' }) pickListId: number
   @Column({ name: 'bom_line_id', type: 'int' }) bomLineId: number
+  /** The line closed short that this row resolves (a backorder or substitute chosen after picking). */
+  @Column({ name: 'pick_list_line_id', type: 'int', nullable: true }) pickListLineId: number | null
   @Column({ name: 'item_id', type: 'int' }) itemId: number
   @Column({ type: 'int' }) qty: number
   @Column({ type: 'varchar', length: 12 }) action: ShortageAction

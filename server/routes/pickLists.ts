@@ -4,6 +4,7 @@
 import type { Request } from 'express'
 import {
   pickCancelSchema, pickCompleteSchema, pickConfirmSchema, pickDiscardSchema, pickCreateSchema, pickListQuerySchema, pickPlanSchema, pickShipSchema,
+  pickShortResolveSchema,
 } from '../../shared/schemas/picking.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
@@ -18,6 +19,7 @@ import { createPickLists } from '../services/picking/pickListCreate.js'
 import { pickListDetail } from '../services/picking/pickListDetail.js'
 import { bomsForPicking, pickListSummaries } from '../services/picking/pickListSummaries.js'
 import { planPick, planView } from '../services/picking/pickPlanning.js'
+import { resolveShort } from '../services/picking/pickShortResolve.js'
 import { shipProposedTransfer } from '../services/picking/pickTransfers.js'
 
 const readers = allow('admin', 'counter', 'warehouse')
@@ -100,6 +102,17 @@ export default (ctx: AppContext) =>
         const id = listId(req)
         const input = parseBody(pickDiscardSchema, req.body)
         return runStockRequest(ctx, req, res, input, (em) => discardConfirmation(em, actorOf(req), id, input))
+      },
+    },
+    {
+      // A line closed short: found on a recount, backordered or substituted (the counter or the warehouse).
+      method: 'post',
+      path: '/:id/short-resolutions',
+      access: readers,
+      handler: (req, res) => {
+        const id = listId(req)
+        const input = parseBody(pickShortResolveSchema, req.body)
+        return runStockRequest(ctx, req, res, input, (em) => resolveShort(em, actorOf(req), id, input))
       },
     },
     {

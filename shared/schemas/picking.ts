@@ -87,6 +87,24 @@ export const pickDiscardSchema = z
   .refine((d) => d.reason !== 'other' || !!d.note?.trim(), { path: ['note'], ...issueOf('discard_note_needed') })
 export type PickDiscardInput = z.infer<typeof pickDiscardSchema>
 
+/**
+ * How a line closed short is settled: the units were found after all (a recount of the bin), so
+ * they go back on the line to pick; the buyer orders them (a backorder); or another item is picked
+ * in their place (a substitute, allocated and held at once).
+ */
+export const SHORT_RESOLUTIONS = ['recount', 'backorder', 'substitute'] as const
+export type ShortResolution = (typeof SHORT_RESOLUTIONS)[number]
+
+export const pickShortResolveSchema = z
+  .object({
+    lineId: id,
+    action: z.enum(SHORT_RESOLUTIONS, { error: 'Choose how to settle it' }),
+    qty: z.coerce.number({ error: 'Enter a quantity' }).int('Whole units only').min(1, 'At least one').max(1_000_000, 'Too large'),
+    substituteItemId: id.optional().nullable(),
+  })
+  .refine((r) => r.action !== 'substitute' || !!r.substituteItemId, { path: ['substituteItemId'], message: 'Choose the substitute item' })
+export type PickShortResolveInput = z.infer<typeof pickShortResolveSchema>
+
 export const pickCompleteSchema = z.object({
   /** Lines not fully confirmed are closed short ('not_picked'); without this they stop the completion. */
   acceptShort: z.boolean().default(false),
@@ -136,6 +154,9 @@ export interface PickLineView {
   confirmedQty: number
   shortQty: number
   shortReasons: ShortReason[]
+  /** Short units already settled by a backorder or a substitute (a recount puts them back on the line instead). */
+  shortResolvedQty: number
+  shortResolutions: { action: 'backorder' | 'substitute'; qty: number; sku: string | null }[]
   remaining: number
   issuedQty: number
   /** Set when this line substitutes another item of the bill of materials. */
@@ -186,6 +207,8 @@ export interface PickListSummary {
   customerName: string
   warehouse: { id: number; code: string; name: string }
   lineCount: number
+  /** Lines done, short (not settled), settled and left: the same rule as the handheld's progress. */
+  lineStates: { total: number; done: number; short: number; resolved: number; left: number }
   qty: number
   confirmedQty: number
   shortQty: number
@@ -216,6 +239,17 @@ export interface PickConfirmAnswer {
   remaining: number
   listStatus: string
   replayed: boolean
+}
+
+/** A short line settled: its figures now, and the substitute lines added to the list (if any). */
+export interface PickShortResolveAnswer {
+  lineId: number
+  action: ShortResolution
+  qty: number
+  shortQty: number
+  shortResolvedQty: number
+  remaining: number
+  addedLineIds: number[]
 }
 
 /** A discard is recorded, unless the server had the confirmation already: then it answers with it. */

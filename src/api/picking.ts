@@ -1,7 +1,8 @@
 // Typed calls for pick lists. State changes carry an Idempotency-Key; scanner confirmations bring
 // their own (made when the picker confirmed, kept with the queued confirmation).
 import type {
-  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickDiscardAnswer, PickDiscardInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput, WalkWarehouse,
+  BomForPicking, PickConfirmAnswer, PickConfirmInput, PickDiscardAnswer, PickDiscardInput, PickCreateInput, PickListDetail, PickListSummary, PickPlan, PickPlanInput,
+  PickShortResolveAnswer, PickShortResolveInput, WalkWarehouse,
 } from '@shared/schemas/picking'
 import type { DeviceOutboxReportInput } from '@shared/schemas/devices'
 import { api } from './client'
@@ -33,5 +34,7 @@ export const pickingApi = {
   confirm: (id: number, body: PickConfirmInput, key: string) => api.post<PickConfirmAnswer>(`/pick-lists/${id}/confirmations`, body, keyed(key)),
   /** How many confirmations wait or were refused on this device, for the warehouse's start page. */
   reportOutbox: (deviceId: string, body: DeviceOutboxReportInput) => api.put<{ ok: true }>(`/devices/${deviceId}/outbox`, body),
+  /** A line closed short: found on a recount, backordered, or substituted. */
+  resolveShort: (id: number, body: PickShortResolveInput) => api.post<PickShortResolveAnswer>(`/pick-lists/${id}/short-resolutions`, body, keyed()),
   discard: (id: number, body: PickDiscardInput, key: string) => api.post<PickDiscardAnswer>(`/pick-lists/${id}/discards`, body, keyed(key)),
 }

@@ -124,6 +124,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/pick-lists/:id/cancel': { access: ['admin', 'counter'] },
   'POST /api/pick-lists/:id/confirmations': { access: ['admin', 'warehouse'] },
   'POST /api/pick-lists/:id/discards': { access: ['admin', 'warehouse'] },
+  'POST /api/pick-lists/:id/short-resolutions': { access: ['admin', 'counter', 'warehouse'] },
   'POST /api/pick-lists/:id/complete': { access: ['admin', 'warehouse'] },
   'POST /api/pick-lists/:id/transfers/ship': { access: ['admin', 'warehouse'] },
   'GET /api/picking/warehouses': { access: ['admin', 'counter', 'warehouse'] },

@@ -49,7 +49,7 @@ describe('counter and pick lists', () => {
       const res = await crew.post(`/api/pick-lists/${id}/confirmations`).set(CSRF).set('Idempotency-Key', randomUUID())
         .send({ lineId: spacer.id, binScan: 'B:A-02-1', itemScan: s.spacer.sku, qty: 20 })
       expect(res.status).toBe(201)
-      await expect.poll(() => page.locator('[data-test="pick-progress"]').getAttribute('data-done'), { timeout: 15_000 }).toBe('20')
+      await expect.poll(() => page.locator('[data-test="progress-unit"][data-unit="each"]').getAttribute('data-confirmed'), { timeout: 15_000 }).toBe('20')
       await expect.poll(() => page.locator('[data-test="pick-list-status"]').getAttribute('data-status')).toBe('picking')
       await h.screenshot(page, 'pick-counter-status')
 

@@ -1,7 +1,8 @@
 // The handheld pick screen in a real browser on a phone-sized page, driven like a keyboard-wedge
 // scanner: typed scans ending with Enter. Wrong item, wrong bin, wrong lot and an over-pick are
 // refused on screen (in Spanish: the demo warehouse user's locale) and change nothing; the right
-// scans confirm, and completing issues the stock.
+// scans confirm, and completing issues the stock. The counter's note for the warehouse is on the
+// handheld; a lot's label can be printed again from the line; a short line stays short until settled.
 import type supertest from 'supertest'
 import type { BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -23,7 +24,7 @@ beforeAll(async () => {
   s = await pickScenario(h.ds, crew)
   // hand-worked: block 16 from the oldest lot R1 (B-01-1 10, then A-03-1 6); spacer 10 from A-02-1; walked A-02-1, A-03-1, B-01-1
   const bom = await fxBom(h.ds, s.tag, [{ itemId: s.block.id, qty: 16 }, { itemId: s.spacer.id, qty: 10 }])
-  listId = await releasedPickList(counter, bom.bomId, s.main.id)
+  listId = await releasedPickList(counter, bom.bomId, s.main.id, 'Deliver to the back gate; pallets wrapped twice')
   ;({ page, context } = await h.newPage({ viewport: { width: 390, height: 844 } }))
   await h.signIn(page, 'warehouse')
 })
@@ -51,6 +52,7 @@ describe('handheld pick screen', () => {
     await page.waitForURL(new RegExp(`/warehouse/pick/${listId}$`))
     await poll(() => page.locator('[data-test="line-bin"]').textContent()).toBe('A-02-1')
     expect(await page.locator('[data-test="step"]').textContent()).toContain('Escanee la etiqueta de la ubicación')
+    expect(await page.locator('[data-test="counter-note"]').textContent()).toContain('Nota del mostrador: Deliver to the back gate; pallets wrapped twice')
 
     await scan(page, 'B:A-02-1')
     await poll(() => step(page)).toBe('item')
@@ -102,12 +104,27 @@ describe('handheld pick screen', () => {
     const bom = await fxBom(h.ds, s.tag, [{ itemId: s.altBlock.id, qty: 10 }])
     const id = await releasedPickList(counter, bom.bomId, s.main.id)
     await page.goto(`/warehouse/pick/${id}`)
+    // A torn lot label: printed again from the line, with the lot's own code on it.
+    await page.locator('[data-test="reprint-lot"]').click()
+    await page.waitForURL(/\/stock\/labels\?kind=lot/)
+    await poll(() => page.locator('[data-test="label"]').allTextContents()).toEqual([expect.stringContaining(`${s.altBlock.sku} · W1${s.tag}`)])
+    await page.goBack()
     await page.locator('[data-test="view-list"]').click()
     await page.locator('[data-test="pick-row-B-02-1"]').click()
     await scan(page, 'B:B-02-1')
     await scan(page, `L:${s.altBlock.sku}|W1${s.tag}`) // our own lot label: item and lot in one scan
     await poll(() => step(page)).toBe('qty')
     await page.locator('[data-test="short-pick"]').click()
+    // 12 found of 10 wanted can't be a short pick: refused beside the field, never quietly made 9.
+    await page.locator('[data-test="short-found"]').fill('12')
+    await page.locator('[data-test="short-reason-damaged"]').click()
+    await page.locator('[data-test="short-save"]').click()
+    expect(await page.locator('[data-test="short-found-problem"]').textContent())
+      .toBe('Escriba un número entero de 0 a 9 uds.: si encontró todas, confirme la línea en vez de marcar faltante.')
+    await page.locator('[data-test="short-found"]').fill('1,5')
+    await page.locator('[data-test="short-save"]').click()
+    await page.locator('[data-test="short-found-problem"]').waitFor()
+    expect(await countRows(h.ds, 'pick_confirmations', 'pick_list_id = ?', [id])).toBe(0)
     await page.locator('[data-test="short-found"]').fill('4')
     await page.locator('[data-test="short-reason-damaged"]').click()
     await h.screenshot(page, 'pick-handheld-short')
@@ -124,6 +141,18 @@ describe('handheld pick screen', () => {
     expect(await rowButton.locator('[data-test="row-state"]').textContent()).toBe('Faltante: 4 uds. de 10 uds. encontradas · Dañado o roto')
     expect(await page.locator('[data-test="progress-lines"]').textContent()).toContain('Líneas: 0 de 1 hechas · 1 con faltante')
     await h.screenshot(page, 'pick-handheld-short-line')
+    // The counter's buyer will order the 6 missing: the line reads settled, still not done.
+    await page.locator('[data-test="settle-B-02-1"]').click()
+    await page.locator('[data-test="resolve-backorder"]').click()
+    await page.locator('[data-test="resolve-qty"]').fill('7')
+    await page.locator('[data-test="resolve-save"]').click()
+    expect(await page.locator('[data-test="resolve-problem"]').textContent()).toBe('Escriba un número entero de 1 a 6.')
+    await page.locator('[data-test="resolve-qty"]').fill('6')
+    await page.locator('[data-test="resolve-save"]').click()
+    await poll(() => rowButton.getAttribute('data-state')).toBe('resolved')
+    expect(await rowButton.locator('[data-test="row-state"]').textContent()).toBe('Faltante resuelto: 6 uds. pedidas')
+    expect(await page.locator('[data-test="progress-lines"]').textContent()).toContain('Líneas: 0 de 1 hechas · 1 resuelta')
+    expect(await page.locator('[data-test="settle-B-02-1"]').count()).toBe(0)
     expect((await crew.post(`/api/pick-lists/${id}/complete`).set(CSRF).send({ acceptShort: true })).status).toBe(200)
     expect(await pickLedgerCheck(h.ds, id)).toEqual({ taken: [4], problems: [] })
   })

@@ -78,7 +78,7 @@ describe('purchasing in the browser', () => {
     try {
       await h.signIn(wh.page, 'warehouse')
       await wh.page.goto('/warehouse/receiving')
-      await wh.page.locator('[data-test="receiving-list"] tr', { hasText: `Vendor VA${f.tag}` }).first().click()
+      await wh.page.locator('[data-test="receiving-list"] a', { hasText: `Vendor VA${f.tag}` }).first().click()
       await wh.page.waitForURL(/\/warehouse\/receiving\/\d+$/)
       const scan = wh.page.locator('[data-test="scan-input"]')
       await scan.fill('B:A-01-1')
@@ -91,9 +91,9 @@ describe('purchasing in the browser', () => {
       await scan.press('Enter')
       await scan.fill(`(01)${gtin14}(10)R7002`)
       await scan.press('Enter')
-      await expect.poll(() => wh.page.locator('[data-test="receipt-rows"] tbody tr').count()).toBe(2)
+      await expect.poll(() => wh.page.locator('[data-test="receipt-row"]').count()).toBe(2)
       // the rest of lot R7002 typed into the row: 1 scanned + 23 = 24
-      const qty = wh.page.locator('[data-test="receipt-rows"] tbody tr').nth(1).locator('.el-input-number input').first()
+      const qty = wh.page.locator('[data-test="receipt-row"]').nth(1).locator('.el-input-number input').first()
       await qty.fill('24')
       await qty.press('Tab')
       await wh.page.locator('[data-test="post-receipt"]').click()

@@ -124,8 +124,8 @@ export async function signedInAgent(app: Parameters<typeof supertest.agent>[0], 
 }
 
 /** A released pick list for a bill of materials, made through the API as the counter would. */
-export async function releasedPickList(counter: supertest.Agent, bomId: number, warehouseId: number): Promise<number> {
-  const res = await counter.post('/api/pick-lists').set(CSRF).send({ bomId, warehouseId, release: true })
+export async function releasedPickList(counter: supertest.Agent, bomId: number, warehouseId: number, note: string | null = null): Promise<number> {
+  const res = await counter.post('/api/pick-lists').set(CSRF).send({ bomId, warehouseId, release: true, note })
   if (res.status !== 201) throw new Error(`making the pick list failed: ${res.status} ${JSON.stringify(res.body)}`)
   return res.body.ids[0] as number
 }

@@ -32,16 +32,25 @@ async function lineViews(em: EntityManager, listId: number, confirmations: PickC
       ORDER BY pll.id`,
     [listId],
   )) as LineRow[]
+  const settled = (await em.query(
+    `SELECT ps.pick_list_line_id AS line_id, ps.action, SUM(ps.qty) AS qty, si.sku
+       FROM pick_shortages ps LEFT JOIN items si ON si.id = ps.substitute_item_id
+      WHERE ps.pick_list_id = ? AND ps.pick_list_line_id IS NOT NULL
+      GROUP BY ps.pick_list_line_id, ps.action, si.sku ORDER BY MIN(ps.id)`,
+    [listId],
+  )) as { line_id: number; action: 'backorder' | 'substitute'; qty: string; sku: string | null }[]
   return rows.map((r) => {
     const qty = Number(r.qty)
     const caseQty = r.case_qty === null ? null : Number(r.case_qty)
     const palletQty = r.pallet_qty === null ? null : Number(r.pallet_qty)
     const reasons = [...new Set(confirmations.filter((c) => c.lineId === Number(r.id) && c.shortReason).map((c) => c.shortReason as ShortReason))]
+    const resolutions = settled.filter((x) => Number(x.line_id) === Number(r.id)).map((x) => ({ action: x.action, qty: Number(x.qty), sku: x.sku }))
     return {
       id: Number(r.id), bomLineId: Number(r.bom_line_id), itemId: Number(r.item_id), sku: r.sku, itemName: r.item_name, gtin: r.gtin,
       family: r.family, stockUnit: r.stock_unit, weightKg: String(r.weight_kg), caseQty, palletQty,
       binId: Number(r.bin_id), binCode: r.bin_code, lotId: r.lot_id === null ? null : Number(r.lot_id), lotCode: r.lot_code,
       qty, confirmedQty: Number(r.confirmed_qty), shortQty: Number(r.short_qty), shortReasons: reasons,
+      shortResolvedQty: resolutions.reduce((a, x) => a + x.qty, 0), shortResolutions: resolutions,
       remaining: qty - Number(r.confirmed_qty) - Number(r.short_qty), issuedQty: Number(r.issued_qty),
       substituteFor: r.sub_sku ? { sku: r.sub_sku, name: r.sub_name ?? '' } : null,
       cautions: lineHandling({ qty, weightKg: String(r.weight_kg), caseQty, palletQty, family: r.family }).cautions,

@@ -1,6 +1,7 @@
 // Pick lists as lists: the warehouse's open lists, a job's or a bill of materials' lists, with
 // their progress in one query; and the saved bills of materials waiting to be picked.
 import type { EntityManager } from 'typeorm'
+import { pickProgress, type ProgressLine } from '../../../shared/picking/pickProgress.js'
 import { OPEN_PICK_STATUSES, type BomForPicking, type PickListStatus, type PickListSummary } from '../../../shared/schemas/picking.js'
 import { pickNumber } from './pickListLocks.js'
 
@@ -46,6 +47,24 @@ async function transfersWaiting(em: EntityManager, ids: number[]): Promise<Map<n
   return out
 }
 
+/** Each list's lines counted done, short, settled and left by the shared progress rule. */
+async function lineStates(em: EntityManager, ids: number[]): Promise<Map<number, PickListSummary['lineStates']>> {
+  const byList = new Map<number, ProgressLine[]>()
+  if (ids.length) {
+    const rows = (await em.query(
+      `SELECT pll.pick_list_id, pll.qty, pll.confirmed_qty, pll.short_qty,
+              (SELECT COALESCE(SUM(ps.qty), 0) FROM pick_shortages ps WHERE ps.pick_list_line_id = pll.id) AS settled
+         FROM pick_list_lines pll WHERE pll.pick_list_id IN (?)`,
+      [ids],
+    )) as { pick_list_id: number; qty: number; confirmed_qty: number; short_qty: number; settled: string }[]
+    for (const r of rows) {
+      const line = { qty: Number(r.qty), confirmedQty: Number(r.confirmed_qty), shortQty: Number(r.short_qty), shortResolvedQty: Number(r.settled), stockUnit: '' }
+      byList.set(Number(r.pick_list_id), [...(byList.get(Number(r.pick_list_id)) ?? []), line])
+    }
+  }
+  return new Map(ids.map((id) => [id, pickProgress(byList.get(id) ?? []).lines]))
+}
+
 export async function pickListSummaries(em: EntityManager, filter: SummaryFilter): Promise<PickListSummary[]> {
   const where = whereOf(filter)
   const rows = (await em.query(
@@ -66,11 +85,12 @@ export async function pickListSummaries(em: EntityManager, filter: SummaryFilter
     where.params,
   )) as SummaryRow[]
   const waiting = await transfersWaiting(em, rows.map((r) => Number(r.id)))
+  const states = await lineStates(em, rows.map((r) => Number(r.id)))
   return rows.map((r) => ({
     id: Number(r.id), number: pickNumber(Number(r.id)), status: r.status, bomId: Number(r.bom_id), bomRevision: Number(r.revision),
     jobId: Number(r.job_id), jobName: r.job_name, customerName: r.customer_name ?? '',
     warehouse: { id: Number(r.wh_id), code: r.wh_code, name: r.wh_name },
-    lineCount: Number(r.line_count), qty: Number(r.qty ?? 0), confirmedQty: Number(r.confirmed ?? 0), shortQty: Number(r.short ?? 0),
+    lineCount: Number(r.line_count), lineStates: states.get(Number(r.id))!, qty: Number(r.qty ?? 0), confirmedQty: Number(r.confirmed ?? 0), shortQty: Number(r.short ?? 0),
     issuedQty: Number(r.issued ?? 0), transfersWaiting: waiting.get(Number(r.id)) ?? [], createdAt: iso(r.created_at), updatedAt: iso(r.updated_at),
   }))
 }

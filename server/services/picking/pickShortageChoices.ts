@@ -39,7 +39,7 @@ export async function applyChoices(em: EntityManager, actor: StockActor, plan: P
     const index = choices.findIndex((c) => c.bomLineId === short.bomLine.id)
     const choice: Choice = index >= 0 ? choices[index] : { bomLineId: short.bomLine.id, action: 'leave' }
     let rest = short.shortage
-    const base = { bomLineId: short.bomLine.id, itemId: short.item.id, createdBy: actor.userId, suggestionId: null, substituteItemId: null, fromWarehouseId: null }
+    const base = { bomLineId: short.bomLine.id, pickListLineId: null, itemId: short.item.id, createdBy: actor.userId, suggestionId: null, substituteItemId: null, fromWarehouseId: null }
     if (choice.action === 'substitute') {
       const sub = await substituteItem(em, short, choice.substituteItemId!, index)
       const got = await pool.take(sub.id, main.id, rest, sub.matchLot)

@@ -32,5 +32,9 @@ export function usePickFormat() {
 
   const weightText = (line: PickLineView, qty = line.qty) => units.weightText(lineKg(line, qty))
 
-  return { handling, packsText, cautionText, weightText, lineKg }
+  /** How a short line was settled: "6 backordered, 2 substituted by GB8-…". */
+  const settledText = (line: PickLineView) =>
+    line.shortResolutions.map((r) => t(`picking.resolve.settled.${r.action}`, { qty: units.qtyText(r.qty, line.stockUnit), sku: r.sku ?? '' })).join(', ')
+
+  return { handling, packsText, cautionText, weightText, lineKg, settledText }
 }

@@ -3,7 +3,7 @@
 // to check scans against. No connection is a state (the outbox store's `reachable`), never an error
 // that replaces the screen.
 import { computed, ref } from 'vue'
-import type { PickConfirmAnswer, PickLineView, PickListDetail } from '@shared/schemas/picking'
+import type { PickConfirmAnswer, PickLineView, PickListDetail, ShortReason } from '@shared/schemas/picking'
 import { isApiError } from '@/api/client'
 import { pickingApi } from '@/api/picking'
 import { usePickOutboxStore } from '@/stores/pickOutbox'
@@ -61,12 +61,13 @@ export function usePickListData(id: number) {
     await load()
   }
 
-  /** The server acknowledged a confirmation: its line as the server now has it. */
-  function apply(answer: PickConfirmAnswer): void {
+  /** The server acknowledged a confirmation: its line as the server now has it (and why it is short, if it is). */
+  function apply(answer: PickConfirmAnswer, shortReason: ShortReason | null = null): void {
     epoch++
     const line = list.value?.lines.find((l) => l.id === answer.lineId)
     if (!line || !list.value) return
     Object.assign(line, { confirmedQty: answer.confirmedQty, shortQty: answer.shortQty, remaining: answer.remaining })
+    if (shortReason && answer.shortQty > 0 && !line.shortReasons.includes(shortReason)) line.shortReasons.push(shortReason)
     list.value.status = answer.listStatus as PickListDetail['status']
     void save()
   }

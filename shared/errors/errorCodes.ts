@@ -254,6 +254,13 @@ export const ERROR_CODES = {
   compute_timeout: ['seconds'],
   bill_superseded: ['revision', 'latest'],
 
+  // Short lines on pick lists
+  substitute_not_fit: ['sku'],
+  substitute_short: ['sku'],
+  short_settled: [],
+  short_at_most: ['max'],
+  line_not_on_list: [],
+
   // Codes answered before each area had its own (kept until every area names its situations)
   bad_request: ['text'],
   not_found: ['text'],

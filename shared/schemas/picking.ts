@@ -98,11 +98,11 @@ export type ShortResolution = (typeof SHORT_RESOLUTIONS)[number]
 export const pickShortResolveSchema = z
   .object({
     lineId: id,
-    action: z.enum(SHORT_RESOLUTIONS, { error: 'Choose how to settle it' }),
-    qty: z.coerce.number({ error: 'Enter a quantity' }).int('Whole units only').min(1, 'At least one').max(1_000_000, 'Too large'),
+    action: z.enum(SHORT_RESOLUTIONS),
+    qty: z.coerce.number().int().min(1).max(1_000_000),
     substituteItemId: id.optional().nullable(),
   })
-  .refine((r) => r.action !== 'substitute' || !!r.substituteItemId, { path: ['substituteItemId'], message: 'Choose the substitute item' })
+  .refine((r) => r.action !== 'substitute' || !!r.substituteItemId, { path: ['substituteItemId'], ...issueOf('substitute_needed') })
 export type PickShortResolveInput = z.infer<typeof pickShortResolveSchema>
 
 export const pickCompleteSchema = z.object({

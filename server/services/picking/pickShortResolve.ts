@@ -11,7 +11,7 @@ import { Job } from '../../entities/Customer.js'
 import { PickList, PickListLine, PickShortage } from '../../entities/PickList.js'
 import { PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
 import { Warehouse } from '../../entities/Warehouse.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit } from '../auditService.js'
 import { reserve } from '../stock/stockReservations.js'
 import type { StockActor } from '../stock/stockLedger.js'
@@ -38,14 +38,14 @@ async function backorder(em: EntityManager, actor: StockActor, list: PickList, l
 
 /** The substitute is allocated in the list's warehouse like any line (oldest lot first, one lot where one covers it) and held now. */
 async function substitute(em: EntityManager, actor: StockActor, list: PickList, line: PickListLine, item: Item, qty: number, subId: number): Promise<{ row: Partial<PickShortage>; lineIds: number[] }> {
-  const field = { substituteItemId: 'Choose another stocked item of the same kind and unit' }
   const sub = await em.findOneBy(Item, { id: subId })
   if (!sub || sub.id === item.id || !sub.active || sub.madeToOrder || sub.family !== item.family || sub.stockUnit !== item.stockUnit) {
-    throw AppError.badRequest(`That item cannot stand in for ${item.sku}.`, field)
+    const params = { sku: item.sku }
+    throw AppError.badRequest('substitute_not_fit', `That item cannot stand in for ${item.sku}.`, { params, fields: { substituteItemId: problem('substitute_not_fit', params) } })
   }
   const got = await new StockPool(em).take(sub.id, list.warehouseId, qty, sub.matchLot)
   if (got.allocated < qty) {
-    throw AppError.conflict(`Only ${got.allocated} ${sub.stockUnit} of ${sub.sku} are free here; ${qty} were asked. Nothing was changed.`, 'substitute_short')
+    throw AppError.conflict('substitute_short', `Only ${got.allocated} ${sub.stockUnit} of ${sub.sku} are free here; ${qty} were asked. Nothing was changed.`, { params: { sku: sub.sku } })
   }
   const lines = await em.save(got.lines.map((l) => em.create(PickListLine, {
     pickListId: list.id, bomLineId: line.bomLineId, itemId: sub.id, substituteForItemId: line.substituteForItemId ?? line.itemId,
@@ -55,7 +55,7 @@ async function substitute(em: EntityManager, actor: StockActor, list: PickList, 
     doc: { docType: PICK_DOC, docId: list.id },
     lines: lines.map((l) => ({ itemId: l.itemId, binId: l.binId, lotId: l.lotId, qty: l.qty, docLineId: l.id })),
   }).catch((err: unknown) => {
-    if (err instanceof AppError && err.code === 'insufficient_stock') throw AppError.conflict(`${sub.sku} was taken meanwhile. Nothing was changed.`, 'substitute_short')
+    if (err instanceof AppError && err.code === 'insufficient_stock') throw AppError.conflict('substitute_short', `${sub.sku} was taken meanwhile. Nothing was changed.`, { params: { sku: sub.sku } })
     throw err
   })
   return { row: { action: 'substitute', substituteItemId: sub.id }, lineIds: lines.map((l) => l.id) }
@@ -66,10 +66,10 @@ export async function resolveShort(em: EntityManager, actor: StockActor, pickLis
   // A backorder can still be placed for a list already completed; units to pick need an open list.
   requireStatus(list, input.action === 'backorder' ? ['released', 'picking', 'picked'] : ['released', 'picking'], 'settled that way')
   const line = await em.findOne(PickListLine, { where: { id: input.lineId, pickListId }, lock: { mode: 'pessimistic_write' } })
-  if (!line) throw AppError.badRequest('That line is not on this pick list.', { lineId: 'Not on this pick list' })
+  if (!line) throw AppError.badRequest('line_not_on_list', 'That line is not on this pick list.', { fields: { lineId: problem('line_not_on_list') } })
   const open = await openShort(em, line)
-  if (open <= 0) throw AppError.conflict('Nothing on this line is short any more.', 'short_settled')
-  if (input.qty > open) throw AppError.badRequest(`Only ${open} are short on this line.`, { qty: `At most ${open}` })
+  if (open <= 0) throw AppError.conflict('short_settled', 'Nothing on this line is short any more.')
+  if (input.qty > open) throw AppError.badRequest('short_at_most', `Only ${open} are short on this line.`, { params: { max: open }, fields: { qty: problem('at_most', { max: open }) } })
   const item = await em.findOneByOrFail(Item, { id: line.itemId })
   let addedLineIds: number[] = []
   if (input.action === 'recount') {

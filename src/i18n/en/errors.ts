@@ -250,6 +250,13 @@ export default {
   compute_timeout: 'The takeoff took more than {seconds} s to compute and was stopped; split it into smaller takeoffs.',
   bill_superseded: 'Revision {revision} of this job’s bill was replaced by revision {latest}; start the pick list from revision {latest}.',
 
+  // Short lines on pick lists
+  substitute_not_fit: 'That item cannot stand in for {sku}: choose another stocked item of the same kind and unit.',
+  substitute_short: 'There is not that much of {sku} free in this warehouse. Nothing was changed.',
+  short_settled: 'Nothing on this line is short any more: someone settled it meanwhile.',
+  short_at_most: 'Only {max} are short on this line.',
+  line_not_on_list: 'That line is not on this pick list.',
+
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'A quantity or amount would grow larger than Lumenyard can record. Nothing was changed; split it into smaller ones.',
   po_not_found: 'That purchase order was not found. It may have been removed.',

@@ -249,6 +249,13 @@ export default {
   compute_timeout: 'El cálculo tardó más de {seconds} s y se detuvo; divídalo en cálculos más pequeños.',
   bill_superseded: 'La revisión {revision} de la lista de materiales de esta obra se sustituyó por la revisión {latest}; empiece la lista de preparación desde la revisión {latest}.',
 
+  // Short lines on pick lists
+  substitute_not_fit: 'Ese artículo no puede sustituir a {sku}: elija otro artículo en existencia del mismo tipo y unidad.',
+  substitute_short: 'No hay tanto de {sku} libre en este almacén. No se cambió nada.',
+  short_settled: 'En esta línea ya no falta nada: otra persona lo resolvió mientras tanto.',
+  short_at_most: 'En esta línea solo faltan {max}.',
+  line_not_on_list: 'Esa línea no está en esta lista de preparación.',
+
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'Una cantidad o un importe crecería más de lo que Lumenyard puede registrar. No se cambió nada; divídalo en partes más pequeñas.',
   po_not_found: 'No se encontró esa orden de compra. Puede que se haya eliminado.',

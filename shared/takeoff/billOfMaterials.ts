@@ -137,8 +137,33 @@ function sectionsFor(memo: SectionMemo, wall: { columns: number; courses: number
   return plan
 }
 
-/** What every wall of one computation shares: its options, site figures, rules and section plans. */
-interface WallContext { options: ComputeOptions; figures: SiteFigures; rules: MaterialRule[]; memo: SectionMemo }
+/** What every wall of one computation shares: its options, site figures, rules, section plans and walls. */
+interface WallContext {
+  options: ComputeOptions
+  figures: SiteFigures
+  rules: MaterialRule[]
+  memo: SectionMemo
+  /** Walls already computed, by everything but their name: a row of alike walls is worked out once. */
+  walls: Map<string, { result: WallResult; needs: Contribution[] }>
+}
+
+/** A wall computed under another name, given this one: the same figures, its own name on every part. */
+function renamed(done: { result: WallResult; needs: Contribution[] }, name: string): { result: WallResult; needs: Contribution[] } {
+  const cautions = done.result.cautions.map((c) => (c.wall === undefined ? c : { ...c, wall: name }))
+  const result: WallResult = done.result.status === 'ok' && done.result.drawing
+    ? { ...done.result, name, cautions, drawing: { ...done.result.drawing, wallName: name } }
+    : { ...done.result, name, cautions }
+  return { result, needs: done.needs.map((c) => ({ ...c, wall: name })) }
+}
+
+function computeWallOnce(entered: Wall, catalog: CatalogMap, ctx: WallContext): { result: WallResult; needs: Contribution[] } {
+  const key = JSON.stringify({ ...entered, name: '' })
+  const done = ctx.walls.get(key)
+  if (done) return renamed(done, entered.name)
+  const computed = computeWall(entered, catalog, ctx)
+  ctx.walls.set(key, computed)
+  return computed
+}
 
 function computeWall(entered: Wall, catalog: CatalogMap, ctx: WallContext): { result: WallResult; needs: Contribution[] } {
   const { options, figures, memo } = ctx
@@ -182,9 +207,9 @@ function computeWall(entered: Wall, catalog: CatalogMap, ctx: WallContext): { re
 function groupNeeds(walls: Wall[], options: ComputeOptions, catalog: CatalogMap) {
   const pending = new Map<string, Pending>()
   const results: WallResult[] = []
-  const ctx: WallContext = { options, figures: siteFigures(options.figures), rules: options.rules ?? defaultMaterialRules, memo: new Map() }
+  const ctx: WallContext = { options, figures: siteFigures(options.figures), rules: options.rules ?? defaultMaterialRules, memo: new Map(), walls: new Map() }
   for (const wall of walls) {
-    const { result, needs } = computeWall(wall, catalog, ctx)
+    const { result, needs } = computeWallOnce(wall, catalog, ctx)
     results.push(result)
     for (const c of needs) {
       // A stand-in joins the line of the item it borrows, so one item is rounded once.

@@ -294,6 +294,21 @@ function lineOf(entry: Pending, options: ComputeOptions): BomLine | undefined {
 
 const ROLE_ORDER = materialRoleSchema.options
 
+/**
+ * A line that cannot be ordered as it stands, as a caution: no catalog item for its role, or an item that
+ * lacks the piece length or yield its rule divides by.
+ */
+export function lineIssueCaution(l: Pick<BomLine, 'role' | 'name' | 'sku' | 'issue'>, what: 'the quantity' | 'the line'): Caution {
+  const issue = l.issue ?? ''
+  const problem = l.sku === null ? 'no_item' : /^SKU /.test(issue) ? 'unknown_sku' : /piece length/.test(issue) ? 'piece_length' : /yield/i.test(issue) ? 'yield' : 'other'
+  return {
+    level: 'warn',
+    key: 'line_issue',
+    params: { variant: problem, lineRole: l.role, name: l.name, sku: l.sku ?? '', issue },
+    message: `${l.name}: ${l.issue}; ${what} cannot be ordered until it is fixed.`,
+  }
+}
+
 function looseLines(takeoff: Takeoff): BomLine[] {
   return takeoff.looseLines.map((l) => ({
     role: 'loose',
@@ -366,9 +381,7 @@ export function computeTakeoff(takeoff: Takeoff, catalog: CatalogMap = {}, optio
   const baseFit = takeoff.showerBase ? fitShowerBase(takeoff, results, siteFigures(options.figures), unit) : undefined
   const base = baseFit ? showerBaseLine(baseFit, catalog.showerBase, unit) : undefined
   const lines = [...wallLines, ...(base ? [base] : []), ...looseLines(takeoff)]
-  const issues: Caution[] = lines
-    .filter((l) => l.issue)
-    .map((l) => ({ level: 'warn', message: `${l.name}: ${l.issue}; the quantity cannot be ordered until it is fixed.` }))
+  const issues: Caution[] = lines.filter((l) => l.issue).map((l) => lineIssueCaution(l, 'the quantity'))
   const cautions = withClosingLine([
     ...mergeWallCautions(results.flatMap((w) => w.cautions.filter((c) => c !== CLOSING_CAUTION))),
     ...showerBaseCautions(takeoff.showerBase, baseFit, unit),

@@ -83,15 +83,18 @@ describe('printed barcodes decode with zbarimg', () => {
       const bins = await printAndDecode(page, 'bin-labels', { preferCSSPageSize: true })
       expect(sorted(bins)).toEqual(sorted(BINS.map((b) => ({ type: 'CODE-128', gs1: false, data: `B:${b}` }))))
 
+      // 4 × 2 in and 4 × 6 in item labels: the bars and a QR Code of the same data on each
       const some = [items[0], items[1], items[2]]
-      await page.goto(`/stock/labels?kind=item&ids=${some.map((i) => i.id).join(',')}&size=medium`)
-      await page.locator('[data-test="label"] [data-symbology="qr"]').first().waitFor()
-      const itemCodes = await printAndDecode(page, 'item-labels', { preferCSSPageSize: true })
-      expect(sorted(itemCodes)).toEqual(sorted(some.flatMap((item) => [linearOf(item), { type: 'QR-Code', gs1: false, data: linearOf(item).data }])))
-      // what the camera reads from the QR Code is what the scan parser takes for that item
-      for (const d of itemCodes.filter((x) => x.type === 'QR-Code')) {
-        const item = some.find((i) => d.data === linearOf(i).data)!
-        expect(classifyScan(d.data)).toMatchObject(item.gtin ? { kind: 'gs1', gtin: item.gtin } : { kind: 'sku', sku: item.sku })
+      for (const size of ['medium', 'large']) {
+        await page.goto(`/stock/labels?kind=item&ids=${some.map((i) => i.id).join(',')}&size=${size}`)
+        await page.locator('[data-test="label"] [data-symbology="qr"]').first().waitFor()
+        const itemCodes = await printAndDecode(page, `item-labels-${size}`, { preferCSSPageSize: true })
+        expect(sorted(itemCodes), size).toEqual(sorted(some.flatMap((item) => [linearOf(item), { type: 'QR-Code', gs1: false, data: linearOf(item).data }])))
+        // what the camera reads from the QR Code is what the scan parser takes for that item
+        for (const d of itemCodes.filter((x) => x.type === 'QR-Code')) {
+          const item = some.find((i) => d.data === linearOf(i).data)!
+          expect(classifyScan(d.data)).toMatchObject(item.gtin ? { kind: 'gs1', gtin: item.gtin } : { kind: 'sku', sku: item.sku })
+        }
       }
 
       for (const lot of lots) {

@@ -3,7 +3,7 @@
 // machine, and the whole run is written as JSON to .data/bench/. Not part of npm test.
 //
 //   npm run bench                        everything (about 15 minutes; the large data set is built once, ~1 min)
-//   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff levels grid signin reorder
+//   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff compute levels grid signin reorder
 //   npm run bench -- --sizes=demo        one data set (demo or large)
 //   npm run bench -- --rounds=5 --seconds=10 --rebuild --cpu-prof
 import { spawnSync } from 'node:child_process'
@@ -17,10 +17,11 @@ import { firstGridRows, launchChromium, pageScripts } from './browser.js'
 import { BENCH_PASSWORD, makeFixtures, openDatabase, SCANNERS, SIZES, WRITERS, type BenchDatabase, type Fixtures, type Size } from './data.js'
 import { runLoad, signIn, type LoadResult, type LoadSpec } from './http.js'
 import { measureReorder } from './reorder.js'
+import { measureTakeoffCompute } from './takeoffCompute.js'
 import { startNodeServer, type BenchServer } from './servers.js'
 import { describeMachine, loadAverage, machine, median, timed } from './stats.js'
 
-const MEASURES = ['scan', 'issue', 'pick', 'takeoff', 'levels', 'grid', 'signin', 'reorder'] as const
+const MEASURES = ['scan', 'issue', 'pick', 'takeoff', 'compute', 'levels', 'grid', 'signin', 'reorder'] as const
 type MeasureName = (typeof MEASURES)[number]
 
 const { values: opts } = parseArgs({
@@ -228,6 +229,17 @@ async function reorderMeasure(db: BenchDatabase): Promise<void> {
   })
 }
 
+/** The takeoff computation itself, in Node, no database or HTTP: what one compute request costs the worker. */
+function computeMeasure(): void {
+  log('takeoff compute of a 200-wall job, in Node')
+  const m = measureTakeoffCompute()
+  record({
+    measure: `takeoff compute, ${m.walls} walls, ${m.blocks.toLocaleString('en')} blocks (lean answer)`, size: '—',
+    lumenyard: { median: m.lean.medianMs, runs: [], unit: 'ms', note: `CPU ${m.lean.cpuMedianMs.toFixed(0)} ms; with drawings ${m.full.medianMs.toFixed(0)} ms` },
+    floor: null, ratio: null, target: `< ${m.targetMs} ms`, holds: m.lean.medianMs < m.targetMs, loadAverage: loadAverage(),
+  })
+}
+
 async function main(): Promise<void> {
   mkdirSync(benchDir, { recursive: true })
   const startedAt = new Date()
@@ -239,6 +251,7 @@ async function main(): Promise<void> {
     build(path.join(benchDir, 'dist'))
     build(path.join(benchDir, 'floor-pages'), 'scripts/bench/floorPages/vite.config.ts')
   }
+  if (only.has('compute')) computeMeasure()
   const browser = only.has('grid') || only.has('signin') ? await launchChromium() : null
   let mariadb = ''
   const stops: (() => Promise<void>)[] = []

@@ -133,9 +133,15 @@ function classifyOwnLabel(text: string, binPrefix: string, lotPrefix: string): S
   return null
 }
 
+/** The address of an item's page, which the QR Code of item and lot labels held before it held the bars' data. */
+const OLD_ITEM_PAGE_LINK = /^https?:\/\/[^/\s]+\/stock\/items\/\d+\/?$/i
+
 function classifyText(text: string, symbology: string | null, options: ScanOptions): ScanClass {
   const own = classifyOwnLabel(text, options.binPrefix || BIN_PREFIX, options.lotPrefix || LOT_PREFIX)
   if (own) return own
+  if (OLD_ITEM_PAGE_LINK.test(text)) {
+    return { kind: 'invalid', reason: 'This QR Code is from an older label and only opens the item\'s page: scan the bars on the same label, and print a new label when you can.' }
+  }
   const isEanUpc = symbology === ']E0' || symbology === ']E4'
   if (looksLikeGtin(text)) {
     const gtin = normalizeGtin(text)

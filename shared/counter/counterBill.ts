@@ -4,7 +4,7 @@
 import type { BlockOption, CounterCatalog, LineAvailability, RoleItemRecord } from '../schemas/counter.js'
 import type { CatalogItem, CatalogMap, JointKind, LengthUnitName, Takeoff, Wall } from '../schemas/takeoff.js'
 import { materialRoleSchema } from '../schemas/takeoff.js'
-import { computeTakeoff, type BomLine, type TakeoffResult, type WallResult } from '../takeoff/billOfMaterials.js'
+import { computeTakeoff, lineIssueCaution, type BomLine, type TakeoffResult, type WallResult } from '../takeoff/billOfMaterials.js'
 import type { Caution } from '../takeoff/cautions.js'
 import { RADIUS_TOLERANCE_MM, minInsideRadiusMm } from '../takeoff/curve.js'
 import { edgeAllowanceMm, fitOpening, resolveJoint } from '../takeoff/geometry.js'
@@ -175,7 +175,10 @@ function adviceFor(bound: Takeoff, walls: WallResult[], catalog: CounterCatalog,
 function bindWall(wall: Wall, catalog: CounterCatalog, problems: Caution[]): Wall {
   const sku = wall.catalog?.block?.sku
   const block = sku ? catalog.blocks.find((b) => b.sku === sku) : undefined
-  if (sku && !block) problems.push({ level: 'warn', wall: wall.name, message: `${wall.name}: block SKU ${sku} is not an active glass block in the catalog.` })
+  if (sku && !block) {
+    const message = `${wall.name}: block SKU ${sku} is not an active glass block in the catalog.`
+    problems.push({ level: 'warn', wall: wall.name, key: 'block_not_in_catalog', params: { sku }, message })
+  }
   const resolved = resolveWallCatalog(catalog.roleItems, block, wall.joint.kind)
   if (!block) return { ...wall, catalog: resolved }
   return { ...wall, block: wallBlockFields(block).block, catalog: resolved }
@@ -224,21 +227,30 @@ export function computeCounterBill(takeoff: Takeoff, catalog: CounterCatalog, un
   const lines = tieLines(result.lines, catalog)
   const looseIssues: Caution[] = lines
     .filter((l) => l.role === 'loose' && l.issue)
-    .map((l) => ({ level: 'warn', message: `${l.name}: ${l.issue}; the line cannot be ordered until it is fixed.` }))
+    .map((l) => lineIssueCaution(l, 'the line'))
   // Keep the closing line (deferring to local codes) last.
   const closing = result.cautions[result.cautions.length - 1]
   const cautions = [...problems, ...result.cautions.slice(0, -1), ...looseIssues, closing]
   return { ...result, lines, cautions, bound, unit: used, advice: adviceFor(bound, result.walls, catalog, figures.leftoverWarnMm) }
 }
 
-/** Why a bill may not be saved as it stands: walls that cannot be built, lines that cannot be ordered, code stops. */
-export function saveBlockers(bill: CounterBill): string[] {
-  const out: string[] = []
-  for (const w of bill.walls) if (w.status === 'refused') out.push(`${w.name}: ${w.reason}`)
-  for (const l of bill.lines) if (l.issue) out.push(`${l.name}: ${l.issue}`)
-  for (const c of bill.cautions) if (c.level === 'stop' && !out.some((o) => o.endsWith(c.message))) out.push(c.message)
-  return [...new Set(out)]
+/**
+ * Why a bill may not be saved as it stands: walls that cannot be built, lines that cannot be ordered, code
+ * stops. Each keeps its stable name and figures, so a screen words it in the reader's language and unit.
+ */
+export function billBlockers(bill: CounterBill): Caution[] {
+  const out: Caution[] = []
+  for (const w of bill.walls) {
+    if (w.status === 'refused') out.push({ level: 'stop', wall: w.name, key: w.key, params: w.params, message: `${w.name}: ${w.reason}` })
+  }
+  for (const l of bill.lines) if (l.issue) out.push({ ...lineIssueCaution(l, 'the line'), level: 'stop', message: `${l.name}: ${l.issue}` })
+  for (const c of bill.cautions) if (c.level === 'stop' && !out.some((o) => o.message.endsWith(c.message))) out.push(c)
+  const seen = new Set<string>()
+  return out.filter((c) => !seen.has(c.message) && seen.add(c.message))
 }
+
+/** The blockers in English, for the server's refusal and its logs. */
+export const saveBlockers = (bill: CounterBill): string[] => billBlockers(bill).map((c) => c.message)
 
 /** One wall in the compute endpoint's answer: its counts and curves, not its layout or drawing. */
 export interface WallSummary {

@@ -23,9 +23,14 @@ export function canDo(action: PoAction, status: PoStatus): boolean {
 /** Why an action is refused, in words for the screen; null when allowed. */
 export function refusal(action: PoAction, status: PoStatus): string | null {
   if (canDo(action, status)) return null
-  const allowed = FROM[action].map((s) => s.replace('_', ' ')).join(', ')
-  return `A ${status.replace('_', ' ')} purchase order cannot be ${VERB[action]}; only ${allowed} ones can.`
+  const allowed = FROM[action].map(words)
+  const list = allowed.length > 1 ? `${allowed.slice(0, -1).join(', ')} or ${allowed.at(-1)}` : allowed[0]
+  return `${article(words(status))} ${words(status)} purchase order cannot be ${VERB[action]}; only ${list} ones can.`
 }
+
+const words = (status: PoStatus) => status.replace('_', ' ')
+/** "An approved", "A sent": the article goes by the sound of the next word (all our statuses start as spelled). */
+const article = (word: string) => (/^[aeiou]/i.test(word) ? 'An' : 'A')
 
 const VERB: Readonly<Record<PoAction, string>> = {
   edit: 'changed',

@@ -137,8 +137,33 @@ function sectionsFor(memo: SectionMemo, wall: { columns: number; courses: number
   return plan
 }
 
-/** What every wall of one computation shares: its options, site figures, rules and section plans. */
-interface WallContext { options: ComputeOptions; figures: SiteFigures; rules: MaterialRule[]; memo: SectionMemo }
+/** What every wall of one computation shares: its options, site figures, rules, section plans and walls. */
+interface WallContext {
+  options: ComputeOptions
+  figures: SiteFigures
+  rules: MaterialRule[]
+  memo: SectionMemo
+  /** Walls already computed, by everything but their name: a row of alike walls is worked out once. */
+  walls: Map<string, { result: WallResult; needs: Contribution[] }>
+}
+
+/** A wall computed under another name, given this one: the same figures, its own name on every part. */
+function renamed(done: { result: WallResult; needs: Contribution[] }, name: string): { result: WallResult; needs: Contribution[] } {
+  const cautions = done.result.cautions.map((c) => (c.wall === undefined ? c : { ...c, wall: name }))
+  const result: WallResult = done.result.status === 'ok' && done.result.drawing
+    ? { ...done.result, name, cautions, drawing: { ...done.result.drawing, wallName: name } }
+    : { ...done.result, name, cautions }
+  return { result, needs: done.needs.map((c) => ({ ...c, wall: name })) }
+}
+
+function computeWallOnce(entered: Wall, catalog: CatalogMap, ctx: WallContext): { result: WallResult; needs: Contribution[] } {
+  const key = JSON.stringify({ ...entered, name: '' })
+  const done = ctx.walls.get(key)
+  if (done) return renamed(done, entered.name)
+  const computed = computeWall(entered, catalog, ctx)
+  ctx.walls.set(key, computed)
+  return computed
+}
 
 function computeWall(entered: Wall, catalog: CatalogMap, ctx: WallContext): { result: WallResult; needs: Contribution[] } {
   const { options, figures, memo } = ctx
@@ -182,9 +207,9 @@ function computeWall(entered: Wall, catalog: CatalogMap, ctx: WallContext): { re
 function groupNeeds(walls: Wall[], options: ComputeOptions, catalog: CatalogMap) {
   const pending = new Map<string, Pending>()
   const results: WallResult[] = []
-  const ctx: WallContext = { options, figures: siteFigures(options.figures), rules: options.rules ?? defaultMaterialRules, memo: new Map() }
+  const ctx: WallContext = { options, figures: siteFigures(options.figures), rules: options.rules ?? defaultMaterialRules, memo: new Map(), walls: new Map() }
   for (const wall of walls) {
-    const { result, needs } = computeWall(wall, catalog, ctx)
+    const { result, needs } = computeWallOnce(wall, catalog, ctx)
     results.push(result)
     for (const c of needs) {
       // A stand-in joins the line of the item it borrows, so one item is rounded once.
@@ -269,6 +294,21 @@ function lineOf(entry: Pending, options: ComputeOptions): BomLine | undefined {
 
 const ROLE_ORDER = materialRoleSchema.options
 
+/**
+ * A line that cannot be ordered as it stands, as a caution: no catalog item for its role, or an item that
+ * lacks the piece length or yield its rule divides by.
+ */
+export function lineIssueCaution(l: Pick<BomLine, 'role' | 'name' | 'sku' | 'issue'>, what: 'the quantity' | 'the line'): Caution {
+  const issue = l.issue ?? ''
+  const problem = l.sku === null ? 'no_item' : /^SKU /.test(issue) ? 'unknown_sku' : /piece length/.test(issue) ? 'piece_length' : /yield/i.test(issue) ? 'yield' : 'other'
+  return {
+    level: 'warn',
+    key: 'line_issue',
+    params: { variant: problem, lineRole: l.role, name: l.name, sku: l.sku ?? '', issue },
+    message: `${l.name}: ${l.issue}; ${what} cannot be ordered until it is fixed.`,
+  }
+}
+
 function looseLines(takeoff: Takeoff): BomLine[] {
   return takeoff.looseLines.map((l) => ({
     role: 'loose',
@@ -341,9 +381,7 @@ export function computeTakeoff(takeoff: Takeoff, catalog: CatalogMap = {}, optio
   const baseFit = takeoff.showerBase ? fitShowerBase(takeoff, results, siteFigures(options.figures), unit) : undefined
   const base = baseFit ? showerBaseLine(baseFit, catalog.showerBase, unit) : undefined
   const lines = [...wallLines, ...(base ? [base] : []), ...looseLines(takeoff)]
-  const issues: Caution[] = lines
-    .filter((l) => l.issue)
-    .map((l) => ({ level: 'warn', message: `${l.name}: ${l.issue}; the quantity cannot be ordered until it is fixed.` }))
+  const issues: Caution[] = lines.filter((l) => l.issue).map((l) => lineIssueCaution(l, 'the quantity'))
   const cautions = withClosingLine([
     ...mergeWallCautions(results.flatMap((w) => w.cautions.filter((c) => c !== CLOSING_CAUTION))),
     ...showerBaseCautions(takeoff.showerBase, baseFit, unit),

@@ -28,6 +28,7 @@ export interface Caution {
 
 export const CLOSING_CAUTION: Caution = {
   level: 'info',
+  key: 'closing_line',
   message:
     'These checks are a guide, not an approval: local building codes, the block and spacer maker’s instructions ' +
     'and licensed professionals have the final word on what is built.',
@@ -58,21 +59,29 @@ const SEVERITY: Record<CautionLevel, number> = { stop: 0, warn: 1, info: 2 }
 
 const caution = (level: CautionLevel, message: string, code?: string): Caution => (code ? { level, code, message } : { level, message })
 
+/** A caution with its stable name and figures (lengths in mm), for a screen to word in the reader's language and unit. */
+const keyed = (level: CautionLevel, key: string, params: Record<string, string | number>, message: string, code?: string): Caution =>
+  ({ ...caution(level, message, code), key, params })
+
 export function panelLimitCautions(wall: Wall, g: WallGeometry, unit: LengthUnit): Caution[] {
   const limit = PANEL_LIMITS[wall.exposure][wall.block.thicknessClass]
   const where = `${wall.exposure} ${wall.block.thicknessClass} units`
   const show = (mm: number) => formatLength(mm, unit, { feet: true })
   const out: Caution[] = []
+  const kind = { exposure: wall.exposure, thickness: wall.block.thicknessClass }
   if (g.areaFt2 > limit.areaFt2 + 1e-9) {
     const allowed = `${limit.areaFt2} ft² (${ft2ToM2(limit.areaFt2).toFixed(1)} m²)`
     const area = `${g.areaFt2.toFixed(1)} ft² (${g.areaM2.toFixed(2)} m²)`
-    out.push(caution('stop', `Panel area ${area} is over the ${allowed} allowed for ${where}; split it with structural supports.`, limit.code))
+    const params = { ...kind, areaFt2: Number(g.areaFt2.toFixed(1)), areaM2: Number(g.areaM2.toFixed(2)), allowedFt2: limit.areaFt2, allowedM2: Number(ft2ToM2(limit.areaFt2).toFixed(1)) }
+    out.push(keyed('stop', 'panel_area', params, `Panel area ${area} is over the ${allowed} allowed for ${where}; split it with structural supports.`, limit.code))
   }
   if (g.panelWidthMm > limit.widthFt * MM_PER_FOOT + 1e-6) {
-    out.push(caution('stop', `Panel length ${show(g.panelWidthMm)} is over the ${limit.widthFt} ft allowed between supports for ${where}.`, limit.code))
+    const params = { ...kind, lengthMm: g.panelWidthMm, limitMm: limit.widthFt * MM_PER_FOOT }
+    out.push(keyed('stop', 'panel_length', params, `Panel length ${show(g.panelWidthMm)} is over the ${limit.widthFt} ft allowed between supports for ${where}.`, limit.code))
   }
   if (g.panelHeightMm > limit.heightFt * MM_PER_FOOT + 1e-6) {
-    out.push(caution('stop', `Panel height ${show(g.panelHeightMm)} is over the ${limit.heightFt} ft allowed between supports for ${where}.`, limit.code))
+    const params = { ...kind, heightMm: g.panelHeightMm, limitMm: limit.heightFt * MM_PER_FOOT }
+    out.push(keyed('stop', 'panel_height', params, `Panel height ${show(g.panelHeightMm)} is over the ${limit.heightFt} ft allowed between supports for ${where}.`, limit.code))
   }
   return [...out, ...windCautions(wall)]
 }
@@ -83,26 +92,26 @@ function windCautions(wall: Wall): Caution[] {
   const thin = wall.block.thicknessClass === 'thin'
   if (psf === undefined) {
     const message = `Exterior limits assume a design wind pressure of ${LIMIT_WIND_PSF} psf; enter the site’s pressure to check it.`
-    return [caution('info', message, thin ? 'IRC 2021 R607.4.2' : 'IRC 2021 R607.4.1')]
+    return [keyed('info', 'wind_assumed', { psf: LIMIT_WIND_PSF }, message, thin ? 'IRC 2021 R607.4.2' : 'IRC 2021 R607.4.1')]
   }
   if (psf <= LIMIT_WIND_PSF) return []
   if (thin) {
     const message = `Thin units may not be used outside where the design wind pressure (${psf} psf) exceeds ${LIMIT_WIND_PSF} psf.`
-    return [caution('stop', message, 'IRC 2021 R607.4.2')]
+    return [keyed('stop', 'wind_thin', { psf, limitPsf: LIMIT_WIND_PSF }, message, 'IRC 2021 R607.4.2')]
   }
   const message = `At ${psf} psf the allowed panel area is smaller than 144 ft²; read it from the code’s wind pressure chart.`
-  return [caution('warn', message, 'IRC 2021 R607.4.1')]
+  return [keyed('warn', 'wind_chart', { psf }, message, 'IRC 2021 R607.4.1')]
 }
 
 export function thicknessCautions(block: BlockSpec, unit: LengthUnit): Caution[] {
   const depth = block.depthMm + THICKNESS_TOLERANCE_MM
   const unitDepth = `A ${formatLength(block.depthMm, unit)} deep unit`
   if (depth < MIN_THICKNESS_MM.thin) {
-    return [caution('stop', `${unitDepth} is thinner than the 3 1/8 in least thickness for glass unit masonry.`, 'IRC 2021 R607.3')]
+    return [keyed('stop', 'too_thin', { depthMm: block.depthMm }, `${unitDepth} is thinner than the 3 1/8 in least thickness for glass unit masonry.`, 'IRC 2021 R607.3')]
   }
   if (block.thicknessClass === 'standard' && depth < MIN_THICKNESS_MM.standard) {
     const message = `${unitDepth} is thinner than the 3 7/8 in a standard unit needs; treat it as a thin unit (smaller panel limits).`
-    return [caution('stop', message, 'IRC 2021 R607.3')]
+    return [keyed('stop', 'thinner_than_standard', { depthMm: block.depthMm }, message, 'IRC 2021 R607.3')]
   }
   return []
 }
@@ -111,20 +120,20 @@ function mortarJointCautions(g: WallGeometry, unit: LengthUnit): Caution[] {
   const out: Caution[] = []
   const j = g.joint
   if (Math.abs(j.jointMm - JOINT_FACTS.mortarJointMm) > 0.5) {
-    out.push(caution('warn', `Mortar head and bed joints are set at 1/4 in; this wall uses ${formatLength(j.jointMm, unit)}.`, 'IRC 2021 R607.10'))
+    out.push(keyed('warn', 'mortar_joint', { jointMm: j.jointMm }, `Mortar head and bed joints are set at 1/4 in; this wall uses ${formatLength(j.jointMm, unit)}.`, 'IRC 2021 R607.10'))
   }
   const radialOutside = j.curveInsideJointMm < JOINT_FACTS.radialMinMm - 0.05 || j.maxOutsideJointMm > JOINT_FACTS.radialMaxMm + 0.05
   if (g.hasCurve && radialOutside) {
     const message = 'Radial joints of curved mortar panels must stay between 1/8 in and 5/8 in; this wall’s joint limits go outside that range.'
-    out.push(caution('warn', message, 'IRC 2021 R607.10'))
+    out.push(keyed('warn', 'radial_joints', {}, message, 'IRC 2021 R607.10'))
   }
   if (g.jambSpaceMm !== undefined && g.jambSpaceMm < JOINT_FACTS.expansionMinMm - 1e-6) {
     const message = `Only ${formatLength(g.jambSpaceMm, unit)} is left at each jamb; expansion joints need at least 3/8 in. ` +
       'Widen the opening or drop a block.'
-    out.push(caution('warn', message, 'IRC 2021 R607.7'))
+    out.push(keyed('warn', 'jamb_space', { spaceMm: g.jambSpaceMm }, message, 'IRC 2021 R607.7'))
   }
   if (j.expansionMm < JOINT_FACTS.expansionMinMm - 1e-6) {
-    out.push(caution('warn', `Expansion allowance ${formatLength(j.expansionMm, unit)} is under the 3/8 in at jambs and head.`, 'IRC 2021 R607.7'))
+    out.push(keyed('warn', 'expansion_small', { expansionMm: j.expansionMm }, `Expansion allowance ${formatLength(j.expansionMm, unit)} is under the 3/8 in at jambs and head.`, 'IRC 2021 R607.7'))
   }
   return out
 }
@@ -133,7 +142,7 @@ export function jointCautions(g: WallGeometry, unit: LengthUnit): Caution[] {
   if (g.joint.kind === 'mortar') return mortarJointCautions(g, unit)
   const message = 'The code’s glass unit masonry text assumes mortar. A spacer (mortarless) system relies on its maker’s ' +
     'installation instructions and the local building official’s approval.'
-  return [caution('warn', message, 'IRC 2021 R607')]
+  return [keyed('warn', 'spacer_system', {}, message, 'IRC 2021 R607')]
 }
 
 function inflectionCount(wall: Wall): number {
@@ -145,7 +154,8 @@ export function curveCautions(wall: Wall, g: WallGeometry, unit: LengthUnit): Ca
   if (!g.hasCurve) return []
   const inflections = inflectionCount(wall)
   const where = inflections > 0 ? ` and at each of the ${inflections} point(s) where the curve reverses.` : ' and at any point where the curve reverses.'
-  const out = [caution('warn', `Curved panels keep the same size limits and need support where the curve meets a straight run${where}`, 'IRC 2021 R607.4.4')]
+  const support = `Curved panels keep the same size limits and need support where the curve meets a straight run${where}`
+  const out = [keyed('warn', 'curve_support', { variant: inflections > 0 ? 'reverses' : 'any', inflections }, support, 'IRC 2021 R607.4.4')]
   for (const s of g.segments) {
     if (s.kind !== 'curved' || !s.curve.closings) continue
     const c = s.curve
@@ -235,14 +245,14 @@ export function endCautions(wall: Wall): Caution[] {
   if (free.length === 0) return []
   const message = `Free ${free.join(' and ')} of the wall: nothing to anchor to there. ` +
     'Follow the maker’s free-end detail and make sure the panel is braced.'
-  return [caution('warn', message)]
+  return [keyed('warn', 'free_ends', { variant: free.length === 2 ? 'both' : String(free[0]) }, message)]
 }
 
 export function wetAreaCautions(wall: Wall): Caution[] {
   if (!wall.wetArea) return []
   const message = 'Wet area: waterproof the floor and curb under the wall, set it on a shower base for tiling, ' +
     'slope the floor to the drain and use a sealant rated for wet areas.'
-  return [caution('info', message)]
+  return [keyed('info', 'wet_area', {}, message)]
 }
 
 const MISMATCH_WORDS = { footprint: 'footprint', curbRadius: 'curb radius', curbArc: 'curb arc', curbShape: 'curb' } as const
@@ -278,14 +288,19 @@ export function showerBaseCautions(base: ShowerBase | undefined, fit: ShowerBase
   if (!base) return []
   const out = [
     ...(fit ? baseFitCautions(fit, unit) : []),
-    caution('info', 'The shower base is made to order: confirm the footprint, curb, drain position and entry side on site ' +
+    keyed('info', 'base_made_to_order', {}, 'The shower base is made to order: confirm the footprint, curb, drain position and entry side on site ' +
       'before ordering; it cannot be returned to stock.'),
-    caution('info', 'The floor must slope to the drain and be waterproofed under the base and up the walls.'),
+    keyed('info', 'base_floor', {}, 'The floor must slope to the drain and be waterproofed under the base and up the walls.'),
   ]
   if (base.curbless) {
-    out.push(caution('warn', 'A curbless entry needs the floor recessed and the waterproofing carried past the entry; plan it with the builder.'))
+    out.push(keyed('warn', 'base_curbless', {}, 'A curbless entry needs the floor recessed and the waterproofing carried past the entry; plan it with the builder.'))
   }
   return out
+}
+
+/** The section planner's notes but the weight (said above with its figures), each with its stable name and figures. */
+function sectionNotes(plan: SectionPlan): Caution[] {
+  return plan.notes.filter((n) => n.variant !== 'heavy').map((n) => keyed('info', 'sections_note', { variant: n.variant, ...n.params }, n.message))
 }
 
 export function workCautions(g: WallGeometry, plan: SectionPlan, fixings: number): Caution[] {
@@ -295,16 +310,17 @@ export function workCautions(g: WallGeometry, plan: SectionPlan, fixings: number
     const limit = `${plan.liftLimitKg.toFixed(1)} kg (${kgToPounds(plan.liftLimitKg).toFixed(0)} lb)`
     const message = `Section(s) ${heavy.join(', ')} weigh more than a two-person lift of ${limit}: ` +
       'add hands or a lifting aid, or build them smaller.'
-    out.push(caution('warn', message))
+    const params = { sections: heavy.join(', '), limitKg: Number(plan.liftLimitKg.toFixed(1)), limitLb: Number(kgToPounds(plan.liftLimitKg).toFixed(0)) }
+    out.push(keyed('warn', 'heavy_sections', params, message))
   }
-  plan.notes.filter((note) => !note.includes('weigh')).forEach((message) => out.push(caution('info', message)))
+  sectionNotes(plan).forEach((c) => out.push(c))
   if (fixings > 0) {
-    out.push(caution('info', 'Drilling masonry, concrete or tile: wear eye protection and keep the dust down (water or extraction, and a mask).'))
+    out.push(keyed('info', 'drilling', {}, 'Drilling masonry, concrete or tile: wear eye protection and keep the dust down (water or extraction, and a mask).'))
   }
   if (g.joint.kind === 'spacer') {
-    out.push(caution('info', 'Let the silicone cure before grouting: a few hours at least, overnight is safer for a first wall.'))
+    out.push(keyed('info', 'silicone_cure', {}, 'Let the silicone cure before grouting: a few hours at least, overnight is safer for a first wall.'))
   }
-  if (plan.sections.length > 0) out.push(caution('info', 'Check each section for level and plumb as it is set, before the next goes on.'))
+  if (plan.sections.length > 0) out.push(keyed('info', 'level_plumb', {}, 'Check each section for level and plumb as it is set, before the next goes on.'))
   return out
 }
 

@@ -12,6 +12,8 @@ export interface SvgWords {
   /** "Section {n}: {blocks} blocks, {kg} kg" */
   section: (n: number, blocks: number, kg: string, heavy: boolean) => string
   key: string
+  /** "… and {n} more sections" */
+  moreSections: (n: number) => string
 }
 
 export const SVG_WORDS_EN: SvgWords = {
@@ -20,6 +22,7 @@ export const SVG_WORDS_EN: SvgWords = {
   freeEnd: 'free end',
   section: (n, blocks, kg, heavy) => `Section ${n}: ${blocks} blocks, ${kg} kg${heavy ? ' (heavy)' : ''}`,
   key: '▲ anchor  ● screw  heavy edge: finished unit',
+  moreSections: (n) => `… and ${n} more sections`,
 }
 
 export interface SvgOptions {
@@ -38,7 +41,8 @@ const LINE = 18
 const INK = '#22313f'
 const WARN = '#b3261e'
 
-const num = (v: number) => Number(v.toFixed(2)).toString()
+// Two decimals, written the short way (12.5, not 12.50); a drawing writes thousands of these.
+const num = (v: number) => String(Math.round(v * 100) / 100)
 
 export function escapeXml(text: string): string {
   return text.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&apos;' })[c] as string)
@@ -55,8 +59,9 @@ function text(x: number, y: number, body: string, extra = ''): string {
   return `<text x="${num(x)}" y="${num(y)}" fill="${INK}"${extra}>${escapeXml(body)}</text>`
 }
 
-function blockRect(b: ElevationBlock, x0: number, y0: number, s: number, heightMm: number, heavy: Set<number>): string {
-  const tone = sectionTone(b.section)
+function blockRect(b: ElevationBlock, x0: number, y0: number, s: number, heightMm: number, heavy: Set<number>, tones: Map<number, { fill: string; stroke: string }>): string {
+  let tone = tones.get(b.section)
+  if (!tone) tones.set(b.section, (tone = sectionTone(b.section)))
   const x = x0 + b.xMm * s
   const y = y0 + (heightMm - b.yMm - b.heightMm) * s
   const stroke = heavy.has(b.section) ? WARN : tone.stroke
@@ -65,6 +70,52 @@ function blockRect(b: ElevationBlock, x0: number, y0: number, s: number, heightM
   return `<rect x="${num(x)}" y="${num(y)}" width="${num(b.widthMm * s)}" height="${num(b.heightMm * s)}" ` +
     `fill="${tone.fill}" stroke="${stroke}" stroke-width="${width}"${dash} data-section="${b.section + 1}" ` +
     `data-course="${b.course + 1}" data-column="${b.column + 1}" data-unit="${b.kind}"/>`
+}
+
+/**
+ * Walls larger than this are drawn coarser: each section one tinted strip per course and the joints as one
+ * grid, instead of a rectangle per block. A block is then a few pixels wide anyway, and the drawing of the
+ * largest takeoff allowed stays a few hundred kilobytes, not megabytes.
+ */
+export const DETAILED_BLOCKS = 1500
+
+/** Each section's cells in one course are side by side in stack bond: one strip per section and course. */
+function sectionStrips(e: WallElevation, x0: number, y0: number, s: number, heavy: Set<number>): string[] {
+  const strips = new Map<string, { section: number; x1: number; x2: number; y: number; h: number }>()
+  for (const b of e.blocks) {
+    const key = `${b.section}|${b.course}`
+    const strip = strips.get(key)
+    if (!strip) strips.set(key, { section: b.section, x1: b.xMm, x2: b.xMm + b.widthMm, y: b.yMm, h: b.heightMm })
+    else {
+      strip.x1 = Math.min(strip.x1, b.xMm)
+      strip.x2 = Math.max(strip.x2, b.xMm + b.widthMm)
+    }
+  }
+  const tones = new Map<number, { fill: string; stroke: string }>()
+  return [...strips.values()].map((r) => {
+    let tone = tones.get(r.section)
+    if (!tone) tones.set(r.section, (tone = sectionTone(r.section)))
+    const fill = heavy.has(r.section) ? WARN : tone.fill
+    return `<rect x="${num(x0 + r.x1 * s)}" y="${num(y0 + (e.heightMm - r.y - r.h) * s)}" width="${num((r.x2 - r.x1) * s)}" ` +
+      `height="${num(r.h * s)}" fill="${fill}" data-section="${r.section + 1}"/>`
+  })
+}
+
+/** The joints of a coarse drawing: a line at each column's edges and each course's edges, in one path. */
+function jointGrid(e: WallElevation, x0: number, y0: number, s: number): string {
+  const xs = new Set<number>()
+  const ys = new Set<number>()
+  for (const b of e.blocks) {
+    xs.add(b.xMm).add(b.xMm + b.widthMm)
+    ys.add(b.yMm).add(b.yMm + b.heightMm)
+  }
+  const top = y0
+  const bottom = y0 + e.heightMm * s
+  const d = [
+    ...[...xs].map((x) => `M${num(x0 + x * s)} ${num(top)}V${num(bottom)}`),
+    ...[...ys].map((y) => `M${num(x0)} ${num(y0 + (e.heightMm - y) * s)}H${num(x0 + e.widthMm * s)}`),
+  ]
+  return `<path d="${d.join('')}" fill="none" stroke="${INK}" stroke-opacity=".35" stroke-width=".5" class="joints"/>`
 }
 
 function fixingMarks(e: WallElevation, x0: number, y0: number, s: number): string[] {
@@ -77,13 +128,20 @@ function fixingMarks(e: WallElevation, x0: number, y0: number, s: number): strin
   })
 }
 
-/** Each section's number at the middle of its blocks. */
+/** Each section's number at the middle of its blocks (one pass over the blocks, whatever the wall's size). */
 function sectionNumbers(e: WallElevation, x0: number, y0: number, s: number): string[] {
-  return e.sections.map((sec) => {
-    const mine = e.blocks.filter((b) => b.section === sec.index)
-    const cx = mine.reduce((sum, b) => sum + b.xMm + b.widthMm / 2, 0) / mine.length
-    const cy = mine.reduce((sum, b) => sum + b.yMm + b.heightMm / 2, 0) / mine.length
-    return text(x0 + cx * s, y0 + (e.heightMm - cy) * s + 4, `${sec.index + 1}`, ' text-anchor="middle" font-weight="600"')
+  const sums = new Map<number, { x: number; y: number; n: number }>()
+  for (const b of e.blocks) {
+    const sum = sums.get(b.section) ?? { x: 0, y: 0, n: 0 }
+    sum.x += b.xMm + b.widthMm / 2
+    sum.y += b.yMm + b.heightMm / 2
+    sum.n++
+    sums.set(b.section, sum)
+  }
+  return e.sections.flatMap((sec) => {
+    const sum = sums.get(sec.index)
+    if (!sum) return []
+    return [text(x0 + (sum.x / sum.n) * s, y0 + (e.heightMm - sum.y / sum.n) * s + 4, `${sec.index + 1}`, ' text-anchor="middle" font-weight="600"')]
   })
 }
 
@@ -91,11 +149,14 @@ function elevationSvg(d: WallDrawing, top: number, widthPx: number, unit: Length
   const e = d.elevation
   const s = e.widthMm > 0 ? widthPx / e.widthMm : 1
   const heavy = new Set(e.sections.filter((x) => x.overweight).map((x) => x.index))
+  const tones = new Map<number, { fill: string; stroke: string }>()
   const y0 = top + LINE
   const body = [
     '<g class="elevation">',
     text(MARGIN, top + 12, `${words.elevation} · ${formatLength(e.widthMm, unit, { feet: true })} × ${formatLength(e.heightMm, unit, { feet: true })}`, ' font-weight="600"'),
-    ...e.blocks.map((b) => blockRect(b, MARGIN, y0, s, e.heightMm, heavy)),
+    ...(e.blocks.length <= DETAILED_BLOCKS
+      ? e.blocks.map((b) => blockRect(b, MARGIN, y0, s, e.heightMm, heavy, tones))
+      : [...sectionStrips(e, MARGIN, y0, s, heavy), jointGrid(e, MARGIN, y0, s)]),
     ...fixingMarks(e, MARGIN, y0, s),
     ...sectionNumbers(e, MARGIN, y0, s),
   ]
@@ -136,13 +197,20 @@ function planSvg(plan: WallPlanView, top: number, widthPx: number, unit: LengthU
   return { body, height: LINE + spanY * s + LINE }
 }
 
+/** Sections listed by name in a drawing's legend before the rest are counted. */
+const LEGEND_SECTIONS = 24
+
 function legendSvg(d: WallDrawing, top: number, widthPx: number, words: SvgWords): { body: string[]; height: number } {
   const perRow = Math.max(1, Math.floor(widthPx / 200))
-  const items = d.elevation.sections.map((sec) => {
+  // A long wall lists its first sections and the heavy ones; the rest are on the elevation by number.
+  const all = d.elevation.sections
+  const listed = all.length <= LEGEND_SECTIONS ? all : all.filter((sec, i) => i < LEGEND_SECTIONS || sec.overweight).slice(0, 2 * LEGEND_SECTIONS)
+  const items = listed.map((sec) => {
     const tone = sectionTone(sec.index)
     const label = words.section(sec.index + 1, sec.blocks, sec.weightKg.toFixed(1), sec.overweight)
     return { fill: tone.fill, stroke: sec.overweight ? WARN : tone.stroke, label }
   })
+  if (listed.length < all.length) items.push({ fill: '#ffffff', stroke: '#ffffff', label: words.moreSections(all.length - listed.length) })
   items.push({ fill: '#ffffff', stroke: INK, label: words.key })
   const body = ['<g class="legend">']
   items.forEach((item, i) => {

@@ -41,7 +41,7 @@ export interface SectionPlan {
   withinRange: boolean
   /** Whether any whole number of sections in range adds up to the wall's blocks. */
   arithmeticallyPossible: boolean
-  notes: string[]
+  notes: PlanNote[]
 }
 
 export interface SectionWall {
@@ -287,15 +287,25 @@ function toSection(cells: Chunk, band: number, index: number, wall: SectionWall,
   }
 }
 
-function planNotes(total: number, plan: Omit<SectionPlan, 'notes'>, opts: SectionOptions): string[] {
-  const notes: string[] = []
+/** One of the planner's notes: its kind and figures (for a screen to word it) and the English text. */
+export interface PlanNote {
+  variant: 'one' | 'uneven' | 'shape' | 'heavy'
+  params: Record<string, string | number>
+  message: string
+}
+
+function planNotes(total: number, plan: Omit<SectionPlan, 'notes'>, opts: SectionOptions): PlanNote[] {
+  const notes: PlanNote[] = []
   const range = `${opts.minBlocks}–${opts.maxBlocks}`
-  if (total < opts.minBlocks) notes.push(`The wall has ${total} blocks, fewer than one ${range} block section: it is one section.`)
+  const params = { blocks: total, min: opts.minBlocks, max: opts.maxBlocks }
+  if (total < opts.minBlocks) notes.push({ variant: 'one', params, message: `The wall has ${total} blocks, fewer than one ${range} block section: it is one section.` })
   else if (!plan.arithmeticallyPossible) {
-    notes.push(`${total} blocks cannot be split into whole sections of ${range} blocks; sections stay at or under ${opts.maxBlocks}, some hold fewer.`)
-  } else if (!plan.withinRange) notes.push(`The wall's shape forced some sections outside ${range} blocks.`)
+    notes.push({ variant: 'uneven', params, message: `${total} blocks cannot be split into whole sections of ${range} blocks; sections stay at or under ${opts.maxBlocks}, some hold fewer.` })
+  } else if (!plan.withinRange) notes.push({ variant: 'shape', params, message: `The wall's shape forced some sections outside ${range} blocks.` })
   const heavy = plan.sections.filter((s) => s.overweight).map((s) => s.index + 1)
-  if (heavy.length > 0) notes.push(`Sections ${heavy.join(', ')} weigh more than a ${opts.people}-person lift.`)
+  if (heavy.length > 0) {
+    notes.push({ variant: 'heavy', params: { sections: heavy.join(', '), people: opts.people }, message: `Sections ${heavy.join(', ')} weigh more than a ${opts.people}-person lift.` })
+  }
   return notes
 }
 

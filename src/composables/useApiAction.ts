@@ -11,17 +11,21 @@ export function useApiAction() {
   const busy = ref(false)
   const fieldErrors = ref<Record<string, string>>({})
   const errorMessage = ref('')
+  /** The failed answer's HTTP status (0: the server was not reached); null when the failure was not an answer. */
+  const errorStatus = ref<number | null>(null)
 
   async function run<T>(action: () => Promise<T>): Promise<T | undefined> {
     busy.value = true
     fieldErrors.value = {}
     errorMessage.value = ''
+    errorStatus.value = null
     try {
       return await action()
     } catch (err) {
       if (isApiError(err)) {
         fieldErrors.value = err.fields
         errorMessage.value = err.message
+        errorStatus.value = err.status
         if (err.status !== 401) ElMessage.error(err.message)
       } else {
         errorMessage.value = i18n.global.t('common.errorTitle')
@@ -34,7 +38,7 @@ export function useApiAction() {
     }
   }
 
-  return { busy, fieldErrors, errorMessage, run }
+  return { busy, fieldErrors, errorMessage, errorStatus, run }
 }
 
 /** Loads page data with loading and error state, for empty/error screens. */

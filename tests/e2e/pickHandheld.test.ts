@@ -101,9 +101,12 @@ describe('handheld pick screen', () => {
   })
 
   it('records a short pick with how many were found and why', async () => {
-    const bom = await fxBom(h.ds, s.tag, [{ itemId: s.altBlock.id, qty: 10 }])
+    // The spacers (A-02-1) come first on the walk; this test leaves them to pick.
+    const bom = await fxBom(h.ds, s.tag, [{ itemId: s.altBlock.id, qty: 10 }, { itemId: s.spacer.id, qty: 5 }])
     const id = await releasedPickList(counter, bom.bomId, s.main.id)
     await page.goto(`/warehouse/pick/${id}`)
+    await page.locator('[data-test="view-list"]').click()
+    await page.locator('[data-test="pick-row-B-02-1"]').click()
     // A torn lot label: printed again from the line, with the lot's own code on it.
     await page.locator('[data-test="reprint-lot"]').click()
     await page.waitForURL(/\/stock\/labels\?kind=lot/)
@@ -129,7 +132,7 @@ describe('handheld pick screen', () => {
     await page.locator('[data-test="short-reason-damaged"]').click()
     await h.screenshot(page, 'pick-handheld-short')
     await page.locator('[data-test="short-save"]').click()
-    await page.locator('[data-test="all-done"]').waitFor()
+    await poll(() => page.locator('[data-test="line-bin"]').textContent()).toBe('A-02-1') // on to the spacers
     await poll(() => page.locator('[data-test="queue-item"]').count()).toBe(0)
     const [row] = await h.ds.query('SELECT qty, short_qty, short_reason FROM pick_confirmations WHERE pick_list_id = ?', [id])
     expect(row).toEqual({ qty: 4, short_qty: 6, short_reason: 'damaged' })
@@ -139,7 +142,7 @@ describe('handheld pick screen', () => {
     await poll(() => rowButton.getAttribute('data-state')).toBe('short')
     // hand-worked: 4 of the 10 found, 6 short for damage
     expect(await rowButton.locator('[data-test="row-state"]').textContent()).toBe('Faltante: 4 uds. de 10 uds. encontradas · Dañado o roto')
-    expect(await page.locator('[data-test="progress-lines"]').textContent()).toContain('Líneas: 0 de 1 hechas · 1 con faltante')
+    expect(await page.locator('[data-test="progress-lines"]').textContent()).toBe('Líneas: 0 de 2 hechas · 1 con faltante · 1 por preparar')
     await h.screenshot(page, 'pick-handheld-short-line')
     // The counter's buyer will order the 6 missing: the line reads settled, still not done.
     await page.locator('[data-test="settle-B-02-1"]').click()
@@ -151,7 +154,7 @@ describe('handheld pick screen', () => {
     await page.locator('[data-test="resolve-save"]').click()
     await poll(() => rowButton.getAttribute('data-state')).toBe('resolved')
     expect(await rowButton.locator('[data-test="row-state"]').textContent()).toBe('Faltante resuelto: 6 uds. pedidas')
-    expect(await page.locator('[data-test="progress-lines"]').textContent()).toContain('Líneas: 0 de 1 hechas · 1 resuelta')
+    expect(await page.locator('[data-test="progress-lines"]').textContent()).toBe('Líneas: 0 de 2 hechas · 1 resuelta · 1 por preparar')
     expect(await page.locator('[data-test="settle-B-02-1"]').count()).toBe(0)
     expect((await crew.post(`/api/pick-lists/${id}/complete`).set(CSRF).send({ acceptShort: true })).status).toBe(200)
     expect(await pickLedgerCheck(h.ds, id)).toEqual({ taken: [4], problems: [] })

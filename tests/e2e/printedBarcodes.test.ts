@@ -2,14 +2,14 @@
 // Chromium, rasterised at 300 dpi by pdftoppm (poppler-utils) and decoded by zbarimg (zbar-tools). Each page
 // must give back exactly the barcodes it shows, with the expected data: bins, SKUs, lots, and GS1 element
 // strings whose GTIN check digit is right.
-import { execFileSync, spawnSync } from 'node:child_process'
-import { copyFileSync, mkdtempSync, readdirSync, rmSync, writeFileSync } from 'node:fs'
+import { mkdtempSync, rmSync } from 'node:fs'
 import { tmpdir } from 'node:os'
 import path from 'node:path'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { classifyScan } from '../../shared/barcode/scan.js'
-import { DEMO_PASSWORD, SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
+import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
+import { gs1CheckDigitOk, printAndDecode as printOnPaper, sortedSymbols, type Decoded } from '../support/printDecode.js'
 import { fxBom, fxItem, fxLot, fxWarehouse, receive, releasedPickList, signedInAgent, tagOf, type FxItem, type FxWarehouse } from '../support/pickFixtures.js'
 
 let h: E2eHarness
@@ -50,38 +50,8 @@ afterAll(async () => {
   await h?.close()
 })
 
-// source: GS1 General Specifications §7.9.1 (standard check digit calculation: weights 3 and 1 from the right)
-function gs1CheckDigitOk(digits: string): boolean {
-  const body = digits.slice(0, -1).split('').reverse()
-  const sum = body.reduce((s, d, i) => s + Number(d) * (i % 2 === 0 ? 3 : 1), 0)
-  return (10 - (sum % 10)) % 10 === Number(digits.at(-1))
-}
-
-interface Decoded { type: string; gs1: boolean; data: string }
-
-/** Prints the page to PDF as Chromium prints it, rasterises `pages` at 300 dpi and decodes every symbol on them. */
-async function printAndDecode(page: Page, name: string, pdfOptions: Parameters<Page['pdf']>[0]): Promise<Decoded[]> {
-  await page.emulateMedia({ media: 'print' })
-  const pdf = path.join(dir, `${name}.pdf`)
-  writeFileSync(pdf, await page.pdf({ printBackground: true, ...pdfOptions }))
-  await page.emulateMedia({ media: 'screen' })
-  // source: pdftoppm(1), poppler-utils — -r 300 renders at 300 dpi, the resolution a label or laser printer works at
-  execFileSync('pdftoppm', ['-r', '300', '-gray', '-png', pdf, path.join(dir, name)])
-  const pngs = readdirSync(dir).filter((f) => f.startsWith(`${name}-`) && f.endsWith('.png')).sort().map((f) => path.join(dir, f))
-  copyFileSync(pngs[0], path.join(SCREENSHOTS, `printed-${name}.png`))
-  // source: zbarimg(1), zbar-tools — --xml lists each symbol with its type, GS1 modifier (FNC1 first) and data
-  // (exit status 4: some page held no symbol, as a pick sheet's signature page)
-  const run = spawnSync('zbarimg', ['-q', '--xml', ...pngs], { encoding: 'utf8' })
-  if (run.status !== 0 && run.status !== 4) throw new Error(`zbarimg failed (${run.status}): ${run.stderr}`)
-  const xml = run.stdout
-  return [...xml.matchAll(/<symbol ([^>]*)><data><!\[CDATA\[([\s\S]*?)\]\]><\/data>/g)].map((m) => ({
-    type: /type='([^']+)'/.exec(m[1])![1],
-    gs1: /modifiers='[^']*GS1/.test(m[1]),
-    data: m[2],
-  }))
-}
-
-const sorted = (list: Decoded[]) => list.map((d) => `${d.type}${d.gs1 ? '+GS1' : ''} ${d.data}`).sort()
+const sorted = sortedSymbols
+const printAndDecode = (page: Page, name: string, options: Parameters<Page['pdf']>[0]) => printOnPaper(page, dir, name, options)
 const linearOf = (item: FxItem): Decoded =>
   item.gtin ? { type: 'CODE-128', gs1: true, data: `01${item.gtin}` } : { type: 'CODE-128', gs1: false, data: item.sku }
 
@@ -113,15 +83,18 @@ describe('printed barcodes decode with zbarimg', () => {
       const bins = await printAndDecode(page, 'bin-labels', { preferCSSPageSize: true })
       expect(sorted(bins)).toEqual(sorted(BINS.map((b) => ({ type: 'CODE-128', gs1: false, data: `B:${b}` }))))
 
+      // 4 × 2 in and 4 × 6 in item labels: the bars and a QR Code of the same data on each
       const some = [items[0], items[1], items[2]]
-      await page.goto(`/stock/labels?kind=item&ids=${some.map((i) => i.id).join(',')}&size=medium`)
-      await page.locator('[data-test="label"] [data-symbology="qr"]').first().waitFor()
-      const itemCodes = await printAndDecode(page, 'item-labels', { preferCSSPageSize: true })
-      expect(sorted(itemCodes)).toEqual(sorted(some.flatMap((item) => [linearOf(item), { type: 'QR-Code', gs1: false, data: linearOf(item).data }])))
-      // what the camera reads from the QR Code is what the scan parser takes for that item
-      for (const d of itemCodes.filter((x) => x.type === 'QR-Code')) {
-        const item = some.find((i) => d.data === linearOf(i).data)!
-        expect(classifyScan(d.data)).toMatchObject(item.gtin ? { kind: 'gs1', gtin: item.gtin } : { kind: 'sku', sku: item.sku })
+      for (const size of ['medium', 'large']) {
+        await page.goto(`/stock/labels?kind=item&ids=${some.map((i) => i.id).join(',')}&size=${size}`)
+        await page.locator('[data-test="label"] [data-symbology="qr"]').first().waitFor()
+        const itemCodes = await printAndDecode(page, `item-labels-${size}`, { preferCSSPageSize: true })
+        expect(sorted(itemCodes), size).toEqual(sorted(some.flatMap((item) => [linearOf(item), { type: 'QR-Code', gs1: false, data: linearOf(item).data }])))
+        // what the camera reads from the QR Code is what the scan parser takes for that item
+        for (const d of itemCodes.filter((x) => x.type === 'QR-Code')) {
+          const item = some.find((i) => d.data === linearOf(i).data)!
+          expect(classifyScan(d.data)).toMatchObject(item.gtin ? { kind: 'gs1', gtin: item.gtin } : { kind: 'sku', sku: item.sku })
+        }
       }
 
       for (const lot of lots) {

@@ -79,7 +79,7 @@ async function check(url: string | null, ready: string, shot: string): Promise<R
     await page.waitForFunction((w) => document.documentElement.clientWidth === w, width)
     await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => requestAnimationFrame(r)))) // tables re-lay out on resize
     out[width] = await cutOff(page)
-    await h.screenshot(page, `${shot}-${width}`)
+    if (width < 600) await h.screenshot(page, shot) // the phone's view, to look at
   }
   return out
 }

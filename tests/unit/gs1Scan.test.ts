@@ -122,6 +122,8 @@ describe('classifyScan', () => {
     expect(classifyScan('4471')).toEqual({ kind: 'sku', sku: '4471' })
     expect(classifyScan('https://yard.example/items/42')).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('is not a Lumenyard code') })
     expect(classifyScan('two words')).toMatchObject({ kind: 'invalid' })
+    // the square code of item and lot labels printed before it carried the bars' data: an item page's address
+    expect(classifyScan('https://yard.example/stock/items/42')).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('scan the bars') })
     expect(classifyScan('  \r\n')).toEqual({ kind: 'invalid', reason: 'nothing was scanned' })
   })
 })

@@ -19,6 +19,9 @@ describe('PO statuses', () => {
     expect(canDo('close', 'received')).toBe(true)
     expect(refusal('edit', 'sent')).toBe('A sent purchase order cannot be changed; only draft ones can.')
     expect(refusal('edit', 'draft')).toBeNull()
+    // English grammar (any style guide, common practice): "an" before a vowel sound, a list's last item after "or"
+    expect(refusal('receive', 'approved')).toBe('An approved purchase order cannot be received; only sent or partly received ones can.')
+    expect(refusal('close', 'draft')).toBe('A draft purchase order cannot be closed; only sent, partly received or received ones can.')
   })
 
   it('is received only when every line has all it ordered', () => {

@@ -137,6 +137,20 @@ describe('across walls and items', () => {
     expect(blocks.explanation.formula).toContain('total 180')
   })
 
+  it('alike walls under other names: each is what it would be alone, under its own name', () => {
+    // A row of identical windows is worked out once; the second must still read as itself everywhere.
+    const curved = { sizing: 'count' as const, heightMm: undefined, courses: 6, segments: [{ kind: 'curved' as const, insideRadiusMm: 70 * IN, arcAngleDeg: 90, direction: 'left' as const }], freeEnds: { start: false, end: true, top: true } }
+    const first = wall({ name: 'Flat 1 shower', ...curved })
+    const second = wall({ name: 'Flat 2 shower', ...curved })
+    const together = computeTakeoff(takeoff([first, second]), catalog, { unit: 'in' })
+    const alone = computeTakeoff(takeoff([second]), catalog, { unit: 'in' })
+    expect(together.walls[1]).toEqual(alone.walls[0])
+    expect(together.walls[0].name).toBe('Flat 1 shower')
+    expect(together.walls[0].cautions.filter((c) => c.wall).every((c) => c.wall === 'Flat 1 shower')).toBe(true)
+    expect(line(together.lines, 'block').explanation.inputs).toHaveProperty(['Flat 2 shower · standardBlocks'])
+    expect(line(together.lines, 'block').needed).toBe(2 * line(alone.lines, 'block').needed)
+  })
+
   it('a wall can map its own block', () => {
     const frosted = wall({ name: 'Bath', catalog: { block: { sku: 'BW-GB8-FRO', name: 'Frosted 8x8', unit: 'each', packSize: 1, sellByPack: false } } })
     const r = computeTakeoff(takeoff([wall(), frosted]), catalog, { unit: 'in' })

@@ -93,7 +93,7 @@ describe('unit thickness, IRC 2021 R607.3', () => {
 
 describe('joints', () => {
   it('spacer systems: the code text assumes mortar', () => {
-    // source: reference notes (memory): spacer systems rely on the maker's instructions and local approval
+    // source: IRC 2021 R607 speaks of mortar only (from memory); spacer systems rely on the maker's instructions and local approval (common practice)
     const c = cautionsOf(wall()).find((x) => x.code === 'IRC 2021 R607')
     expect(c?.level).toBe('warn')
     expect(c?.message).toContain('maker’s installation instructions')

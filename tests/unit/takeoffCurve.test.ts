@@ -1,6 +1,6 @@
 // Feature: curved glass block runs — angle per block, outside joint, smallest radius, blocks per arc and
 // refusals (shared/takeoff/curve.ts, planView.ts). Checked against an independent corner-placement method
-// written here, and against the small-angle formulas in the project's reference notes.
+// written here, and against the small-angle forms of arc length = radius × angle (plane geometry, any textbook).
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { curvedSegmentSchema, type BlockSpec, type CurvedSegment } from '../../shared/schemas/takeoff.js'
@@ -97,13 +97,14 @@ describe('exact corner geometry', () => {
     expect(radiusForAnglePerBlock(W, JI, anglePerBlockRad(W, JI, 2000))).toBeCloseTo(2000, 6)
   })
 
-  it('stays close to the small-angle formulas of the reference notes', () => {
-    // source: reference notes, curves: R_min ≈ (face + inside joint) × depth / (outside − inside joint)
+  it('stays close to the small-angle forms (arc length = radius × angle)', () => {
+    // source: arc length s = R·θ (plane geometry): a module (face + inside joint) spans θ ≈ (w + ji)/R at the inside
+    // and the outside joint opens by t·θ, so jo − ji = t·(w + ji)/R and R_min ≈ (w + ji)·t / (jo − ji)
     // hand-worked: (7.875 × 3.875) / (5/8 − 1/8) = 30.515625 / 0.5 = 61.03125 in = 1550.19 mm
     const approx = approxMinInsideRadiusMm(W, T, JI, JO_MAX)
     expect(approx).toBeCloseTo(61.03125 * IN, 6)
     expect(Math.abs(minInsideRadiusMm(W, T, JI, JO_MAX) - approx) / approx).toBeLessThan(0.001)
-    // source: reference notes: angle per block ≈ (outside joint − inside joint) / depth (radians)
+    // source: the same s = R·θ across the block's depth: angle per block ≈ (outside joint − inside joint) / depth (radians)
     const R = 1600
     const theta = anglePerBlockRad(W, JI, R)
     const jo = outsideJointMm(JI, T, theta)

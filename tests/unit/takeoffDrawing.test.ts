@@ -117,3 +117,26 @@ describe('SVG', () => {
     expect(new Set(tones).size).toBe(12)
   })
 })
+
+describe('the drawing of a large wall', () => {
+  // 90 across × 100 courses = 9,000 blocks, past the 1,500 a drawing shows block by block
+  const big = computed(wall({ courses: 100, segments: [{ kind: 'straight', blocks: 90 }], freeEnds: { start: false, end: false, top: false }, wetArea: false }))
+  const svg = toSvg(big.drawing!, { widthPx: 760 })
+
+  it('draws each section one strip per course and the joints as one grid, not a rectangle per block', () => {
+    // independent count: the (section, course) pairs the section plan's cells cover
+    const strips = new Set(big.sections.sections.flatMap((s) => s.cells.map((c) => `${s.index}|${c.course}`)))
+    const drawn = svg.match(/<rect [^>]*data-section="/g) ?? []
+    expect(drawn).toHaveLength(strips.size)
+    expect(strips.size).toBeLessThan(big.geometry.totalBlocks)
+    expect(svg.match(/class="joints"/g)).toHaveLength(1)
+    // the grid: a line at each column edge (90 blocks → 180 edges) and each course edge (100 courses → 200)
+    const grid = /<path d="([^"]+)"[^>]*class="joints"/.exec(svg)![1]
+    expect(grid.match(/V/g)).toHaveLength(180)
+    expect(grid.match(/H/g)).toHaveLength(200)
+  })
+
+  it('stays small enough for a page to show at once', () => {
+    expect(svg.length).toBeLessThan(600_000)
+  })
+})

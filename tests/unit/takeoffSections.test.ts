@@ -91,7 +91,7 @@ describe('worked example: 9 × 10 blocks, straight', () => {
       expect(s.weightKg).toBeCloseTo(s.blocks * 5 + 1, 9)
       expect(s.overweight).toBe(true)
     }
-    expect(heavy.notes.join(' ')).toContain('more than a 2-person lift')
+    expect(heavy.notes.map((n) => n.message).join(' ')).toContain('more than a 2-person lift')
   })
 })
 
@@ -100,7 +100,7 @@ describe('limits and options', () => {
     const plan = planSections({ columns: 3, courses: 2, curved: false, blockWeightKg: KG })
     expect(plan.sections).toHaveLength(1)
     expect(plan.sections[0].blocks).toBe(6)
-    expect(plan.notes[0]).toContain('fewer than one')
+    expect(plan.notes[0]).toMatchObject({ variant: 'one', message: expect.stringContaining('fewer than one') })
   })
 
   it('16–19 blocks: never over the largest section, and says why', () => {
@@ -108,7 +108,7 @@ describe('limits and options', () => {
     expect(plan.arithmeticallyPossible).toBe(false)
     expect(plan.sections.every((s) => s.blocks <= 15)).toBe(true)
     expect(covered(plan, 4, 4)).toBe(true)
-    expect(plan.notes.join(' ')).toContain('cannot be split')
+    expect(plan.notes.map((n) => n.message).join(' ')).toContain('cannot be split')
   })
 
   it('follows a configured range and lift', () => {

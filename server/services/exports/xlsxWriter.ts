@@ -184,6 +184,40 @@ function headerRow(row: ExcelJS.Row, count: number) {
   }
 }
 
+/** Text starts one step in from the cell's left edge, so it never touches a number right-aligned beside it. */
+export function alignmentOf(kind: CellKind, wrap: boolean): Partial<ExcelJS.Alignment> {
+  const text = kind === 'text' || kind === 'boolean'
+  return { horizontal: text ? 'left' : 'right', ...(text ? { indent: 1 } : {}), vertical: 'top', ...(wrap ? { wrapText: true } : {}) }
+}
+
+/** Points per line of 11 pt text (common practice: spreadsheet programs' default row height). */
+export const LINE_POINTS = 15
+
+/**
+ * Lines `text` takes when wrapped in `widthChars` width units: a unit is one digit wide and mixed-case text runs
+ * about 1.2 characters to it (common practice, checked against LibreOffice's printout), less one unit for the
+ * indent and padding.
+ */
+export function wrappedLines(text: string, widthChars: number): number {
+  const room = Math.max(1, (widthChars - 1) * 1.2)
+  return text.split('\n').reduce((n, part) => n + Math.max(1, Math.ceil(part.length / room)), 0)
+}
+
+/** Row height in points for `lines` lines of text (a spreadsheet's tallest row is 409 points). */
+export const rowHeightFor = (lines: number) => Math.min(409, lines * LINE_POINTS)
+
+/**
+ * The height a row needs for its wrapped text, or 0 when one line does: spreadsheet programs keep the stored
+ * height when they open a file, so a row that wraps must say how tall it is.
+ */
+export function wrappedHeight(values: readonly ExcelJS.CellValue[], widths: readonly { width: number; wrap: boolean }[]): number {
+  let lines = 1
+  values.forEach((v, i) => {
+    if (widths[i].wrap && typeof v === 'string') lines = Math.max(lines, wrappedLines(v, widths[i].width))
+  })
+  return lines > 1 ? rowHeightFor(lines) : 0
+}
+
 /** A table: one header row, then one row per record. */
 export function sheet<Row>(table: SheetSpec<Row>): Sheet {
   return (book) => {
@@ -193,16 +227,23 @@ export function sheet<Row>(table: SheetSpec<Row>): Sheet {
       views: [{ state: 'frozen', ySplit: 1 }],
       ...printOptions({ title: spec.title ?? spec.name, orientation: spec.orientation ?? orientationFor(widths.map((w) => w.width)), titleRows: '1:1' }),
     })
+    const alignments = spec.columns.map((c, i) => alignmentOf(c.kind, widths[i].wrap))
     ws.columns = spec.columns.map((c, i) => {
       const numFmt = c.numFmt ?? numberFormat(c.kind, c.places)
-      const alignment: Partial<ExcelJS.Alignment> | undefined = widths[i].wrap ? { wrapText: true, vertical: 'top' } : undefined
-      return { header: c.header, width: widths[i].width, style: { ...(numFmt ? { numFmt } : {}), ...(alignment ? { alignment } : {}) } }
+      return { header: c.header, width: widths[i].width, style: { ...(numFmt ? { numFmt } : {}), alignment: alignments[i] } }
     })
     if (spec.rows.length) ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: spec.columns.length } }
     const head = ws.getRow(1)
     headerRow(head, spec.columns.length)
+    spec.columns.forEach((c, i) => (head.getCell(i + 1).alignment = { ...alignments[i], wrapText: false, vertical: 'bottom' }))
     head.commit()
-    for (const row of spec.rows) ws.addRow(spec.columns.map((c) => cellValue(c.kind, c.value(row)))).commit()
+    for (const row of spec.rows) {
+      const values = spec.columns.map((c) => cellValue(c.kind, c.value(row)))
+      const added = ws.addRow(values)
+      const height = wrappedHeight(values, widths)
+      if (height) added.height = height
+      added.commit()
+    }
     ;(ws as { commit?: () => void }).commit?.()
   }
 }

@@ -5,8 +5,8 @@
 import type ExcelJS from 'exceljs'
 import type { PoDetail, PoLineView } from '../../../shared/schemas/purchasingViews.js'
 import {
-  buildXlsx, columnWidths, newWorkbook, printOptions, putCell, sheet, THIN_RULE, workbookBytes, type Book, type CellInput, type CellKind,
-  type SheetColumn,
+  alignmentOf, buildXlsx, columnWidths, LINE_POINTS, newWorkbook, printOptions, putCell, rowHeightFor, sheet, THIN_RULE, workbookBytes,
+  wrappedHeight, wrappedLines, type Book, type CellInput, type CellKind, type SheetColumn,
 } from '../exports/xlsxWriter.js'
 import { costsVisible, visibleColumns } from '../costVisibility.js'
 
@@ -14,7 +14,6 @@ import { costsVisible, visibleColumns } from '../costVisibility.js'
 export const PO_TABLE_HEADER_ROW = 10
 
 const HEADER_FILL: ExcelJS.Fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFE5F4F3' } }
-const LINE_HEIGHT = 15
 
 // Money reaches the sheet as a number only here: spreadsheet cells hold binary doubles, and a
 // two- or four-place amount of this size converts exactly enough for display and sums.
@@ -47,10 +46,9 @@ function block(ws: ExcelJS.Worksheet, widths: number[], row: number, from: numbe
   Object.assign(cell, style)
   cell.alignment = { wrapText: true, vertical: 'top', horizontal: 'left', ...(style.alignment ?? {}) }
   if (typeof cell.value !== 'string') return
-  const room = widths.slice(from - 1, to).reduce((a, b) => a + b, 0) * 1.1 - 1
-  const lines = cell.value.split('\n').reduce((n, part) => n + Math.max(1, Math.ceil(part.length / room)), 0)
+  const height = rowHeightFor(wrappedLines(cell.value, widths.slice(from - 1, to).reduce((a, b) => a + b, 0)))
   const r = ws.getRow(row)
-  if (lines * LINE_HEIGHT > (r.height ?? LINE_HEIGHT)) r.height = Math.min(409, lines * LINE_HEIGHT)
+  if (height > (r.height ?? LINE_POINTS)) r.height = height
 }
 
 function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
@@ -83,6 +81,7 @@ function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
 }
 
 function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], widths: { width: number; wrap: boolean }[], po: PoDetail): number {
+  const alignments = columns.map((c, i) => alignmentOf(c.kind, widths[i].wrap))
   const head = ws.getRow(PO_TABLE_HEADER_ROW)
   columns.forEach((c, i) => {
     const cell = head.getCell(i + 1)
@@ -90,16 +89,18 @@ function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], wi
     cell.font = { bold: true }
     cell.fill = HEADER_FILL
     cell.border = { bottom: THIN_RULE }
-    cell.alignment = { horizontal: c.kind === 'text' ? 'left' : 'right', wrapText: true }
+    cell.alignment = { ...alignments[i], vertical: 'bottom', wrapText: false }
   })
   po.lines.forEach((l, i) => {
     const row = ws.getRow(PO_TABLE_HEADER_ROW + 1 + i)
     columns.forEach((c, col) => {
       const cell = row.getCell(col + 1)
       putCell(cell, c.kind, c.value(l))
-      if (widths[col].wrap) cell.alignment = { wrapText: true, vertical: 'top' }
-      else if (c.kind === 'text') cell.alignment = { vertical: 'top' }
+      cell.alignment = alignments[col]
     })
+    // A wrapped description makes its row taller, or it would run over the next line when printed.
+    const height = wrappedHeight(columns.map((_, col) => row.getCell(col + 1).value), widths)
+    if (height) row.height = height
   })
   return PO_TABLE_HEADER_ROW + po.lines.length
 }
@@ -113,7 +114,7 @@ export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.numbe
   const totalRow = lastLine + 2
   const lastRow = po.notes ? totalRow + 2 : totalRow
   const ws = book.addWorksheet(name, {
-    properties: { defaultRowHeight: LINE_HEIGHT },
+    properties: { defaultRowHeight: LINE_POINTS },
     views: [{ state: 'frozen', ySplit: PO_TABLE_HEADER_ROW, topLeftCell: `A${PO_TABLE_HEADER_ROW + 1}` }],
     // Portrait, like any order form: a 30-line order fits one page at the width the writer scales to.
     ...printOptions({

@@ -18,7 +18,8 @@ export function wordParams(params: Record<string, string | number> = {}, unit: L
     if (typeof v === 'number' && /Mm$/.test(k)) {
       out[k] = formatLength(v, unit, { feet: v >= 120 * 25.4, style: 'words', rounding: /^smallest/.test(k) ? 'up' : 'nearest' })
     } else if (t && k === 'side') out[k] = t(`takeoff.side.${v}`)
-    else if (t && k === 'role') out[k] = t(`takeoff.roleName.${v}`)
+    else if (t && (k === 'role' || k === 'lineRole')) out[k] = t(`takeoff.roleName.${v}`)
+    else if (t && (k === 'exposure' || k === 'thickness')) out[k] = t(`takeoff.${k}.${v}`)
     else if (t && k === 'fields') out[k] = String(v).split(',').map((f) => t(`takeoff.mismatch.${f}`)).join(', ')
     else out[k] = v
   }
@@ -28,6 +29,7 @@ export function wordParams(params: Record<string, string | number> = {}, unit: L
 function keyed(prefix: string, item: { key?: string; params?: Record<string, string | number> }): string | undefined {
   if (!item.key) return undefined
   if (item.key === 'leftover_space') return `${prefix}.leftover_space.${item.params?.where ?? 'jambs'}`
+  if (item.params?.variant !== undefined) return `${prefix}.${item.key}.${item.params.variant}`
   return `${prefix}.${item.key}`
 }
 
@@ -38,6 +40,12 @@ export function cautionText(c: Caution, unit: LengthUnit, t: Translate, te: Exis
     if (k && te(k)) return t(k, wordParams(c.params, unit, t))
   }
   return c.message
+}
+
+/** What stops a bill from being saved, named by its wall where it has one. */
+export function blockerText(c: Caution, unit: LengthUnit, t: Translate, te: Exists): string {
+  const text = cautionText(c, unit, t, te)
+  return text !== c.message && c.wall ? `${c.wall}: ${text}` : text
 }
 
 /** Why a wall cannot be built, in the reader's language and unit. */
@@ -70,5 +78,6 @@ export function svgWords(t: Translate): SvgWords {
     freeEnd: t('takeoff.svg.freeEnd'),
     section: (n, blocks, kg, heavy) => `${t('takeoff.svg.section', { n, blocks, kg })}${heavy ? ` ${t('takeoff.svg.heavy')}` : ''}`,
     key: t('takeoff.svg.key'),
+    moreSections: (n) => t('takeoff.svg.moreSections', { n }),
   }
 }

@@ -264,7 +264,7 @@ export default {
     done: {
       recount: '{qty} back on the line, to pick.',
       backorder: '{qty} backordered for purchasing.',
-      substitute: 'Substitute added to the list: {qty}.',
+      substitute: 'Substitute added to the list ({qty}).',
     },
     settled: {
       backorder: '{qty} backordered',

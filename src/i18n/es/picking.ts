@@ -264,7 +264,7 @@ export default {
     done: {
       recount: '{qty} vuelven a la línea, para preparar.',
       backorder: '{qty} quedan pedidas a compras.',
-      substitute: 'Sustituto añadido a la lista: {qty}.',
+      substitute: 'Sustituto añadido a la lista ({qty}).',
     },
     settled: {
       backorder: '{qty} pedidas',

@@ -82,13 +82,19 @@ export function currentLocale(): Locale {
 const LAST_LOCALE = 'lumenyard.locale'
 let wanted: Locale = FALLBACK
 
-/** The language this browser last used: a good guess for loading messages before the session answers. */
+/**
+ * The language this browser last used, else the browser's own language: the sign-in page's language, and
+ * a good guess for loading messages before the session answers.
+ */
 export function lastLocale(): Locale {
+  let stored: string | null = null
   try {
-    return localStorage.getItem(LAST_LOCALE) === 'es' ? 'es' : FALLBACK
+    stored = localStorage.getItem(LAST_LOCALE)
   } catch {
-    return FALLBACK
+    // private mode: go by the browser's language
   }
+  if (stored === 'es' || stored === 'en') return stored
+  return typeof navigator !== 'undefined' && /^es\b/i.test(navigator.language ?? '') ? 'es' : FALLBACK
 }
 
 /** Switches the language; its messages for the areas in use load first (the old text stays meanwhile). */

@@ -2,7 +2,7 @@ import { createRouter, createWebHistory, type RouteLocationNormalized, type Rout
 import './meta'
 import { hasAnyRole } from '@shared/roles'
 import { prefetchGet } from '@/api/client'
-import { BOOT_AREAS, lastLocale, loadMessages } from '@/i18n'
+import { BOOT_AREAS, currentLocale, lastLocale, loadMessages, setLocale } from '@/i18n'
 import { useSessionStore } from '@/stores/session'
 import HomeView from '@/views/HomeView.vue'
 import { adminRoutes } from './areas/admin'
@@ -64,5 +64,8 @@ router.beforeEach(async (to) => {
     return { name: 'home', query: { refused: '1' } }
   }
   await Promise.all([early, messagesFor(to, session.user?.locale ?? 'en')])
+  // The page is set up in the user's language: words it computes once (grid columns, the grid's own
+  // words) would otherwise stay in the language the page started in.
+  if (session.user && session.user.locale !== currentLocale()) await setLocale(session.user.locale)
   return true
 })

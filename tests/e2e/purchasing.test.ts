@@ -85,7 +85,7 @@ describe('purchasing in the browser', () => {
       await scan.press('Enter')
       await expect.poll(() => wh.page.locator('[data-test="scan-feedback"]').textContent()).toContain('A-01-1')
       // A pallet label typed from its human-readable line: SSCC, content GTIN, count and lot
-      // (GS1 Barcode Syntax Dictionary: (37) goes with (02) on a logistic unit, REFERENCES.md)
+      // (GS1 Barcode Syntax Dictionary: (37) goes with (02) on a logistic unit)
       const gtin14 = (normalizeGtin(f.block.gtin!) as { gtin14: string }).gtin14
       await scan.fill(`(00)${SSCC}(02)${gtin14}(37)48(10)R7001`)
       await scan.press('Enter')

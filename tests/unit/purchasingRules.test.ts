@@ -92,7 +92,7 @@ describe('receiving scans', () => {
   ]
 
   it('reads (01) GTIN with (10) lot as one unit of that lot, on the first line still open', () => {
-    // GS1-128 element string with FNC1 as GS (GS1 General Specifications §5.10, REFERENCES.md)
+    // GS1-128 element string with FNC1 as GS (GS1 General Specifications §5.10)
     expect(readReceivingScan(`]C101${GTIN}10R2611${GS}`, lines)).toEqual({ kind: 'line', poLineId: 2, qty: 1, lotCode: 'R2611', sscc: null, warnings: [] })
     expect(readReceivingScan(`(01)${GTIN}(10)R2611`, lines)).toMatchObject({ kind: 'line', poLineId: 2, lotCode: 'R2611' })
   })
@@ -106,7 +106,7 @@ describe('receiving scans', () => {
   })
 
   it('passes on the GS1 pairing warning for (37) with (01)', () => {
-    // source: GS1 Barcode Syntax Dictionary: (37) goes with (02), not (01) (REFERENCES.md, read)
+    // source: GS1 Barcode Syntax Dictionary: (37) goes with (02), not (01)
     const scan = readReceivingScan(`(01)${GTIN}(37)6`, lines)
     expect(scan).toMatchObject({ kind: 'line', qty: 6 })
     expect(scan.kind === 'line' && scan.warnings.length).toBeGreaterThan(0)

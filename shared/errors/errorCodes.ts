@@ -38,6 +38,7 @@ export const ERROR_CODES = {
   ends_before_start: [],
   range_backwards: [],
   time_zone_unknown: [],
+  day_after_today: ['today'],
 
   // Codes and identifiers typed into forms
   username_chars: [],

@@ -47,3 +47,8 @@ export function monthsBetween(from: string, to: string, zone: string): { month: 
   }
   return out
 }
+
+/** The calendar day (YYYY-MM-DD) an instant falls on in the zone. */
+export function localDayIn(zone: string, at: Date): string {
+  return new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at)
+}

@@ -190,4 +190,6 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/counts/:id/bins/:binId/finish': { access: ['admin', 'warehouse'] },
   'POST /api/counts/:id/review': { access: ['admin', 'warehouse', 'buyer'] },
   'POST /api/counts/:id/cancel': { access: ['admin'] },
+  // Reports: the owner (admin) and the buyer; values under the cost rule.
+  'GET /api/reports/stock-valuation': { access: ['admin', 'buyer'], costs: '/api/reports/stock-valuation?warehouseId={warehouse}' },
 }

@@ -1,12 +1,14 @@
 // Stock value by warehouse and family at moving-average cost as of the end of any day, from the ledger:
-// one query gives, for every receipt and transfer in up to that day, the units the warehouse held just
-// before it (a running sum over the item and warehouse's moves in ledger order); another the units on
-// hand at the day's end. The average is replayed in Node (shared/reports/valuationReplay.ts).
+// one query gives, for every move that blends a cost (receipts and transfers in, stock/averageCost.ts)
+// up to that day, the units the warehouse held just before it (a running sum over the item and
+// warehouse's moves in ledger order); another the units on hand at the day's end. The average is
+// replayed in Node (shared/reports/valuationReplay.ts).
 import type { DataSource } from 'typeorm'
 import type { ItemFamily } from '../../../shared/catalog.js'
 import { addMoney, type Money } from '../../../shared/money.js'
 import { valueAsOf, type CostBearingMove, type PairValue } from '../../../shared/reports/valuationReplay.js'
 import { dayEnd } from '../../../shared/reports/zonedDays.js'
+import { COSTED_IN } from '../stock/averageCost.js'
 
 export interface ValuationQuery {
   asOf: string
@@ -31,9 +33,9 @@ export async function valuedPairs(ds: DataSource, q: ValuationQuery): Promise<Va
                 SUM(m.qty) OVER (PARTITION BY m.item_id, m.warehouse_id ORDER BY m.at, m.id ROWS UNBOUNDED PRECEDING) - m.qty AS before_qty
            FROM stock_moves m WHERE m.at < ? ${whFilter}
        ) t
-       WHERE t.move_type IN ('receipt', 'transfer_in') AND t.unit_cost IS NOT NULL
+       WHERE t.move_type IN (?) AND t.unit_cost IS NOT NULL
        ORDER BY t.item_id, t.warehouse_id, t.at, t.id`,
-      params,
+      [...params, [...COSTED_IN]],
     ) as Promise<{ item_id: number; warehouse_id: number; qty: number; unit_cost: string; before_qty: string }[]>,
     ds.query(
       `SELECT m.item_id, m.warehouse_id, SUM(m.qty) AS on_hand FROM stock_moves m WHERE m.at < ? ${whFilter}

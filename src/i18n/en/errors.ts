@@ -34,6 +34,7 @@ export default {
   ends_before_start: 'Ends before it starts',
   range_backwards: 'Not before the first one',
   time_zone_unknown: 'Not a known time zone',
+  day_after_today: 'Choose a day up to today ({today})',
   username_chars: 'Lower-case letters, digits, dot, dash and underscore only',
   password_unchanged: 'Choose a password different from the current one',
   customer_code_chars: 'Letters, digits and dashes only',

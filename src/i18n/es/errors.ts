@@ -33,6 +33,7 @@ export default {
   ends_before_start: 'Termina antes de empezar',
   range_backwards: 'No puede ir antes del primero',
   time_zone_unknown: 'No es una zona horaria conocida',
+  day_after_today: 'Elija un día hasta hoy ({today})',
   username_chars: 'Solo minúsculas, dígitos, punto, guion y guion bajo',
   password_unchanged: 'Elija una contraseña distinta de la actual',
   customer_code_chars: 'Solo letras, dígitos y guiones',

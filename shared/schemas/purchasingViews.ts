@@ -48,10 +48,14 @@ export interface WarehouseChoice {
 }
 
 export interface PoTimelineEntry {
-  event: 'created' | 'approved' | 'sent' | 'received' | 'closed' | 'cancelled'
+  /** 'delivery' is one receipt (part or all of the order); 'received' is the order complete. */
+  event: 'created' | 'approved' | 'sent' | 'delivery' | 'received' | 'closed' | 'cancelled'
   at: string
   by: string | null
   note?: string | null
+  /** A delivery's good and damaged units. */
+  qty?: number
+  damaged?: number
 }
 
 export interface PoLineView {

@@ -97,6 +97,8 @@ export interface PoSummary {
   orderTotal?: string
   /** Goes up with every change; send it back with an edit or approval. */
   version: number
+  /** The vendor's expected date is after the job's due date: the job would wait for this order. */
+  arrivesAfterDue: boolean
 }
 
 export interface OutboxSummary {
@@ -228,4 +230,6 @@ export interface SpecialOrderJob {
   customerName: string | null
   dueDate: string | null
   linesToOrder: number
+  /** The job's warehouse (of its latest pick list), where its special orders ship by default. */
+  warehouseId: number | null
 }

@@ -20,6 +20,13 @@ const SUMMARY_SQL = `SELECT o.*, v.code AS v_code, v.name AS v_name, v.email AS 
 type PoRow = Record<string, unknown> & { id: number; number: string; status: PoStatus; total: string }
 
 function summaryOf(r: PoRow): PoSummary {
+  const summary = summaryFields(r)
+  const due = summary.job?.dueDate
+  const open = !['received', 'closed', 'cancelled'].includes(summary.status)
+  return { ...summary, arrivesAfterDue: !!(open && due && summary.expectedDate && summary.expectedDate > due) }
+}
+
+function summaryFields(r: PoRow): PoSummary {
   return {
     id: r.id,
     number: r.number,
@@ -33,6 +40,7 @@ function summaryOf(r: PoRow): PoSummary {
     lineCount: Number(r.line_count),
     orderTotal: r.total,
     version: Number(r.version),
+    arrivesAfterDue: false,
   }
 }
 

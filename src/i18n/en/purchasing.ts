@@ -126,6 +126,8 @@ export default {
   jobDue: 'Job due',
   orderForJob: 'Order for this job',
   vendorOptional: 'Vendor (blank: each item’s preferred)',
+  shipToJobs: 'Ship to (blank: each job’s warehouse)',
+  chooseShipTo: 'choose above',
 
   orderTitle: 'Purchase order {number}',
   approve: 'Approve',
@@ -133,6 +135,9 @@ export default {
   sendEmail: 'E-mail to vendor',
   sendAgain: 'E-mail again',
   download: 'Spreadsheet',
+  downloadPdf: 'Printable PDF',
+  arrivesAfterDue: 'Expected {expected}, after the job is due ({due}): the job would wait for this order. Ask the vendor for an earlier date or tell the counter.',
+  specification: 'Specification',
   cancelOrder: 'Cancel order',
   closeOrder: 'Close order',
   reasonPrompt: 'Reason (optional)',

@@ -52,6 +52,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/warehouses/:id/bins': { access: ['admin'] },
   'POST /api/warehouses/:id/bins/range': { access: ['admin'] },
   'PATCH /api/warehouses/:id/bins/:binId': { access: ['admin'] },
+  'DELETE /api/warehouses/:id/bins/:binId': { access: ['admin'] },
   // Stock operations: warehouse crew and admin move stock.
   'POST /api/stock/adjustments': { access: ['admin', 'warehouse'] },
   'POST /api/stock/bin-moves': { access: ['admin', 'warehouse'] },

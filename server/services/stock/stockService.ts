@@ -130,6 +130,14 @@ export async function adjust(
   input: { itemId: number; binId: number; lotId: number | null; delta: number; reason: AdjustmentReason; note?: string | null; doc?: DocRef },
 ): Promise<AppliedMoves> {
   const bin = await storageBin(em, input.binId)
+  // Found units of an item matched by lot must say which lot they are: without one they could never be
+  // picked with their run (tint) and would sit apart in a lot of their own.
+  if (input.reason === 'found' && input.lotId === null) {
+    const [item]: { match_lot: number }[] = await em.query('SELECT match_lot FROM items WHERE id = ?', [input.itemId])
+    if (item && Number(item.match_lot)) {
+      throw new AppError(400, 'lot_required', 'This item is matched by lot: choose the lot the found units belong to.', { lotId: 'Choose the lot' })
+    }
+  }
   return applyMoves(em, actor, [
     {
       moveType: input.reason === 'counted' ? 'count' : 'adjustment',

@@ -68,6 +68,7 @@ describe('purchasing in the browser', () => {
       await admin.page.goto('/admin/outbox')
       const entry = admin.page.locator('[data-test="outbox"] tr', { hasText: 'Purchase order' }).first()
       await expect.poll(() => entry.textContent()).toContain('.xlsx')
+      expect(await entry.textContent()).toContain('.pdf') // the printable order beside the sheet
       await admin.page.waitForTimeout(400)
       await h.screenshot(admin.page, 'purchasing-outbox')
     } finally {
@@ -97,7 +98,8 @@ describe('purchasing in the browser', () => {
       await qty.fill('24')
       await qty.press('Tab')
       await wh.page.locator('[data-test="post-receipt"]').click()
-      await expect.poll(() => wh.page.locator('[data-test="receive-status"]').getAttribute('data-status')).toBe('closed')
+      // Posting the receipt and reading the order back can take seconds on a busy machine.
+      await expect.poll(() => wh.page.locator('[data-test="receive-status"]').getAttribute('data-status'), { timeout: 15_000 }).toBe('closed')
       await expect.poll(() => wh.page.locator('[data-test="lot-labels"]').count()).toBe(1)
       await wh.page.waitForTimeout(400)
       await h.screenshot(wh.page, 'purchasing-received')

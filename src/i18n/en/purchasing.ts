@@ -118,6 +118,13 @@ export default {
   wouldOrder: 'Would order',
   noVendor: 'No vendor sells this item',
   source: 'From',
+  // Where an accepted suggestion came from (purchase_suggestions.source).
+  sources: { reorder: 'Reorder point', backorder: 'Short on a pick list' },
+  changeQty: 'Change',
+  changeQtyPrompt: 'How many {unit} of {sku}? The order rounds up to the vendor’s packs.',
+  wholeUnits: 'A whole number, at least 1',
+  dismiss: 'Dismiss',
+  confirmDismiss: 'Dismiss {sku} ({qty} {unit})? It leaves this list and is not ordered.',
 
   specialTitle: 'Special orders',
   specialBlurb: 'Made-to-order lines (shower bases) of each job’s latest bill of materials that are not on a purchase order yet.',
@@ -189,6 +196,10 @@ export default {
   attachment: 'Attachment',
   error: 'Error',
   mailStatus: { sent: 'Sent', failed: 'Failed' },
+  refreshList: 'Refresh',
+  sendAgainNow: 'Send again',
+  sentAgain: 'Sent again to {to}.',
+  sentAgainAs: 'Sent again (message {id})',
   bytes: '{n} KB',
 
   settingsTitle: 'Purchasing settings',

@@ -48,3 +48,17 @@ export function serverFilters(f: LedgerFilterModel): QueryValues {
 export function blankFilters(): LedgerFilterModel {
   return { itemId: null, warehouseId: null, binId: null, lotId: null, moveType: [], dates: null, docType: '', docId: '' }
 }
+
+/**
+ * Days the export covers when no dates are chosen: a whole year of a busy yard is past the export's limit
+ * (a quarter at most), so an export with no dates takes the last 90 days instead of being refused.
+ */
+export const DEFAULT_EXPORT_DAYS = 90
+
+/** The dates an export sends: the chosen ones, else the last DEFAULT_EXPORT_DAYS local days up to today. */
+export function exportDates(f: LedgerFilterModel, today: Date): { from: string; to: string; defaulted: boolean } {
+  if (f.dates) return { from: localDayStart(f.dates[0]), to: localDayStart(f.dates[1], 1), defaulted: false }
+  const start = new Date(today.getFullYear(), today.getMonth(), today.getDate() - (DEFAULT_EXPORT_DAYS - 1))
+  const end = new Date(today.getFullYear(), today.getMonth(), today.getDate() + 1)
+  return { from: start.toISOString(), to: end.toISOString(), defaulted: true }
+}

@@ -1,7 +1,7 @@
 // The reorder chart's value axis shows its reorder point and safety stock lines even when the projected
 // position never reaches them (common practice: a level drawn off the axis reads as "not there").
 import { describe, expect, it } from 'vitest'
-import { levelsInView } from '../../src/components/charts/levelsInView.js'
+import { levelsInView } from '../../shared/inventory/stockProjection.js'
 
 describe('chart levels in view', () => {
   it('stretches the axis up to a reorder point above every position', () => {

@@ -3,6 +3,7 @@
 import type { LocationQuery } from 'vue-router'
 import type { MoveType } from '@shared/catalog'
 import type { QueryValues } from '@/api/stock'
+import { localDayStart } from '@shared/schemas/stockViews'
 
 export interface LedgerFilterModel {
   itemId: number | null
@@ -30,12 +31,6 @@ export function filtersToQuery(f: LedgerFilterModel): Record<string, string> {
   return out
 }
 
-/** Midnight starting a local day, as an instant; the server keeps times in UTC. */
-export function localDayStart(day: string, plusDays = 0): string {
-  const [y, m, d] = day.split('-').map(Number)
-  return new Date(y, m - 1, d + plusDays).toISOString()
-}
-
 export function serverFilters(f: LedgerFilterModel): QueryValues {
   return {
     itemId: f.itemId, warehouseId: f.warehouseId, binId: f.binId, lotId: f.lotId, moveType: f.moveType,
@@ -49,16 +44,3 @@ export function blankFilters(): LedgerFilterModel {
   return { itemId: null, warehouseId: null, binId: null, lotId: null, moveType: [], dates: null, docType: '', docId: '' }
 }
 
-/**
- * Days the export covers when no dates are chosen: a whole year of a busy yard is past the export's limit
- * (a quarter at most), so an export with no dates takes the last 90 days instead of being refused.
- */
-export const DEFAULT_EXPORT_DAYS = 90
-
-/** The dates an export sends: the chosen ones, else the last DEFAULT_EXPORT_DAYS local days up to today. */
-export function exportDates(f: LedgerFilterModel, today: Date): { from: string; to: string; defaulted: boolean } {
-  if (f.dates) return { from: localDayStart(f.dates[0]), to: localDayStart(f.dates[1], 1), defaulted: false }
-  const start = new Date(today.getFullYear(), today.getMonth(), today.getDate() - (DEFAULT_EXPORT_DAYS - 1))
-  const end = new Date(today.getFullYear(), today.getMonth(), today.getDate() + 1)
-  return { from: start.toISOString(), to: end.toISOString(), defaulted: true }
-}

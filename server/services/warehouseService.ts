@@ -138,13 +138,13 @@ export async function updateBin(ds: DataSource, actor: AuditActor, warehouseId: 
  * kept for its stock movements and can only be taken out of use.
  */
 export async function deleteBin(ds: DataSource, actor: AuditActor, warehouseId: number, binId: number): Promise<{ deleted: number }> {
-  const inUse = () => AppError.conflict('This bin has stock movements or other history, so it stays on record; take it out of use instead.', 'bin_used')
+  const inUse = () => AppError.conflict('bin_used', 'This bin has stock movements or other history, so it stays on record; take it out of use instead.')
   try {
     return await inTransaction(ds, async (em) => {
       const w = await findWarehouse(em, warehouseId)
       const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
-      if (!bin) throw AppError.notFound('That bin')
-      if (bin.kind === 'transit') throw AppError.conflict('The transit bin belongs to transfers and cannot be changed.')
+      if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+      if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
       // Tables that name a bin without a foreign key; the rest (balances, pick lines, receipts, counts) refuse the delete themselves.
       const [used] = await em.query(
         `SELECT EXISTS (SELECT 1 FROM stock_moves WHERE bin_id = ?) OR EXISTS (SELECT 1 FROM stock_reservations WHERE bin_id = ?)

@@ -9,7 +9,7 @@ import { parseSpec, specText } from '../../../shared/purchasing/specText.js'
 import { BomLine } from '../../entities/Bom.js'
 import { Job } from '../../entities/Customer.js'
 import { Vendor } from '../../entities/Vendor.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { isoDay } from './sqlValues.js'
 import { addDays, addToOpenDraft, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
@@ -65,7 +65,9 @@ export async function createFromJob(em: EntityManager, actor: AuditActor, input:
   if (!job) throw AppError.badRequest('Choose a job.', { jobId: 'Not a job' })
   // Ship to the job's own warehouse unless the buyer chose another.
   const warehouseId = input.warehouseId ?? (await jobWarehouse(em, job.id))
-  if (!warehouseId) throw AppError.badRequest('Choose the warehouse to ship to: this job has no pick list yet.', { warehouseId: 'Choose a ship-to warehouse' })
+  if (!warehouseId) {
+    throw AppError.badRequest('ship_to_needed', 'Choose the warehouse to ship to: this job has no pick list yet.', { fields: { warehouseId: problem('ship_to_needed') } })
+  }
   const lines = await chosenLines(em, job.id, input.bomLineIds)
   const itemIds = lines.map((l) => l.itemId!)
   const preferred = input.vendorId ? new Map() : await preferredVendors(em, itemIds)

@@ -142,7 +142,7 @@ export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor
   const { po } = paper
   ensureSendable(po)
   if (!paper.company.complete) {
-    throw AppError.conflict('Fill in the company profile (Admin → Company profile) first: a vendor must see who orders and where to bill.', 'company_profile_missing')
+    throw AppError.conflict('company_profile_missing', 'Fill in the company profile (Admin → Company profile) first: a vendor must see who orders and where to bill.')
   }
   const to = input.to ?? po.vendor.email
   if (!to) throw AppError.badRequest('vendor_email_missing', 'This vendor has no e-mail address: enter one.', { fields: { to: problem('required') } })

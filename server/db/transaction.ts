@@ -36,6 +36,11 @@ export function isOutOfRange(err: unknown): boolean {
   return errno === 1264 || errno === 1690
 }
 
+/** A row other rows still point at (MariaDB 1451): it has history and cannot be deleted. */
+export function isReferenced(err: unknown): boolean {
+  return errnoOf(err) === 1451
+}
+
 export function isDuplicateKey(err: unknown): boolean {
   return errnoOf(err) === 1062
 }

@@ -15,7 +15,17 @@ const PLAN: { vendor: string; warehouse: string; status: 'draft' | 'approved' | 
   { vendor: 'PELL', warehouse: 'MBS', status: 'draft', daysAgo: 0, lines: 2, wanted: 30 },
 ]
 
+/** The invented supplier's own profile, printed on its purchase orders (kept if an admin already filled it in). */
+async function demoCompanyProfile(em: EntityManager): Promise<void> {
+  await em.query(
+    `INSERT IGNORE INTO company_profile (id, legal_name, bill_to_address, ship_to_address, phone, email, reply_to, document_unit)
+     VALUES (1, 'Brightcourse Glass Supply', 'Accounts payable\n2140 Harbor Road\nPort Alder', NULL, '555-0142', 'office@brightcourse.example',
+             'buying@brightcourse.example', 'in')`,
+  )
+}
+
 export async function loadDemoPurchasing(em: EntityManager): Promise<void> {
+  await demoCompanyProfile(em)
   if ((await em.count(PurchaseOrder)) > 0) return
   const buyer = await em.findOneBy(User, { username: 'buyer' })
   const actor = { userId: buyer?.id ?? null }

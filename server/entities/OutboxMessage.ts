@@ -11,6 +11,8 @@ export class OutboxMessage {
   @Column({ name: 'to_address', type: 'varchar', length: 300 }) toAddress: string
   /** Comma-separated copies. */
   @Column({ type: 'varchar', length: 700, nullable: true }) cc: string | null
+  /** Where the vendor's answer goes (Reply-To). */
+  @Column({ name: 'reply_to', type: 'varchar', length: 254, nullable: true }) replyTo: string | null
   @Column({ type: 'varchar', length: 200 }) subject: string
   @Column({ name: 'body_text', type: 'text' }) bodyText: string
   @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null

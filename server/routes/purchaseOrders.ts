@@ -18,6 +18,8 @@ import { addLine, approve, cancel, close, markSent, removeLine, updateDraft } fr
 import { listPurchaseOrders, poDetail } from '../services/purchasing/poRead.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 import { multiPoWorkbook, poWorkbook } from '../services/purchasing/poSpreadsheet.js'
+import { poPaper } from '../services/purchasing/poDocument.js'
+import { PDF_TYPE, poPdf } from '../services/purchasing/poPdf.js'
 import { acceptedSuggestions } from '../services/purchasing/suggestionsRead.js'
 import { dismissSuggestion, updateSuggestion } from '../services/purchasing/suggestionEdits.js'
 
@@ -61,8 +63,8 @@ export default (ctx: AppContext) => {
       method: 'get', path: '/export', access: buyers,
       handler: async (req, res) => {
         const { ids } = parseQuery(poExportQuerySchema, req.query)
-        const pos = await Promise.all(ids.map((id) => poDetail(ctx.ds, id)))
-        return sendDownload(res, { name: `purchase-orders-${new Date().toISOString().slice(0, 10)}.xlsx`, type: XLSX_TYPE, bytes: await multiPoWorkbook(pos) })
+        const papers = await Promise.all(ids.map((id) => poPaper(ctx.ds, id)))
+        return sendDownload(res, { name: `purchase-orders-${new Date().toISOString().slice(0, 10)}.xlsx`, type: XLSX_TYPE, bytes: await multiPoWorkbook(papers) })
       },
     },
     {
@@ -90,8 +92,15 @@ export default (ctx: AppContext) => {
     {
       method: 'get', path: '/:id/export', access: buyers,
       handler: async (req, res) => {
-        const po = await poDetail(ctx.ds, poId(req))
-        return sendDownload(res, { name: `${po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(po) })
+        const paper = await poPaper(ctx.ds, poId(req))
+        return sendDownload(res, { name: `${paper.po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(paper) })
+      },
+    },
+    {
+      method: 'get', path: '/:id/pdf', access: buyers,
+      handler: async (req, res) => {
+        const paper = await poPaper(ctx.ds, poId(req))
+        return sendDownload(res, { name: `${paper.po.number}.pdf`, type: PDF_TYPE, bytes: await poPdf(paper) })
       },
     },
     {

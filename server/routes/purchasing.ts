@@ -1,6 +1,6 @@
 // Purchasing lookups (items, warehouses), its admin settings, the mail outbox, and a job's purchase
 // lines for the counter.
-import { purchasingSettingsSchema } from '../../shared/schemas/purchasing.js'
+import { companyProfileSchema, purchasingSettingsSchema } from '../../shared/schemas/purchasing.js'
 import { z } from 'zod'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
@@ -8,6 +8,7 @@ import { sendDownload } from '../http/fileResponse.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { purchasingSettings, updatePurchasingSettings } from '../services/appSettings.js'
+import { companyProfile, updateCompanyProfile } from '../services/companyProfile.js'
 import { jobPurchaseLines } from '../services/purchasing/jobPurchasing.js'
 import { listOutbox, outboxAttachment } from '../services/purchasing/outboxRead.js'
 import { sendAgain } from '../services/purchasing/poMail.js'
@@ -25,6 +26,12 @@ const purchasing = (ctx: AppContext) =>
     {
       method: 'patch', path: '/settings', access: admin,
       handler: (req) => updatePurchasingSettings(ctx.ds, actorOf(req), parseBody(purchasingSettingsSchema, req.body)),
+    },
+    // Who orders: buyers read it (their documents print it), admins keep it.
+    { method: 'get', path: '/company', access: buyers, handler: () => companyProfile(ctx.ds) },
+    {
+      method: 'put', path: '/company', access: admin,
+      handler: (req) => updateCompanyProfile(ctx.ds, actorOf(req), parseBody(companyProfileSchema, req.body)),
     },
     { method: 'get', path: '/outbox', access: admin, handler: () => listOutbox(ctx.ds) },
     {

@@ -7,7 +7,7 @@ import { actorOf, type AppContext } from '../context.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody } from '../http/validate.js'
 import {
-  createBin, createBinRange, createWarehouse, listWarehouses, updateBin, updateWarehouse, warehouseDetail,
+  createBin, createBinRange, createWarehouse, deleteBin, listWarehouses, updateBin, updateWarehouse, warehouseDetail,
 } from '../services/warehouseService.js'
 
 const readers = { roles: ANYONE_SIGNED_IN }
@@ -45,5 +45,11 @@ export default (ctx: AppContext) =>
       access: admin,
       handler: (req) =>
         updateBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'That bin'), parseBody(binPatchSchema, req.body)),
+    },
+    {
+      method: 'delete',
+      path: '/:id/bins/:binId',
+      access: admin,
+      handler: (req) => deleteBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'That bin')),
     },
   ])

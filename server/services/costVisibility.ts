@@ -33,6 +33,7 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
   'valueOff', // a count's variances at cost, gross
   'valueNet', // and net
   'varianceValue', // one count line's variance at cost
+  'stockValue', // stock on hand at its moving-average cost (reports)
 ])
 
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {

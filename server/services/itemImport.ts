@@ -3,7 +3,7 @@
 // SKU exists updates that item (columns absent from the file keep their values); others are created.
 import type { DataSource, EntityManager } from 'typeorm'
 import { In } from 'typeorm'
-import { itemSchema, type ImportPreview, type ImportPreviewRow, type ItemInput } from '../../shared/schemas/catalog.js'
+import { itemCrossFieldIssues, itemFields, itemSchema, type ImportPreview, type ImportPreviewRow, type ItemInput } from '../../shared/schemas/catalog.js'
 import { inTransaction } from '../db/transaction.js'
 import { Item } from '../entities/Item.js'
 import { AppError, problem } from '../errors.js'
@@ -29,9 +29,20 @@ function checkRow(r: ImportRow, existing: Item | undefined, parserIssues: RowIss
   const candidate = existing ? { ...toItemRecord(existing), ...present } : present
   const parsed = itemSchema.safeParse(candidate)
   if (!parsed.success) {
+    const bad = new Set(parserIssues.map((i) => i.column as string))
     for (const issue of parsed.error.issues) {
       const key = String(issue.path[0] ?? '')
-      if (!parserIssues.some((i) => i.column === key)) errors.push({ column: headerOf(key || null), problem: zodIssueProblem(issue) })
+      if (!bad.has(key)) errors.push({ column: headerOf(key || null), problem: zodIssueProblem(issue) })
+      bad.add(key)
+    }
+    // The checks between fields run only once every field reads; run them now on the fields that do,
+    // so a row shows all its problems at once instead of one wave after another.
+    const readable = Object.fromEntries(Object.entries(candidate).filter(([key]) => !bad.has(key)))
+    const partial = itemFields.partial().safeParse(readable)
+    if (partial.success) {
+      for (const issue of itemCrossFieldIssues(partial.data)) {
+        if (!bad.has(issue.path)) errors.push({ column: headerOf(issue.path), problem: issue.params ? { code: issue.code, params: issue.params } : { code: issue.code } })
+      }
     }
   }
   const sku = typeof r.values.sku === 'string' ? r.values.sku : null
@@ -55,11 +66,14 @@ async function checkSheet(em: EntityManager, sheet: ParsedSheet): Promise<Checke
   const seenSku = new Map<string, number>()
   const seenGtin = new Map<string, number>()
   for (const c of checked) {
-    if (!c.input) continue
-    const { sku, gtin } = c.input
-    const firstSku = seenSku.get(sku)
-    if (firstSku !== undefined) c.preview.errors.push({ column: 'SKU', problem: problem('sku_repeated', { sku, row: firstSku }) })
-    else seenSku.set(sku, c.preview.row)
+    // A repeated SKU is reported even on a row with other problems (all of a row's problems in one pass).
+    const sku = c.input?.sku ?? c.preview.sku?.trim()
+    if (sku) {
+      const firstSku = seenSku.get(sku)
+      if (firstSku !== undefined) c.preview.errors.push({ column: 'SKU', problem: problem('sku_repeated', { sku, row: firstSku }) })
+      else seenSku.set(sku, c.preview.row)
+    }
+    const gtin = c.input?.gtin
     if (!gtin) continue
     const owner = gtinOwner.get(gtin)
     if (owner && owner !== sku) c.preview.errors.push({ column: 'GTIN', problem: problem('gtin_belongs_to', { gtin, sku: owner }) })

@@ -6,7 +6,7 @@ import {
   binCodeFitsPattern, binRangeCodes, type BinInput, type BinPatch, type BinRangeInput, type BinRangeResult, type BinRow,
   type WarehouseDetail, type WarehouseInput, type WarehousePatch, type WarehouseRow,
 } from '../../shared/schemas/warehouses.js'
-import { inTransaction, isDuplicateKey } from '../db/transaction.js'
+import { inTransaction, isDuplicateKey, isReferenced } from '../db/transaction.js'
 import { Bin } from '../entities/Bin.js'
 import { Warehouse } from '../entities/Warehouse.js'
 import { AppError, problem } from '../errors.js'
@@ -130,6 +130,34 @@ export async function updateBin(ds: DataSource, actor: AuditActor, warehouseId: 
     })
   } catch (err) {
     throw duplicateBin(err) ?? err
+  }
+}
+
+/**
+ * Deletes a bin made by mistake. Only a bin that never held or moved anything goes; one with any history is
+ * kept for its stock movements and can only be taken out of use.
+ */
+export async function deleteBin(ds: DataSource, actor: AuditActor, warehouseId: number, binId: number): Promise<{ deleted: number }> {
+  const inUse = () => AppError.conflict('bin_used', 'This bin has stock movements or other history, so it stays on record; take it out of use instead.')
+  try {
+    return await inTransaction(ds, async (em) => {
+      const w = await findWarehouse(em, warehouseId)
+      const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
+      if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+      if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
+      // Tables that name a bin without a foreign key; the rest (balances, pick lines, receipts, counts) refuse the delete themselves.
+      const [used] = await em.query(
+        `SELECT EXISTS (SELECT 1 FROM stock_moves WHERE bin_id = ?) OR EXISTS (SELECT 1 FROM stock_reservations WHERE bin_id = ?)
+             OR EXISTS (SELECT 1 FROM transfer_lines WHERE from_bin_id = ?) OR EXISTS (SELECT 1 FROM pick_transfer_proposals WHERE from_bin_id = ?) AS used`,
+        [binId, binId, binId, binId],
+      )
+      if (Number(used.used)) throw inUse()
+      await em.delete(Bin, { id: binId })
+      await audit(em, actor, 'bin.delete', 'bin', binId, { warehouse: w.code, code: bin.code, kind: bin.kind })
+      return { deleted: binId }
+    })
+  } catch (err) {
+    throw isReferenced(err) ? inUse() : err
   }
 }
 

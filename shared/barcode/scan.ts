@@ -19,7 +19,7 @@ export const SKU_PATTERN = /^[A-Za-z0-9][A-Za-z0-9._/-]{0,39}$/
 /** A bin code such as aisle-bay-level: same characters as a SKU, up to 32. */
 export const BIN_CODE_PATTERN = /^[A-Za-z0-9][A-Za-z0-9._/-]{0,31}$/
 
-// Symbology identifiers (ISO/IEC 15424). ]C0, ]C1, ]E0, ]d2, ]Q3 from REFERENCES (read); ]E4, ]d1, ]Q1, ]e0 from memory.
+// Symbology identifiers (ISO/IEC 15424). ]C0, ]C1, ]E0, ]d2, ]Q3 as the GS1 General Specifications list them; ]E4, ]d1, ]Q1, ]e0 from memory.
 const SYMBOLOGIES: Readonly<Record<string, { name: string; gs1: boolean }>> = {
   ']C0': { name: 'Code 128', gs1: false },
   ']C1': { name: 'GS1-128', gs1: true },

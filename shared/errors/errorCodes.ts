@@ -38,6 +38,7 @@ export const ERROR_CODES = {
   ends_before_start: [],
   range_backwards: [],
   time_zone_unknown: [],
+  day_after_today: ['today'],
 
   // Codes and identifiers typed into forms
   username_chars: [],
@@ -186,6 +187,8 @@ export const ERROR_CODES = {
   bin_stocked: ['bin', 'units'],
   bin_pattern_misfits: ['bins', 'more'],
   bin_code_misfit: ['code', 'warehouse'],
+  bin_used: [],
+  lot_required: [],
   rule_id_mismatch: [],
   rule_as_shipped: [],
   rule_not_found: [],
@@ -227,6 +230,8 @@ export const ERROR_CODES = {
   value_out_of_range: [],
   po_not_found: [],
   po_changed: ['number'],
+  company_profile_missing: [],
+  ship_to_needed: [],
   po_not_sendable: ['poStatus'],
   vendor_email_missing: [],
   message_not_found: [],

@@ -1,45 +1,53 @@
-// A made-to-order spec (a shower base's footprint, curb, drain and entry) as one line a vendor reads.
+// A made-to-order spec (a shower base's footprint, curb, drain and entry) as one line a vendor reads, every
+// length in one unit through the one length formatter (never a raw float such as 1219.1999999999998).
 // Accepts the takeoff's nested shape and the flat one the bill of materials explains itself with.
-import { formatInches } from '../units.js'
+import { formatLength, formatSize, type LengthUnit } from '../units.js'
 
 type Spec = Record<string, unknown>
 
 const num = (v: unknown): number | null => (typeof v === 'number' && Number.isFinite(v) ? v : null)
-const mmAndInches = (mm: number) => `${mm} mm (${formatInches(mm)})`
 
-function curbText(spec: Spec): string | null {
+function curbText(spec: Spec, len: (mm: number) => string): string | null {
   if (spec.curbless === true) return 'curbless'
   if (typeof spec.curb === 'string') return `curb ${spec.curb}`
   const curb = spec.curb as { radiusMm?: unknown; arcDeg?: unknown } | undefined
   const radius = num(curb?.radiusMm)
-  if (radius !== null) return `curved curb R ${radius} mm, ${num(curb?.arcDeg) ?? '?'}°`
+  if (radius !== null) return `curved curb, radius ${len(radius)}, ${num(curb?.arcDeg) ?? '?'}°`
   return spec.curbless === false || 'widthMm' in spec ? 'straight curb' : null
 }
 
-function drainText(spec: Spec): string | null {
+function drainText(spec: Spec, len: (mm: number) => string): string | null {
   const drain = (spec.drain ?? {}) as { fromLeftMm?: unknown; fromBackMm?: unknown }
   const left = num(drain.fromLeftMm) ?? num(spec.drainFromLeftMm)
   const back = num(drain.fromBackMm) ?? num(spec.drainFromBackMm)
   if (left === null && back === null) return null
-  return `drain ${left ?? '?'} mm from left, ${back ?? '?'} mm from back`
+  const at = (mm: number | null) => (mm === null ? '?' : len(mm))
+  return `drain ${at(left)} from left, ${at(back)} from back`
 }
 
 const KNOWN = new Set(['widthMm', 'depthMm', 'curb', 'curbless', 'drain', 'drainFromLeftMm', 'drainFromBackMm', 'entry', 'note'])
 
-/** "1220 mm (48″) × 915 mm (36″); straight curb; drain 610 mm from left, 457 mm from back; entry left". */
-export function specText(spec: Spec | null | undefined): string | null {
+/**
+ * "48 in × 36 in (width × depth); straight curb; drain 24 in from left, 18 in from back; entry left" in inches
+ * (to the sixteenth), or the same in millimetres to a tenth. Never shortened: the whole specification.
+ */
+export function specText(spec: Spec | null | undefined, unit: LengthUnit = 'in'): string | null {
   if (!spec || typeof spec !== 'object') return null
+  const len = (mm: number) => formatLength(mm, unit, { style: 'words' })
   const parts: string[] = []
   const width = num(spec.widthMm)
   const depth = num(spec.depthMm)
-  if (width !== null && depth !== null) parts.push(`${mmAndInches(width)} × ${mmAndInches(depth)}`)
-  const curb = curbText(spec)
+  if (width !== null && depth !== null) parts.push(`${formatSize([width, depth], unit, { style: 'words' })} (width × depth)`)
+  const curb = curbText(spec, len)
   if (curb) parts.push(curb)
-  const drain = drainText(spec)
+  const drain = drainText(spec, len)
   if (drain) parts.push(drain)
   if (typeof spec.entry === 'string') parts.push(`entry ${spec.entry}`)
   for (const [key, value] of Object.entries(spec)) {
-    if (!KNOWN.has(key) && (typeof value === 'string' || typeof value === 'number')) parts.push(`${key} ${value}`)
+    if (KNOWN.has(key)) continue
+    // Any other length the takeoff adds (…Mm) is a length too, written like the rest.
+    if (key.endsWith('Mm') && num(value) !== null) parts.push(`${key.slice(0, -2)} ${len(value as number)}`)
+    else if (typeof value === 'string' || typeof value === 'number') parts.push(`${key} ${value}`)
   }
   if (typeof spec.note === 'string' && spec.note) parts.push(`note: ${spec.note}`)
   return parts.length ? parts.join('; ') : null

@@ -15,6 +15,8 @@ const THICKNESS_SLACK_MM = 0.005
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
 const trimmed = (v: unknown) => (typeof v === 'string' ? v.trim() : v)
+/** A choice typed as a list shows it ("Glass block", "End finish", "Standard") reads as its value (glass_block …). */
+const choiceText = (v: unknown) => (typeof v === 'string' ? v.trim().toLowerCase().replace(/[^a-z0-9]+/g, '_').replace(/^_+|_+$/g, '') : v)
 
 /** A decimal as text (money, weights, sizes): digits, optional point, at most `places` decimals. */
 function decimalText(places: number, code?: 'cost_format' | 'price_format' | 'weight_format', maxWhole = 8) {
@@ -64,8 +66,8 @@ const flag = z.preprocess((v) => (v === 'true' || v === 'yes' || v === '1' ? tru
 export const itemFields = z.object({
   sku: skuSchema,
   name: z.preprocess(trimmed, z.string().min(1).max(120)),
-  family: z.enum(ITEM_FAMILIES),
-  stockUnit: z.enum(STOCK_UNITS),
+  family: z.preprocess(choiceText, z.enum(ITEM_FAMILIES)),
+  stockUnit: z.preprocess(choiceText, z.enum(STOCK_UNITS)),
   caseQty: packQty,
   palletQty: packQty,
   sellByPack: flag.optional(),
@@ -80,9 +82,10 @@ export const itemFields = z.object({
   faceWidthMm: optionalDecimal(2),
   faceHeightMm: optionalDecimal(2),
   depthMm: optionalDecimal(2),
-  thicknessClass: z.preprocess(blankToNull, z.enum(THICKNESS_CLASSES).nullable()).optional(),
-  pattern: z.preprocess((v) => blankToNull(trimmed(v)), z.string().max(30).regex(/^[a-z0-9_ -]+$/, issueCode('pattern_chars')).nullable()).optional(),
-  shape: z.preprocess(blankToNull, z.enum(BLOCK_SHAPES).nullable()).optional(),
+  thicknessClass: z.preprocess((v) => blankToNull(choiceText(v)), z.enum(THICKNESS_CLASSES).nullable()).optional(),
+  // Patterns are stored lower-case; "Clear" as the form's list shows it is clear.
+  pattern: z.preprocess((v) => blankToNull(typeof v === 'string' ? v.trim().toLowerCase() : v), z.string().max(30).regex(/^[a-z0-9_ -]+$/, issueCode('pattern_chars')).nullable()).optional(),
+  shape: z.preprocess((v) => blankToNull(choiceText(v)), z.enum(BLOCK_SHAPES).nullable()).optional(),
   cartridgeMl: optionalDecimal(2),
   groutYieldMl: optionalDecimal(2),
   jointMm: optionalDecimal(3),

@@ -104,7 +104,8 @@ export type SuggestionUpdateInput = z.infer<typeof suggestionUpdateSchema>
 
 export const poFromJobSchema = z.object({
   jobId: idSchema,
-  warehouseId: idSchema,
+  /** Without one, the job's warehouse (where its latest pick list is picked). */
+  warehouseId: idSchema.nullish(),
   /** Without a vendor, each item's preferred vendor. */
   vendorId: idSchema.nullish(),
   /** Without ids, every made-to-order line of the job's latest bill of materials still to order. */
@@ -189,6 +190,26 @@ export const receiveSchema = z.object({
 export type ReceiveInput = z.infer<typeof receiveSchema>
 
 // ---- settings ----
+
+/**
+ * Who orders, printed on every purchase order (sheet, PDF, e-mail): the company, where vendors bill and
+ * deliver, and where replies go. The document unit is how lengths (a shower base's size) are written.
+ */
+export const companyProfileSchema = z.object({
+  legalName: z.string().trim().min(1, 'Enter the company name vendors bill').max(160, 'At most 160 characters'),
+  billToAddress: z.string().trim().min(1, 'Enter the address invoices go to').max(400, 'At most 400 characters'),
+  shipToAddress: optionalText(400),
+  phone: optionalText(40),
+  email: z.union([emailSchema, z.literal('')]).nullish().transform((v) => v || null),
+  replyTo: z.union([emailSchema, z.literal('')]).nullish().transform((v) => v || null),
+  taxNumber: optionalText(40),
+  documentUnit: z.enum(['in', 'mm'], { error: 'Inches or millimetres' }),
+})
+export type CompanyProfileInput = z.infer<typeof companyProfileSchema>
+export interface CompanyProfile extends CompanyProfileInput {
+  /** False until an admin fills it in: documents then say the profile is missing rather than print blanks. */
+  complete: boolean
+}
 
 export const purchasingSettingsSchema = z.object({
   /** Warehouse crew see unit costs and totals on purchase orders. */

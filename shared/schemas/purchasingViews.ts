@@ -48,10 +48,14 @@ export interface WarehouseChoice {
 }
 
 export interface PoTimelineEntry {
-  event: 'created' | 'approved' | 'sent' | 'received' | 'closed' | 'cancelled'
+  /** 'delivery' is one receipt (part or all of the order); 'received' is the order complete. */
+  event: 'created' | 'approved' | 'sent' | 'delivery' | 'received' | 'closed' | 'cancelled'
   at: string
   by: string | null
   note?: string | null
+  /** A delivery's good and damaged units. */
+  qty?: number
+  damaged?: number
 }
 
 export interface PoLineView {
@@ -93,6 +97,8 @@ export interface PoSummary {
   orderTotal?: string
   /** Goes up with every change; send it back with an edit or approval. */
   version: number
+  /** The vendor's expected date is after the job's due date: the job would wait for this order. */
+  arrivesAfterDue: boolean
 }
 
 export interface OutboxSummary {
@@ -224,4 +230,6 @@ export interface SpecialOrderJob {
   customerName: string | null
   dueDate: string | null
   linesToOrder: number
+  /** The job's warehouse (of its latest pick list), where its special orders ship by default. */
+  warehouseId: number | null
 }

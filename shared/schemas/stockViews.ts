@@ -313,3 +313,23 @@ export interface LookupAnswer {
 export function isLowStock(available: number, minQty: number | null): boolean {
   return minQty !== null && available < minQty
 }
+
+/** Midnight starting a local day ('YYYY-MM-DD', plus some days), as an instant; the server keeps times in UTC. */
+export function localDayStart(day: string, plusDays = 0): string {
+  const [y, m, d] = day.split('-').map(Number)
+  return new Date(y, m - 1, d + plusDays).toISOString()
+}
+
+/**
+ * Days the movements export covers when no dates are chosen: a whole year of a busy yard is past the
+ * export's limit (a quarter at most), so an export with no dates takes the last 90 days instead of being refused.
+ */
+export const DEFAULT_EXPORT_DAYS = 90
+
+/** The dates an export sends: the chosen local days, else the last DEFAULT_EXPORT_DAYS local days up to today. */
+export function exportDates(dates: readonly [string, string] | null, today: Date): { from: string; to: string; defaulted: boolean } {
+  if (dates) return { from: localDayStart(dates[0]), to: localDayStart(dates[1], 1), defaulted: false }
+  const start = new Date(today.getFullYear(), today.getMonth(), today.getDate() - (DEFAULT_EXPORT_DAYS - 1))
+  const end = new Date(today.getFullYear(), today.getMonth(), today.getDate() + 1)
+  return { from: start.toISOString(), to: end.toISOString(), defaulted: true }
+}

@@ -13,12 +13,15 @@ export function useApiAction() {
   const errorMessage = ref('')
   /** The failed answer's HTTP status (0: the server was not reached); null when the failure was not an answer. */
   const errorStatus = ref<number | null>(null)
+  /** The last failure's code (e.g. po_changed), for screens that answer a particular refusal. */
+  const errorCode = ref('')
 
   async function run<T>(action: () => Promise<T>): Promise<T | undefined> {
     busy.value = true
     fieldErrors.value = {}
     errorMessage.value = ''
     errorStatus.value = null
+    errorCode.value = ''
     try {
       return await action()
     } catch (err) {
@@ -26,6 +29,7 @@ export function useApiAction() {
         fieldErrors.value = err.fields
         errorMessage.value = err.message
         errorStatus.value = err.status
+        errorCode.value = err.code
         if (err.status !== 401) ElMessage.error(err.message)
       } else {
         errorMessage.value = i18n.global.t('common.errorTitle')
@@ -38,23 +42,30 @@ export function useApiAction() {
     }
   }
 
-  return { busy, fieldErrors, errorMessage, errorStatus, run }
+  return { busy, fieldErrors, errorMessage, errorStatus, errorCode, run }
 }
 
-/** Loads page data with loading and error state, for empty/error screens. */
+/**
+ * Loads page data with loading and error state, for empty/error screens. Only the latest load's answer
+ * is kept: when loads overlap (a filter changed, another record chosen), an older answer arriving last
+ * never replaces a newer one.
+ */
 export function useLoader<T>(load: () => Promise<T>) {
   const data = ref<T | null>(null)
   const loading = ref(false)
   const error = ref('')
+  let latest = 0
   async function reload(): Promise<void> {
+    const mine = ++latest
     loading.value = true
     error.value = ''
     try {
-      data.value = (await load()) as never
+      const answer = await load()
+      if (mine === latest) data.value = answer as never
     } catch (err) {
-      error.value = isApiError(err) ? err.message : String(err)
+      if (mine === latest) error.value = isApiError(err) ? err.message : String(err)
     } finally {
-      loading.value = false
+      if (mine === latest) loading.value = false
     }
   }
   return { data, loading, error, reload }

@@ -113,16 +113,57 @@ describe('importing items', () => {
     expect(await itemCount()).toBe(before)
   })
 
-  it('reads back its own export: every row an unchanged update', async () => {
-    const exported = await (await h.as('admin')).get('/api/items/export.xlsx?family=glass_block&size=6x6').buffer(true).parse((r, done) => {
+  it('reads back its own export and, imported, changes nothing: formula-like text stays as typed, with no visible quote', async () => {
+    // source: OWASP "CSV Injection": = + - @ at the start of a cell must stay inert text, written as a string cell
+    const evil = sku('EVIL')
+    // A standard 6x6 unit: at least 3 7/8 in = 98.425 mm thick (IRC R607.3), so the import's own checks pass.
+    await h.ds.query(
+      `INSERT INTO items (sku, name, family, stock_unit, cost, list_price, description, pattern, nominal_size, face_width_mm, face_height_mm,
+                          depth_mm, thickness_class, shape)
+       VALUES (?, '=SUM(1,2) Clear 6x6', 'glass_block', 'each', '6.5000', '11.95', '@cmd -1+1 "quoted"', 'clear', '6x6', 146, 146, 98.43, 'standard', 'square')`,
+      [evil],
+    )
+    const rowsOf = async () => ((await h.ds.query(
+      "SELECT * FROM items WHERE family = 'glass_block' AND nominal_size = '6x6' AND active = 1 ORDER BY sku")) as Record<string, unknown>[])
+      .map(({ updated_at: _u, ...r }) => r)
+    const exported = (await (await h.as('admin')).get('/api/items/export.xlsx?family=glass_block&size=6x6').buffer(true).parse((r, done) => {
       const chunks: Buffer[] = []
       r.on('data', (c: Buffer) => chunks.push(c))
       r.on('end', () => done(null, Buffer.concat(chunks)))
-    })
-    const [count] = await h.ds.query("SELECT COUNT(*) AS n FROM items WHERE family = 'glass_block' AND nominal_size = '6x6' AND active = 1")
-    const preview = await upload('preview', exported.body as Buffer, 'export.xlsx')
+    })).body as Buffer
+    const book = new ExcelJS.Workbook()
+    await book.xlsx.load(arrayBufferOf(exported))
+    const names: unknown[] = []
+    book.worksheets[0].getColumn(2).eachCell((c) => names.push(c.value))
+    expect(names).toContain('=SUM(1,2) Clear 6x6')
+    const before = await rowsOf()
+    const commit = await upload('commit', exported, 'export.xlsx')
+    expect(commit.status, JSON.stringify(commit.body)).toBe(200)
+    expect(commit.body).toMatchObject({ total: before.length, creates: 0, updates: before.length, errorRows: 0 })
+    expect(await rowsOf()).toEqual(before)
+  })
+
+  it('reads blank yes/no cells as not given and list labels as their values, and reports every problem of every row at once', async () => {
+    const headers = ['SKU', 'Name', 'Family', 'Stock unit', 'Case qty', 'Pallet qty', 'Sell by pack', 'Cost', 'List price', 'Pattern', 'Made to order', 'Match lot']
+    const file = await xlsx([
+      // "Accessory" and "Clear" as the form's lists show them; the yes/no cells left blank.
+      [sku('LBL'), 'Block cleaning pads', 'Accessory', 'Each', null, null, null, '3.90', '7.95', 'Clear', null, null],
+      // A missing name and a bad cost (field problems) beside a pallet of 10 for cases of 6 and a
+      // made-to-order item in lots (problems between fields): all four at once.
+      [sku('WAVE'), null, 'accessory', 'each', 6, 10, 'no', 'x', '2.00', null, 'yes', 'yes'],
+      // The same SKU again, with its own bad price: both reported.
+      [sku('WAVE'), 'Again', 'accessory', 'each', null, null, null, '1.00', 'abc', null, null, null],
+    ], headers)
+    const preview = await upload('preview', file, 'items.xlsx')
     expect(preview.status).toBe(200)
-    expect(preview.body).toMatchObject({ total: Number(count.n), creates: 0, updates: Number(count.n), errorRows: 0 })
+    const columnsOf = (row: number) => preview.body.rows.find((r: { row: number }) => r.row === row).errors.map((e: { column: string }) => e.column).sort()
+    expect(columnsOf(2)).toEqual([])
+    expect(columnsOf(3)).toEqual(['Cost', 'Match lot', 'Name', 'Pallet qty'])
+    expect(columnsOf(4)).toEqual(['List price', 'SKU'])
+    const good = await xlsx([[sku('LBL'), 'Block cleaning pads', 'Accessory', 'Each', null, null, null, '3.90', '7.95', 'Clear', null, null]], headers)
+    expect((await upload('commit', good, 'items.xlsx')).status).toBe(200)
+    const [row] = await h.ds.query('SELECT family, stock_unit, pattern, sell_by_pack, made_to_order, match_lot FROM items WHERE sku = ?', [sku('LBL')])
+    expect(row).toEqual({ family: 'accessory', stock_unit: 'each', pattern: 'clear', sell_by_pack: 0, made_to_order: 0, match_lot: 0 })
   })
 
   it('refuses wrong columns, naming what is missing and what is unknown', async () => {

@@ -2,7 +2,7 @@
 // one list at once (exact totals, no over-pick, ledger = balances after completion), two counters
 // racing for the last units (exactly one wins, the other gets 409 and nothing is kept), and one
 // confirmation sent twice at once (recorded once). Bounded loops; the invariant check follows the
-// bank-style totals workload (Jepsen) named in REFERENCES.md.
+// bank-style totals workload of the Jepsen consistency tests (jepsen-io/jepsen, "bank" workload).
 import type { Server } from 'node:http'
 import { randomUUID } from 'node:crypto'
 import supertest from 'supertest'

@@ -5,7 +5,7 @@ import ExcelJS from 'exceljs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
-import { createPurchasingFixture, insertId, type PurchasingFixture } from '../support/purchasingFixtures.js'
+import { createPurchasingFixture, insertId, TEST_COMPANY, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
 let h: ApiHarness
 let f: PurchasingFixture
@@ -63,21 +63,32 @@ function cells(sheet: ExcelJS.Worksheet): Map<string, ExcelJS.CellValue> {
 
 const day = (iso: string) => new Date(`${iso.slice(0, 10)}T00:00:00Z`)
 
+/** The buyer line the sheet prints: the person who drafted the order (test users are made by the harness). */
+async function buyerOf(p: PoDetail): Promise<string> {
+  const [u] = await h.ds.query('SELECT u.display_name, u.email FROM purchase_orders o JOIN users u ON u.id = o.created_by WHERE o.id = ?', [p.id])
+  return [u.display_name, u.email].filter(Boolean).join(', ')
+}
+
 /** What the PO sheet must hold, cell by cell (layout: server/services/purchasing/poSpreadsheet.ts). */
-function expectedPoSheet(p: PoDetail, terms: string | null): Map<string, ExcelJS.CellValue> {
+async function expectedPoSheet(p: PoDetail, terms: string | null): Promise<Map<string, ExcelJS.CellValue>> {
   const m = new Map<string, ExcelJS.CellValue>([
     ['A1', `Purchase order ${p.number}`],
-    ['A3', 'Order date'], ['C3', day(p.createdAt)],
-    ['A4', 'Expected'],
-    ['A5', 'Status'], ['C5', 'draft'],
-    ['A6', 'Currency'], ['C6', 'USD'],
-    ['A7', 'Terms'],
-    ['D3', 'Vendor'], ['G3', 'Ship to'], ['G4', `Yard ${f.warehouse.code}`], ['G5', '12 Kiln Road, Brightwater'],
+    // Who orders (the company profile), never the internal status.
+    ['A2', [TEST_COMPANY.legalName, TEST_COMPANY.phone, TEST_COMPANY.email].join(' · ')],
+    ['D3', 'Vendor'],
+    ['G3', 'Bill to'], ['G4', `${TEST_COMPANY.legalName}\n${TEST_COMPANY.billTo}`],
+    ['G6', 'Ship to'], ['G7', `${TEST_COMPANY.legalName}, Yard ${f.warehouse.code}\n12 Kiln Road, Brightwater`],
   ])
-  if (p.expectedDate) m.set('C4', day(p.expectedDate))
-  if (terms) m.set('C7', terms)
+  const facts: [string, ExcelJS.CellValue][] = [
+    ['Order date', day(p.createdAt)], ['Wanted by', p.expectedDate ? day(p.expectedDate) : null], ['Currency', 'USD'], ['Terms', terms],
+    ['Buyer', await buyerOf(p)], ['Reply to', TEST_COMPANY.replyTo],
+  ]
+  facts.filter(([, v]) => v !== null).forEach(([label, v], i) => {
+    m.set(`A${3 + i}`, label)
+    m.set(`C${3 + i}`, v)
+  })
   ;['Line', 'Our SKU', 'Vendor SKU', 'Description', 'Packs', 'Pack size', 'Quantity', 'Unit', 'Unit cost', 'Line total'].forEach((t, i) =>
-    m.set(`${String.fromCharCode(65 + i)}10`, t))
+    m.set(`${String.fromCharCode(65 + i)}12`, t))
   return m
 }
 
@@ -86,7 +97,7 @@ describe('one PO as a printable sheet', () => {
     const book = await download(`/api/purchase-orders/${po.id}/export`)
     expect(book.worksheets.map((s) => s.name)).toEqual([po.number])
     const sheet = book.worksheets[0]
-    const want = expectedPoSheet(po, '=1+1')
+    const want = await expectedPoSheet(po, '=1+1')
     want.set('D4', EVIL_NAME)
     want.set('D5', '@Mallory')
     want.set('D6', 'evil@vendor.example')
@@ -97,35 +108,37 @@ describe('one PO as a printable sheet', () => {
       [1, f.block.sku, '-EV8', `Item ${f.block.sku}`, 5, 24, 120, 'each', 2.125, 255],
       [2, f.sealant.sku, null, '-Sealant, clear', 3, 12, 36, 'tube', 6.3333, 228],
     ]
-    rows.forEach((r, i) => r.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${11 + i}`, v) }))
-    want.set('I14', 'Total')
-    want.set('J14', 483)
-    want.set('A16', 'Notes')
-    want.set('C16', EVIL_NOTE)
+    rows.forEach((r, i) => r.forEach((v, c) => { if (v !== null) want.set(`${String.fromCharCode(65 + c)}${13 + i}`, v) }))
+    want.set('I16', 'Total')
+    want.set('J16', 483)
+    want.set('A18', 'Notes')
+    want.set('C18', EVIL_NOTE)
     expect(Object.fromEntries(cells(sheet))).toEqual(Object.fromEntries(want))
 
     // numbers are numbers with number formats, not text
-    for (const ref of ['E11', 'F11', 'G11', 'I11', 'J11', 'J14']) expect(typeof sheet.getCell(ref).value, ref).toBe('number')
-    expect(sheet.getCell('I11').numFmt).toBe('#,##0.0000')
-    expect(sheet.getCell('J11').numFmt).toBe('#,##0.00')
-    expect(sheet.getCell('G11').numFmt).toBe('#,##0')
+    for (const ref of ['E13', 'F13', 'G13', 'I13', 'J13', 'J16']) expect(typeof sheet.getCell(ref).value, ref).toBe('number')
+    expect(sheet.getCell('I13').numFmt).toBe('#,##0.0000')
+    expect(sheet.getCell('J13').numFmt).toBe('#,##0.00')
+    expect(sheet.getCell('G13').numFmt).toBe('#,##0')
     expect(sheet.getCell('C3').numFmt).toBe('yyyy-mm-dd')
     // text that starts like a formula is a string cell, never a formula, and never carries a visible quote
     sheet.eachRow((row) => row.eachCell((cell) => {
       expect(cell.type, cell.address).not.toBe(ExcelJS.ValueType.Formula)
       if (typeof cell.value === 'string') expect(cell.value.startsWith("'"), `${cell.address}: ${cell.value}`).toBe(false)
     }))
-    for (const ref of ['D4', 'D5', 'D7', 'C7', 'C16', 'C11', 'D12']) expect(sheet.getCell(ref).type, ref).toBe(ExcelJS.ValueType.String)
+    // the vendor's phone '-555 0199' is text as typed: no visible apostrophe, no number, no formula
+    expect(sheet.getCell('D7').value).toBe('-555 0199')
+    for (const ref of ['D4', 'D5', 'D7', 'C6', 'C18', 'C13', 'D14']) expect(sheet.getCell(ref).type, ref).toBe(ExcelJS.ValueType.String)
   })
 
   it('is set up for printing: frozen below the table header, columns as wide as their text, one page wide', async () => {
     const sheet = (await download(`/api/purchase-orders/${plain.id}/export`)).worksheets[0]
-    expect(sheet.views[0]).toMatchObject({ state: 'frozen', ySplit: 10 })
+    expect(sheet.views[0]).toMatchObject({ state: 'frozen', ySplit: 12 })
     // every header and value fits its column (labels and values in the header block span merged cells)
     for (let c = 1; c <= 10; c++) {
-      const header = String(sheet.getCell(10, c).value)
+      const header = String(sheet.getCell(12, c).value)
       expect(sheet.getColumn(c).width!, header).toBeGreaterThanOrEqual(header.length)
-      expect(sheet.getColumn(c).width!, header).toBeGreaterThanOrEqual(String(sheet.getCell(11, c).value ?? '').length)
+      expect(sheet.getColumn(c).width!, header).toBeGreaterThanOrEqual(String(sheet.getCell(13, c).value ?? '').length)
     }
     const merges = (sheet.model as unknown as { merges: string[] }).merges
     const span = (ref: string) => {
@@ -135,19 +148,19 @@ describe('one PO as a printable sheet', () => {
       for (let c = from; c <= to; c++) width += sheet.getColumn(c).width!
       return width
     }
-    for (const ref of ['A3', 'A4', 'A5', 'A6', 'A7', 'D3', 'D4', 'D6', 'D8', 'G4', 'G5']) {
+    for (const ref of ['A3', 'A4', 'A5', 'A6', 'A7', 'A8', 'D3', 'D4', 'D6', 'D8', 'G3', 'G6']) {
       expect(span(ref), `${ref} ${sheet.getCell(ref).value}`).toBeGreaterThanOrEqual(String(sheet.getCell(ref).value).length)
     }
-    expect(sheet.pageSetup).toMatchObject({ orientation: 'portrait', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '10:10' })
+    expect(sheet.pageSetup).toMatchObject({ orientation: 'portrait', fitToPage: true, fitToWidth: 1, fitToHeight: 0, printTitlesRow: '12:12' })
     expect(sheet.headerFooter.oddHeader).toContain(`Purchase order ${plain.number}`)
     expect(sheet.headerFooter.oddFooter).toContain('Page &P of &N')
-    const want = expectedPoSheet(plain, 'Net 30')
+    const want = await expectedPoSheet(plain, 'Net 30')
     ;['Vendor VA' + f.tag, 'Mara Quill', `orders-va${f.tag.toLowerCase()}@vendor.example`].forEach((v, i) => want.set(`D${4 + i}`, v))
     want.set('D8', '3 Annealing Way, Corvale')
     // 2 packs × 12 = 24 tubes × 6.2500 = 150.00
-    ;[1, f.sealant.sku, `LK-${f.tag}-S`, `Item ${f.sealant.sku}`, 2, 12, 24, 'tube', 6.25, 150].forEach((v, c) => want.set(`${String.fromCharCode(65 + c)}11`, v))
-    want.set('I13', 'Total')
-    want.set('J13', 150)
+    ;[1, f.sealant.sku, `LK-${f.tag}-S`, `Item ${f.sealant.sku}`, 2, 12, 24, 'tube', 6.25, 150].forEach((v, c) => want.set(`${String.fromCharCode(65 + c)}13`, v))
+    want.set('I15', 'Total')
+    want.set('J15', 150)
     expect(Object.fromEntries(cells(sheet))).toEqual(Object.fromEntries(want))
   })
 })

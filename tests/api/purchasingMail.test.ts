@@ -8,7 +8,7 @@ import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
 import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { download } from '../support/downloads.js'
-import { count, createPurchasingFixture, vendor, vendorItem, type PurchasingFixture } from '../support/purchasingFixtures.js'
+import { count, createPurchasingFixture, TEST_COMPANY, vendor, vendorItem, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
 let h: ApiHarness
 let f: PurchasingFixture
@@ -48,11 +48,13 @@ describe('e-mail to the vendor', () => {
     expect(captured.to.sort()).toEqual([`buyer-desk-${f.tag.toLowerCase()}@vendor.example`, 'yard-office@lumenyard.example'].sort())
 
     const mail = await simpleParser(captured.raw)
-    expect(mail.subject).toBe(`Purchase order ${po.number}`)
+    expect(mail.subject).toBe(`Purchase order ${po.number} from ${TEST_COMPANY.legalName}`)
     expect(mail.text).toContain('Please deliver before noon.')
     expect(mail.text).toContain(`Order: ${po.number}`)
-    expect(mail.attachments).toHaveLength(1)
-    const [att] = mail.attachments
+    // The printable order and the sheet, side by side.
+    expect(mail.attachments.map((a) => a.filename)).toEqual([`${po.number}.pdf`, `${po.number}.xlsx`])
+    expect(mail.attachments[0].contentType).toBe('application/pdf')
+    const att = mail.attachments[1]
     expect(att.filename).toBe(`${po.number}.xlsx`)
     expect(att.contentType).toBe('application/vnd.openxmlformats-officedocument.spreadsheetml.sheet')
     const book = new ExcelJS.Workbook()
@@ -63,9 +65,9 @@ describe('e-mail to the vendor', () => {
     // source: OWASP "CSV Injection": a leading = never becomes a formula: it is a string cell, as typed
     expect(sheet.getCell('D4').value).toBe(EVIL)
     expect(sheet.getCell('D4').type).toBe(ExcelJS.ValueType.String)
-    expect(sheet.getCell('C11').value).toBe('@EVL-S')
-    expect(sheet.getCell('G11').value).toBe(20)
-    expect(sheet.getCell('J11').value).toBe(110) // 20 × 5.50
+    expect(sheet.getCell('C13').value).toBe('@EVL-S')
+    expect(sheet.getCell('G13').value).toBe(20)
+    expect(sheet.getCell('J13').value).toBe(110) // 20 × 5.50
 
     const outbox = await (await h.as('admin')).get('/api/purchasing/outbox')
     const entry = outbox.body.find((m: { poId: number }) => m.poId === po.id)
@@ -122,7 +124,7 @@ describe('e-mail to the vendor', () => {
     expect(sent.body.po.status).toBe('sent')
     expect(smtp.messages.length).toBe(before + 1)
     const mail = await simpleParser(smtp.messages[smtp.messages.length - 1].raw)
-    expect(mail.subject).toBe(`Purchase order ${po.number}`)
+    expect(mail.subject).toBe(`Purchase order ${po.number} from ${TEST_COMPANY.legalName}`)
     expect(mail.cc).toBeTruthy()
     expect(mail.attachments.map((a) => a.filename)).toContain(`${po.number}.xlsx`)
     // a second click: refused, nothing sent twice; a message that went out is not "sent again"

@@ -223,9 +223,12 @@ describe('special orders from a job', () => {
     const line = po.lines[0]
     expect(line).toMatchObject({ itemId: f.base.id, bomLineId, qtyOrdered: 1, unitCost: '395.0000', madeToOrder: true })
     expect(line.spec).toEqual(BASE_SPEC)
-    // 1219 mm = 47 63/64 in → 48″ at 1/16; 914 mm = 35.98 in → 36″ (NIST SP 811: 1 in = 25.4 mm)
-    expect(line.specText).toContain('1219 mm (48″) × 914 mm (36″)')
-    expect(line.description).toContain('drain 610 mm from left, 457 mm from back')
+    // 1219 mm = 47 63/64 in → 48 in at 1/16; 914 mm = 35.98 in → 36 in (NIST SP 811: 1 in = 25.4 mm)
+    expect(line.specText).toContain('48 in × 36 in (width × depth)')
+    expect(line.specText).toContain('drain 24 in from left, 18 in from back')
+    // The description names what is built and leaves every size to the specification (no catalog size to contradict it).
+    expect(line.description).toBe('Shower base for tiling, made to order, to the specification on this line')
+    expect(po.arrivesAfterDue).toBe(true) // due 2020-01-15, expected weeks from today
     const [bl] = await h.ds.query('SELECT ordered_qty FROM bom_lines WHERE id = ?', [bomLineId])
     expect(bl.ordered_qty).toBe(1)
     expect((await buyer.post('/api/purchase-orders/from-job').set(CSRF).send({ jobId, warehouseId: f.warehouse.id })).status).toBe(409)

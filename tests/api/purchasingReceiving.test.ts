@@ -67,6 +67,9 @@ describe('receiving a PO', () => {
     expect(lot.vendor_id).toBe(f.vendorA)
     const moves = await h.ds.query(`SELECT doc_type, doc_id, doc_line_id, qty, unit_cost FROM stock_moves WHERE doc_type = 'purchase_order' AND doc_id = ?`, [po.id])
     expect(moves).toEqual([{ doc_type: 'purchase_order', doc_id: po.id, doc_line_id: block.id, qty: 40, unit_cost: '2.5000' }])
+    // The partial delivery is on the order's history at once, with who took it and what came in.
+    const partly = (await (await h.as('buyer')).get(`/api/purchase-orders/${po.id}`)).body as PoDetail
+    expect(partly.timeline.filter((t) => t.event === 'delivery')).toEqual([expect.objectContaining({ by: 'Test t-warehouse', qty: 40, damaged: 0 })])
 
     // the rest, split over two lots and bins, plus all the sealant: complete → received → closed
     const rest = await post(po.id, { lines: [
@@ -77,7 +80,7 @@ describe('receiving a PO', () => {
     expect(rest.status, JSON.stringify(rest.body)).toBe(201)
     expect(rest.body.status).toBe('closed')
     const detail = (await (await h.as('buyer')).get(`/api/purchase-orders/${po.id}`)).body as PoDetail
-    expect(detail.timeline.map((t) => t.event)).toEqual(['created', 'approved', 'sent', 'received', 'closed'])
+    expect(detail.timeline.map((t) => t.event)).toEqual(['created', 'approved', 'sent', 'delivery', 'delivery', 'received', 'closed'])
     expect(detail.timeline.find((t) => t.event === 'received')!.by).toBe('Test t-warehouse')
     expect(detail.lines.map((l) => l.qtyReceived)).toEqual([72, 12])
     const receipts = await (await h.as('buyer')).get(`/api/purchase-orders/${po.id}/receipts`)

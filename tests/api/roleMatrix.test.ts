@@ -80,7 +80,7 @@ describe('role matrix', () => {
 const COST_ROLES: readonly Role[] = ['admin', 'buyer']
 const COST_KEYS = [
   'cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder',
-  'valueOff', 'valueNet', 'varianceValue',
+  'valueOff', 'valueNet', 'varianceValue', 'stockValue',
 ]
 const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total']
 

@@ -52,6 +52,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/warehouses/:id/bins': { access: ['admin'] },
   'POST /api/warehouses/:id/bins/range': { access: ['admin'] },
   'PATCH /api/warehouses/:id/bins/:binId': { access: ['admin'] },
+  'DELETE /api/warehouses/:id/bins/:binId': { access: ['admin'] },
   // Stock operations: warehouse crew and admin move stock.
   'POST /api/stock/adjustments': { access: ['admin', 'warehouse'] },
   'POST /api/stock/bin-moves': { access: ['admin', 'warehouse'] },
@@ -152,6 +153,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/purchase-orders/from-job': { access: ['admin', 'buyer'] },
   'GET /api/purchase-orders/:id': { access: ['admin', 'buyer', 'warehouse'], costs: '/api/purchase-orders/{po}' },
   'GET /api/purchase-orders/:id/export': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/{po}/export' },
+  'GET /api/purchase-orders/:id/pdf': { access: ['admin', 'buyer'] },
   'PATCH /api/purchase-orders/:id': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/:id/lines': { access: ['admin', 'buyer'] },
   'DELETE /api/purchase-orders/:id/lines/:lineId': { access: ['admin', 'buyer'] },
@@ -167,6 +169,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/purchasing/warehouses': { access: ['admin', 'buyer'] },
   'GET /api/purchasing/settings': { access: ['admin'] },
   'PATCH /api/purchasing/settings': { access: ['admin'] },
+  'GET /api/purchasing/company': { access: ['admin', 'buyer'] },
+  'PUT /api/purchasing/company': { access: ['admin'] },
   'GET /api/purchasing/outbox': { access: ['admin'] },
   'GET /api/purchasing/outbox/:id/attachments/:attachmentId': { access: ['admin'] },
   'POST /api/purchasing/outbox/:id/send-again': { access: ['admin'] },
@@ -190,4 +194,6 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/counts/:id/bins/:binId/finish': { access: ['admin', 'warehouse'] },
   'POST /api/counts/:id/review': { access: ['admin', 'warehouse', 'buyer'] },
   'POST /api/counts/:id/cancel': { access: ['admin'] },
+  // Reports: the owner (admin) and the buyer; values under the cost rule.
+  'GET /api/reports/stock-valuation': { access: ['admin', 'buyer'], costs: '/api/reports/stock-valuation?warehouseId={warehouse}' },
 }

@@ -1,7 +1,7 @@
 // The stock service under parallel load, over real HTTP: many warehouse clients issuing, moving and
 // transferring against the same few balances at once, then the ledger checked against the balances.
 // The invariants are those of a bank: nothing goes negative, the ledger explains every balance, stock
-// is conserved (source: the bank workload of Jepsen's consistency tests, as listed in REFERENCES).
+// is conserved (source: the "bank" workload of the Jepsen consistency tests, jepsen-io/jepsen).
 // Idempotency-Key behaviour follows the IETF draft "The Idempotency-Key HTTP Header Field".
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'

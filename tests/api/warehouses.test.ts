@@ -109,6 +109,42 @@ describe('bins', () => {
     expect((await admin.patch(`/api/warehouses/${transit.warehouse_id}/bins/${transit.id}`).set(CSRF).send({ active: false })).status).toBe(409)
   })
 
+  it('deletes a bin made by mistake, but keeps one with history (take it out of use instead)', async () => {
+    const wh = await newWarehouse(`D${suffix}`)
+    const admin = await h.as('admin')
+    const mistake = (await admin.post(`/api/warehouses/${wh.id}/bins`).set(CSRF).send({ code: 'A-01-9' })).body as BinRow
+    const used = (await admin.post(`/api/warehouses/${wh.id}/bins`).set(CSRF).send({ code: 'A-01-1' })).body as BinRow
+    // Another warehouse's path can't reach it; other roles can't delete.
+    const other = await newWarehouse(`E${suffix}`)
+    expect((await admin.delete(`/api/warehouses/${other.id}/bins/${mistake.id}`).set(CSRF)).status).toBe(404)
+    expect((await (await h.as('warehouse')).delete(`/api/warehouses/${wh.id}/bins/${mistake.id}`).set(CSRF)).status).toBe(403)
+    const gone = await admin.delete(`/api/warehouses/${wh.id}/bins/${mistake.id}`).set(CSRF)
+    expect(gone.status).toBe(200)
+    expect(await binCount(wh.id)).toBe(1)
+    // A bin that ever held stock has movements: it stays on record, refused with bin_used, and nothing changes.
+    const [item] = await h.ds.query("SELECT id FROM items WHERE active = 1 AND match_lot = 0 AND made_to_order = 0 LIMIT 1")
+    const key = `del-bin-${suffix}`
+    const received = await (await h.as('warehouse')).post('/api/stock/adjustments').set(CSRF).set('Idempotency-Key', key)
+      .send({ itemId: item.id, binId: used.id, delta: 1, reason: 'found' })
+    expect(received.status, JSON.stringify(received.body)).toBeLessThan(300)
+    const keep = await admin.delete(`/api/warehouses/${wh.id}/bins/${used.id}`).set(CSRF)
+    expect(keep.status).toBe(409)
+    expect(keep.body.error.code).toBe('bin_used')
+    expect(await binCount(wh.id)).toBe(1)
+  })
+
+  it('refuses found stock of an item matched by lot without its lot, and writes nothing', async () => {
+    const wh = await newWarehouse(`L${suffix}`)
+    const bin = (await (await h.as('admin')).post(`/api/warehouses/${wh.id}/bins`).set(CSRF).send({ code: 'A-01-1' })).body as BinRow
+    const [item] = await h.ds.query('SELECT id FROM items WHERE active = 1 AND match_lot = 1 LIMIT 1')
+    const res = await (await h.as('warehouse')).post('/api/stock/adjustments').set(CSRF).set('Idempotency-Key', `found-${suffix}`)
+      .send({ itemId: item.id, binId: bin.id, delta: 5, reason: 'found' })
+    expect(res.status).toBe(400)
+    expect(res.body.error.code).toBe('lot_required')
+    expect(res.body.error.fields).toHaveProperty('lotId')
+    expect(Number((await h.ds.query('SELECT COUNT(*) AS n FROM stock_moves WHERE bin_id = ?', [bin.id]))[0].n)).toBe(0)
+  })
+
   it('refuses a new bin pattern that existing bins do not fit', async () => {
     const admin = await h.as('admin')
     const hry = ((await admin.get('/api/warehouses')).body as WarehouseRow[]).find((w) => w.code === 'HRY')!

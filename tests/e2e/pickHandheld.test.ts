@@ -68,7 +68,7 @@ describe('handheld pick screen', () => {
     await scan(page, '10')
     await poll(() => page.locator('[data-test="line-bin"]').textContent()).toBe('A-03-1')
 
-    // source: GS1 Barcode Syntax Dictionary, (02) contained GTIN with (37) count and (10) lot (REFERENCES.md, read)
+    // source: GS1 Barcode Syntax Dictionary, (02) contained GTIN with (37) count and (10) lot
     await scan(page, 'B:A-03-1')
     await scan(page, `(02)${s.block.gtin}(37)6(10)R1${s.tag}`)
     await poll(() => page.locator('[data-test="qty-value"]').inputValue()).toBe('6')

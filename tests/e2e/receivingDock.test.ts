@@ -75,7 +75,7 @@ describe('receiving at the dock', () => {
         await scan.fill(code)
         await scan.press('Enter')
       }
-      await expect.poll(() => page.locator('[data-test="receipt-rows"] tbody tr').count()).toBe(2)
+      await expect.poll(() => page.locator('[data-test="receipt-row"]').count()).toBe(2)
       await post.click()
       await expect.poll(() => page.locator('[data-test="receive-status"]').getAttribute('data-status'), { timeout: 15_000 }).toBe('partly_received')
       await page.locator('[data-test="lot-labels"] [data-barcode]').nth(1).waitFor()
@@ -94,7 +94,7 @@ describe('receiving at the dock', () => {
       // and the page shows the order as it is now.
       await scan.fill(`(01)${gtin14}(10)${blockLot}`)
       await scan.press('Enter')
-      await expect.poll(() => page.locator('[data-test="receipt-rows"] tbody tr').count()).toBe(1)
+      await expect.poll(() => page.locator('[data-test="receipt-row"]').count()).toBe(1)
       expect((await buyer.post(`/api/purchase-orders/${sentId}/close`).set(CSRF).send({ reason: 'The rest will not come.' })).status).toBe(200)
       await post.click()
       await expect.poll(() => notice.textContent(), { timeout: 15_000 }).toContain('Esta orden está cerrada')

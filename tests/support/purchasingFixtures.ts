@@ -62,8 +62,22 @@ export async function vendorItem(ds: DataSource, vendorId: number, itemId: numbe
   ])
 }
 
+/** The company profile every PO document prints; a test may overwrite it, a fixture only fills it when empty. */
+export const TEST_COMPANY = {
+  legalName: 'Brightcourse Glass Supply', billTo: 'Accounts payable\n2140 Harbor Road\nPort Alder', phone: '555-0142',
+  email: 'office@brightcourse.example', replyTo: 'buying@brightcourse.example',
+}
+
+export async function companyProfileFixture(ds: DataSource): Promise<void> {
+  await ds.query(
+    `INSERT IGNORE INTO company_profile (id, legal_name, bill_to_address, phone, email, reply_to, document_unit) VALUES (1, ?, ?, ?, ?, ?, 'in')`,
+    [TEST_COMPANY.legalName, TEST_COMPANY.billTo, TEST_COMPANY.phone, TEST_COMPANY.email, TEST_COMPANY.replyTo],
+  )
+}
+
 export async function createPurchasingFixture(ds: DataSource): Promise<PurchasingFixture> {
   const tag = tagOf()
+  await companyProfileFixture(ds)
   const w = await warehouse(ds, `P${tag}`, ['DOCK', 'A-01-1', 'A-01-2'])
   const o = await warehouse(ds, `Q${tag}`, ['B-01-1'])
   const block = await item(ds, `PB-${tag}`, { family: 'glass_block', unit: 'each', gtin: testGtin(), matchLot: true, cost: '2.0000' })

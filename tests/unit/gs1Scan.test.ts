@@ -13,8 +13,8 @@ const GTIN13 = '9506000134352' // the same GTIN as GTIN-13 (from memory)
 const SSCC = '106141411234567897' // source: GS1 logistics label example (from memory); verified by hand in gs1CheckDigit.test.ts
 
 describe('parseScan: symbology identifiers and separators', () => {
-  // source: ISO/IEC 15424 symbology identifiers ]C1 GS1-128, ]d2 GS1 DataMatrix, ]Q3 GS1 QR (REFERENCES.md, read);
-  // FNC1 transmitted as ASCII 29 (GS1 Gen Specs §5.10, REFERENCES.md, read)
+  // source: ISO/IEC 15424 symbology identifiers ]C1 GS1-128, ]d2 GS1 DataMatrix, ]Q3 GS1 QR;
+  // FNC1 transmitted as ASCII 29 (GS1 Gen Specs §5.10)
   const data = `01${GTIN}10R2405${GS}21SN-9`
   const fields = { '01': GTIN, '10': 'R2405', '21': 'SN-9' }
 

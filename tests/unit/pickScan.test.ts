@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { checkBinScan, checkConfirmationScans, checkItemScan, checkLotScan, type PickTarget } from '../../shared/picking/pickScan.js'
 
 const GTIN = '09506000134352' // source: GS1 guidance documents' example GTIN (from memory); check digit verified in gs1CheckDigit.test.ts
-const GS = '\u001d' // source: GS1 General Specifications, FNC1 sent by scanners as ASCII 29 (REFERENCES.md, read)
+const GS = '\u001d' // source: GS1 General Specifications, FNC1 sent by scanners as ASCII 29
 const block: PickTarget = { binCode: 'A-03-2', sku: 'GB8-CLR', gtin: GTIN, lotCode: 'R2405' }
 const spacer: PickTarget = { binCode: 'B-01-1', sku: 'SP-14', gtin: null, lotCode: null }
 
@@ -23,7 +23,7 @@ describe('bin scans', () => {
 
 describe('item scans', () => {
   it('reads GS1 (02) + (37) count + (10) lot from typed HRI and from raw data with FNC1', () => {
-    // source: GS1 Barcode Syntax Dictionary: (37) count goes with (02), (10) lot is variable length (REFERENCES.md, read)
+    // source: GS1 Barcode Syntax Dictionary: (37) count goes with (02), (10) lot is variable length
     expect(checkItemScan(`(02)${GTIN}(37)8(10)R2405`, block)).toEqual({ ok: true, lotConfirmed: true, count: 8 })
     expect(checkItemScan(`]C102${GTIN}378${GS}10R2405`, block)).toEqual({ ok: true, lotConfirmed: true, count: 8 })
   })

@@ -71,14 +71,31 @@ describe('over-receipt', () => {
 })
 
 describe('shower base spec text', () => {
-  it('reads the nested takeoff spec and the flat explanation inputs alike', () => {
-    // 1219 mm / 25.4 = 47.99 in → 48″; 914 mm → 35.98 in → 36″ (NIST SP 811: 1 in = 25.4 mm exactly)
+  it('reads the nested takeoff spec and the flat explanation inputs alike, in inches to the sixteenth', () => {
+    // NIST SP 811 (1 in = 25.4 mm exactly): 1219 mm = 47.99 in → 48; 914 mm = 35.98 in → 36; 600 mm = 23.622 in
+    // → 378/16 = 23 5/8; 610 mm = 24.016 in → 24; 457 mm = 17.992 in → 18 (hand computed, nearest 1/16)
     const nested = { widthMm: 1219, depthMm: 914, curb: { radiusMm: 600, arcDeg: 90 }, drain: { fromLeftMm: 610, fromBackMm: 457 }, entry: 'left', curbless: false }
-    expect(specText(nested)).toBe('1219 mm (48″) × 914 mm (36″); curved curb R 600 mm, 90°; drain 610 mm from left, 457 mm from back; entry left')
+    expect(specText(nested)).toBe('48 in × 36 in (width × depth); curved curb, radius 23 5/8 in, 90°; drain 24 in from left, 18 in from back; entry left')
+    // 1524 mm = 60 in; 813 mm = 32.008 in → 32; 762 mm = 30 in; 406 mm = 15.984 in → 16 (hand computed)
     const flat = { widthMm: 1524, depthMm: 813, curb: 'straight', drainFromLeftMm: 762, drainFromBackMm: 406, entry: 'center' }
-    expect(specText(flat)).toBe('1524 mm (60″) × 813 mm (32″); curb straight; drain 762 mm from left, 406 mm from back; entry center')
+    expect(specText(flat)).toBe('60 in × 32 in (width × depth); curb straight; drain 30 in from left, 16 in from back; entry center')
     expect(specText({ widthMm: 900, depthMm: 900, curbless: true, drain: { fromLeftMm: 450, fromBackMm: 450 }, entry: 'right' })).toContain('curbless')
     expect(specText(null)).toBeNull()
+  })
+
+  it('writes a size typed in inches without float noise, in either unit, and never shortens it', () => {
+    // 42 in and 48 in typed at the counter are stored as 42 × 25.4 and 48 × 25.4 mm; 48 × 25.4 is
+    // 1219.1999999999998 in binary floating point (IEEE 754 double), which must never reach a vendor.
+    const spec = { widthMm: 42 * 25.4, depthMm: 48 * 25.4, curb: { radiusMm: 48 * 25.4, arcDeg: 90 }, drain: { fromLeftMm: 21 * 25.4, fromBackMm: 24 * 25.4 }, entry: 'right', note: 'x'.repeat(300) }
+    const inches = specText(spec, 'in')!
+    expect(inches.startsWith('42 in × 48 in (width × depth); curved curb, radius 48 in, 90°; drain 21 in from left, 24 in from back; entry right')).toBe(true)
+    // 1066.8 mm and 1219.2 mm: 42 × 25.4 and 48 × 25.4 to a tenth (hand computed)
+    const mm = specText(spec, 'mm')!
+    expect(mm.startsWith('1066.8 × 1219.2 mm (width × depth); curved curb, radius 1219.2 mm, 90°; drain 533.4 mm from left, 609.6 mm from back')).toBe(true)
+    for (const text of [inches, mm]) {
+      expect(text).not.toMatch(/\d\.\d{3,}/)
+      expect(text.endsWith(`note: ${'x'.repeat(300)}`)).toBe(true)
+    }
   })
 })
 
@@ -92,7 +109,7 @@ describe('receiving scans', () => {
   ]
 
   it('reads (01) GTIN with (10) lot as one unit of that lot, on the first line still open', () => {
-    // GS1-128 element string with FNC1 as GS (GS1 General Specifications §5.10, REFERENCES.md)
+    // GS1-128 element string with FNC1 as GS (GS1 General Specifications §5.10)
     expect(readReceivingScan(`]C101${GTIN}10R2611${GS}`, lines)).toEqual({ kind: 'line', poLineId: 2, qty: 1, lotCode: 'R2611', sscc: null, warnings: [] })
     expect(readReceivingScan(`(01)${GTIN}(10)R2611`, lines)).toMatchObject({ kind: 'line', poLineId: 2, lotCode: 'R2611' })
   })
@@ -106,7 +123,7 @@ describe('receiving scans', () => {
   })
 
   it('passes on the GS1 pairing warning for (37) with (01)', () => {
-    // source: GS1 Barcode Syntax Dictionary: (37) goes with (02), not (01) (REFERENCES.md, read)
+    // source: GS1 Barcode Syntax Dictionary: (37) goes with (02), not (01)
     const scan = readReceivingScan(`(01)${GTIN}(37)6`, lines)
     expect(scan).toMatchObject({ kind: 'line', qty: 6 })
     expect(scan.kind === 'line' && scan.warnings.length).toBeGreaterThan(0)

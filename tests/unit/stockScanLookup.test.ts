@@ -17,7 +17,7 @@ const lookup = (raw: string) => scanLookup(classifyScan(raw))
 describe('scanLookup', () => {
   it('reads GS1-128 GTIN + lot, with FNC1 (ASCII 29) after the variable-length lot', () => {
     // source: GS1 General Specifications — AI (01) N14 predefined length, AI (10) X..20 variable, ended by FNC1
-    // unless last; ]C1 identifies GS1-128 (ISO/IEC 15424). All in REFERENCES.md (read).
+    // unless last; ]C1 identifies GS1-128 (ISO/IEC 15424). (both from the published standards).
     expect(lookup(`]C101${GTIN}10R2405`)).toEqual({ ok: true, query: { kind: 'gtin', code: GTIN, lotCode: 'R2405' } })
     expect(lookup(`]C110R2405${GS}01${GTIN}`)).toEqual({ ok: true, query: { kind: 'gtin', code: GTIN, lotCode: 'R2405' } })
   })

@@ -89,7 +89,8 @@ export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], sp
       if (!column) return
       const typed = typedCell(column, record.cells[i] ?? null)
       if ('issue' in typed) issues.push({ row: record.row, column: column.key, problem: typed.issue })
-      else values[column.key] = typed.value
+      // A blank yes/no cell says nothing: the record keeps its value (a new one takes the default).
+      else if (!(column.kind === 'boolean' && typed.value === null)) values[column.key] = typed.value
     })
     rows.push({ row: record.row, values })
   }

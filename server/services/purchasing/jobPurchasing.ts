@@ -9,7 +9,7 @@ import { parseSpec, specText } from '../../../shared/purchasing/specText.js'
 import { BomLine } from '../../entities/Bom.js'
 import { Job } from '../../entities/Customer.js'
 import { Vendor } from '../../entities/Vendor.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { isoDay } from './sqlValues.js'
 import { addDays, addToOpenDraft, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
@@ -28,9 +28,21 @@ async function openSpecialLines(db: Db, jobId: number): Promise<BomLine[]> {
   )
 }
 
-function describeSpecial(name: string, specJson: string | null): string {
-  const text = specText(parseSpec(specJson))
-  return (text ? `${name}: ${text}` : name).slice(0, 200)
+/**
+ * A made-to-order line's description names what is built, never a catalog size: the catalog item a takeoff
+ * maps to ("… 36 × 36 in …") is a placeholder, and the size the vendor builds is the line's specification.
+ */
+const MADE_TO_ORDER_NAMES: Record<string, string> = { shower_base: 'Shower base for tiling, made to order' }
+function describeSpecial(item: { name: string; family: string }, specJson: string | null): string {
+  const name = MADE_TO_ORDER_NAMES[item.family] ?? item.name
+  return specJson ? `${name}, to the specification on this line` : name
+}
+
+/** The warehouse a job is served from: the one its latest pick list is picked in, if any. */
+async function jobWarehouse(db: Db, jobId: number): Promise<number | null> {
+  const [row]: { warehouse_id: number }[] = await db.query(
+    'SELECT warehouse_id FROM pick_lists WHERE job_id = ? ORDER BY id DESC LIMIT 1', [jobId])
+  return row?.warehouse_id ?? null
 }
 
 async function chosenLines(em: EntityManager, jobId: number, bomLineIds: number[] | undefined): Promise<BomLine[]> {
@@ -51,6 +63,11 @@ async function chosenLines(em: EntityManager, jobId: number, bomLineIds: number[
 export async function createFromJob(em: EntityManager, actor: AuditActor, input: PoFromJobInput): Promise<number[]> {
   const job = await em.findOneBy(Job, { id: input.jobId })
   if (!job) throw AppError.badRequest('Choose a job.', { jobId: 'Not a job' })
+  // Ship to the job's own warehouse unless the buyer chose another.
+  const warehouseId = input.warehouseId ?? (await jobWarehouse(em, job.id))
+  if (!warehouseId) {
+    throw AppError.badRequest('ship_to_needed', 'Choose the warehouse to ship to: this job has no pick list yet.', { fields: { warehouseId: problem('ship_to_needed') } })
+  }
   const lines = await chosenLines(em, job.id, input.bomLineIds)
   const itemIds = lines.map((l) => l.itemId!)
   const preferred = input.vendorId ? new Map() : await preferredVendors(em, itemIds)
@@ -69,12 +86,12 @@ export async function createFromJob(em: EntityManager, actor: AuditActor, input:
       const packQty = vi?.packQty ?? 1
       const item = items.get(l.itemId!)!
       return {
-        itemId: item.id, vendorSku: vi?.vendorSku ?? null, description: describeSpecial(item.name, l.specJson), packQty,
+        itemId: item.id, vendorSku: vi?.vendorSku ?? null, description: describeSpecial(item, l.specJson), packQty,
         packsOrdered: packsFor(l.qty - l.orderedQty, packQty), unitCost: vi?.unitCost ?? item.cost, bomLineId: l.id, specJson: l.specJson,
       }
     })
     const due = job.dueDate ? ` (due ${isoDay(job.dueDate)})` : ''
-    const head = { vendorId, warehouseId: input.warehouseId, jobId: job.id, expectedDate: addDays(leadDays(vendor, [...priced.values()])), notes: `Special order for job ${job.name}${due}` }
+    const head = { vendorId, warehouseId, jobId: job.id, expectedDate: addDays(leadDays(vendor, [...priced.values()])), notes: `Special order for job ${job.name}${due}` }
     const { po } = (await addToOpenDraft(em, actor, head, poLines, 'job')) ?? (await insertPo(em, actor, head, poLines, 'job'))
     for (const l of poLines) await em.increment(BomLine, { id: l.bomLineId! }, 'orderedQty', l.packsOrdered * l.packQty)
     ids.push(po.id)
@@ -118,8 +135,9 @@ export async function jobPurchaseLines(ds: DataSource, jobId: number): Promise<J
 
 /** Jobs with made-to-order lines still to order, soonest due first. */
 export async function specialOrderJobs(ds: DataSource): Promise<SpecialOrderJob[]> {
-  const rows: { job_id: number; job_name: string; customer_name: string | null; due_date: Date | string | null; n: string }[] = await ds.query(
-    `SELECT j.id AS job_id, j.name AS job_name, c.name AS customer_name, j.due_date, COUNT(*) AS n
+  const rows: { job_id: number; job_name: string; customer_name: string | null; due_date: Date | string | null; n: string; warehouse_id: number | null }[] = await ds.query(
+    `SELECT j.id AS job_id, j.name AS job_name, c.name AS customer_name, j.due_date, COUNT(*) AS n,
+            (SELECT p.warehouse_id FROM pick_lists p WHERE p.job_id = j.id ORDER BY p.id DESC LIMIT 1) AS warehouse_id
        FROM jobs j LEFT JOIN customers c ON c.id = j.customer_id
        JOIN boms b ON b.job_id = j.id AND b.revision = (SELECT MAX(b2.revision) FROM boms b2 WHERE b2.job_id = j.id)
        JOIN bom_lines l ON l.bom_id = b.id AND l.made_to_order = 1 AND l.qty > l.ordered_qty
@@ -127,5 +145,7 @@ export async function specialOrderJobs(ds: DataSource): Promise<SpecialOrderJob[
       GROUP BY j.id, j.name, c.name, j.due_date
       ORDER BY j.due_date IS NULL, j.due_date, j.id`,
   )
-  return rows.map((r) => ({ jobId: r.job_id, jobName: r.job_name, customerName: r.customer_name, dueDate: isoDay(r.due_date), linesToOrder: Number(r.n) }))
+  return rows.map((r) => ({
+    jobId: r.job_id, jobName: r.job_name, customerName: r.customer_name, dueDate: isoDay(r.due_date), linesToOrder: Number(r.n), warehouseId: r.warehouse_id,
+  }))
 }

@@ -17,6 +17,8 @@ import { lockPo } from './poLifecycle.js'
 import { poDetail } from './poRead.js'
 import { XLSX_TYPE } from '../exports/xlsxWriter.js'
 import { poWorkbook } from './poSpreadsheet.js'
+import { poPaper, type PoPaper } from './poDocument.js'
+import { PDF_TYPE, poPdf } from './poPdf.js'
 
 export function mailTransport(smtp: AppConfig['smtp']) {
   return nodemailer.createTransport({
@@ -32,23 +34,33 @@ export function mailTransport(smtp: AppConfig['smtp']) {
   })
 }
 
-function bodyText(po: PoDetail, message: string | null): string {
-  const lines = po.lines.map((l) => `  ${l.lineNo}. ${l.vendorSku ?? l.sku}  ${l.description}  ${l.packsOrdered} × ${l.packQty} = ${l.qtyOrdered} ${l.stockUnit}`)
+function bodyText(paper: PoPaper, message: string | null): string {
+  const { po, company } = paper
+  const lines = paper.lines.flatMap((l) => [
+    `  ${l.lineNo}. ${l.vendorSku ?? l.sku}  ${l.description}  ${l.packsOrdered} × ${l.packQty} = ${l.qtyOrdered} ${l.stockUnit}`,
+    ...(l.specification ? [`     Specification: ${l.specification}`] : []),
+  ])
+  const indent = (text: string) => text.split('\n').join('\n  ')
   return [
     `Hello${po.vendor.contactName ? ' ' + po.vendor.contactName : ''},`,
     '',
-    message ?? `Please find our purchase order ${po.number} attached.`,
+    message ?? `Please find our purchase order ${po.number} attached, as a PDF and as a spreadsheet.`,
     '',
     `Order: ${po.number}`,
     po.expectedDate ? `Wanted by: ${po.expectedDate}` : null,
-    `Ship to: ${po.warehouse.name}${po.warehouse.address ? ', ' + po.warehouse.address : ''}`,
+    `Bill to:\n  ${indent(paper.billTo)}`,
+    `Ship to:\n  ${indent(paper.shipTo)}`,
     po.job ? `For job: ${po.job.name}` : null,
     '',
     ...lines,
     '',
     po.orderTotal !== undefined ? `Total: ${formatMoney(po.orderTotal, { symbol: po.currency + ' ' })}` : null,
     '',
-    'Please confirm the order and the ship date by reply.',
+    `Please confirm the order and the ship date by reply${paper.replyTo ? ` to ${paper.replyTo}` : ''}.`,
+    '',
+    paper.buyer?.name ?? null,
+    company.legalName,
+    [company.phone, company.email].filter(Boolean).join(' · ') || null,
   ]
     .filter((l) => l !== null)
     .join('\n')
@@ -66,20 +78,24 @@ interface Attempt {
   cc: string[]
   subject: string
   text: string
+  replyTo: string | null
   files: MailFile[]
   retryOf?: number
 }
 
-/** What goes to the vendor with the message: the order as a spreadsheet. */
-async function poFiles(po: PoDetail): Promise<MailFile[]> {
-  return [{ name: `${po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(po) }]
+/** What goes to the vendor with the message: the order as a printable PDF and as a spreadsheet. */
+async function poFiles(paper: PoPaper): Promise<MailFile[]> {
+  return [
+    { name: `${paper.po.number}.pdf`, type: PDF_TYPE, bytes: await poPdf(paper) },
+    { name: `${paper.po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(paper) },
+  ]
 }
 
 async function record(ds: DataSource, actor: AuditActor, from: string, a: Attempt, outcome: { messageId?: string; error?: string }) {
   return inTransaction(ds, async (em) => {
     const row = em.create(OutboxMessage, {
       status: outcome.error ? 'failed' : 'sent', sentAt: outcome.error ? null : new Date(), fromAddress: from, toAddress: a.to,
-      cc: a.cc.length ? a.cc.join(', ') : null, subject: a.subject, bodyText: a.text, error: outcome.error?.slice(0, 500) ?? null,
+      cc: a.cc.length ? a.cc.join(', ') : null, replyTo: a.replyTo, subject: a.subject, bodyText: a.text, error: outcome.error?.slice(0, 500) ?? null,
       messageId: outcome.messageId ?? null, poId: a.poId, createdBy: actor.userId, retryOf: a.retryOf ?? null,
     })
     await em.save(row)
@@ -101,7 +117,7 @@ async function record(ds: DataSource, actor: AuditActor, from: string, a: Attemp
 async function attempt(ds: DataSource, config: AppConfig, actor: AuditActor, a: Attempt) {
   try {
     const info = await mailTransport(config.smtp).sendMail({
-      from: config.smtp.from, to: a.to, cc: a.cc, subject: a.subject, text: a.text,
+      from: config.smtp.from, to: a.to, cc: a.cc, replyTo: a.replyTo ?? undefined, subject: a.subject, text: a.text,
       attachments: a.files.map((f) => ({ filename: f.name, content: f.bytes, contentType: f.type })),
     })
     const outboxId = await record(ds, actor, config.smtp.from, a, { messageId: info.messageId })
@@ -120,14 +136,19 @@ function ensureSendable(po: PoDetail): void {
   }
 }
 
-/** Sends (or sends again) the order to the vendor. */
+/** Sends (or sends again) the order to the vendor, saying who orders: refused until the company profile is filled in. */
 export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
-  const po = await poDetail(ds, poId)
+  const paper = await poPaper(ds, poId, actor.userId)
+  const { po } = paper
   ensureSendable(po)
+  if (!paper.company.complete) {
+    throw AppError.conflict('company_profile_missing', 'Fill in the company profile (Admin → Company profile) first: a vendor must see who orders and where to bill.')
+  }
   const to = input.to ?? po.vendor.email
   if (!to) throw AppError.badRequest('vendor_email_missing', 'This vendor has no e-mail address: enter one.', { fields: { to: problem('required') } })
   return attempt(ds, config, actor, {
-    poId, to, cc: input.cc, subject: `Purchase order ${po.number}`, text: bodyText(po, input.message), files: await poFiles(po),
+    poId, to, cc: input.cc, replyTo: paper.replyTo, subject: `Purchase order ${po.number} from ${paper.company.legalName}`,
+    text: bodyText(paper, input.message), files: await poFiles(paper),
   })
 }
 
@@ -151,7 +172,7 @@ export async function sendAgain(ds: DataSource, config: AppConfig, actor: AuditA
     const files: { name: string; content_type: string; bytes: Buffer }[] = await ds.query(
       'SELECT name, content_type, bytes FROM outbox_attachments WHERE message_id = ? ORDER BY id', [messageId])
     return await attempt(ds, config, actor, {
-      poId: message.poId, to: message.toAddress, cc: message.cc ? message.cc.split(', ') : [], subject: message.subject, text: message.bodyText,
+      poId: message.poId, to: message.toAddress, cc: message.cc ? message.cc.split(', ') : [], replyTo: message.replyTo, subject: message.subject, text: message.bodyText,
       files: files.map((f) => ({ name: f.name, type: f.content_type, bytes: f.bytes })), retryOf: messageId,
     })
   } finally {

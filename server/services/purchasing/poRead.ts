@@ -20,6 +20,13 @@ const SUMMARY_SQL = `SELECT o.*, v.code AS v_code, v.name AS v_name, v.email AS 
 type PoRow = Record<string, unknown> & { id: number; number: string; status: PoStatus; total: string }
 
 function summaryOf(r: PoRow): PoSummary {
+  const summary = summaryFields(r)
+  const due = summary.job?.dueDate
+  const open = !['received', 'closed', 'cancelled'].includes(summary.status)
+  return { ...summary, arrivesAfterDue: !!(open && due && summary.expectedDate && summary.expectedDate > due) }
+}
+
+function summaryFields(r: PoRow): PoSummary {
   return {
     id: r.id,
     number: r.number,
@@ -33,6 +40,7 @@ function summaryOf(r: PoRow): PoSummary {
     lineCount: Number(r.line_count),
     orderTotal: r.total,
     version: Number(r.version),
+    arrivesAfterDue: false,
   }
 }
 
@@ -89,6 +97,8 @@ export async function poLines(db: Db, poId: number): Promise<PoLineView[]> {
   return rows.map(lineOf)
 }
 
+const STEP_ORDER: Record<PoTimelineEntry['event'], number> = { created: 0, approved: 1, sent: 2, delivery: 3, received: 4, closed: 5, cancelled: 5 }
+
 async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
   const steps: [PoTimelineEntry['event'], string, string, string | null][] = [
     ['created', 'created_at', 'created_by', null],
@@ -103,7 +113,7 @@ async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
     ? await db.query(`SELECT id, display_name FROM users WHERE id IN (${ids.map(() => '?').join(',')})`, ids)
     : []
   const names = new Map(users.map((u) => [u.id, u.display_name]))
-  return steps
+  const stamped: PoTimelineEntry[] = steps
     .filter(([, at]) => r[at])
     .map(([event, at, by, note]) => ({
       event,
@@ -111,6 +121,19 @@ async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
       by: names.get(r[by] as number) ?? null,
       ...(note ? { note: (r[note] as string | null) ?? null } : {}),
     }))
+  // Every delivery, the partial ones too: what came in, when and who took it.
+  const receipts: { received_at: Date; by_name: string | null; qty: string; damaged: string }[] = await db.query(
+    `SELECT rc.received_at, u.display_name AS by_name, SUM(rl.qty) AS qty, SUM(rl.qty_damaged) AS damaged
+       FROM po_receipts rc JOIN po_receipt_lines rl ON rl.receipt_id = rc.id LEFT JOIN users u ON u.id = rc.received_by
+      WHERE rc.po_id = ? GROUP BY rc.id, rc.received_at, u.display_name ORDER BY rc.id`,
+    [r.id],
+  )
+  const deliveries: PoTimelineEntry[] = receipts.map((d) => ({
+    event: 'delivery', at: iso(d.received_at)!, by: d.by_name, qty: Number(d.qty), damaged: Number(d.damaged),
+  }))
+  // The order's life is one way, so its steps read in that order (clock stamps of one transaction can tie
+  // or differ by a second either way); deliveries sit between sending and "received in full", oldest first.
+  return [...stamped, ...deliveries].sort((a, b) => STEP_ORDER[a.event] - STEP_ORDER[b.event] || a.at.localeCompare(b.at))
 }
 
 export async function poDetail(db: Db, id: number): Promise<PoDetail> {

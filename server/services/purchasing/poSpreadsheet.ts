@@ -3,15 +3,16 @@
 // setup come from the one writer (exports/xlsxWriter.ts): numbers stay numbers, dates are dates, text is
 // written as string cells, and labels, addresses and notes sit in cells wide enough not to be cut.
 import type ExcelJS from 'exceljs'
-import type { PoDetail, PoLineView } from '../../../shared/schemas/purchasingViews.js'
+import type { PoDetail } from '../../../shared/schemas/purchasingViews.js'
 import {
   alignmentOf, buildXlsx, columnWidths, LINE_POINTS, newWorkbook, printOptions, putCell, rowHeightFor, sheet, THIN_RULE, workbookBytes,
   wrappedHeight, wrappedLines, type Book, type CellInput, type CellKind, type SheetColumn,
 } from '../exports/xlsxWriter.js'
 import { costsVisible, visibleColumns } from '../costVisibility.js'
+import { buyerLine, type PoPaper, type PoPaperLine } from './poDocument.js'
 
 /** The row of the line table's header on a PO sheet; the sheet is frozen below it and repeats it on every page. */
-export const PO_TABLE_HEADER_ROW = 10
+export const PO_TABLE_HEADER_ROW = 12
 
 const HEADER_FILL: ExcelJS.Fill = { type: 'pattern', pattern: 'solid', fgColor: { argb: 'FFE5F4F3' } }
 
@@ -19,11 +20,14 @@ const HEADER_FILL: ExcelJS.Fill = { type: 'pattern', pattern: 'solid', fgColor: 
 // two- or four-place amount of this size converts exactly enough for display and sums.
 const amount = (text: string | undefined) => (text === undefined ? null : Number(text))
 
-const PO_COLUMNS: SheetColumn<PoLineView>[] = [
+const SPEC_HEADER = 'Specification'
+const PO_COLUMNS: SheetColumn<PoPaperLine>[] = [
   { header: 'Line', kind: 'integer', value: (l) => l.lineNo },
   { header: 'Our SKU', kind: 'text', width: 18, value: (l) => l.sku },
   { header: 'Vendor SKU', kind: 'text', width: 18, value: (l) => l.vendorSku },
   { header: 'Description', kind: 'text', width: 44, value: (l) => l.description },
+  // Made-to-order lines only, whole and wrapped: the vendor builds from it.
+  { header: SPEC_HEADER, kind: 'text', width: 50, value: (l) => l.specification },
   { header: 'Packs', kind: 'integer', value: (l) => l.packsOrdered },
   { header: 'Pack size', kind: 'integer', value: (l) => l.packQty },
   { header: 'Quantity', kind: 'integer', value: (l) => l.qtyOrdered },
@@ -51,36 +55,43 @@ function block(ws: ExcelJS.Worksheet, widths: number[], row: number, from: numbe
   if (height > (r.height ?? LINE_POINTS)) r.height = height
 }
 
-function headerBlock(ws: ExcelJS.Worksheet, widths: number[], po: PoDetail) {
+function headerBlock(ws: ExcelJS.Worksheet, widths: number[], paper: PoPaper) {
+  const { po, company } = paper
   const bold = { font: { bold: true } }
   const last = widths.length
   block(ws, widths, 1, 1, last, 'text', `Purchase order ${po.number}`, { font: { bold: true, size: 16 } })
-  // Facts: the label across Line and Our SKU, the value under Vendor SKU.
+  // Who orders, on the first line under the title.
+  block(ws, widths, 2, 1, last, 'text', [company.legalName, company.phone, company.email].filter(Boolean).join(' · '), bold)
+  // Facts: the label across Line and Our SKU, the value under Vendor SKU. No internal status: the vendor reads an order.
   const facts: [string, CellKind, CellInput][] = [
     ['Order date', 'date', po.createdAt],
-    ['Expected', 'date', po.expectedDate],
-    ['Status', 'text', po.status.replace('_', ' ')],
+    ['Wanted by', 'date', po.expectedDate],
     ['Currency', 'text', po.currency],
     ['Terms', 'text', po.vendor.terms],
+    ['Buyer', 'text', buyerLine(paper)],
+    ['Reply to', 'text', paper.replyTo],
+    ['Tax number', 'text', company.taxNumber],
   ]
-  facts.forEach(([label, kind, value], i) => {
+  facts.filter(([, , value]) => value).forEach(([label, kind, value], i) => {
     block(ws, widths, 3 + i, 1, 2, 'text', label, bold)
     block(ws, widths, 3 + i, 3, 3, kind, value)
   })
-  // Vendor across Description to Pack size; ship-to and job across Quantity to Line total.
-  block(ws, widths, 3, 4, 6, 'text', 'Vendor', bold)
+  // Vendor across Description to Pack size (or Packs); bill-to, ship-to and job across the rest.
+  const split = Math.min(6, last - 3)
+  block(ws, widths, 3, 4, split, 'text', 'Vendor', bold)
   const v = po.vendor
-  ;[v.name, v.contactName, v.email, v.phone, v.address].forEach((text, i) => block(ws, widths, 4 + i, 4, 6, 'text', text))
-  block(ws, widths, 3, 7, last, 'text', 'Ship to', bold)
-  block(ws, widths, 4, 7, last, 'text', po.warehouse.name)
-  block(ws, widths, 5, 7, last, 'text', po.warehouse.address)
+  ;[v.name, v.contactName, v.email, v.phone, v.address].forEach((text, i) => block(ws, widths, 4 + i, 4, split, 'text', text))
+  block(ws, widths, 3, split + 1, last, 'text', 'Bill to', bold)
+  block(ws, widths, 4, split + 1, last, 'text', paper.billTo)
+  block(ws, widths, 6, split + 1, last, 'text', 'Ship to', bold)
+  block(ws, widths, 7, split + 1, last, 'text', paper.shipTo)
   if (po.job) {
-    block(ws, widths, 7, 7, last, 'text', 'Job', bold)
-    block(ws, widths, 8, 7, last, 'text', po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name)
+    block(ws, widths, 9, split + 1, last, 'text', 'Job', bold)
+    block(ws, widths, 10, split + 1, last, 'text', po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name)
   }
 }
 
-function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], widths: { width: number; wrap: boolean }[], po: PoDetail): number {
+function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoPaperLine>[], widths: { width: number; wrap: boolean }[], lines: PoPaperLine[]): number {
   const alignments = columns.map((c, i) => alignmentOf(c.kind, widths[i].wrap))
   const head = ws.getRow(PO_TABLE_HEADER_ROW)
   columns.forEach((c, i) => {
@@ -91,7 +102,7 @@ function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], wi
     cell.border = { bottom: THIN_RULE }
     cell.alignment = { ...alignments[i], vertical: 'bottom', wrapText: false }
   })
-  po.lines.forEach((l, i) => {
+  lines.forEach((l, i) => {
     const row = ws.getRow(PO_TABLE_HEADER_ROW + 1 + i)
     columns.forEach((c, col) => {
       const cell = row.getCell(col + 1)
@@ -102,14 +113,20 @@ function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoLineView>[], wi
     const height = wrappedHeight(columns.map((_, col) => row.getCell(col + 1).value), widths)
     if (height) row.height = height
   })
-  return PO_TABLE_HEADER_ROW + po.lines.length
+  return PO_TABLE_HEADER_ROW + lines.length
+}
+
+/** The line columns a PO's sheet shows: prices only for callers who may see costs, the specification only when a line has one. */
+function poColumns(lines: PoPaperLine[]): SheetColumn<PoPaperLine>[] {
+  const specs = lines.some((l) => l.specification)
+  return visibleColumns(PO_COLUMNS).filter((c) => specs || c.header !== SPEC_HEADER)
 }
 
 /** Adds one PO's printable sheet to a workbook. */
-export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.number): ExcelJS.Worksheet {
-  // Prices only for callers who may see costs (the buyer e-mailing the vendor does).
-  const columns = visibleColumns(PO_COLUMNS)
-  const widths = columnWidths(columns, po.lines)
+export function addPoSheet(book: ExcelJS.Workbook, paper: PoPaper, name = paper.po.number): ExcelJS.Worksheet {
+  const { po } = paper
+  const columns = poColumns(paper.lines)
+  const widths = columnWidths(columns, paper.lines)
   const lastLine = PO_TABLE_HEADER_ROW + po.lines.length
   const totalRow = lastLine + 2
   const lastRow = po.notes ? totalRow + 2 : totalRow
@@ -124,8 +141,8 @@ export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.numbe
   })
   widths.forEach((w, i) => (ws.getColumn(i + 1).width = w.width))
   const w = widths.map((x) => x.width)
-  headerBlock(ws, w, po)
-  lineTable(ws, columns, widths, po)
+  headerBlock(ws, w, paper)
+  lineTable(ws, columns, widths, paper.lines)
   if (costsVisible() && po.orderTotal !== undefined) {
     const at = columns.length
     block(ws, w, totalRow, at - 1, at - 1, 'text', 'Total', { font: { bold: true }, alignment: { horizontal: 'right' } })
@@ -139,16 +156,17 @@ export function addPoSheet(book: ExcelJS.Workbook, po: PoDetail, name = po.numbe
   return ws
 }
 
-export async function poWorkbook(po: PoDetail): Promise<Buffer> {
+export async function poWorkbook(paper: PoPaper): Promise<Buffer> {
   const book = newWorkbook()
-  addPoSheet(book, po)
+  addPoSheet(book, paper)
   return workbookBytes(book)
 }
 
-type LineOfPo = PoLineView & { po: PoDetail }
+type LineOfPo = PoPaperLine & { po: PoDetail }
 
 /** The buyer's book: one row per order, every line, then each order's printable sheet. */
-export async function multiPoWorkbook(pos: PoDetail[]): Promise<Buffer> {
+export async function multiPoWorkbook(papers: PoPaper[]): Promise<Buffer> {
+  const pos = papers.map((p) => p.po)
   const title = `Purchase orders ${pos.map((p) => p.number).join(', ')}`.slice(0, 120)
   const orderSheet = sheet<PoDetail>({
     name: 'Orders', title, rows: pos,
@@ -165,17 +183,20 @@ export async function multiPoWorkbook(pos: PoDetail[]): Promise<Buffer> {
       { header: 'Total', kind: 'money', value: (p) => amount(p.orderTotal), cost: true },
     ],
   })
+  const rows = papers.flatMap((p) => p.lines.map((l) => ({ ...l, po: p.po })))
+  const lineColumns = poColumns(rows)
+  const afterQty = lineColumns.findIndex((c) => c.header === 'Quantity') + 1
   const lineSheet = sheet<LineOfPo>({
-    name: 'Lines', title, rows: pos.flatMap((po) => po.lines.map((l) => ({ ...l, po }))),
+    name: 'Lines', title, rows,
     columns: [
       { header: 'Number', kind: 'text', value: (l) => l.po.number },
       { header: 'Vendor', kind: 'text', width: 28, value: (l) => l.po.vendor.name },
-      ...PO_COLUMNS.slice(0, 7),
+      ...lineColumns.slice(0, afterQty),
       { header: 'Received', kind: 'integer', value: (l) => l.qtyReceived },
-      ...PO_COLUMNS.slice(7),
+      ...lineColumns.slice(afterQty),
     ],
   })
   return buildXlsx(orderSheet, lineSheet, (book: Book) => {
-    for (const po of pos) addPoSheet(book as ExcelJS.Workbook, po)
+    for (const p of papers) addPoSheet(book as ExcelJS.Workbook, p)
   })
 }

@@ -5,7 +5,7 @@ import type { EntityManager } from 'typeorm'
 import type { AdjustmentReason } from '../../../shared/catalog.js'
 import { Bin } from '../../entities/Bin.js'
 import { Lot } from '../../entities/Lot.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { currentAverage } from './averageCost.js'
 import { currentLotByCode } from './currentRows.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
@@ -130,6 +130,14 @@ export async function adjust(
   input: { itemId: number; binId: number; lotId: number | null; delta: number; reason: AdjustmentReason; note?: string | null; doc?: DocRef },
 ): Promise<AppliedMoves> {
   const bin = await storageBin(em, input.binId)
+  // Found units of an item matched by lot must say which lot they are: without one they could never be
+  // picked with their run (tint) and would sit apart in a lot of their own.
+  if (input.reason === 'found' && input.lotId === null) {
+    const [item]: { match_lot: number }[] = await em.query('SELECT match_lot FROM items WHERE id = ?', [input.itemId])
+    if (item && Number(item.match_lot)) {
+      throw AppError.badRequest('lot_required', 'This item is matched by lot: choose the lot the found units belong to.', { fields: { lotId: problem('lot_required') } })
+    }
+  }
   return applyMoves(em, actor, [
     {
       moveType: input.reason === 'counted' ? 'count' : 'adjustment',

@@ -1,6 +1,6 @@
 export default {
   title: 'Reorder suggestions',
-  blurb: 'Each line is one item in one warehouse: its position (on hand + on order − reserved) against a reorder point worked out from the last {days} days of issues and picks. Days without use count as zero.',
+  blurb: 'Each line is one item in one warehouse: its position (on hand + on order − reserved) against a reorder point worked out from the last {days} days of issues and picks. Days without use count as zero. The minimums on Stock are a separate floor set by hand, so the “below minimum” count there differs from this list.',
   policiesTitle: 'Reorder policies',
   abcTitle: 'ABC classes',
   asOf: 'Usage {start} to {end} ({days} days)',

@@ -21,6 +21,12 @@ export const adminRoutes: RouteRecordRaw[] = [
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'purchasing.outboxTitle' },
   },
   {
+    path: '/admin/company',
+    name: 'admin-company',
+    component: () => import('@/views/admin/CompanyProfileView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'admin.companyTitle' },
+  },
+  {
     path: '/admin/purchasing-settings',
     name: 'admin-purchasing-settings',
     component: () => import('@/views/admin/PurchasingSettingsView.vue'),

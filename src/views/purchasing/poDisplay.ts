@@ -26,5 +26,12 @@ export function money(amount: string | null | undefined, currency = 'USD'): stri
 export const unitMoney = (amount: string | null | undefined, currency = 'USD') =>
   amount === null || amount === undefined ? '—' : formatMoney(amount, { symbol: currency === 'USD' ? '$' : `${currency} `, decimals: 4 })
 
+/** A draft line as edited on screen, sent back with the order's version. */
+export interface LineEdit {
+  id: number
+  packsOrdered: number
+  unitCost?: string
+}
+
 export const shortDate = (iso: string | null) => (iso ? iso.slice(0, 10) : '—')
 export const dateTime = (iso: string | null) => dateTimeText(iso)

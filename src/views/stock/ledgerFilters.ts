@@ -3,6 +3,7 @@
 import type { LocationQuery } from 'vue-router'
 import type { MoveType } from '@shared/catalog'
 import type { QueryValues } from '@/api/stock'
+import { localDayStart } from '@shared/schemas/stockViews'
 
 export interface LedgerFilterModel {
   itemId: number | null
@@ -30,12 +31,6 @@ export function filtersToQuery(f: LedgerFilterModel): Record<string, string> {
   return out
 }
 
-/** Midnight starting a local day, as an instant; the server keeps times in UTC. */
-export function localDayStart(day: string, plusDays = 0): string {
-  const [y, m, d] = day.split('-').map(Number)
-  return new Date(y, m - 1, d + plusDays).toISOString()
-}
-
 export function serverFilters(f: LedgerFilterModel): QueryValues {
   return {
     itemId: f.itemId, warehouseId: f.warehouseId, binId: f.binId, lotId: f.lotId, moveType: f.moveType,
@@ -48,3 +43,4 @@ export function serverFilters(f: LedgerFilterModel): QueryValues {
 export function blankFilters(): LedgerFilterModel {
   return { itemId: null, warehouseId: null, binId: null, lotId: null, moveType: [], dates: null, docType: '', docId: '' }
 }
+

@@ -1,0 +1,168 @@
+// A purchase order as a printable PDF (pdfkit, with the Open Sans shipped in @fontsource: nothing fetched):
+// who orders, bill-to and ship-to, the vendor, the dates, every line, and each made-to-order line's whole
+// specification under it. Prices only for callers who may see costs.
+import { createRequire } from 'node:module'
+import PDFDocument from 'pdfkit'
+import { formatMoney } from '../../../shared/money.js'
+import { costsVisible } from '../costVisibility.js'
+import { buyerLine, type PoPaper } from './poDocument.js'
+
+const require = createRequire(import.meta.url)
+const FONT = require.resolve('@fontsource/open-sans/files/open-sans-latin-400-normal.woff')
+const FONT_BOLD = require.resolve('@fontsource/open-sans/files/open-sans-latin-700-normal.woff')
+
+export const PDF_TYPE = 'application/pdf'
+
+const MARGIN = 48
+const INK = '#1d2b2a'
+const SOFT = '#5b6b69'
+const RULE = '#c9d6d4'
+
+interface Column {
+  header: string
+  width: number
+  align: 'left' | 'right'
+}
+
+export function poPdf(paper: PoPaper): Promise<Buffer> {
+  const { po, company } = paper
+  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, bufferPages: true, info: { Title: `Purchase order ${po.number}`, Author: company.legalName || 'Lumenyard' } })
+  doc.registerFont('body', FONT)
+  doc.registerFont('bold', FONT_BOLD)
+  const chunks: Buffer[] = []
+  doc.on('data', (c: Buffer) => chunks.push(c))
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on('end', () => resolve(Buffer.concat(chunks)))
+    doc.on('error', reject)
+  })
+  const width = doc.page.width - 2 * MARGIN
+  const money = (amount: string | undefined) => (amount === undefined ? '' : formatMoney(amount, { symbol: `${po.currency} ` }))
+
+  // Title and who orders.
+  doc.font('bold').fontSize(18).fillColor(INK).text(`Purchase order ${po.number}`)
+  doc.font('bold').fontSize(11).text(company.legalName || '—')
+  doc.font('body').fontSize(9).fillColor(SOFT).text([company.phone, company.email, company.taxNumber ? `Tax number ${company.taxNumber}` : null].filter(Boolean).join(' · '))
+  doc.moveDown(0.8)
+
+  // Three blocks side by side: vendor, bill to, ship to.
+  const top = doc.y
+  const third = width / 3
+  const blockAt = (i: number, label: string, text: string) => {
+    doc.font('bold').fontSize(9).fillColor(SOFT).text(label, MARGIN + i * third, top, { width: third - 12 })
+    doc.font('body').fontSize(10).fillColor(INK).text(text || '—', { width: third - 12 })
+    return doc.y
+  }
+  const v = po.vendor
+  const bottom = Math.max(
+    blockAt(0, 'Vendor', [v.name, v.contactName, v.email, v.phone, v.address].filter(Boolean).join('\n')),
+    blockAt(1, 'Bill to', paper.billTo),
+    blockAt(2, 'Ship to', paper.shipTo),
+  )
+  doc.x = MARGIN
+  doc.y = bottom + 10
+
+  // The order's facts in two columns.
+  const facts: [string, string | null][] = [
+    ['Order date', po.createdAt.slice(0, 10)],
+    ['Wanted by', po.expectedDate],
+    ['Payment terms', v.terms],
+    ['Currency', po.currency],
+    ['Buyer', buyerLine(paper)],
+    ['Reply to', paper.replyTo],
+    ['Job', po.job ? (po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name) : null],
+  ]
+  const shown = facts.filter(([, value]) => value)
+  const half = width / 2
+  for (let i = 0; i < shown.length; i += 2) {
+    const y = doc.y
+    let tallest = 0
+    shown.slice(i, i + 2).forEach(([label, value], j) => {
+      const x = MARGIN + j * half
+      doc.font('bold').fontSize(9).fillColor(SOFT).text(label, x, y, { width: 80 })
+      doc.font('body').fontSize(10).fillColor(INK)
+      tallest = Math.max(tallest, doc.heightOfString(value!, { width: half - 90 }))
+      doc.text(value!, x + 84, y, { width: half - 90 })
+    })
+    doc.x = MARGIN
+    doc.y = y + Math.max(tallest, 12) + 3
+  }
+  doc.y += 10
+
+  // The lines.
+  const prices = costsVisible() && po.orderTotal !== undefined
+  // Amounts without the currency code: the order states its currency once, above.
+  const columns: Column[] = [
+    { header: '#', width: 22, align: 'left' },
+    { header: 'Our SKU / vendor SKU', width: 104, align: 'left' },
+    { header: 'Description', width: prices ? 150 : width - 236, align: 'left' },
+    { header: 'Packs', width: 50, align: 'right' },
+    { header: 'Quantity', width: 60, align: 'right' },
+    ...(prices ? ([{ header: 'Unit cost', width: 60, align: 'right' }, { header: 'Line total', width: width - 446, align: 'right' }] as Column[]) : []),
+  ]
+  const row = (cells: string[], font: 'body' | 'bold') => {
+    const y = doc.y
+    let x = MARGIN
+    let tallest = 0
+    doc.font(font).fontSize(9).fillColor(INK)
+    cells.forEach((text, i) => {
+      const c = columns[i]
+      tallest = Math.max(tallest, doc.heightOfString(text, { width: c.width - 6 }))
+      doc.text(text, x, y, { width: c.width - 6, align: c.align })
+      x += c.width
+    })
+    doc.x = MARGIN
+    doc.y = y + tallest + 4
+  }
+  const rule = () => doc.moveTo(MARGIN, doc.y).lineTo(MARGIN + width, doc.y).strokeColor(RULE).lineWidth(0.6).stroke()
+  const header = () => {
+    row(columns.map((c) => c.header), 'bold')
+    rule()
+    doc.y += 4
+  }
+  header()
+  for (const l of paper.lines) {
+    if (doc.y > doc.page.height - MARGIN - 80) {
+      doc.addPage()
+      header()
+    }
+    row([
+      String(l.lineNo), [l.sku, l.vendorSku].filter(Boolean).join('\n'), l.description,
+      `${l.packsOrdered} × ${l.packQty}`, `${l.qtyOrdered} ${l.stockUnit}`,
+      ...(prices ? [l.unitCost ? formatMoney(l.unitCost, { symbol: '', decimals: 4 }) : '', l.lineTotal ? formatMoney(l.lineTotal, { symbol: '' }) : ''] : []),
+    ], 'body')
+    if (l.specification) {
+      // The whole specification, across the table, never cut: the vendor builds from it.
+      doc.font('bold').fontSize(9).fillColor(INK).text('Specification: ', MARGIN + 22, doc.y, { continued: true, width: width - 22 })
+      doc.font('body').text(l.specification)
+      doc.x = MARGIN
+      doc.y += 4
+    }
+    rule()
+    doc.y += 4
+  }
+  if (prices) {
+    doc.font('bold').fontSize(11).fillColor(INK).text(`Total ${money(po.orderTotal)}`, MARGIN, doc.y + 4, { width, align: 'right' })
+  }
+  if (po.notes) {
+    doc.moveDown(0.8)
+    doc.font('bold').fontSize(9).fillColor(SOFT).text('Notes', MARGIN, doc.y, { width })
+    doc.font('body').fontSize(10).fillColor(INK).text(po.notes, { width })
+  }
+  doc.moveDown(1)
+  doc.font('body').fontSize(9).fillColor(SOFT).text(
+    `Please confirm this order and its ship date${paper.replyTo ? ` to ${paper.replyTo}` : ''}, quoting ${po.number} on every delivery note and invoice.`,
+    MARGIN, doc.y, { width },
+  )
+
+  // Page numbers on every page.
+  const range = doc.bufferedPageRange()
+  for (let i = range.start; i < range.start + range.count; i++) {
+    doc.switchToPage(i)
+    // Below the bottom margin: without lifting the margin pdfkit would start a new page for the footer.
+    doc.page.margins.bottom = 0
+    doc.font('body').fontSize(8).fillColor(SOFT)
+      .text(`${po.number} · page ${i + 1} of ${range.count}`, MARGIN, doc.page.height - MARGIN + 16, { width, align: 'right', lineBreak: false })
+  }
+  doc.end()
+  return done
+}

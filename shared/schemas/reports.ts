@@ -1,5 +1,7 @@
 // Reports: what the screens send (parsed by the server with these) and the answers' shapes.
 import { z } from 'zod'
+import type { ItemFamily } from '../catalog.js'
+import type { Money } from '../money.js'
 import { issueOf } from '../errors/zodProblems.js'
 import { localDayIn } from '../reports/zonedDays.js'
 import { timeZoneParam } from './exportQuery.js'
@@ -17,3 +19,22 @@ export const stockValuationQuerySchema = z
     return { ...q, asOf }
   })
 export type StockValuationQuery = z.infer<typeof stockValuationQuerySchema>
+
+// ---- answers ----
+/** One warehouse and family: how many items had stock, the units, and their value (a cost: the cost rule's `stockValue`). */
+export interface ValuationGroup {
+  warehouseId: number
+  warehouseCode: string
+  family: ItemFamily
+  items: number
+  onHand: number
+  stockValue: Money
+}
+
+export interface ValuationReport {
+  asOf: string
+  tz: string
+  groups: ValuationGroup[]
+  warehouses: { warehouseId: number; warehouseCode: string; stockValue: Money }[]
+  stockValue: Money
+}

@@ -3,7 +3,7 @@
 // days between them. Each figure is the moving-average arithmetic worked by hand beside it.
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { ValuationReport } from '../../server/services/reports/stockValuation.js'
+import type { ValuationReport } from '../../shared/schemas/reports.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { fxItem, fxWarehouse, tagOf, type FxItem, type FxWarehouse } from '../support/pickFixtures.js'
 

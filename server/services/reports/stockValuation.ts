@@ -8,13 +8,10 @@ import type { ItemFamily } from '../../../shared/catalog.js'
 import { addMoney, type Money } from '../../../shared/money.js'
 import { valueAsOf, type CostBearingMove, type PairValue } from '../../../shared/reports/valuationReplay.js'
 import { dayEnd } from '../../../shared/reports/zonedDays.js'
+import type { StockValuationQuery, ValuationGroup, ValuationReport } from '../../../shared/schemas/reports.js'
 import { COSTED_IN } from '../stock/averageCost.js'
 
-export interface ValuationQuery {
-  asOf: string
-  tz: string
-  warehouseId?: number
-}
+export type ValuationQuery = StockValuationQuery
 
 export interface ValuedPair extends PairValue {
   itemId: number
@@ -51,23 +48,6 @@ export async function valuedPairs(ds: DataSource, q: ValuationQuery): Promise<Va
     const [itemId, warehouseId] = key.split('|').map(Number)
     return { itemId, warehouseId, ...v }
   })
-}
-
-export interface ValuationGroup {
-  warehouseId: number
-  warehouseCode: string
-  family: ItemFamily
-  items: number
-  onHand: number
-  stockValue: Money
-}
-
-export interface ValuationReport {
-  asOf: string
-  tz: string
-  groups: ValuationGroup[]
-  warehouses: { warehouseId: number; warehouseCode: string; stockValue: Money }[]
-  stockValue: Money
 }
 
 export interface ItemFacts {

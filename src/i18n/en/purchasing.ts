@@ -3,6 +3,7 @@ export default {
   homeBlurb: 'From what to order to what arrived: vendors, purchase orders, sending and receiving.',
   // One-line descriptions of the purchasing pages the landing lists by route name.
   routeHints: {
+    'purchasing-stock-value': 'What the stock was worth at the end of any day, by warehouse and family.',
     'purchasing-reorder': 'Items at or below their reorder point, with how many to order and from whom.',
     'purchasing-reorder-policies': 'Lead time, review period and safety stock that set each item’s reorder point.',
     'purchasing-reorder-abc': 'Items ranked by yearly usage value, so the big movers get the closest watch.',

@@ -3,6 +3,7 @@ export default {
   homeTitle: 'Compras',
   homeBlurb: 'De qué pedir a qué llegó: proveedores, órdenes de compra, envío y recepción.',
   routeHints: {
+    'purchasing-stock-value': 'Lo que valía el inventario al cierre de cualquier día, por almacén y familia.',
     'purchasing-reorder': 'Artículos en su punto de reorden o por debajo, con cuánto pedir y a quién.',
     'purchasing-reorder-policies': 'Tiempo de entrega, periodo de revisión y existencia de seguridad que fijan el punto de reorden de cada artículo.',
     'purchasing-reorder-abc': 'Artículos ordenados por valor de consumo anual, para vigilar más de cerca los que más se mueven.',

@@ -64,4 +64,10 @@ export const purchasingRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/purchasing/ReorderAbcView.vue'),
     meta: { area: 'purchasing', roles: AREA_ROLES.purchasing, title: 'reorder.abcTitle' },
   },
+  {
+    path: '/purchasing/stock-value',
+    name: 'purchasing-stock-value',
+    component: () => import('@/views/purchasing/StockValueView.vue'),
+    meta: { area: 'purchasing', roles: AREA_ROLES.purchasing, title: 'reports.valuation.title' },
+  },
 ]

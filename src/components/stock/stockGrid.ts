@@ -2,8 +2,9 @@
 // grid's default font would be fetched from the web), and the column definitions.
 import {
   CellStyleModule, ClientSideRowModelApiModule, ClientSideRowModelModule, ColumnApiModule, ModuleRegistry, NumberEditorModule, NumberFilterModule, QuickFilterModule,
-  RowStyleModule, TextFilterModule, themeQuartz, type ColDef,
+  RowStyleModule, TextFilterModule, type ColDef,
 } from 'ag-grid-community'
+import { gridTheme } from '@/components/grid/gridTheme'
 import type { LedgerRow, StockLevelRow } from '@shared/schemas/stockViews'
 import { dateTimeText } from '@/i18n/when'
 
@@ -12,15 +13,7 @@ ModuleRegistry.registerModules([
   NumberEditorModule,
 ])
 
-export const stockTheme = themeQuartz.withParams({
-  fontFamily: 'Open Sans',
-  accentColor: '#14505c',
-  headerBackgroundColor: '#e5f4f3',
-  rowHoverColor: '#f0f8f7',
-  borderColor: '#d5e2e3',
-  rowHeight: 44,
-  headerHeight: 44,
-})
+export const stockTheme = gridTheme.withParams({ rowHeight: 44, headerHeight: 44 })
 
 type Translate = (key: string, values?: Record<string, unknown>) => string
 

@@ -1,21 +1,16 @@
 // The reorder grid's AG Grid set-up: only the modules it uses, our palette and local font, and the columns.
 import {
-  CellStyleModule, ClientSideRowModelModule, ModuleRegistry, RowSelectionModule, RowStyleModule, themeQuartz, TooltipModule,
+  CellStyleModule, ClientSideRowModelModule, ModuleRegistry, RowSelectionModule, RowStyleModule, TooltipModule,
   type ColDef, type RowSelectionOptions,
 } from 'ag-grid-community'
+import { gridTheme } from '@/components/grid/gridTheme'
 import { formatMoney } from '@shared/money'
 import type { ReorderLine } from '@shared/schemas/reorder'
 import { i18n } from '@/i18n'
 
 ModuleRegistry.registerModules([ClientSideRowModelModule, RowSelectionModule, CellStyleModule, RowStyleModule, TooltipModule])
 
-export const reorderTheme = themeQuartz.withParams({
-  fontFamily: 'Open Sans',
-  accentColor: '#14505c',
-  headerBackgroundColor: '#e5f4f3',
-  rowHoverColor: '#f0f8f7',
-  borderColor: '#d5e2e3',
-})
+export const reorderTheme = gridTheme
 
 export const reorderSelection: RowSelectionOptions<ReorderLine> = {
   mode: 'multiRow',

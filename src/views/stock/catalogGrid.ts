@@ -2,8 +2,9 @@
 // default font would be fetched from the web), and the column definitions.
 import {
   CellStyleModule, ClientSideRowModelModule, ColumnApiModule, ModuleRegistry, NumberFilterModule, QuickFilterModule,
-  RowStyleModule, TextFilterModule, themeQuartz, type ColDef,
+  RowStyleModule, TextFilterModule, type ColDef,
 } from 'ag-grid-community'
+import { gridTheme } from '@/components/grid/gridTheme'
 import type { ItemRow } from '@shared/schemas/catalog'
 import { formatMoney } from '@shared/money'
 
@@ -11,13 +12,7 @@ ModuleRegistry.registerModules([
   ClientSideRowModelModule, TextFilterModule, NumberFilterModule, QuickFilterModule, ColumnApiModule, CellStyleModule, RowStyleModule,
 ])
 
-export const catalogTheme = themeQuartz.withParams({
-  fontFamily: 'Open Sans',
-  accentColor: '#14505c',
-  headerBackgroundColor: '#e5f4f3',
-  rowHoverColor: '#f0f8f7',
-  borderColor: '#d5e2e3',
-})
+export const catalogTheme = gridTheme
 
 type Translate = (key: string) => string
 

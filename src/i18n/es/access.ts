@@ -1,0 +1,22 @@
+// Palabras que solo leen las tecnologías de apoyo, y etiquetas de controles cuyo texto visible está en otro sitio.
+export default {
+  skipToContent: 'Saltar al contenido principal',
+  accountMenu: 'menú de la cuenta',
+  picked: '{list}: {done} de {total} unidades preparadas',
+  pageSize: 'Filas por página',
+  perPage: '{n} por página',
+  chooseFile: 'Archivo de hoja de cálculo para subir',
+  statusFilter: 'Filtrar por estado',
+  activeFilter: 'Cuentas que se muestran',
+  warehouseFilter: 'Filtrar por almacén',
+  warehouse: 'Almacén',
+  vendor: 'Proveedor',
+  wallName: 'Nombre del muro',
+  looseItem: 'Artículo',
+  looseQty: 'Cantidad',
+  looseNote: 'Nota',
+  ruleText: 'Ajustes de la regla (JSON)',
+  ruleInUse: 'Regla {id} en uso',
+  packsOrdered: 'Paquetes pedidos, línea {n}',
+  unitCost: 'Costo unitario, línea {n}',
+}

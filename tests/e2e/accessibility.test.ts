@@ -1,0 +1,142 @@
+// WCAG 2.2 AA on every screen: axe-core on each route of the client's own router table, opened by the role
+// that uses it (the warehouse's screens also at a phone width), then with the main dialogs open. Any
+// critical or serious violation fails the test and is listed with its screen, width, rule and elements.
+// source: W3C, Web Content Accessibility Guidelines (WCAG) 2.2, levels A and AA; rules as axe-core implements them.
+import { writeFileSync } from 'node:fs'
+import path from 'node:path'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { BrowserContext, Page } from 'playwright-core'
+import type { Role } from '../../shared/roles.js'
+import { DEMO_PASSWORD, SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
+import { axeFindings, blocking, describeFindings, tally, type AxeFinding } from '../support/axeCheck.js'
+import { fxBom, pickScenario, releasedPickList, signedInAgent } from '../support/pickFixtures.js'
+import { byRole, openInApp, RouteSamples, routeTable, settle, type WalkRoute } from '../support/routeWalk.js'
+
+const DESKTOP = { width: 1280, height: 860 }
+// A 412 px phone: the warehouse's handheld width in the team's trials (Chromium's metrics of a common Android phone).
+const PHONE = { width: 412, height: 900 }
+
+let h: E2eHarness
+let page: Page
+let context: BrowserContext
+let groups: Map<Role | 'signed-out', WalkRoute[]>
+let samples: RouteSamples
+const found: AxeFinding[] = []
+const visited = new Set<string>()
+const dialogsChecked = new Set<string>()
+
+beforeAll(async () => {
+  h = await startE2e()
+  // The demo has no pick list: one released list gives the pick screens a record to open.
+  const s = await pickScenario(h.ds, await signedInAgent(h.built.app, 'warehouse', DEMO_PASSWORD))
+  const bom = await fxBom(h.ds, s.tag, [{ itemId: s.block.id, qty: 16 }, { itemId: s.spacer.id, qty: 10 }])
+  await releasedPickList(await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD), bom.bomId, s.main.id)
+  ;({ page, context } = await h.newPage({ viewport: DESKTOP }))
+  // With reduced motion the theme ends every transition at once, so axe reads colours as they settle.
+  await page.emulateMedia({ reducedMotion: 'reduce' })
+  samples = new RouteSamples(h.ds)
+  await page.goto('/sign-in')
+  await page.locator('[data-test="username"]').waitFor()
+  groups = byRole(await routeTable(page))
+})
+afterAll(async () => {
+  if (found.length) console.log('axe findings by impact (places, rules, elements):', JSON.stringify(tally(found)))
+  writeFileSync(path.join(SCREENSHOTS, '..', 'axe-findings.json'), JSON.stringify(found, null, 1))
+  await context?.close()
+  await h?.close()
+})
+
+async function check(where: string) {
+  found.push(...(await axeFindings(page, where)))
+}
+
+/**
+ * The main dialogs, opened on their screen by the role that uses the screen: the clicks that open each one
+ * (a tab first where the opener sits on one). Each is checked open, then closed with Escape, and focus must
+ * come back to what opened it.
+ */
+const DIALOGS: Record<string, string[]> = {
+  'counter-home': ['[data-test="start-takeoff"]'],
+  'counter-customers': ['[data-test="new-customer"]'],
+  'counter-jobs': ['[data-test="new-job"]'],
+  'counter-job': ['[data-test="upload-takeoff"]'],
+  'purchasing-orders': ['[data-test="new-order"]'],
+  'purchasing-vendors': ['[data-test="add-vendor"]'],
+  'purchasing-vendor': ['[data-test="import-price-list"]'],
+  'purchasing-reorder-policies': ['[data-test="policy-add"]'],
+  'admin-users': ['[data-test="add-user"]'],
+  'counter-settings': ['#tab-rules', '[data-test="rule-add"]'],
+}
+const OPEN_DIALOG = '.el-overlay-dialog .el-dialog'
+
+/** The screens the warehouse crew use on a phone: picking, receiving, moving, adjusting, an item, counts. */
+const onPhone = (r: WalkRoute) => r.area === 'warehouse' || ['stock-move', 'stock-adjust', 'stock-item'].includes(r.name) || /count/.test(r.name)
+
+async function checkDialog(route: string, clicks: string[], where: string) {
+  for (const c of clicks) await page.locator(c).first().click()
+  const dialog = page.locator(OPEN_DIALOG).first()
+  await dialog.waitFor()
+  await settle(page)
+  await check(`${route} dialog (${where})`)
+  dialogsChecked.add(route)
+  await page.keyboard.press('Escape')
+  await dialog.waitFor({ state: 'hidden' })
+  // source: WCAG 2.2 SC 2.4.3 Focus Order: closing a dialog returns focus to the control that opened it
+  const back = await page.evaluate((sel) => document.activeElement === document.querySelector(sel), clicks.at(-1)!)
+  if (!back) found.push({ where: `${route} dialog (${where})`, rule: 'focus-return', impact: 'serious', help: 'Focus returns to the opener when the dialog closes', nodes: 1, targets: [clicks.at(-1)!] })
+}
+
+/** Opens each screen of a role and checks it, at the phone width too for the warehouse crew. */
+async function walk(who: Role | 'signed-out') {
+  const routes = groups.get(who) ?? []
+  await context.clearCookies()
+  if (who === 'signed-out') await page.goto('/sign-in')
+  else await h.signIn(page, who)
+  const before = found.length
+  for (const route of routes) {
+    const path = await samples.pathFor(route)
+    const t = [Date.now()]
+    await openInApp(page, path)
+    t.push(Date.now())
+    await samples.harvest(page)
+    await check(`${route.name} (${path}, ${who}, desktop)`)
+    t.push(Date.now())
+    const dialog = DIALOGS[route.name]
+    if (dialog) await checkDialog(route.name, dialog, `${path}, ${who}`)
+    if (who === 'warehouse' && onPhone(route)) {
+      await page.setViewportSize(PHONE)
+      await settle(page)
+      t.push(Date.now())
+      await check(`${route.name} (${path}, ${who}, phone)`)
+      t.push(Date.now())
+      await page.setViewportSize(DESKTOP)
+    }
+    if (process.env.A11Y_TIMING) console.log('TIMING', route.name, t.slice(1).map((x, i) => x - t[i]).join(' '))
+    visited.add(route.name)
+  }
+  return blocking(found.slice(before))
+}
+
+describe('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
+  it('reads every named route from the router', () => {
+    expect([...groups.values()].flat().length).toBeGreaterThan(30)
+  })
+  // Each role's screens in its own test, so one role's findings don't hide another's.
+  for (const who of ['signed-out', 'warehouse', 'counter', 'buyer', 'admin'] as const) {
+    it(`finds no critical or serious violation on the screens of: ${who}`, async () => {
+      const bad = await walk(who)
+      expect(bad, describeFindings(bad)).toEqual([])
+    })
+  }
+  it('opened every main dialog', () => {
+    expect([...dialogsChecked].sort()).toEqual(Object.keys(DIALOGS).sort())
+  })
+  it('visited every route, and the page for an address that leads nowhere', async () => {
+    await openInApp(page, '/no-such-page')
+    await check('not-found (desktop)')
+    const all = [...groups.values()].flat().map((r) => r.name)
+    expect(all.filter((n) => !visited.has(n))).toEqual([])
+    const bad = blocking(found.filter((f) => f.where.startsWith('not-found')))
+    expect(bad, describeFindings(bad)).toEqual([])
+  })
+})

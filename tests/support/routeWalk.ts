@@ -1,0 +1,196 @@
+// A walk over every screen the client's router knows, read from the router itself in the browser, so a
+// new route is visited without anyone listing it here. Shared by the browser tests that must hold on
+// every screen (accessibility, languages).
+//
+// A route with parameters (`/counter/jobs/:id`) needs a real record: the walk takes the first link to
+// that route it met on an earlier screen, else a record from the database (SAMPLE_SQL). A parameterised
+// route with neither makes the walk fail with the route's name, never pass it by.
+import type { Page } from 'playwright-core'
+import type { DataSource } from 'typeorm'
+import type { Role } from '../../shared/roles.js'
+
+export interface WalkRoute {
+  name: string
+  path: string
+  public: boolean
+  bare: boolean
+  area: string | null
+  roles: Role[] | null
+}
+
+interface RouterLike {
+  getRoutes(): { name?: unknown; path: string; aliasOf?: unknown; meta: Record<string, unknown> }[]
+  resolve(to: string): { name?: unknown; matched: unknown[] }
+  push(to: string): Promise<unknown>
+  currentRoute: { value: { fullPath: string; name?: unknown } }
+}
+declare global {
+  interface Window {
+    __lumenyardWalk?: { router: RouterLike }
+  }
+}
+
+/** The router of the mounted app (Vue keeps the app on its container element, in production builds too). */
+const ROUTER_IN_PAGE = `(() => {
+  const app = document.querySelector('#app').__vue_app__
+  return app.config.globalProperties.$router
+})()`
+
+/** Every named route of the client's router, aliases and the catch-all left out. */
+export async function routeTable(page: Page): Promise<WalkRoute[]> {
+  return page.evaluate((src) => {
+    const router = (0, eval)(src) as RouterLike
+    return router
+      .getRoutes()
+      .filter((r) => !r.aliasOf && typeof r.name === 'string' && !r.path.includes('(.*)'))
+      .map((r) => ({
+        name: r.name as string,
+        path: r.path,
+        public: r.meta.public === true,
+        bare: r.meta.bare === true,
+        area: (r.meta.area as string | undefined) ?? null,
+        roles: (r.meta.roles as Role[] | undefined) ?? null,
+      }))
+  }, ROUTER_IN_PAGE)
+}
+
+/**
+ * The role that uses a screen: the most specific role the route admits (the administrator only for screens
+ * nobody else may open), in the order the people who work there come first.
+ */
+const ROLE_PREFERENCE: readonly Role[] = ['warehouse', 'counter', 'buyer', 'viewer', 'admin']
+export function roleFor(route: WalkRoute): Role {
+  if (!route.roles) return 'counter'
+  return ROLE_PREFERENCE.find((r) => route.roles!.includes(r)) ?? 'admin'
+}
+
+/** Records for parameterised routes that no earlier screen links to (the first one of each kind in the demo). */
+const SAMPLE_SQL: Record<string, string> = {
+  'counter-job': 'SELECT MIN(job_id) AS id FROM takeoffs',
+  'counter-takeoff': 'SELECT MIN(id) AS id FROM takeoffs',
+  'counter-bom': 'SELECT MIN(id) AS id FROM boms',
+  'counter-pick-new': 'SELECT MIN(id) AS bomId FROM boms',
+  'counter-pick-list': 'SELECT MIN(id) AS id FROM pick_lists',
+  'warehouse-pick': "SELECT MIN(id) AS id FROM pick_lists WHERE status IN ('released', 'picking')",
+  'warehouse-pick-sheet': 'SELECT MIN(id) AS id FROM pick_lists',
+  'warehouse-receive': "SELECT MIN(id) AS id FROM purchase_orders WHERE status IN ('sent', 'partly_received')",
+  'purchasing-order': 'SELECT MIN(id) AS id FROM purchase_orders',
+  'purchasing-vendor': 'SELECT MIN(id) AS id FROM vendors',
+  'stock-item': 'SELECT MIN(id) AS id FROM items',
+  'stock-item-edit': 'SELECT MIN(id) AS id FROM items',
+}
+
+export class RouteSamples {
+  private readonly fromLinks = new Map<string, string>()
+  constructor(private readonly ds: DataSource) {}
+
+  /** Notes the first link to every route on the page (its own href, resolved by the router). */
+  async harvest(page: Page): Promise<void> {
+    const found = await page.evaluate((src) => {
+      const router = (0, eval)(src) as RouterLike
+      const out: [string, string][] = []
+      for (const a of Array.from(document.querySelectorAll<HTMLAnchorElement>('a[href^="/"]'))) {
+        const href = a.getAttribute('href')!
+        const r = router.resolve(href)
+        if (typeof r.name === 'string' && r.matched.length) out.push([r.name, href])
+      }
+      return out
+    }, ROUTER_IN_PAGE)
+    for (const [name, href] of found) if (!this.fromLinks.has(name)) this.fromLinks.set(name, href.split('#')[0])
+  }
+
+  /** The address to open for a route: as it is, from a link seen, or filled from the database. */
+  async pathFor(route: WalkRoute): Promise<string> {
+    if (!route.path.includes(':')) return route.path
+    const linked = this.fromLinks.get(route.name)
+    if (linked) return linked
+    const sql = SAMPLE_SQL[route.name]
+    if (!sql) throw new Error(`No record to open route "${route.name}" (${route.path}): link to it from a list, or give it a query in tests/support/routeWalk.ts`)
+    const [row] = (await this.ds.query(sql)) as Record<string, unknown>[]
+    let path = route.path
+    for (const [param, value] of Object.entries(row ?? {})) {
+      if (value == null) continue
+      path = path.replace(new RegExp(`:${param}(\\([^)]*\\))?`), String(value))
+    }
+    if (path.includes(':')) throw new Error(`The demo data has no record for route "${route.name}" (${route.path})`)
+    return path
+  }
+}
+
+/**
+ * Opens an address inside the running app (the router, no page load), then waits until the page has
+ * settled: the route is current, no request is in flight for a moment, and no loading mask shows.
+ */
+export async function openInApp(page: Page, path: string): Promise<void> {
+  const inFlight = trackRequests(page)
+  try {
+    await page.evaluate(
+      async ([src, to]) => {
+        const router = (0, eval)(src) as RouterLike
+        await router.push(to)
+      },
+      [ROUTER_IN_PAGE, path] as const,
+    )
+    await settle(page, inFlight).catch((e: Error) => {
+      throw new Error(`${path} did not settle: ${e.message}`)
+    })
+  } finally {
+    inFlight.stop()
+  }
+}
+
+interface RequestTracker {
+  count(): number
+  stop(): void
+}
+
+function trackRequests(page: Page): RequestTracker {
+  let n = 0
+  const up = () => n++
+  const down = () => n--
+  page.on('request', up)
+  page.on('requestfinished', down)
+  page.on('requestfailed', down)
+  return {
+    count: () => n,
+    stop() {
+      page.off('request', up)
+      page.off('requestfinished', down)
+      page.off('requestfailed', down)
+    },
+  }
+}
+
+// A mask on its way out (its fade's leave classes) no longer covers anything.
+const BUSY = '.el-loading-mask:not(.el-loading-fade-leave-active), .el-skeleton, .ag-overlay-loading-wrapper'
+
+/** Waits for no request in flight over two animation frames in a row and no loading mask or skeleton. */
+export async function settle(page: Page, tracker?: RequestTracker): Promise<void> {
+  const own = tracker ?? trackRequests(page)
+  try {
+    for (let quiet = 0; quiet < 3; ) {
+      await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => setTimeout(r, 50))))
+      quiet = own.count() <= 0 ? quiet + 1 : 0
+    }
+    // The grid keeps its (hidden) overlay in the page: only a loading mark that shows counts.
+    const shown = `Array.from(document.querySelectorAll('${BUSY}')).find((e) => e.checkVisibility())`
+    const busy = await page
+      .waitForFunction(`!(${shown})`, null, { timeout: 15_000 })
+      .then(() => null, () => page.evaluate(`(${shown})?.outerHTML.slice(0, 300)`))
+    if (busy) throw new Error(`still loading after 15 s: ${busy}`)
+  } finally {
+    if (!tracker) own.stop()
+  }
+}
+
+/** Every screen once, grouped by the role that uses it, public screens first. */
+export function byRole(routes: WalkRoute[]): Map<Role | 'signed-out', WalkRoute[]> {
+  const out = new Map<Role | 'signed-out', WalkRoute[]>()
+  for (const r of routes) {
+    const who = r.public ? 'signed-out' : roleFor(r)
+    out.set(who, [...(out.get(who) ?? []), r])
+  }
+  // Screens without parameters first, so their links supply the records for the rest.
+  for (const list of out.values()) list.sort((a, b) => Number(a.path.includes(':')) - Number(b.path.includes(':')))
+  return new Map([...out].sort(([a], [b]) => (a === 'signed-out' ? -1 : b === 'signed-out' ? 1 : 0)))
+}

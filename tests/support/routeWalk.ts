@@ -78,6 +78,8 @@ const SAMPLE_SQL: Record<string, string> = {
   'purchasing-vendor': 'SELECT MIN(id) AS id FROM vendors',
   'stock-item': 'SELECT MIN(id) AS id FROM items',
   'stock-item-edit': 'SELECT MIN(id) AS id FROM items',
+  'warehouse-count': "SELECT MIN(id) AS id FROM cycle_counts WHERE status = 'open'",
+  'warehouse-count-review': 'SELECT MIN(id) AS id FROM cycle_counts',
 }
 
 export class RouteSamples {
@@ -175,9 +177,9 @@ export async function settle(page: Page, tracker?: RequestTracker): Promise<void
     // The grid keeps its (hidden) overlay in the page: only a loading mark that shows counts.
     const shown = `Array.from(document.querySelectorAll('${BUSY}')).find((e) => e.checkVisibility())`
     const busy = await page
-      .waitForFunction(`!(${shown})`, null, { timeout: 15_000 })
+      .waitForFunction(`!(${shown})`, null, { timeout: 30_000 })
       .then(() => null, () => page.evaluate(`(${shown})?.outerHTML.slice(0, 300)`))
-    if (busy) throw new Error(`still loading after 15 s: ${busy}`)
+    if (busy) throw new Error(`still loading after 30 s: ${busy}`)
   } finally {
     if (!tracker) own.stop()
   }

@@ -19,6 +19,7 @@ export default {
   looseNote: 'Note',
   ruleText: 'Rule settings (JSON)',
   ruleInUse: 'Rule {id} in use',
+  binsCounted: 'Bins counted: {done} of {total}',
   packsOrdered: 'Packs ordered, line {n}',
   unitCost: 'Unit cost, line {n}',
 }

@@ -18,6 +18,7 @@ export default {
   looseNote: 'Nota',
   ruleText: 'Ajustes de la regla (JSON)',
   ruleInUse: 'Regla {id} en uso',
+  binsCounted: 'Ubicaciones contadas: {done} de {total}',
   packsOrdered: 'Paquetes pedidos, línea {n}',
   unitCost: 'Costo unitario, línea {n}',
 }

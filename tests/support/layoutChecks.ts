@@ -44,7 +44,7 @@ export async function targetSizes(page: Page): Promise<TargetSizes> {
     const seen = new Set<Element>()
     const out = { controls: 0, under44: [] as string[], under24: [] as string[] }
     for (const el of Array.from(document.querySelectorAll(selector))) {
-      const box = el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-switch') ?? el
+      const box = el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el
       if (seen.has(box) || !(box as HTMLElement).checkVisibility?.()) continue
       seen.add(box)
       const r = box.getBoundingClientRect()

@@ -145,7 +145,7 @@ describe('every export in a spreadsheet program', () => {
     expect(billPages.length).toBeLessThanOrEqual(2)
     // the PO's labels and note print whole
     const po = pdfPages(path.join(dir, 'pdf', 'po.pdf'))[0].replace(/\s+/g, ' ')
-    for (const label of ['Order date', 'Expected', 'Currency', 'Terms', 'Ship to']) expect(po).toContain(label)
+    for (const label of ['Order date', 'Wanted by', 'Currency', 'Terms', 'Ship to']) expect(po).toContain(label)
     expect(po).toContain('no loose blocks on the deck.')
     // Each line's description starts on its own row, beside its SKU: a wrapped description in a row that did not
     // grow would spill over the next row and push its text aside.

@@ -43,6 +43,9 @@ describe('reorder suggestions as the buyer', () => {
       expect(rows).toHaveLength(1)
       expect(rows[0]).toMatchObject({ vendor_id: fx.vendorId, status: 'accepted', source: 'reorder' })
       expect(rows[0].qty).toBeGreaterThan(0)
+      // What is accepted counts in the position, so the line leaves "order now"; under "all" it shows as pending.
+      await expect.poll(() => page.locator(rowId).count()).toBe(0)
+      await page.locator('[data-test="group-all"]').click()
       await expect.poll(() => pending.textContent()).toBe(String(rows[0].qty))
       await h.screenshot(page, 'reorder-accepted')
     } finally {

@@ -105,6 +105,8 @@ describe('warehouse screens on a phone, a tablet and a desktop', () => {
     await page.locator('[data-test="add-by-hand"]').click()
     await page.locator('.el-dropdown-menu__item:visible').first().click()
     await page.locator('[data-test="receipt-row"]').waitFor()
+    // The menu closes after the choice (measured while it was still fading, it reached past the screen's edge).
+    await expect.poll(() => page.locator('.el-dropdown__popper:visible').count()).toBe(0)
     expect(await check(null, '[data-test="receipt-rows"]', 'layout-receive-order')).toEqual(none)
   })
 })

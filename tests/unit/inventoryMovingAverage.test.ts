@@ -17,7 +17,6 @@ import {
 // Internal consistency by hand: 1,000 + 2,200 = 3,200; 3,200 + 3,600 = 6,800; 6,800 / 600 = 11.3333;
 // 550 × 11.3333 = 6,233.3 → $6,233; 6,800 − 6,233 = 567; 567 + 5,200 = 5,767; 5,767 / 450 = 12.8156 → 12.816.
 // Cost of goods sold + ending inventory = 6,233 + 5,767 = 12,000 = cost of goods available (1,000+2,200+3,600+5,200).
-// (The task brief's "$11.1333" cannot come from these inputs: 6,800 / 600 = 11.3333.)
 const houston: CostMove[] = [
   { kind: 'receipt', qty: 100, unitCost: '10.00' },
   { kind: 'receipt', qty: 200, unitCost: '11.00' },

@@ -4,9 +4,9 @@ import fc from 'fast-check'
 import { errorFunction, probit } from 'simple-statistics'
 import { zForServiceLevel } from '../../shared/inventory/reorder.js'
 
-// source: NIST/SEMATECH e-Handbook of Statistical Methods, §1.3.6.7.1 (standard normal table), quantiles to 4 places
-// as listed in the task brief — from memory; the handbook's own critical-value list shows 1.282, 1.645, 1.960,
-// 2.326, 3.090 (3 places) and agrees with these to its precision.
+// source: NIST/SEMATECH e-Handbook of Statistical Methods, §1.3.6.7.1 (cumulative distribution function of the
+// standard normal distribution), quantiles to 4 places — from memory; the handbook's critical-value list shows
+// 1.282, 1.645, 1.960, 2.326, 3.090 (3 places) and agrees with these to its precision.
 const table: Array<[number, number]> = [
   [0.9, 1.2816],
   [0.95, 1.6449],

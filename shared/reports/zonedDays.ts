@@ -48,7 +48,13 @@ export function monthsBetween(from: string, to: string, zone: string): { month: 
   return out
 }
 
+/** A function giving the calendar day (YYYY-MM-DD) an instant falls on in the zone; one formatter for many rows. */
+export function localDayOf(zone: string): (at: Date) => string {
+  const format = new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' })
+  return (at) => format.format(at)
+}
+
 /** The calendar day (YYYY-MM-DD) an instant falls on in the zone. */
 export function localDayIn(zone: string, at: Date): string {
-  return new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' }).format(at)
+  return localDayOf(zone)(at)
 }

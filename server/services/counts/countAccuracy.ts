@@ -4,14 +4,9 @@
 import type { DataSource } from 'typeorm'
 import { accuracyOf } from '../../../shared/counts/countVariance.js'
 import type { CountAccuracyQuery, CountAccuracyRow } from '../../../shared/schemas/counts.js'
+import { localDayOf } from '../../../shared/reports/zonedDays.js'
 
 const DAY_MS = 86_400_000
-
-/** The calendar day of an instant in a time zone, as YYYY-MM-DD. */
-export function localDay(zone: string): (at: Date) => string {
-  const format = new Intl.DateTimeFormat('en-CA', { timeZone: zone, year: 'numeric', month: '2-digit', day: '2-digit' })
-  return (at) => format.format(at)
-}
 
 export async function countAccuracy(ds: DataSource, q: CountAccuracyQuery): Promise<CountAccuracyRow[]> {
   // A day either side covers every time zone; the exact days are kept below.
@@ -23,7 +18,7 @@ export async function countAccuracy(ds: DataSource, q: CountAccuracyQuery): Prom
       WHERE l.status IN ('matched', 'approved') AND l.counted_at >= ? AND l.counted_at < ? ${q.warehouseId ? 'AND l.warehouse_id = ?' : ''}`,
     q.warehouseId ? [from, to, q.warehouseId] : [from, to],
   )
-  const dayOf = localDay(q.tz)
+  const dayOf = localDayOf(q.tz)
   const groups = new Map<string, { warehouseId: number; code: string; month: string; lines: { variance: number; unitCost: string | null }[] }>()
   for (const r of rows) {
     const day = dayOf(new Date(r.counted_at))

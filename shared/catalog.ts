@@ -43,6 +43,8 @@ export const MOVE_TYPES = [
   'transfer_in',
   'assembly',
   'return',
+  // Stock a business already held when it started on Lumenyard, brought in from its own sheets.
+  'opening',
 ] as const
 export type MoveType = (typeof MOVE_TYPES)[number]
 

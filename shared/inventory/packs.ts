@@ -62,3 +62,44 @@ export function palletHoldsWholeCases(packs: PackSizes): boolean {
   const caseSize = checkPackSize('case size', packs.case)
   return pallet === 0 || caseSize === 0 || pallet % caseSize === 0
 }
+
+/** Words a quantity cell may use for packs, in English and Spanish, singular and plural. */
+const PACK_WORDS: Record<string, 'case' | 'pallet' | 'each'> = {
+  case: 'case', cases: 'case', cs: 'case', caja: 'case', cajas: 'case',
+  pallet: 'pallet', pallets: 'pallet', plt: 'pallet', palé: 'pallet', palés: 'pallet', pale: 'pallet', pales: 'pallet', tarima: 'pallet', tarimas: 'pallet',
+  each: 'each', ea: 'each', unit: 'each', units: 'each', pc: 'each', pcs: 'each', unidad: 'each', unidades: 'each', u: 'each',
+}
+
+export type PackQuantity =
+  | { ok: true; qty: number }
+  | { ok: false; problem: 'whole_number' | 'not_negative' | 'unknown_pack' | 'no_case_size' | 'no_pallet_size' | 'invalid_format'; word?: string }
+
+/**
+ * A quantity as people write it in a stock sheet, in stock units: "240", "3 cases", "2 pallets 5 cases 12"
+ * or "1 palé + 3 cajas". Each part is a whole number, optionally followed by a pack word; a pack needs its
+ * size on the item. Fractions and negatives are refused (stock is counted in whole stock units).
+ */
+export function parsePackQuantity(text: string, packs: PackSizes): PackQuantity {
+  const parts = text.trim().toLowerCase().replace(/\+/g, ' ').split(/\s+/).filter(Boolean)
+  if (!parts.length) return { ok: false, problem: 'invalid_format' }
+  let qty = 0
+  for (let i = 0; i < parts.length; i++) {
+    const n = parts[i]
+    if (/^-/.test(n)) return { ok: false, problem: 'not_negative' }
+    if (/^\d+[.,]\d+$/.test(n)) return { ok: false, problem: 'whole_number' }
+    if (!/^\d+$/.test(n)) return { ok: false, problem: 'invalid_format' }
+    const next = parts[i + 1]
+    const word = next !== undefined && !/^[-\d]/.test(next) ? next : null
+    let size = 1
+    if (word !== null) {
+      i++
+      const kind = PACK_WORDS[word]
+      if (!kind) return { ok: false, problem: 'unknown_pack', word }
+      if (kind === 'case') size = packs.case && packs.case > 1 ? packs.case : 0
+      if (kind === 'pallet') size = packs.pallet && packs.pallet > 1 ? packs.pallet : 0
+      if (size === 0) return { ok: false, problem: kind === 'case' ? 'no_case_size' : 'no_pallet_size' }
+    }
+    qty += Number(n) * size
+  }
+  return Number.isSafeInteger(qty) ? { ok: true, qty } : { ok: false, problem: 'invalid_format' }
+}

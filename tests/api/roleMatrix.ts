@@ -39,6 +39,12 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/items/import/template.xlsx': { access: ['admin'] },
   'POST /api/items/import/preview': { access: ['admin'] },
   'POST /api/items/import/commit': { access: ['admin'] },
+  // Bringing a business's own data in (opening stock, …): administrators only.
+  'GET /api/imports': { access: ['admin'] },
+  'GET /api/imports/:kind/template.xlsx': { access: ['admin'] },
+  'POST /api/imports/:kind/preview': { access: ['admin'] },
+  'POST /api/imports/:kind/commit': { access: ['admin'] },
+  'POST /api/imports/:id/reverse': { access: ['admin'] },
   'GET /api/items/:id': { access: EVERYONE, costs: '/api/items/{item}' },
   'POST /api/items': { access: ['admin'] },
   'PATCH /api/items/:id': { access: ['admin'] },

@@ -1,7 +1,7 @@
 // Pack conversions (shared/inventory/packs.ts).
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { fromPacks, palletHoldsWholeCases, roundUpToPack, toPacks } from '../../shared/inventory/packs.js'
+import { fromPacks, palletHoldsWholeCases, parsePackQuantity, roundUpToPack, toPacks } from '../../shared/inventory/packs.js'
 
 // Pack sizes here are demo values (cases of 8 blocks, pallets of 32 cases), not a maker's data.
 const blocks = { case: 8, pallet: 256 }
@@ -61,5 +61,31 @@ describe('pack checks', () => {
     expect(palletHoldsWholeCases({ case: 6, pallet: 100 })).toBe(false)
     expect(palletHoldsWholeCases({ pallet: 100 })).toBe(true)
     expect(() => fromPacks({ pallets: 1, cases: 0, each: 0 }, { case: 8 })).toThrow(RangeError)
+  })
+})
+
+describe('parsePackQuantity (a stock sheet\'s quantity cell)', () => {
+  it('reads plain units and packs, in English and Spanish', () => {
+    // hand-worked with the demo sizes above: 3 cases = 3 × 8 = 24; 1 pallet 2 cases 5 = 256 + 16 + 5 = 277
+    expect(parsePackQuantity('240', blocks)).toEqual({ ok: true, qty: 240 })
+    expect(parsePackQuantity('3 cases', blocks)).toEqual({ ok: true, qty: 24 })
+    expect(parsePackQuantity(' 1 pallet 2 Cases 5 ', blocks)).toEqual({ ok: true, qty: 277 })
+    expect(parsePackQuantity('1 palé + 2 cajas', blocks)).toEqual({ ok: true, qty: 272 })
+    expect(parsePackQuantity('0', blocks)).toEqual({ ok: true, qty: 0 })
+    // And agrees with fromPacks for any breakdown.
+    fc.assert(fc.property(fc.nat(50), fc.nat(50), fc.nat(500), (p, c, e) =>
+      parsePackQuantity(`${p} pallets ${c} cases ${e}`, blocks).ok && (parsePackQuantity(`${p} pallets ${c} cases ${e}`, blocks) as { qty: number }).qty === fromPacks({ pallets: p, cases: c, each: e }, blocks)))
+  })
+
+  it('refuses fractions, negatives, unknown words and packs the item has no size for', () => {
+    // common practice: stock is counted in whole stock units
+    expect(parsePackQuantity('2.5', blocks)).toMatchObject({ ok: false, problem: 'whole_number' })
+    expect(parsePackQuantity('1,5', blocks)).toMatchObject({ ok: false, problem: 'whole_number' })
+    expect(parsePackQuantity('-4', blocks)).toMatchObject({ ok: false, problem: 'not_negative' })
+    expect(parsePackQuantity('3 crates', blocks)).toEqual({ ok: false, problem: 'unknown_pack', word: 'crates' })
+    expect(parsePackQuantity('3 cases', { pallet: 100 })).toMatchObject({ ok: false, problem: 'no_case_size' })
+    expect(parsePackQuantity('1 pallet', { case: 12 })).toMatchObject({ ok: false, problem: 'no_pallet_size' })
+    expect(parsePackQuantity('a dozen', blocks)).toMatchObject({ ok: false, problem: 'invalid_format' })
+    expect(parsePackQuantity('', blocks)).toMatchObject({ ok: false, problem: 'invalid_format' })
   })
 })

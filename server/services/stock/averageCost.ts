@@ -11,7 +11,7 @@ import { AppError } from '../../errors.js'
 import { groupKey, type WarehouseGroup } from './balanceLocks.js'
 
 /** Moves that blend their unit cost into the receiving warehouse's average. */
-export const COSTED_IN: ReadonlySet<MoveType> = new Set<MoveType>(['receipt', 'transfer_in'])
+export const COSTED_IN: ReadonlySet<MoveType> = new Set<MoveType>(['receipt', 'transfer_in', 'opening'])
 
 /** Creates missing cost rows and locks them all exclusively, in (item, warehouse) order. Returns the averages. */
 export async function lockCostRows(em: EntityManager, groups: readonly WarehouseGroup[]): Promise<Map<string, string>> {
@@ -53,9 +53,17 @@ export async function blendAverages(
     onHand.set(gk, step.after.onHand)
     changed.add(gk)
   }
-  for (const gk of changed) {
-    const [itemId, warehouseId] = gk.split(':').map(Number)
-    await em.update(ItemWarehouse, { itemId, warehouseId }, { avgCost: averages.get(gk)! })
+  await writeAverages(em, [...changed].map((gk) => [gk, averages.get(gk)!]))
+}
+
+/** Writes averages keyed by groupKey, many rows per statement (the rows are locked already). */
+export async function writeAverages(em: EntityManager, averages: readonly (readonly [string, string])[]): Promise<void> {
+  for (let i = 0; i < averages.length; i += 1000) {
+    const chunk = averages.slice(i, i + 1000)
+    await em.query(
+      `INSERT INTO item_warehouses (item_id, warehouse_id, avg_cost) VALUES ${chunk.map(() => '(?, ?, ?)').join(', ')} ON DUPLICATE KEY UPDATE avg_cost = VALUES(avg_cost)`,
+      chunk.flatMap(([gk, avg]) => [...gk.split(':').map(Number), avg]),
+    )
   }
 }
 

@@ -5,6 +5,7 @@ export default {
   warehousesBlurb: 'Sites, bin codes and the walking path pickers follow.',
   importTitle: 'Import items',
   importBlurb: 'Add or update catalog items from a spreadsheet, checked before anything is saved.',
+  dataImportBlurb: 'What you hold now and what you kept before Lumenyard: stock by bin and lot at cost, and more.',
   takeoffTitle: 'Takeoff rules',
   takeoffBlurb: 'Material rules, waste allowances and which catalog item fills each role.',
   purchasingTitle: 'Purchasing settings',

@@ -31,9 +31,9 @@ export default {
   },
   moveTypes: {
     receipt: 'Received', issue: 'Issued', pick: 'Picked', adjustment: 'Adjusted', count: 'Counted', bin_move: 'Bin move',
-    transfer_out: 'Shipped out', transfer_in: 'Arriving', assembly: 'Assembled', return: 'Returned',
+    transfer_out: 'Shipped out', transfer_in: 'Arriving', assembly: 'Assembled', return: 'Returned', opening: 'Opening stock',
   },
-  docKinds: { purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job' },
+  docKinds: { purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job', data_import: 'Import' },
   reasons: { damaged: 'Damaged', found: 'Found', counted: 'Counted', written_off: 'Written off' },
   binKinds: { storage: 'storage', receiving: 'receiving dock', staging: 'staging', transit: 'on the way' },
   overview: {

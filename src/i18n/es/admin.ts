@@ -5,6 +5,7 @@ export default {
   warehousesBlurb: 'Sitios, códigos de ubicación y el recorrido que siguen quienes preparan pedidos.',
   importTitle: 'Importar artículos',
   importBlurb: 'Agregar o actualizar artículos del catálogo desde una hoja de cálculo, revisada antes de guardar nada.',
+  dataImportBlurb: 'Lo que tiene ahora y lo que llevaba antes de Lumenyard: existencia por ubicación y lote con su costo, y más.',
   takeoffTitle: 'Reglas de cálculo de materiales',
   takeoffBlurb: 'Reglas de materiales, márgenes de desperdicio y qué artículo del catálogo cumple cada función.',
   purchasingTitle: 'Ajustes de compras',

@@ -32,9 +32,9 @@ export default {
   },
   moveTypes: {
     receipt: 'Recibido', issue: 'Entregado', pick: 'Preparado', adjustment: 'Ajustado', count: 'Contado', bin_move: 'Cambio de ubicación',
-    transfer_out: 'Enviado', transfer_in: 'Llegando', assembly: 'Armado', return: 'Devuelto',
+    transfer_out: 'Enviado', transfer_in: 'Llegando', assembly: 'Armado', return: 'Devuelto', opening: 'Existencia inicial',
   },
-  docKinds: { purchase_order: 'Orden de compra', pick_list: 'Lista de preparación', pick_transfer: 'Lista de preparación', transfer: 'Traslado', job: 'Obra' },
+  docKinds: { purchase_order: 'Orden de compra', pick_list: 'Lista de preparación', pick_transfer: 'Lista de preparación', transfer: 'Traslado', job: 'Obra', data_import: 'Importación' },
   reasons: { damaged: 'Dañado', found: 'Encontrado', counted: 'Contado', written_off: 'Dado de baja' },
   binKinds: { storage: 'almacenaje', receiving: 'muelle de recepción', staging: 'preparación', transit: 'en camino' },
   overview: {

@@ -32,4 +32,10 @@ export const adminRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/admin/PurchasingSettingsView.vue'),
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'purchasing.settingsTitle' },
   },
+  {
+    path: '/admin/imports',
+    name: 'admin-imports',
+    component: () => import('@/views/golive/DataImportView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'golive.imports.title' },
+  },
 ]

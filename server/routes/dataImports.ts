@@ -1,0 +1,48 @@
+// A business's own data coming in (opening stock and the kinds that follow): templates, a check that
+// writes nothing, the commit, the list of what was imported, and reversing an import as a whole.
+// Administrators only: these write the whole business's stock and records at once.
+import { ADMIN_ONLY } from '../../shared/roles.js'
+import { isDataImportKind, type DataImportKind } from '../../shared/schemas/dataImports.js'
+import { actorOf, type AppContext } from '../context.js'
+import { AppError } from '../errors.js'
+import { defineRoutes } from '../http/routeTable.js'
+import { idParam } from '../http/validate.js'
+import { sendXlsx } from '../services/exports/xlsxWriter.js'
+import { commitImport, listImports, previewImport, reverseImport } from '../services/imports/dataImports.js'
+import { DATA_IMPORTS, dataImportTemplate } from '../services/imports/dataImportKinds.js'
+import { receiveUpload } from '../services/imports/uploadGuard.js'
+
+const admin = { roles: ADMIN_ONLY }
+
+function kindOf(value: string | string[] | undefined): DataImportKind {
+  const kind = Array.isArray(value) ? value[0] : value
+  if (!kind || !isDataImportKind(kind)) throw AppError.notFound('import_kind_unknown', `There is no import called ${String(kind).slice(0, 40)}.`)
+  return kind
+}
+
+export default (ctx: AppContext) =>
+  defineRoutes('/imports', [
+    { method: 'get', path: '/', access: admin, handler: () => listImports(ctx.ds) },
+    {
+      method: 'get', path: '/:kind/template.xlsx', access: admin,
+      handler: async (req, res) => {
+        const kind = kindOf(req.params.kind)
+        sendXlsx(res, `lumenyard-${kind.replace(/_/g, '-')}-template.xlsx`, await dataImportTemplate(kind))
+      },
+    },
+    {
+      method: 'post', path: '/:kind/preview', access: admin,
+      handler: async (req, res) => {
+        const kind = kindOf(req.params.kind)
+        return previewImport(ctx.ds, DATA_IMPORTS[kind], await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes }))
+      },
+    },
+    {
+      method: 'post', path: '/:kind/commit', access: admin,
+      handler: async (req, res) => {
+        const kind = kindOf(req.params.kind)
+        return commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes }))
+      },
+    },
+    { method: 'post', path: '/:id/reverse', access: admin, handler: (req) => reverseImport(ctx.ds, actorOf(req), DATA_IMPORTS, idParam(req.params.id, 'That import')) },
+  ])

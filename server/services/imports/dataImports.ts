@@ -1,0 +1,126 @@
+// One way for every import of a business's own data (opening stock, and the kinds that follow): the
+// shared parser reads the upload (imports/spreadsheetParser.ts), the kind checks every row and reports
+// every problem in one pass, and a commit writes everything in one transaction or nothing. Each commit
+// leaves a record (who, when, file, rows, checksum); the same file committed again while its record
+// stands changes nothing; a kind that can, reverses an import as a whole.
+import { createHash } from 'node:crypto'
+import type { DataSource, EntityManager } from 'typeorm'
+import type { DataImportKind, DataImportPreview, DataImportRecord, DataImportResult, DataImportRow } from '../../../shared/schemas/dataImports.js'
+import { inTransaction } from '../../db/transaction.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import type { ImportSpec, ParsedSheet } from './importTypes.js'
+import { parseSpreadsheet } from './spreadsheetParser.js'
+import type { GuardedUpload } from './uploadGuard.js'
+
+export interface CheckedRow<W> {
+  preview: DataImportRow
+  /** What to write; null for a row with problems or nothing to write. */
+  write: W | null
+}
+
+export interface DataImportDefinition<W> {
+  kind: DataImportKind
+  spec: ImportSpec
+  /** Every row against the database and the other rows; nothing is written. */
+  check(em: EntityManager, sheet: ParsedSheet): Promise<CheckedRow<W>[]>
+  /** Writes the good rows inside the commit's transaction; answers counts for the record. */
+  write(em: EntityManager, actor: AuditActor, importId: number, rows: W[]): Promise<Record<string, number>>
+  /** Takes a committed import back whole, or refuses when something else has touched what it wrote. */
+  reverse(em: EntityManager, actor: AuditActor, importId: number): Promise<void>
+}
+
+export const checksumOf = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')
+
+interface RecordRow {
+  id: number; kind: DataImportKind; file_name: string; checksum: string; row_count: number; created_at: Date
+  by_name: string | null; reversed_at: Date | null; reversed_by_name: string | null; summary: string | null
+}
+
+const RECORD_SQL = `SELECT d.id, d.kind, d.file_name, d.checksum, d.row_count, d.created_at, u.display_name AS by_name, d.reversed_at,
+  r.display_name AS reversed_by_name, d.summary FROM data_imports d LEFT JOIN users u ON u.id = d.user_id LEFT JOIN users r ON r.id = d.reversed_by`
+
+const toRecord = (r: RecordRow): DataImportRecord => ({
+  id: r.id, kind: r.kind, fileName: r.file_name, checksum: r.checksum, rows: r.row_count, at: new Date(r.created_at).toISOString(),
+  byName: r.by_name, reversedAt: r.reversed_at ? new Date(r.reversed_at).toISOString() : null, reversedByName: r.reversed_by_name,
+  summary: r.summary ? (JSON.parse(r.summary) as Record<string, number>) : null,
+})
+
+/** The live (not reversed) record of this kind and checksum; a locking read inside a commit sees the latest. */
+async function liveRecord(em: EntityManager, kind: DataImportKind, checksum: string, locking = false): Promise<DataImportRecord | null> {
+  const rows: RecordRow[] = await em.query(`${RECORD_SQL} WHERE d.kind = ? AND d.live_checksum = ?${locking ? ' LOCK IN SHARE MODE' : ''}`, [kind, checksum])
+  return rows[0] ? toRecord(rows[0]) : null
+}
+
+export async function findImport(em: EntityManager | DataSource, id: number): Promise<DataImportRecord> {
+  const rows: RecordRow[] = await em.query(`${RECORD_SQL} WHERE d.id = ?`, [id])
+  if (!rows[0]) throw AppError.notFound('import_not_found', `Import ${id} was not found.`)
+  return toRecord(rows[0])
+}
+
+export async function listImports(ds: DataSource): Promise<DataImportRecord[]> {
+  const rows: RecordRow[] = await ds.query(`${RECORD_SQL} ORDER BY d.id DESC LIMIT 200`)
+  return rows.map(toRecord)
+}
+
+function summarise<W>(def: DataImportDefinition<W>, filename: string, checked: CheckedRow<W>[], repeatOf: DataImportRecord | null): DataImportPreview {
+  const bad = checked.filter((c) => c.preview.errors.length)
+  const good = checked.filter((c) => !c.preview.errors.length)
+  return {
+    kind: def.kind,
+    filename,
+    total: checked.length,
+    ready: good.filter((c) => c.write !== null).length,
+    skipped: good.filter((c) => c.write === null).length,
+    errorRows: bad.length,
+    rows: [...bad.slice(0, 1000), ...good.slice(0, 100)].map((c) => c.preview),
+    repeatOf,
+  }
+}
+
+export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportPreview> {
+  const sheet = await parseSpreadsheet(upload, def.spec)
+  const repeatOf = await liveRecord(ds.manager, def.kind, checksumOf(upload.data))
+  return summarise(def, upload.filename, await def.check(ds.manager, sheet), repeatOf)
+}
+
+export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportResult> {
+  const sheet = await parseSpreadsheet(upload, def.spec)
+  const checksum = checksumOf(upload.data)
+  return inTransaction(ds, async (em) => {
+    // The record first: a second commit of the same file waits on its unique key, then finds it taken.
+    const inserted: { insertId: number; affectedRows: number } = await em.query(
+      'INSERT IGNORE INTO data_imports (kind, file_name, checksum, live_checksum, row_count, user_id) VALUES (?, ?, ?, ?, ?, ?)',
+      [def.kind, upload.filename.slice(0, 255), checksum, checksum, sheet.rows.length, actor.userId],
+    )
+    if (!inserted.affectedRows) {
+      const record = await liveRecord(em, def.kind, checksum, true)
+      if (!record) throw new Error('data import record neither written nor found')
+      return { ...summarise(def, upload.filename, [], record), total: record.rows, record, repeated: true }
+    }
+    const importId = inserted.insertId
+    const checked = await def.check(em, sheet)
+    const summary = summarise(def, upload.filename, checked, null)
+    if (summary.errorRows) {
+      const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
+      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
+    }
+    if (!summary.ready) throw AppError.unprocessable('import_nothing_to_write', 'The file holds no rows to import; nothing was imported.')
+    const counts = await def.write(em, actor, importId, checked.flatMap((c) => (c.write === null ? [] : [c.write])))
+    await em.query('UPDATE data_imports SET summary = ? WHERE id = ?', [JSON.stringify(counts), importId])
+    await audit(em, actor, 'data_import.commit', 'data_import', importId, { kind: def.kind, file: upload.filename, checksum, rows: summary.total, ...counts })
+    return { ...summary, record: await findImport(em, importId), repeated: false }
+  })
+}
+
+export async function reverseImport(ds: DataSource, actor: AuditActor, defs: Record<DataImportKind, DataImportDefinition<unknown>>, id: number): Promise<DataImportRecord> {
+  return inTransaction(ds, async (em) => {
+    const [row]: { kind: DataImportKind; reversed_at: Date | null }[] = await em.query('SELECT kind, reversed_at FROM data_imports WHERE id = ? FOR UPDATE', [id])
+    if (!row) throw AppError.notFound('import_not_found', `Import ${id} was not found.`)
+    if (row.reversed_at) throw AppError.conflict('import_already_reversed', `Import ${id} was already reversed.`)
+    await defs[row.kind].reverse(em, actor, id)
+    await em.query('UPDATE data_imports SET reversed_at = CURRENT_TIMESTAMP(3), reversed_by = ?, live_checksum = NULL WHERE id = ?', [actor.userId, id])
+    await audit(em, actor, 'data_import.reverse', 'data_import', id, { kind: row.kind })
+    return findImport(em, id)
+  })
+}

@@ -1,0 +1,178 @@
+// Opening stock from the business's own sheet: SKU, warehouse, bin, lot (required where the item is
+// matched by lot), quantity in the item's stock unit (packs allowed: "3 cases") and unit cost. Written
+// through the stock service (stock/openingStock.ts) as 'opening' moves of the import's document.
+import type { EntityManager } from 'typeorm'
+import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
+import { parsePackQuantity } from '../../../shared/inventory/packs.js'
+import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
+import type { AuditActor } from '../auditService.js'
+import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
+import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import type { ImportSpec, ParsedSheet } from './importTypes.js'
+
+export const OPENING_STOCK_SPEC: ImportSpec = {
+  columns: [
+    { key: 'sku', header: 'SKU', aliases: ['Item SKU'], required: true, kind: 'text' },
+    { key: 'warehouse', header: 'Warehouse', aliases: ['Warehouse code'], required: true, kind: 'text' },
+    { key: 'bin', header: 'Bin', aliases: ['Bin code', 'Location'], required: true, kind: 'text' },
+    { key: 'lot', header: 'Lot', aliases: ['Production lot', 'Lot code'], kind: 'text' },
+    { key: 'quantity', header: 'Quantity', aliases: ['Qty', 'On hand'], required: true, kind: 'text' },
+    { key: 'unitCost', header: 'Unit cost', aliases: ['Cost', 'Cost per stock unit'], required: true, kind: 'decimal' },
+  ],
+  ignore: ['Name', 'Item', 'Stock unit', 'Value', 'Description', 'Note'],
+  maxRows: 100_000,
+  maxColumns: 30,
+}
+
+/** What each column takes, for the template's guide sheet. */
+export const OPENING_STOCK_GUIDE: Record<string, string> = {
+  sku: 'An item already in the catalog (import items first).',
+  warehouse: 'A warehouse code, as set up under Warehouses.',
+  bin: 'A storage, receiving or staging bin of that warehouse (not an on-the-way bin).',
+  lot: 'The production lot. Required for items matched by lot (blocks: one job is picked from one run, so the tint matches).',
+  quantity: 'Whole stock units, or packs: "240", "3 cases", "1 pallet 2 cases 5" (the item\'s case and pallet sizes). A 0 row is skipped.',
+  unitCost: 'What one stock unit cost you, up to 4 decimals. The moving-average cost starts from it.',
+}
+
+interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
+interface BinFacts { id: number; warehouse_id: number; code: string; kind: string; active: number }
+type Write = OpeningLine & { lotCode: string | null; row: number }
+
+const HEADER = new Map(OPENING_STOCK_SPEC.columns.map((c) => [c.key, c.header]))
+const col = (key: string) => HEADER.get(key) ?? key
+
+async function inChunks<T>(values: readonly unknown[], read: (chunk: unknown[]) => Promise<T[]>): Promise<T[]> {
+  const out: T[] = []
+  for (let i = 0; i < values.length; i += 1000) out.push(...(await read(values.slice(i, i + 1000))))
+  return out
+}
+
+const marks = (n: number) => Array.from({ length: n }, () => '?').join(', ')
+const text = (v: unknown) => (typeof v === 'string' ? v.trim() : v === null || v === undefined ? '' : String(v))
+
+async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
+  const distinct = (key: string) => [...new Set(sheet.rows.map((r) => text(r.values[key])).filter(Boolean))]
+  const items = await inChunks(distinct('sku'), (c) => em.query(`SELECT id, sku, match_lot, made_to_order, case_qty, pallet_qty FROM items WHERE sku IN (${marks(c.length)})`, c) as Promise<ItemFacts[]>)
+  const warehouses: { id: number; code: string; active: number }[] = await em.query('SELECT id, code, active FROM warehouses')
+  const bins = await inChunks(distinct('bin'), (c) => em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE code IN (${marks(c.length)})`, c) as Promise<BinFacts[]>)
+  const binsByCode = new Map<string, BinFacts[]>()
+  for (const b of bins) binsByCode.set(b.code.toUpperCase(), [...(binsByCode.get(b.code.toUpperCase()) ?? []), b])
+  return {
+    item: new Map(items.map((i) => [i.sku, i])),
+    warehouse: new Map(warehouses.map((w) => [w.code.toUpperCase(), w])),
+    warehouseCode: new Map(warehouses.map((w) => [w.id, w.code])),
+    binsByCode,
+  }
+}
+
+function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFacts>>): CheckedRow<Write>[] {
+  const seen = new Map<string, number>()
+  return sheet.rows.map((r) => {
+    const errors: RowProblem[] = sheet.issues.filter((i) => i.row === r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+    const bad = new Set(sheet.issues.filter((i) => i.row === r.row).map((i) => i.column))
+    const add = (key: string, p: RowProblem['problem']) => { errors.push({ column: col(key), problem: p }); bad.add(key) }
+    const sku = text(r.values.sku)
+    const item = sku ? facts.item.get(sku) : undefined
+    if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
+    if (item && Number(item.made_to_order)) add('sku', problem('import_made_to_order', { sku }))
+    const whCode = text(r.values.warehouse)
+    const warehouse = whCode ? facts.warehouse.get(whCode.toUpperCase()) : undefined
+    if (whCode && !warehouse) add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+    else if (warehouse && !Number(warehouse.active)) add('warehouse', problem('warehouse_inactive', { warehouse: warehouse.code }))
+    const binCode = text(r.values.bin)
+    const candidates = facts.binsByCode.get(binCode.toUpperCase()) ?? []
+    const bin = warehouse ? candidates.find((b) => b.warehouse_id === warehouse.id) : undefined
+    if (binCode && warehouse && !bin) {
+      const elsewhere = candidates.map((b) => facts.warehouseCode.get(b.warehouse_id)!).join(', ')
+      add('bin', elsewhere
+        ? problem('import_bin_other_warehouse', { bin: binCode, warehouse: warehouse.code, other: elsewhere })
+        : problem('import_bin_unknown', { bin: binCode, warehouse: warehouse.code }))
+    }
+    if (bin && (bin.kind === 'transit' || !Number(bin.active))) add('bin', problem('import_bin_not_storage', { bin: bin.code }))
+    const lotCode = text(r.values.lot) || null
+    if (lotCode && !LOT_CODE_PATTERN.test(lotCode)) add('lot', problem('lot_code_chars'))
+    if (!lotCode && item && Number(item.match_lot)) add('lot', problem('import_lot_required', { sku }))
+    let qty: number | null = null
+    const qtyText = text(r.values.quantity)
+    if (qtyText && item) {
+      const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
+      if (read.ok) qty = read.qty
+      else if (read.problem === 'whole_number') add('quantity', problem('import_qty_whole', { text: qtyText.slice(0, 40) }))
+      else if (read.problem === 'not_negative') add('quantity', problem('import_qty_negative', { text: qtyText.slice(0, 40) }))
+      else if (read.problem === 'unknown_pack') add('quantity', problem('import_qty_pack_word', { word: (read.word ?? '').slice(0, 20) }))
+      else if (read.problem === 'no_case_size') add('quantity', problem('import_qty_no_case', { sku }))
+      else if (read.problem === 'no_pallet_size') add('quantity', problem('import_qty_no_pallet', { sku }))
+      else add('quantity', problem('import_qty_unreadable', { text: qtyText.slice(0, 40) }))
+      if (qty !== null && qty > 1_000_000_000) add('quantity', problem('at_most', { max: 1_000_000_000 }))
+    }
+    const cost = typeof r.values.unitCost === 'string' ? r.values.unitCost : null
+    if (cost !== null && !bad.has('unitCost')) {
+      if (cost.startsWith('-')) add('unitCost', problem('not_negative'))
+      else if ((cost.split('.')[1] ?? '').length > 4) add('unitCost', problem('decimal_places', { places: 4 }))
+      else if (Number(cost) >= 100_000_000) add('unitCost', problem('less_than', { max: 100_000_000 }))
+    }
+    if (item && bin) {
+      const key = `${item.id}:${bin.id}:${(lotCode ?? '').toUpperCase()}`
+      const first = seen.get(key)
+      if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
+      else seen.set(key, r.row)
+    }
+    const place = warehouse && binCode ? `${warehouse.code} ${binCode}` : null
+    const preview = { row: r.row, label: sku || null, place, qty, unitCost: cost, errors }
+    if (errors.length || !item || !warehouse || !bin || qty === null || qty === 0 || cost === null) return { preview, write: null }
+    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, binId: bin.id, lotId: null, lotCode, qty, unitCost: cost, row: r.row, note: `row ${r.row}` } }
+  })
+}
+
+/** Lots named by the rows, found or made (in (item, code) order), their ids set on the rows. */
+async function settleLots(em: EntityManager, rows: Write[]): Promise<number> {
+  const wanted = [...new Map(rows.filter((r) => r.lotCode).map((r) => [`${r.itemId}:${r.lotCode}`, { itemId: r.itemId, code: r.lotCode! }])).values()]
+    .sort((a, b) => a.itemId - b.itemId || a.code.localeCompare(b.code))
+  if (!wanted.length) return 0
+  const today = new Date().toISOString().slice(0, 10)
+  let created = 0
+  for (let i = 0; i < wanted.length; i += 1000) {
+    const chunk = wanted.slice(i, i + 1000)
+    const res: { affectedRows: number } = await em.query(
+      `INSERT IGNORE INTO lots (item_id, code, received_at) VALUES ${chunk.map(() => '(?, ?, ?)').join(', ')}`,
+      chunk.flatMap((l) => [l.itemId, l.code, today]),
+    )
+    created += res.affectedRows
+  }
+  const ids = new Map<string, number>()
+  const itemIds = [...new Set(wanted.map((l) => l.itemId))]
+  for (let i = 0; i < itemIds.length; i += 1000) {
+    const chunk = itemIds.slice(i, i + 1000)
+    // A locking read: a lot another request made after this transaction's snapshot was skipped by INSERT IGNORE.
+    const found: { id: number; item_id: number; code: string }[] = await em.query(`SELECT id, item_id, code FROM lots WHERE item_id IN (${marks(chunk.length)}) LOCK IN SHARE MODE`, chunk)
+    for (const l of found) ids.set(`${l.item_id}:${l.code.toUpperCase()}`, l.id)
+  }
+  for (const r of rows) if (r.lotCode) r.lotId = ids.get(`${r.itemId}:${r.lotCode.toUpperCase()}`) ?? null
+  return created
+}
+
+export const openingStockImport: DataImportDefinition<Write> = {
+  kind: 'opening_stock',
+  spec: OPENING_STOCK_SPEC,
+  async check(em, sheet) {
+    return checkRows(sheet, await loadFacts(em, sheet))
+  },
+  async write(em, actor: AuditActor, importId, rows) {
+    const lotsCreated = await settleLots(em, rows)
+    const { costsBefore } = await bringInOpeningStock(em, actor, rows, { docType: 'data_import', docId: importId })
+    for (let i = 0; i < costsBefore.length; i += 1000) {
+      const chunk = costsBefore.slice(i, i + 1000)
+      await em.query(
+        `INSERT INTO data_import_costs (import_id, item_id, warehouse_id, avg_before, on_hand_before) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?)').join(', ')}`,
+        chunk.flatMap((c) => [importId, c.itemId, c.warehouseId, c.avgBefore, c.onHandBefore]),
+      )
+    }
+    return { lines: rows.length, units: rows.reduce((n, r) => n + r.qty, 0), lotsCreated }
+  },
+  async reverse(em, actor, importId) {
+    const costs: { item_id: number; warehouse_id: number; avg_before: string; on_hand_before: number }[] = await em.query(
+      'SELECT item_id, warehouse_id, avg_before, on_hand_before FROM data_import_costs WHERE import_id = ?', [importId])
+    const before: CostBefore[] = costs.map((c) => ({ itemId: c.item_id, warehouseId: c.warehouse_id, avgBefore: c.avg_before, onHandBefore: c.on_hand_before }))
+    await takeBackOpeningStock(em, actor, { docType: 'data_import', docId: importId }, before)
+  },
+}

@@ -1,0 +1,55 @@
+// A business's own data brought in from its sheets: the kinds of import, what a check answers (every
+// problem of every row), and the record each committed import leaves.
+import type { RowProblem } from '../errors/errorCodes.js'
+
+export const DATA_IMPORT_KINDS = ['opening_stock'] as const
+export type DataImportKind = (typeof DATA_IMPORT_KINDS)[number]
+
+export const isDataImportKind = (k: string): k is DataImportKind => (DATA_IMPORT_KINDS as readonly string[]).includes(k)
+
+export interface DataImportRow {
+  row: number
+  /** What the row is about, as the sheet says it (a SKU, an account code). */
+  label: string | null
+  /** Where it goes (a warehouse and bin, a vendor). */
+  place: string | null
+  /** The row's figure in stock units (opening stock: the quantity), when it reads. */
+  qty: number | null
+  /** Costs go by this name only (the server's cost rule). */
+  unitCost?: string | null
+  errors: RowProblem[]
+}
+
+export interface DataImportRecord {
+  id: number
+  kind: DataImportKind
+  fileName: string
+  checksum: string
+  rows: number
+  at: string
+  byName: string | null
+  reversedAt: string | null
+  reversedByName: string | null
+  summary: Record<string, number> | null
+}
+
+export interface DataImportPreview {
+  kind: DataImportKind
+  filename: string
+  total: number
+  /** Rows that will be written. */
+  ready: number
+  /** Rows read but with nothing to write (a zero quantity). */
+  skipped: number
+  errorRows: number
+  /** Rows with problems first (up to 1,000), then a sample of good rows. */
+  rows: DataImportRow[]
+  /** The same file was committed before (and not reversed): committing it again changes nothing. */
+  repeatOf: DataImportRecord | null
+}
+
+export interface DataImportResult extends DataImportPreview {
+  record: DataImportRecord
+  /** True when this commit found the file already imported and wrote nothing. */
+  repeated: boolean
+}

@@ -175,6 +175,9 @@ describe('opening stock import', () => {
     expect(now.moves).toBe(before.moves + 2) // the opening move and its reversal: the ledger keeps both
     expect(now.imports).toBe(before.imports + 1) // and the record stays, marked reversed
     await ledgerMatchesBalances()
+    // The stock value replays the ledger's costed moves: a reversal must not read as a receipt of minus units.
+    const value = await admin.get(`/api/reports/stock-valuation?warehouseId=${ids.w2}`)
+    expect(value.status, JSON.stringify(value.body)).toBe(200)
     const twice = await admin.post(`/api/imports/${commit.body.record.id}/reverse`).set(CSRF)
     expect([twice.status, twice.body.error.code]).toEqual([409, 'import_already_reversed'])
     const again = await send('commit', file)

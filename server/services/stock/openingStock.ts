@@ -88,7 +88,9 @@ async function insertMoves(em: EntityManager, actor: StockActor, lines: readonly
     await em.query(
       `INSERT INTO stock_moves (at, move_type, item_id, warehouse_id, bin_id, lot_id, qty, unit_cost, doc_type, doc_id, doc_line_id, reason, note, batch_id, user_id)
        VALUES ${chunk.map(() => "(?, 'opening', ?, ?, ?, ?, ?, ?, ?, ?, NULL, ?, ?, ?, ?)").join(', ')}`,
-      chunk.flatMap((l) => [at, l.itemId, l.warehouseId, l.binId, l.lotId, sign * l.qty, l.unitCost, doc.docType, doc.docId, reason, l.note ?? null, batchId, actor.userId]),
+      // A reversal carries no cost: it blends nothing (the averages are put back as they were), and the
+      // valuation replay reads only moves with a cost as blending ones.
+      chunk.flatMap((l) => [at, l.itemId, l.warehouseId, l.binId, l.lotId, sign * l.qty, sign > 0 ? l.unitCost : null, doc.docType, doc.docId, reason, l.note ?? null, batchId, actor.userId]),
     )
   }
   return batchId

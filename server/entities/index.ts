@@ -10,6 +10,7 @@ import { IdempotencyRecord } from './IdempotencyRecord.js'
 import { Item } from './Item.js'
 import { ItemWarehouse } from './ItemWarehouse.js'
 import { Lot } from './Lot.js'
+import { CustomerTerms, PriceLevel, PriceRuleRow, SalesTaxRate } from './Pricing.js'
 import { PickConfirmation, PickList, PickListLine, PickShortage, PickTransferProposal } from './PickList.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from './PurchaseReceipt.js'
@@ -25,6 +26,10 @@ import { Warehouse } from './Warehouse.js'
 import { Vendor, VendorItem } from './Vendor.js'
 
 export const allEntities = [
+  PriceLevel,
+  PriceRuleRow,
+  SalesTaxRate,
+  CustomerTerms,
   User,
   AuditEntry,
   Item,

@@ -266,6 +266,19 @@ export const ERROR_CODES = {
   short_at_most: ['max'],
   line_not_on_list: [],
 
+  // Selling prices, sales tax and accounts' terms
+  percent_format: [],
+  tax_rate_format: [],
+  price_rule_one_of: [],
+  pack_rule_needs_case: [],
+  exemption_needs_both: [],
+  price_level_code_taken: [],
+  price_level_in_use: ['accounts'],
+  price_rule_taken: [],
+  price_level_not_found: [],
+  price_rule_not_found: [],
+  customer_not_found: [],
+
   // Codes answered before each area had its own (kept until every area names its situations)
   bad_request: ['text'],
   not_found: ['text'],

@@ -79,6 +79,21 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/stock/places': { access: EVERYONE },
   'GET /api/stock/item-options': { access: EVERYONE },
   'GET /api/stock/lookup': { access: EVERYONE },
+  // Selling prices: the admin sets levels, price rules, tax per warehouse location and accounts' terms;
+  // the counter reads them and prices a list of items ("how much?").
+  'GET /api/pricing/levels': { access: ['admin', 'counter'] },
+  'POST /api/pricing/levels': { access: ['admin'] },
+  'PUT /api/pricing/levels/:id': { access: ['admin'] },
+  'DELETE /api/pricing/levels/:id': { access: ['admin'] },
+  'GET /api/pricing/rules': { access: ['admin', 'counter'] },
+  'POST /api/pricing/rules': { access: ['admin'] },
+  'DELETE /api/pricing/rules/:id': { access: ['admin'] },
+  'GET /api/pricing/tax-rates': { access: ['admin', 'counter'] },
+  'PUT /api/pricing/tax-rates/:warehouseId': { access: ['admin'] },
+  'GET /api/pricing/accounts': { access: ['admin', 'counter'] },
+  'GET /api/pricing/accounts/:customerId': { access: ['admin', 'counter'] },
+  'PUT /api/pricing/accounts/:customerId': { access: ['admin'] },
+  'POST /api/pricing/estimate': { access: ['admin', 'counter'] },
   // Counter: contractor accounts, jobs, takeoffs, bills (counter staff and admin; see DEVELOPERS.md).
   'GET /api/customers': { access: ['admin', 'counter'] },
   'POST /api/customers': { access: ['admin', 'counter'] },

@@ -304,6 +304,17 @@ export default {
   import_kind_unknown: 'There is no such import.',
   aborted: 'Stopped.',
 
+  percent_format: 'A percentage from 0 to 100, like 12.5',
+  tax_rate_format: 'A rate from 0 to 30 %, like 8.25',
+  price_rule_one_of: 'Give either a price or a percentage off list, not both',
+  pack_rule_needs_case: 'A case price needs an item sold by the case only',
+  exemption_needs_both: 'Give the certificate number and the date it expires together',
+  price_level_code_taken: 'Another price level already uses this code.',
+  price_level_in_use: '{accounts} account(s) still use this price level: move them to another first.',
+  price_rule_taken: 'This item already has a price for that level, quantity and basis.',
+  price_level_not_found: 'That price level was not found. It may have been removed.',
+  price_rule_not_found: 'That price rule was not found. It may have been removed.',
+  customer_not_found: 'That account was not found. It may have been removed.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {
     countStatus: { open: 'open', closed: 'closed', cancelled: 'cancelled' },

@@ -303,6 +303,17 @@ export default {
   import_kind_unknown: 'No existe esa importación.',
   aborted: 'Detenido.',
 
+  percent_format: 'Un porcentaje de 0 a 100, como 12.5',
+  tax_rate_format: 'Una tasa de 0 a 30 %, como 8.25',
+  price_rule_one_of: 'Indique un precio o un porcentaje de descuento sobre lista, no ambos',
+  pack_rule_needs_case: 'Un precio por caja requiere un artículo que se venda solo por caja',
+  exemption_needs_both: 'Indique juntos el número de certificado y su fecha de vencimiento',
+  price_level_code_taken: 'Otro nivel de precios ya usa este código.',
+  price_level_in_use: '{accounts} cuenta(s) aún usan este nivel de precios: páselas antes a otro.',
+  price_rule_taken: 'Este artículo ya tiene un precio para ese nivel, cantidad y base.',
+  price_level_not_found: 'No se encontró ese nivel de precios. Puede que se haya eliminado.',
+  price_rule_not_found: 'No se encontró esa regla de precio. Puede que se haya eliminado.',
+  customer_not_found: 'No se encontró esa cuenta. Puede que se haya eliminado.',
   values: {
     countStatus: { open: 'abierto', closed: 'cerrado', cancelled: 'cancelado' },
   },

@@ -38,4 +38,10 @@ export const adminRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/golive/DataImportView.vue'),
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'golive.imports.title' },
   },
+  {
+    path: '/admin/selling-prices',
+    name: 'admin-selling-prices',
+    component: () => import('@/views/admin/SellingPricesView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'sales.pricesTitle' },
+  },
 ]

@@ -18,7 +18,8 @@ import { CLOSING_CAUTION, showerBaseCautions, wallCautions, withClosingLine, typ
 import type { CurveLayout } from './curve.js'
 import { buildWallDrawing, type WallDrawing } from './drawing.js'
 import { edgeFixings, reinforcedBedJoints, type Fixing } from './fasteners.js'
-import { defaultMaterialRules, evaluateRule, roleLabels, wasteFor, type RuleNeed } from './materials.js'
+import { englishPhrase, explainText, joinTokens, type ExplainPhrases, type ExplainToken } from './explainWords.js'
+import { defaultMaterialRules, evaluateRule, roleLabels, ruleWordKey, wasteFor, type RuleNeed } from './materials.js'
 import { roundUpToStock } from './packRounding.js'
 import { planSections, type SectionPlan } from './sections.js'
 import { fitShowerBase, showerBaseLine, type ShowerBaseFit } from './showerBaseLine.js'
@@ -28,9 +29,12 @@ import { isWallRefusal, layoutWall, type WallGeometry } from './wallLayout.js'
 
 export interface BomExplanation {
   inputs: Record<string, string | number>
+  /** The rule, formula and rounding in English (logs, exports, bills saved before phrases). */
   rule: string
   formula: string
   rounding: string
+  /** The same as phrases, for screens in the reader's language. */
+  words?: ExplainPhrases
 }
 
 export interface BomLine {
@@ -245,7 +249,20 @@ function summedInputs(parts: Contribution[]): Record<string, string | number> {
   return out
 }
 
-function explanationOf(entry: Pending): Omit<BomExplanation, 'rounding'> {
+/** English of a line's phrases: a role named in a phrase reads as the catalog's role label. */
+const english = (tokens: ExplainToken[]) =>
+  explainText(tokens, (k, p) => englishPhrase(k, p?.role !== undefined ? { ...p, role: roleLabels[p.role as MaterialRole].toLowerCase() } : p))
+
+/** A rule's note and source: the default rule's by key, an admin's edited words as typed. */
+function ruleTokens(p: Contribution): ExplainToken[] {
+  const key = ruleWordKey(p.rule.id)
+  const stock = defaultMaterialRules.find((r) => r.id === p.rule.id)
+  const note: ExplainToken = stock?.note === p.rule.note ? { k: `ruleNote.${key}` } : p.rule.note
+  const source: ExplainToken = stock?.source === p.rule.source ? { k: `ruleSource.${key}` } : p.rule.source
+  return [note, ' (', source, ')', ...(p.standIn ? [' ', { k: 'step.standIn', p: { role: p.rule.role } }] : [])]
+}
+
+function explanationOf(entry: Pending): Pick<BomExplanation, 'inputs' | 'rule' | 'formula'> & { words: Omit<ExplainPhrases, 'rounding'> } {
   const walls = [...new Set(entry.parts.map((p) => p.wall))]
   const many = walls.length > 1
   const shown = new Set(walls.slice(0, EXPLAINED_WALLS))
@@ -256,16 +273,17 @@ function explanationOf(entry: Pending): Omit<BomExplanation, 'rounding'> {
     for (const [k, v] of Object.entries(p.need.inputs)) inputs[many ? `${p.wall} · ${k}` : k] = v
   }
   if (rest.length > 0) {
+    // read back by screens as "<n> other walls · <measure>" (billExplain.ts)
     const others = `${walls.length - shown.size} other walls`
     for (const [k, v] of Object.entries(summedInputs(rest))) inputs[`${others} · ${k}`] = v
   }
-  const standIn = (p: Contribution) => (p.standIn ? ` No ${roleLabels[p.rule.role].toLowerCase()} is in the catalog for this block: this item stands in.` : '')
-  const rules = [...new Map(entry.parts.map((p) => [p.rule.id, `${p.rule.note} (${p.rule.source})${standIn(p)}`])).values()]
+  const rule = joinTokens([...new Map(entry.parts.map((p) => [p.rule.id, ruleTokens(p)])).values()], ' ')
   const total = entry.parts.reduce((s, p) => s + p.need.needed, 0)
   const restTotal = rest.reduce((s, p) => s + p.need.needed, 0)
-  const formula = detailed.map((p) => (many ? `${p.wall}: ${p.need.formula}` : p.need.formula)).join('; ') +
-    (rest.length > 0 ? `; ${walls.length - shown.size} other walls: ${Number(restTotal.toFixed(3))}` : '')
-  return { inputs, rule: rules.join(' '), formula: many ? `${formula}; total ${Number(total.toFixed(3))}` : formula }
+  const formula = joinTokens(detailed.map((p) => (many ? [`${p.wall}: `, ...p.need.formulaTokens] : p.need.formulaTokens)), '; ')
+  if (rest.length > 0) formula.push('; ', { k: 'step.otherWalls', p: { n: walls.length - shown.size } }, `: ${Number(restTotal.toFixed(3))}`)
+  if (many) formula.push('; ', { k: 'step.total', p: { n: Number(total.toFixed(3)) } })
+  return { inputs, rule: english(rule), formula: english(formula), words: { rule, formula } }
 }
 
 function lineOf(entry: Pending, options: ComputeOptions): BomLine | undefined {
@@ -287,7 +305,10 @@ function lineOf(entry: Pending, options: ComputeOptions): BomLine | undefined {
     packSize: entry.item?.sellByPack ? entry.item.packSize : undefined,
     needed,
     walls: [...new Set(entry.parts.map((p) => p.wall))],
-    explanation: { ...explanationOf(entry), rounding: rounded.text },
+    explanation: (() => {
+      const e = explanationOf(entry)
+      return { ...e, rounding: rounded.text, words: { ...e.words, rounding: rounded.tokens } }
+    })(),
     issue,
   }
 }
@@ -309,6 +330,11 @@ export function lineIssueCaution(l: Pick<BomLine, 'role' | 'name' | 'sku' | 'iss
   }
 }
 
+/** An explanation from its phrases, with the English beside them. */
+export function phrased(inputs: Record<string, string | number>, words: ExplainPhrases): BomExplanation {
+  return { inputs, rule: english(words.rule), formula: english(words.formula), rounding: english(words.rounding), words }
+}
+
 function looseLines(takeoff: Takeoff): BomLine[] {
   return takeoff.looseLines.map((l) => ({
     role: 'loose',
@@ -318,12 +344,11 @@ function looseLines(takeoff: Takeoff): BomLine[] {
     unit: l.unit,
     needed: l.quantity,
     walls: [],
-    explanation: {
-      inputs: { quantity: l.quantity, ...(l.note ? { note: l.note } : {}) },
-      rule: 'Entered by hand',
-      formula: `${l.quantity} ${l.unit} as entered`,
-      rounding: 'none',
-    },
+    explanation: phrased({ quantity: l.quantity, ...(l.note ? { note: l.note } : {}) }, {
+      rule: [{ k: 'ruleNote.handEntered' }],
+      formula: [{ k: 'step.asEntered', p: { qty: l.quantity, unit: l.unit } }],
+      rounding: [{ k: 'step.none' }],
+    }),
   }))
 }
 

@@ -8,7 +8,11 @@ import type {
   WastePct,
 } from '../schemas/takeoff.js'
 import { flOzToMl, MM_PER_INCH } from '../units.js'
+import { EXPLAIN_EN, explainText, figure as n, joinTokens, type ExplainToken } from './explainWords.js'
 import type { MeasureName, MeasuredWall } from './wallMeasures.js'
+
+const RULE_NOTE = EXPLAIN_EN.ruleNote
+const RULE_SOURCE = EXPLAIN_EN.ruleSource
 
 /** A 10.1 US fl oz cartridge: 298.69 mL (NIST SP 811 factor 29.5735295625 mL per fl oz). */
 export const STANDARD_CARTRIDGE_ML = flOzToMl(10.1)
@@ -61,29 +65,27 @@ export const defaultMaterialRules: MaterialRule[] = [
   {
     id: 'blocks', role: 'block', family: 'block', method: 'count', systems: BOTH,
     terms: [{ measure: 'standardBlocks', rate: 1 }],
-    note: 'Every cell of the panel not taken by an end or corner block.', source: 'wall layout',
+    note: RULE_NOTE.blocks, source: RULE_SOURCE.blocks,
   },
   {
     id: 'end-blocks', role: 'endBlock', family: 'block', method: 'count', systems: BOTH,
     terms: [{ measure: 'endBlocks', rate: 1 }],
-    note: 'Every exposed edge gets a finished unit: one per course at each free end, one per block across a free top.',
-    source: 'common practice',
+    note: RULE_NOTE.endBlocks, source: RULE_SOURCE.endBlocks,
   },
   {
     id: 'double-end-blocks', role: 'doubleEndBlock', family: 'block', method: 'count', systems: BOTH,
     terms: [{ measure: 'doubleEndBlocks', rate: 1 }], fallbackRole: 'endBlock',
-    note: 'Where a free top meets a free end the unit shows two edges: a unit finished on both.',
-    source: 'common practice',
+    note: RULE_NOTE.doubleEndBlocks, source: RULE_SOURCE.doubleEndBlocks,
   },
   {
     id: 'corner-blocks', role: 'cornerBlock', family: 'block', method: 'count', systems: BOTH,
     terms: [{ measure: 'cornerBlocks', rate: 1 }],
-    note: 'One corner unit per course at each 90° corner.', source: 'common practice',
+    note: RULE_NOTE.cornerBlocks, source: RULE_SOURCE.cornerBlocks,
   },
   {
     id: 'angle-blocks', role: 'angleBlock', family: 'block', method: 'count', systems: BOTH,
     terms: [{ measure: 'angleBlocks', rate: 1 }],
-    note: 'One 45° angle unit per course at each 45° corner.', source: 'common practice',
+    note: RULE_NOTE.angleBlocks, source: RULE_SOURCE.angleBlocks,
   },
   {
     id: 'spacers', role: 'spacer', family: 'spacer', method: 'count', systems: ['spacer'],
@@ -92,105 +94,75 @@ export const defaultMaterialRules: MaterialRule[] = [
       { measure: 'edgeIntersectionsStraight', rate: 1 },
       { measure: 'perimeterFt', rate: 0 },
     ],
-    note: 'One spacer at each joint crossing; at the edges the same piece with its outer legs snapped off. ' +
-      'The per-foot rate is for makers with perimeter strips.',
-    source: 'common practice',
+    note: RULE_NOTE.spacers, source: RULE_SOURCE.spacers,
   },
   {
     id: 'arc-spacers', role: 'arcSpacer', family: 'spacer', method: 'count', systems: ['spacer'],
     terms: [{ measure: 'interiorIntersectionsCurved', rate: 1 }, { measure: 'edgeIntersectionsCurved', rate: 1 }],
-    note: 'Wedge spacers wherever a head joint on the curve crosses a bed joint or meets an edge.', source: 'common practice',
+    note: RULE_NOTE.arcSpacers, source: RULE_SOURCE.arcSpacers,
   },
   {
     id: 'spacer-base', role: 'spacerBase', family: 'spacer', method: 'length', systems: ['spacer'],
     measures: ['bottomRunMm'],
-    note: 'A base layer of spacer material along the curb under the first course.', source: 'common practice',
+    note: RULE_NOTE.spacerBase, source: RULE_SOURCE.spacerBase,
   },
   {
     id: 'sealant-spacer', role: 'sealant', family: 'sealant', method: 'bead', systems: ['spacer'],
     measures: ['bottomRunMm', 'sectionTopsMm', 'sectionSeamsMm'], beadDiameterMm: SEALANT_BEAD_MM,
-    note: 'A 1/4 in bead in the curb bed, on top of each section that carries another and in the seams where ' +
-      'sections meet. Joints inside shop-built sections are sealed in the shop, as part of the section build.',
-    source: 'common practice',
+    note: RULE_NOTE.sealantSpacer, source: RULE_SOURCE.sealantSpacer,
   },
   {
     id: 'sealant-wet', role: 'sealant', family: 'sealant', method: 'bead', systems: ['spacer'], wetAreaOnly: true,
     measures: ['jambLengthMm', 'headLengthMm'], beadDiameterMm: SEALANT_BEAD_MM, beadsPerLength: 2,
-    note: 'In a wet area, a bead along each fixed jamb full height and along a fixed head, on both faces.',
-    source: 'common practice (the spacer maker’s instructions)',
+    note: RULE_NOTE.sealantWet, source: RULE_SOURCE.sealantWet,
   },
   {
     id: 'sealant-mortar', role: 'sealant', family: 'sealant', method: 'bead', systems: ['mortar'],
     measures: ['jambLengthMm', 'headLengthMm'], beadDiameterMm: SEALANT_BEAD_MM, beadsPerLength: 2,
-    note: 'Sealant over the expansion joints at jambs and head, both faces.', source: 'common practice',
+    note: RULE_NOTE.sealantMortar, source: RULE_SOURCE.sealantMortar,
   },
   {
     id: 'grout', role: 'grout', family: 'grout', method: 'volume', systems: ['spacer'],
     measure: 'groutVolumeMl', yieldField: 'groutYieldMl',
-    note: 'Face joints filled from each face to the spacer: joint width × joint length × fill depth, both faces.',
-    source: 'common practice (the spacer maker’s fill depth)',
+    note: RULE_NOTE.grout, source: RULE_SOURCE.grout,
   },
   {
     id: 'mortar', role: 'mortar', family: 'grout', method: 'volume', systems: ['mortar'],
     measure: 'mortarVolumeMl', yieldField: 'mortarYieldMl',
-    note: 'Head, bed and sill joints full depth; jambs and head are expansion joints kept free of mortar (IRC 2021 R607.7).',
-    source: 'IRC 2021 R607.7, R607.10',
+    note: RULE_NOTE.mortar, source: RULE_SOURCE.mortar,
   },
   {
     id: 'screws', role: 'screw', family: 'fastener', method: 'count', systems: ['spacer'],
     terms: [{ measure: 'jambScrews', rate: 1 }],
-    note: '3 in stainless screws in the joints at no more than 16 in on centre along each fixed jamb and head, ' +
-      'counted from both ends, wherever the sections fall.',
-    source: 'common practice (the spacer maker’s instructions)',
+    note: RULE_NOTE.screws, source: RULE_SOURCE.screws,
   },
   {
     id: 'anchors', role: 'panelAnchor', family: 'anchor', method: 'count', systems: ['mortar'],
     terms: [{ measure: 'panelAnchors', rate: 1 }],
-    note: 'Panel anchors at no more than 16 in on centre along each fixed jamb and across a fixed head, counted from both ends.',
-    source: 'IRC 2021 R607.5.2.1 (from memory)',
+    note: RULE_NOTE.anchors, source: RULE_SOURCE.anchors,
   },
   {
     id: 'reinforcement', role: 'jointReinforcement', family: 'reinforcement', method: 'length', systems: ['mortar'],
     measures: ['reinforcedJointLengthMm'], lapMm: 6 * MM_PER_INCH,
-    note: 'Joint reinforcement in bed joints at no more than 16 in on centre, lapped at least 6 in.',
-    source: 'IRC 2021 R607.9 (from memory)',
+    note: RULE_NOTE.reinforcement, source: RULE_SOURCE.reinforcement,
   },
   {
     id: 'expansion', role: 'expansionStrip', family: 'strip', method: 'length', systems: BOTH,
     measures: ['jambLengthMm', 'headLengthMm'],
-    note: 'Expansion strip at framed jambs and head.', source: 'IRC 2021 R607.7 (from memory)',
+    note: RULE_NOTE.expansion, source: RULE_SOURCE.expansion,
   },
   {
     id: 'sections', role: 'wallSection', family: 'wallSection', method: 'count', systems: BOTH,
     terms: [{ measure: 'sections', rate: 1 }],
-    note: 'Shop assembly of each planned section, where the supplier sells it.', source: 'section plan', optional: true,
+    note: RULE_NOTE.sections, source: RULE_SOURCE.sections, optional: true,
   },
 ]
 
-/** Each measure in the trade's words, for formulas and the Explain panel (screens translate the same keys). */
-export const MEASURE_WORDS: Record<MeasureName, string> = {
-  standardBlocks: 'plain blocks',
-  endBlocks: 'units finished on one edge',
-  doubleEndBlocks: 'units finished on two edges',
-  cornerBlocks: '90° corner units',
-  angleBlocks: '45° angle units',
-  interiorIntersectionsStraight: 'joint crossings inside the panel',
-  interiorIntersectionsCurved: 'joint crossings on the curve',
-  edgeIntersectionsStraight: 'joint ends at the edges',
-  edgeIntersectionsCurved: 'joint ends at the edges of the curve',
-  perimeterFt: 'panel perimeter (ft)',
-  sections: 'sections',
-  jambScrews: 'screws at fixing points',
-  panelAnchors: 'anchors at fixing points',
-  bottomRunMm: 'curb bed',
-  sectionTopsMm: 'section tops',
-  sectionSeamsMm: 'seams between sections',
-  jambLengthMm: 'fixed jambs',
-  headLengthMm: 'fixed head',
-  reinforcedJointLengthMm: 'reinforced bed joints',
-  groutVolumeMl: 'grout volume (mL)',
-  mortarVolumeMl: 'mortar volume (mL)',
-}
+/** Each measure in the trade's words, for formulas (screens word the same keys under `takeoff.explain.measure`). */
+export const MEASURE_WORDS: Record<MeasureName, string> = EXPLAIN_EN.measure
+
+/** A rule's note and source keys in the explanation's phrases: the rule's id in camel case. */
+export const ruleWordKey = (id: string) => id.replace(/-(\w)/g, (_, c: string) => c.toUpperCase())
 
 export interface RuleNeed {
   ruleId: string
@@ -202,29 +174,40 @@ export interface RuleNeed {
   demand: number
   unit: string
   inputs: Record<string, string | number>
+  /** The working, in English (written when read). */
   formula: string
+  /** The same working as phrases a screen words in its language. */
+  formulaTokens: ExplainToken[]
   issue?: string
 }
 
 const round = (value: number, places: number) => Number(value.toFixed(places))
-const n = (value: number, places = 2) => round(value, places).toString()
+const phrase = (k: string, p?: Record<string, string | number>): ExplainToken => ({ k, ...(p ? { p } : {}) })
+type Working = () => ExplainToken[]
 
 function countNeed(rule: Extract<MaterialRule, { method: 'count' }>, wall: MeasuredWall) {
   const parts = rule.terms.filter((t) => t.rate > 0)
   const needed = parts.reduce((sum, t) => sum + t.rate * wall.measures[t.measure], 0)
   const inputs = Object.fromEntries(parts.map((t) => [t.measure, round(wall.measures[t.measure], 3)]))
-  const term = (t: (typeof parts)[number]) => {
+  const term = (t: (typeof parts)[number]): ExplainToken[] => {
     const how = wall.derivation[t.measure]
-    return `${n(wall.measures[t.measure], 3)} ${MEASURE_WORDS[t.measure]}${how ? ` (${how})` : ''}${t.rate === 1 ? '' : ` × ${t.rate}`}`
+    return [
+      `${n(wall.measures[t.measure], 3)} `, phrase(`measure.${t.measure}`),
+      ...(how ? [' (', ...how, ')'] : []),
+      ...(t.rate === 1 ? [] : [` × ${t.rate}`]),
+    ]
   }
-  const formula = () => parts.map(term).join(' + ') + ` = ${n(needed, 3)}`
+  const formula: Working = () => [...joinTokens(parts.map(term), ' + '), ` = ${n(needed, 3)}`]
   return { needed, demand: needed, inputs, formula }
 }
 
 function lengthOf(measures: MeasureName[], wall: MeasuredWall) {
   const total = measures.reduce((sum, m) => sum + wall.measures[m], 0)
   const inputs = Object.fromEntries(measures.map((m) => [m, round(wall.measures[m], 1)]))
-  const sum = () => `${measures.map((m) => `${MEASURE_WORDS[m]} ${n(wall.measures[m], 1)} mm`).join(' + ')} = ${n(total, 1)} mm`
+  const sum = (): ExplainToken[] => [
+    ...joinTokens(measures.map((m) => [phrase(`measure.${m}`), ` ${n(wall.measures[m], 1)} mm`]), ' + '),
+    ` = ${n(total, 1)} mm`,
+  ]
   return { total, inputs, sum }
 }
 
@@ -234,12 +217,15 @@ function pieceNeed(rule: Extract<MaterialRule, { method: 'length' }>, wall: Meas
   const pieceLengthMm = item.pieceLengthMm
   const lap = rule.lapMm ?? 0
   const perPiece = item.pieceLengthMm - lap
-  const lapText = lap > 0 ? ` − ${n(lap, 1)} mm lap` : ''
+  const pieces = n(total / perPiece, 3)
   return {
     needed: total / perPiece,
     demand: total,
     inputs: { ...inputs, pieceLengthMm, lapMm: round(lap, 1) },
-    formula: () => `${sum()}; ÷ (${n(pieceLengthMm, 1)} mm${lapText}) = ${n(total / perPiece, 3)} pieces`,
+    formula: (): ExplainToken[] => [
+      ...sum(), '; ',
+      lap > 0 ? phrase('step.piecesLapped', { piece: n(pieceLengthMm, 1), lap: n(lap, 1), pieces }) : phrase('step.pieces', { piece: n(pieceLengthMm, 1), pieces }),
+    ],
   }
 }
 
@@ -253,10 +239,12 @@ function beadNeed(rule: Extract<MaterialRule, { method: 'bead' }>, wall: Measure
     needed: volumeMl / cartridge,
     demand: total,
     inputs: { ...inputs, beadDiameterMm: round(rule.beadDiameterMm, 3), beadsPerLength: beads, cartridgeMl: round(cartridge, 2) },
-    formula: () =>
-      `beads: ${sum()}${beads > 1 ? ` × ${beads} faces` : ''}, each a ${n(rule.beadDiameterMm, 3)} mm round bead ` +
-      `(area π × ${n(rule.beadDiameterMm, 3)}² ÷ 4 = ${n(area, 2)} mm²); ` +
-      `volume ${n(volumeMl, 1)} mL ÷ ${n(cartridge, 2)} mL per tube = ${n(volumeMl / cartridge, 3)} tubes`,
+    formula: (): ExplainToken[] => [
+      phrase('step.beads'), ': ', ...sum(),
+      ...(beads > 1 ? [' ', phrase('step.faces', { n: beads })] : []), ', ',
+      phrase('step.roundBead', { d: n(rule.beadDiameterMm, 3), area: n(area, 2) }), '; ',
+      phrase('step.tubes', { volume: n(volumeMl, 1), cartridge: n(cartridge, 2), tubes: n(volumeMl / cartridge, 3) }),
+    ],
   }
 }
 
@@ -264,27 +252,30 @@ function volumeNeed(rule: Extract<MaterialRule, { method: 'volume' }>, wall: Mea
   const volumeMl = wall.measures[rule.measure]
   const inputs: Record<string, string | number> = { [rule.measure]: round(volumeMl, 1) }
   const perBag = item?.[rule.yieldField]
-  const derivation = () => wall.derivation[rule.measure] ?? ''
+  const derivation = () => wall.derivation[rule.measure] ?? []
   if (!perBag) return { needed: 0, demand: volumeMl, inputs, formula: derivation, issue: `the catalog item needs ${rule.yieldField}` }
   return {
     needed: volumeMl / perBag,
     demand: volumeMl,
     inputs: { ...inputs, [rule.yieldField]: perBag },
-    formula: () => `${derivation()} = ${n(volumeMl, 1)} mL; ÷ ${n(perBag, 1)} mL per bag = ${n(volumeMl / perBag, 3)} bags`,
+    formula: (): ExplainToken[] => [
+      ...derivation(), ` = ${n(volumeMl, 1)} mL; `,
+      phrase('step.bags', { perBag: n(perBag, 1), bags: n(volumeMl / perBag, 3) }),
+    ],
   }
 }
 
 /**
- * The exact need one rule gives for one wall, in the resolved item's stock unit. The formula's text is
- * written when read: a job of many walls only shows a few walls' working in a line's explanation.
+ * The exact need one rule gives for one wall, in the resolved item's stock unit. The formula is worked
+ * out when read: a job of many walls only shows a few walls' working in a line's explanation.
  */
 export function evaluateRule(rule: MaterialRule, wall: MeasuredWall, item: CatalogItem | undefined): RuleNeed {
-  const result: { needed: number; demand: number; inputs: Record<string, string | number>; formula: () => string; issue?: string } =
+  const result: { needed: number; demand: number; inputs: Record<string, string | number>; formula: Working; issue?: string } =
     rule.method === 'count' ? countNeed(rule, wall)
       : rule.method === 'length' ? pieceNeed(rule, wall, item)
         : rule.method === 'bead' ? beadNeed(rule, wall, item)
           : volumeNeed(rule, wall, item)
-  let text: string | undefined
+  let tokens: ExplainToken[] | undefined
   return {
     ruleId: rule.id,
     role: rule.role,
@@ -294,8 +285,11 @@ export function evaluateRule(rule: MaterialRule, wall: MeasuredWall, item: Catal
     demand: result.demand,
     inputs: result.inputs,
     ...(result.issue ? { issue: result.issue } : {}),
+    get formulaTokens() {
+      return (tokens ??= result.formula())
+    },
     get formula() {
-      return (text ??= result.formula())
+      return explainText(this.formulaTokens)
     },
   }
 }

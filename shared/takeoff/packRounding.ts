@@ -1,6 +1,7 @@
 // Turning an exact need into what is ordered: add the waste allowance, round up to whole stock units,
 // then up to whole packs when the item is sold by the pack. Never less than needed.
 import { Decimal } from 'decimal.js'
+import { explainText, type ExplainToken } from './explainWords.js'
 
 export interface StockQuantity {
   /** Need with the waste allowance, before rounding. */
@@ -11,8 +12,10 @@ export interface StockQuantity {
   packs?: number
   /** Stock units ordered (units, or packs × pack size). */
   quantity: number
-  /** The rounding, in words and numbers. */
+  /** The rounding, in words and numbers (English). */
   text: string
+  /** The same as phrases a screen words in its language. */
+  tokens: ExplainToken[]
 }
 
 const show = (d: Decimal) => d.toDecimalPlaces(3).toString()
@@ -31,17 +34,13 @@ export function roundUpToStock(
   const need = new Decimal(Math.max(0, needed)).toDecimalPlaces(9, Decimal.ROUND_HALF_UP)
   const withWaste = need.times(new Decimal(100).plus(wastePct)).div(100)
   const units = withWaste.ceil().toNumber()
-  const waste = `${show(need)} × (1 + ${wastePct} % waste) = ${show(withWaste)}`
-  const whole = `rounded up to ${units} ${unit}`
-  if (!sellByPack || packSize <= 1) {
-    return { withWaste: withWaste.toNumber(), units, quantity: units, text: `${waste}; ${whole}` }
-  }
+  const tokens: ExplainToken[] = [
+    { k: 'step.waste', p: { need: show(need), pct: wastePct, withWaste: show(withWaste) } }, '; ',
+    { k: 'step.roundedUp', p: { units, unit } },
+  ]
+  const result = { withWaste: withWaste.toNumber(), units, tokens }
+  if (!sellByPack || packSize <= 1) return { ...result, quantity: units, text: explainText(tokens) }
   const packs = Math.ceil(units / packSize)
-  return {
-    withWaste: withWaste.toNumber(),
-    units,
-    packs,
-    quantity: packs * packSize,
-    text: `${waste}; ${whole}; sold in packs of ${packSize}: ${packs} pack${packs === 1 ? '' : 's'} = ${packs * packSize} ${unit}`,
-  }
+  tokens.push('; ', { k: packs === 1 ? 'step.onePack' : 'step.packs', p: { size: packSize, packs, qty: packs * packSize, unit } })
+  return { ...result, packs, quantity: packs * packSize, text: explainText(tokens) }
 }

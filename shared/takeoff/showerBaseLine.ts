@@ -4,7 +4,7 @@
 import type { CatalogItem, ShowerBase, Takeoff } from '../schemas/takeoff.js'
 import type { SiteFigures } from '../schemas/takeoff.js'
 import { formatLength, formatSize, type LengthUnit } from '../units.js'
-import type { BomLine, WallResult, WallResultOk } from './billOfMaterials.js'
+import { phrased, type BomLine, type WallResult, type WallResultOk } from './billOfMaterials.js'
 import { roleLabels } from './materials.js'
 import { buildPlanView } from './planView.js'
 
@@ -167,9 +167,7 @@ export function baseSpec(fit: ShowerBaseFit, unit: LengthUnit) {
 
 /** One base made to the true size; its name says the size, whatever catalog item stands for it. */
 export function showerBaseLine(fit: ShowerBaseFit, item: CatalogItem | undefined, unit: LengthUnit): BomLine {
-  const how = fit.fit === 'follow'
-    ? `its footprint, curb radius and arc taken from ${fit.wall} as built`
-    : fit.fit === 'check' ? `to the size entered, checked against ${fit.wall}` : 'to the size entered'
+  const how = fit.fit === 'follow' ? 'baseFollow' : fit.fit === 'check' ? 'baseCheck' : 'baseEntered'
   return {
     role: 'showerBase',
     sku: item?.sku ?? null,
@@ -178,12 +176,11 @@ export function showerBaseLine(fit: ShowerBaseFit, item: CatalogItem | undefined
     unit: item?.unit ?? 'each',
     needed: 1,
     walls: fit.wall ? [fit.wall] : [],
-    explanation: {
-      inputs: specInputs(fit),
-      rule: `One base made to order for the takeoff, ${how}; drain and entry as given.`,
-      formula: '1 base',
-      rounding: 'made to order: exactly 1, no waste allowance',
-    },
+    explanation: phrased(specInputs(fit), {
+      rule: [{ k: `ruleNote.${how}`, ...(fit.wall ? { p: { wall: fit.wall } } : {}) }],
+      formula: [{ k: 'step.oneBase' }],
+      rounding: [{ k: 'step.madeToOrder' }],
+    }),
     issue: item ? undefined : 'No catalog item is mapped to this role',
   }
 }

@@ -3,6 +3,7 @@
 // found, in the trade's words.
 import type { CountMeasure, LengthMeasure, VolumeMeasure } from '../schemas/takeoff.js'
 import { MM_PER_FOOT } from '../units.js'
+import type { ExplainToken } from './explainWords.js'
 import type { Fixing } from './fasteners.js'
 import { sectionOwners, type SectionPlan } from './sections.js'
 import type { Column, WallGeometry } from './wallLayout.js'
@@ -26,8 +27,8 @@ export const GROUTED_FACES = 2
 
 export interface MeasuredWall {
   measures: WallMeasures
-  /** How each measure was found, for the explanation. */
-  derivation: Partial<Record<MeasureName, string>>
+  /** How each measure was found, for the explanation (phrases a screen words in its language). */
+  derivation: Partial<Record<MeasureName, ExplainToken[]>>
   /** Joints inside the sections: sealed in the shop when sections are shop-built, not on the site bill. */
   shopJointsMm: number
 }
@@ -122,7 +123,7 @@ export function measureWall(input: MeasureInput): MeasuredWall {
     groutVolumeMl: volumes.grout,
     mortarVolumeMl: volumes.mortar,
   }
-  let derivation: Partial<Record<MeasureName, string>> | undefined
+  let derivation: Partial<Record<MeasureName, ExplainToken[]>> | undefined
   return {
     measures,
     // Written when an explanation reads it.
@@ -133,12 +134,16 @@ export function measureWall(input: MeasureInput): MeasuredWall {
   }
 }
 
-const edgeText = (f: WallGeometry['finished']) =>
-  [
-    f.startCourses ? `free start ${f.startCourses} courses` : '',
-    f.endCourses ? `free end ${f.endCourses} courses` : '',
-    f.topBlocks ? `free top ${f.topBlocks} blocks across` : '',
-  ].filter(Boolean).join(', ') || 'no free edges'
+const say = (k: string, p?: Record<string, string | number>): ExplainToken[] => [{ k: `derive.${k}`, ...(p ? { p } : {}) }]
+
+function edgeTokens(f: WallGeometry['finished']): ExplainToken[] {
+  const parts: ExplainToken[] = []
+  const add = (k: string, n: number) => { if (n) parts.push(...(parts.length ? [', '] : []), ...say(k, { n })) }
+  add('freeStart', f.startCourses)
+  add('freeEnd', f.endCourses)
+  add('freeTop', f.topBlocks)
+  return parts.length ? parts : say('noFreeEdges')
+}
 
 function derive(
   g: WallGeometry,
@@ -147,36 +152,34 @@ function derive(
   input: MeasureInput,
   volumes: { faceArea: number; groutDepth: number },
   shopJointsMm: number,
-): Partial<Record<MeasureName, string>> {
-  const W = fmt(g.panelWidthMm)
-  const H = fmt(g.panelHeightMm)
+): Partial<Record<MeasureName, ExplainToken[]>> {
+  const width = fmt(g.panelWidthMm)
+  const height = fmt(g.panelHeightMm)
   const f = g.finished
   const corners = g.cornerBlocks + g.angleBlocks
   const fixings = (side: string) => input.fixings.filter((x) => x.side === side).length
-  const fixingText = `start jamb ${fixings('start')}, end jamb ${fixings('end')}, head ${fixings('head')}`
+  const fixing = { spacing: fmt(input.fixingSpacingMm), start: fixings('start'), end: fixings('end'), head: fixings('head') }
   return {
-    standardBlocks: `${g.blocksAcross} across × ${g.courses} courses = ${g.totalBlocks}, less ${f.oneEdge + f.twoEdges} finished and ${corners} corner units`,
-    endBlocks: `exposed edges: ${edgeText(f)}; ${f.oneEdge} units show one edge`,
-    doubleEndBlocks: `${f.twoEdges} units show two edges, where the free top meets a free end`,
-    cornerBlocks: `${g.courses} courses × 90° corners`,
-    angleBlocks: `${g.courses} courses × 45° corners`,
-    interiorIntersectionsStraight: `${joints.straight} straight head joints × ${innerBeds} inner bed joints`,
-    interiorIntersectionsCurved: `${joints.curved} wedge head joints on the curve × ${innerBeds} inner bed joints`,
-    edgeIntersectionsStraight: `2 × ${joints.straight} head joints (curb and top) + 2 × ${innerBeds} bed joints (ends)`,
-    edgeIntersectionsCurved: `2 × ${joints.curved} wedge head joints (curb and top)`,
-    perimeterFt: `2 × (${W} + ${H}) mm ÷ 304.8 mm/ft`,
-    sections: `sections planned; the ${fmt(shopJointsMm / 1000, 2)} m of joints inside them are sealed in the shop as part of the section build`,
-    jambScrews: `screws at no more than ${fmt(input.fixingSpacingMm)} mm on centre along fixed jambs and head: ${fixingText}`,
-    panelAnchors: `anchors at no more than ${fmt(input.fixingSpacingMm)} mm on centre along fixed jambs and head: ${fixingText}`,
-    bottomRunMm: `curb bed along the panel, ${W} mm`,
-    sectionTopsMm: `tops of sections that carry another section`,
-    sectionSeamsMm: `vertical seams where sections meet, one course high each`,
-    jambLengthMm: `${H} mm × ${g.framedEnds} fixed jambs`,
-    headLengthMm: g.headFramed ? `fixed head ${W} mm` : 'head is free: none',
-    reinforcedJointLengthMm: `${input.reinforcedJoints.length} reinforced bed joints × ${W} mm`,
-    groutVolumeMl:
-      `joint face area ${fmt(volumes.faceArea / 1e6, 4)} m² × grout depth ${fmt(volumes.groutDepth)} mm ` +
-      `(${fmt(input.groutDepthMm)} mm from each of ${GROUTED_FACES} faces to the spacer)`,
-    mortarVolumeMl: `(joint face area + sill bed) × block depth ${fmt(input.blockDepthMm)} mm`,
+    standardBlocks: say('standardBlocks', { across: g.blocksAcross, courses: g.courses, total: g.totalBlocks, finished: f.oneEdge + f.twoEdges, corners }),
+    endBlocks: [...say('exposedEdges'), ': ', ...edgeTokens(f), '; ', ...say('oneEdge', { n: f.oneEdge })],
+    doubleEndBlocks: say('doubleEndBlocks', { n: f.twoEdges }),
+    cornerBlocks: say('cornerBlocks', { courses: g.courses }),
+    angleBlocks: say('angleBlocks', { courses: g.courses }),
+    interiorIntersectionsStraight: say('interiorIntersectionsStraight', { joints: joints.straight, beds: innerBeds }),
+    interiorIntersectionsCurved: say('interiorIntersectionsCurved', { joints: joints.curved, beds: innerBeds }),
+    edgeIntersectionsStraight: say('edgeIntersectionsStraight', { joints: joints.straight, beds: innerBeds }),
+    edgeIntersectionsCurved: say('edgeIntersectionsCurved', { joints: joints.curved }),
+    perimeterFt: say('perimeterFt', { width, height }),
+    sections: say('sections', { metres: fmt(shopJointsMm / 1000, 2) }),
+    jambScrews: say('jambScrews', fixing),
+    panelAnchors: say('panelAnchors', fixing),
+    bottomRunMm: say('bottomRunMm', { width }),
+    sectionTopsMm: say('sectionTopsMm'),
+    sectionSeamsMm: say('sectionSeamsMm'),
+    jambLengthMm: say('jambLengthMm', { height, jambs: g.framedEnds }),
+    headLengthMm: g.headFramed ? say('headLengthMm', { width }) : say('headFree'),
+    reinforcedJointLengthMm: say('reinforcedJointLengthMm', { joints: input.reinforcedJoints.length, width }),
+    groutVolumeMl: say('groutVolumeMl', { area: fmt(volumes.faceArea / 1e6, 4), depth: fmt(volumes.groutDepth), perFace: fmt(input.groutDepthMm), faces: GROUTED_FACES }),
+    mortarVolumeMl: say('mortarVolumeMl', { depth: fmt(input.blockDepthMm) }),
   }
 }

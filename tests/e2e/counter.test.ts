@@ -1,11 +1,18 @@
 // Feature: the Counter in a real browser, as the counter role: start a takeoff for an account, build a
 // block shower with a straight run and a curved run; a radius too tight for the block is refused with the
 // catalog's blocks that turn it, one click swaps the block, the clerk chooses how to close the arc, the
-// shower base follows the wall; open one line's explanation, see the drawing (screenshots), save the bill.
+// shower base follows the wall; open one line's explanation, see the drawing (screenshots); leaving unsaved asks,
+// leaving saved does not; save the bill; the bill's unit switch changes figures, not quantities; the Explain
+// panel in Spanish holds no English rule text.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import path from 'node:path'
+import { EXPLAIN_EN } from '../../shared/takeoff/explainWords.js'
+import { CSRF } from '../support/apiHarness.js'
 import { SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
+
+// The Spanish words of the sealant rule, as the message file holds them
+const SPANISH_SEALANT_NOTE = ((await import('../../src/i18n/es/takeoff.js')) as { default: { explain: { ruleNote: { sealantSpacer: string } } } }).default.explain.ruleNote.sealantSpacer
 
 let h: E2eHarness
 beforeAll(async () => {
@@ -28,7 +35,7 @@ async function fillNumber(page: Page, test: string, value: string) {
 }
 
 describe('counter: a curved block shower from takeoff to saved bill', () => {
-  it('refuses a radius too tight, swaps the block, closes the arc, lets the base follow, explains, draws and saves', async () => {
+  it('refuses a radius too tight, swaps the block, closes the arc, lets the base follow, explains, draws and saves', { timeout: 240_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1440, height: 1000 } })
     try {
       await h.signIn(page, 'counter')
@@ -110,6 +117,25 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       await page.keyboard.press('Escape')
       await explain.waitFor({ state: 'hidden' })
 
+      // Leaving with unsaved edits asks, and "Stay" keeps the page; once saved, leaving does not ask.
+      const takeoffUrl = page.url()
+      await page.locator('[data-test="unsaved"]').waitFor()
+      const home = page.locator('a.nav-link[data-area="home"]')
+      await home.click()
+      const ask = page.locator('.el-message-box')
+      await ask.waitFor()
+      expect(await ask.textContent()).toContain('Leave without saving?')
+      await ask.getByRole('button', { name: 'Stay' }).click()
+      await ask.waitFor({ state: 'hidden' })
+      expect(page.url()).toBe(takeoffUrl)
+      await page.locator('[data-test="save-takeoff"]').click()
+      await page.locator('[data-test="unsaved"]').waitFor({ state: 'hidden' })
+      await home.click()
+      await page.waitForURL((u) => u.pathname === '/')
+      expect(await ask.count()).toBe(0)
+      await page.goto(takeoffUrl)
+      await page.locator('[data-test="explain-sealant"]').waitFor()
+
       await page.locator('[data-test="save-bill"]').click()
       await page.waitForURL(/\/counter\/boms\/\d+/)
       expect(await page.locator('[data-test="bom-title"]').textContent()).toMatch(/revision 1/)
@@ -120,9 +146,24 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       const spec = JSON.parse(line('showerBase').spec ?? '{}')
       expect(spec.trueSize.curbArcDeg).toBeCloseTo(90, 6)
       expect(line('doubleEndBlock').sku).toBe('GB-0408-WV-DE')
-      expect(await page.locator('[data-test="base-spec"]').textContent()).toMatch(/curved curb, radius [\d ./]+″, 90°/)
+      // The unit switch changes the figures, never the quantities (source: NIST SP 811, 1 in = 25.4 mm exactly).
+      const quantities = () => page.locator('[data-test^="qty-"]').allTextContents()
+      const inches = await quantities()
+      expect(inches.length).toBeGreaterThan(5)
+      const radiusIn = /radius ([\d ./]+)″/.exec((await page.locator('[data-test="base-spec"]').textContent()) ?? '')
+      expect(radiusIn).not.toBeNull()
       await page.locator('[data-test="bom-unit"]').getByText('mm').click()
-      expect(await page.locator('[data-test="base-spec"]').textContent()).toMatch(/curved curb, radius [\d.]+ mm, 90°/)
+      const radiusMm = /curved curb, radius ([\d.]+) mm, 90°/.exec((await page.locator('[data-test="base-spec"]').textContent()) ?? '')
+      expect(radiusMm).not.toBeNull()
+      const [whole, frac] = radiusIn![1].trim().split(' ')
+      const inchesValue = Number(whole) + (frac ? Number(frac.split('/')[0]) / Number(frac.split('/')[1]) : 0)
+      // the inch figure is rounded to 1/16 in: within half of that of the millimetre figure
+      expect(Math.abs(Number(radiusMm![1]) / 25.4 - inchesValue)).toBeLessThanOrEqual(1 / 32 + 0.01)
+      expect(await quantities()).toEqual(inches)
+      await page.locator('[data-test="bom-unit"]').getByText('in').click()
+      expect(await page.locator('[data-test="base-spec"]').textContent()).toContain(radiusIn![0])
+      expect(await quantities()).toEqual(inches)
+      await page.locator('[data-test="bom-unit"]').getByText('mm').click()
       await page.locator('[data-test="wall-drawing"] svg').first().waitFor()
       await h.screenshot(page, 'counter-saved-bill')
 
@@ -134,6 +175,23 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
       expect(await page.locator('[data-test="wall-drawing"]').first().isVisible()).toBe(true)
       expect(await page.locator('[data-test="defer"]').isVisible()).toBe(true)
       await h.screenshot(page, 'counter-saved-bill-print')
+      await page.emulateMedia({ media: 'screen' })
+
+      // In Spanish the Explain panel words the rule, formula and rounding in Spanish: no English rule text.
+      expect((await context.request.patch('/api/profile', { headers: CSRF, data: { locale: 'es' } })).status()).toBe(200)
+      try {
+        await page.reload()
+        await page.locator('[data-test="explain-sealant"]').click()
+        await explain.waitFor()
+        const rule = (await page.locator('[data-test="explain-rule"]').textContent()) ?? ''
+        const shown = `${rule} ${await page.locator('[data-test="explain-formula"]').textContent()} ${await page.locator('[data-test="explain-rounding"]').textContent()}`
+        expect(rule).toContain(SPANISH_SEALANT_NOTE)
+        for (const note of Object.values(EXPLAIN_EN.ruleNote)) expect(shown).not.toContain(note.slice(0, 40))
+        expect(shown).not.toMatch(/\b(bead|beads|faces|curb bed|fixed jambs|tube|rounded up|waste|common practice)\b/)
+        await page.screenshot({ path: path.join(SCREENSHOTS, 'counter-explain-line-es.png') })
+      } finally {
+        await context.request.patch('/api/profile', { headers: CSRF, data: { locale: 'en' } })
+      }
     } finally {
       await context.close()
     }

@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest'
 import { materialRuleSchema, type MaterialRule, type Wall } from '../../shared/schemas/takeoff.js'
 import { edgeFixings, FIXING_SPACING_MM, largestGap, reinforcedBedJoints, spacedJoints } from '../../shared/takeoff/fasteners.js'
 import { defaultMaterialRules, evaluateRule, STANDARD_CARTRIDGE_ML, wasteFor } from '../../shared/takeoff/materials.js'
+import { explainText } from '../../shared/takeoff/explainWords.js'
 import { roundUpToStock } from '../../shared/takeoff/packRounding.js'
 import { planSections } from '../../shared/takeoff/sections.js'
 import { DEFAULT_SITE_FIGURES } from '../../shared/takeoff/siteFigures.js'
@@ -60,7 +61,7 @@ describe('measures of the worked example (9 × 10 blocks of 8x8, 1/8 in spacer j
     // 102,076.41 × 19.05 = 1,944,555.6 mm³ = 1,944.56 mL (full depth would be 10,046.87 mL, 5.2× more)
     expect(m.measures.groutVolumeMl).toBeCloseTo(1_944.56, 1)
     expect(m.measures.mortarVolumeMl).toBe(0)
-    expect(m.derivation.groutVolumeMl).toContain('9.5 mm from each of 2 faces')
+    expect(explainText(m.derivation.groutVolumeMl ?? [])).toContain('9.5 mm from each of 2 faces')
   })
 
   it('screws at no more than 16 in on centre along both jambs and the head, whatever the sections', () => {

@@ -9,6 +9,7 @@ import type { CounterCatalog } from '../../shared/schemas/counter.js'
 import type { Takeoff } from '../../shared/schemas/takeoff.js'
 import { computeTakeoff } from '../../shared/takeoff/billOfMaterials.js'
 import type { Caution } from '../../shared/takeoff/cautions.js'
+import { EXPLAIN_EN, type ExplainToken } from '../../shared/takeoff/explainWords.js'
 import { defaultMaterialRules } from '../../shared/takeoff/materials.js'
 import { DEFAULT_SITE_FIGURES } from '../../shared/takeoff/siteFigures.js'
 import { block8, FT, IN, wallMaker } from '../support/takeoffFixtures.js'
@@ -109,5 +110,39 @@ describe('takeoff words in English and Spanish', () => {
     const paths = (tree: Tree, at = ''): string[] =>
       Object.entries(tree).flatMap(([k, v]) => (typeof v === 'string' ? [`${at}${k}`] : paths(v, `${at}${k}.`)))
     expect(paths(es).sort()).toEqual(paths(en).sort())
+  })
+
+  it('every phrase of every line\'s explanation has English and Spanish words with the same placeholders, and the Spanish keeps no English note', () => {
+    const walls = [
+      wall({ name: 'Curved wet', wetArea: true, freeEnds: { start: false, end: true, top: true }, sizing: 'count', heightMm: undefined, courses: 8,
+        segments: [{ kind: 'curved', insideRadiusMm: 60 * IN, arcAngleDeg: 90, direction: 'left' }] }),
+      wall({ name: 'Mortar partition', joint: { kind: 'mortar', jointMm: IN / 4 } }),
+    ]
+    const base = { widthMm: 36 * IN, depthMm: 36 * IN, drain: { fromLeftMm: 18 * IN, fromBackMm: 18 * IN }, entry: 'right' as const, curbless: true }
+    const r = computeTakeoff(takeoff({ walls, showerBase: base, looseLines: [{ sku: 'TRIM-1', name: 'Tile trim', quantity: 3, unit: 'piece' }] }), {}, { unit: 'in' })
+    const at = (tree: Tree, key: string) => key.split('.').reduce<string | Tree | undefined>((n, k) => (typeof n === 'object' ? n[k] : undefined), tree)
+    const spanishNotes: string[] = []
+    let phrases = 0
+    for (const line of r.lines) {
+      expect(line.explanation.words, line.name).toBeDefined()
+      const tokens: ExplainToken[] = Object.values(line.explanation.words!).flat()
+      for (const tk of tokens) {
+        if (typeof tk === 'string') continue
+        phrases++
+        const english = at(en.explain as Tree, tk.k)
+        const spanish = at(es.explain as Tree, tk.k)
+        expect(typeof english, `${tk.k} in English`).toBe('string')
+        expect(typeof spanish, `${tk.k} in Spanish`).toBe('string')
+        expect(placeholders(spanish as string), tk.k).toEqual(placeholders(english as string))
+        for (const name of placeholders(english as string)) expect(tk.p ?? {}, `${tk.k}.${name}`).toHaveProperty(name)
+        if (tk.k.startsWith('ruleNote.')) spanishNotes.push(spanish as string)
+      }
+    }
+    expect(phrases).toBeGreaterThan(40)
+    // no Spanish note is left as the English one (a missing translation copied across)
+    const englishNotes = new Set(Object.values(EXPLAIN_EN.ruleNote) as string[])
+    expect(spanishNotes.length).toBeGreaterThan(5)
+    for (const note of spanishNotes) expect(englishNotes.has(note), note).toBe(false)
+    for (const [key, note] of Object.entries(EXPLAIN_EN.ruleNote)) expect(at(es.explain as Tree, `ruleNote.${key}`), key).not.toBe(note)
   })
 })

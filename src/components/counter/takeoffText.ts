@@ -4,6 +4,8 @@
 import type { ZodError } from 'zod'
 import type { Caution } from '@shared/takeoff/cautions'
 import type { SvgWords } from '@shared/takeoff/drawingSvg'
+import { englishPhrase, explainText, type ExplainToken } from '@shared/takeoff/explainWords'
+import { lineIssueCaution } from '@shared/takeoff/billOfMaterials'
 import { takeoffIssueProblem, takeoffIssues } from '@shared/takeoff/issues'
 import { formatLength, type LengthUnit } from '@shared/units'
 import { problemText } from '@/i18n/errorText'
@@ -80,4 +82,38 @@ export function svgWords(t: Translate): SvgWords {
     key: t('takeoff.svg.key'),
     moreSections: (n) => t('takeoff.svg.moreSections', { n }),
   }
+}
+
+/**
+ * A bill line's rule, formula or rounding in the reader's language: its phrases worded through
+ * `takeoff.explain.*` (a role or stock unit named in them too); the English text for a bill saved before
+ * lines carried phrases.
+ */
+export function explainWords(tokens: ExplainToken[] | undefined, english: string, t: Translate, te: Exists): string {
+  if (!tokens) return english
+  return explainText(tokens, (k, p = {}) => {
+    const key = `takeoff.explain.${k}`
+    if (!te(key)) return englishPhrase(k, p)
+    const values: Record<string, string | number> = { ...p }
+    if (typeof p.role === 'string') values.role = t(`takeoff.roleName.${p.role}`)
+    if (typeof p.unit === 'string' && te(`units.name.${p.unit}`)) values.unit = t(`units.name.${p.unit}`)
+    return t(key, values)
+  })
+}
+
+/** An input's name in the Explain panel: "<wall> · <measure>", the walls past the listed ones summed. */
+export function explainInputLabel(name: string, t: Translate, te: Exists): string {
+  const cut = name.lastIndexOf(' · ')
+  const [wall, key] = cut >= 0 ? [name.slice(0, cut), name.slice(cut + 3)] : ['', name]
+  const words = te(`takeoff.measure.${key}`) ? t(`takeoff.measure.${key}`) : key.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase()
+  // the computation names the summed rest "<n> other walls"
+  const others = /^(\d+) other walls$/.exec(wall)
+  const where = others ? t('takeoff.explain.step.otherWalls', { n: Number(others[1]) }) : wall
+  return where ? `${where} · ${words}` : words
+}
+
+/** Why a bill line cannot be ordered, in the reader's language (its words carry no lengths). */
+export function lineIssueText(row: { role: string | null; name: string; sku: string | null; issue?: string }, t: Translate, te: Exists): string {
+  if (!row.issue) return ''
+  return cautionText(lineIssueCaution({ role: (row.role ?? 'loose') as 'loose', name: row.name, sku: row.sku, issue: row.issue }, 'the line'), 'mm', t, te)
 }

@@ -1,5 +1,7 @@
 // The takeoff's words beyond the counter screens' basics: refusals, choices, cautions by key, the
 // Explain panel's measures, site figures. Figures in {braces} arrive already in the reader's unit.
+import { EXPLAIN_EN } from '../../../shared/takeoff/explainWords.js'
+
 export default {
   unitFor: 'Lengths in',
   unitForHint: 'For this takeoff only; your profile keeps its own unit.',
@@ -243,4 +245,6 @@ export default {
     unitSaved: 'Saved in {unit}',
     showIn: 'Show lengths in',
   },
+  /** A bill line's rule, formula and rounding: one wording with the computation's English. */
+  explain: EXPLAIN_EN,
 }

@@ -9,7 +9,7 @@ import { getBom } from '../services/counter/bomService.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 
 const counter = allow('admin', 'counter')
-const id = (raw: string | string[] | undefined) => idParam(raw, 'That bill of materials')
+const id = (raw: string | string[] | undefined) => idParam(raw, 'bom_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/boms', [

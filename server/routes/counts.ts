@@ -30,7 +30,7 @@ function viewer(req: Request) {
   return { userId: req.user.id, roles: req.user.roles }
 }
 
-const countId = (req: Request) => idParam(req.params.id, 'That count')
+const countId = (req: Request) => idParam(req.params.id, 'count_not_found')
 
 /** A POST that changes a count: parsed with its schema, one transaction, Idempotency-Key honoured. */
 function countStep<S extends z.ZodType>(
@@ -59,7 +59,7 @@ export default (ctx: AppContext) =>
     { method: 'get', path: '/:id/handheld', access: counters, handler: (req) => handheldCount(ctx.ds, viewer(req), countId(req)) },
     countStep(ctx, '/:id/bins/start', counters, countStartBinSchema, (em, req, input) => startBinVisit(em, actorOf(req), countId(req), input)),
     countStep(ctx, '/:id/entries', counters, countEntrySchema, (em, req, input) => enterCount(em, actorOf(req), countId(req), input)),
-    countStep(ctx, '/:id/bins/:binId/finish', counters, z.object({}), (em, req) => finishBinVisit(em, actorOf(req), countId(req), idParam(req.params.binId, 'That bin'))),
+    countStep(ctx, '/:id/bins/:binId/finish', counters, z.object({}), (em, req) => finishBinVisit(em, actorOf(req), countId(req), idParam(req.params.binId, 'bin_not_found'))),
     countStep(ctx, '/:id/review', readers, countReviewSchema, (em, req, input) => reviewCount(em, { ...actorOf(req), roles: req.user!.roles }, countId(req), input)),
     countStep(ctx, '/:id/cancel', allow('admin'), countCancelSchema, (em, req, input) => cancelCount(em, actorOf(req), countId(req), input.reason)),
   ])

@@ -6,7 +6,7 @@ import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { createCustomer, deleteCustomer, getCustomer, listCustomers, updateCustomer } from '../services/counter/customerService.js'
 
 const counter = allow('admin', 'counter')
-const id = (raw: string | string[] | undefined) => idParam(raw, 'That customer')
+const id = (raw: string | string[] | undefined) => idParam(raw, 'customer_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/customers', [

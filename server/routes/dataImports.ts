@@ -44,5 +44,5 @@ export default (ctx: AppContext) =>
         return commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes }))
       },
     },
-    { method: 'post', path: '/:id/reverse', access: admin, handler: (req) => reverseImport(ctx.ds, actorOf(req), DATA_IMPORTS, idParam(req.params.id, 'That import')) },
+    { method: 'post', path: '/:id/reverse', access: admin, handler: (req) => reverseImport(ctx.ds, actorOf(req), DATA_IMPORTS, idParam(req.params.id, 'import_not_found')) },
   ])

@@ -13,7 +13,7 @@ import { commitItemImport, previewItemImport } from '../services/itemImport.js'
 
 const readers = { roles: ANYONE_SIGNED_IN }
 const admin = { roles: ADMIN_ONLY }
-const itemId = (id: string | string[] | undefined) => idParam(id, 'That item')
+const itemId = (id: string | string[] | undefined) => idParam(id, 'item_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/items', [
@@ -65,6 +65,6 @@ export default (ctx: AppContext) =>
       path: '/:id/lots/:lotId',
       access: allow('admin', 'warehouse'),
       handler: (req) =>
-        updateLot(ctx.ds, actorOf(req), itemId(req.params.id), idParam(req.params.lotId, 'That lot'), parseBody(lotUpdateSchema, req.body)),
+        updateLot(ctx.ds, actorOf(req), itemId(req.params.id), idParam(req.params.lotId, 'lot_not_found'), parseBody(lotUpdateSchema, req.body)),
     },
   ])

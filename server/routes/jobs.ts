@@ -14,7 +14,7 @@ import { receiveUpload } from '../services/imports/uploadGuard.js'
 const MAX_UPLOAD_BYTES = 2 * 1024 * 1024
 
 const counter = allow('admin', 'counter')
-const id = (raw: string | string[] | undefined) => idParam(raw, 'That job')
+const id = (raw: string | string[] | undefined) => idParam(raw, 'job_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/jobs', [

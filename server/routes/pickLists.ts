@@ -25,12 +25,12 @@ import { shipProposedTransfer } from '../services/picking/pickTransfers.js'
 const readers = allow('admin', 'counter', 'warehouse')
 const counter = allow('admin', 'counter')
 const pickers = allow('admin', 'warehouse')
-const listId = (req: Request) => idParam(req.params.id, 'That pick list')
+const listId = (req: Request) => idParam(req.params.id, 'pick_list_not_found')
 
 /** Scanner confirmations must carry the key the handheld made with them, so a resend never counts twice. */
 function confirmationKey(req: Request): string {
   const key = req.get('idempotency-key')
-  if (!key) throw AppError.badRequest('A confirmation needs an Idempotency-Key header.', { 'Idempotency-Key': 'Required' })
+  if (!key) throw AppError.badRequest('idempotency_key_required', 'A confirmation needs an Idempotency-Key header.')
   return key
 }
 

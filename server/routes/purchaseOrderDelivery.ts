@@ -12,7 +12,7 @@ import { poDetail } from '../services/purchasing/poRead.js'
 import { receiptsOfPo, receivingBins } from '../services/purchasing/poReceipts.js'
 import { receivePurchaseOrder } from '../services/purchasing/poReceiving.js'
 
-const poId = (req: Request) => idParam(req.params.id, 'That purchase order')
+const poId = (req: Request) => idParam(req.params.id, 'po_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/purchase-orders', [

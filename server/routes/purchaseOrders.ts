@@ -25,8 +25,8 @@ import { dismissSuggestion, updateSuggestion } from '../services/purchasing/sugg
 
 const buyers = allow('admin', 'buyer')
 const readers = allow('admin', 'buyer', 'warehouse')
-const poId = (req: Request) => idParam(req.params.id, 'That purchase order')
-const suggestionId = (req: Request) => idParam(req.params.suggestionId, 'That suggestion')
+const poId = (req: Request) => idParam(req.params.id, 'po_not_found')
+const suggestionId = (req: Request) => idParam(req.params.suggestionId, 'suggestion_not_found')
 
 export default (ctx: AppContext) => {
   const detail = (_req: Request, id: number) => poDetail(ctx.ds, id)
@@ -119,7 +119,7 @@ export default (ctx: AppContext) => {
     },
     {
       method: 'delete', path: '/:id/lines/:lineId', access: buyers,
-      handler: (req) => change(req, (em, id) => removeLine(em, actorOf(req), id, idParam(req.params.lineId, 'That line'))),
+      handler: (req) => change(req, (em, id) => removeLine(em, actorOf(req), id, idParam(req.params.lineId, 'po_line_not_found'))),
     },
     {
       method: 'post', path: '/:id/approve', access: buyers,

@@ -16,7 +16,7 @@ import { itemChoices, warehouseChoices } from '../services/purchasing/vendorServ
 
 const buyers = allow('admin', 'buyer')
 const admin = allow('admin')
-const searchSchema = z.object({ q: z.string().trim().max(60, 'At most 60 characters').optional() })
+const searchSchema = z.object({ q: z.string().trim().max(60).optional() })
 
 const purchasing = (ctx: AppContext) =>
   defineRoutes('/purchasing', [
@@ -37,11 +37,11 @@ const purchasing = (ctx: AppContext) =>
     {
       method: 'get', path: '/outbox/:id/attachments/:attachmentId', access: admin,
       handler: async (req, res) =>
-        sendDownload(res, await outboxAttachment(ctx.ds, idParam(req.params.id, 'That message'), idParam(req.params.attachmentId, 'That attachment'))),
+        sendDownload(res, await outboxAttachment(ctx.ds, idParam(req.params.id, 'message_not_found'), idParam(req.params.attachmentId, 'attachment_not_found'))),
     },
     {
       method: 'post', path: '/outbox/:id/send-again', access: admin,
-      handler: (req) => sendAgain(ctx.ds, ctx.config, actorOf(req), idParam(req.params.id, 'That message')),
+      handler: (req) => sendAgain(ctx.ds, ctx.config, actorOf(req), idParam(req.params.id, 'message_not_found')),
     },
   ])
 
@@ -49,7 +49,7 @@ const jobs = (ctx: AppContext) =>
   defineRoutes('/jobs', [
     {
       method: 'get', path: '/:id/purchase-lines', access: allow('admin', 'counter', 'buyer'),
-      handler: (req) => jobPurchaseLines(ctx.ds, idParam(req.params.id, 'That job')),
+      handler: (req) => jobPurchaseLines(ctx.ds, idParam(req.params.id, 'job_not_found')),
     },
   ])
 

@@ -28,7 +28,7 @@ export default (ctx: AppContext) =>
       access: buyers,
       handler: (req) => {
         const query = parseQuery(lineQuerySchema.extend(historyQuerySchema.shape), req.query)
-        return lineDetail(ctx.ds, idParam(req.params.itemId, 'That item'), idParam(req.params.warehouseId, 'That warehouse'), query)
+        return lineDetail(ctx.ds, idParam(req.params.itemId, 'item_not_found'), idParam(req.params.warehouseId, 'warehouse_not_found'), query)
       },
     },
     { method: 'get', path: '/abc', access: buyers, handler: (req) => abcPareto(ctx.ds, parseQuery(lineQuerySchema, req.query).windowDays) },
@@ -63,6 +63,6 @@ export default (ctx: AppContext) =>
       method: 'delete',
       path: '/policies/:id',
       access: buyers,
-      handler: (req) => deletePolicy(ctx.ds, actorOf(req), idParam(req.params.id, 'That policy')),
+      handler: (req) => deletePolicy(ctx.ds, actorOf(req), idParam(req.params.id, 'policy_not_found')),
     },
   ])

@@ -56,7 +56,7 @@ export default (ctx: AppContext) =>
       ctx,
       '/transfers/:id/receive',
       transferReceiveSchema,
-      (em, actor, input, params) => receiveTransfer(em, actor, { transferId: idParam(params.id, 'That transfer'), lines: input.lines }),
+      (em, actor, input, params) => receiveTransfer(em, actor, { transferId: idParam(params.id, 'transfer_not_found'), lines: input.lines }),
       200,
     ),
   ])

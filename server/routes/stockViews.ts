@@ -49,7 +49,7 @@ export default (ctx: AppContext) =>
       path: '/minimums/:itemId/:warehouseId',
       access: keepers,
       handler: (req) => {
-        const key = { itemId: idParam(req.params.itemId, 'That item'), warehouseId: idParam(req.params.warehouseId, 'That warehouse') }
+        const key = { itemId: idParam(req.params.itemId, 'item_not_found'), warehouseId: idParam(req.params.warehouseId, 'warehouse_not_found') }
         return setMinimum(ctx.ds, actorOf(req), key, parseBody(minimumSchema, req.body))
       },
     },

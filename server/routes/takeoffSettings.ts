@@ -24,10 +24,10 @@ const readers = allow('admin', 'counter')
 const admin = allow('admin')
 const ruleKey = (raw: string | string[] | undefined): string => {
   const key = z.string().regex(/^[A-Za-z0-9._-]{1,60}$/).safeParse(Array.isArray(raw) ? raw[0] : raw)
-  if (!key.success) throw AppError.notFound('That rule')
+  if (!key.success) throw AppError.notFound('rule_not_found', 'That rule was not found.')
   return key.data
 }
-const mappingId = (raw: string | string[] | undefined) => idParam(raw, 'That mapping')
+const mappingId = (raw: string | string[] | undefined) => idParam(raw, 'role_mapping_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/takeoff-settings', [

@@ -12,7 +12,7 @@ import { sendDownload } from '../http/fileResponse.js'
 import { deleteTakeoff, getTakeoff, updateTakeoff } from '../services/counter/takeoffService.js'
 
 const counter = allow('admin', 'counter')
-const id = (raw: string | string[] | undefined) => idParam(raw, 'That takeoff')
+const id = (raw: string | string[] | undefined) => idParam(raw, 'takeoff_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/takeoffs', [

@@ -22,7 +22,7 @@ export default (ctx: AppContext) =>
       path: '/:id',
       access: admin,
       handler: (req) =>
-        updateUser(ctx.ds, actorOf(req), idParam(req.params.id, 'That user'), parseBody(userUpdateSchema, req.body)),
+        updateUser(ctx.ds, actorOf(req), idParam(req.params.id, 'user_not_found'), parseBody(userUpdateSchema, req.body)),
     },
     {
       method: 'post',
@@ -30,7 +30,7 @@ export default (ctx: AppContext) =>
       access: admin,
       handler: async (req) => {
         const { password } = parseBody(passwordResetSchema, req.body)
-        await resetPassword(ctx.ds, actorOf(req), idParam(req.params.id, 'That user'), password)
+        await resetPassword(ctx.ds, actorOf(req), idParam(req.params.id, 'user_not_found'), password)
         return { ok: true }
       },
     },

@@ -14,8 +14,8 @@ import { sendDownload } from '../http/fileResponse.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 
 const buyers = allow('admin', 'buyer')
-const vendorId = (req: Request) => idParam(req.params.id, 'That vendor')
-const itemId = (req: Request) => idParam(req.params.itemId, 'That vendor item')
+const vendorId = (req: Request) => idParam(req.params.id, 'vendor_not_found')
+const itemId = (req: Request) => idParam(req.params.itemId, 'vendor_item_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/vendors', [

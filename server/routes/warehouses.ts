@@ -12,7 +12,7 @@ import {
 
 const readers = { roles: ANYONE_SIGNED_IN }
 const admin = { roles: ADMIN_ONLY }
-const warehouseId = (id: string | string[] | undefined) => idParam(id, 'That warehouse')
+const warehouseId = (id: string | string[] | undefined) => idParam(id, 'warehouse_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/warehouses', [
@@ -44,12 +44,12 @@ export default (ctx: AppContext) =>
       path: '/:id/bins/:binId',
       access: admin,
       handler: (req) =>
-        updateBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'That bin'), parseBody(binPatchSchema, req.body)),
+        updateBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'bin_not_found'), parseBody(binPatchSchema, req.body)),
     },
     {
       method: 'delete',
       path: '/:id/bins/:binId',
       access: admin,
-      handler: (req) => deleteBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'That bin')),
+      handler: (req) => deleteBin(ctx.ds, actorOf(req), warehouseId(req.params.id), idParam(req.params.binId, 'bin_not_found')),
     },
   ])

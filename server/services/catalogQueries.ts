@@ -145,7 +145,7 @@ export async function listLots(ds: DataSource, itemId: number): Promise<LotRow[]
 export async function updateLot(ds: DataSource, actor: AuditActor, itemId: number, lotId: number, input: LotUpdateInput): Promise<LotRow> {
   await ds.transaction(async (em) => {
     const lot = await em.findOne(Lot, { where: { id: lotId, itemId }, lock: { mode: 'pessimistic_write' } })
-    if (!lot) throw AppError.notFound('That lot')
+    if (!lot) throw AppError.notFound('lot_not_found', 'That lot was not found.')
     await em.update(Lot, { id: lotId }, { tintNote: input.tintNote })
     await audit(em, actor, 'lot.update', 'lot', lotId, { code: lot.code, tintNote: { from: lot.tintNote, to: input.tintNote } })
   })

@@ -46,7 +46,7 @@ export function duplicateItemError(err: unknown): AppError | null {
 
 export async function findItem(em: EntityManager, id: number, lock = false): Promise<Item> {
   const item = await em.findOne(Item, { where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
-  if (!item) throw AppError.notFound('That item')
+  if (!item) throw AppError.notFound('item_not_found', 'That item was not found.')
   return item
 }
 
@@ -95,7 +95,7 @@ export async function deactivateItem(ds: DataSource, actor: AuditActor, id: numb
       [id],
     )
     if (Number(stock.reserved) > 0) {
-      throw AppError.conflict(`${Number(stock.reserved)} of ${item.sku} are held for pick lists; release them before deactivating.`, 'item_reserved')
+      throw AppError.conflict('item_reserved', `${Number(stock.reserved)} of ${item.sku} are held for pick lists; release them before deactivating.`, { params: { reserved: Number(stock.reserved), sku: item.sku } })
     }
     if (!item.active) return toItemRecord(item)
     await em.update(Item, { id }, { active: false })

@@ -4,7 +4,7 @@ import type { Writable } from 'node:stream'
 import { Decimal } from 'decimal.js'
 import type { DataSource } from 'typeorm'
 import type { LedgerExportQuery } from '../../shared/schemas/stockViews.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
 import { fieldsSheet, sheet, streamXlsx, wallClockIn, type Field, type SheetColumn } from './exports/xlsxWriter.js'
 import { countLedger, documentReference, LEDGER_SELECT, ledgerOrder, ledgerWhere, type LedgerSqlRow } from './stockLedgerQuery.js'
 
@@ -70,8 +70,9 @@ export interface LedgerExport {
 export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, limit = EXPORT_LIMIT): Promise<LedgerExport> {
   const total = await countLedger(ds, q)
   if (total > limit) {
-    throw AppError.badRequest(`These filters match ${total} moves; an export holds at most ${limit}. Narrow the dates or filters.`, {
-      from: 'Narrow the dates',
+    throw AppError.badRequest('export_too_many_moves', `These filters match ${total} moves; an export holds at most ${limit}. Narrow the dates or filters.`, {
+      params: { total, max: limit },
+      fields: { from: problem('export_too_many_moves', { total, max: limit }) },
     })
   }
   return {

@@ -43,9 +43,9 @@ export async function setMinimum(
 ): Promise<MinimumRow> {
   return inTransaction(ds, async (em) => {
     const [item] = await em.query('SELECT id, sku FROM items WHERE id = ?', [key.itemId])
-    if (!item) throw AppError.notFound('That item')
+    if (!item) throw AppError.notFound('item_not_found', 'That item was not found.')
     const [warehouse] = await em.query('SELECT id, code FROM warehouses WHERE id = ?', [key.warehouseId])
-    if (!warehouse) throw AppError.notFound('That warehouse')
+    if (!warehouse) throw AppError.notFound('warehouse_not_found', 'That warehouse was not found.')
     const [before] = await em.query('SELECT min_qty FROM item_warehouses WHERE item_id = ? AND warehouse_id = ? FOR UPDATE', [item.id, warehouse.id])
     await em.query(
       'INSERT INTO item_warehouses (item_id, warehouse_id, avg_cost, min_qty) VALUES (?, ?, 0, ?) ON DUPLICATE KEY UPDATE min_qty = VALUES(min_qty)',

@@ -4,7 +4,7 @@ import type { DataSource } from 'typeorm'
 import type { ItemOption, LookupAnswer, LookupQuery, Place } from '../../shared/schemas/stockViews.js'
 import { gtinForms } from '../../shared/barcode/checkDigit.js'
 import { containsPattern, prefixPattern } from '../db/likePattern.js'
-import { AppError } from '../errors.js'
+import { AppError, problem } from '../errors.js'
 
 interface ItemSqlRow { id: number; sku: string; name: string; stock_unit: ItemOption['stockUnit']; gtin: string | null; match_lot: number }
 
@@ -49,7 +49,7 @@ export function itemLookupSql(kind: 'gtin' | 'sku', code: string): { sql: string
 async function findItem(ds: DataSource, q: LookupQuery): Promise<ItemOption> {
   const { sql, params } = itemLookupSql(q.kind === 'gtin' ? 'gtin' : 'sku', q.code)
   const rows: ItemSqlRow[] = await ds.query(sql, params)
-  if (!rows.length) throw AppError.notFound(q.kind === 'gtin' ? `An item with GTIN ${q.code}` : `An item with SKU ${q.code}`)
+  if (!rows.length) throw AppError.notFound('item_code_not_found', `No item has the ${q.kind === 'gtin' ? 'GTIN' : 'SKU'} ${q.code}.`, { params: { code: q.code } })
   return toItem(rows[0])
 }
 
@@ -60,14 +60,14 @@ export async function lookupScan(ds: DataSource, q: LookupQuery): Promise<Lookup
         WHERE bn.code = ? ${q.warehouseId ? 'AND bn.warehouse_id = ?' : ''}`,
       q.warehouseId ? [q.code, q.warehouseId] : [q.code],
     )
-    if (!rows.length) throw AppError.notFound(`Bin ${q.code}${q.warehouseId ? ' in this warehouse' : ''}`)
-    if (rows.length > 1) throw AppError.badRequest(`Bin ${q.code} exists in several warehouses; choose the warehouse first.`, { warehouseId: 'Choose one' })
+    if (!rows.length) throw AppError.notFound('bin_code_not_found', `Bin ${q.code}${q.warehouseId ? ' in this warehouse' : ''} was not found.`, { params: { bin: q.code } })
+    if (rows.length > 1) throw AppError.badRequest('bin_code_ambiguous', `Bin ${q.code} exists in several warehouses; choose the warehouse first.`, { params: { bin: q.code }, fields: { warehouseId: problem('invalid_choice') } })
     const b = rows[0]
     return { item: null, lot: null, bin: { id: b.id, code: b.code, kind: b.kind, active: Boolean(b.active), warehouseId: b.warehouse_id, warehouseCode: b.warehouse_code } }
   }
   const item = await findItem(ds, q)
   if (!q.lotCode) return { item, lot: null, bin: null }
   const [lot] = await ds.query('SELECT id, code, item_id AS itemId FROM lots WHERE item_id = ? AND code = ?', [item.id, q.lotCode])
-  if (!lot) throw AppError.notFound(`Lot ${q.lotCode} of ${item.sku}`)
+  if (!lot) throw AppError.notFound('lot_code_not_found', `Lot ${q.lotCode} of ${item.sku} was not found.`, { params: { lot: q.lotCode, sku: item.sku } })
   return { item, lot, bin: null }
 }

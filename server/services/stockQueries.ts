@@ -91,7 +91,7 @@ const binOrder = (a: BinContents, b: BinContents) =>
 
 export async function binContents(ds: DataSource, q: BinContentsQuery): Promise<BinContentsAnswer> {
   const [warehouse] = await ds.query('SELECT id, code, name FROM warehouses WHERE id = ?', [q.warehouseId])
-  if (!warehouse) throw AppError.notFound('That warehouse')
+  if (!warehouse) throw AppError.notFound('warehouse_not_found', 'That warehouse was not found.')
   const text = containsPattern(q.q ?? '')
   const where = new SqlWhere()
     .add('bn.warehouse_id = ?', [q.warehouseId])
@@ -131,7 +131,7 @@ interface LotSqlRow {
 /** Every lot of the item (with none on hand too), and a "no lot" group when stock is kept without one. */
 export async function lotLevels(ds: DataSource, itemId: number): Promise<LotLevelsAnswer> {
   const [item] = await ds.query('SELECT id, sku, name, stock_unit AS stockUnit FROM items WHERE id = ?', [itemId])
-  if (!item) throw AppError.notFound('That item')
+  if (!item) throw AppError.notFound('item_not_found', 'That item was not found.')
   const place = `b.on_hand, b.reserved, w.id AS warehouse_id, w.code AS warehouse_code, bn.id AS bin_id, bn.code AS bin_code, bn.kind AS bin_kind`
   const rows: LotSqlRow[] = await ds.query(
     `SELECT l.id AS lot_id, l.code AS lot_code, DATE_FORMAT(l.received_at, '%Y-%m-%d') AS received_at, l.tint_note, ${place}

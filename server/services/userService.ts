@@ -48,7 +48,7 @@ export async function listUsers(ds: DataSource): Promise<UserSummary[]> {
 
 async function findUser(ds: DataSource, id: number): Promise<User> {
   const user = await ds.getRepository(User).findOneBy({ id })
-  if (!user) throw AppError.notFound('That user')
+  if (!user) throw AppError.notFound('user_not_found', 'That user was not found.')
   return user
 }
 
@@ -91,14 +91,14 @@ export async function updateUser(
   input: UserUpdateInput,
 ): Promise<UserSummary> {
   if (actor.userId === id && input.active === false) {
-    throw AppError.conflict('You cannot deactivate your own account.')
+    throw AppError.conflict('cannot_deactivate_self', 'You cannot deactivate your own account.')
   }
   if (actor.userId === id && input.roles && !input.roles.includes('admin')) {
-    throw AppError.conflict('You cannot remove the admin role from your own account.')
+    throw AppError.conflict('cannot_drop_own_admin', 'You cannot remove the admin role from your own account.')
   }
   const result = await inTransaction(ds, async (em) => {
     const user = await em.findOne(User, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!user) throw AppError.notFound('That user')
+    if (!user) throw AppError.notFound('user_not_found', 'That user was not found.')
     const endsSessions = (input.active === false && user.active) || (input.roles !== undefined)
     if (input.displayName !== undefined) user.displayName = input.displayName
     if (input.email !== undefined) user.email = input.email || null
@@ -142,7 +142,7 @@ export async function changePassword(
 ): Promise<number> {
   const user = await findUser(ds, actor.userId)
   if (!(await bcrypt.compare(currentPassword, user.passwordHash))) {
-    throw AppError.badRequest('The current password is not right.', { currentPassword: 'Not your current password' })
+    throw AppError.badRequest('current_password_wrong', 'The current password is not right.', { fields: { currentPassword: problem('current_password_wrong') } })
   }
   const passwordHash = await hashPassword(newPassword)
   return inTransaction(ds, async (em) => {

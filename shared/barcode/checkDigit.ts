@@ -5,7 +5,7 @@ import { problem, type Problem } from '../errors/errorCodes.js'
 
 /** A failed check gives the English reason (logs, label errors) and the coded problem (screens). */
 export type Gs1Check = { ok: true } | { ok: false; reason: string; problem: Problem }
-export type GtinNormalization = { ok: true; gtin14: string } | { ok: false; reason: string }
+export type GtinNormalization = { ok: true; gtin14: string } | { ok: false; reason: string; problem: Problem }
 
 /** Lengths a GTIN can have; an 8-digit UPC-E code is a compressed GTIN-12, not a GTIN-8. */
 export const GTIN_LENGTHS: readonly number[] = [8, 12, 13, 14]

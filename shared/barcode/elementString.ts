@@ -2,6 +2,7 @@
 // Formats and pairing rules follow the GS1 General Specifications and the GS1 Barcode Syntax Dictionary
 // (as embedded in bwip-js 4.11.4's barcode.ps, "Extracted from the GS1 Syntax Dictionary").
 
+import { problem, type Problem } from '../errors/errorCodes.js'
 import { isValidGtin, isValidSscc } from './checkDigit.js'
 
 export type AiCode = '00' | '01' | '02' | '10' | '11' | '17' | '21' | '37' | '400'
@@ -62,7 +63,8 @@ export interface ElementString {
 }
 
 export type BuildResult = ({ ok: true } & ElementString) | { ok: false; errors: Gs1Issue[] }
-export type ElementParse = { ok: true; fields: Gs1Fields; order: AiCode[] } | { ok: false; reason: string }
+/** A failure gives the English reason (logs) and the coded problem (screens). */
+export type ElementParse = { ok: true; fields: Gs1Fields; order: AiCode[] } | { ok: false; reason: string; problem: Problem }
 
 // GS1 AI encodable character set 82 (GS1 Gen Specs figure 7.11-1).
 const CSET82 = /^[!"%&'()*+,\-./0-9:;<=>?A-Z_a-z]*$/
@@ -180,6 +182,9 @@ export function buildElementString(fields: Gs1Fields): BuildResult {
 }
 
 /** Adds one parsed field, refusing a bad value or a repeat with a different value. */
+const unreadable = (reason: string): ElementParse => ({ ok: false, reason, problem: problem('scan_gs1_unreadable') })
+const badField = (ai: AiCode, reason: string): ElementParse => ({ ok: false, reason, problem: problem('scan_gs1_field_invalid', { ai }) })
+
 function addField(acc: { fields: Gs1Fields; order: AiCode[] }, ai: AiCode, value: string): string | null {
   const problem = checkFieldValue(ai, value)
   if (problem) return problem
@@ -198,24 +203,24 @@ function aiAt(data: string, pos: number): AiCode | undefined {
 export function parseElementData(data: string): ElementParse {
   const acc = { fields: {} as Gs1Fields, order: [] as AiCode[] }
   let pos = data.startsWith(GS) ? 1 : 0
-  if (pos >= data.length) return { ok: false, reason: 'the barcode holds no GS1 data' }
+  if (pos >= data.length) return unreadable('the barcode holds no GS1 data')
   while (pos < data.length) {
     const ai = aiAt(data, pos)
     if (!ai) {
-      return { ok: false, reason: `unknown or unsupported GS1 AI at "${data.slice(pos, pos + 4)}…" (Lumenyard reads ${AI_ORDER.map((a) => `(${a})`).join(' ')})` }
+      return unreadable(`unknown or unsupported GS1 AI at "${data.slice(pos, pos + 4)}…" (Lumenyard reads ${AI_ORDER.map((a) => `(${a})`).join(' ')})`)
     }
     const d = AI_TABLE[ai]
     const start = pos + ai.length
     let end: number
     if (d.predefinedLength) {
       end = start + d.maxLength
-      if (end > data.length) return { ok: false, reason: `${label(ai)} is cut short: ${d.maxLength} digits needed, ${data.length - start} found` }
+      if (end > data.length) return badField(ai, `${label(ai)} is cut short: ${d.maxLength} digits needed, ${data.length - start} found`)
     } else {
       const gs = data.indexOf(GS, start)
       end = gs === -1 ? data.length : gs
     }
-    const problem = addField(acc, ai, data.slice(start, end))
-    if (problem) return { ok: false, reason: problem }
+    const wrong = addField(acc, ai, data.slice(start, end))
+    if (wrong) return badField(ai, wrong)
     pos = data[end] === GS ? end + 1 : end
   }
   return { ok: true, ...acc }
@@ -230,15 +235,15 @@ const HRI_AI = /\((\d{2,4})\)/g
 export function parseHri(text: string): ElementParse {
   const compact = text.replace(/ /g, '')
   const marks = [...compact.matchAll(HRI_AI)]
-  if (marks.length === 0 || marks[0].index !== 0) return { ok: false, reason: 'GS1 text must start with an AI in brackets, like (01)' }
+  if (marks.length === 0 || marks[0].index !== 0) return unreadable('GS1 text must start with an AI in brackets, like (01)')
   const acc = { fields: {} as Gs1Fields, order: [] as AiCode[] }
   for (let i = 0; i < marks.length; i++) {
     const code = marks[i][1]
-    if (!isAiCode(code)) return { ok: false, reason: `AI (${code}) is not one Lumenyard reads` }
+    if (!isAiCode(code)) return unreadable(`AI (${code}) is not one Lumenyard reads`)
     const start = (marks[i].index as number) + marks[i][0].length
     const end = i + 1 < marks.length ? (marks[i + 1].index as number) : compact.length
-    const problem = addField(acc, code, compact.slice(start, end))
-    if (problem) return { ok: false, reason: problem }
+    const wrong = addField(acc, code, compact.slice(start, end))
+    if (wrong) return badField(code, wrong)
   }
   return { ok: true, ...acc }
 }

@@ -1,6 +1,7 @@
 // What a keyboard-wedge or camera scanner delivers, read back into what it means to Lumenyard,
 // plus the payloads our own labels carry, so printing and scanning share one definition.
 
+import { problem, type Problem } from '../errors/errorCodes.js'
 import { GTIN_LENGTHS, normalizeGtin } from './checkDigit.js'
 import {
   buildElementString, checkFieldValue, checkPairings, GS, parseElementData, parseHri,
@@ -36,7 +37,7 @@ const SYMBOLOGY_ID = /^\][A-Za-z][0-9A-Za-z]/
 export type ParsedScan =
   | { kind: 'gs1'; symbology: string | null; fields: Gs1Fields; order: AiCode[] }
   | { kind: 'text'; symbology: string | null; text: string }
-  | { kind: 'invalid'; symbology: string | null; reason: string }
+  | { kind: 'invalid'; symbology: string | null; reason: string; problem: Problem }
 
 export type ScanClass =
   | {
@@ -55,7 +56,8 @@ export type ScanClass =
   | { kind: 'bin'; code: string }
   | { kind: 'lot'; itemSku: string; lotCode: string }
   | { kind: 'sku'; sku: string }
-  | { kind: 'invalid'; reason: string }
+  /** Why it is none of these: `reason` in English for logs, `problem` for the screen (worded in the user's language). */
+  | { kind: 'invalid'; reason: string; problem: Problem }
 
 export interface ScanOptions {
   binPrefix?: string
@@ -69,7 +71,7 @@ function fromElements(symbology: string | null, data: string, parse: (d: string)
   const result = parse(data)
   return result.ok
     ? { kind: 'gs1', symbology, fields: result.fields, order: result.order }
-    : { kind: 'invalid', symbology, reason: result.reason }
+    : { kind: 'invalid', symbology, reason: result.reason, problem: result.problem }
 }
 
 /**
@@ -85,7 +87,7 @@ export function parseScan(raw: string): ParsedScan {
     symbology = data.slice(0, 3)
     data = data.slice(3)
   }
-  if (data.length === 0) return { kind: 'invalid', symbology, reason: symbology ? `nothing after the ${symbology} prefix` : 'nothing was scanned' }
+  if (data.length === 0) return { kind: 'invalid', symbology, reason: symbology ? `nothing after the ${symbology} prefix` : 'nothing was scanned', problem: problem('scan_empty') }
   if (symbology && SYMBOLOGIES[symbology]?.gs1) return fromElements(symbology, data, parseElementData)
   if (symbology) return { kind: 'text', symbology, text: data }
   if (data.includes(GS)) return fromElements(null, data, parseElementData)
@@ -118,17 +120,17 @@ const startsWithPrefix = (text: string, prefix: string) => text.slice(0, prefix.
 function classifyOwnLabel(text: string, binPrefix: string, lotPrefix: string): ScanClass | null {
   if (startsWithPrefix(text, binPrefix)) {
     const code = text.slice(binPrefix.length)
-    const problem = binCodeProblem(code)
-    return problem ? { kind: 'invalid', reason: `bin label ${text}: ${problem}` } : { kind: 'bin', code }
+    const wrong = binCodeProblem(code)
+    return wrong ? { kind: 'invalid', reason: `bin label ${text}: ${wrong}`, problem: problem('scan_bin_label_invalid', { text }) } : { kind: 'bin', code }
   }
   if (startsWithPrefix(text, lotPrefix)) {
     const body = text.slice(lotPrefix.length)
     const cut = body.indexOf(LOT_SEPARATOR)
-    if (cut === -1) return { kind: 'invalid', reason: `lot label ${text}: no "${LOT_SEPARATOR}" between SKU and lot code` }
+    if (cut === -1) return { kind: 'invalid', reason: `lot label ${text}: no "${LOT_SEPARATOR}" between SKU and lot code`, problem: problem('scan_lot_label_invalid', { text }) }
     const itemSku = body.slice(0, cut)
     const lotCode = body.slice(cut + 1)
-    const problem = skuProblem(itemSku) ?? lotCodeProblem(lotCode)
-    return problem ? { kind: 'invalid', reason: `lot label ${text}: ${problem}` } : { kind: 'lot', itemSku, lotCode }
+    const wrong = skuProblem(itemSku) ?? lotCodeProblem(lotCode)
+    return wrong ? { kind: 'invalid', reason: `lot label ${text}: ${wrong}`, problem: problem('scan_lot_label_invalid', { text }) } : { kind: 'lot', itemSku, lotCode }
   }
   return null
 }
@@ -140,22 +142,22 @@ function classifyText(text: string, symbology: string | null, options: ScanOptio
   const own = classifyOwnLabel(text, options.binPrefix || BIN_PREFIX, options.lotPrefix || LOT_PREFIX)
   if (own) return own
   if (OLD_ITEM_PAGE_LINK.test(text)) {
-    return { kind: 'invalid', reason: 'This QR Code is from an older label and only opens the item\'s page: scan the bars on the same label, and print a new label when you can.' }
+    return { kind: 'invalid', reason: 'This QR Code is from an older label and only opens the item\'s page: scan the bars on the same label, and print a new label when you can.', problem: problem('scan_old_qr') }
   }
   const isEanUpc = symbology === ']E0' || symbology === ']E4'
   if (looksLikeGtin(text)) {
     const gtin = normalizeGtin(text)
-    return gtin.ok ? { kind: 'gtin', gtin: gtin.gtin14, scanned: text } : { kind: 'invalid', reason: `${text}: ${gtin.reason}` }
+    return gtin.ok ? { kind: 'gtin', gtin: gtin.gtin14, scanned: text } : { kind: 'invalid', reason: `${text}: ${gtin.reason}`, problem: gtin.problem }
   }
-  if (isEanUpc) return { kind: 'invalid', reason: `${text} is not a GTIN: an EAN/UPC barcode holds 8, 12 or 13 digits` }
+  if (isEanUpc) return { kind: 'invalid', reason: `${text} is not a GTIN: an EAN/UPC barcode holds 8, 12 or 13 digits`, problem: problem('scan_not_gtin', { text }) }
   if (SKU_PATTERN.test(text)) return { kind: 'sku', sku: text }
-  return { kind: 'invalid', reason: `"${text}" is not a Lumenyard code: a SKU holds only letters, digits and - . _ / (at most 40)` }
+  return { kind: 'invalid', reason: `"${text}" is not a Lumenyard code: a SKU holds only letters, digits and - . _ / (at most 40)`, problem: problem('scan_not_ours', { text }) }
 }
 
 /** What a scan means: GS1 data, a bare GTIN, one of our bin or lot labels, a SKU, or why it is none of these. */
 export function classifyScan(raw: string, options: ScanOptions = {}): ScanClass {
   const parsed = parseScan(raw)
-  if (parsed.kind === 'invalid') return { kind: 'invalid', reason: parsed.reason }
+  if (parsed.kind === 'invalid') return { kind: 'invalid', reason: parsed.reason, problem: parsed.problem }
   if (parsed.kind === 'gs1') return classifyGs1(parsed.fields)
   return classifyText(parsed.text, parsed.symbology, options)
 }

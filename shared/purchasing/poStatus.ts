@@ -20,7 +20,12 @@ export function canDo(action: PoAction, status: PoStatus): boolean {
   return FROM[action].includes(status)
 }
 
-/** Why an action is refused, in words for the screen; null when allowed. */
+/** The statuses an action may start from. */
+export function allowedFrom(action: PoAction): PoStatus[] {
+  return [...FROM[action]]
+}
+
+/** Why an action is refused, in English for the log; null when allowed. */
 export function refusal(action: PoAction, status: PoStatus): string | null {
   if (canDo(action, status)) return null
   const allowed = FROM[action].map(words)

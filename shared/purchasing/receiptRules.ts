@@ -1,5 +1,7 @@
 // How much may arrive against a PO line. Short is always fine (the rest stays on order); over is
 // accepted only with a reason and up to a tolerance, so a miscount can't double a receipt.
+import { problem, type Problem } from '../errors/errorCodes.js'
+
 /** How a receipt line differs from what was still open: more, less, or partly damaged. */
 export type ReceiptVariance = 'over' | 'short' | 'damaged'
 
@@ -22,7 +24,7 @@ export interface LineReceiptCheck {
 
 export type LineReceiptVerdict =
   | { ok: true; variance: ReceiptVariance | null }
-  | { ok: false; field: 'qty' | 'reason'; message: string }
+  | { ok: false; field: 'qty' | 'reason'; message: string; problem: Problem }
 
 /** Checks one PO line's share of a receipt (all of its entries added up). */
 export function checkLineReceipt(c: LineReceiptCheck): LineReceiptVerdict {
@@ -31,9 +33,10 @@ export function checkLineReceipt(c: LineReceiptCheck): LineReceiptVerdict {
   if (after > c.qtyOrdered) {
     const limit = c.qtyOrdered + overReceiptAllowance(c.qtyOrdered)
     if (after > limit) {
-      return { ok: false, field: 'qty', message: `Only ${Math.max(0, limit - c.qtyReceived)} more can be received (${open} open plus the over-receipt allowance).` }
+      const max = Math.max(0, limit - c.qtyReceived)
+      return { ok: false, field: 'qty', message: `Only ${max} more can be received (${open} open plus the over-receipt allowance).`, problem: problem('over_receipt', { max }) }
     }
-    if (!c.hasReason) return { ok: false, field: 'reason', message: `More than the ${open} still open: say why` }
+    if (!c.hasReason) return { ok: false, field: 'reason', message: `More than the ${open} still open: say why`, problem: problem('over_receipt_reason', { open }) }
     return { ok: true, variance: 'over' }
   }
   if (c.damagedQty > 0) return { ok: true, variance: 'damaged' }

@@ -1,5 +1,6 @@
 // What a handheld tells the server about its outbox, and what the warehouse's start page reads back.
 import { z } from 'zod'
+import { issueCode } from '../errors/zodProblems.js'
 
 /** A device's own random id, kept in its browser storage. */
 export const DEVICE_ID_PATTERN = /^[A-Za-z0-9-]{8,64}$/
@@ -7,7 +8,7 @@ export const DEVICE_ID_PATTERN = /^[A-Za-z0-9-]{8,64}$/
 export const deviceOutboxReportSchema = z.object({
   waiting: z.number().int().min(0).max(100_000),
   refused: z.number().int().min(0).max(100_000),
-  oldestWaitingAt: z.iso.datetime({ offset: true, error: 'A date and time' }).nullable().optional(),
+  oldestWaitingAt: z.iso.datetime({ offset: true, error: issueCode('invalid_date') }).nullable().optional(),
   warehouseId: z.number().int().positive().nullable().optional(),
 })
 export type DeviceOutboxReportInput = z.infer<typeof deviceOutboxReportSchema>

@@ -62,7 +62,7 @@ export const pickConfirmSchema = z
     /** Closes the line short: what was not there and why. */
     shortReason: z.enum(SHORT_REASONS).optional().nullable(),
     /** When the picker confirmed on the device (it may reach the server much later). */
-    scannedAt: z.iso.datetime({ offset: true, error: 'A date and time' }).optional().nullable(),
+    scannedAt: z.iso.datetime({ offset: true, error: issueCode('invalid_date') }).optional().nullable(),
   })
   .refine((c) => c.qty > 0 || !!c.shortReason, { path: ['qty'], ...issueOf('qty_or_short') })
   .refine((c) => c.qty === 0 || !!c.itemScan?.trim(), { path: ['itemScan'], ...issueOf('scan_item') })

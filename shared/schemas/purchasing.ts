@@ -196,14 +196,14 @@ export type ReceiveInput = z.infer<typeof receiveSchema>
  * deliver, and where replies go. The document unit is how lengths (a shower base's size) are written.
  */
 export const companyProfileSchema = z.object({
-  legalName: z.string().trim().min(1, 'Enter the company name vendors bill').max(160, 'At most 160 characters'),
-  billToAddress: z.string().trim().min(1, 'Enter the address invoices go to').max(400, 'At most 400 characters'),
+  legalName: z.string().trim().min(1, issueCode('company_name_needed')).max(160),
+  billToAddress: z.string().trim().min(1, issueCode('bill_to_needed')).max(400),
   shipToAddress: optionalText(400),
   phone: optionalText(40),
   email: z.union([emailSchema, z.literal('')]).nullish().transform((v) => v || null),
   replyTo: z.union([emailSchema, z.literal('')]).nullish().transform((v) => v || null),
   taxNumber: optionalText(40),
-  documentUnit: z.enum(['in', 'mm'], { error: 'Inches or millimetres' }),
+  documentUnit: z.enum(['in', 'mm'], { error: issueCode('length_unit_choice') }),
 })
 export type CompanyProfileInput = z.infer<typeof companyProfileSchema>
 export interface CompanyProfile extends CompanyProfileInput {

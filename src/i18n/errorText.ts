@@ -10,7 +10,7 @@ import { i18n } from '@/i18n'
 
 const MEASURED = new Set(['min', 'max', 'value'])
 /** List values that offer a choice ("xlsx or csv"); other lists are joined with "and". */
-const ALTERNATIVES = new Set(['options', 'allowed', 'families'])
+const ALTERNATIVES = new Set(['options', 'allowed', 'families', 'statuses'])
 
 // The signed-in user's length unit, kept here by App.vue (the session store imports the API client,
 // which imports this file, so this file does not import the store).
@@ -41,6 +41,7 @@ const VALUE_WORDS: Record<string, string> = {
   family: 'catalog.families',
   families: 'catalog.families',
   poStatus: 'purchasing.statuses',
+  statuses: 'purchasing.statuses',
 }
 
 function valueWord(name: string, value: string): string {

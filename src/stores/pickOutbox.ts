@@ -47,7 +47,7 @@ let lastSeq = 0
 const nextSeq = () => (lastSeq = Math.max(Date.now() * 1000, lastSeq + 1))
 
 /** Answers worth waiting out (busy, a fault, the same key still being recorded), not refusals. */
-const transient = (err: ApiError) => err.status >= 500 || err.status === 429 || err.code === 'duplicate_confirmation' || err.code === 'conflict'
+const transient = (err: ApiError) => err.status >= 500 || err.status === 429 || err.code === 'duplicate_confirmation' || err.code === 'idempotency_in_progress'
 
 export const usePickOutboxStore = defineStore('pickOutbox', () => {
   const session = useSessionStore()

@@ -66,7 +66,7 @@ describe('making a pick list', () => {
     expect(await balanceOf(h.ds, s.block.id, s.main.bins['A-03-1'])).toEqual(before)
     const after = await detail(list.id)
     expect(after.history.map((x) => x.status)).toEqual(['draft', 'cancelled'])
-    expect((await counter.post(`/api/pick-lists/${list.id}/cancel`).set(CSRF).send({})).body.error.code).toBe('wrong_status')
+    expect((await counter.post(`/api/pick-lists/${list.id}/cancel`).set(CSRF).send({})).body.error.code).toBe('pick_list_status')
   })
 
   it('refuses bad input with 400 and field messages, writing nothing', async () => {
@@ -121,7 +121,7 @@ describe('picking by scanner and completing', () => {
   const good = () => ({ lineId: blockLine, binScan: 'B:A-01-1', itemScan: `(02)${s.block.gtin}(37)8(10)${lotCode(s, 'R2')}`, qty: 8 })
 
   it('refuses confirmations on a draft, then releases once', async () => {
-    expect((await confirm(id, good())).body.error.code).toBe('wrong_status')
+    expect((await confirm(id, good())).body.error.code).toBe('pick_list_status')
     const rel = await counter.post(`/api/pick-lists/${id}/release`).set(CSRF).send({})
     expect(rel.status).toBe(200)
     expect((await counter.post(`/api/pick-lists/${id}/release`).set(CSRF).send({})).status).toBe(409)
@@ -189,7 +189,7 @@ describe('picking by scanner and completing', () => {
     const list = await detail(id)
     expect(list.history.map((x) => x.status)).toEqual(['draft', 'released', 'picking', 'picked'])
     expect(list.confirmations.every((c) => c.issued)).toBe(true)
-    expect((await crew.post(`/api/pick-lists/${id}/complete`).set(CSRF).send({})).body.error.code).toBe('wrong_status')
+    expect((await crew.post(`/api/pick-lists/${id}/complete`).set(CSRF).send({})).body.error.code).toBe('pick_list_status')
     expect((await counter.post(`/api/pick-lists/${id}/cancel`).set(CSRF).send({})).status).toBe(409)
   })
 })

@@ -146,7 +146,7 @@ describe('a line closed short', () => {
     const post = (body: object) => counter.post(`/api/pick-lists/${id}/short-resolutions`).set(CSRF).set('Idempotency-Key', randomUUID()).send(body)
     const recount = await post({ lineId: l.id, action: 'recount', qty: 3 })
     expect(recount.status).toBe(409)
-    expect(recount.body.error.code).toBe('wrong_status')
+    expect(recount.body.error.code).toBe('pick_list_status')
     const back = await post({ lineId: l.id, action: 'backorder', qty: 3 })
     expect(back.status).toBe(200)
     expect(back.body).toMatchObject({ shortQty: 3, shortResolvedQty: 3, remaining: 0 })

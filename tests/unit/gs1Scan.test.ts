@@ -58,15 +58,15 @@ describe('parseScan: symbology identifiers and separators', () => {
   })
 
   it('bad GS1 data gets a reason', () => {
-    expect(parseScan('')).toEqual({ kind: 'invalid', symbology: null, reason: 'nothing was scanned' })
-    expect(parseScan(']C1')).toEqual({ kind: 'invalid', symbology: ']C1', reason: 'nothing after the ]C1 prefix' })
+    expect(parseScan('')).toEqual({ kind: 'invalid', symbology: null, reason: 'nothing was scanned', problem: { code: 'scan_empty' } })
+    expect(parseScan(']C1')).toEqual({ kind: 'invalid', symbology: ']C1', reason: 'nothing after the ]C1 prefix', problem: { code: 'scan_empty' } })
     expect(parseScan(`]C101${GTIN.slice(0, -1)}3`)).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('check digit should be 2, not 3') })
-    expect(parseScan(`]C101${GTIN.slice(0, 9)}`)).toMatchObject({ kind: 'invalid', reason: '(01) GTIN is cut short: 14 digits needed, 9 found' })
+    expect(parseScan(`]C101${GTIN.slice(0, 9)}`)).toMatchObject({ kind: 'invalid', reason: '(01) GTIN is cut short: 14 digits needed, 9 found', problem: { code: 'scan_gs1_field_invalid', params: { ai: '01' } } })
     expect(parseScan(`]C101${GTIN}15261231`)).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('unsupported GS1 AI at "1526') })
     expect(parseScan(`]C110${'A'.repeat(21)}`)).toMatchObject({ kind: 'invalid', reason: '(10) lot must be 1 to 20 characters (got 21)' })
     expect(parseScan(`]C101${GTIN}10A${GS}10B`)).toMatchObject({ kind: 'invalid', reason: '(10) lot appears twice with different values' })
     expect(parseScan(`]C101${GTIN}10A${GS}10A`)).toMatchObject({ kind: 'gs1', fields: { '10': 'A' } })
-    expect(parseScan('(15)261231')).toMatchObject({ kind: 'invalid', reason: 'AI (15) is not one Lumenyard reads' })
+    expect(parseScan('(15)261231')).toMatchObject({ kind: 'invalid', reason: 'AI (15) is not one Lumenyard reads', problem: { code: 'scan_gs1_unreadable' } })
     expect(parseScan(`]C117261332`)).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('month must be 01 to 12') })
   })
 })
@@ -95,7 +95,10 @@ describe('classifyScan', () => {
   })
 
   it('a GTIN-length number with a wrong check digit is refused with the reason', () => {
-    expect(classifyScan('9506000134353')).toEqual({ kind: 'invalid', reason: '9506000134353: GTIN-13 check digit should be 2, not 3' })
+    expect(classifyScan('9506000134353')).toEqual({
+      kind: 'invalid', reason: '9506000134353: GTIN-13 check digit should be 2, not 3',
+      problem: { code: 'check_digit_wrong', params: { label: 'GTIN-13', expected: 2, actual: 3 } },
+    })
     expect(classifyScan(']E0ABC')).toMatchObject({ kind: 'invalid' })
   })
 
@@ -112,7 +115,9 @@ describe('classifyScan', () => {
   it('our lot labels', () => {
     expect(LOT_PREFIX).toBe('L:')
     expect(classifyScan('L:GB-8812|R2405')).toEqual({ kind: 'lot', itemSku: 'GB-8812', lotCode: 'R2405' })
-    expect(classifyScan('L:GB-8812R2405')).toEqual({ kind: 'invalid', reason: 'lot label L:GB-8812R2405: no "|" between SKU and lot code' })
+    expect(classifyScan('L:GB-8812R2405')).toEqual({
+      kind: 'invalid', reason: 'lot label L:GB-8812R2405: no "|" between SKU and lot code', problem: { code: 'scan_lot_label_invalid', params: { text: 'L:GB-8812R2405' } },
+    })
     expect(classifyScan('L:GB-8812|R 24')).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('(10) lot may only hold') })
     expect(classifyScan('L:|R2405')).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('SKU "" must be') })
   })
@@ -124,7 +129,7 @@ describe('classifyScan', () => {
     expect(classifyScan('two words')).toMatchObject({ kind: 'invalid' })
     // the square code of item and lot labels printed before it carried the bars' data: an item page's address
     expect(classifyScan('https://yard.example/stock/items/42')).toMatchObject({ kind: 'invalid', reason: expect.stringContaining('scan the bars') })
-    expect(classifyScan('  \r\n')).toEqual({ kind: 'invalid', reason: 'nothing was scanned' })
+    expect(classifyScan('  \r\n')).toEqual({ kind: 'invalid', reason: 'nothing was scanned', problem: { code: 'scan_empty' } })
   })
 })
 

@@ -137,7 +137,7 @@ describe('receiving scans', () => {
   })
 
   it('says why a code fits nothing on the order', () => {
-    expect(readReceivingScan('GB-9999', lines)).toEqual({ kind: 'error', message: 'GB-9999 is not on this purchase order.' })
+    expect(readReceivingScan('GB-9999', lines)).toEqual({ kind: 'error', message: 'GB-9999 is not on this purchase order.', problem: { code: 'scan_not_on_order', params: { code: 'GB-9999' } } })
     expect(readReceivingScan('', lines).kind).toBe('error')
   })
 })

@@ -28,7 +28,7 @@ describe('scanLookup', () => {
   })
 
   it('refuses a pallet label (SSCC only): it names no single item', () => {
-    expect(lookup(`]C100${SSCC}`)).toEqual({ ok: false, problem: 'noGtin' })
+    expect(lookup(`]C100${SSCC}`)).toEqual({ ok: false, problem: { code: 'scan_no_gtin' } })
   })
 
   it('reads our own bin and lot labels, the prefix in either case (Caps Lock on a keyboard wedge)', () => {
@@ -38,11 +38,11 @@ describe('scanLookup', () => {
     expect(lookup('GB-8812\r\n')).toEqual({ ok: true, query: { kind: 'sku', code: 'GB-8812' } })
   })
 
-  it('gives the reason for what it cannot read', () => {
+  it('gives a coded problem (worded by the screen) for what it cannot read', () => {
     const bad = lookup(GTIN.slice(0, -1) + '3') // wrong check digit
-    expect(bad).toMatchObject({ ok: false, problem: 'invalid' })
-    expect((bad as { reason: string }).reason).toMatch(/check digit/i)
-    expect(lookup('two words!')).toMatchObject({ ok: false, problem: 'invalid' })
+    expect(bad).toMatchObject({ ok: false, problem: { code: 'check_digit_wrong', params: { label: 'GTIN-14' } } })
+    expect(lookup('two words!')).toEqual({ ok: false, problem: { code: 'scan_not_ours', params: { text: 'two words!' } } })
+    expect(lookup('B:A 03')).toEqual({ ok: false, problem: { code: 'scan_bin_label_invalid', params: { text: 'B:A 03' } } })
   })
 })
 

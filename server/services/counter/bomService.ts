@@ -11,7 +11,7 @@ import { Job, Takeoff } from '../../entities/Customer.js'
 import { BomSnapshot } from '../../entities/TakeoffSettings.js'
 import { User } from '../../entities/User.js'
 import { inTransaction } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { availabilityFor } from './availability.js'
 import { computeOffThread } from './computeRunner.js'
@@ -48,16 +48,16 @@ function lineRows(bill: CounterBill, bomId: number): Partial<BomLine>[] {
 async function lockedJob(em: EntityManager, jobId: number): Promise<Job> {
   // The job row lock serialises saves, so two counters saving at once get revisions n and n + 1.
   const job = await em.findOne(Job, { where: { id: jobId }, lock: { mode: 'pessimistic_write' } })
-  if (!job) throw AppError.notFound('That job')
+  if (!job) throw AppError.notFound('job_not_found', 'That job was not found.')
   if (job.status === 'cancelled' || job.status === 'complete') {
-    throw AppError.conflict(`The job is ${job.status}; reopen it before saving a bill.`, 'job_closed')
+    throw AppError.conflict('job_closed', `The job is ${job.status}; reopen it before saving a bill.`)
   }
   return job
 }
 
 async function takeoffOfJob(em: EntityManager, actor: AuditActor, jobId: number, input: BomSaveInput): Promise<Takeoff> {
   const takeoff = await em.findOneBy(Takeoff, { id: input.takeoffId })
-  if (!takeoff || takeoff.jobId !== jobId) throw AppError.badRequest('Choose a takeoff of this job.', { takeoffId: 'Not a takeoff of this job' })
+  if (!takeoff || takeoff.jobId !== jobId) throw AppError.badRequest('takeoff_not_in_job', 'Choose a takeoff of this job.', { fields: { takeoffId: problem('takeoff_not_in_job') } })
   return input.input ? replaceTakeoffInput(em, actor, takeoff.id, input.input) : takeoff
 }
 
@@ -68,8 +68,8 @@ export async function writeBomRevision(em: EntityManager, actor: AuditActor, job
   const takeoffInput = takeoffSchema.parse(JSON.parse(takeoff.inputJson))
   const bill = await computeOffThread(takeoffInput, await loadCounterCatalog(em), unit, 'full')
   const blockers = saveBlockers(bill)
-  if (blockers.length > 0) throw AppError.unprocessable(`The bill cannot be saved yet: ${blockers.join(' ')}`, 'bill_not_ready')
-  if (bill.lines.length === 0) throw AppError.unprocessable('The takeoff gives no lines: add a wall or an item first.', 'bill_empty')
+  if (blockers.length > 0) throw AppError.unprocessable('bill_not_ready', `The bill cannot be saved yet: ${blockers.join(' ')}`)
+  if (bill.lines.length === 0) throw AppError.unprocessable('bill_empty', 'The takeoff gives no lines: add a wall or an item first.')
   const last: { revision: number | null } | undefined = await em
     .createQueryBuilder(Bom, 'b')
     .select('MAX(b.revision)', 'revision')
@@ -117,7 +117,7 @@ function toLineRecord(l: BomLine): BomLineRecord {
 
 export async function getBom(ds: DataSource, id: number): Promise<BomRecord> {
   const bom = await ds.getRepository(Bom).findOneBy({ id })
-  if (!bom) throw AppError.notFound('That bill of materials')
+  if (!bom) throw AppError.notFound('bom_not_found', 'That bill of materials was not found.')
   const [lines, snapshot, takeoff, job, author] = await Promise.all([
     ds.getRepository(BomLine).find({ where: { bomId: id }, order: { lineNo: 'ASC' } }),
     ds.getRepository(BomSnapshot).findOneBy({ bomId: id }),

@@ -52,7 +52,7 @@ export async function listCustomers(ds: DataSource, query: { q?: string; active:
 
 export async function getCustomer(ds: DataSource, id: number): Promise<CustomerSummary> {
   const c = await ds.getRepository(Customer).findOneBy({ id })
-  if (!c) throw AppError.notFound('That customer')
+  if (!c) throw AppError.notFound('customer_not_found', 'That customer was not found.')
   const counts = await openJobCounts(ds, [id])
   return toCustomerSummary(c, counts.get(id) ?? 0)
 }
@@ -77,7 +77,7 @@ export async function updateCustomer(ds: DataSource, actor: AuditActor, id: numb
   try {
     await inTransaction(ds, async (em) => {
       const c = await em.findOne(Customer, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!c) throw AppError.notFound('That customer')
+      if (!c) throw AppError.notFound('customer_not_found', 'That customer was not found.')
       Object.assign(c, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)))
       await em.save(c)
       await audit(em, actor, 'customer.update', 'customer', id, input)
@@ -93,9 +93,9 @@ export async function updateCustomer(ds: DataSource, actor: AuditActor, id: numb
 export async function deleteCustomer(ds: DataSource, actor: AuditActor, id: number): Promise<{ ok: true }> {
   return inTransaction(ds, async (em) => {
     const c = await em.findOne(Customer, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!c) throw AppError.notFound('That customer')
+    if (!c) throw AppError.notFound('customer_not_found', 'That customer was not found.')
     if ((await em.countBy(Job, { customerId: id })) > 0) {
-      throw AppError.conflict('This account has jobs; deactivate it instead of removing it.', 'has_jobs')
+      throw AppError.conflict('has_jobs', 'This account has jobs; deactivate it instead of removing it.')
     }
     await em.delete(Customer, { id })
     await audit(em, actor, 'customer.delete', 'customer', id, { code: c.code })

@@ -12,7 +12,7 @@ import type {
 } from '../../../shared/schemas/counter.js'
 import { Customer, Job } from '../../entities/Customer.js'
 import { inTransaction } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { getCustomer, likePattern } from './customerService.js'
 
@@ -83,7 +83,7 @@ export async function listJobs(
 
 export async function getJobSummary(ds: DataSource, id: number): Promise<JobSummary> {
   const rows: JobRow[] = await ds.query(`${JOB_SELECT} WHERE j.id = ?`, [id])
-  if (rows.length === 0) throw AppError.notFound('That job')
+  if (rows.length === 0) throw AppError.notFound('job_not_found', 'That job was not found.')
   return toJobSummary(rows[0])
 }
 
@@ -120,8 +120,8 @@ export async function getJob(ds: DataSource, id: number): Promise<JobDetail> {
 export async function createJob(ds: DataSource, actor: AuditActor, input: JobCreateInput): Promise<JobSummary> {
   const id = await inTransaction(ds, async (em) => {
     const customer = await em.findOneBy(Customer, { id: input.customerId })
-    if (!customer) throw AppError.badRequest('Choose an existing customer.', { customerId: 'No such customer' })
-    if (!customer.active) throw AppError.badRequest('That account is deactivated.', { customerId: 'The account is deactivated' })
+    if (!customer) throw AppError.badRequest('customer_not_found', 'Choose an existing customer.', { fields: { customerId: problem('customer_not_found') } })
+    if (!customer.active) throw AppError.badRequest('customer_inactive', 'That account is deactivated.', { fields: { customerId: problem('customer_inactive') } })
     const job = em.create(Job, { ...input, createdBy: actor.userId })
     await em.save(job)
     await audit(em, actor, 'job.create', 'job', job.id, { customerId: input.customerId, name: input.name })
@@ -133,7 +133,7 @@ export async function createJob(ds: DataSource, actor: AuditActor, input: JobCre
 export async function updateJob(ds: DataSource, actor: AuditActor, id: number, input: JobUpdateInput): Promise<JobSummary> {
   await inTransaction(ds, async (em) => {
     const job = await em.findOne(Job, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!job) throw AppError.notFound('That job')
+    if (!job) throw AppError.notFound('job_not_found', 'That job was not found.')
     Object.assign(job, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)))
     await em.save(job)
     await audit(em, actor, 'job.update', 'job', id, input)

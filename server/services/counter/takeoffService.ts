@@ -16,15 +16,15 @@ export function toTakeoffRecord(t: Takeoff): TakeoffRecord {
 
 export async function getTakeoff(ds: DataSource, id: number): Promise<TakeoffRecord> {
   const t = await ds.getRepository(Takeoff).findOneBy({ id })
-  if (!t) throw AppError.notFound('That takeoff')
+  if (!t) throw AppError.notFound('takeoff_not_found', 'That takeoff was not found.')
   return toTakeoffRecord(t)
 }
 
 async function openJob(em: EntityManager, jobId: number): Promise<Job> {
   const job = await em.findOneBy(Job, { id: jobId })
-  if (!job) throw AppError.notFound('That job')
+  if (!job) throw AppError.notFound('job_not_found', 'That job was not found.')
   if (job.status === 'cancelled' || job.status === 'complete') {
-    throw AppError.conflict(`The job is ${job.status}; reopen it before changing its takeoffs.`, 'job_closed')
+    throw AppError.conflict('job_closed', `The job is ${job.status}; reopen it before changing its takeoffs.`)
   }
   return job
 }
@@ -46,7 +46,7 @@ export async function createTakeoff(ds: DataSource, actor: AuditActor, jobId: nu
 /** Replaces a takeoff's input inside the caller's transaction; the row stays locked until it commits. */
 export async function replaceTakeoffInput(em: EntityManager, actor: AuditActor, id: number, input: TakeoffInput, name?: string): Promise<Takeoff> {
   const t = await em.findOne(Takeoff, { where: { id }, lock: { mode: 'pessimistic_write' } })
-  if (!t) throw AppError.notFound('That takeoff')
+  if (!t) throw AppError.notFound('takeoff_not_found', 'That takeoff was not found.')
   await openJob(em, t.jobId)
   t.inputJson = JSON.stringify(input)
   if (name) t.name = name
@@ -64,9 +64,9 @@ export async function updateTakeoff(ds: DataSource, actor: AuditActor, id: numbe
 export async function deleteTakeoff(ds: DataSource, actor: AuditActor, id: number): Promise<{ ok: true }> {
   return inTransaction(ds, async (em) => {
     const t = await em.findOne(Takeoff, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!t) throw AppError.notFound('That takeoff')
+    if (!t) throw AppError.notFound('takeoff_not_found', 'That takeoff was not found.')
     if ((await em.countBy(Bom, { takeoffId: id })) > 0) {
-      throw AppError.conflict('A saved bill of materials was computed from this takeoff; it is kept with the bill.', 'has_bom')
+      throw AppError.conflict('has_bom', 'A saved bill of materials was computed from this takeoff; it is kept with the bill.')
     }
     await em.delete(Takeoff, { id })
     await audit(em, actor, 'takeoff.delete', 'takeoff', id, { jobId: t.jobId, name: t.name })

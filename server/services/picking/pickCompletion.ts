@@ -24,7 +24,7 @@ async function closeOpenLines(em: EntityManager, actor: StockActor, list: PickLi
   if (!open.length) return 0
   if (!acceptShort) {
     const units = open.reduce((a, l) => a + l.qty - l.confirmedQty - l.shortQty, 0)
-    throw AppError.conflict(`${open.length} line(s) of ${pickNumber(list.id)} still have ${units} unit(s) to pick: finish them, or complete it as a partial pick.`, 'lines_open')
+    throw AppError.conflict('lines_open', `${open.length} line(s) of ${pickNumber(list.id)} still have ${units} unit(s) to pick: finish them, or complete it as a partial pick.`)
   }
   let closed = 0
   for (const line of open) {
@@ -42,7 +42,7 @@ async function closeOpenLines(em: EntityManager, actor: StockActor, list: PickLi
 
 async function issueConfirmation(em: EntityManager, actor: StockActor, list: PickList, line: PickListLine, c: PickConfirmation): Promise<string> {
   const reservation = await em.findOneBy(StockReservation, { docType: PICK_DOC, docId: list.id, docLineId: line.id })
-  if (!reservation) throw AppError.conflict(`The stock held for a line of ${pickNumber(list.id)} is gone; it cannot be issued.`, 'reservation_missing')
+  if (!reservation) throw AppError.conflict('reservation_missing', `The stock held for a line of ${pickNumber(list.id)} is gone; it cannot be issued.`)
   const applied = await pickReserved(em, actor, {
     reservationId: reservation.id, qty: c.qty, doc: { docType: PICK_DOC, docId: list.id, docLineId: line.id }, note: `confirmation ${c.id}`,
   })
@@ -52,10 +52,10 @@ async function issueConfirmation(em: EntityManager, actor: StockActor, list: Pic
 export async function completePickList(em: EntityManager, actor: StockActor, id: number, opts: { acceptShort: boolean }): Promise<CompletionResult> {
   // Same lock order as making a list from this bill of materials: the bill of materials, then the list.
   const unlocked = await em.findOneBy(PickList, { id })
-  if (!unlocked) throw AppError.notFound('That pick list')
+  if (!unlocked) throw AppError.notFound('pick_list_not_found', 'That pick list was not found.')
   await em.findOne(Bom, { where: { id: unlocked.bomId }, lock: { mode: 'pessimistic_write' } })
   const list = await lockPickList(em, id)
-  requireStatus(list, ['released', 'picking'], 'completed')
+  requireStatus(list, ['released', 'picking'], 'complete')
   const lines = await em.find(PickListLine, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
   const closedShort = await closeOpenLines(em, actor, list, lines, opts.acceptShort)
   // Locking reads see every confirmation committed before the list lock was granted, not an older snapshot.

@@ -9,7 +9,7 @@ import { Bin } from '../../entities/Bin.js'
 import { Item } from '../../entities/Item.js'
 import { Lot } from '../../entities/Lot.js'
 import { PickConfirmation, PickList, PickListLine } from '../../entities/PickList.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { isDuplicateKey } from '../../db/transaction.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { requestCountForShortPick } from '../counts/countShortPick.js'
@@ -41,7 +41,7 @@ async function checkScans(em: EntityManager, line: PickListLine, input: PickConf
   const check = checkConfirmationScans(input, target, input.qty)
   if (!check.ok) {
     const expected = check.problem === 'wrong_bin' ? ` Go to ${bin.code}.` : check.problem === 'wrong_lot' ? ` Take lot ${lot?.code}.` : check.problem === 'wrong_item' ? ` This line is ${item.sku}.` : ''
-    throw AppError.conflict(`${PROBLEM_TEXT[check.problem]}${check.scanned ? ` Scanned: ${check.scanned}.` : ''}${expected} Nothing was recorded.`, check.problem)
+    throw AppError.conflict(check.problem, `${PROBLEM_TEXT[check.problem]}${check.scanned ? ` Scanned: ${check.scanned}.` : ''}${expected} Nothing was recorded.`)
   }
 }
 
@@ -49,7 +49,7 @@ async function checkScans(em: EntityManager, line: PickListLine, input: PickConf
 async function replay(em: EntityManager, pickListId: number, clientKey: string): Promise<PickConfirmAnswer | null> {
   const earlier = await em.findOneBy(PickConfirmation, { clientKey })
   if (!earlier) return null
-  if (earlier.pickListId !== pickListId) throw AppError.unprocessable('This Idempotency-Key was already used for another pick list.', 'idempotency_key_reused')
+  if (earlier.pickListId !== pickListId) throw AppError.unprocessable('idempotency_key_reused', 'This Idempotency-Key was already used for another pick list.')
   const line = await em.findOneByOrFail(PickListLine, { id: earlier.lineId })
   const list = await lockPickList(em, pickListId)
   return confirmationAnswer(earlier, line, list.status, true)
@@ -59,23 +59,23 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
   const earlier = await replay(em, pickListId, clientKey)
   if (earlier) return earlier
   const list = await lockPickList(em, pickListId)
-  requireStatus(list, ['released', 'picking'], 'picked now')
+  requireStatus(list, ['released', 'picking'], 'pick')
   const line = await em.findOne(PickListLine, { where: { id: input.lineId, pickListId }, lock: { mode: 'pessimistic_write' } })
-  if (!line) throw AppError.badRequest('That line is not on this pick list.', { lineId: 'Not on this pick list' })
+  if (!line) throw AppError.badRequest('line_not_on_list', 'That line is not on this pick list.', { fields: { lineId: problem('line_not_on_list') } })
   await checkScans(em, line, input)
   const remaining = line.qty - line.confirmedQty - line.shortQty
   if (input.qty > remaining) {
-    throw AppError.conflict(`Only ${remaining} left to pick on this line; ${input.qty} is too many. Nothing was recorded.`, 'over_pick')
+    throw AppError.conflict('over_pick', `Only ${remaining} left to pick on this line; ${input.qty} is too many. Nothing was recorded.`, { params: { left: remaining, qty: input.qty } })
   }
   const shortQty = input.shortReason ? remaining - input.qty : 0
-  if (input.shortReason && shortQty === 0 && input.qty === 0) throw AppError.conflict('This line has nothing left to close short.', 'over_pick')
+  if (input.shortReason && shortQty === 0 && input.qty === 0) throw AppError.conflict('nothing_to_close_short', 'This line has nothing left to close short.')
   const confirmation = await em.save(em.create(PickConfirmation, {
     pickListId, lineId: line.id, qty: input.qty, shortQty, shortReason: shortQty > 0 ? input.shortReason! : null, clientKey,
     binScan: input.binScan, itemScan: input.itemScan ?? null, lotScan: input.lotScan ?? null,
     scannedAt: input.scannedAt ? new Date(input.scannedAt) : null, confirmedBy: actor.userId, moveId: null, issuedAt: null,
   })).catch((err: unknown) => {
     // The same key sent at once by another session: that one wins; a retry of this one replays it.
-    if (isDuplicateKey(err)) throw AppError.conflict('This confirmation is already being recorded; it will show in a moment.', 'duplicate_confirmation')
+    if (isDuplicateKey(err)) throw AppError.conflict('duplicate_confirmation', 'This confirmation is already being recorded; it will show in a moment.')
     throw err
   })
   // Not in the bin: the bin is counted, so the stock figures catch up with the shelf.

@@ -5,7 +5,7 @@
 import type { EntityManager } from 'typeorm'
 import type { PickDiscardAnswer, PickDiscardInput } from '../../../shared/schemas/picking.js'
 import { PickConfirmation, PickListLine } from '../../entities/PickList.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { confirmationAnswer } from './pickConfirmations.js'
 import { lockPickList } from './pickListLocks.js'
@@ -14,10 +14,10 @@ export async function discardConfirmation(em: EntityManager, actor: AuditActor, 
   // The list lock orders this after any confirmation of the same list still being recorded.
   const list = await lockPickList(em, pickListId)
   const line = await em.findOneBy(PickListLine, { id: input.lineId, pickListId })
-  if (!line) throw AppError.badRequest('That line is not on this pick list.', { lineId: 'Not on this pick list' })
+  if (!line) throw AppError.badRequest('line_not_on_list', 'That line is not on this pick list.', { fields: { lineId: problem('line_not_on_list') } })
   const earlier = await em.findOneBy(PickConfirmation, { clientKey: input.clientKey })
   if (earlier) {
-    if (earlier.pickListId !== pickListId) throw AppError.unprocessable('This confirmation key belongs to another pick list.', 'idempotency_key_reused')
+    if (earlier.pickListId !== pickListId) throw AppError.unprocessable('idempotency_key_reused', 'This confirmation key belongs to another pick list.')
     const recordedLine = await em.findOneByOrFail(PickListLine, { id: earlier.lineId })
     return { discarded: false, recorded: confirmationAnswer(earlier, recordedLine, list.status, true) }
   }

@@ -35,7 +35,7 @@ async function reserveLines(em: EntityManager, actor: StockActor, list: PickList
 /** A reservation refused for lack of stock means someone took it since the plan was read. */
 function stockTaken(err: unknown): never {
   if (err instanceof AppError && err.code === 'insufficient_stock') {
-    throw AppError.conflict(`The stock changed while this pick list was being made: ${err.message} Nothing was reserved; look at the plan again.`, 'stock_taken')
+    throw AppError.conflict('stock_taken', `The stock changed while this pick list was being made: ${err.message} Nothing was reserved; look at the plan again.`)
   }
   throw err
 }
@@ -47,7 +47,7 @@ export async function createPickLists(em: EntityManager, actor: StockActor, inpu
   const byWarehouse = new Map<number, AllocatedLine[]>()
   for (const a of [...plan.allocated, ...outcome.lines]) byWarehouse.set(a.warehouseId, [...(byWarehouse.get(a.warehouseId) ?? []), a])
   if (!byWarehouse.size && !outcome.transfers.length) {
-    throw AppError.conflict(`Nothing of this bill of materials is left to pick at ${plan.ctx.warehouse.name}: choose another warehouse, split, or transfer.`, 'nothing_to_pick')
+    throw AppError.conflict('nothing_to_pick', `Nothing of this bill of materials is left to pick at ${plan.ctx.warehouse.name}: choose another warehouse, split, or transfer.`, { params: { warehouse: plan.ctx.warehouse.name } })
   }
   const base = { bomId: plan.ctx.bom.id, jobId: plan.ctx.job.id }
   const ids: number[] = []

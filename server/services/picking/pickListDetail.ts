@@ -75,7 +75,7 @@ async function people(em: EntityManager, ids: (number | null)[]): Promise<(id: n
 
 export async function pickListDetail(em: EntityManager, id: number): Promise<PickListDetail> {
   const list = await em.findOneBy(PickList, { id })
-  if (!list) throw AppError.notFound('That pick list')
+  if (!list) throw AppError.notFound('pick_list_not_found', 'That pick list was not found.')
   const [summary] = await pickListSummaries(em, { ids: [id], status: 'all' })
   const warehouse = await em.findOneByOrFail(Warehouse, { id: list.warehouseId })
   const confirmations = await em.find(PickConfirmation, { where: { pickListId: id }, order: { id: 'ASC' } })

@@ -10,7 +10,7 @@ import { lockPickList, requireStatus } from './pickListLocks.js'
 
 export async function releasePickList(em: EntityManager, actor: StockActor, id: number): Promise<void> {
   const list = await lockPickList(em, id)
-  requireStatus(list, ['draft'], 'released')
+  requireStatus(list, ['draft'], 'release')
   list.status = 'released'
   list.releasedBy = actor.userId
   list.releasedAt = new Date()
@@ -19,7 +19,7 @@ export async function releasePickList(em: EntityManager, actor: StockActor, id: 
 
 export async function cancelPickList(em: EntityManager, actor: StockActor, id: number, reason: string | null): Promise<{ released: number }> {
   const list = await lockPickList(em, id)
-  requireStatus(list, ['draft', 'released', 'picking'], 'cancelled')
+  requireStatus(list, ['draft', 'released', 'picking'], 'cancel')
   let released = await releaseReservations(em, actor, { docType: PICK_DOC, docId: list.id })
   released += await releaseReservations(em, actor, { docType: 'pick_transfer', docId: list.id })
   await em.update(PickTransferProposal, { pickListId: list.id, status: 'proposed' }, { status: 'cancelled' })

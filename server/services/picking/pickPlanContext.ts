@@ -6,7 +6,7 @@ import { Bom } from '../../entities/Bom.js'
 import { Customer, Job } from '../../entities/Customer.js'
 import { Item } from '../../entities/Item.js'
 import { Warehouse } from '../../entities/Warehouse.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 
 export interface PlanBomLine {
   id: number
@@ -68,8 +68,8 @@ async function bomLines(em: EntityManager, bomId: number, locking: boolean): Pro
 
 export async function loadWarehouse(em: EntityManager, id: number, field = 'warehouseId'): Promise<Warehouse> {
   const wh = await em.findOneBy(Warehouse, { id })
-  if (!wh) throw AppError.badRequest('That warehouse does not exist.', { [field]: 'Choose a warehouse' })
-  if (!wh.active) throw AppError.badRequest(`${wh.name} is not in use.`, { [field]: 'Choose a warehouse in use' })
+  if (!wh) throw AppError.badRequest('warehouse_not_found', 'That warehouse does not exist.', { fields: { [field]: problem('warehouse_not_found') } })
+  if (!wh.active) throw AppError.badRequest('warehouse_inactive', `${wh.name} is not in use.`, { params: { warehouse: wh.code }, fields: { [field]: problem('warehouse_inactive', { warehouse: wh.code }) } })
   return wh
 }
 
@@ -84,7 +84,7 @@ async function refuseSuperseded(em: EntityManager, bom: Bom, locking: boolean): 
 
 export async function loadPlanContext(em: EntityManager, bomId: number, warehouseId: number, opts: { locking: boolean }): Promise<PlanContext> {
   const bom = await em.findOne(Bom, { where: { id: bomId }, ...(opts.locking && { lock: { mode: 'pessimistic_write' as const } }) })
-  if (!bom) throw AppError.badRequest('That bill of materials does not exist.', { bomId: 'Choose a saved bill of materials' })
+  if (!bom) throw AppError.badRequest('bom_not_found', 'That bill of materials does not exist.', { fields: { bomId: problem('bom_not_found') } })
   await refuseSuperseded(em, bom, opts.locking)
   const warehouse = await loadWarehouse(em, warehouseId)
   const job = await em.findOneByOrFail(Job, { id: bom.jobId })

@@ -64,7 +64,7 @@ async function substitute(em: EntityManager, actor: StockActor, list: PickList, 
 export async function resolveShort(em: EntityManager, actor: StockActor, pickListId: number, input: PickShortResolveInput): Promise<PickShortResolveAnswer> {
   const list = await lockPickList(em, pickListId)
   // A backorder can still be placed for a list already completed; units to pick need an open list.
-  requireStatus(list, input.action === 'backorder' ? ['released', 'picking', 'picked'] : ['released', 'picking'], 'settled that way')
+  requireStatus(list, input.action === 'backorder' ? ['released', 'picking', 'picked'] : ['released', 'picking'], 'settle')
   const line = await em.findOne(PickListLine, { where: { id: input.lineId, pickListId }, lock: { mode: 'pessimistic_write' } })
   if (!line) throw AppError.badRequest('line_not_on_list', 'That line is not on this pick list.', { fields: { lineId: problem('line_not_on_list') } })
   const open = await openShort(em, line)

@@ -5,7 +5,7 @@ import type { PickCreateInput } from '../../../shared/schemas/picking.js'
 import { Item } from '../../entities/Item.js'
 import { PickShortage, PickTransferProposal } from '../../entities/PickList.js'
 import { PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { reserve } from '../stock/stockReservations.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { loadWarehouse } from './pickPlanContext.js'
@@ -23,10 +23,10 @@ export interface ChoiceOutcome {
 }
 
 async function substituteItem(em: EntityManager, short: ShortLine, itemId: number, index: number): Promise<Item> {
-  const field = { [`shortages.${index}.substituteItemId`]: 'Choose another stocked item' }
   const item = await em.findOneBy(Item, { id: itemId })
   if (!item || item.id === short.item.id || !item.active || item.madeToOrder) {
-    throw AppError.badRequest(`That item cannot stand in for ${short.item.sku}.`, field)
+    const params = { sku: short.item.sku }
+    throw AppError.badRequest('substitute_not_fit', `That item cannot stand in for ${short.item.sku}.`, { params, fields: { [`shortages.${index}.substituteItemId`]: problem('substitute_not_fit', params) } })
   }
   return item
 }
@@ -49,7 +49,7 @@ export async function applyChoices(em: EntityManager, actor: StockActor, plan: P
       if (got.allocated > 0) out.shortages.push({ ...base, qty: got.allocated, action: 'substitute', substituteItemId: sub.id })
       rest -= got.allocated
     } else if (choice.action === 'transfer') {
-      if (choice.fromWarehouseId === main.id) throw AppError.badRequest('Transfer from another warehouse.', { [`shortages.${index}.fromWarehouseId`]: 'Same as the picking warehouse' })
+      if (choice.fromWarehouseId === main.id) throw AppError.badRequest('pick_transfer_same_warehouse', 'Transfer from another warehouse.', { fields: { [`shortages.${index}.fromWarehouseId`]: problem('pick_transfer_same_warehouse') } })
       const from = await loadWarehouse(em, choice.fromWarehouseId!, `shortages.${index}.fromWarehouseId`)
       const got = await pool.take(short.item.id, from.id, rest, short.item.matchLot)
       const lines = got.lines.map((l) => ({ bomLineId: short.bomLine.id, itemId: short.item.id, substituteForItemId: null, warehouseId: from.id, binId: Number(l.binId), binCode: l.binCode, lotId: l.lotId === null ? null : Number(l.lotId), lotCode: l.lotCode, qty: l.qty }))

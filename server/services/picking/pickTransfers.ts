@@ -10,12 +10,12 @@ import { lockPickList, pickNumber, requireStatus } from './pickListLocks.js'
 
 export async function shipProposedTransfer(em: EntityManager, actor: StockActor, pickListId: number, fromWarehouseId: number): Promise<{ transferId: number; qty: number }> {
   const list = await lockPickList(em, pickListId)
-  requireStatus(list, ['draft', 'released', 'picking', 'picked'], 'shipped to')
+  requireStatus(list, ['draft', 'released', 'picking', 'picked'], 'ship')
   const proposals = await em.find(PickTransferProposal, {
     where: { pickListId, fromWarehouseId, status: 'proposed' }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' },
   })
   if (!proposals.length) {
-    throw AppError.conflict(`No transfer from that warehouse is waiting to ship for ${pickNumber(pickListId)}.`, 'nothing_to_ship')
+    throw AppError.conflict('nothing_to_ship', `No transfer from that warehouse is waiting to ship for ${pickNumber(pickListId)}.`)
   }
   for (const p of proposals) await releaseReservations(em, actor, { docType: 'pick_transfer', docId: pickListId, docLineId: p.id })
   const { transfer } = await shipTransfer(em, actor, {

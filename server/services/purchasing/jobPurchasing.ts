@@ -49,11 +49,14 @@ async function chosenLines(em: EntityManager, jobId: number, bomLineIds: number[
   const open = await openSpecialLines(em, jobId)
   const wanted = bomLineIds ? open.filter((l) => bomLineIds.includes(l.id)) : open
   if (bomLineIds && wanted.length !== new Set(bomLineIds).size) {
-    throw AppError.badRequest('Some lines are not open made-to-order lines of this job.', { bomLineIds: 'Not open special-order lines of the job' })
+    throw AppError.badRequest('special_lines_not_open', 'Some lines are not open made-to-order lines of this job.', { fields: { bomLineIds: problem('special_lines_not_open') } })
   }
-  if (!wanted.length) throw AppError.conflict('This job has no made-to-order lines left to order.')
+  if (!wanted.length) throw AppError.conflict('job_nothing_to_order', 'This job has no made-to-order lines left to order.')
   const unmapped = wanted.filter((l) => l.itemId === null)
-  if (unmapped.length) throw AppError.conflict(`Map ${unmapped.map((l) => l.description).join(', ')} to a catalog item before ordering.`)
+  if (unmapped.length) {
+    const lines = unmapped.map((l) => l.description)
+    throw AppError.conflict('job_lines_unmapped', `Map ${lines.join(', ')} to a catalog item before ordering.`, { params: { lines } })
+  }
   // Lock the chosen lines so two buyers can't order the same base twice.
   const locked = await em.find(BomLine, { where: { id: In(wanted.map((l) => l.id)) }, lock: { mode: 'pessimistic_write' } })
   return locked.filter((l) => l.qty > l.orderedQty)
@@ -62,7 +65,7 @@ async function chosenLines(em: EntityManager, jobId: number, bomLineIds: number[
 /** One draft PO per vendor for the job's shower bases (or the chosen lines). */
 export async function createFromJob(em: EntityManager, actor: AuditActor, input: PoFromJobInput): Promise<number[]> {
   const job = await em.findOneBy(Job, { id: input.jobId })
-  if (!job) throw AppError.badRequest('Choose a job.', { jobId: 'Not a job' })
+  if (!job) throw AppError.badRequest('job_not_found', 'Choose a job.', { fields: { jobId: problem('job_not_found') } })
   // Ship to the job's own warehouse unless the buyer chose another.
   const warehouseId = input.warehouseId ?? (await jobWarehouse(em, job.id))
   if (!warehouseId) {
@@ -73,12 +76,12 @@ export async function createFromJob(em: EntityManager, actor: AuditActor, input:
   const preferred = input.vendorId ? new Map() : await preferredVendors(em, itemIds)
   const vendorOf = (l: BomLine) => input.vendorId ?? preferred.get(l.itemId!)?.vendorId
   const orphan = lines.filter((l) => !vendorOf(l))
-  if (orphan.length) throw AppError.badRequest('Choose a vendor: no vendor lists these items.', { vendorId: 'Choose a vendor' })
+  if (orphan.length) throw AppError.badRequest('vendor_needed', 'Choose a vendor: no vendor lists these items.', { fields: { vendorId: problem('vendor_needed') } })
   const items = await loadItems(em, itemIds)
   const ids: number[] = []
   for (const vendorId of [...new Set(lines.map((l) => vendorOf(l)!))]) {
     const vendor = await em.findOneBy(Vendor, { id: vendorId })
-    if (!vendor) throw AppError.badRequest('Choose a vendor.', { vendorId: 'Not a vendor' })
+    if (!vendor) throw AppError.badRequest('vendor_not_found', 'Choose a vendor.', { fields: { vendorId: problem('vendor_not_found') } })
     const mine = lines.filter((l) => vendorOf(l) === vendorId)
     const priced = await vendorItemsFor(em, vendorId, mine.map((l) => l.itemId!))
     const poLines: NewPoLine[] = mine.map((l) => {
@@ -105,7 +108,7 @@ export async function jobPurchaseLines(ds: DataSource, jobId: number): Promise<J
     'SELECT j.id, j.name, j.due_date, j.status, c.name AS customer_name FROM jobs j LEFT JOIN customers c ON c.id = j.customer_id WHERE j.id = ?',
     [jobId],
   )
-  if (!job) throw AppError.notFound('That job')
+  if (!job) throw AppError.notFound('job_not_found', 'That job was not found.')
   const dueDate = isoDay(job.due_date)
   const rows: { po_id: number; number: string; status: JobPurchaseLines['lines'][number]['status']; vendor_name: string; expected_date: Date | string | null;
     line_id: number; description: string; spec_json: string | null; qty_ordered: number; qty_received: number }[] = await ds.query(

@@ -50,6 +50,6 @@ export async function outboxAttachment(ds: DataSource, messageId: number, attach
     'SELECT name, content_type, bytes FROM outbox_attachments WHERE id = ? AND message_id = ?',
     [attachmentId, messageId],
   )
-  if (!row) throw AppError.notFound('That attachment')
+  if (!row) throw AppError.notFound('attachment_not_found', 'That attachment was not found.')
   return { name: row.name, type: row.content_type, bytes: row.bytes }
 }

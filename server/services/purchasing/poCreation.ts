@@ -6,16 +6,19 @@ import type { PoFromSuggestionsInput, PoManualInput } from '../../../shared/sche
 import { packsFor } from '../../../shared/purchasing/poMoney.js'
 import { PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
 import { Vendor } from '../../entities/Vendor.js'
-import { AppError } from '../../errors.js'
+import { AppError, type FieldProblems, problem } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { addDays, addToOpenDraft, insertPo, leadDays, loadItems, preferredVendors, vendorItemsFor, type NewPoLine } from './poWrite.js'
 
 async function lockSuggestions(em: EntityManager, ids: number[]): Promise<PurchaseSuggestion[]> {
   const rows = await em.find(PurchaseSuggestion, { where: { id: In(ids) }, lock: { mode: 'pessimistic_write' }, order: { id: 'ASC' } })
   const missing = ids.filter((id) => !rows.some((r) => r.id === id))
-  if (missing.length) throw AppError.notFound(`Suggestion ${missing.join(', ')}`)
+  if (missing.length) throw AppError.notFound('suggestions_missing', `Suggestion ${missing.join(', ')} was not found.`, { params: { ids: missing.map(String) } })
   const taken = rows.filter((r) => r.status !== 'accepted')
-  if (taken.length) throw AppError.conflict(`Suggestion ${taken.map((r) => r.id).join(', ')} is already ordered or dismissed.`)
+  if (taken.length) {
+    const ids = taken.map((r) => String(r.id))
+    throw AppError.conflict('suggestions_taken', `Suggestion ${ids.join(', ')} is already ordered or dismissed.`, { params: { ids } })
+  }
   return rows
 }
 
@@ -36,7 +39,9 @@ async function orderGroup(em: EntityManager, actor: AuditActor, g: { vendorId: n
   const itemIds = [...new Set(g.rows.map((s) => s.itemId))]
   const [items, priced] = await Promise.all([loadItems(em, itemIds), vendorItemsFor(em, g.vendorId, itemIds)])
   const unpriced = itemIds.filter((id) => !priced.has(id)).map((id) => items.get(id)!.sku)
-  if (unpriced.length) throw AppError.conflict(`${vendor.name} has no price for ${unpriced.join(', ')}: add it to the vendor's items first.`)
+  if (unpriced.length) {
+    throw AppError.conflict('vendor_no_price', `${vendor.name} has no price for ${unpriced.join(', ')}: add it to the vendor's items first.`, { params: { vendor: vendor.name, skus: unpriced } })
+  }
   const lines: NewPoLine[] = itemIds.map((itemId) => {
     const vi = priced.get(itemId)!
     const wanted = g.rows.filter((s) => s.itemId === itemId).reduce((sum, s) => sum + s.qty, 0)
@@ -60,7 +65,8 @@ export async function createFromSuggestions(em: EntityManager, actor: AuditActor
   const orphan = rows.filter((s) => !s.vendorId && !preferred.has(s.itemId))
   if (orphan.length) {
     const items = await loadItems(em, orphan.map((s) => s.itemId))
-    throw AppError.conflict(`No vendor sells ${[...items.values()].map((i) => i.sku).join(', ')}: add a vendor item first.`)
+    const skus = [...items.values()].map((i) => i.sku)
+    throw AppError.conflict('no_vendor_sells', `No vendor sells ${skus.join(', ')}: add a vendor item first.`, { params: { skus } })
   }
   const ids: number[] = []
   for (const g of groupSuggestions(rows, (s) => s.vendorId ?? preferred.get(s.itemId)!.vendorId)) ids.push(await orderGroup(em, actor, g))
@@ -83,12 +89,12 @@ export async function createManual(em: EntityManager, actor: AuditActor, input: 
 export async function manualLines(em: EntityManager, vendorId: number, input: PoManualInput['lines']): Promise<NewPoLine[]> {
   const ids = input.map((l) => l.itemId)
   const [items, priced] = await Promise.all([loadItems(em, ids), vendorItemsFor(em, vendorId, ids)])
-  const fields: Record<string, string> = {}
+  const fields: FieldProblems = {}
   input.forEach((l, i) => {
-    if (!items.has(l.itemId)) fields[`lines.${i}.itemId`] = 'Not in the catalog'
-    else if (!l.unitCost && !priced.has(l.itemId)) fields[`lines.${i}.unitCost`] = 'This vendor has no price for the item: enter a cost'
+    if (!items.has(l.itemId)) fields[`lines.${i}.itemId`] = problem('item_not_in_catalog')
+    else if (!l.unitCost && !priced.has(l.itemId)) fields[`lines.${i}.unitCost`] = problem('vendor_price_missing')
   })
-  if (Object.keys(fields).length) throw AppError.badRequest('Some lines need attention.', fields)
+  if (Object.keys(fields).length) throw AppError.badRequest('lines_need_attention', 'Some lines need attention.', { fields })
   return input.map((l) => {
     const vi = priced.get(l.itemId)
     return {

@@ -2,10 +2,10 @@
 // editing a draft, approving, marking sent, cancelling and closing.
 import type { EntityManager } from 'typeorm'
 import type { PoLineInput, PoUpdateInput, PoStatus } from '../../../shared/schemas/purchasing.js'
-import { refusal, type PoAction } from '../../../shared/purchasing/poStatus.js'
+import { allowedFrom, refusal, type PoAction } from '../../../shared/purchasing/poStatus.js'
 import { MAX_LINE_QTY } from '../../../shared/purchasing/poMoney.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { manualLines } from './poCreation.js'
 import { checkLineSizes, recomputeTotal } from './poWrite.js'
@@ -26,7 +26,7 @@ export async function lockPo(em: EntityManager, id: number, seenVersion?: number
 
 export function ensure(action: PoAction, po: PurchaseOrder): void {
   const why = refusal(action, po.status)
-  if (why) throw AppError.conflict(why, 'wrong_status')
+  if (why) throw AppError.conflict('po_wrong_status', why, { params: { poStatus: po.status, poAction: action, statuses: allowedFrom(action) } })
 }
 
 async function setStatus(em: EntityManager, actor: AuditActor, po: PurchaseOrder, status: PoStatus, stamp: Partial<PurchaseOrder>, detail?: object) {
@@ -78,10 +78,10 @@ export async function updateDraft(em: EntityManager, actor: AuditActor, id: numb
   if (Object.keys(head).length) await em.update(PurchaseOrder, { id }, head)
   for (const [i, change] of (input.lines ?? []).entries()) {
     const line = await em.findOneBy(PurchaseOrderLine, { id: change.id, poId: id })
-    if (!line) throw AppError.badRequest('A line is not on this order.', { [`lines.${i}.id`]: 'Not a line of this order' })
+    if (!line) throw AppError.badRequest('po_line_not_found', 'A line is not on this order.', { fields: { [`lines.${i}.id`]: problem('po_line_not_on_order') } })
     const packs = change.packsOrdered ?? line.packsOrdered
     const qty = packs * line.packQty
-    if (qty > MAX_LINE_QTY) throw AppError.badRequest('A line is too large.', { [`lines.${i}.packsOrdered`]: `At most ${MAX_LINE_QTY} units on a line` })
+    if (qty > MAX_LINE_QTY) throw AppError.badRequest('line_too_large', 'A line is too large.', { fields: { [`lines.${i}.packsOrdered`]: problem('line_units_at_most', { max: MAX_LINE_QTY }) } })
     if (line.bomLineId && qty !== line.qtyOrdered) {
       await em.query('UPDATE bom_lines SET ordered_qty = GREATEST(0, ordered_qty + ?) WHERE id = ?', [qty - line.qtyOrdered, line.bomLineId])
     }
@@ -106,7 +106,7 @@ export async function removeLine(em: EntityManager, actor: AuditActor, id: numbe
   const po = await lockPo(em, id)
   ensure('edit', po)
   const line = await em.findOneBy(PurchaseOrderLine, { id: lineId, poId: id })
-  if (!line) throw AppError.notFound('That line')
+  if (!line) throw AppError.notFound('po_line_not_found', 'That line is not on this order.')
   await releaseLines(em, [line])
   await em.delete(PurchaseOrderLine, { id: lineId })
   await recomputeTotal(em, id)
@@ -117,7 +117,7 @@ export async function removeLine(em: EntityManager, actor: AuditActor, id: numbe
 export async function approve(em: EntityManager, actor: AuditActor, id: number, seenVersion?: number): Promise<void> {
   const po = await lockPo(em, id, seenVersion)
   ensure('approve', po)
-  if (!(await em.countBy(PurchaseOrderLine, { poId: id }))) throw AppError.conflict('Add a line before approving.')
+  if (!(await em.countBy(PurchaseOrderLine, { poId: id }))) throw AppError.conflict('po_no_lines', 'Add a line before approving.')
   await setStatus(em, actor, po, 'approved', { approvedBy: actor.userId, approvedAt: new Date() })
 }
 
@@ -132,7 +132,7 @@ export async function cancel(em: EntityManager, actor: AuditActor, id: number, r
   const po = await lockPo(em, id)
   ensure('cancel', po)
   const lines = await em.findBy(PurchaseOrderLine, { poId: id })
-  if (lines.some((l) => l.qtyReceived > 0)) throw AppError.conflict('Goods were received on this order: close it instead.', 'wrong_status')
+  if (lines.some((l) => l.qtyReceived > 0)) throw AppError.conflict('po_received_cancel', 'Goods were received on this order: close it instead.')
   await releaseLines(em, lines)
   await setStatus(em, actor, po, 'cancelled', { cancelledBy: actor.userId, cancelledAt: new Date(), cancelReason: reason }, { reason })
 }

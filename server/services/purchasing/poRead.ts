@@ -138,7 +138,7 @@ async function timelineOf(db: Db, r: PoRow): Promise<PoTimelineEntry[]> {
 
 export async function poDetail(db: Db, id: number): Promise<PoDetail> {
   const [r]: PoRow[] = await db.query(`${SUMMARY_SQL} WHERE o.id = ?`, [id])
-  if (!r) throw AppError.notFound('That purchase order')
+  if (!r) throw AppError.notFound('po_not_found', 'That purchase order was not found.')
   const base = summaryOf(r)
   return {
     ...base,

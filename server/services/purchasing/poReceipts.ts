@@ -45,7 +45,7 @@ export const receiptsOfPo = (db: Db, poId: number) => load(db, 'r.po_id = ?', po
 
 export async function receiptById(db: Db, id: number): Promise<ReceiptView> {
   const [receipt] = await load(db, 'r.id = ?', id)
-  if (!receipt) throw AppError.notFound('That receipt')
+  if (!receipt) throw AppError.notFound('receipt_not_found', 'That receipt was not found.')
   return receipt
 }
 

@@ -10,7 +10,7 @@ import { statusAfterReceipt } from '../../../shared/purchasing/poStatus.js'
 import { Item } from '../../entities/Item.js'
 import { PurchaseOrder, PurchaseOrderLine } from '../../entities/PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from '../../entities/PurchaseReceipt.js'
-import { AppError, textFields } from '../../errors.js'
+import { AppError, problem, type FieldProblems } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { purchasingSettings } from '../appSettings.js'
 import { findOrCreateLot, issue, receive, type ReceiptLine } from '../stock/stockService.js'
@@ -27,23 +27,24 @@ interface Entry extends ReceiveLineInput {
 }
 
 function checkEntries(input: ReceiveInput, lines: Map<number, PurchaseOrderLine>, items: Map<number, Item>): Entry[] {
-  const fields: Record<string, string> = {}
+  const fields: FieldProblems = {}
   const entries: Entry[] = []
   input.lines.forEach((l, index) => {
     const line = lines.get(l.poLineId)
-    if (!line) return void (fields[`lines.${index}.poLineId`] = 'Not a line of this order')
+    if (!line) return void (fields[`lines.${index}.poLineId`] = problem('po_line_not_on_order'))
     const item = items.get(line.itemId)!
-    if (item.matchLot && !item.madeToOrder && l.qty > 0 && !l.lotCode) fields[`lines.${index}.lotCode`] = 'Record the lot: runs of this item differ in tint'
+    if (item.matchLot && !item.madeToOrder && l.qty > 0 && !l.lotCode) fields[`lines.${index}.lotCode`] = problem('lot_needed_for_tint')
     entries.push({ ...l, index, line, item, lotId: null, variance: null })
   })
-  if (Object.keys(fields).length) throw AppError.badRequest('Some lines need attention.', fields)
+  if (Object.keys(fields).length) throw AppError.badRequest('lines_need_attention', 'Some lines need attention.', { fields })
   return entries
 }
 
 /** Per PO line: all its entries together must fit what is open (plus the over-receipt allowance). */
 function checkQuantities(entries: Entry[]): void {
-  const conflicts: Record<string, string> = {}
-  const missing: Record<string, string> = {}
+  const conflicts: FieldProblems = {}
+  const missing: FieldProblems = {}
+  let firstOver = ''
   for (const lineId of new Set(entries.map((e) => e.poLineId))) {
     const mine = entries.filter((e) => e.poLineId === lineId)
     const verdict = checkLineReceipt({
@@ -54,11 +55,15 @@ function checkQuantities(entries: Entry[]): void {
       hasReason: mine.some((e) => !!e.reason),
     })
     const at = `lines.${mine[0].index}.${verdict.ok ? '' : verdict.field}`
-    if (!verdict.ok) (verdict.field === 'qty' ? conflicts : missing)[at] = verdict.message
+    if (!verdict.ok) {
+      ;(verdict.field === 'qty' ? conflicts : missing)[at] = verdict.problem
+      if (verdict.field === 'qty') firstOver ||= verdict.message
+    }
     else for (const e of mine) e.variance = e.damagedQty > 0 ? 'damaged' : verdict.variance
   }
-  if (Object.keys(missing).length) throw AppError.badRequest('Some lines need attention.', missing)
-  if (Object.keys(conflicts).length) throw new AppError(409, 'over_receipt', Object.values(conflicts)[0], { fields: textFields(conflicts) })
+  if (Object.keys(missing).length) throw AppError.badRequest('lines_need_attention', 'Some lines need attention.', { fields: missing })
+  const over = Object.values(conflicts)[0]
+  if (over) throw new AppError(409, 'over_receipt', firstOver, { params: over.params, fields: conflicts })
 }
 
 async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder, entries: Entry[]): Promise<string | null> {

@@ -58,10 +58,10 @@ export async function insertPo(em: EntityManager, actor: AuditActor, head: NewPo
     throw AppError.badRequest('order_total_too_large', tooLarge(total), { params: { total, max: MAX_ORDER_TOTAL }, fields: { lines: problem('order_total_at_most', { max: MAX_ORDER_TOTAL }) } })
   }
   const vendor = await em.findOneBy(Vendor, { id: head.vendorId })
-  if (!vendor) throw AppError.badRequest('Choose a vendor.', { vendorId: 'Not a vendor' })
-  if (!vendor.active) throw AppError.conflict(`${vendor.name} is not an active vendor.`)
+  if (!vendor) throw AppError.badRequest('vendor_not_found', 'Choose a vendor.', { fields: { vendorId: problem('vendor_not_found') } })
+  if (!vendor.active) throw AppError.conflict('vendor_inactive', `${vendor.name} is not an active vendor.`, { params: { vendor: vendor.name } })
   const warehouse = await em.findOneBy(Warehouse, { id: head.warehouseId })
-  if (!warehouse || !warehouse.active) throw AppError.badRequest('Choose the warehouse to ship to.', { warehouseId: 'Not an active warehouse' })
+  if (!warehouse || !warehouse.active) throw AppError.badRequest('ship_warehouse_needed', 'Choose the warehouse to ship to.', { fields: { warehouseId: problem('ship_warehouse_needed') } })
   const po = em.create(PurchaseOrder, {
     number: await nextPoNumber(em),
     vendorId: vendor.id,

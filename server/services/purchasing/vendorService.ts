@@ -26,7 +26,7 @@ export async function listVendors(ds: DataSource): Promise<VendorView[]> {
 
 export async function findVendor(em: EntityManager | DataSource, id: number): Promise<Vendor> {
   const vendor = await em.getRepository(Vendor).findOneBy({ id })
-  if (!vendor) throw AppError.notFound('That vendor')
+  if (!vendor) throw AppError.notFound('vendor_not_found', 'That vendor was not found.')
   return vendor
 }
 
@@ -55,7 +55,7 @@ export async function updateVendor(ds: DataSource, actor: AuditActor, id: number
   try {
     await inTransaction(ds, async (em) => {
       const vendor = await em.findOne(Vendor, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!vendor) throw AppError.notFound('That vendor')
+      if (!vendor) throw AppError.notFound('vendor_not_found', 'That vendor was not found.')
       Object.assign(vendor, input)
       await em.save(vendor)
       await audit(em, actor, 'vendor.update', 'vendor', id, input)
@@ -92,7 +92,7 @@ export async function listVendorItems(em: EntityManager | DataSource, vendorId: 
 
 async function vendorItemById(em: EntityManager, vendorId: number, id: number): Promise<VendorItemView> {
   const [row]: VendorItemRaw[] = await em.query(`${VENDOR_ITEM_SQL} WHERE vi.id = ? AND vi.vendor_id = ?`, [id, vendorId])
-  if (!row) throw AppError.notFound('That vendor item')
+  if (!row) throw AppError.notFound('vendor_item_not_found', 'That vendor item was not found.')
   return vendorItemView(row)
 }
 
@@ -105,7 +105,7 @@ export async function addVendorItem(ds: DataSource, actor: AuditActor, vendorId:
   try {
     return await inTransaction(ds, async (em) => {
       await findVendor(em, vendorId)
-      if (!(await em.findOneBy(Item, { id: input.itemId }))) throw AppError.badRequest('Choose an item from the catalog.', { itemId: 'Not in the catalog' })
+      if (!(await em.findOneBy(Item, { id: input.itemId }))) throw AppError.badRequest('item_not_in_catalog', 'Choose an item from the catalog.', { fields: { itemId: problem('item_not_in_catalog') } })
       const vi = em.create(VendorItem, { ...input, vendorId })
       await em.save(vi)
       if (vi.preferred) await keepOnePreferred(em, vi.itemId, vi.id)
@@ -121,7 +121,7 @@ export async function addVendorItem(ds: DataSource, actor: AuditActor, vendorId:
 export async function updateVendorItem(ds: DataSource, actor: AuditActor, vendorId: number, id: number, input: VendorItemUpdateInput): Promise<VendorItemView> {
   return inTransaction(ds, async (em) => {
     const vi = await em.findOne(VendorItem, { where: { id, vendorId }, lock: { mode: 'pessimistic_write' } })
-    if (!vi) throw AppError.notFound('That vendor item')
+    if (!vi) throw AppError.notFound('vendor_item_not_found', 'That vendor item was not found.')
     Object.assign(vi, input)
     await em.save(vi)
     if (vi.preferred) await keepOnePreferred(em, vi.itemId, vi.id)
@@ -133,7 +133,7 @@ export async function updateVendorItem(ds: DataSource, actor: AuditActor, vendor
 export async function removeVendorItem(ds: DataSource, actor: AuditActor, vendorId: number, id: number): Promise<void> {
   await inTransaction(ds, async (em) => {
     const res = await em.delete(VendorItem, { id, vendorId })
-    if (!res.affected) throw AppError.notFound('That vendor item')
+    if (!res.affected) throw AppError.notFound('vendor_item_not_found', 'That vendor item was not found.')
     await audit(em, actor, 'vendor_item.delete', 'vendor', vendorId, { id })
   })
 }

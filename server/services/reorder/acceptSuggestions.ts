@@ -5,7 +5,7 @@
 import type { DataSource, EntityManager } from 'typeorm'
 import type { AcceptInput, AcceptResult } from '../../../shared/schemas/reorder.js'
 import { isDuplicateKey } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, type FieldProblems, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { computeReorderLines, type ComputedLines } from './reorderLines.js'
 import { lineKey } from './usageQueries.js'
@@ -14,19 +14,19 @@ type Computed = ComputedLines['lines'][number]
 type Skip = AcceptResult['skipped'][number]['reason']
 
 function checkInput(input: AcceptInput, byKey: Map<string, Computed>): void {
-  const fields: Record<string, string> = {}
+  const fields: FieldProblems = {}
   const seen = new Set<string>()
   input.lines.forEach((l, i) => {
     const key = lineKey(l.itemId, l.warehouseId)
-    if (seen.has(key)) fields[`lines.${i}`] = 'This item and warehouse is listed twice'
+    if (seen.has(key)) fields[`lines.${i}`] = problem('line_listed_twice')
     seen.add(key)
     const found = byKey.get(key)
     if (l.qty === undefined || !found) return
     const { packSize, minimumOrder } = found.line
-    if (l.qty % packSize !== 0) fields[`lines.${i}.qty`] = `Whole packs of ${packSize}`
-    else if (l.qty < minimumOrder) fields[`lines.${i}.qty`] = `The vendor's minimum is ${minimumOrder}`
+    if (l.qty % packSize !== 0) fields[`lines.${i}.qty`] = problem('not_multiple', { divisor: packSize })
+    else if (l.qty < minimumOrder) fields[`lines.${i}.qty`] = problem('vendor_minimum', { min: minimumOrder })
   })
-  if (Object.keys(fields).length) throw AppError.badRequest('Some lines need attention.', fields)
+  if (Object.keys(fields).length) throw AppError.badRequest('lines_need_attention', 'Some lines need attention.', { fields })
 }
 
 function skipReason(found: Computed | undefined, qty: number): Skip | null {

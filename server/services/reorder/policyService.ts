@@ -5,7 +5,7 @@ import { HEIZER_RENDER_CUTOFFS } from '../../../shared/inventory/abc.js'
 import type { PolicyUpsertInput, ReorderPolicyView } from '../../../shared/schemas/reorder.js'
 import { ReorderPolicyRow } from '../../entities/ReorderPolicy.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
-import { AppError } from '../../errors.js'
+import { AppError, type FieldProblems, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 
 const SETTINGS = [
@@ -49,19 +49,19 @@ function scopeKey(input: PolicyUpsertInput): string {
 }
 
 async function checkTarget(ds: DataSource, input: PolicyUpsertInput): Promise<void> {
-  if (SETTINGS.every((f) => input[f] == null)) throw AppError.badRequest('Set at least one value.', { _: 'Set at least one value' })
+  if (SETTINGS.every((f) => input[f] == null)) throw AppError.badRequest('policy_value_needed', 'Set at least one value.', { fields: { _: problem('policy_value_needed') } })
   const a = input.abcCutoffA ?? HEIZER_RENDER_CUTOFFS.a
   const b = input.abcCutoffB ?? HEIZER_RENDER_CUTOFFS.b
-  if (input.scope === 'global' && a > b) throw AppError.badRequest('The ABC cut-offs are out of order.', { abcCutoffB: `B must reach at least as far as A (${a})` })
+  if (input.scope === 'global' && a > b) throw AppError.badRequest('abc_cutoffs_order', 'The ABC cut-offs are out of order.', { fields: { abcCutoffB: problem('abc_cutoffs_order') } })
   if (input.scope !== 'item_warehouse') return
   const [found] = await ds.query(
     `SELECT (SELECT COUNT(*) FROM items WHERE id = ?) AS items, (SELECT COUNT(*) FROM warehouses WHERE id = ?) AS warehouses`,
     [input.itemId, input.warehouseId],
   )
-  const fields: Record<string, string> = {}
-  if (Number(found.items) === 0) fields.itemId = 'No such item'
-  if (Number(found.warehouses) === 0) fields.warehouseId = 'No such warehouse'
-  if (Object.keys(fields).length) throw AppError.badRequest('Choose an item and a warehouse that exist.', fields)
+  const fields: FieldProblems = {}
+  if (Number(found.items) === 0) fields.itemId = problem('item_not_found')
+  if (Number(found.warehouses) === 0) fields.warehouseId = problem('warehouse_not_found')
+  if (Object.keys(fields).length) throw AppError.badRequest('policy_target_missing', 'Choose an item and a warehouse that exist.', { fields })
 }
 
 function fill(row: ReorderPolicyRow, input: PolicyUpsertInput, actor: AuditActor): void {
@@ -92,7 +92,7 @@ export async function savePolicy(ds: DataSource, actor: AuditActor, input: Polic
     })
     return (await listPolicies(ds)).find((p) => p.id === id)!
   } catch (err) {
-    if (isDuplicateKey(err)) throw AppError.conflict('Someone saved a policy for the same target just now; reload and try again.')
+    if (isDuplicateKey(err)) throw AppError.conflict('policy_saved_meanwhile', 'Someone saved a policy for the same target just now; reload and try again.')
     throw err
   }
 }
@@ -100,7 +100,7 @@ export async function savePolicy(ds: DataSource, actor: AuditActor, input: Polic
 export async function deletePolicy(ds: DataSource, actor: AuditActor, id: number): Promise<{ ok: true }> {
   await inTransaction(ds, async (em) => {
     const row = await em.findOne(ReorderPolicyRow, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!row) throw AppError.notFound('That policy')
+    if (!row) throw AppError.notFound('policy_not_found', 'That policy was not found.')
     await em.delete(ReorderPolicyRow, { id })
     await audit(em, actor, 'reorder.policy.delete', 'reorder_policy', id, { scope: row.scope, scopeKey: row.scopeKey })
   })

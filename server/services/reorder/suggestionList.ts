@@ -45,7 +45,7 @@ export async function lineDetail(
 ): Promise<ReorderLineDetail> {
   const computed = await computeReorderLines(ds, { windowDays: opts.windowDays, only: [{ itemId, warehouseId }], explain: true })
   const found = computed.lines[0]
-  if (!found) throw AppError.notFound('That item in that warehouse')
+  if (!found) throw AppError.notFound('reorder_line_not_found', 'That item is not stocked in that warehouse.')
   const { line } = found
   const horizonDays = opts.horizonDays ?? DEFAULT_HORIZON_DAYS
   const daily = await dailyUsage(ds.manager, itemId, warehouseId, computed.window)

@@ -23,7 +23,7 @@ export async function lockCostRows(em: EntityManager, groups: readonly Warehouse
     sorted.flatMap((g) => [g.itemId, g.warehouseId]),
   ).catch((err: { errno?: number; driverError?: { errno?: number } }) => {
     // 1452: the item (or warehouse) does not exist; answer 404, not a failed lookup's 500.
-    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.notFound('That item or warehouse')
+    if ((err?.errno ?? err?.driverError?.errno) === 1452) throw AppError.notFound('item_or_warehouse_not_found', 'That item or warehouse was not found.')
     throw err
   })
   // Already locked by the insert; a locking read sees the latest committed average, not a snapshot.

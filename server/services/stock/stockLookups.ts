@@ -27,12 +27,13 @@ export async function loadLookups(
   const binMap = new Map(bins.map((b) => [b.id, b]))
   const lotMap = new Map(lots.map((l) => [l.id, l]))
   for (const r of refs) {
-    if (!itemMap.has(r.itemId)) throw AppError.notFound(`Item ${r.itemId}`)
-    if (!binMap.has(r.binId)) throw AppError.notFound(`Bin ${r.binId}`)
+    if (!itemMap.has(r.itemId)) throw AppError.notFound('item_not_found', `Item ${r.itemId} was not found.`)
+    if (!binMap.has(r.binId)) throw AppError.notFound('bin_not_found', `Bin ${r.binId} was not found.`)
     const lot = r.lotId === null ? null : lotMap.get(r.lotId)
-    if (r.lotId !== null && !lot) throw AppError.notFound(`Lot ${r.lotId}`)
+    if (r.lotId !== null && !lot) throw AppError.notFound('lot_not_found', `Lot ${r.lotId} was not found.`)
     if (lot && lot.itemId !== r.itemId) {
-      throw AppError.badRequest(`Lot ${lot.code} belongs to another item than ${itemMap.get(r.itemId)!.sku}.`)
+      const sku = itemMap.get(r.itemId)!.sku
+      throw AppError.badRequest('lot_other_item', `Lot ${lot.code} belongs to another item than ${sku}.`, { params: { lot: lot.code, sku } })
     }
   }
   return {

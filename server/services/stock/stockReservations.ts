@@ -28,7 +28,7 @@ export async function reserve(
   const balances = (await lockBalances(em, keys, { create: false })).rows
   const created: StockReservation[] = []
   for (const l of input.lines) {
-    if (!Number.isSafeInteger(l.qty) || l.qty <= 0) throw AppError.badRequest('Reserve a whole number above zero.')
+    if (!Number.isSafeInteger(l.qty) || l.qty <= 0) throw AppError.badRequest('qty_not_positive', 'Reserve a whole number above zero.')
     const bal = balances.get(balanceKey(l))
     const onHand = bal?.onHand ?? 0
     const reserved = bal?.reserved ?? 0
@@ -88,12 +88,12 @@ export async function pickReserved(
   input: { reservationId: number; qty: number; doc: DocRef; note?: string | null },
 ): Promise<AppliedMoves> {
   const found = await em.findOneBy(StockReservation, { id: input.reservationId })
-  if (!found) throw AppError.notFound('That reservation')
+  if (!found) throw AppError.notFound('reservation_not_found', 'That reservation was not found.')
   const { rows } = await lockReservations(em, { docType: found.docType, docId: found.docId, docLineId: found.docLineId ?? undefined })
   const r = rows.find((row) => row.id === found.id)
-  if (!r) throw AppError.conflict('That reservation was released meanwhile.')
-  if (!Number.isSafeInteger(input.qty) || input.qty <= 0) throw AppError.badRequest('Pick a whole number above zero.')
-  if (input.qty > r.qty) throw AppError.conflict(`Only ${r.qty} are held for this line; ${input.qty} cannot be picked.`, 'over_pick')
+  if (!r) throw AppError.conflict('reservation_released', 'That reservation was released meanwhile.')
+  if (!Number.isSafeInteger(input.qty) || input.qty <= 0) throw AppError.badRequest('qty_not_positive', 'Pick a whole number above zero.')
+  if (input.qty > r.qty) throw AppError.conflict('over_pick', `Only ${r.qty} are held for this line; ${input.qty} cannot be picked.`, { params: { left: r.qty, qty: input.qty } })
   const unitCost = await currentAverage(em, r.itemId, r.warehouseId)
   const applied = await applyMoves(em, actor, [{
     moveType: 'pick', itemId: r.itemId, binId: r.binId, lotId: r.lotId, qty: -input.qty, fromReserved: input.qty,

@@ -28,12 +28,12 @@ export interface ReceiptLine {
 
 async function storageBin(em: EntityManager, binId: number, warehouseId?: number): Promise<Bin> {
   const bin = await em.findOneBy(Bin, { id: binId })
-  if (!bin) throw AppError.notFound('That bin')
-  if (!bin.active) throw AppError.conflict(`Bin ${bin.code} is not in use.`)
+  if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+  if (!bin.active) throw AppError.conflict('bin_inactive', `Bin ${bin.code} is not in use.`, { params: { bin: bin.code } })
   // Stock in a transit bin is on its way, never available: it leaves only by receiving the transfer.
-  if (bin.kind === 'transit') throw AppError.conflict(`Bin ${bin.code} holds stock in transit; receive the transfer to put it away.`)
+  if (bin.kind === 'transit') throw AppError.conflict('bin_in_transit', `Bin ${bin.code} holds stock in transit; receive the transfer to put it away.`, { params: { bin: bin.code } })
   if (warehouseId !== undefined && bin.warehouseId !== warehouseId) {
-    throw AppError.badRequest(`Bin ${bin.code} is in another warehouse.`)
+    throw AppError.badRequest('bin_other_warehouse', `Bin ${bin.code} is in another warehouse.`, { params: { bin: bin.code } })
   }
   return bin
 }
@@ -56,7 +56,7 @@ export async function findOrCreateLot(
   // A locking read: a lot another request created after this transaction's snapshot is invisible to a
   // plain read under REPEATABLE READ (the insert above was then ignored), which made this a 500.
   const lot = await currentLotByCode(em, itemId, code)
-  if (!lot) throw AppError.notFound(`Item ${itemId}`) // INSERT IGNORE also skips a lot of an unknown item
+  if (!lot) throw AppError.notFound('item_not_found', `Item ${itemId} was not found.`) // INSERT IGNORE also skips a lot of an unknown item
   return lot
 }
 
@@ -66,7 +66,7 @@ export async function receive(
   actor: StockActor,
   input: { warehouseId: number; lines: ReceiptLine[]; doc?: DocRef; note?: string | null },
 ): Promise<AppliedMoves> {
-  if (!input.lines.length) throw AppError.badRequest('A receipt needs at least one line.')
+  if (!input.lines.length) throw AppError.badRequest('lines_needed', 'A receipt needs at least one line.')
   // Lots are found or made in (item, code) order, so two receipts creating the same lots queue up; the
   // moving average is blended by applyMoves under the cost-row and balance locks.
   const lines = [...input.lines].sort((a, b) => a.itemId - b.itemId || (a.lotCode ?? '').localeCompare(b.lotCode ?? ''))
@@ -104,7 +104,7 @@ export async function issue(
   actor: StockActor,
   input: { lines: IssueLine[]; doc?: DocRef; reason?: string | null; note?: string | null },
 ): Promise<AppliedMoves> {
-  if (!input.lines.length) throw AppError.badRequest('An issue needs at least one line.')
+  if (!input.lines.length) throw AppError.badRequest('lines_needed', 'An issue needs at least one line.')
   const specs = []
   for (const l of input.lines) {
     const bin = await storageBin(em, l.binId)
@@ -159,7 +159,7 @@ export async function moveBetweenBins(
   actor: StockActor,
   input: { itemId: number; lotId: number | null; fromBinId: number; toBinId: number; qty: number; note?: string | null },
 ): Promise<AppliedMoves> {
-  if (input.fromBinId === input.toBinId) throw AppError.badRequest('Choose a different bin to move to.', { toBinId: 'Same as the bin it comes from' })
+  if (input.fromBinId === input.toBinId) throw AppError.badRequest('move_same_bin', 'Choose a different bin to move to.', { fields: { toBinId: problem('move_same_bin') } })
   const from = await storageBin(em, input.fromBinId)
   await storageBin(em, input.toBinId, from.warehouseId)
   const common = { moveType: 'bin_move' as const, itemId: input.itemId, lotId: input.lotId, note: input.note ?? null }

@@ -4,7 +4,7 @@ import { In, type EntityManager } from 'typeorm'
 import { Bin } from '../../entities/Bin.js'
 import { Transfer, TransferLine } from '../../entities/Transfer.js'
 import { Warehouse } from '../../entities/Warehouse.js'
-import { AppError } from '../../errors.js'
+import { AppError, problem } from '../../errors.js'
 import { currentAverage } from './averageCost.js'
 import { currentBinByCode } from './currentRows.js'
 import { applyMoves, type StockActor } from './stockLedger.js'
@@ -16,7 +16,7 @@ export async function transitBin(em: EntityManager, warehouseId: number): Promis
   // A locking read sees the bin even when a concurrent first transfer created it after this
   // transaction's snapshot (a plain read did not: 500 on the first transfers into a warehouse).
   const bin = await currentBinByCode(em, warehouseId, TRANSIT_BIN_CODE)
-  if (!bin) throw AppError.notFound('That warehouse')
+  if (!bin) throw AppError.notFound('warehouse_not_found', 'That warehouse was not found.')
   return bin
 }
 
@@ -33,16 +33,16 @@ export async function shipTransfer(
   input: { fromWarehouseId: number; toWarehouseId: number; lines: ShipLine[]; note?: string | null },
 ): Promise<{ transfer: Transfer; lines: TransferLine[] }> {
   if (input.fromWarehouseId === input.toWarehouseId) {
-    throw AppError.badRequest('A transfer goes to another warehouse.', { toWarehouseId: 'Same as the warehouse it leaves' })
+    throw AppError.badRequest('transfer_same_warehouse', 'A transfer goes to another warehouse.', { fields: { toWarehouseId: problem('transfer_same_warehouse') } })
   }
-  if (!input.lines.length) throw AppError.badRequest('A transfer needs at least one line.')
+  if (!input.lines.length) throw AppError.badRequest('lines_needed', 'A transfer needs at least one line.')
   const warehouses = await em.findBy(Warehouse, { id: In([input.fromWarehouseId, input.toWarehouseId]) })
-  if (warehouses.length !== 2) throw AppError.notFound('That warehouse')
+  if (warehouses.length !== 2) throw AppError.notFound('warehouse_not_found', 'That warehouse was not found.')
   const bins = await em.findBy(Bin, { id: In(input.lines.map((l) => l.fromBinId)) })
   for (const l of input.lines) {
     const bin = bins.find((b) => b.id === l.fromBinId)
-    if (!bin || bin.warehouseId !== input.fromWarehouseId) throw AppError.badRequest(`Bin ${l.fromBinId} is not in the shipping warehouse.`)
-    if (bin.kind === 'transit') throw AppError.conflict(`Bin ${bin.code} holds stock in transit; receive that transfer first.`)
+    if (!bin || bin.warehouseId !== input.fromWarehouseId) throw AppError.badRequest('transfer_bin_not_shipping', `Bin ${bin?.code ?? l.fromBinId} is not in the shipping warehouse.`, { params: { bin: bin?.code ?? String(l.fromBinId) } })
+    if (bin.kind === 'transit') throw AppError.conflict('bin_in_transit', `Bin ${bin.code} holds stock in transit; receive that transfer first.`, { params: { bin: bin.code } })
   }
   const transit = await transitBin(em, input.toWarehouseId)
   const transfer = await em.save(em.create(Transfer, {
@@ -70,19 +70,19 @@ export async function receiveTransfer(
   input: { transferId: number; lines: { lineId: number; toBinId: number; qty: number }[] },
 ): Promise<Transfer> {
   const transfer = await em.findOne(Transfer, { where: { id: input.transferId }, lock: { mode: 'pessimistic_write' } })
-  if (!transfer) throw AppError.notFound('That transfer')
-  if (transfer.status !== 'in_transit') throw AppError.conflict('This transfer was already received.')
+  if (!transfer) throw AppError.notFound('transfer_not_found', 'That transfer was not found.')
+  if (transfer.status !== 'in_transit') throw AppError.conflict('transfer_received', 'This transfer was already received.')
   const lines = await em.findBy(TransferLine, { transferId: transfer.id })
   const transit = await transitBin(em, transfer.toWarehouseId)
   const specs = []
   for (const put of input.lines) {
     const line = lines.find((l) => l.id === put.lineId)
-    if (!line) throw AppError.badRequest(`Line ${put.lineId} is not on this transfer.`)
+    if (!line) throw AppError.badRequest('transfer_line_not_found', `Line ${put.lineId} is not on this transfer.`, { params: { line: put.lineId } })
     if (line.receivedQty + put.qty > line.qty) {
-      throw AppError.conflict(`Only ${line.qty - line.receivedQty} left to receive on line ${line.id}.`)
+      throw AppError.conflict('transfer_receive_too_many', `Only ${line.qty - line.receivedQty} left to receive on line ${line.id}.`, { params: { left: line.qty - line.receivedQty, line: line.id } })
     }
     const bin = await em.findOneBy(Bin, { id: put.toBinId })
-    if (!bin || bin.warehouseId !== transfer.toWarehouseId || bin.kind === 'transit') throw AppError.badRequest(`Bin ${put.toBinId} is not a storage bin of the receiving warehouse.`)
+    if (!bin || bin.warehouseId !== transfer.toWarehouseId || bin.kind === 'transit') throw AppError.badRequest('transfer_bin_not_receiving', `Bin ${bin?.code ?? put.toBinId} is not a storage bin of the receiving warehouse.`, { params: { bin: bin?.code ?? String(put.toBinId) } })
     line.receivedQty += put.qty
     const doc = { docType: 'transfer', docId: transfer.id, docLineId: line.id }
     const common = { moveType: 'bin_move' as const, itemId: line.itemId, lotId: line.lotId, doc }

@@ -231,6 +231,7 @@ export default {
     unreadable: 'The server could not read a scan of it.',
     over_pick: 'The line no longer needed that many: someone else picked it, or it was closed.',
     wrong_status: 'The pick list was completed or cancelled meanwhile.',
+    pick_list_status: 'The pick list was completed or cancelled meanwhile.',
     lines_open: 'Some lines still have units to pick.',
     reservation_missing: 'The stock held for a line is gone; ask the counter.',
     idempotency_key_reused: 'This confirmation clashed with another one; make it again.',

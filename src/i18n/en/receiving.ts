@@ -11,7 +11,6 @@ export default {
   scanned: '+{qty} {sku}{lot}',
   lotSuffix: ' lot {lot}',
   binSet: 'Now receiving into {code}',
-  unknownBin: 'Bin {code} is not in this warehouse.',
   line: 'Line',
   ordered: 'Ordered',
   alreadyIn: 'In already',

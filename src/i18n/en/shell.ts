@@ -21,7 +21,6 @@ export default {
     buyer: 'Buyer',
     viewer: 'Read-only',
   },
-  userMenu: 'Account menu for {name}',
   profile: 'My profile',
   signOut: 'Sign out',
   signedOut: 'You are signed out.',

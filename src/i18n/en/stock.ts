@@ -99,7 +99,6 @@ export default {
     foundLot: 'Item {sku}, lot {lot}.',
     foundBin: 'Bin {code} in {warehouse}.',
     noGtin: 'That label names a pallet, not an item: scan the item or lot label.',
-    invalid: 'Not a code Lumenyard reads: {reason}',
     otherWarehouse: 'Bin {code} is in {warehouse}; the form switched to that warehouse.',
   },
   form: {

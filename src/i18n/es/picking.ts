@@ -231,6 +231,7 @@ export default {
     unreadable: 'El servidor no pudo leer uno de sus escaneos.',
     over_pick: 'La línea ya no necesitaba tantas: otra persona la preparó o se cerró.',
     wrong_status: 'La lista se terminó o se canceló mientras tanto.',
+    pick_list_status: 'La lista se terminó o se canceló mientras tanto.',
     lines_open: 'Algunas líneas aún tienen unidades pendientes.',
     reservation_missing: 'El material reservado para una línea ya no está; consulte con el mostrador.',
     idempotency_key_reused: 'Esta confirmación chocó con otra; vuelva a hacerla.',

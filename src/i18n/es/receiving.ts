@@ -11,7 +11,6 @@ export default {
   scanned: '+{qty} {sku}{lot}',
   lotSuffix: ' lote {lot}',
   binSet: 'Recibiendo ahora en {code}',
-  unknownBin: 'La ubicación {code} no es de este almacén.',
   line: 'Línea',
   ordered: 'Pedido',
   alreadyIn: 'Ya recibido',

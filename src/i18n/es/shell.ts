@@ -21,7 +21,6 @@ export default {
     buyer: 'Comprador',
     viewer: 'Solo consulta',
   },
-  userMenu: 'Menú de la cuenta de {name}',
   profile: 'Mi perfil',
   signOut: 'Cerrar sesión',
   signedOut: 'Cerró sesión.',

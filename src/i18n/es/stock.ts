@@ -100,7 +100,6 @@ export default {
     foundLot: 'Artículo {sku}, lote {lot}.',
     foundBin: 'Ubicación {code} en {warehouse}.',
     noGtin: 'Esa etiqueta es de una tarima, no de un artículo: escanee la etiqueta del artículo o del lote.',
-    invalid: 'Lumenyard no lee este código: {reason}',
     otherWarehouse: 'La ubicación {code} está en {warehouse}; el formulario cambió a ese almacén.',
   },
   form: {

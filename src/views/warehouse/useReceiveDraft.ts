@@ -2,6 +2,7 @@
 // hand, posted once with an Idempotency-Key that stays the same until the post succeeds, so a retry
 // after a lost answer never receives twice.
 import { computed, ref } from 'vue'
+import { problem, type Problem } from '@shared/errors/errorCodes'
 import { readReceivingScan, type ScanLine } from '@shared/purchasing/receiveScan'
 import type { ReceiveResult, ReceivingContext } from '@shared/schemas/purchasingViews'
 import { api } from '@/api/client'
@@ -38,12 +39,12 @@ export function useReceiveDraft(context: () => ReceivingContext | null) {
   }
 
   /** Applies one scan: adds units to a row, or switches the bin; says what happened for the screen. */
-  function scan(raw: string): { kind: 'line'; sku: string; qty: number; lot: string | null; warnings: string[] } | { kind: 'bin'; code: string } | { kind: 'error'; message: string } {
+  function scan(raw: string): { kind: 'line'; sku: string; qty: number; lot: string | null; warnings: string[] } | { kind: 'bin'; code: string } | { kind: 'error'; problem: Problem } {
     const result = readReceivingScan(raw, scanLines.value)
-    if (result.kind === 'error') return result
+    if (result.kind === 'error') return { kind: 'error', problem: result.problem }
     if (result.kind === 'bin') {
       const bin = context()?.bins.find((b) => b.code.toUpperCase() === result.code.toUpperCase())
-      if (!bin) return { kind: 'error', message: `unknown-bin:${result.code}` }
+      if (!bin) return { kind: 'error', problem: problem('bin_code_not_found', { bin: result.code }) }
       binId.value = bin.id
       return { kind: 'bin', code: bin.code }
     }

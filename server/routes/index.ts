@@ -25,8 +25,9 @@ import counts from './counts.js'
 import reports from './reports.js'
 import dataImports from './dataImports.js'
 import pricing from './pricing.js'
+import setup from './setup.js'
 
-export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, pricing]
+export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, pricing, setup]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

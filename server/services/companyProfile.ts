@@ -34,3 +34,19 @@ export async function updateCompanyProfile(ds: DataSource, actor: AuditActor, in
     return companyProfile(em)
   })
 }
+
+/** The logo every document may carry (PNG or JPEG), kept on the profile row. */
+export async function setCompanyLogo(ds: DataSource, actor: AuditActor, image: { type: string; data: Buffer }): Promise<void> {
+  await ds.transaction(async (em) => {
+    await em.query(
+      "INSERT INTO company_profile (id, legal_name, logo, logo_type, updated_by) VALUES (1, '', ?, ?, ?) ON DUPLICATE KEY UPDATE logo = VALUES(logo), logo_type = VALUES(logo_type), updated_by = VALUES(updated_by)",
+      [image.data, image.type, actor.userId],
+    )
+    await audit(em, actor, 'settings.company_logo', 'company_profile', 1, { type: image.type, bytes: image.data.length })
+  })
+}
+
+export async function companyLogo(db: Db): Promise<{ type: string; data: Buffer } | null> {
+  const [r]: { logo: Buffer | null; logo_type: string | null }[] = await db.query('SELECT logo, logo_type FROM company_profile WHERE id = 1')
+  return r?.logo && r.logo_type ? { type: r.logo_type, data: r.logo } : null
+}

@@ -419,6 +419,10 @@ export const ERROR_CODES = {
   import_already_reversed: [],
   import_touched: ['sku', 'warehouse'],
   import_kind_unknown: [],
+  import_usage_day_or_month: [],
+  gs1_prefix_digits: [],
+  image_type_not_allowed: [],
+  logo_missing: [],
   aborted: [],
 } as const satisfies Record<string, readonly string[]>
 

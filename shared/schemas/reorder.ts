@@ -168,6 +168,8 @@ export interface UsageWindow {
 export interface SuggestionList {
   asOf: string
   window: UsageWindow
+  /** Days of the window that imported usage history (from before Lumenyard) covers; 0 when none. */
+  importedHistoryDays: number
   abcCutoffs: { a: number; b: number }
   counts: Record<ReorderStatus, number>
   lines: ReorderLine[]

@@ -45,6 +45,13 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/imports/:kind/preview': { access: ['admin'] },
   'POST /api/imports/:kind/commit': { access: ['admin'] },
   'POST /api/imports/:id/reverse': { access: ['admin'] },
+  // The first-run checklist and the settings it asks for: administrators only.
+  'GET /api/setup': { access: ['admin'] },
+  'PUT /api/setup/units': { access: ['admin'] },
+  'PUT /api/setup/gs1-prefix': { access: ['admin'] },
+  'POST /api/setup/dismiss': { access: ['admin'] },
+  'PUT /api/setup/logo': { access: ['admin'] },
+  'GET /api/setup/logo': { access: ['admin'] },
   'GET /api/items/:id': { access: EVERYONE, costs: '/api/items/{item}' },
   'POST /api/items': { access: ['admin'] },
   'PATCH /api/items/:id': { access: ['admin'] },

@@ -35,8 +35,9 @@ export interface E2eHarness {
   close(): Promise<void>
 }
 
-export async function startE2e(): Promise<E2eHarness> {
-  const config = loadConfig({ LUMENYARD_SIGNIN_FAILS_PER_IP: '100000', ...process.env })
+/** overrides: environment for this harness only (e.g. NODE_ENV=production for a first-run test). */
+export async function startE2e(overrides: Partial<NodeJS.ProcessEnv> = {}): Promise<E2eHarness> {
+  const config = loadConfig({ LUMENYARD_SIGNIN_FAILS_PER_IP: '100000', ...process.env, ...overrides })
   const ds = createDataSource(config)
   await ds.initialize()
   const built = createApp({ config, ds })

@@ -5,13 +5,16 @@ import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { DataImportDefinition } from './dataImports.js'
 import type { ImportSpec } from './importTypes.js'
 import { OPENING_STOCK_GUIDE, openingStockImport } from './openingStockImport.js'
+import { USAGE_HISTORY_GUIDE, usageHistoryImport } from './usageHistoryImport.js'
 
 export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>> = {
   opening_stock: openingStockImport as DataImportDefinition<unknown>,
+  usage_history: usageHistoryImport as DataImportDefinition<unknown>,
 }
 
 const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string> }> = {
   opening_stock: { tab: 'Opening stock', guide: OPENING_STOCK_GUIDE },
+  usage_history: { tab: 'Usage history', guide: USAGE_HISTORY_GUIDE },
 }
 
 interface GuideRow { header: string; required: string; kind: string; allowed: string }

@@ -8,6 +8,7 @@ import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
 import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import { cellText, distinctOf, inChunks, itemsBySku, marks, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -34,33 +35,22 @@ export const OPENING_STOCK_GUIDE: Record<string, string> = {
   unitCost: 'What one stock unit cost you, up to 4 decimals. The moving-average cost starts from it.',
 }
 
-interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
 interface BinFacts { id: number; warehouse_id: number; code: string; kind: string; active: number }
 type Write = OpeningLine & { lotCode: string | null; row: number }
 
 const HEADER = new Map(OPENING_STOCK_SPEC.columns.map((c) => [c.key, c.header]))
 const col = (key: string) => HEADER.get(key) ?? key
-
-async function inChunks<T>(values: readonly unknown[], read: (chunk: unknown[]) => Promise<T[]>): Promise<T[]> {
-  const out: T[] = []
-  for (let i = 0; i < values.length; i += 1000) out.push(...(await read(values.slice(i, i + 1000))))
-  return out
-}
-
-const marks = (n: number) => Array.from({ length: n }, () => '?').join(', ')
-const text = (v: unknown) => (typeof v === 'string' ? v.trim() : v === null || v === undefined ? '' : String(v))
+const text = cellText
 
 async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
-  const distinct = (key: string) => [...new Set(sheet.rows.map((r) => text(r.values[key])).filter(Boolean))]
-  const items = await inChunks(distinct('sku'), (c) => em.query(`SELECT id, sku, match_lot, made_to_order, case_qty, pallet_qty FROM items WHERE sku IN (${marks(c.length)})`, c) as Promise<ItemFacts[]>)
-  const warehouses: { id: number; code: string; active: number }[] = await em.query('SELECT id, code, active FROM warehouses')
-  const bins = await inChunks(distinct('bin'), (c) => em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE code IN (${marks(c.length)})`, c) as Promise<BinFacts[]>)
+  const warehouse = await warehousesByCode(em)
+  const bins = await inChunks(distinctOf(sheet, 'bin'), (c) => em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE code IN (${marks(c.length)})`, c) as Promise<BinFacts[]>)
   const binsByCode = new Map<string, BinFacts[]>()
   for (const b of bins) binsByCode.set(b.code.toUpperCase(), [...(binsByCode.get(b.code.toUpperCase()) ?? []), b])
   return {
-    item: new Map(items.map((i) => [i.sku, i])),
-    warehouse: new Map(warehouses.map((w) => [w.code.toUpperCase(), w])),
-    warehouseCode: new Map(warehouses.map((w) => [w.id, w.code])),
+    item: await itemsBySku(em, distinctOf(sheet, 'sku')),
+    warehouse,
+    warehouseCode: new Map([...warehouse.values()].map((w) => [w.id, w.code])),
     binsByCode,
   }
 }

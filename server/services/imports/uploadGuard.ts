@@ -152,3 +152,19 @@ function measureEntry(zip: yauzl.ZipFile, entry: yauzl.Entry, limits: ArchiveLim
     })
   })
 }
+
+export interface GuardedImage {
+  type: 'image/png' | 'image/jpeg'
+  data: Buffer
+}
+
+/** Receives one image (PNG or JPEG, told by its first bytes, never by its name) up to maxBytes. */
+export async function receiveImage(req: Request, res: Response, maxBytes: number): Promise<GuardedImage> {
+  await receive(req, res, maxBytes)
+  const file = req.file
+  if (!file || !file.buffer.length) throw AppError.badRequest('file_missing', 'Choose a file to upload.', { fields: { file: problem('file_missing') } })
+  const b = file.buffer
+  if (b.length > 8 && b.readUInt32BE(0) === 0x89504e47) return { type: 'image/png', data: b }
+  if (b.length > 3 && b[0] === 0xff && b[1] === 0xd8 && b[2] === 0xff) return { type: 'image/jpeg', data: b }
+  throw AppError.of(415, 'image_type_not_allowed', 'Upload the logo as a PNG or JPEG image.')
+}

@@ -10,7 +10,7 @@ import {
 import { projectPosition, zeroFilledDays } from '../../../shared/inventory/stockProjection.js'
 import { AppError } from '../../errors.js'
 import { computeAbc, computeReorderLines } from './reorderLines.js'
-import { dailyUsage } from './usageQueries.js'
+import { dailyUsage, historyDaysInWindow } from './usageQueries.js'
 
 const STATUS_ORDER: Record<ReorderStatus, number> = { orderNow: 0, orderSoon: 1, deadStock: 2, overstocked: 3, ok: 4 }
 
@@ -32,7 +32,8 @@ export async function suggestionList(ds: DataSource, query: SuggestionQuery): Pr
   const counts = Object.fromEntries(REORDER_STATUSES.map((s) => [s, 0])) as Record<ReorderStatus, number>
   for (const l of matching) counts[l.status] += 1
   const lines = (query.status ? matching.filter((l) => l.status === query.status) : matching).sort(byUrgency)
-  return { asOf: computed.window.end, window: windowOf(computed.window), abcCutoffs: computed.cutoffs, counts, lines }
+  const importedHistoryDays = await historyDaysInWindow(ds.manager, computed.window)
+  return { asOf: computed.window.end, window: windowOf(computed.window), importedHistoryDays, abcCutoffs: computed.cutoffs, counts, lines }
 }
 
 export const DEFAULT_HORIZON_DAYS = 30

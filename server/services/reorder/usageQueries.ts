@@ -1,5 +1,6 @@
 // Usage from the ledger as SQL aggregates: ledger rows never come into Node. Issues and picks are usage
-// (their quantities are negative). The inner query sums each item × warehouse × day (the day as its offset
+// (their quantities are negative), and so is imported usage history (usage_history, from before Lumenyard:
+// positive quantities, never stock moves), added day by day beside them. The inner query sums each item × warehouse × day (the day as its offset
 // from the first day read, DATEDIFF(at, start), which groups exactly as DATE(at) does); the outer one gives per
 // line Σx and Σx² over the days that had use, which statsFromSums turns into a mean and spread over every day of
 // the window, the empty days included. The range is covered by ix_moves_type_at (move_type, at, item, wh, qty).
@@ -33,6 +34,8 @@ const keyOfLine = (line: string | number) => {
   return lineKey(Math.floor(n / WAREHOUSE_SPAN), n % WAREHOUSE_SPAN)
 }
 const LINE_EXPR = `(m.item_id * ${WAREHOUSE_SPAN} + m.warehouse_id)`
+/** The same key over usage_history (aliased m too, so the item filter reads the same). */
+const HISTORY_LINE_EXPR = LINE_EXPR
 
 interface UsageRow {
   line: string
@@ -87,12 +90,22 @@ export async function usageSums(
             SUM(IF(${inWindow} ${t} < ${firstEnd}, d.qty, 0)) AS first_half,
             SUM(IF(${t} >= ${secondStart}, d.qty, 0)) AS second_half,
             MAX(IF(d.qty > 0, ${t}, NULL)) AS last_offset
-       FROM (SELECT ${LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.at, ?) AS k, -SUM(m.qty) AS qty
-               FROM stock_moves m
-              WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
-              GROUP BY k) d
+       FROM (SELECT u.k, SUM(u.qty) AS qty FROM (
+               SELECT ${LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.at, ?) AS k, -SUM(m.qty) AS qty
+                 FROM stock_moves m
+                WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
+                GROUP BY k
+               UNION ALL
+               SELECT ${HISTORY_LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.day, ?) AS k, SUM(m.qty) AS qty
+                 FROM usage_history m
+                WHERE m.day >= ? AND m.day < ? ${itemFilter(itemIds)}
+                GROUP BY k) u
+              GROUP BY u.k) d
       GROUP BY line`,
-    [addDays(window.end, 1 - lookback), ...USAGE_MOVE_TYPES, addDays(window.end, 1 - lookback), dayAfter(window.end), ...(itemIds ?? [])],
+    [
+      addDays(window.end, 1 - lookback), ...USAGE_MOVE_TYPES, addDays(window.end, 1 - lookback), dayAfter(window.end), ...(itemIds ?? []),
+      addDays(window.end, 1 - lookback), addDays(window.end, 1 - lookback), dayAfter(window.end), ...(itemIds ?? []),
+    ],
   )
   return new Map(rows.map((r) => {
     const key = keyOfLine(r.line)
@@ -122,12 +135,16 @@ export async function dailyUsage(
   window: WindowBounds,
 ): Promise<{ date: string; qty: number }[]> {
   const rows: { day: string; qty: string }[] = await em.query(
-    `SELECT DATE_FORMAT(DATE(at), '%Y-%m-%d') AS day, -SUM(qty) AS qty
-       FROM stock_moves
-      WHERE item_id = ? AND warehouse_id = ? AND move_type IN (?, ?) AND at >= ? AND at < ?
-      GROUP BY DATE(at)
+    `SELECT DATE_FORMAT(u.day, '%Y-%m-%d') AS day, SUM(u.qty) AS qty FROM (
+       SELECT DATE(at) AS day, -SUM(qty) AS qty
+         FROM stock_moves
+        WHERE item_id = ? AND warehouse_id = ? AND move_type IN (?, ?) AND at >= ? AND at < ?
+        GROUP BY DATE(at)
+       UNION ALL
+       SELECT day, SUM(qty) FROM usage_history WHERE item_id = ? AND warehouse_id = ? AND day >= ? AND day < ? GROUP BY day) u
+      GROUP BY u.day
       ORDER BY day`,
-    [itemId, warehouseId, ...USAGE_MOVE_TYPES, window.start, dayAfter(window.end)],
+    [itemId, warehouseId, ...USAGE_MOVE_TYPES, window.start, dayAfter(window.end), itemId, warehouseId, window.start, dayAfter(window.end)],
   )
   return rows.map((r) => ({ date: r.day, qty: Number(r.qty) }))
 }
@@ -135,11 +152,27 @@ export async function dailyUsage(
 /** Window use per line without the daily split: what the ABC classes need. One integer key, as above. */
 export async function usageTotals(em: EntityManager, window: WindowBounds, itemIds?: readonly number[]): Promise<Map<string, number>> {
   const rows: { line: string; qty: string }[] = await em.query(
-    `${AGGREGATE_MEMORY} SELECT ${LINE_EXPR} AS line, -SUM(m.qty) AS qty
-       FROM stock_moves m
-      WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
-      GROUP BY line`,
-    [...USAGE_MOVE_TYPES, window.start, dayAfter(window.end), ...(itemIds ?? [])],
+    `${AGGREGATE_MEMORY} SELECT u.line, SUM(u.qty) AS qty FROM (
+       SELECT ${LINE_EXPR} AS line, -SUM(m.qty) AS qty
+         FROM stock_moves m
+        WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
+        GROUP BY line
+       UNION ALL
+       SELECT ${HISTORY_LINE_EXPR} AS line, SUM(m.qty) AS qty
+         FROM usage_history m
+        WHERE m.day >= ? AND m.day < ? ${itemFilter(itemIds)}
+        GROUP BY line) u
+      GROUP BY u.line`,
+    [...USAGE_MOVE_TYPES, window.start, dayAfter(window.end), ...(itemIds ?? []), window.start, dayAfter(window.end), ...(itemIds ?? [])],
   )
   return new Map(rows.map((r) => [keyOfLine(r.line), Number(r.qty)]))
+}
+
+/** How many days of the window imported usage history covers (from its first to its last day within the window). */
+export async function historyDaysInWindow(em: EntityManager, window: WindowBounds): Promise<number> {
+  const [row]: { days: string | null }[] = await em.query(
+    'SELECT DATEDIFF(MAX(day), MIN(day)) + 1 AS days FROM usage_history WHERE day >= ? AND day < ?',
+    [window.start, dayAfter(window.end)],
+  )
+  return Number(row?.days ?? 0)
 }

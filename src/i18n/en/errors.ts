@@ -390,6 +390,10 @@ export default {
   import_already_reversed: 'This import was already reversed.',
   import_touched: 'Stock of {sku} in {warehouse} has moved since the import, so it can no longer be reversed as a whole.',
   import_kind_unknown: 'There is no such import.',
+  import_usage_day_or_month: 'Give either a day (YYYY-MM-DD) or a month (YYYY-MM), not both',
+  gs1_prefix_digits: '4 to 12 digits, as GS1 issued it',
+  image_type_not_allowed: 'Upload the logo as a PNG or JPEG image.',
+  logo_missing: 'No logo has been uploaded.',
   aborted: 'Stopped.',
 
   percent_format: 'A percentage from 0 to 100, like 12.5',

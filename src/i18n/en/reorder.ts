@@ -4,6 +4,7 @@ export default {
   policiesTitle: 'Reorder policies',
   abcTitle: 'ABC classes',
   asOf: 'Usage {start} to {end} ({days} days)',
+  importedHistory: '· {days} of these {of} days come from usage history imported from before Lumenyard.',
   windowDays: 'Days of usage',
   anyWarehouse: 'Any warehouse',
   anyVendor: 'Any vendor',

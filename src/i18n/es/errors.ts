@@ -389,6 +389,10 @@ export default {
   import_already_reversed: 'Esta importación ya se revirtió.',
   import_touched: 'La existencia de {sku} en {warehouse} se movió después de la importación; ya no se puede revertir completa.',
   import_kind_unknown: 'No existe esa importación.',
+  import_usage_day_or_month: 'Indique un día (AAAA-MM-DD) o un mes (AAAA-MM), no ambos',
+  gs1_prefix_digits: 'De 4 a 12 dígitos, tal como se lo asignó GS1',
+  image_type_not_allowed: 'Suba el logotipo como imagen PNG o JPEG.',
+  logo_missing: 'Aún no se ha subido un logotipo.',
   aborted: 'Detenido.',
 
   percent_format: 'Un porcentaje de 0 a 100, como 12.5',

@@ -5,6 +5,7 @@ export default {
   policiesTitle: 'Políticas de reorden',
   abcTitle: 'Clases ABC',
   asOf: 'Consumo del {start} al {end} ({days} días)',
+  importedHistory: '· {days} de estos {of} días vienen del historial de consumo importado de antes de Lumenyard.',
   windowDays: 'Días de consumo',
   anyWarehouse: 'Cualquier almacén',
   anyVendor: 'Cualquier proveedor',

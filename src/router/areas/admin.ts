@@ -44,4 +44,10 @@ export const adminRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/admin/SellingPricesView.vue'),
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'sales.pricesTitle' },
   },
+  {
+    path: '/setup',
+    name: 'setup-checklist',
+    component: () => import('@/views/golive/SetupChecklistView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'golive.setup.title' },
+  },
 ]

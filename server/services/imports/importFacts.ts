@@ -1,0 +1,29 @@
+// What the imports of a business's own data look rows up against, read once per file in chunks:
+// items by SKU, warehouses by code (codes match without regard to case).
+import type { EntityManager } from 'typeorm'
+import type { ParsedSheet } from './importTypes.js'
+
+export interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
+export interface WarehouseFacts { id: number; code: string; active: number }
+
+export const marks = (n: number) => Array.from({ length: n }, () => '?').join(', ')
+export const cellText = (v: unknown) => (typeof v === 'string' ? v.trim() : v === null || v === undefined ? '' : String(v))
+
+export async function inChunks<T>(values: readonly unknown[], read: (chunk: unknown[]) => Promise<T[]>): Promise<T[]> {
+  const out: T[] = []
+  for (let i = 0; i < values.length; i += 1000) out.push(...(await read(values.slice(i, i + 1000))))
+  return out
+}
+
+/** The distinct non-blank values of one column. */
+export const distinctOf = (sheet: ParsedSheet, key: string) => [...new Set(sheet.rows.map((r) => cellText(r.values[key])).filter(Boolean))]
+
+export async function itemsBySku(em: EntityManager, skus: readonly string[]): Promise<Map<string, ItemFacts>> {
+  const items = await inChunks(skus, (c) => em.query(`SELECT id, sku, match_lot, made_to_order, case_qty, pallet_qty FROM items WHERE sku IN (${marks(c.length)})`, c) as Promise<ItemFacts[]>)
+  return new Map(items.map((i) => [i.sku, i]))
+}
+
+export async function warehousesByCode(em: EntityManager): Promise<Map<string, WarehouseFacts>> {
+  const warehouses: WarehouseFacts[] = await em.query('SELECT id, code, active FROM warehouses')
+  return new Map(warehouses.map((w) => [w.code.toUpperCase(), w]))
+}

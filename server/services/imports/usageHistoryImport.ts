@@ -1,0 +1,117 @@
+// Usage from before Lumenyard: past issues or sales per item, warehouse and day, or per month (spread over
+// its days). Kept in usage_history, which the reorder statistics read beside the ledger's issues; never
+// stock moves, so no balance changes. Reversing the import deletes its rows (nothing else writes them).
+import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
+import { dayNumber } from '../../../shared/inventory/demand.js'
+import { parsePackQuantity } from '../../../shared/inventory/packs.js'
+import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
+import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import { cellText, distinctOf, itemsBySku, warehousesByCode } from './importFacts.js'
+import type { ImportSpec } from './importTypes.js'
+
+export const USAGE_HISTORY_SPEC: ImportSpec = {
+  columns: [
+    { key: 'sku', header: 'SKU', aliases: ['Item SKU'], required: true, kind: 'text' },
+    { key: 'warehouse', header: 'Warehouse', aliases: ['Warehouse code'], required: true, kind: 'text' },
+    { key: 'day', header: 'Day', aliases: ['Date'], kind: 'text' },
+    { key: 'month', header: 'Month', kind: 'text' },
+    { key: 'quantity', header: 'Quantity used', aliases: ['Quantity', 'Qty', 'Used', 'Sold'], required: true, kind: 'text' },
+  ],
+  ignore: ['Name', 'Item', 'Stock unit', 'Description', 'Note'],
+  maxRows: 200_000,
+  maxColumns: 30,
+}
+
+export const USAGE_HISTORY_GUIDE: Record<string, string> = {
+  sku: 'An item already in the catalog.',
+  warehouse: 'The warehouse the units left from (its code).',
+  day: 'The day of use, as YYYY-MM-DD. Give a day or a month on each row, not both.',
+  month: 'A whole month, as YYYY-MM, when you only know monthly totals: the quantity is spread over its days in whole units. Only months already over.',
+  quantity: 'Units issued or sold, in the item\'s stock unit or packs ("3 cases"). A 0 row is skipped.',
+}
+
+type Write = { itemId: number; warehouseId: number; days: { date: string; qty: number }[] }
+
+const HEADER = new Map(USAGE_HISTORY_SPEC.columns.map((c) => [c.key, c.header]))
+const col = (key: string) => HEADER.get(key) ?? key
+const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
+
+function validDay(text: string): boolean {
+  if (!ISO_DAY.test(text)) return false
+  try {
+    dayNumber(text)
+    return true
+  } catch {
+    return false
+  }
+}
+
+export const usageHistoryImport: DataImportDefinition<Write> = {
+  kind: 'usage_history',
+  spec: USAGE_HISTORY_SPEC,
+  async check(em, sheet) {
+    const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
+    const warehouses = await warehousesByCode(em)
+    const today = new Date().toISOString().slice(0, 10)
+    const seen = new Map<string, number>()
+    return sheet.rows.map((r): CheckedRow<Write> => {
+      const errors: RowProblem[] = sheet.issues.filter((i) => i.row === r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
+      const sku = cellText(r.values.sku)
+      const item = sku ? items.get(sku) : undefined
+      if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
+      const whCode = cellText(r.values.warehouse)
+      const warehouse = whCode ? warehouses.get(whCode.toUpperCase()) : undefined
+      if (whCode && !warehouse) add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+      const dayText = cellText(r.values.day)
+      // A month typed into a spreadsheet often becomes a date (its first day): read its month.
+      const monthText = cellText(r.values.month).slice(0, 7)
+      let when: string | null = null
+      if (dayText && monthText) add('day', problem('import_usage_day_or_month'))
+      else if (!dayText && !monthText) add('day', problem('import_usage_day_or_month'))
+      else if (dayText) {
+        if (!validDay(dayText)) add('day', problem('invalid_date'))
+        else if (dayText > today) add('day', problem('day_after_today', { today }))
+        else when = dayText
+      } else {
+        if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(monthText)) add('month', problem('invalid_date'))
+        else if (`${monthText}-${String(daysInMonth(monthText)).padStart(2, '0')}` > today) add('month', problem('day_after_today', { today }))
+        else when = monthText
+      }
+      let qty: number | null = null
+      const qtyText = cellText(r.values.quantity)
+      if (qtyText && item) {
+        const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
+        if (read.ok) qty = read.qty
+        else if (read.problem === 'whole_number') add('quantity', problem('import_qty_whole', { text: qtyText.slice(0, 40) }))
+        else if (read.problem === 'not_negative') add('quantity', problem('import_qty_negative', { text: qtyText.slice(0, 40) }))
+        else if (read.problem === 'unknown_pack') add('quantity', problem('import_qty_pack_word', { word: (read.word ?? '').slice(0, 20) }))
+        else if (read.problem === 'no_case_size') add('quantity', problem('import_qty_no_case', { sku }))
+        else if (read.problem === 'no_pallet_size') add('quantity', problem('import_qty_no_pallet', { sku }))
+        else add('quantity', problem('import_qty_unreadable', { text: qtyText.slice(0, 40) }))
+        if (qty !== null && qty > 100_000_000) add('quantity', problem('at_most', { max: 100_000_000 }))
+      }
+      if (item && warehouse && when) {
+        const key = `${item.id}:${warehouse.id}:${when}`
+        const first = seen.get(key)
+        if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
+        else seen.set(key, r.row)
+      }
+      const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
+      if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
+      const days = when.length === 7 ? spreadOverMonth(when, qty) : [{ date: when, qty }]
+      return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days } }
+    })
+  },
+  async write(em, _actor, importId, rows) {
+    const flat = rows.flatMap((r) => r.days.map((d) => [importId, r.itemId, r.warehouseId, d.date, d.qty]))
+    for (let i = 0; i < flat.length; i += 1000) {
+      const chunk = flat.slice(i, i + 1000)
+      await em.query(`INSERT INTO usage_history (import_id, item_id, warehouse_id, day, qty) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?)').join(', ')}`, chunk.flat())
+    }
+    return { lines: rows.length, units: rows.reduce((n, r) => n + r.days.reduce((m, d) => m + d.qty, 0), 0), days: flat.length }
+  },
+  async reverse(em, _actor, importId) {
+    await em.query('DELETE FROM usage_history WHERE import_id = ?', [importId])
+  },
+}

@@ -1,0 +1,146 @@
+// Going live, measured: an opening-stock sheet of 60,000 rows (20,000 SKUs × 3 warehouses) imported through
+// the import service (parse in its child process, every row checked, one transaction through the stock
+// service), side by side with its floor: a bare bulk insert of the same 60,000 balances and 60,000 ledger
+// rows in one transaction. Rounds alternate; each starts from empty stock tables. Reports time and the
+// server process's peak resident memory (the parse child's own heap is capped at 128 MB apart from it).
+// In a database of its own on the test MariaDB instance. Not part of npm test.
+//
+//   tsx --tsconfig tsconfig.server.json scripts/bench/goLive.ts [--rounds=3]    (or npm run bench -- --only=golive)
+import { parseArgs } from 'node:util'
+import type { DataSource } from 'typeorm'
+import { loadConfig } from '../../server/config.js'
+import { createDataSource } from '../../server/db/dataSource.js'
+import { commitImport } from '../../server/services/imports/dataImports.js'
+import { openingStockImport } from '../../server/services/imports/openingStockImport.js'
+import { prepareEnvironment } from '../environment.js'
+import { median, timed } from './stats.js'
+
+export const GO_LIVE_DATABASE = 'lumenyard_bench_golive'
+const SKUS = 20_000
+const WAREHOUSES = ['GLA', 'GLB', 'GLC']
+const BINS_PER_WAREHOUSE = 2_000
+
+export interface GoLiveTimes { rows: number; importMs: number[]; floorMs: number[]; importPeakMb: number[]; floorPeakMb: number[] }
+
+async function seed(ds: DataSource, log: (line: string) => void): Promise<void> {
+  const [{ n }] = (await ds.query("SELECT COUNT(*) AS n FROM items WHERE sku LIKE 'GL-%'")) as { n: string }[]
+  if (Number(n) === SKUS) return
+  log(`  seeding ${SKUS.toLocaleString('en-US')} items and ${WAREHOUSES.length} × ${BINS_PER_WAREHOUSE.toLocaleString('en-US')} bins…`)
+  for (let i = 0; i < SKUS; i += 1000) {
+    const chunk = Array.from({ length: Math.min(1000, SKUS - i) }, (_, k) => i + k)
+    await ds.query(
+      `INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES ${chunk.map(() => "(?, ?, 'glass_block', 'each', 0, 8, ?)").join(', ')}`,
+      chunk.flatMap((k) => [`GL-${String(k).padStart(5, '0')}`, `Bench block ${k}`, k % 5 === 0 ? 1 : 0]),
+    )
+  }
+  for (const code of WAREHOUSES) {
+    const res = (await ds.query('INSERT INTO warehouses (code, name) VALUES (?, ?)', [code, `Bench yard ${code}`])) as { insertId: number }
+    const bins = Array.from({ length: BINS_PER_WAREHOUSE }, (_, b) => `A-${String(Math.floor(b / 40) + 1).padStart(2, '0')}-${(b % 40) + 1}`)
+    for (let i = 0; i < bins.length; i += 1000) {
+      const chunk = bins.slice(i, i + 1000)
+      await ds.query(`INSERT INTO bins (warehouse_id, code, kind) VALUES ${chunk.map(() => "(?, ?, 'storage')").join(', ')}`, chunk.flatMap((c) => [res.insertId, c]))
+    }
+  }
+}
+
+function sheet(): { csv: Buffer; rows: number } {
+  const lines = ['SKU,Warehouse,Bin,Lot,Quantity,Unit cost']
+  for (let k = 0; k < SKUS; k++) {
+    for (const [w, code] of WAREHOUSES.entries()) {
+      const b = (k + w * 7) % BINS_PER_WAREHOUSE
+      const bin = `A-${String(Math.floor(b / 40) + 1).padStart(2, '0')}-${(b % 40) + 1}`
+      const qty = k % 3 === 0 ? `${1 + (k % 9)} cases` : String(5 + (k % 200))
+      lines.push(`GL-${String(k).padStart(5, '0')},${code},${bin},${k % 5 === 0 ? `R-${k % 17}` : ''},${qty},${(2 + (k % 300) / 100).toFixed(2)}`)
+    }
+  }
+  return { csv: Buffer.from(lines.join('\n') + '\n'), rows: lines.length - 1 }
+}
+
+async function emptyStock(ds: DataSource): Promise<void> {
+  await ds.query('SET FOREIGN_KEY_CHECKS = 0')
+  for (const t of ['stock_moves', 'stock_balances', 'data_import_costs', 'data_imports', 'item_warehouses', 'floor_moves', 'floor_balances']) await ds.query(`TRUNCATE ${t}`)
+  await ds.query('SET FOREIGN_KEY_CHECKS = 1')
+}
+
+/** The floor: the same number of balance and ledger rows, written in one transaction, 1,000 a statement. */
+async function bareBulkInsert(ds: DataSource, rows: number): Promise<void> {
+  const [items, bins]: [{ id: number }[], { id: number; warehouse_id: number }[]] = await Promise.all([
+    ds.query("SELECT id FROM items WHERE sku LIKE 'GL-%' ORDER BY id"),
+    ds.query('SELECT b.id, b.warehouse_id FROM bins b JOIN warehouses w ON w.id = b.warehouse_id WHERE w.code IN (?) ORDER BY b.id', [WAREHOUSES]),
+  ])
+  await ds.transaction(async (em) => {
+    for (let i = 0; i < rows; i += 1000) {
+      const chunk = Array.from({ length: Math.min(1000, rows - i) }, (_, k) => {
+        const n = i + k
+        const bin = bins[n % bins.length]
+        return [items[Math.floor(n / WAREHOUSES.length)].id, bin.warehouse_id, bin.id, 10]
+      })
+      await em.query(`INSERT INTO floor_balances (item_id, warehouse_id, bin_id, on_hand, reserved) VALUES ${chunk.map(() => '(?, ?, ?, ?, 0)').join(', ')}`, chunk.flat())
+      await em.query(
+        `INSERT INTO floor_moves (at, move_type, item_id, warehouse_id, bin_id, qty, unit_cost, batch_id) VALUES ${chunk.map(() => "(NOW(3), 'opening', ?, ?, ?, ?, 2.5, 'bench')").join(', ')}`,
+        chunk.flat(),
+      )
+    }
+  })
+}
+
+/** Runs work while sampling this process's resident memory; answers its time and the peak above the start. */
+async function withPeak<T>(work: () => Promise<T>): Promise<{ ms: number; peakMb: number }> {
+  const start = process.memoryUsage().rss
+  let peak = start
+  const timer = setInterval(() => { peak = Math.max(peak, process.memoryUsage().rss) }, 20)
+  try {
+    const { ms } = await timed(work)
+    peak = Math.max(peak, process.memoryUsage().rss)
+    return { ms, peakMb: (peak - start) / 1048576 }
+  } finally {
+    clearInterval(timer)
+  }
+}
+
+export async function measureGoLive(ds: DataSource, rounds: number, log: (line: string) => void): Promise<GoLiveTimes> {
+  await seed(ds, log)
+  await ds.query('CREATE TABLE IF NOT EXISTS floor_balances LIKE stock_balances')
+  await ds.query('CREATE TABLE IF NOT EXISTS floor_moves LIKE stock_moves')
+  const [{ id: adminId }] = (await ds.query("SELECT id FROM users ORDER BY id LIMIT 1")) as { id: number }[]
+  const { csv, rows } = sheet()
+  log(`  opening-stock sheet: ${rows.toLocaleString('en-US')} rows, ${(csv.length / 1048576).toFixed(1)} MB CSV`)
+  const out: GoLiveTimes = { rows, importMs: [], floorMs: [], importPeakMb: [], floorPeakMb: [] }
+  for (let r = 0; r < rounds; r++) {
+    const sides: [string, () => Promise<unknown>][] = [
+      ['import', () => commitImport(ds, { userId: adminId }, openingStockImport, { kind: 'csv', filename: `opening-${r}.csv`, data: csv })],
+      ['floor', () => bareBulkInsert(ds, rows)],
+    ]
+    if (r % 2) sides.reverse()
+    for (const [name, work] of sides) {
+      await emptyStock(ds)
+      const { ms, peakMb } = await withPeak(work)
+      if (name === 'import') { out.importMs.push(ms); out.importPeakMb.push(peakMb) } else { out.floorMs.push(ms); out.floorPeakMb.push(peakMb) }
+      log(`  round ${r + 1} ${name}: ${(ms / 1000).toFixed(1)} s, peak +${peakMb.toFixed(0)} MB`)
+    }
+  }
+  const [{ moves }] = (await ds.query("SELECT COUNT(*) AS moves FROM stock_moves WHERE move_type = 'opening'")) as { moves: string }[]
+  log(`  import median ${(median(out.importMs) / 1000).toFixed(1)} s vs floor ${(median(out.floorMs) / 1000).toFixed(1)} s (ratio ${(median(out.importMs) / median(out.floorMs)).toFixed(2)}); ${moves} moves written in the last round`)
+  return out
+}
+
+export async function openGoLiveDatabase(): Promise<{ ds: DataSource; stopServer: () => Promise<void> }> {
+  const prepared = await prepareEnvironment('bench', { database: GO_LIVE_DATABASE, reset: false })
+  const ds = createDataSource(loadConfig({ ...process.env, ...prepared.env, LUMENYARD_DB_NAME: GO_LIVE_DATABASE, NODE_ENV: 'test' }))
+  await ds.initialize()
+  await ds.runMigrations({ transaction: 'each' })
+  const [{ n }] = (await ds.query('SELECT COUNT(*) AS n FROM users')) as { n: string }[]
+  if (!Number(n)) await ds.query("INSERT INTO users (username, display_name, roles, password_hash, active) VALUES ('bench-golive', 'Bench admin', 'admin', '-', 1)")
+  return { ds, stopServer: () => prepared.stop() }
+}
+
+if (import.meta.url === `file://${process.argv[1]}`) {
+  const { values } = parseArgs({ options: { rounds: { type: 'string', default: '3' } } })
+  const { ds, stopServer } = await openGoLiveDatabase()
+  try {
+    await measureGoLive(ds, Number(values.rounds), (l) => console.log(l))
+  } finally {
+    await ds.destroy()
+    await stopServer()
+  }
+}

@@ -10,7 +10,7 @@ import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { customerCreateSchema, type CustomerCreateInput } from '../../../shared/schemas/counter.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, marks } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, marks } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const ACCOUNT_HOOK_HEADERS = ['Price level', 'Tax-exempt certificate', 'Tax exempt certificate', 'Tax exempt']
@@ -47,8 +47,9 @@ export const accountsImport: DataImportDefinition<CustomerCreateInput> = {
     const codes = distinctOf(sheet, 'code').map((c) => c.toUpperCase())
     const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)})`, c) as Promise<{ code: string }[]>)).map((r) => r.code.toUpperCase()))
     const seen = new Map<string, number>()
+    const issuesOf = issuesByRow(sheet)
     return sheet.rows.map((r): CheckedRow<CustomerCreateInput> => {
-      const errors: RowProblem[] = sheet.issues.filter((i) => i.row === r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
       const parsed = customerCreateSchema.safeParse(Object.fromEntries(Object.entries(r.values).filter(([, v]) => v !== null)))
       if (!parsed.success) for (const issue of parsed.error.issues) errors.push({ column: col(String(issue.path[0] ?? '')), problem: zodIssueProblem(issue) })
       const code = cellText(r.values.code).toUpperCase()

@@ -1,7 +1,7 @@
 // What the imports of a business's own data look rows up against, read once per file in chunks:
 // items by SKU, warehouses by code (codes match without regard to case).
 import type { EntityManager } from 'typeorm'
-import type { ParsedSheet } from './importTypes.js'
+import type { ParsedSheet, RowIssue } from './importTypes.js'
 
 export interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
 export interface WarehouseFacts { id: number; code: string; active: number }
@@ -26,4 +26,11 @@ export async function itemsBySku(em: EntityManager, skus: readonly string[]): Pr
 export async function warehousesByCode(em: EntityManager): Promise<Map<string, WarehouseFacts>> {
   const warehouses: WarehouseFacts[] = await em.query('SELECT id, code, active FROM warehouses')
   return new Map(warehouses.map((w) => [w.code.toUpperCase(), w]))
+}
+
+/** The parser's problems grouped by row, once (a filter per row would be rows × problems on a bad big file). */
+export function issuesByRow(sheet: ParsedSheet): (row: number) => RowIssue[] {
+  const byRow = new Map<number, RowIssue[]>()
+  for (const i of sheet.issues) byRow.set(i.row, [...(byRow.get(i.row) ?? []), i])
+  return (row) => byRow.get(row) ?? []
 }

@@ -8,7 +8,7 @@ import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
 import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, itemsBySku, marks, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -57,9 +57,10 @@ async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
 
 function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFacts>>): CheckedRow<Write>[] {
   const seen = new Map<string, number>()
+  const issuesOf = issuesByRow(sheet)
   return sheet.rows.map((r) => {
-    const errors: RowProblem[] = sheet.issues.filter((i) => i.row === r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
-    const bad = new Set(sheet.issues.filter((i) => i.row === r.row).map((i) => i.column))
+    const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+    const bad = new Set(issuesOf(r.row).map((i) => i.column))
     const add = (key: string, p: RowProblem['problem']) => { errors.push({ column: col(key), problem: p }); bad.add(key) }
     const sku = text(r.values.sku)
     const item = sku ? facts.item.get(sku) : undefined

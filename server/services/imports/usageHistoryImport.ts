@@ -6,7 +6,7 @@ import { dayNumber } from '../../../shared/inventory/demand.js'
 import { parsePackQuantity } from '../../../shared/inventory/packs.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, itemsBySku, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, issuesByRow, itemsBySku, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -54,8 +54,9 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
     const warehouses = await warehousesByCode(em)
     const today = new Date().toISOString().slice(0, 10)
     const seen = new Map<string, number>()
+    const issuesOf = issuesByRow(sheet)
     return sheet.rows.map((r): CheckedRow<Write> => {
-      const errors: RowProblem[] = sheet.issues.filter((i) => i.row === r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
       const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
       const sku = cellText(r.values.sku)
       const item = sku ? items.get(sku) : undefined

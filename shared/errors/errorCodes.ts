@@ -426,6 +426,7 @@ export const ERROR_CODES = {
   import_received_over: ['ordered'],
   import_order_differs: ['row'],
   import_order_closed: ['number'],
+  import_price_level_unknown: ['level'],
   gs1_prefix_digits: [],
   image_type_not_allowed: [],
   logo_missing: [],

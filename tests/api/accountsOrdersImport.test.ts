@@ -10,13 +10,14 @@ let h: ApiHarness
 const tag = tagOf()
 const WH = `AO${tag}`
 const VENDOR = `AOV${tag}`
-const ids = { item: 0, item2: 0, wh: 0 }
+const ids = { item: 0, item2: 0, wh: 0, level: 0 }
 const today = new Date().toISOString().slice(0, 10)
 
 beforeAll(async () => {
   h = await startApiHarness()
   ids.wh = await insertId(h.ds, 'INSERT INTO warehouses (code, name) VALUES (?, ?)', [WH, `Test order yard ${tag}`])
   await h.ds.query('INSERT INTO vendors (code, name) VALUES (?, ?)', [VENDOR, `Test glassworks ${tag}`])
+  ids.level = await insertId(h.ds, 'INSERT INTO price_levels (code, name) VALUES (?, ?)', [`L${tag}`, `Test trade level ${tag}`])
   ids.item = await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost) VALUES (?, 'Test arc spacer', 'arc_spacer', 'each', 1)", [`AO${tag}-1`])
   ids.item2 = await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost) VALUES (?, 'Test grout', 'grout', 'bag', 1)", [`AO${tag}-2`])
 })
@@ -27,18 +28,20 @@ const send = async (kind: string, lines: string[]) =>
 const codesOf = (res: { body: { error: { fields: Record<string, { code: string }> } } }) => Object.values(res.body.error.fields).map((p) => p.code)
 
 describe('contractor accounts import', () => {
-  it('refuses a code already here and a bad e-mail, then brings new accounts in (price level column skipped) and reverses them', async () => {
-    const head = 'Account code,Name,Contact,E-mail,Phone,Price level'
-    const first = await send('accounts', [head, `A${tag}-1,Harbor Lane Masonry,Ines Calder,ines@harborlane.example,555-0140,Trade 2`, `A${tag}-2,Quarry Row Builders,,,,`])
+  it('refuses a code already here, a bad e-mail and an unknown price level, then brings new accounts in with their terms and reverses them', async () => {
+    const head = 'Account code,Name,Contact,E-mail,Phone,Price level,Tax-exempt certificate,Exempt until'
+    const first = await send('accounts', [head, `A${tag}-1,Harbor Lane Masonry,Ines Calder,ines@harborlane.example,555-0140,l${tag},EX-40771,2027-06-30`, `A${tag}-2,Quarry Row Builders,,,,,,`])
     expect(first.status, JSON.stringify(first.body)).toBe(200)
-    expect(first.body.record.summary).toEqual({ accounts: 2 })
+    expect(first.body.record.summary).toEqual({ accounts: 2, withTerms: 1 })
     const [acct] = await h.ds.query('SELECT name, contact_name, email FROM customers WHERE code = ?', [`A${tag}-1`])
     expect(acct).toEqual({ name: 'Harbor Lane Masonry', contact_name: 'Ines Calder', email: 'ines@harborlane.example' })
+    const [terms] = await h.ds.query("SELECT t.price_level_id, t.exempt_certificate, DATE_FORMAT(t.exempt_until, '%Y-%m-%d') AS until FROM customer_terms t JOIN customers c ON c.id = t.customer_id WHERE c.code = ?", [`A${tag}-1`])
+    expect(terms).toEqual({ price_level_id: ids.level, exempt_certificate: 'EX-40771', until: '2027-06-30' })
 
     const before = await countRows(h.ds, 'customers')
-    const bad = await send('accounts', [head, `A${tag}-1,Again,,,,`, `A${tag}-3,Fine,,not-an-email,,`])
+    const bad = await send('accounts', [head, `A${tag}-1,Again,,,,,,`, `A${tag}-3,Fine,,not-an-email,,,,`, `A${tag}-4,Fine,,,,NOLEVEL${tag},,`])
     expect(bad.status).toBe(422)
-    expect(codesOf(bad)).toEqual(['import_code_exists', 'invalid_email'])
+    expect(codesOf(bad)).toEqual(['import_code_exists', 'invalid_email', 'import_price_level_unknown'])
     expect(await countRows(h.ds, 'customers')).toBe(before)
 
     const reversed = await (await h.as('admin')).post(`/api/imports/${first.body.record.id}/reverse`).set(CSRF)

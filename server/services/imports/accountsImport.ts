@@ -1,19 +1,14 @@
-// Contractor accounts with their contact, from the business's own list. New accounts only (a code already
-// in Lumenyard is refused: edit that account on its page), so the import can be reversed whole while none of
+// Contractor accounts with their contact, price level and tax-exempt certificate (customer_terms, the
+// selling-price terms of an account), from the business's own list. New accounts only (a code already in
+// Lumenyard is refused: edit that account on its page), so the import can be reversed whole while none of
 // its accounts has a job.
-//
-// Price level and tax-exempt certificate: counter sales will add these to accounts. Their columns are named
-// here already and skipped (ACCOUNT_HOOK_HEADERS); once the accounts table has them, move each to `columns`
-// with its check and write it in `write` below.
 import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { customerCreateSchema, type CustomerCreateInput } from '../../../shared/schemas/counter.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, marks } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, marks, validDay } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
-
-export const ACCOUNT_HOOK_HEADERS = ['Price level', 'Tax-exempt certificate', 'Tax exempt certificate', 'Tax exempt']
 
 export const ACCOUNTS_SPEC: ImportSpec = {
   columns: [
@@ -24,8 +19,10 @@ export const ACCOUNTS_SPEC: ImportSpec = {
     { key: 'phone', header: 'Phone', kind: 'text' },
     { key: 'address', header: 'Address', kind: 'text' },
     { key: 'notes', header: 'Notes', kind: 'text' },
+    { key: 'priceLevel', header: 'Price level', kind: 'text' },
+    { key: 'exemptCertificate', header: 'Tax-exempt certificate', aliases: ['Tax exempt certificate', 'Exemption certificate'], kind: 'text' },
+    { key: 'exemptUntil', header: 'Exempt until', kind: 'text' },
   ],
-  ignore: ACCOUNT_HOOK_HEADERS,
   maxRows: 20_000,
   maxColumns: 30,
 }
@@ -35,20 +32,27 @@ export const ACCOUNTS_GUIDE: Record<string, string> = {
   name: 'The contractor\'s name as it goes on quotes and pick lists.',
   contactName: 'Who to ask for.',
   email: 'Where quotes go.',
+  priceLevel: 'A price level code, as set up under Selling prices (blank: list prices).',
+  exemptCertificate: 'The tax-exempt certificate number, when the contractor buys tax-free (up to 40 characters).',
+  exemptUntil: 'The last day the certificate holds, YYYY-MM-DD (optional).',
 }
+
+type Account = CustomerCreateInput & { priceLevelId: number | null; exemptCertificate: string | null; exemptUntil: string | null }
 
 const HEADER = new Map(ACCOUNTS_SPEC.columns.map((c) => [c.key, c.header]))
 const col = (key: string) => HEADER.get(key) ?? key
 
-export const accountsImport: DataImportDefinition<CustomerCreateInput> = {
+export const accountsImport: DataImportDefinition<Account> = {
   kind: 'accounts',
   spec: ACCOUNTS_SPEC,
   async check(em, sheet) {
     const codes = distinctOf(sheet, 'code').map((c) => c.toUpperCase())
     const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)})`, c) as Promise<{ code: string }[]>)).map((r) => r.code.toUpperCase()))
+    const levelRows: { id: number; code: string }[] = await em.query('SELECT id, code FROM price_levels WHERE active = 1')
+    const levels = new Map(levelRows.map((l) => [l.code.toUpperCase(), l.id]))
     const seen = new Map<string, number>()
     const issuesOf = issuesByRow(sheet)
-    return sheet.rows.map((r): CheckedRow<CustomerCreateInput> => {
+    return sheet.rows.map((r): CheckedRow<Account> => {
       const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
       const parsed = customerCreateSchema.safeParse(Object.fromEntries(Object.entries(r.values).filter(([, v]) => v !== null)))
       if (!parsed.success) for (const issue of parsed.error.issues) errors.push({ column: col(String(issue.path[0] ?? '')), problem: zodIssueProblem(issue) })
@@ -57,11 +61,18 @@ export const accountsImport: DataImportDefinition<CustomerCreateInput> = {
       const first = seen.get(code)
       if (code && first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
       else if (code) seen.set(code, r.row)
+      const level = cellText(r.values.priceLevel)
+      const priceLevelId = level ? (levels.get(level.toUpperCase()) ?? null) : null
+      if (level && priceLevelId === null) errors.push({ column: col('priceLevel'), problem: problem('import_price_level_unknown', { level }) })
+      const exemptCertificate = cellText(r.values.exemptCertificate) || null
+      if (exemptCertificate && exemptCertificate.length > 40) errors.push({ column: col('exemptCertificate'), problem: problem('too_long', { max: 40 }) })
+      const exemptUntil = cellText(r.values.exemptUntil).slice(0, 10) || null
+      if (exemptUntil && !validDay(exemptUntil)) errors.push({ column: col('exemptUntil'), problem: problem('invalid_date') })
       const preview = { row: r.row, label: code || null, place: cellText(r.values.name) || null, qty: null, errors }
-      return { preview, write: errors.length || !parsed.success ? null : parsed.data }
+      return { preview, write: errors.length || !parsed.success ? null : { ...parsed.data, priceLevelId, exemptCertificate, exemptUntil } }
     })
   },
-  async write(em, _actor, importId, rows) {
+  async write(em, actor, importId, rows) {
     for (let i = 0; i < rows.length; i += 500) {
       const chunk = rows.slice(i, i + 500)
       await em.query(
@@ -69,7 +80,18 @@ export const accountsImport: DataImportDefinition<CustomerCreateInput> = {
         chunk.flatMap((a) => [a.code, a.name, a.contactName ?? null, a.email ?? null, a.phone ?? null, a.address ?? null, a.notes ?? null, importId]),
       )
     }
-    return { accounts: rows.length }
+    const withTerms = rows.filter((a) => a.priceLevelId !== null || a.exemptCertificate !== null)
+    if (withTerms.length) {
+      const ids = new Map(((await em.query('SELECT id, code FROM customers WHERE import_id = ?', [importId])) as { id: number; code: string }[]).map((c) => [c.code, c.id]))
+      for (let i = 0; i < withTerms.length; i += 500) {
+        const chunk = withTerms.slice(i, i + 500)
+        await em.query(
+          `INSERT INTO customer_terms (customer_id, price_level_id, exempt_certificate, exempt_until, updated_by) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?)').join(', ')}`,
+          chunk.flatMap((a) => [ids.get(a.code), a.priceLevelId, a.exemptCertificate, a.exemptUntil, actor.userId]),
+        )
+      }
+    }
+    return { accounts: rows.length, withTerms: withTerms.length }
   },
   async reverse(em, _actor, importId) {
     const [used]: { code: string }[] = await em.query('SELECT c.code FROM customers c JOIN jobs j ON j.customer_id = c.id WHERE c.import_id = ? LIMIT 1 LOCK IN SHARE MODE', [importId])

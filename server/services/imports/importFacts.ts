@@ -34,3 +34,6 @@ export function issuesByRow(sheet: ParsedSheet): (row: number) => RowIssue[] {
   for (const i of sheet.issues) byRow.set(i.row, [...(byRow.get(i.row) ?? []), i])
   return (row) => byRow.get(row) ?? []
 }
+
+/** A real calendar day written YYYY-MM-DD. */
+export const validDay = (t: string) => /^\d{4}-\d{2}-\d{2}$/.test(t) && !Number.isNaN(Date.parse(`${t}T00:00:00Z`)) && new Date(`${t}T00:00:00Z`).toISOString().startsWith(t)

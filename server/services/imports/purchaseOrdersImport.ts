@@ -7,7 +7,7 @@ import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { orderTotal } from '../../../shared/purchasing/poMoney.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, validDay, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const PURCHASE_ORDERS_SPEC: ImportSpec = {
@@ -43,8 +43,6 @@ interface Order { number: string; vendorId: number; warehouseId: number; ordered
 
 const HEADER = new Map(PURCHASE_ORDERS_SPEC.columns.map((c) => [c.key, c.header]))
 const col = (key: string) => HEADER.get(key) ?? key
-const DAY = /^\d{4}-\d{2}-\d{2}$/
-const validDay = (t: string) => DAY.test(t) && !Number.isNaN(Date.parse(`${t}T00:00:00Z`)) && new Date(`${t}T00:00:00Z`).toISOString().startsWith(t)
 
 export const purchaseOrdersImport: DataImportDefinition<Order> = {
   kind: 'purchase_orders',

@@ -396,6 +396,7 @@ export default {
   import_vendor_unknown: 'There is no vendor {vendor}; set it up under Vendors first',
   import_received_over: 'More than the {ordered} ordered',
   import_order_differs: 'The same order has another vendor or warehouse on row {row}',
+  import_price_level_unknown: 'There is no price level {level}; set it up under Selling prices first',
   import_order_closed: 'Order {number} is fully received, so it is not open: leave it out',
   gs1_prefix_digits: '4 to 12 digits, as GS1 issued it',
   image_type_not_allowed: 'Upload the logo as a PNG or JPEG image.',

@@ -5,7 +5,7 @@ export default {
     intro: 'Start from the sheets you keep today. Download a template, fill it in (or match your own columns to it), check the file, and import it. Nothing is written until every row reads; the same file imported twice changes nothing the second time.',
     kinds: { opening_stock: 'Opening stock', usage_history: 'Usage history', accounts: 'Contractor accounts', purchase_orders: 'Open purchase orders' },
     kindIntro: {
-      accounts: 'Your contractor accounts with their contact. New accounts only: an account already here is changed on its own page.',
+      accounts: 'Your contractor accounts with their contact, price level and tax-exempt certificate. New accounts only: an account already here is changed on its own page.',
       purchase_orders: 'Orders already with your vendors, a row per line, with what has arrived so far, so what is on order is right from day one. The units already received belong in your opening stock.',
       usage_history: 'What you issued or sold before Lumenyard, per item, warehouse and day (or month, spread over its days). The reorder points read it beside the issues recorded here, so they are right from day one. It is history only: stock on hand does not change.',
       opening_stock: 'What you hold now, by warehouse, bin and production lot, at what it cost you. Items, warehouses and bins must exist first. Quantities are in the item’s stock unit, or in packs (“3 cases”). The moving-average cost starts from these costs.',

@@ -395,6 +395,7 @@ export default {
   import_vendor_unknown: 'No existe el proveedor {vendor}; agréguelo antes en Proveedores',
   import_received_over: 'Más de las {ordered} pedidas',
   import_order_differs: 'El mismo pedido tiene otro proveedor o almacén en la fila {row}',
+  import_price_level_unknown: 'No existe el nivel de precio {level}; agréguelo antes en Precios de venta',
   import_order_closed: 'El pedido {number} ya se recibió completo, así que no está abierto: déjelo fuera',
   gs1_prefix_digits: 'De 4 a 12 dígitos, tal como se lo asignó GS1',
   image_type_not_allowed: 'Suba el logotipo como imagen PNG o JPEG.',

@@ -5,7 +5,7 @@ export default {
     intro: 'Parta de las hojas que ya lleva. Descargue una plantilla, llénela (o haga coincidir sus columnas), revise el archivo e impórtelo. No se escribe nada hasta que todas las filas se lean; el mismo archivo importado dos veces no cambia nada la segunda vez.',
     kinds: { opening_stock: 'Existencia inicial', usage_history: 'Historial de consumo', accounts: 'Cuentas de contratistas', purchase_orders: 'Órdenes de compra abiertas' },
     kindIntro: {
-      accounts: 'Sus cuentas de contratistas con su contacto. Solo cuentas nuevas: una cuenta que ya existe se cambia en su propia página.',
+      accounts: 'Sus cuentas de contratistas con su contacto, nivel de precio y certificado de exención de impuestos. Solo cuentas nuevas: una cuenta que ya existe se cambia en su propia página.',
       purchase_orders: 'Pedidos ya hechos a sus proveedores, una fila por línea, con lo recibido hasta ahora, para que lo pedido sea correcto desde el primer día. Las unidades ya recibidas van en su existencia inicial.',
       usage_history: 'Lo que entregó o vendió antes de Lumenyard, por artículo, almacén y día (o mes, repartido en sus días). Los puntos de reorden lo leen junto con las salidas registradas aquí, así que son correctos desde el primer día. Es solo historial: la existencia no cambia.',
       opening_stock: 'Lo que tiene ahora, por almacén, ubicación y lote de producción, a lo que le costó. Los artículos, almacenes y ubicaciones deben existir antes. Las cantidades van en la unidad de existencia del artículo o en empaques («3 cajas»). El costo promedio móvil parte de estos costos.',

@@ -18,6 +18,8 @@ export class OutboxMessage {
   @Column({ type: 'varchar', length: 500, nullable: true }) error: string | null
   @Column({ name: 'message_id', type: 'varchar', length: 200, nullable: true }) messageId: string | null
   @Column({ name: 'po_id', type: 'int', nullable: true }) poId: number | null
+  /** A quote e-mailed to a contractor (counter sales). */
+  @Column({ name: 'quote_id', type: 'int', nullable: true }) quoteId: number | null
   @Column({ name: 'created_by', type: 'int', nullable: true }) createdBy: number | null
   /** The failed message this one sends again (each failed message is sent again at most once). */
   @Column({ name: 'retry_of', type: 'int', nullable: true }) retryOf: number | null

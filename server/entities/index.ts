@@ -11,6 +11,7 @@ import { Item } from './Item.js'
 import { ItemWarehouse } from './ItemWarehouse.js'
 import { Lot } from './Lot.js'
 import { CustomerTerms, PriceLevel, PriceRuleRow, SalesTaxRate } from './Pricing.js'
+import { Quote, QuoteLine } from './Quote.js'
 import { PickConfirmation, PickList, PickListLine, PickShortage, PickTransferProposal } from './PickList.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from './PurchaseReceipt.js'
@@ -30,6 +31,8 @@ export const allEntities = [
   PriceRuleRow,
   SalesTaxRate,
   CustomerTerms,
+  Quote,
+  QuoteLine,
   User,
   AuditEntry,
   Item,

@@ -17,5 +17,6 @@ import { DataImports1796418546429 } from './1796418546429-DataImports.js'
 import { SellingPrices1796418557973 } from './1796418557973-SellingPrices.js'
 import { UsageHistory1796420454480 } from './1796420454480-UsageHistory.js'
 import { ImportedRecords1796422200963 } from './1796422200963-ImportedRecords.js'
+import { CounterQuotes1796422300000 } from './1796422300000-CounterQuotes.js'
 
-export const allMigrations = [Foundation1764633600000, StockCore1764700000000, CounterPurchasing1764730000000, ReorderPolicies1764740000000, Picking1764750000000, Purchasing1764760000000, CounterTakeoffSettings1764770000000, CycleCounts1796396073322, BalanceLockOrder1796396073950, CountEntryPoint1796397796030, SignInThrottle1796398811045, BuyingTrust1796403775001, WeightUnit1796404704802, PickShortResolutions1796407529725, OutboxReplyTo1796408052036, DataImports1796418546429, SellingPrices1796418557973, UsageHistory1796420454480, ImportedRecords1796422200963]
+export const allMigrations = [Foundation1764633600000, StockCore1764700000000, CounterPurchasing1764730000000, ReorderPolicies1764740000000, Picking1764750000000, Purchasing1764760000000, CounterTakeoffSettings1764770000000, CycleCounts1796396073322, BalanceLockOrder1796396073950, CountEntryPoint1796397796030, SignInThrottle1796398811045, BuyingTrust1796403775001, WeightUnit1796404704802, PickShortResolutions1796407529725, OutboxReplyTo1796408052036, DataImports1796418546429, SellingPrices1796418557973, UsageHistory1796420454480, ImportedRecords1796422200963, CounterQuotes1796422300000]

@@ -277,6 +277,11 @@ export const ERROR_CODES = {
   price_rule_taken: [],
   price_level_not_found: [],
   price_rule_not_found: [],
+  quote_not_found: [],
+  quote_wrong_status: ['quoteStatus'],
+  bill_not_found: [],
+  customer_email_missing: [],
+  quote_mail_failed: ['detail'],
 
   // Records looked up by id or code
   record_not_found: [],

@@ -2,16 +2,12 @@
 // with poppler's pdftotext, an outside reader) and a spreadsheet (exceljs). It must say who orders (the
 // company profile, the buyer, a reply-to), bill-to and ship-to, and the whole specification in sensible
 // units; ship to the job's warehouse by default; and warn the buyer when it would arrive after the job is due.
-import { execFile } from 'node:child_process'
-import { mkdtemp, rm, writeFile } from 'node:fs/promises'
-import { tmpdir } from 'node:os'
-import path from 'node:path'
-import { promisify } from 'node:util'
 import ExcelJS from 'exceljs'
 import { simpleParser } from 'mailparser'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
 import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
+import { pdfText } from '../support/pdfText.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { createPurchasingFixture, insertId, jobWithShowerBase, TEST_COMPANY, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
@@ -30,16 +26,6 @@ afterAll(async () => {
 
 const squash = (text: string) => text.replace(/\s+/g, ' ')
 
-async function pdfText(bytes: Buffer): Promise<string> {
-  const dir = await mkdtemp(path.join(tmpdir(), 'ly-pdf-'))
-  try {
-    await writeFile(path.join(dir, 'po.pdf'), bytes)
-    const { stdout } = await promisify(execFile)('pdftotext', ['-enc', 'UTF-8', path.join(dir, 'po.pdf'), '-'])
-    return stdout
-  } finally {
-    await rm(dir, { recursive: true, force: true })
-  }
-}
 
 describe('the company profile', () => {
   it('is read by buyers, kept by admins, and refuses a blank name or bill-to with nothing written', async () => {

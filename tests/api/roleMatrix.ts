@@ -101,6 +101,15 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/pricing/accounts/:customerId': { access: ['admin', 'counter'] },
   'PUT /api/pricing/accounts/:customerId': { access: ['admin'] },
   'POST /api/pricing/estimate': { access: ['admin', 'counter'] },
+  // Quotes: the counter writes, offers, revises and loses them; viewers read them (and their PDF).
+  'GET /api/quotes': { access: ['admin', 'counter', 'viewer'] },
+  'POST /api/quotes': { access: ['admin', 'counter'] },
+  'GET /api/quotes/:id': { access: ['admin', 'counter', 'viewer'] },
+  'PUT /api/quotes/:id': { access: ['admin', 'counter'] },
+  'POST /api/quotes/:id/revisions': { access: ['admin', 'counter'] },
+  'POST /api/quotes/:id/offer': { access: ['admin', 'counter'] },
+  'POST /api/quotes/:id/lose': { access: ['admin', 'counter'] },
+  'GET /api/quotes/:id/pdf': { access: ['admin', 'counter', 'viewer'] },
   // Counter: contractor accounts, jobs, takeoffs, bills (counter staff and admin; see DEVELOPERS.md).
   'GET /api/customers': { access: ['admin', 'counter'] },
   'POST /api/customers': { access: ['admin', 'counter'] },

@@ -9,6 +9,8 @@ export interface SalesFixture {
   tag: string
   block: { id: number; sku: string }
   spacers: { id: number; sku: string }
+  /** A shower base for tiling, made to order. */
+  base: { id: number; sku: string }
   warehouseId: number
   bins: Record<string, number>
   customerId: number
@@ -25,7 +27,30 @@ export async function createSalesFixture(ds: DataSource): Promise<SalesFixture> 
     `INSERT INTO items (sku, name, family, stock_unit, cost, list_price, case_qty, sell_by_pack) VALUES (?, ?, 'spacer', 'each', '0.1200', '0.45', 100, 1)`,
     [spacerSku, `Test spacers ${tag}`],
   )
+  const baseSku = `SBT-${tag}`
+  const baseId = await insertId(
+    ds,
+    `INSERT INTO items (sku, name, family, stock_unit, cost, list_price, made_to_order, weight_kg) VALUES (?, ?, 'shower_base', 'each', '410.0000', '895.00', 1, '38.000')`,
+    [baseSku, `Test shower base for tiling ${tag}`],
+  )
   const w = await createWarehouse(ds, `P${tag}`, ['C-01-1', 'C-01-2'])
   const { customerId, jobId } = await createCustomerAndJob(ds, tag)
-  return { tag, block: { id: blockId, sku: blockSku }, spacers: { id: spacerId, sku: spacerSku }, warehouseId: w.id, bins: w.bins, customerId, jobId }
+  return { tag, block: { id: blockId, sku: blockSku }, spacers: { id: spacerId, sku: spacerSku }, base: { id: baseId, sku: baseSku }, warehouseId: w.id, bins: w.bins, customerId, jobId }
+}
+
+/** A saved bill for the fixture's job: 120 blocks, 250 spacers and one made-to-order base (revision `revision`). */
+export async function billFor(ds: DataSource, fx: SalesFixture, revision: number, blocks = 120): Promise<number> {
+  const bomId = await insertId(ds, "INSERT INTO boms (job_id, revision, status) VALUES (?, ?, 'saved')", [fx.jobId, revision])
+  const lines: [number, string, string, number, number][] = [
+    [fx.block.id, fx.block.sku, 'Glass block', blocks, 0],
+    [fx.spacers.id, fx.spacers.sku, 'Joint spacers', 250, 0],
+    [fx.base.id, fx.base.sku, 'Shower base for tiling, made to order', 1, 1],
+  ]
+  for (const [i, [itemId, sku, description, qty, mto]] of lines.entries()) {
+    await ds.query(
+      "INSERT INTO bom_lines (bom_id, line_no, item_id, sku, description, qty, unit, made_to_order) VALUES (?, ?, ?, ?, ?, ?, 'each', ?)",
+      [bomId, i + 1, itemId, sku, description, qty, mto],
+    )
+  }
+  return bomId
 }

@@ -8,8 +8,8 @@ import { costsVisible } from '../costVisibility.js'
 import { buyerLine, type PoPaper } from './poDocument.js'
 
 const require = createRequire(import.meta.url)
-const FONT = require.resolve('@fontsource/open-sans/files/open-sans-latin-400-normal.woff')
-const FONT_BOLD = require.resolve('@fontsource/open-sans/files/open-sans-latin-700-normal.woff')
+export const FONT = require.resolve('@fontsource/open-sans/files/open-sans-latin-400-normal.woff')
+export const FONT_BOLD = require.resolve('@fontsource/open-sans/files/open-sans-latin-700-normal.woff')
 
 export const PDF_TYPE = 'application/pdf'
 

@@ -414,8 +414,14 @@ export default {
   price_level_not_found: 'That price level was not found. It may have been removed.',
   price_rule_not_found: 'That price rule was not found. It may have been removed.',
   customer_not_found: 'That account was not found. It may have been removed.',
+  quote_not_found: 'That quote was not found. It may have been removed.',
+  quote_wrong_status: 'This cannot be done to a quote that is {quoteStatus}.',
+  bill_not_found: 'That bill of materials was not found.',
+  customer_email_missing: 'This account has no e-mail address: enter one.',
+  quote_mail_failed: 'The e-mail could not be sent ({detail}). The quote was not marked as offered; check the address and send again.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {
+    quoteStatus: { draft: 'a draft', offered: 'offered', taken: 'taken', lapsed: 'lapsed', lost: 'lost', replaced: 'replaced by a newer revision' },
     countStatus: { open: 'open', closed: 'closed', cancelled: 'cancelled' },
     listStatus: { draft: 'still a draft', released: 'released', picking: 'being picked', picked: 'already picked', cancelled: 'cancelled' },
     pickAction: { release: 'released', cancel: 'cancelled', pick: 'picked now', complete: 'completed', settle: 'settled that way', ship: 'shipped to' },

@@ -413,7 +413,13 @@ export default {
   price_level_not_found: 'No se encontró ese nivel de precios. Puede que se haya eliminado.',
   price_rule_not_found: 'No se encontró esa regla de precio. Puede que se haya eliminado.',
   customer_not_found: 'No se encontró esa cuenta. Puede que se haya eliminado.',
+  quote_not_found: 'No se encontró ese presupuesto. Puede que se haya eliminado.',
+  quote_wrong_status: 'Esto no se puede hacer con un presupuesto {quoteStatus}.',
+  bill_not_found: 'No se encontró esa lista de materiales.',
+  customer_email_missing: 'Esta cuenta no tiene correo electrónico: escriba uno.',
+  quote_mail_failed: 'No se pudo enviar el correo ({detail}). El presupuesto no se marcó como ofrecido; revise la dirección y envíe de nuevo.',
   values: {
+    quoteStatus: { draft: 'borrador', offered: 'ofrecido', taken: 'aceptado', lapsed: 'vencido', lost: 'perdido', replaced: 'sustituido por una revisión más nueva' },
     countStatus: { open: 'abierto', closed: 'cerrado', cancelled: 'cancelado' },
     listStatus: { draft: 'todavía en borrador', released: 'liberada', picking: 'en preparación', picked: 'ya preparada', cancelled: 'cancelada' },
     pickAction: { release: 'liberar', cancel: 'cancelar', pick: 'preparar ahora', complete: 'completar', settle: 'resolver así', ship: 'enviar' },

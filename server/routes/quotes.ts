@@ -11,7 +11,7 @@ import { createQuote, loseQuote, reviseQuote, updateQuote } from '../services/qu
 
 const readers = allow('admin', 'counter', 'viewer')
 const counter = allow('admin', 'counter')
-const id = (raw: string | string[] | undefined) => idParam(raw, 'That quote')
+const id = (raw: string | string[] | undefined) => idParam(raw, 'quote_not_found')
 
 export default (ctx: AppContext) =>
   defineRoutes('/quotes', [

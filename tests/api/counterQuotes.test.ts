@@ -60,7 +60,7 @@ describe('a quote from a bill of materials', () => {
   })
 
   it("a clerk's own price needs a reason (400, nothing changed); with one it is the line's price, signed", async () => {
-    const lines = [
+    const lines: { itemId: number; qty: number; unitPrice?: string; overrideReason?: string }[] = [
       { itemId: fx.block.id, qty: 120, unitPrice: '18.00' },
       { itemId: fx.spacers.id, qty: 250 },
       { itemId: fx.base.id, qty: 1 },
@@ -69,7 +69,7 @@ describe('a quote from a bill of materials', () => {
     expect(refused.status).toBe(400)
     expect(refused.body.error.fields['lines.0.overrideReason'].code).toBe('override_reason_needed')
     expect((await counter.get(`/api/quotes/${quoteId}`)).body.amountDue).toBe('3473.47')
-    lines[0] = { ...lines[0], overrideReason: 'Matched the job’s written budget' } as (typeof lines)[0]
+    lines[0] = { ...lines[0], overrideReason: 'Matched the job’s written budget' }
     const res = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
     expect(res.status).toBe(200)
     expect(res.body.lines[0]).toMatchObject({ unitPrice: '18.00', extension: '2160.00', explanation: { source: 'override', overrideBy: 'Test t-counter' } })

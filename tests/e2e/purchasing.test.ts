@@ -12,6 +12,7 @@ import { createPurchasingFixture, suggestion, type PurchasingFixture } from '../
 let h: E2eHarness
 let smtp: SmtpFake
 let f: PurchasingFixture
+const smtpPortBefore = process.env.LUMENYARD_SMTP_PORT
 const SSCC = '106141411234567897' // source: GS1 logistics label example (from memory); check digit verified in gs1CheckDigit.test.ts
 
 beforeAll(async () => {
@@ -25,6 +26,9 @@ beforeAll(async () => {
 afterAll(async () => {
   await h?.close()
   await smtp?.close()
+  // The files after this one run in the same process (vitest.config.ts: isolate false).
+  if (smtpPortBefore === undefined) delete process.env.LUMENYARD_SMTP_PORT
+  else process.env.LUMENYARD_SMTP_PORT = smtpPortBefore
 })
 
 describe('purchasing in the browser', () => {

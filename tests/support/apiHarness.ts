@@ -1,5 +1,6 @@
 // API tests run the real app in-process against the real MariaDB test database that
 // scripts/testRun.ts prepared (its settings arrive in the environment).
+import bcrypt from 'bcryptjs'
 import supertest from 'supertest'
 import type { DataSource } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
@@ -7,9 +8,9 @@ import { createApp, type BuiltApp } from '../../server/app.js'
 import { loadConfig, type AppConfig } from '../../server/config.js'
 import { createDataSource } from '../../server/db/dataSource.js'
 import { User } from '../../server/entities/User.js'
-import { hashPassword } from '../../server/services/userService.js'
 import { isDuplicateKey } from '../../server/db/transaction.js'
 import { unknownErrorCodes } from './errorCodeCheck.js'
+import { TEST_HASH_COST } from './testHashCost.js'
 
 export const TEST_PASSWORD = 'test-password-123'
 export const CSRF = { 'X-Lumenyard-Request': '1' }
@@ -47,7 +48,7 @@ export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}
     const repo = ds.getRepository(User)
     const existing = await repo.findOneBy({ username })
     if (existing) return existing
-    hashed ??= await hashPassword(TEST_PASSWORD)
+    hashed ??= await bcrypt.hash(TEST_PASSWORD, TEST_HASH_COST)
     try {
       return await repo.save(repo.create({ username, displayName: `Test ${username}`, roles, passwordHash: hashed, active: true }))
     } catch (err) {

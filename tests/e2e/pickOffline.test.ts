@@ -200,8 +200,11 @@ describe('conflicts and sessions', () => {
     expect(await page.locator('[data-test="refusal"]').textContent()).toContain('otra persona la preparó')
     expect(await page.locator('[data-test="refused-count"]').textContent()).toContain('1 rechazada')
     await h.screenshot(page, 'pick-refused-replay')
-    // The device tells the server what it holds, for the warehouse's start page.
-    await poll(async () => (await h.ds.query(`SELECT r.refused FROM device_outbox_reports r JOIN users u ON u.id = r.user_id WHERE u.username = 'warehouse'`))
+    // The device tells the server what it holds, for the warehouse's start page. This browser's report only: the
+    // demo warehouse user signs in on other test browsers too (each a device of its own).
+    const device = await page.evaluate(() => localStorage.getItem('lumenyard.deviceId'))
+    expect(device).toBeTruthy()
+    await poll(async () => (await h.ds.query(`SELECT r.refused FROM device_outbox_reports r JOIN users u ON u.id = r.user_id WHERE u.username = 'warehouse' AND r.device_id = ?`, [device]))
       .map((r: { refused: number }) => r.refused)).toEqual([1])
 
     await page.locator('[data-test="outbox-link"]').click()

@@ -12,6 +12,8 @@ export default defineConfigWithVueTs(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/no-namespace': 'off',
       'vue/multi-word-component-names': ['error', { ignores: [] }],
+      // The library's loading directive shows its mask after a quick load has ended (src/directives/vBusy.ts).
+      'vue/no-restricted-syntax': ['error', { selector: "VAttribute[directive=true][key.name.name='loading']", message: 'Use v-busy (src/directives/vBusy.ts): v-loading can leave its mask over loaded data.' }],
     },
   },
 )

@@ -18,6 +18,7 @@ declare module 'vue' {
     BaseLengthInput: typeof import('./components/base/BaseLengthInput.vue')['default']
     BillOfMaterialsExplain: typeof import('./components/counter/BillOfMaterialsExplain.vue')['default']
     BillOfMaterialsTable: typeof import('./components/counter/BillOfMaterialsTable.vue')['default']
+    ChartFigure: typeof import('./components/charts/ChartFigure.vue')['default']
     ElAlert: typeof import('element-plus/es')['ElAlert']
     ElButton: typeof import('element-plus/es')['ElButton']
     ElCard: typeof import('element-plus/es')['ElCard']
@@ -90,8 +91,5 @@ declare module 'vue' {
     TakeoffEditorWallOptions: typeof import('./components/counter/TakeoffEditorWallOptions.vue')['default']
     UsageHistoryChart: typeof import('./components/charts/UsageHistoryChart.vue')['default']
     WallDrawing: typeof import('./components/counter/WallDrawing.vue')['default']
-  }
-  export interface GlobalDirectives {
-    vLoading: typeof import('element-plus/es')['ElLoadingDirective']
   }
 }

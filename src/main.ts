@@ -7,6 +7,7 @@ import './assets/theme.css'
 import { createApp } from 'vue'
 import { createPinia } from 'pinia'
 import App from './App.vue'
+import { vBusy } from './directives/vBusy'
 import { i18n } from './i18n'
 import { router } from './router'
 
@@ -14,5 +15,6 @@ const app = createApp(App)
 app.use(createPinia())
 app.use(i18n)
 app.use(router)
+app.directive('busy', vBusy)
 // Shown once the first page's code, data and messages are in (the guard loads them side by side).
 router.isReady().catch(() => undefined).then(() => app.mount('#app'))

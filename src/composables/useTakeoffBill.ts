@@ -30,6 +30,9 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
   const availability = ref<Map<number, LineAvailability>>(new Map())
   const invalid = ref(false)
   const computing = ref(false)
+  /** A change waits for its computation (the short pause after typing): the bill on screen is already out of date. */
+  const queued = ref(false)
+  const busy = computed(() => queued.value || computing.value)
   /** A computation running long enough to say so (a large takeoff): not every keystroke flickers a note. */
   const working = ref(false)
   const stale = computed(() => invalid.value || unreadable.value > 0)
@@ -88,6 +91,7 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
   }
 
   function recompute() {
+    queued.value = false
     if (!catalog.value) return
     const parsed = takeoffSchema.safeParse(takeoff.value)
     latest++
@@ -106,6 +110,7 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
 
   watch([takeoff, catalog, unit], () => {
     clearTimeout(computeTimer)
+    queued.value = !!catalog.value
     computeTimer = setTimeout(recompute, COMPUTE_DELAY_MS)
   }, { deep: true, immediate: true })
 
@@ -117,5 +122,5 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
     worker?.terminate()
   })
 
-  return { bill, errors, blockers, availability, stale, computing, working }
+  return { bill, errors, blockers, availability, stale, computing, busy, working }
 }

@@ -5,7 +5,7 @@
 import { writeFileSync } from 'node:fs'
 import path from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import type { BrowserContext, Page } from 'playwright-core'
+import type { BrowserContext, Page, Request } from 'playwright-core'
 import type { Role } from '../../shared/roles.js'
 import { DEMO_PASSWORD, SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
 import { axeFindings, blocking, describeFindings, tally, type AxeFinding } from '../support/axeCheck.js'
@@ -43,6 +43,14 @@ beforeAll(async () => {
   ;({ page, context } = await h.newPage({ viewport: DESKTOP }))
   // With reduced motion the theme ends every transition at once, so axe reads colours as they settle.
   await page.emulateMedia({ reducedMotion: 'reduce' })
+  // Counts the loading masks put into the page, so a screen that waits for nothing can be held to showing none.
+  await page.addInitScript(() => {
+    const w = window as unknown as { lyMasks: number }
+    w.lyMasks = 0
+    new MutationObserver((changes) => {
+      for (const c of changes) for (const n of Array.from(c.addedNodes)) if (n instanceof Element && n.classList.contains('el-loading-mask')) w.lyMasks++
+    }).observe(document, { childList: true, subtree: true })
+  })
   samples = new RouteSamples(h.ds)
   await page.goto('/sign-in')
   await page.locator('[data-test="username"]').waitFor()
@@ -107,7 +115,15 @@ async function walk(who: Role | 'signed-out') {
   for (const route of routes) {
     const path = await samples.pathFor(route)
     const t = [Date.now()]
-    await openInApp(page, path)
+    let apiCalls = 0
+    const countApi = (r: Request) => void (new URL(r.url()).pathname.startsWith('/api/') && apiCalls++)
+    await page.evaluate(() => void ((window as unknown as { lyMasks: number }).lyMasks = 0))
+    page.on('request', countApi)
+    await openInApp(page, path).finally(() => page.off('request', countApi))
+    // A screen with nothing to fetch shows no loading mask, not even for a moment after it has drawn: a mask
+    // that comes up after the data would cover the rows someone is about to click or has focused.
+    const masks = await page.evaluate(() => (window as unknown as { lyMasks: number }).lyMasks)
+    if (!apiCalls && masks) found.push({ where: `${route.name} (${path}, ${who})`, rule: 'mask-without-wait', impact: 'serious', help: 'No loading mask on a screen that waits for nothing', nodes: masks, targets: ['.el-loading-mask'] })
     t.push(Date.now())
     await samples.harvest(page)
     await check(`${route.name} (${path}, ${who}, desktop)`)
@@ -133,9 +149,7 @@ async function walk(who: Role | 'signed-out') {
   return blocking(found.slice(before))
 }
 
-// Skipped until fixed (issue 22): on main a loading mask stays over /stock/labels (warehouse) and
-// /stock/items/new (admin) after their data has loaded, so the walk stops there and the checks after it fail.
-describe.skip('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
+describe('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
   it('reads every named route from the router', () => {
     expect([...groups.values()].flat().length).toBeGreaterThan(30)
   })
@@ -161,7 +175,7 @@ describe.skip('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
     expect(targets.size).toBeGreaterThan(5)
     expect(targets.get('warehouse-pick')?.controls).toBeGreaterThan(3)
     console.log('under 44 px on the pick screen:', JSON.stringify(targets.get('warehouse-pick')?.under44))
-    for (const [route, s] of targets) expect(s.under24, route).toEqual([])
+    expect([...targets].filter(([, s]) => s.under24.length).map(([route, s]) => `${route}: ${s.under24.join(', ')}`)).toEqual([])
   })
   it('opened every main dialog', () => {
     expect([...dialogsChecked].sort()).toEqual(Object.keys(DIALOGS).sort())

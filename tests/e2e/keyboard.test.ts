@@ -44,8 +44,7 @@ async function chooseFirst(page: Page) {
 }
 
 describe('keyboard only', () => {
-  // Skipped until fixed (issue 22): a loading mask fading in or out over the list covers the focused link.
-  it.skip('counter: signs in, skips to the content, opens a recent job, takes its takeoff to a bill and a pick list', async () => {
+  it('counter: signs in, skips to the content, opens a recent job, takes its takeoff to a bill and a pick list', async () => {
     const { page, context } = await h.newPage()
     try {
       await signInByKeyboard(page, 'counter')
@@ -88,8 +87,7 @@ describe('keyboard only', () => {
     }
   })
 
-  // Skipped until fixed (issue 22): a loading mask fading in or out over the list covers the focused link.
-  it.skip('buyer: opens a purchase order from its list, then creates and approves a new one', async () => {
+  it('buyer: opens a purchase order from its list, then creates and approves a new one', async () => {
     const { page, context } = await h.newPage()
     try {
       await signInByKeyboard(page, 'buyer')

@@ -163,8 +163,9 @@ function trackRequests(page: Page): RequestTracker {
   }
 }
 
-// A mask on its way out (its fade's leave classes) no longer covers anything.
-const BUSY = '.el-loading-mask:not(.el-loading-fade-leave-active), .el-skeleton, .ag-overlay-loading-wrapper'
+// A mask on its way out (its fade's leave classes) no longer covers anything; a region that says it is
+// busy (aria-busy: data loading, a bill being computed) is still changing.
+const BUSY = '.el-loading-mask:not(.el-loading-fade-leave-active), .el-skeleton, .ag-overlay-loading-wrapper, [aria-busy="true"]'
 
 /** Waits for no request in flight over two animation frames in a row and no loading mask or skeleton. */
 export async function settle(page: Page, tracker?: RequestTracker): Promise<void> {
@@ -174,11 +175,16 @@ export async function settle(page: Page, tracker?: RequestTracker): Promise<void
       await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => setTimeout(r, 50))))
       quiet = own.count() <= 0 ? quiet + 1 : 0
     }
-    // The grid keeps its (hidden) overlay in the page: only a loading mark that shows counts.
-    const shown = `Array.from(document.querySelectorAll('${BUSY}')).find((e) => e.checkVisibility())`
+    // The grid keeps its (hidden) overlay in the page: only a loading mark that shows counts. The check is a
+    // function, never a string: the app's Content-Security-Policy forbids eval, which a string predicate needs
+    // once it has to poll (a string made every mask that was up at the first look read as "never went away").
+    const shown = (sel: string) => Array.from(document.querySelectorAll(sel)).find((e) => e.checkVisibility())?.outerHTML.slice(0, 300) ?? null
     const busy = await page
-      .waitForFunction(`!(${shown})`, null, { timeout: 30_000 })
-      .then(() => null, () => page.evaluate(`(${shown})?.outerHTML.slice(0, 300)`))
+      .waitForFunction((sel) => !Array.from(document.querySelectorAll(sel)).some((e) => e.checkVisibility()), BUSY, { timeout: 30_000 })
+      .then(() => null, async (e: Error) => {
+        if (e.name !== 'TimeoutError') throw e
+        return page.evaluate(shown, BUSY)
+      })
     if (busy) throw new Error(`still loading after 30 s: ${busy}`)
   } finally {
     if (!tracker) own.stop()

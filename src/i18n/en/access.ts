@@ -22,4 +22,6 @@ export default {
   binsCounted: 'Bins counted: {done} of {total}',
   packsOrdered: 'Packs ordered, line {n}',
   unitCost: 'Unit cost, line {n}',
+  chartFigures: 'The figures behind this chart ({n} rows)',
+  day: 'Day',
 }

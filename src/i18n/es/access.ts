@@ -21,4 +21,6 @@ export default {
   binsCounted: 'Ubicaciones contadas: {done} de {total}',
   packsOrdered: 'Paquetes pedidos, línea {n}',
   unitCost: 'Costo unitario, línea {n}',
+  chartFigures: 'Las cifras de este gráfico ({n} filas)',
+  day: 'Día',
 }

@@ -17,7 +17,7 @@ const MOVE_WORDS: Record<string, string> = {
 }
 
 const DOCUMENT_WORDS: Record<string, string> = {
-  purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job',
+  purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job', cycle_count: 'Cycle count',
 }
 
 /** The document as people name it: its number (PO-2026-00012, PL-00031), else its kind and id (Transfer 12). */
@@ -25,7 +25,7 @@ function documentCell(r: LedgerSqlRow): string | null {
   if (!r.doc_type) return null
   const ref = documentReference(r)
   if (ref) return r.doc_type === 'job' ? `Job ${ref}` : ref
-  return `${DOCUMENT_WORDS[r.doc_type] ?? r.doc_type.replace(/_/g, ' ')} ${r.doc_id ?? ''}`.trim()
+  return `${DOCUMENT_WORDS[r.doc_type] ?? 'Document'} ${r.doc_id ?? ''}`.trim()
 }
 
 type MoveRow = LedgerSqlRow & { wallClock: Date; value: number | null }

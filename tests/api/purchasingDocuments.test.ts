@@ -9,6 +9,7 @@ import type { PoDetail } from '../../shared/schemas/purchasingViews.js'
 import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
 import { pdfText } from '../support/pdfText.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { download } from '../support/downloads.js'
 import { createPurchasingFixture, insertId, jobWithShowerBase, TEST_COMPANY, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
 let h: ApiHarness
@@ -25,7 +26,6 @@ afterAll(async () => {
 })
 
 const squash = (text: string) => text.replace(/\s+/g, ' ')
-
 
 describe('the company profile', () => {
   it('is read by buyers, kept by admins, and refuses a blank name or bill-to with nothing written', async () => {
@@ -103,5 +103,33 @@ describe('a special order sent to the vendor', () => {
     // The vendor reads an order, not our workflow: no internal status on the sheet.
     expect(texts).not.toContain('approved')
     expect(texts).not.toContain('Status')
+  })
+})
+
+describe('the PO sheet as PDF', () => {
+  it('keeps a long reply-to address whole, or breaks it only after an @, a dot or a dash, never inside a name', async () => {
+    // An address of 70 characters: wider than the half-page column the order's facts sit in.
+    const long = 'purchasing.department.orders@brightcourse-glass-supply-harbor-yard.example'
+    // (a reader like pdftotext drops a dash that ends a line: the address must never be split after one)
+    await h.ds.query('UPDATE company_profile SET reply_to = ? WHERE id = 1', [long])
+    try {
+      const buyer = await h.as('buyer')
+      const made = await buyer.post('/api/purchase-orders').set(CSRF).send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 1 }] })
+      expect(made.status, JSON.stringify(made.body)).toBe(201)
+      const res = await download(buyer, `/api/purchase-orders/${made.body.id}/pdf`)
+      expect(res.status).toBe(200)
+      const text = await pdfText(res.body as Buffer)
+      // The address wherever it is printed, allowing a line break between any two of its characters.
+      const spread = new RegExp(long.split('').map((c) => c.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')).join('\\s*'), 'g')
+      const printed = [...text.matchAll(spread)].map((m) => m[0])
+      expect(printed.length).toBeGreaterThanOrEqual(2) // beside "Reply to", and in the closing line
+      for (const p of printed) {
+        // source: RFC 5322 §3.4.1 addr-spec = local-part "@" domain, dot-separated atoms: a reader rejoins the
+        // parts only where a line ends in "@" or "." (a line ending in "-" reads as a hyphenated word)
+        for (const m of p.matchAll(/\s+/g)) expect(p.slice(0, m.index), p).toMatch(/[@.]$/)
+      }
+    } finally {
+      await h.ds.query('UPDATE company_profile SET reply_to = ? WHERE id = 1', [TEST_COMPANY.replyTo])
+    }
   })
 })

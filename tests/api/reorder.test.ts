@@ -112,7 +112,11 @@ describe('reorder figures', () => {
     expect(text).toContain(`d̄ = Σx / n = ${sum(fx.series)} / ${WINDOW_DAYS} = ${mean(fx.series).toFixed(2)}`)
     expect(text).toContain('SS = z·√(L·σd² + d̄²·σL²) = 1.6449 × √(11 × ')
     expect(text).toContain(`ROP = d̄·L + SS = ${mean(fx.series).toFixed(2)} × 11 + `)
-    expect(d.explanation.inputs).toMatchObject({ 'on hand': fx.onHand, 'on order': fx.onOrder, reserved: fx.reserved, 'lead time from': 'observed' })
+    expect(d.explanation.inputs).toMatchObject({ 'on hand': fx.onHand, 'on order': fx.onOrder, reserved: fx.reserved })
+    expect(d.leadTime.source).toBe('observed')
+    // the working a screen lists as it is carries no internal codes (a lead time "from vendorItem")
+    expect(Object.values(d.explanation.inputs)).not.toContain('observed')
+    expect(JSON.stringify(d.explanation)).not.toMatch(/vendorItem|purchase_order/)
     expect(d.usage).toMatchObject({ sum: sum(fx.series), sumSquares: sum(fx.series.map((q) => q * q)) })
   })
 

@@ -8,6 +8,7 @@ import { routeTable } from '../../server/http/routeTable.js'
 import { CSRF, TEST_PASSWORD, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { createPurchasingFixture, suggestion } from '../support/purchasingFixtures.js'
 import { download, loadWorkbook, workbookTexts } from '../support/downloads.js'
+import { pdfText } from '../support/pdfText.js'
 import { designedAccess } from './roleMatrix.js'
 
 let h: ApiHarness
@@ -95,8 +96,14 @@ function costKeysIn(body: unknown, found: string[] = []): string[] {
   return found
 }
 
-/** The costs an answer carries: cost fields of JSON, cost headers of a workbook. */
+/** The costs an answer carries: cost fields of JSON, cost headers of a workbook or of a PDF's table. */
 async function costsAnswered(agent: supertest.Agent, path: string): Promise<{ status: number; costs: string[] }> {
+  if (/\/pdf$/.test(path)) {
+    const res = await download(agent, path)
+    if (res.status !== 200) return { status: res.status, costs: [] }
+    const lines = (await pdfText(res.body as Buffer)).split('\n').map((l) => l.trim())
+    return { status: 200, costs: COST_HEADERS.filter((header) => lines.includes(header)) }
+  }
   if (/export|\.xlsx/.test(path)) {
     const res = await download(agent, path)
     if (res.status !== 200) return { status: res.status, costs: [] }

@@ -190,7 +190,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/purchase-orders/from-job': { access: ['admin', 'buyer'] },
   'GET /api/purchase-orders/:id': { access: ['admin', 'buyer', 'warehouse'], costs: '/api/purchase-orders/{po}' },
   'GET /api/purchase-orders/:id/export': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/{po}/export' },
-  'GET /api/purchase-orders/:id/pdf': { access: ['admin', 'buyer'] },
+  // the printable PO goes to the vendor: buyers and admins only, priced (every other role is refused above)
+  'GET /api/purchase-orders/:id/pdf': { access: ['admin', 'buyer'], costs: '/api/purchase-orders/{po}/pdf' },
   'PATCH /api/purchase-orders/:id': { access: ['admin', 'buyer'] },
   'POST /api/purchase-orders/:id/lines': { access: ['admin', 'buyer'] },
   'DELETE /api/purchase-orders/:id/lines/:lineId': { access: ['admin', 'buyer'] },

@@ -4,11 +4,15 @@
 //   old quantities and the edits were silently dropped);
 // - warehouses: after creating a warehouse, a range of bins goes to the new one even when the previous
 //   warehouse's answer arrives last (before, 30 bins landed in the previously chosen warehouse); the dialog
-//   names its warehouse; taking a bin out of use and deleting one ask first.
+//   names its warehouse; taking a bin out of use and deleting one ask first;
+// - the company profile: edited, saved, and still there after a reload;
+// - ready to order: an accepted line's quantity changed and another dismissed, each after a question;
+// - special orders: the ship-to column shows each job's own warehouse, or asks for one, and follows the
+//   ship-to chosen for all.
 import type { BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startE2e, type E2eHarness } from '../support/browser.js'
-import { createPurchasingFixture, type PurchasingFixture } from '../support/purchasingFixtures.js'
+import { createPurchasingFixture, insertId, jobWithShowerBase, suggestion, type PurchasingFixture } from '../support/purchasingFixtures.js'
 
 // Screens on a loaded machine can take seconds to answer: wait for conditions, long enough.
 const poll = <T>(read: () => Promise<T> | T) => expect.poll(read, { timeout: 30_000 })
@@ -108,5 +112,79 @@ describe('warehouses and bins on screen', () => {
     await box.locator('.el-button--primary').click()
     await poll(() => binsOf(created.id)).toBe(89)
     await h.screenshot(page, 'warehouse-bins-after-delete')
+  })
+})
+
+describe('the company profile on screen', () => {
+  it('saves an edit that a reload still shows', async () => {
+    await page.goto('/admin/company')
+    const phone = page.locator('input[data-test="company-phone"], [data-test="company-phone"] input').first()
+    const replyTo = page.locator('input[data-test="company-replyTo"], [data-test="company-replyTo"] input').first()
+    await phone.waitFor()
+    const [before] = await h.ds.query('SELECT phone, reply_to FROM company_profile WHERE id = 1')
+    try {
+      await phone.fill('555-0199 ext. 12')
+      await replyTo.fill('orders@brightcourse.example')
+      await page.locator('[data-test="company-save"]').click()
+      await poll(async () => (await h.ds.query('SELECT phone FROM company_profile WHERE id = 1'))[0].phone).toBe('555-0199 ext. 12')
+      await page.reload()
+      await phone.waitFor()
+      await poll(() => phone.inputValue()).toBe('555-0199 ext. 12')
+      expect(await replyTo.inputValue()).toBe('orders@brightcourse.example')
+      await h.screenshot(page, 'admin-company-profile-saved')
+    } finally {
+      await h.ds.query('UPDATE company_profile SET phone = ?, reply_to = ? WHERE id = 1', [before.phone, before.reply_to])
+    }
+  })
+})
+
+describe('ready to order on screen', () => {
+  it('changes an accepted line\'s quantity and dismisses another, each after a question', async () => {
+    const keep = await suggestion(h.ds, { itemId: f.block.id, warehouseId: f.otherWarehouse.id, vendorId: f.vendorA, qty: 30 })
+    const drop = await suggestion(h.ds, { itemId: f.sealant.id, warehouseId: f.otherWarehouse.id, vendorId: f.vendorA, qty: 12 })
+    const box = page.locator('.el-message-box')
+    await page.goto('/purchasing/ready-to-order')
+    const rowOf = (sku: string) => page.locator('[data-test="suggestions-table"] tbody tr', { hasText: sku }).filter({ hasText: f.otherWarehouse.code })
+    await poll(() => rowOf(f.block.sku).count()).toBe(1)
+
+    await rowOf(f.block.sku).locator('[data-test="suggestion-change"]').click()
+    await box.locator('input').fill('50')
+    await box.locator('.el-button--primary').click()
+    await poll(async () => (await h.ds.query('SELECT qty FROM purchase_suggestions WHERE id = ?', [keep]))[0].qty).toBe(50)
+    await poll(() => rowOf(f.block.sku).textContent()).toContain('50 each')
+
+    // Dismiss asks; "Cancel" keeps the line, the second time it goes.
+    await rowOf(f.sealant.sku).locator('[data-test="suggestion-dismiss"]').click()
+    await poll(() => box.textContent()).toContain(f.sealant.sku)
+    await box.locator('button', { hasText: 'Cancel' }).click()
+    expect((await h.ds.query('SELECT status FROM purchase_suggestions WHERE id = ?', [drop]))[0].status).toBe('accepted')
+    await rowOf(f.sealant.sku).locator('[data-test="suggestion-dismiss"]').click()
+    await box.locator('.el-button--primary').click()
+    await poll(() => rowOf(f.sealant.sku).count()).toBe(0)
+    expect((await h.ds.query('SELECT status FROM purchase_suggestions WHERE id = ?', [drop]))[0].status).toBe('dismissed')
+    await h.screenshot(page, 'ready-to-order-changed')
+  })
+})
+
+describe('special orders on screen', () => {
+  it('ships each job to its own warehouse, asks when a job has none, and follows a ship-to chosen for all', async () => {
+    const due = new Date(Date.now() + 30 * 86_400_000).toISOString().slice(0, 10)
+    const picked = await jobWithShowerBase(h.ds, f, due)
+    const unpicked = await jobWithShowerBase(h.ds, f, due)
+    const [bom] = await h.ds.query('SELECT bom_id FROM bom_lines WHERE id = ?', [picked.bomLineId])
+    await insertId(h.ds, 'INSERT INTO pick_lists (bom_id, job_id, warehouse_id) VALUES (?, ?, ?)', [bom.bom_id, picked.jobId, f.otherWarehouse.id])
+    const nameOf = async (jobId: number) => (await h.ds.query('SELECT name FROM jobs WHERE id = ?', [jobId]))[0].name as string
+    await h.ds.query('UPDATE jobs SET name = CONCAT(name, \' picked\') WHERE id = ?', [picked.jobId])
+    await page.goto('/purchasing/special-orders')
+    const rowOf = async (jobId: number) => page.locator('[data-test="special-orders"] tbody tr', { hasText: await nameOf(jobId) })
+    const pickedRow = await rowOf(picked.jobId)
+    const unpickedRow = page.locator('[data-test="special-orders"] tbody tr', { hasText: await nameOf(unpicked.jobId) }).filter({ hasNotText: ' picked' })
+    await poll(() => pickedRow.textContent()).toContain(f.otherWarehouse.code)
+    await poll(() => unpickedRow.textContent()).toContain('choose above')
+    await page.locator('[data-test="special-ship-to"]').click()
+    await page.locator('.el-select-dropdown__item:visible', { hasText: f.warehouse.code }).first().click()
+    await poll(() => unpickedRow.textContent()).toContain(f.warehouse.code)
+    expect(await pickedRow.textContent()).toContain(f.warehouse.code)
+    await h.screenshot(page, 'special-orders-ship-to')
   })
 })

@@ -75,6 +75,24 @@ describe('purchasing in the browser', () => {
       expect(await entry.textContent()).toContain('.pdf') // the printable order beside the sheet
       await admin.page.waitForTimeout(400)
       await h.screenshot(admin.page, 'purchasing-outbox')
+
+      // A message the mail server refused: "Send again" sends it (before, the button only reloaded the list).
+      const [sent] = await h.ds.query("SELECT id FROM outbox_messages WHERE status = 'sent' ORDER BY id DESC LIMIT 1")
+      const copied = await h.ds.query(
+        `INSERT INTO outbox_messages (status, from_address, to_address, cc, reply_to, subject, body_text, error, po_id, created_by)
+         SELECT 'failed', from_address, to_address, cc, reply_to, subject, body_text, 'The mail server did not answer (test).', po_id, created_by
+         FROM outbox_messages WHERE id = ?`, [sent.id])
+      const failedId = Number(copied.insertId)
+      const before = smtp.messages.length
+      await admin.page.locator('[data-test="outbox-refresh"]').click()
+      const failed = admin.page.locator('[data-test="outbox"] tr', { hasText: 'did not answer (test)' }).first()
+      await failed.locator('[data-test="outbox-send-again"]').click()
+      // the new attempt is recorded after the mail server took the message: wait for both
+      await expect.poll(() => smtp.messages.length, { timeout: 15_000 }).toBe(before + 1)
+      await expect.poll(async () => (await h.ds.query('SELECT status FROM outbox_messages WHERE retry_of = ?', [failedId]))[0]?.status, { timeout: 15_000 }).toBe('sent')
+      const [again] = await h.ds.query('SELECT id FROM outbox_messages WHERE retry_of = ?', [failedId])
+      await expect.poll(() => failed.textContent()).toContain(`Sent again (message ${again.id})`)
+      expect(await failed.locator('[data-test="outbox-send-again"]').count()).toBe(0)
     } finally {
       await admin.context.close()
     }

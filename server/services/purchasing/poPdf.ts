@@ -18,6 +18,28 @@ const INK = '#1d2b2a'
 const SOFT = '#5b6b69'
 const RULE = '#c9d6d4'
 
+/**
+ * Text for a box `width` wide whose words fit it: a word wider than the box (an e-mail address, a web
+ * address) is broken only after an @ or a dot, never inside a name, nor after a dash (a line ending in a
+ * dash reads as a hyphenated word, and the dash gets dropped). pdfkit would otherwise cut it at whatever
+ * letter reaches the edge.
+ */
+export function breakLongWords(doc: PDFKit.PDFDocument, text: string, width: number): string {
+  return text.split('\n').map((line) => line.split(' ').map((word) => {
+    if (doc.widthOfString(word) <= width) return word
+    const pieces = word.match(/[^@.]+[@.]*|[@.]+/g) ?? [word]
+    const lines: string[] = []
+    let current = ''
+    for (const piece of pieces) {
+      if (current && doc.widthOfString(current + piece) > width) {
+        lines.push(current)
+        current = piece
+      } else current += piece
+    }
+    return [...lines, current].join('\n')
+  }).join(' ')).join('\n')
+}
+
 interface Column {
   header: string
   width: number
@@ -49,7 +71,8 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
   const third = width / 3
   const blockAt = (i: number, label: string, text: string) => {
     doc.font('bold').fontSize(9).fillColor(SOFT).text(label, MARGIN + i * third, top, { width: third - 12 })
-    doc.font('body').fontSize(10).fillColor(INK).text(text || '—', { width: third - 12 })
+    doc.font('body').fontSize(10).fillColor(INK)
+    doc.text(breakLongWords(doc, text || '—', third - 12), { width: third - 12 })
     return doc.y
   }
   const v = po.vendor
@@ -71,17 +94,29 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
     ['Reply to', paper.replyTo],
     ['Job', po.job ? (po.job.dueDate ? `${po.job.name} (due ${po.job.dueDate})` : po.job.name) : null],
   ]
-  const shown = facts.filter(([, value]) => value)
+  // Two facts a row, each value beside its label; a value too wide for half the page (a long e-mail
+  // address, a job's name) takes a row of its own rather than being cut.
   const half = width / 2
-  for (let i = 0; i < shown.length; i += 2) {
+  doc.font('body').fontSize(10)
+  const shown = facts.filter((f): f is [string, string] => !!f[1])
+  const rows: [string, string][][] = []
+  for (const fact of shown) {
+    const wide = doc.widthOfString(fact[1]) > half - 90
+    const last = rows[rows.length - 1]
+    if (!wide && last && last.length === 1 && doc.widthOfString(last[0][1]) <= half - 90) last.push(fact)
+    else rows.push([fact])
+  }
+  for (const pair of rows) {
     const y = doc.y
     let tallest = 0
-    shown.slice(i, i + 2).forEach(([label, value], j) => {
+    pair.forEach(([label, value], j) => {
       const x = MARGIN + j * half
+      const valueWidth = pair.length === 1 ? width - 90 : half - 90
       doc.font('bold').fontSize(9).fillColor(SOFT).text(label, x, y, { width: 80 })
       doc.font('body').fontSize(10).fillColor(INK)
-      tallest = Math.max(tallest, doc.heightOfString(value!, { width: half - 90 }))
-      doc.text(value!, x + 84, y, { width: half - 90 })
+      const text = breakLongWords(doc, value, valueWidth)
+      tallest = Math.max(tallest, doc.heightOfString(text, { width: valueWidth }))
+      doc.text(text, x + 84, y, { width: valueWidth })
     })
     doc.x = MARGIN
     doc.y = y + Math.max(tallest, 12) + 3
@@ -149,10 +184,10 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
     doc.font('body').fontSize(10).fillColor(INK).text(po.notes, { width })
   }
   doc.moveDown(1)
-  doc.font('body').fontSize(9).fillColor(SOFT).text(
-    `Please confirm this order and its ship date${paper.replyTo ? ` to ${paper.replyTo}` : ''}, quoting ${po.number} on every delivery note and invoice.`,
-    MARGIN, doc.y, { width },
-  )
+  doc.font('body').fontSize(9).fillColor(SOFT)
+  // The address on a line of its own, so the sentence's wrapping never splits it.
+  const closing = `Please confirm this order and its ship date, quoting ${po.number} on every delivery note and invoice${paper.replyTo ? `, by reply to:\n${paper.replyTo}` : '.'}`
+  doc.text(breakLongWords(doc, closing, width), MARGIN, doc.y, { width })
 
   // Page numbers on every page.
   const range = doc.bufferedPageRange()

@@ -58,7 +58,7 @@ export function computeLine(
   lookbackDays: number,
   explain: boolean,
 ): ComputedLine {
-  const { stock, vendor, leadTime, effective } = input
+  const { stock, vendor, effective } = input
   const sums = { sum: usage?.sum ?? 0, sumSquares: usage?.sumSquares ?? 0 }
   const stats = statsFromSums({ days: window.days, ...sums })
   const idle = usage?.idleDays ?? null
@@ -83,8 +83,9 @@ export function computeLine(
   if (!explain) return { line, usage: figures, get explanation() { return result.explanation } }
   const explanation: Explanation = {
     inputs: {
+      // where the lead time came from is the answer's own field (leadTime.source), worded by screens: no raw code here
       'window (days)': window.days, 'Σx (units)': sums.sum, 'Σx² (units²)': sums.sumSquares,
-      'lead time from': leadTime.source, 'looked back for last use (days)': lookbackDays,
+      'looked back for last use (days)': lookbackDays,
       ...result.explanation.inputs,
     },
     steps: [...demandSteps(figures, window.days, stats.mean, stats.sdSample), ...result.explanation.steps],

@@ -55,10 +55,13 @@ export const LEDGER_SORT_BY_FIELD: Partial<Record<keyof LedgerRow, string>> = {
   at: 'at', sku: 'sku', warehouseCode: 'warehouse', binCode: 'bin', lotCode: 'lot', moveType: 'moveType', qty: 'qty', userName: 'user', docType: 'doc',
 }
 
-/** The document a move belongs to as people name it: its number (PO, pick list), the job's name, else kind and id. */
-function documentName(label: (key: string, fallback: string) => string, row: LedgerRow | undefined): string {
+/**
+ * The document a move belongs to as people name it: its number (PO, pick list), the job's name, else its
+ * kind and id ("Cycle count 12"); a kind this screen does not know reads "Document 12", never a table name.
+ */
+export function documentName(label: (key: string, fallback: string) => string, row: Pick<LedgerRow, 'docType' | 'docId' | 'docRef'> | undefined): string {
   if (!row?.docType) return ''
-  const kind = label(`stock.docKinds.${row.docType}`, row.docType.replace(/_/g, ' '))
+  const kind = label(`stock.docKinds.${row.docType}`, label('stock.docKinds.other', 'Document'))
   if (row.docRef) return row.docType === 'job' ? `${kind} ${row.docRef}` : row.docRef
   return `${kind} ${row.docId ?? ''}`.trim()
 }

@@ -44,3 +44,6 @@ export function blankFilters(): LedgerFilterModel {
   return { itemId: null, warehouseId: null, binId: null, lotId: null, moveType: [], dates: null, docType: '', docId: '' }
 }
 
+
+/** Documents a move can belong to, offered by name in the filter (the stored kind is never shown or typed). */
+export const LEDGER_DOC_KINDS = ['purchase_order', 'pick_list', 'pick_transfer', 'transfer', 'job', 'cycle_count', 'data_import'] as const

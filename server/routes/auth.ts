@@ -1,12 +1,11 @@
 import { signInSchema } from '../../shared/schemas/auth.js'
 import { ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import type { AppContext } from '../context.js'
-import { User } from '../entities/User.js'
 import { AppError } from '../errors.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
 import { authenticate, logIn, logOut } from '../services/authService.js'
-import { toSessionUser } from '../services/userService.js'
+import { recordSignIn, toSessionUser } from '../services/userService.js'
 
 export default (ctx: AppContext) =>
   defineRoutes('/session', [
@@ -26,7 +25,7 @@ export default (ctx: AppContext) =>
         await ctx.throttle.succeeded(input.username, ip)
         await logIn(req, user) // passport 0.7 regenerates the session id here
         req.session.signedInAt = Date.now()
-        await ctx.ds.getRepository(User).update({ id: user.id }, { lastSignInAt: new Date() })
+        await recordSignIn(ctx.ds, user.id)
         return { user: toSessionUser(user) }
       },
     },

@@ -4,8 +4,7 @@ import { actorOf, type AppContext } from '../context.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
 import { logIn } from '../services/authService.js'
-import { changePassword, updateProfile } from '../services/userService.js'
-import { User } from '../entities/User.js'
+import { changePassword, ownUser, updateProfile } from '../services/userService.js'
 
 const signedIn = { roles: ANYONE_SIGNED_IN }
 
@@ -26,7 +25,7 @@ export default (ctx: AppContext) =>
         const input = parseBody(passwordChangeSchema, req.body)
         await changePassword(ctx.ds, actorOf(req), input.currentPassword, input.newPassword)
         // Other sessions end (the epoch moved); this one continues on a fresh id.
-        const user = await ctx.ds.getRepository(User).findOneByOrFail({ id: actorOf(req).userId })
+        const user = await ownUser(ctx.ds, actorOf(req).userId)
         const signedInAt = req.session.signedInAt
         await logIn(req, user)
         req.session.signedInAt = signedInAt

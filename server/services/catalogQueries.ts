@@ -5,6 +5,7 @@ import { normalizeGtin } from '../../shared/barcode/checkDigit.js'
 import type {
   ItemBinStock, ItemDetail, ItemListQuery, ItemPage, ItemRow, ItemVendorSource, ItemWarehouseStock, LotRow, LotUpdateInput,
 } from '../../shared/schemas/catalog.js'
+import { containsPattern } from '../db/likePattern.js'
 import { Lot } from '../entities/Lot.js'
 import { AppError } from '../errors.js'
 import { audit, type AuditActor } from './auditService.js'
@@ -14,7 +15,6 @@ const SORT_COLUMNS: Record<ItemListQuery['sort'], string> = {
   sku: 'i.sku', name: 'i.name', family: 'i.family', listPrice: 'i.list_price', onHand: 'on_hand',
 }
 
-const likeEscape = (text: string) => text.replace(/[\\%_]/g, (c) => `\\${c}`)
 
 /** WHERE clause and parameters for the list filters; every search word must appear in SKU, name, GTIN or pattern. */
 export function listFilter(q: Omit<ItemListQuery, 'page' | 'pageSize' | 'sort' | 'dir'>): { where: string; params: unknown[] } {
@@ -34,7 +34,7 @@ export function listFilter(q: Omit<ItemListQuery, 'page' | 'pageSize' | 'sort' |
   if (scanned?.ok) add('(i.gtin = ? OR i.sku = ?)', scanned.gtin14, q.q)
   else {
     for (const word of (q.q ?? '').split(/\s+/).filter(Boolean).slice(0, 8)) {
-      const like = `%${likeEscape(word)}%`
+      const like = containsPattern(word)
       add('(i.sku LIKE ? OR i.name LIKE ? OR i.gtin LIKE ? OR i.pattern LIKE ?)', like, like, like, like)
     }
   }

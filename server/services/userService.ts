@@ -124,6 +124,16 @@ export async function resetPassword(ds: DataSource, actor: AuditActor, id: numbe
   await endSessions(ds, id)
 }
 
+/** Stamps a successful sign-in. */
+export async function recordSignIn(ds: DataSource, userId: number): Promise<void> {
+  await ds.getRepository(User).update({ id: userId }, { lastSignInAt: new Date() })
+}
+
+/** The signed-in person's own row (for renewing their session after a password change). */
+export function ownUser(ds: DataSource, userId: number): Promise<User> {
+  return ds.getRepository(User).findOneByOrFail({ id: userId })
+}
+
 export async function updateProfile(ds: DataSource, userId: number, input: ProfileUpdateInput): Promise<SessionUser> {
   const user = await findUser(ds, userId)
   if (input.displayName !== undefined) user.displayName = input.displayName

@@ -2,6 +2,7 @@
 import type { DataSource } from 'typeorm'
 import type { CustomerCreateInput, CustomerSummary, CustomerUpdateInput } from '../../../shared/schemas/counter.js'
 import { Customer, Job } from '../../entities/Customer.js'
+import { containsPattern } from '../../db/likePattern.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
@@ -23,7 +24,6 @@ export function toCustomerSummary(c: Customer, openJobs = 0): CustomerSummary {
 }
 
 /** LIKE wildcards in the user's text match themselves, not anything. */
-export const likePattern = (q: string) => `%${q.replace(/[\\%_]/g, (c) => '\\' + c)}%`
 
 async function openJobCounts(ds: DataSource, ids: number[]): Promise<Map<number, number>> {
   if (ids.length === 0) return new Map()
@@ -43,7 +43,7 @@ export async function listCustomers(ds: DataSource, query: { q?: string; active:
   const qb = ds.getRepository(Customer).createQueryBuilder('c').orderBy('c.name', 'ASC').limit(200)
   if (query.active !== 'all') qb.andWhere('c.active = :active', { active: query.active === 'true' })
   if (query.q) {
-    qb.andWhere('(c.code LIKE :q OR c.name LIKE :q OR c.contact_name LIKE :q OR c.email LIKE :q OR c.phone LIKE :q)', { q: likePattern(query.q) })
+    qb.andWhere('(c.code LIKE :q OR c.name LIKE :q OR c.contact_name LIKE :q OR c.email LIKE :q OR c.phone LIKE :q)', { q: containsPattern(query.q) })
   }
   const customers = await qb.getMany()
   const counts = await openJobCounts(ds, customers.map((c) => c.id))

@@ -14,7 +14,8 @@ import { Customer, Job } from '../../entities/Customer.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
-import { getCustomer, likePattern } from './customerService.js'
+import { containsPattern } from '../../db/likePattern.js'
+import { getCustomer } from './customerService.js'
 
 interface JobRow {
   id: number
@@ -74,7 +75,7 @@ export async function listJobs(
   }
   if (query.q) {
     where.push('(j.name LIKE ? OR c.name LIKE ? OR c.code LIKE ? OR j.site_address LIKE ?)')
-    params.push(...Array(4).fill(likePattern(query.q)))
+    params.push(...Array(4).fill(containsPattern(query.q)))
   }
   const sql = `${JOB_SELECT}${where.length ? ' WHERE ' + where.join(' AND ') : ''} ORDER BY j.updated_at DESC, j.id DESC LIMIT ${query.limit}`
   const rows: JobRow[] = await ds.query(sql, params)

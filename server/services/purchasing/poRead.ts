@@ -7,7 +7,8 @@ import { lineTotal } from '../../../shared/purchasing/poMoney.js'
 import { parseSpec, specText } from '../../../shared/purchasing/specText.js'
 import { AppError } from '../../errors.js'
 import { listOutbox } from './outboxRead.js'
-import { isoDay as dateOnly, isoInstant as iso, likePattern } from './sqlValues.js'
+import { containsPattern } from '../../db/likePattern.js'
+import { isoDay as dateOnly, isoInstant as iso } from './sqlValues.js'
 
 type Db = EntityManager | DataSource
 
@@ -63,7 +64,7 @@ export async function listPurchaseOrders(db: Db, filter: PoFilter): Promise<PoSu
   }
   if (filter.q) {
     where.push('(o.number LIKE ? OR v.name LIKE ? OR j.name LIKE ?)')
-    const like = likePattern(filter.q)
+    const like = containsPattern(filter.q)
     params.push(like, like, like)
   }
   const rows: PoRow[] = await db.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT 500`, params)

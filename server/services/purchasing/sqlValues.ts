@@ -8,5 +8,3 @@ export function isoDay(d: Date | string | null | undefined): string | null {
   return typeof d === 'string' ? d.slice(0, 10) : d.toISOString().slice(0, 10)
 }
 
-/** LIKE pattern for user text, with the wildcards in it escaped. */
-export const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => '\\' + c)}%`

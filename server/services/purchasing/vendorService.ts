@@ -8,7 +8,7 @@ import { Vendor, VendorItem } from '../../entities/Vendor.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
-import { likePattern } from './sqlValues.js'
+import { containsPattern } from '../../db/likePattern.js'
 
 function vendorView(v: Vendor, itemCount: number): VendorView {
   return {
@@ -141,7 +141,7 @@ export async function removeVendorItem(ds: DataSource, actor: AuditActor, vendor
 // ---- choices for the purchasing forms ----
 
 export async function itemChoices(ds: DataSource, q: string | undefined): Promise<ItemChoice[]> {
-  const like = likePattern(q ?? '')
+  const like = containsPattern(q ?? '')
   const rows: { id: number; sku: string; name: string; stock_unit: string; made_to_order: number; gtin: string | null }[] = await ds.query(
     'SELECT id, sku, name, stock_unit, made_to_order, gtin FROM items WHERE active = 1 AND (sku LIKE ? OR name LIKE ? OR gtin LIKE ?) ORDER BY sku LIMIT 30',
     [like, like, like],

@@ -7,7 +7,7 @@ import type { QuoteDetail, QuoteLineView, QuoteSummary } from '../../../shared/s
 import { MoneyDecimal } from '../../../shared/money.js'
 import { AppError } from '../../errors.js'
 import { todayIso } from '../pricing/priceEstimate.js'
-import { likePattern } from '../counter/customerService.js'
+import { containsPattern } from '../../db/likePattern.js'
 
 type Row = Record<string, string | number | null | Date>
 
@@ -55,7 +55,7 @@ export async function listQuotes(ds: DataSource, query: { status: string; custom
   else if (query.status === 'draft' || query.status === 'offered') add('q.status = ? AND q.valid_until >= ?', query.status, today)
   else if (query.status !== 'all') add('q.status = ?', query.status)
   if (query.customerId) add('q.customer_id = ?', query.customerId)
-  if (query.q) add('(q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(3).fill(likePattern(query.q)))
+  if (query.q) add('(q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(3).fill(containsPattern(query.q)))
   const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY q.id DESC LIMIT 500`, params)
   return rows.map((r) => toSummary(r, today))
 }

@@ -4,6 +4,7 @@ import type { AppContext } from '../context.js'
 import { AppError } from '../errors.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
+import { auditSignIn } from '../services/auditService.js'
 import { authenticate, logIn, logOut } from '../services/authService.js'
 import { recordSignIn, toSessionUser } from '../services/userService.js'
 
@@ -18,14 +19,23 @@ export default (ctx: AppContext) =>
         const ip = req.ip ?? 'unknown'
         // The attempt is counted before the password is checked (atomic in the database), so a burst
         // of parallel guesses gets no more checks than the limit.
-        await ctx.throttle.reserve(input.username, ip)
+        try {
+          await ctx.throttle.reserve(input.username, ip)
+        } catch (err) {
+          if (err instanceof AppError) await auditSignIn(ctx.ds, 'session.sign_in_refused', { username: input.username, ip }, { reason: err.code })
+          throw err
+        }
         req.body = { username: input.username.toLowerCase(), password: input.password }
         const user = await authenticate(ctx.passport, req, res)
-        if (!user) throw new AppError(401, 'bad_credentials', 'The user name or password is not right.')
+        if (!user) {
+          await auditSignIn(ctx.ds, 'session.sign_in_failed', { username: input.username, ip })
+          throw new AppError(401, 'bad_credentials', 'The user name or password is not right.')
+        }
         await ctx.throttle.succeeded(input.username, ip)
         await logIn(req, user) // passport 0.7 regenerates the session id here
         req.session.signedInAt = Date.now()
         await recordSignIn(ctx.ds, user.id)
+        await auditSignIn(ctx.ds, 'session.sign_in', { username: user.username, userId: user.id, ip })
         return { user: toSessionUser(user) }
       },
     },
@@ -40,7 +50,9 @@ export default (ctx: AppContext) =>
       path: '/',
       access: { roles: ANYONE_SIGNED_IN },
       handler: async (req, res) => {
+        const who = req.user
         await logOut(req)
+        if (who) await auditSignIn(ctx.ds, 'session.sign_out', { username: who.username, userId: who.id, ip: req.ip ?? null })
         res.clearCookie('lumenyard.sid')
         res.status(204).end()
       },

@@ -100,6 +100,7 @@ export async function updateUser(
     const user = await em.findOne(User, { where: { id }, lock: { mode: 'pessimistic_write' } })
     if (!user) throw AppError.notFound('user_not_found', 'That user was not found.')
     const endsSessions = (input.active === false && user.active) || (input.roles !== undefined)
+    const rolesBefore = [...user.roles].sort()
     if (input.displayName !== undefined) user.displayName = input.displayName
     if (input.email !== undefined) user.email = input.email || null
     if (input.roles !== undefined) user.roles = [...new Set(input.roles)]
@@ -107,6 +108,8 @@ export async function updateUser(
     if (endsSessions) user.sessionEpoch += 1
     await em.save(user)
     await audit(em, actor, 'user.update', 'user', id, input)
+    const rolesAfter = [...user.roles].sort()
+    if (rolesAfter.join() !== rolesBefore.join()) await audit(em, actor, 'user.roles', 'user', id, { from: rolesBefore, to: rolesAfter })
     return { user, endsSessions }
   })
   if (result.endsSessions) await endSessions(ds, id)

@@ -39,6 +39,7 @@ export const ERROR_CODES = {
   range_backwards: [],
   time_zone_unknown: [],
   day_after_today: ['today'],
+  audit_export_too_large: ['count', 'max'],
 
   // Codes and identifiers typed into forms
   username_chars: [],

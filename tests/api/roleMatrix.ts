@@ -233,5 +233,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/counts/:id/review': { access: ['admin', 'warehouse', 'buyer'] },
   'POST /api/counts/:id/cancel': { access: ['admin'] },
   // Reports: the owner (admin) and the buyer; values under the cost rule.
+  // The audit trail: admins only; read and export, never changed through the app.
+  'GET /api/audit': { access: ['admin'], query: 'limit=1' },
+  'GET /api/audit/export': { access: ['admin'], query: 'from=2020-01-01&to=2020-01-01' },
   'GET /api/reports/stock-valuation': { access: ['admin', 'buyer'], costs: '/api/reports/stock-valuation?warehouseId={warehouse}' },
 }

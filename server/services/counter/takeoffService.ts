@@ -30,7 +30,7 @@ async function openJob(em: EntityManager, jobId: number): Promise<Job> {
 }
 
 /** Inside the caller's transaction (the spreadsheet import creates takeoffs too). */
-export async function insertTakeoff(em: EntityManager, actor: AuditActor, jobId: number, name: string, input: TakeoffInput, action = 'takeoff.create'): Promise<Takeoff> {
+export async function insertTakeoff(em: EntityManager, actor: AuditActor, jobId: number, name: string, input: TakeoffInput, action: 'takeoff.create' | 'takeoff.import' = 'takeoff.create'): Promise<Takeoff> {
   await openJob(em, jobId)
   const t = em.create(Takeoff, { jobId, name, inputJson: JSON.stringify(input), createdBy: actor.userId })
   await em.save(t)

@@ -6,6 +6,7 @@ import { Bom } from '../../entities/Bom.js'
 import { PickConfirmation, PickList, PickListLine } from '../../entities/PickList.js'
 import { StockReservation } from '../../entities/StockReservation.js'
 import { AppError } from '../../errors.js'
+import { audit } from '../auditService.js'
 import { lockDocumentBalances, pickReserved, releaseReservations } from '../stock/stockReservations.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { PICK_DOC } from './pickListCreate.js'
@@ -79,5 +80,6 @@ export async function completePickList(em: EntityManager, actor: StockActor, id:
   }
   await em.update(PickList, { id: list.id }, { status: 'picked', pickedBy: actor.userId, pickedAt: new Date() })
   const issued = [...issuedByBomLine.values()].reduce((a, b) => a + b, 0)
+  await audit(em, actor, 'pick_list.picked', 'pick_list', list.id, { issued, moves, closedShort })
   return { issued, moves, closedShort, released }
 }

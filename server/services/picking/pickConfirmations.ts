@@ -10,6 +10,7 @@ import { Item } from '../../entities/Item.js'
 import { Lot } from '../../entities/Lot.js'
 import { PickConfirmation, PickList, PickListLine } from '../../entities/PickList.js'
 import { AppError, problem } from '../../errors.js'
+import { audit } from '../auditService.js'
 import { isDuplicateKey } from '../../db/transaction.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { requestCountForShortPick } from '../counts/countShortPick.js'
@@ -89,6 +90,7 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
     list.status = 'picking'
     list.startedBy = actor.userId
     list.startedAt = new Date()
+    await audit(em, actor, 'pick_list.start', 'pick_list', list.id)
   }
   // update() also sets updated_at, so pollers see a change even when the status stays.
   await em.update(PickList, { id: list.id }, { status: list.status, startedBy: list.startedBy, startedAt: list.startedAt })

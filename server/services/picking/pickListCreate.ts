@@ -9,6 +9,7 @@ import { reserve } from '../stock/stockReservations.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { applyChoices, proposeTransfers } from './pickShortageChoices.js'
 import { planPick, type AllocatedLine } from './pickPlanning.js'
+import { audit } from '../auditService.js'
 
 export const PICK_DOC = 'pick_list'
 
@@ -70,5 +71,6 @@ export async function createPickLists(em: EntityManager, actor: StockActor, inpu
   } catch (err) {
     stockTaken(err)
   }
+  for (const id of ids) await audit(em, actor, 'pick_list.create', 'pick_list', id, { bomId: base.bomId, jobId: base.jobId })
   return { ids }
 }

@@ -15,6 +15,7 @@ export async function releasePickList(em: EntityManager, actor: StockActor, id: 
   list.releasedBy = actor.userId
   list.releasedAt = new Date()
   await em.save(list)
+  await audit(em, actor, 'pick_list.release', 'pick_list', list.id)
 }
 
 export async function cancelPickList(em: EntityManager, actor: StockActor, id: number, reason: string | null): Promise<{ released: number }> {

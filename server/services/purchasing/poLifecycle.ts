@@ -1,7 +1,7 @@
 // Status changes of a purchase order, each stamped with who and when and written to the audit log:
 // editing a draft, approving, marking sent, cancelling and closing.
 import type { EntityManager } from 'typeorm'
-import type { PoLineInput, PoUpdateInput, PoStatus } from '../../../shared/schemas/purchasing.js'
+import type { PoLineInput, PoUpdateInput } from '../../../shared/schemas/purchasing.js'
 import { allowedFrom, refusal, type PoAction } from '../../../shared/purchasing/poStatus.js'
 import { MAX_LINE_QTY } from '../../../shared/purchasing/poMoney.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
@@ -29,7 +29,7 @@ export function ensure(action: PoAction, po: PurchaseOrder): void {
   if (why) throw AppError.conflict('po_wrong_status', why, { params: { poStatus: po.status, poAction: action, statuses: allowedFrom(action) } })
 }
 
-async function setStatus(em: EntityManager, actor: AuditActor, po: PurchaseOrder, status: PoStatus, stamp: Partial<PurchaseOrder>, detail?: object) {
+async function setStatus(em: EntityManager, actor: AuditActor, po: PurchaseOrder, status: 'approved' | 'sent' | 'cancelled' | 'closed', stamp: Partial<PurchaseOrder>, detail?: object) {
   const from = po.status
   await em.update(PurchaseOrder, { id: po.id }, { status, ...stamp })
   await audit(em, actor, `po.${status}`, 'purchase_order', po.id, { number: po.number, from, ...detail })

@@ -5,6 +5,7 @@ import { Bin } from '../../entities/Bin.js'
 import { Transfer, TransferLine } from '../../entities/Transfer.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError, problem } from '../../errors.js'
+import { audit } from '../auditService.js'
 import { currentAverage } from './averageCost.js'
 import { currentBinByCode } from './currentRows.js'
 import { applyMoves, type StockActor } from './stockLedger.js'
@@ -60,6 +61,7 @@ export async function shipTransfer(
     )
   }
   await applyMoves(em, actor, specs)
+  await audit(em, actor, 'transfer.ship', 'transfer', transfer.id, { lines: lines.length })
   return { transfer, lines }
 }
 
@@ -96,5 +98,6 @@ export async function receiveTransfer(
     transfer.receivedBy = actor.userId
     await em.save(transfer)
   }
+  await audit(em, actor, 'transfer.receive', 'transfer', transfer.id, { lines: input.lines.length, complete: transfer.status === 'received' })
   return transfer
 }

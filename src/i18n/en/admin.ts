@@ -11,6 +11,7 @@ export default {
   purchasingTitle: 'Purchasing settings',
   purchasingBlurb: 'Who sees costs and how purchase orders close.',
   outboxTitle: 'Outbox',
+  auditBlurb: 'Who signed in, changed roles, moved stock or changed a document or a setting, and when.',
   outboxBlurb: 'Every purchase order e-mail sent to vendors, with its PDF and spreadsheet.',
   companyTitle: 'Company profile',
   companyBlurb: 'Who orders: the name, bill-to address and reply-to every purchase order carries.',

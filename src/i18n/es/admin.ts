@@ -11,6 +11,7 @@ export default {
   purchasingTitle: 'Ajustes de compras',
   purchasingBlurb: 'Quién ve los costos y cómo se cierran las órdenes de compra.',
   outboxTitle: 'Bandeja de salida',
+  auditBlurb: 'Quién inició sesión, cambió funciones, movió existencias o cambió un documento o una configuración, y cuándo.',
   outboxBlurb: 'Cada correo de orden de compra enviado a proveedores, con su hoja de cálculo.',
   addUser: 'Agregar una persona',
   username: 'Usuario',

@@ -21,6 +21,12 @@ export const adminRoutes: RouteRecordRaw[] = [
     meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'purchasing.outboxTitle' },
   },
   {
+    path: '/admin/audit',
+    name: 'admin-audit',
+    component: () => import('@/views/admin/AuditTrailView.vue'),
+    meta: { area: 'admin', roles: AREA_ROLES.admin, title: 'audit.title' },
+  },
+  {
     path: '/admin/company',
     name: 'admin-company',
     component: () => import('@/views/admin/CompanyProfileView.vue'),

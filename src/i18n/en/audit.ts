@@ -1,0 +1,30 @@
+// The audit trail page. Kinds, actions and record names are shared with the spreadsheet (shared/audit/).
+import { auditWordsEn } from '../../../shared/audit/auditWordsEn.js'
+
+export default {
+  ...auditWordsEn,
+  title: 'Audit trail',
+  blurb: 'Every sign-in (and every failed one), role change, password set, stock move, document change and settings change, newest first. Entries are kept as they were written: nobody can change or remove them here.',
+  person: 'Person',
+  anyone: 'Everyone',
+  kind: 'Kind',
+  anyKind: 'Every kind',
+  days: 'Days',
+  fromDay: 'From',
+  toDay: 'To',
+  export: 'Spreadsheet',
+  exported: 'Saved {file}.',
+  older: 'Show older entries',
+  shown: 'No entries | One entry | {count} entries',
+  empty: 'Nothing was recorded for these filters.',
+  nobody: 'Nobody signed in',
+  typed: 'name typed: {name}',
+  rolesFromTo: '{from} → {to}',
+  rolesNew: 'Roles: {roles}',
+  noRoles: 'none',
+  moved: '{qty} {unit} · {sku} {name}',
+  place: '{warehouse} · bin {bin}',
+  lot: 'lot {lot}',
+  address: 'from {ip}',
+  col: { when: 'When', who: 'By', what: 'What', about: 'About' },
+}

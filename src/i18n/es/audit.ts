@@ -1,0 +1,30 @@
+// Página del registro de auditoría. Tipos, acciones y nombres de registros se comparten con la hoja (shared/audit/).
+import { auditWordsEs } from '../../../shared/audit/auditWordsEs.js'
+
+export default {
+  ...auditWordsEs,
+  title: 'Registro de auditoría',
+  blurb: 'Cada inicio de sesión (también los fallidos), cambio de funciones, contraseña fijada, movimiento de existencias, cambio de documento y de configuración, lo más reciente primero. Las entradas quedan como se escribieron: aquí nadie puede cambiarlas ni quitarlas.',
+  person: 'Persona',
+  anyone: 'Todos',
+  kind: 'Tipo',
+  anyKind: 'Todos los tipos',
+  days: 'Días',
+  fromDay: 'Desde',
+  toDay: 'Hasta',
+  export: 'Hoja de cálculo',
+  exported: 'Se guardó {file}.',
+  older: 'Ver entradas anteriores',
+  shown: 'Ninguna entrada | Una entrada | {count} entradas',
+  empty: 'No hay nada registrado con estos filtros.',
+  nobody: 'Nadie había iniciado sesión',
+  typed: 'nombre escrito: {name}',
+  rolesFromTo: '{from} → {to}',
+  rolesNew: 'Funciones: {roles}',
+  noRoles: 'ninguna',
+  moved: '{qty} {unit} · {sku} {name}',
+  place: '{warehouse} · ubicación {bin}',
+  lot: 'lote {lot}',
+  address: 'desde {ip}',
+  col: { when: 'Cuándo', who: 'Por', what: 'Qué', about: 'Sobre' },
+}

@@ -69,6 +69,8 @@ export const AUDIT_ACTIONS = {
   'item.update': 'records',
   'item.deactivate': 'records',
   'item.import': 'records',
+  'data_import.commit': 'records',
+  'data_import.reverse': 'records',
   'lot.update': 'records',
   'customer.create': 'records',
   'customer.update': 'records',

@@ -70,6 +70,8 @@ export const auditWordsEn = {
     item_update: 'Item changed',
     item_deactivate: 'Item taken out of use',
     item_import: 'Items imported',
+    data_import_commit: 'Spreadsheet imported',
+    data_import_reverse: 'Import undone',
     lot_update: 'Lot note changed',
     customer_create: 'Customer added',
     customer_update: 'Customer changed',
@@ -97,13 +99,13 @@ export const auditWordsEn = {
     cycle_count: 'Count {ref}', transfer: 'Transfer {ref}', item_warehouse: 'Item and warehouse {ref}',
     app_settings: 'Settings: {ref}', company_profile: 'Company profile', reorder_policy: 'Reorder policy',
     material_rule: 'Material rule', material_role_item: 'Item for a material', waste_allowance: 'Waste allowances',
-    purchase_suggestion: 'Reorder suggestion', other: 'A record',
+    purchase_suggestion: 'Reorder suggestion', data_import: 'Import of {ref}', other: 'A record',
   },
   /** Without a number or name to show. */
   subjectsBare: {
     user: 'A person', purchase_order: 'A purchase order', pick_list: 'A pick list', pick_transfer: 'A pick list', job: 'A job',
     customer: 'A customer', vendor: 'A vendor', item: 'An item', lot: 'A lot', warehouse: 'A warehouse', bin: 'A bin', takeoff: 'A takeoff',
-    bom: 'A bill of materials', cycle_count: 'A count', transfer: 'A transfer', item_warehouse: 'An item in a warehouse',
+    bom: 'A bill of materials', cycle_count: 'A count', transfer: 'A transfer', item_warehouse: 'An item in a warehouse', data_import: 'An import',
   },
   settingsAreas: { purchasing: 'purchasing', counts: 'counts', takeoff: 'takeoffs' },
   sheet: {

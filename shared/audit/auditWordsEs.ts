@@ -69,6 +69,8 @@ export const auditWordsEs: typeof auditWordsEn = {
     item_update: 'Artículo modificado',
     item_deactivate: 'Artículo dado de baja',
     item_import: 'Artículos importados',
+    data_import_commit: 'Hoja de cálculo importada',
+    data_import_reverse: 'Importación deshecha',
     lot_update: 'Nota del lote cambiada',
     customer_create: 'Cliente agregado',
     customer_update: 'Cliente modificado',
@@ -95,12 +97,12 @@ export const auditWordsEs: typeof auditWordsEn = {
     cycle_count: 'Conteo {ref}', transfer: 'Traslado {ref}', item_warehouse: 'Artículo y almacén {ref}',
     app_settings: 'Configuración: {ref}', company_profile: 'Datos de la empresa', reorder_policy: 'Política de reorden',
     material_rule: 'Regla de material', material_role_item: 'Artículo de un material', waste_allowance: 'Márgenes de desperdicio',
-    purchase_suggestion: 'Sugerencia de reorden', other: 'Un registro',
+    purchase_suggestion: 'Sugerencia de reorden', data_import: 'Importación de {ref}', other: 'Un registro',
   },
   subjectsBare: {
     user: 'Una persona', purchase_order: 'Una orden de compra', pick_list: 'Una lista de preparación', pick_transfer: 'Una lista de preparación', job: 'Una obra',
     customer: 'Un cliente', vendor: 'Un proveedor', item: 'Un artículo', lot: 'Un lote', warehouse: 'Un almacén', bin: 'Una ubicación', takeoff: 'Un cálculo de materiales',
-    bom: 'Una lista de materiales', cycle_count: 'Un conteo', transfer: 'Un traslado', item_warehouse: 'Un artículo en un almacén',
+    bom: 'Una lista de materiales', cycle_count: 'Un conteo', transfer: 'Un traslado', item_warehouse: 'Un artículo en un almacén', data_import: 'Una importación',
   },
   settingsAreas: { purchasing: 'compras', counts: 'conteos', takeoff: 'cálculo de materiales' },
   sheet: {

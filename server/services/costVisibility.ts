@@ -34,6 +34,10 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
   'valueNet', // and net
   'varianceValue', // one count line's variance at cost
   'stockValue', // stock on hand at its moving-average cost (reports)
+  'usageValue', // what was issued and picked, at the moving-average cost it went out at (reports)
+  'beginValue', // stock value at the start of a report's period
+  'endValue', // and at its end
+  'averageValue', // their average (the denominator of turns)
 ])
 
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {

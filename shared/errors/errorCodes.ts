@@ -40,6 +40,7 @@ export const ERROR_CODES = {
   time_zone_unknown: [],
   day_after_today: ['today'],
   audit_export_too_large: ['count', 'max'],
+  period_too_long: ['max'],
 
   // Codes and identifiers typed into forms
   username_chars: [],

@@ -45,3 +45,26 @@ export function saveFile(blob: Blob, filename: string): void {
   a.remove()
   setTimeout(() => URL.revokeObjectURL(url), 1000)
 }
+
+/**
+ * GETs a file the server streams as it writes it, reporting the bytes received so far (a streamed
+ * spreadsheet has no length to show a fraction of). Errors arrive as JSON, as from the fetch client.
+ */
+export async function downloadWithProgress(path: string, onBytes: (bytes: number) => void): Promise<{ blob: Blob; filename: string }> {
+  const res = await fetch('/api' + path, { credentials: 'same-origin', headers: { 'X-Lumenyard-Request': '1' } })
+  if (!res.ok) throw apiErrorFrom(res.status, await res.json().catch(() => null))
+  const filename = /filename="?([^";]+)"?/.exec(res.headers.get('content-disposition') ?? '')?.[1] ?? 'download'
+  const type = res.headers.get('content-type') ?? 'application/octet-stream'
+  if (!res.body) return { blob: await res.blob(), filename }
+  const reader = res.body.getReader()
+  const parts: Uint8Array[] = []
+  let bytes = 0
+  for (;;) {
+    const { done, value } = await reader.read()
+    if (done) break
+    parts.push(value)
+    bytes += value.byteLength
+    onBytes(bytes)
+  }
+  return { blob: new Blob(parts as BlobPart[], { type }), filename }
+}

@@ -81,9 +81,9 @@ describe('role matrix', () => {
 const COST_ROLES: readonly Role[] = ['admin', 'buyer']
 const COST_KEYS = [
   'cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder',
-  'valueOff', 'valueNet', 'varianceValue', 'stockValue',
+  'valueOff', 'valueNet', 'varianceValue', 'stockValue', 'usageValue', 'beginValue', 'endValue', 'averageValue',
 ]
-const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total']
+const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total', 'Cost of what was used', 'Average stock value']
 
 function costKeysIn(body: unknown, found: string[] = []): string[] {
   if (Array.isArray(body)) for (const v of body) costKeysIn(v, found)

@@ -237,4 +237,12 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/audit': { access: ['admin'], query: 'limit=1' },
   'GET /api/audit/export': { access: ['admin'], query: 'from=2020-01-01&to=2020-01-01' },
   'GET /api/reports/stock-valuation': { access: ['admin', 'buyer'], costs: '/api/reports/stock-valuation?warehouseId={warehouse}' },
+  'GET /api/reports/turns': { access: ['admin', 'buyer'], costs: '/api/reports/turns?warehouseId={warehouse}' },
+  'GET /api/reports/dead-stock': { access: ['admin', 'buyer'], costs: '/api/reports/dead-stock?warehouseId={warehouse}&deadDays=30&slowDays=30&windowDays=30' },
+  'GET /api/reports/usage': { access: ['admin', 'buyer'], costs: '/api/reports/usage' },
+  'GET /api/reports/vendors': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
+  'GET /api/reports/turns/export': { access: ['admin', 'buyer'], costs: '/api/reports/turns/export?warehouseId={warehouse}' },
+  'GET /api/reports/usage/export': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
+  'GET /api/reports/dead-stock/export': { access: ['admin', 'buyer'], query: 'warehouseId=999999999' },
+  'GET /api/reports/vendors/export': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
 }

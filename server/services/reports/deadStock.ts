@@ -3,37 +3,11 @@
 // lasts more than `slowDays`. Valued at today's moving average, largest first.
 import type { DataSource } from 'typeorm'
 import type { ItemFamily } from '../../../shared/catalog.js'
-import { DEFAULT_REORDER_POLICY } from '../../../shared/inventory/reorder.js'
-import { MoneyDecimal, type Money } from '../../../shared/money.js'
+import { MoneyDecimal } from '../../../shared/money.js'
+import type { DeadStockQuery, DeadStockReport, DeadStockRow } from '../../../shared/schemas/reports.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
 
-export interface DeadStockQuery {
-  deadDays: number
-  slowDays: number
-  windowDays: number
-  warehouseId?: number
-}
-
-export const DEAD_STOCK_DEFAULTS = { deadDays: DEFAULT_REORDER_POLICY.deadStockDays, slowDays: 180, windowDays: 180 }
-
-export interface DeadStockRow {
-  kind: 'dead' | 'slow'
-  itemId: number
-  sku: string
-  name: string
-  family: ItemFamily
-  warehouseId: number
-  warehouseCode: string
-  onHand: number
-  lastUsedAt: string | null
-  usedInWindow: number
-  /** On hand ÷ daily use over the window; null when not used in it. */
-  daysOfSupply: number | null
-  avgCost: string
-  stockValue: Money
-}
-
-export async function deadAndSlowStock(ds: DataSource, q: DeadStockQuery, now = new Date()): Promise<DeadStockRow[]> {
+export async function deadAndSlowStock(ds: DataSource, q: DeadStockQuery, now = new Date()): Promise<DeadStockReport> {
   const windowStart = new Date(now.getTime() - q.windowDays * 86_400_000)
   const rows: {
     item_id: number; sku: string; name: string; family: ItemFamily; warehouse_id: number; code: string; on_hand: string
@@ -66,5 +40,6 @@ export async function deadAndSlowStock(ds: DataSource, q: DeadStockQuery, now = 
       stockValue: new MoneyDecimal(avgCost).times(onHand).toDecimalPlaces(2).toFixed(2),
     })
   }
-  return out.sort((a, b) => Number(b.stockValue) - Number(a.stockValue) || a.sku.localeCompare(b.sku))
+  out.sort((a, b) => Number(b.stockValue) - Number(a.stockValue) || a.sku.localeCompare(b.sku))
+  return { deadDays: q.deadDays, slowDays: q.slowDays, windowDays: q.windowDays, rows: out }
 }

@@ -4,37 +4,11 @@
 import type { DataSource } from 'typeorm'
 import type { ItemFamily } from '../../../shared/catalog.js'
 import { addMoney, type Money } from '../../../shared/money.js'
-import { turnsOf, type TurnsFigures } from '../../../shared/reports/stockTurns.js'
+import { turnsOf } from '../../../shared/reports/stockTurns.js'
+import type { PeriodQuery, TurnsFigureRow, TurnsReport, TurnsRow } from '../../../shared/schemas/reports.js'
 import { addDays, dayEnd, dayStart, daysInclusive } from '../../../shared/reports/zonedDays.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
 import { itemFacts, valuedPairs } from './stockValuation.js'
-
-export interface PeriodQuery {
-  from: string
-  to: string
-  tz: string
-  warehouseId?: number
-}
-
-export interface TurnsFigureRow extends Omit<TurnsFigures, 'averageValue'> {
-  usedQty: number
-  usageValue: Money
-  beginValue: Money
-  endValue: Money
-  averageValue: Money
-}
-
-export interface TurnsRow extends TurnsFigureRow {
-  family: ItemFamily
-}
-
-export interface TurnsReport {
-  from: string
-  to: string
-  days: number
-  families: TurnsRow[]
-  total: TurnsFigureRow | null
-}
 
 function sumByFamily(values: { family: ItemFamily; value: Money }[]): Map<ItemFamily, Money> {
   const out = new Map<ItemFamily, Money[]>()

@@ -2,26 +2,9 @@
 // it went out at), in the reader's calendar months. One aggregate joined to the months' bounds.
 import type { DataSource } from 'typeorm'
 import type { ItemFamily } from '../../../shared/catalog.js'
-import type { Money } from '../../../shared/money.js'
 import { monthsBetween } from '../../../shared/reports/zonedDays.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
-import type { PeriodQuery } from './stockTurns.js'
-
-export interface UsageCell {
-  month: string
-  family: ItemFamily
-  qty: number
-  usageValue: Money
-}
-
-export interface UsageReport {
-  from: string
-  to: string
-  months: string[]
-  cells: UsageCell[]
-}
-
-export const MAX_REPORT_MONTHS = 36
+import type { PeriodQuery, UsageReport } from '../../../shared/schemas/reports.js'
 
 export async function usageByMonth(ds: DataSource, q: PeriodQuery): Promise<UsageReport> {
   const months = monthsBetween(q.from, q.to, q.tz)

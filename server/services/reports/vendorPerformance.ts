@@ -3,24 +3,9 @@
 // reads its lead times from (stock receipt moves of the order). Orders whose first delivery fell in the period.
 import type { DataSource } from 'typeorm'
 import { dayEnd, dayStart } from '../../../shared/reports/zonedDays.js'
-import type { PeriodQuery } from './stockTurns.js'
+import type { PeriodQuery, VendorReport, VendorRow } from '../../../shared/schemas/reports.js'
 
-export interface VendorRow {
-  vendorId: number
-  code: string
-  name: string
-  orders: number
-  /** Orders with an expected date: the ones on-time is measured on. */
-  withDate: number
-  onTime: number
-  onTimeRate: number | null
-  leadDaysMean: number | null
-  leadDaysMin: number | null
-  leadDaysMax: number | null
-  statedLeadDays: number
-}
-
-export async function vendorPerformance(ds: DataSource, q: PeriodQuery): Promise<VendorRow[]> {
+export async function vendorPerformance(ds: DataSource, q: PeriodQuery): Promise<VendorReport> {
   const rows: { vendor_id: number; code: string; name: string; lead: number; expected: string | null; first_at: Date; placed_at: Date | null }[] = await ds.query(
     `SELECT o.vendor_id, v.code, v.name, v.lead_time_days AS lead, DATE_FORMAT(o.expected_date, '%Y-%m-%d') AS expected,
             MIN(m.at) AS first_at, COALESCE(o.sent_at, o.approved_at) AS placed_at
@@ -51,11 +36,12 @@ export async function vendorPerformance(ds: DataSource, q: PeriodQuery): Promise
     }
     byVendor.set(r.vendor_id, v)
   }
-  return [...byVendor.values()].map(({ leads, ...v }) => ({
+  const vendors = [...byVendor.values()].map(({ leads, ...v }): VendorRow => ({
     ...v,
     onTimeRate: v.withDate ? v.onTime / v.withDate : null,
     leadDaysMean: leads.length ? leads.reduce((a, b) => a + b, 0) / leads.length : null,
     leadDaysMin: leads.length ? Math.min(...leads) : null,
     leadDaysMax: leads.length ? Math.max(...leads) : null,
   })).sort((a, b) => a.code.localeCompare(b.code))
+  return { from: q.from, to: q.to, vendors }
 }

@@ -137,6 +137,7 @@ export default {
   archive_packed_too_tight: 'A part of the workbook is packed {ratio} to 1, far more than a real spreadsheet; it was refused.',
   sheet_empty: 'The file holds no rows.',
   sheet_columns: 'The columns do not match the template. Missing: {missing}. Not known: {unknown}.',
+  period_too_long: 'A report covers at most {max} months; choose a later start.',
   audit_export_too_large: 'These filters match {count} entries; a spreadsheet holds at most {max}. Narrow the days or choose a person or kind.',
   sheet_too_many_rows: 'The file has more than {max} rows; split it into smaller files.',
   sheet_too_many_columns: 'Row {row} has more than {max} columns.',

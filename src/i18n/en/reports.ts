@@ -1,4 +1,32 @@
 export default {
+  title: 'Reports',
+  export: 'Spreadsheet',
+  exported: 'Saved {file}.',
+  preparing: 'Preparing the spreadsheet',
+  received: 'Preparing the spreadsheet: {kb} KB received so far.',
+  period: 'Days',
+  from: 'From',
+  to: 'To',
+  empty: 'Nothing to show for these filters.',
+  chartOf: 'Chart of the table below: {table}',
+  tabs: { turns: 'Turns and days of supply', 'dead-stock': 'Dead and slow stock', usage: 'Usage by month', vendors: 'Vendors on time' },
+  blurbs: {
+    turns: 'For each family: the cost of what was issued and picked in the period against the average of the stock value at its start and end (each at moving-average cost), and how many days the average stock lasts at that rate.',
+    'dead-stock': 'Stock on hand that nobody used for a long time (dead), or that would last far longer than the limit at its recent use (slow), largest value first.',
+    usage: 'Units issued and picked each month, by family, in your time zone.',
+    vendors: 'Orders whose first delivery arrived in the period: how many came by their expected day, and the days from sending the order to that delivery.',
+  },
+  turns: {
+    used: 'Units used', usageValue: 'Cost of what was used', averageValue: 'Average stock value', turns: 'Turns', annualTurns: 'Turns a year', days: 'Days of supply',
+    total: 'All families over {days} days: {turns} turns, {supply} days of supply.',
+    how: 'Turns = cost of what was used ÷ average stock value; days of supply = days in the period ÷ turns.',
+  },
+  usage: { caption: 'Units used by family and month' },
+  vendors: { vendor: 'Vendor', orders: 'Orders received', onTimeRate: 'On time', lead: 'Lead time, days (least–most)', stated: 'Stated lead time' },
+  dead: {
+    deadDays: 'Dead after (days unused)', slowDays: 'Slow beyond (days of supply)', windowDays: 'Use measured over (days)',
+    kind: 'Kind', dead: 'Dead', slow: 'Slow', item: 'Item', onHand: 'On hand', lastUsed: 'Last used', never: 'Never',
+  },
   valuation: {
     title: 'Stock value',
     asOf: 'At the end of',

@@ -136,6 +136,7 @@ export default {
   archive_packed_too_tight: 'Una parte del libro está comprimida {ratio} a 1, mucho más que una hoja de cálculo real; se rechazó.',
   sheet_empty: 'El archivo no tiene filas.',
   sheet_columns: 'Las columnas no coinciden con la plantilla. Faltan: {missing}. Desconocidas: {unknown}.',
+  period_too_long: 'Un informe abarca como máximo {max} meses; elija un comienzo posterior.',
   audit_export_too_large: 'Estos filtros abarcan {count} entradas; una hoja de cálculo admite como máximo {max}. Acorte las fechas o elija una persona o un tipo.',
   sheet_too_many_rows: 'El archivo tiene más de {max} filas; divídalo en archivos más pequeños.',
   sheet_too_many_columns: 'La fila {row} tiene más de {max} columnas.',

@@ -1,4 +1,32 @@
 export default {
+  title: 'Informes',
+  export: 'Hoja de cálculo',
+  exported: 'Se guardó {file}.',
+  preparing: 'Preparando la hoja de cálculo',
+  received: 'Preparando la hoja de cálculo: {kb} KB recibidos hasta ahora.',
+  period: 'Días',
+  from: 'Desde',
+  to: 'Hasta',
+  empty: 'No hay nada que mostrar con estos filtros.',
+  chartOf: 'Gráfica de la tabla de abajo: {table}',
+  tabs: { turns: 'Rotación y días de existencia', 'dead-stock': 'Existencias sin movimiento y lentas', usage: 'Consumo por mes', vendors: 'Proveedores a tiempo' },
+  blurbs: {
+    turns: 'Por familia: el costo de lo entregado y preparado en el periodo frente al promedio del valor de las existencias al comienzo y al final (cada uno a costo promedio móvil), y cuántos días dura la existencia promedio a ese ritmo.',
+    'dead-stock': 'Existencias que nadie usó en mucho tiempo (sin movimiento) o que durarían mucho más que el límite a su uso reciente (lentas), de mayor a menor valor.',
+    usage: 'Unidades entregadas y preparadas cada mes, por familia, en su zona horaria.',
+    vendors: 'Órdenes cuya primera entrega llegó en el periodo: cuántas llegaron a su fecha prevista y los días desde el envío de la orden hasta esa entrega.',
+  },
+  turns: {
+    used: 'Unidades usadas', usageValue: 'Costo de lo usado', averageValue: 'Valor promedio', turns: 'Rotaciones', annualTurns: 'Rotaciones al año', days: 'Días de existencia',
+    total: 'Todas las familias en {days} días: {turns} rotaciones, {supply} días de existencia.',
+    how: 'Rotaciones = costo de lo usado ÷ valor promedio de las existencias; días de existencia = días del periodo ÷ rotaciones.',
+  },
+  usage: { caption: 'Unidades usadas por familia y mes' },
+  vendors: { vendor: 'Proveedor', orders: 'Órdenes recibidas', onTimeRate: 'A tiempo', lead: 'Plazo de entrega, días (mín.–máx.)', stated: 'Plazo declarado' },
+  dead: {
+    deadDays: 'Sin movimiento tras (días sin uso)', slowDays: 'Lenta desde (días de existencia)', windowDays: 'Uso medido en (días)',
+    kind: 'Tipo', dead: 'Sin movimiento', slow: 'Lenta', item: 'Artículo', onHand: 'En existencia', lastUsed: 'Último uso', never: 'Nunca',
+  },
   valuation: {
     title: 'Valor del inventario',
     asOf: 'Al cierre del',

@@ -65,6 +65,12 @@ export const purchasingRoutes: RouteRecordRaw[] = [
     meta: { area: 'purchasing', roles: AREA_ROLES.purchasing, title: 'reorder.abcTitle' },
   },
   {
+    path: '/purchasing/reports',
+    name: 'purchasing-reports',
+    component: () => import('@/views/purchasing/ReportsView.vue'),
+    meta: { area: 'purchasing', roles: AREA_ROLES.purchasing, title: 'reports.title' },
+  },
+  {
     path: '/purchasing/stock-value',
     name: 'purchasing-stock-value',
     component: () => import('@/views/purchasing/StockValueView.vue'),

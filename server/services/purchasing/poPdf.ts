@@ -1,22 +1,12 @@
 // A purchase order as a printable PDF (pdfkit, with the Open Sans shipped in @fontsource: nothing fetched):
 // who orders, bill-to and ship-to, the vendor, the dates, every line, and each made-to-order line's whole
 // specification under it. Prices only for callers who may see costs.
-import { createRequire } from 'node:module'
-import PDFDocument from 'pdfkit'
 import { formatMoney } from '../../../shared/money.js'
 import { costsVisible } from '../costVisibility.js'
+import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
 import { buyerLine, type PoPaper } from './poDocument.js'
 
-const require = createRequire(import.meta.url)
-export const FONT = require.resolve('@fontsource/open-sans/files/open-sans-latin-400-normal.woff')
-export const FONT_BOLD = require.resolve('@fontsource/open-sans/files/open-sans-latin-700-normal.woff')
-
-export const PDF_TYPE = 'application/pdf'
-
-const MARGIN = 48
-const INK = '#1d2b2a'
-const SOFT = '#5b6b69'
-const RULE = '#c9d6d4'
+export { PDF_TYPE } from '../exports/pdfSheet.js'
 
 /**
  * Text for a box `width` wide whose words fit it: a word wider than the box (an e-mail address, a web
@@ -40,24 +30,10 @@ export function breakLongWords(doc: PDFKit.PDFDocument, text: string, width: num
   }).join(' ')).join('\n')
 }
 
-interface Column {
-  header: string
-  width: number
-  align: 'left' | 'right'
-}
-
 export function poPdf(paper: PoPaper): Promise<Buffer> {
   const { po, company } = paper
-  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, bufferPages: true, info: { Title: `Purchase order ${po.number}`, Author: company.legalName || 'Lumenyard' } })
-  doc.registerFont('body', FONT)
-  doc.registerFont('bold', FONT_BOLD)
-  const chunks: Buffer[] = []
-  doc.on('data', (c: Buffer) => chunks.push(c))
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)))
-    doc.on('error', reject)
-  })
-  const width = doc.page.width - 2 * MARGIN
+  const sheet = openPdfSheet(`Purchase order ${po.number}`, company.legalName || 'Lumenyard')
+  const { doc, width } = sheet
   const money = (amount: string | undefined) => (amount === undefined ? '' : formatMoney(amount, { symbol: `${po.currency} ` }))
 
   // Title and who orders.
@@ -126,40 +102,18 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
   // The lines.
   const prices = costsVisible() && po.orderTotal !== undefined
   // Amounts without the currency code: the order states its currency once, above.
-  const columns: Column[] = [
+  const columns: PdfColumn[] = [
     { header: '#', width: 22, align: 'left' },
     { header: 'Our SKU / vendor SKU', width: 104, align: 'left' },
     { header: 'Description', width: prices ? 150 : width - 236, align: 'left' },
     { header: 'Packs', width: 50, align: 'right' },
     { header: 'Quantity', width: 60, align: 'right' },
-    ...(prices ? ([{ header: 'Unit cost', width: 60, align: 'right' }, { header: 'Line total', width: width - 446, align: 'right' }] as Column[]) : []),
+    ...(prices ? ([{ header: 'Unit cost', width: 60, align: 'right' }, { header: 'Line total', width: width - 446, align: 'right' }] as PdfColumn[]) : []),
   ]
-  const row = (cells: string[], font: 'body' | 'bold') => {
-    const y = doc.y
-    let x = MARGIN
-    let tallest = 0
-    doc.font(font).fontSize(9).fillColor(INK)
-    cells.forEach((text, i) => {
-      const c = columns[i]
-      tallest = Math.max(tallest, doc.heightOfString(text, { width: c.width - 6 }))
-      doc.text(text, x, y, { width: c.width - 6, align: c.align })
-      x += c.width
-    })
-    doc.x = MARGIN
-    doc.y = y + tallest + 4
-  }
-  const rule = () => doc.moveTo(MARGIN, doc.y).lineTo(MARGIN + width, doc.y).strokeColor(RULE).lineWidth(0.6).stroke()
-  const header = () => {
-    row(columns.map((c) => c.header), 'bold')
-    rule()
-    doc.y += 4
-  }
+  const { row, rule, header, keepRoom } = pdfTable(sheet, columns)
   header()
   for (const l of paper.lines) {
-    if (doc.y > doc.page.height - MARGIN - 80) {
-      doc.addPage()
-      header()
-    }
+    keepRoom(80)
     row([
       String(l.lineNo), [l.sku, l.vendorSku].filter(Boolean).join('\n'), l.description,
       `${l.packsOrdered} × ${l.packQty}`, `${l.qtyOrdered} ${l.stockUnit}`,
@@ -189,15 +143,5 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
   const closing = `Please confirm this order and its ship date, quoting ${po.number} on every delivery note and invoice${paper.replyTo ? `, by reply to:\n${paper.replyTo}` : '.'}`
   doc.text(breakLongWords(doc, closing, width), MARGIN, doc.y, { width })
 
-  // Page numbers on every page.
-  const range = doc.bufferedPageRange()
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i)
-    // Below the bottom margin: without lifting the margin pdfkit would start a new page for the footer.
-    doc.page.margins.bottom = 0
-    doc.font('body').fontSize(8).fillColor(SOFT)
-      .text(`${po.number} · page ${i + 1} of ${range.count}`, MARGIN, doc.page.height - MARGIN + 16, { width, align: 'right', lineBreak: false })
-  }
-  doc.end()
-  return done
+  return sheet.finish(po.number)
 }

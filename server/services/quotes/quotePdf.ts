@@ -1,18 +1,12 @@
 // A quote as a printable PDF, through the same PDF library and the same shipped Open Sans as the purchase
 // order: who quotes, for whom and which job, every line with quantity, unit price and extension, the tax
 // with its rate (or the exemption), the amount due, validity and terms, and the handling cautions.
-import PDFDocument from 'pdfkit'
 import { formatMoney } from '../../../shared/money.js'
 import type { CompanyProfile } from '../../../shared/schemas/purchasing.js'
 import type { QuoteDetail } from '../../../shared/schemas/quotes.js'
-import { FONT, FONT_BOLD, PDF_TYPE } from '../purchasing/poPdf.js'
+import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
 
-export { PDF_TYPE }
-
-const MARGIN = 48
-const INK = '#1d2b2a'
-const SOFT = '#5b6b69'
-const RULE = '#c9d6d4'
+export { PDF_TYPE } from '../exports/pdfSheet.js'
 
 /** The cautions every quote carries (heavy sections, cutting, wet areas), deferring to codes and licensed practice. */
 export const QUOTE_CAUTIONS =
@@ -21,16 +15,8 @@ export const QUOTE_CAUTIONS =
 
 export function quotePdf(quote: QuoteDetail, company: CompanyProfile): Promise<Buffer> {
   const title = `Quote ${quote.number}${quote.revision > 1 ? ` revision ${quote.revision}` : ''}`
-  const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, bufferPages: true, info: { Title: title, Author: company.legalName || 'Lumenyard' } })
-  doc.registerFont('body', FONT)
-  doc.registerFont('bold', FONT_BOLD)
-  const chunks: Buffer[] = []
-  doc.on('data', (c: Buffer) => chunks.push(c))
-  const done = new Promise<Buffer>((resolve, reject) => {
-    doc.on('end', () => resolve(Buffer.concat(chunks)))
-    doc.on('error', reject)
-  })
-  const width = doc.page.width - 2 * MARGIN
+  const sheet = openPdfSheet(title, company.legalName || 'Lumenyard')
+  const { doc, width } = sheet
   const money = (a: string) => formatMoney(a)
 
   doc.font('bold').fontSize(18).fillColor(INK).text(title)
@@ -52,40 +38,18 @@ export function quotePdf(quote: QuoteDetail, company: CompanyProfile): Promise<B
   }
   doc.y += 10
 
-  const columns = [
-    { header: '#', width: 22, align: 'left' as const },
-    { header: 'SKU', width: 96, align: 'left' as const },
-    { header: 'Description', width: width - 22 - 96 - 70 - 70 - 80, align: 'left' as const },
-    { header: 'Quantity', width: 70, align: 'right' as const },
-    { header: 'Unit price', width: 70, align: 'right' as const },
-    { header: 'Extension', width: 80, align: 'right' as const },
+  const columns: PdfColumn[] = [
+    { header: '#', width: 22, align: 'left' },
+    { header: 'SKU', width: 96, align: 'left' },
+    { header: 'Description', width: width - 22 - 96 - 70 - 70 - 80, align: 'left' },
+    { header: 'Quantity', width: 70, align: 'right' },
+    { header: 'Unit price', width: 70, align: 'right' },
+    { header: 'Extension', width: 80, align: 'right' },
   ]
-  const row = (cells: string[], font: 'body' | 'bold') => {
-    const y = doc.y
-    let x = MARGIN
-    let tallest = 0
-    doc.font(font).fontSize(9).fillColor(INK)
-    cells.forEach((text, i) => {
-      const c = columns[i]
-      tallest = Math.max(tallest, doc.heightOfString(text, { width: c.width - 6 }))
-      doc.text(text, x, y, { width: c.width - 6, align: c.align })
-      x += c.width
-    })
-    doc.x = MARGIN
-    doc.y = y + tallest + 4
-  }
-  const rule = () => doc.moveTo(MARGIN, doc.y).lineTo(MARGIN + width, doc.y).strokeColor(RULE).lineWidth(0.6).stroke()
-  const header = () => {
-    row(columns.map((c) => c.header), 'bold')
-    rule()
-    doc.y += 4
-  }
+  const { row, rule, header, keepRoom } = pdfTable(sheet, columns)
   header()
   for (const l of quote.lines) {
-    if (doc.y > doc.page.height - MARGIN - 120) {
-      doc.addPage()
-      header()
-    }
+    keepRoom(120)
     const qty = l.packs !== null ? `${l.packs} × ${l.packSize} = ${l.qty} ${l.stockUnit}` : `${l.qty} ${l.stockUnit}`
     const price = l.packPrice !== null ? `${money(l.packPrice)} / case` : money(l.unitPrice)
     row([String(l.lineNo), l.sku, l.description + (l.madeToOrder ? ' (made to order)' : ''), qty, price, money(l.extension)], 'body')
@@ -111,13 +75,5 @@ export function quotePdf(quote: QuoteDetail, company: CompanyProfile): Promise<B
   doc.font('bold').fontSize(9).fillColor(INK).text('Safety', MARGIN, doc.y, { width })
   doc.font('body').fontSize(9).fillColor(SOFT).text(QUOTE_CAUTIONS, { width })
 
-  const range = doc.bufferedPageRange()
-  for (let i = range.start; i < range.start + range.count; i++) {
-    doc.switchToPage(i)
-    doc.page.margins.bottom = 0
-    doc.font('body').fontSize(8).fillColor(SOFT)
-      .text(`${quote.number} · page ${i + 1} of ${range.count}`, MARGIN, doc.page.height - MARGIN + 16, { width, align: 'right', lineBreak: false })
-  }
-  doc.end()
-  return done
+  return sheet.finish(quote.number)
 }

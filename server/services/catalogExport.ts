@@ -6,6 +6,7 @@ import type { ItemFields, ItemListQuery } from '../../shared/schemas/catalog.js'
 import { listFilter, STOCK_JOIN } from './catalogQueries.js'
 import { columnOf, ITEM_COLUMNS, itemSheetColumns, MAX_IMPORT_ROWS, STOCK_SHEET_COLUMNS } from './catalogSheet.js'
 import { buildXlsx, sheet } from './exports/xlsxWriter.js'
+import { importGuideSheet } from './imports/importGuide.js'
 
 type ExportRow = Partial<Record<keyof ItemFields, string | number | boolean | null>> & { onHand: number; available: number }
 
@@ -42,27 +43,13 @@ const ALLOWED: Partial<Record<string, string>> = {
   listPrice: 'Up to 2 decimals, no currency sign',
 }
 
-interface GuideRow { header: string; required: string; kind: string; allowed: string }
-
 export async function itemImportTemplate(): Promise<Buffer> {
-  const guide: GuideRow[] = ITEM_COLUMNS.map((c) => ({
-    header: c.header,
-    required: c.required ? 'yes' : '',
-    kind: c.kind === 'decimal' ? 'number' : c.kind === 'integer' ? 'whole number' : c.kind === 'boolean' ? 'yes / no' : 'text',
-    allowed: ALLOWED[c.key] ?? (c.kind === 'boolean' ? 'yes or no; blank keeps the item’s value (a new item: no)' : ''),
-  }))
-  guide.push({ header: '(rows)', required: '', kind: '', allowed: `At most ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows per file. A row whose SKU exists updates that item.` })
   return buildXlsx(
     sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [] }),
-    sheet<GuideRow>({
-      name: 'Columns',
-      columns: [
-        { header: 'Column', kind: 'text', width: 18, value: (r) => r.header },
-        { header: 'Required', kind: 'text', value: (r) => r.required },
-        { header: 'Kind', kind: 'text', width: 14, value: (r) => r.kind },
-        { header: 'Allowed values', kind: 'text', width: 80, value: (r) => r.allowed },
-      ],
-      rows: guide,
-    }),
+    importGuideSheet(
+      ITEM_COLUMNS,
+      (c) => ALLOWED[c.key] ?? (c.kind === 'boolean' ? 'yes or no; blank keeps the item’s value (a new item: no)' : ''),
+      `At most ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows per file. A row whose SKU exists updates that item.`,
+    ),
   )
 }

@@ -3,7 +3,7 @@
 import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
 import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { DataImportDefinition } from './dataImports.js'
-import type { ImportSpec } from './importTypes.js'
+import { importGuideSheet } from './importGuide.js'
 import { OPENING_STOCK_GUIDE, openingStockImport } from './openingStockImport.js'
 import { USAGE_HISTORY_GUIDE, usageHistoryImport } from './usageHistoryImport.js'
 import { ACCOUNTS_GUIDE, accountsImport } from './accountsImport.js'
@@ -23,26 +23,12 @@ const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string
   purchase_orders: { tab: 'Open purchase orders', guide: PURCHASE_ORDERS_GUIDE },
 }
 
-interface GuideRow { header: string; required: string; kind: string; allowed: string }
-
-const kindWord = (k: ImportSpec['columns'][number]['kind']) => (k === 'decimal' ? 'number' : k === 'integer' ? 'whole number' : k === 'boolean' ? 'yes / no' : 'text')
-
 export async function dataImportTemplate(kind: DataImportKind): Promise<Buffer> {
   const { spec } = DATA_IMPORTS[kind]
   const { tab, guide } = GUIDES[kind]
-  const rows: GuideRow[] = spec.columns.map((c) => ({ header: c.header, required: c.required ? 'yes' : '', kind: kindWord(c.kind), allowed: guide[c.key] ?? '' }))
-  rows.push({ header: '(rows)', required: '', kind: '', allowed: `At most ${spec.maxRows.toLocaleString('en-US')} rows per file. The same file imported twice changes nothing the second time.` })
   return buildXlsx(
     sheet<never>({ name: tab, columns: spec.columns.map((c) => ({ header: c.header, kind: 'text', value: () => null })), rows: [] }),
-    sheet<GuideRow>({
-      name: 'Columns',
-      columns: [
-        { header: 'Column', kind: 'text', width: 18, value: (r) => r.header },
-        { header: 'Required', kind: 'text', value: (r) => r.required },
-        { header: 'Kind', kind: 'text', width: 14, value: (r) => r.kind },
-        { header: 'Allowed values', kind: 'text', width: 80, value: (r) => r.allowed },
-      ],
-      rows,
-    }),
+    importGuideSheet(spec.columns, (c) => guide[c.key] ?? '',
+      `At most ${spec.maxRows.toLocaleString('en-US')} rows per file. The same file imported twice changes nothing the second time.`),
   )
 }

@@ -1,6 +1,8 @@
 // What the imports of a business's own data look rows up against, read once per file in chunks:
 // items by SKU, warehouses by code (codes match without regard to case).
 import type { EntityManager } from 'typeorm'
+import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
+import { parsePackQuantity } from '../../../shared/inventory/packs.js'
 import type { ParsedSheet, RowIssue } from './importTypes.js'
 
 export interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
@@ -37,3 +39,20 @@ export function issuesByRow(sheet: ParsedSheet): (row: number) => RowIssue[] {
 
 /** A real calendar day written YYYY-MM-DD. */
 export const validDay = (t: string) => /^\d{4}-\d{2}-\d{2}$/.test(t) && !Number.isNaN(Date.parse(`${t}T00:00:00Z`)) && new Date(`${t}T00:00:00Z`).toISOString().startsWith(t)
+
+/**
+ * A quantity cell in the item's stock unit, packs allowed ("3 cases", "1 pallet 2 cases"): the quantity read
+ * (null when it can't be) and the problem to report on the row, if any.
+ */
+export function readImportQuantity(qtyText: string, item: ItemFacts, sku: string, max: number): { qty: number | null; problem: Problem | null } {
+  const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
+  if (read.ok) return { qty: read.qty, problem: read.qty > max ? problem('at_most', { max }) : null }
+  const text = qtyText.slice(0, 40)
+  const why = read.problem === 'whole_number' ? problem('import_qty_whole', { text })
+    : read.problem === 'not_negative' ? problem('import_qty_negative', { text })
+      : read.problem === 'unknown_pack' ? problem('import_qty_pack_word', { word: (read.word ?? '').slice(0, 20) })
+        : read.problem === 'no_case_size' ? problem('import_qty_no_case', { sku })
+          : read.problem === 'no_pallet_size' ? problem('import_qty_no_pallet', { sku })
+            : problem('import_qty_unreadable', { text })
+  return { qty: null, problem: why }
+}

@@ -3,12 +3,11 @@
 // through the stock service (stock/openingStock.ts) as 'opening' moves of the import's document.
 import type { EntityManager } from 'typeorm'
 import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
-import { parsePackQuantity } from '../../../shared/inventory/packs.js'
 import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
 import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, readImportQuantity, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -86,15 +85,9 @@ function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFact
     let qty: number | null = null
     const qtyText = text(r.values.quantity)
     if (qtyText && item) {
-      const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
-      if (read.ok) qty = read.qty
-      else if (read.problem === 'whole_number') add('quantity', problem('import_qty_whole', { text: qtyText.slice(0, 40) }))
-      else if (read.problem === 'not_negative') add('quantity', problem('import_qty_negative', { text: qtyText.slice(0, 40) }))
-      else if (read.problem === 'unknown_pack') add('quantity', problem('import_qty_pack_word', { word: (read.word ?? '').slice(0, 20) }))
-      else if (read.problem === 'no_case_size') add('quantity', problem('import_qty_no_case', { sku }))
-      else if (read.problem === 'no_pallet_size') add('quantity', problem('import_qty_no_pallet', { sku }))
-      else add('quantity', problem('import_qty_unreadable', { text: qtyText.slice(0, 40) }))
-      if (qty !== null && qty > 1_000_000_000) add('quantity', problem('at_most', { max: 1_000_000_000 }))
+      const read = readImportQuantity(qtyText, item, sku, 1_000_000_000)
+      qty = read.qty
+      if (read.problem) add('quantity', read.problem)
     }
     const cost = typeof r.values.unitCost === 'string' ? r.values.unitCost : null
     if (cost !== null && !bad.has('unitCost')) {

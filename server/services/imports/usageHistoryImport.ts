@@ -3,10 +3,9 @@
 // stock moves, so no balance changes. Reversing the import deletes its rows (nothing else writes them).
 import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { dayNumber } from '../../../shared/inventory/demand.js'
-import { parsePackQuantity } from '../../../shared/inventory/packs.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, issuesByRow, itemsBySku, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, issuesByRow, itemsBySku, readImportQuantity, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -82,15 +81,9 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
       let qty: number | null = null
       const qtyText = cellText(r.values.quantity)
       if (qtyText && item) {
-        const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
-        if (read.ok) qty = read.qty
-        else if (read.problem === 'whole_number') add('quantity', problem('import_qty_whole', { text: qtyText.slice(0, 40) }))
-        else if (read.problem === 'not_negative') add('quantity', problem('import_qty_negative', { text: qtyText.slice(0, 40) }))
-        else if (read.problem === 'unknown_pack') add('quantity', problem('import_qty_pack_word', { word: (read.word ?? '').slice(0, 20) }))
-        else if (read.problem === 'no_case_size') add('quantity', problem('import_qty_no_case', { sku }))
-        else if (read.problem === 'no_pallet_size') add('quantity', problem('import_qty_no_pallet', { sku }))
-        else add('quantity', problem('import_qty_unreadable', { text: qtyText.slice(0, 40) }))
-        if (qty !== null && qty > 100_000_000) add('quantity', problem('at_most', { max: 100_000_000 }))
+        const read = readImportQuantity(qtyText, item, sku, 100_000_000)
+        qty = read.qty
+        if (read.problem) add('quantity', read.problem)
       }
       if (item && warehouse && when) {
         const key = `${item.id}:${warehouse.id}:${when}`

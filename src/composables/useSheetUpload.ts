@@ -1,0 +1,65 @@
+import { computed, ref, shallowRef, type Ref } from 'vue'
+import { useI18n } from 'vue-i18n'
+import { ElMessage } from 'element-plus'
+import { isApiError } from '@/api/client'
+import { uploadWithProgress, type UploadHandle } from '@/api/fileTransfer'
+
+/**
+ * A spreadsheet sent to the server twice, first to be checked and then to be written: the chosen file, the
+ * upload's progress (sending, then working on the server), cancelling, and the failure worded per row.
+ * `pathOf` gives the route for each step; `words` is the message area with `cancelled` and `row`.
+ */
+export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => string, words: string) {
+  const { t } = useI18n()
+  const file = shallowRef<File | null>(null)
+  const preview = ref<P | null>(null) as Ref<P | null>
+  const phase = ref<'idle' | 'sending' | 'working'>('idle')
+  const step = ref<'preview' | 'commit'>('preview')
+  const progress = ref(0)
+  const failure = ref('')
+  let handle: UploadHandle<P> | null = null
+  const busy = computed(() => phase.value !== 'idle')
+
+  /** Forgets the file, its check and any failure (a new file chosen, or a new kind of import). */
+  function reset(next: File | null = null) {
+    file.value = next
+    preview.value = null
+    failure.value = ''
+  }
+
+  function choose(e: Event) {
+    reset((e.target as HTMLInputElement).files?.[0] ?? null)
+  }
+
+  async function send<T extends P = P>(which: 'preview' | 'commit'): Promise<T | null> {
+    if (!file.value || busy.value) return null
+    const form = new FormData()
+    form.append('file', file.value)
+    step.value = which
+    phase.value = 'sending'
+    progress.value = 0
+    failure.value = ''
+    handle = uploadWithProgress<P>(pathOf(which), form, (f) => {
+      progress.value = Math.round(f * 100)
+      if (f >= 1) phase.value = 'working'
+    })
+    try {
+      return (await handle.done) as T
+    } catch (err) {
+      if (isApiError(err) && err.code === 'aborted') ElMessage.info(t(`${words}.cancelled`))
+      else failure.value = isApiError(err) ? [err.message, ...Object.entries(err.fields).map(([row, text]) => `${t(`${words}.row`)} ${row}: ${text}`)].join('\n') : String(err)
+      return null
+    } finally {
+      phase.value = 'idle'
+      handle = null
+    }
+  }
+
+  async function check() {
+    preview.value = await send('preview')
+  }
+
+  const cancel = () => handle?.abort()
+
+  return { file, preview, phase, step, progress, failure, busy, reset, choose, send, check, cancel }
+}

@@ -114,13 +114,19 @@ export async function createBin(ds: DataSource, actor: AuditActor, warehouseId: 
   }
 }
 
+/** A bin of the warehouse, locked for a change; the transit bin belongs to transfers and is refused. */
+async function lockChangeableBin(em: EntityManager, warehouseId: number, binId: number): Promise<Bin> {
+  const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
+  if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+  if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
+  return bin
+}
+
 export async function updateBin(ds: DataSource, actor: AuditActor, warehouseId: number, binId: number, patch: BinPatch): Promise<BinRow> {
   try {
     return await inTransaction(ds, async (em) => {
       const w = await findWarehouse(em, warehouseId)
-      const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
-      if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
-      if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
+      const bin = await lockChangeableBin(em, warehouseId, binId)
       const next = { code: patch.code ?? bin.code, kind: patch.kind ?? bin.kind, active: patch.active ?? bin.active }
       checkBinCode(w, next.code, next.kind)
       if (!next.active && bin.active) await refuseIfStocked(em, bin)
@@ -142,9 +148,7 @@ export async function deleteBin(ds: DataSource, actor: AuditActor, warehouseId: 
   try {
     return await inTransaction(ds, async (em) => {
       const w = await findWarehouse(em, warehouseId)
-      const bin = await em.findOne(Bin, { where: { id: binId, warehouseId }, lock: { mode: 'pessimistic_write' } })
-      if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
-      if (bin.kind === 'transit') throw AppError.conflict('transit_bin_fixed', 'The transit bin belongs to transfers and cannot be changed.')
+      const bin = await lockChangeableBin(em, warehouseId, binId)
       // Tables that name a bin without a foreign key; the rest (balances, pick lines, receipts, counts) refuse the delete themselves.
       const [used] = await em.query(
         `SELECT EXISTS (SELECT 1 FROM stock_moves WHERE bin_id = ?) OR EXISTS (SELECT 1 FROM stock_reservations WHERE bin_id = ?)

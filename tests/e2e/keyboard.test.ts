@@ -135,6 +135,8 @@ describe('keyboard only', () => {
       await page.keyboard.press('Enter')
       await tabTo(page, '.nav-drawer a[data-area="warehouse"]')
       await enterTo(page, /\/warehouse$/)
+      // The drawer fades out after the link is followed; Tab only once it has gone, as a person would.
+      await page.locator('.el-overlay.is-drawer').waitFor({ state: 'hidden' })
       await tabTo(page, `[data-test="pick-${listId}"]`, { max: 120 })
       await page.keyboard.press('Enter')
       await page.waitForURL(new RegExp(`/warehouse/pick/${listId}$`))

@@ -49,7 +49,10 @@ export type Gs1Fields = Partial<Record<AiCode, string>>
 
 export interface Gs1Issue {
   ai: AiCode | null
+  /** English, for logs and for whoever reads the API. */
   message: string
+  /** Set on pairing breaches: the code a screen words in the reader's language. */
+  problem?: Problem
 }
 
 export interface ElementString {
@@ -117,31 +120,32 @@ export function checkFieldValue(ai: AiCode, value: string): string | null {
   return null
 }
 
-// Mutual exclusions and requirements among our AIs (GS1 Syntax Dictionary "ex" and "req" attributes).
-const EXCLUSIONS: readonly [AiCode, AiCode, string][] = [
-  ['01', '02', '(01) is a trade item\'s own GTIN, (02) the GTIN of the items inside a logistic unit'],
-  ['01', '37', 'a count belongs with (02) on a logistic unit, not with a trade item\'s (01)'],
+// Mutual exclusions and requirements among our AIs (GS1 Syntax Dictionary "ex" and "req" attributes). Each rule has
+// its code, so a screen words the breach in the reader's language; the English `why` is for logs and tests.
+const EXCLUSIONS: readonly { a: AiCode; b: AiCode; why: string; problem: Problem }[] = [
+  { a: '01', b: '02', why: '(01) is a trade item\'s own GTIN, (02) the GTIN of the items inside a logistic unit', problem: problem('scan_pair_gtin_and_contained') },
+  { a: '01', b: '37', why: 'a count belongs with (02) on a logistic unit, not with a trade item\'s (01)', problem: problem('scan_pair_count_with_gtin') },
 ]
-const REQUIREMENTS: readonly { ai: AiCode; anyOf: AiCode[]; why: string }[] = [
-  { ai: '02', anyOf: ['37'], why: 'how many of the contained item the unit holds' },
-  { ai: '37', anyOf: ['02'], why: 'which item is counted' },
-  { ai: '37', anyOf: ['00'], why: 'GS1 allows a count only on a logistic unit with its own SSCC' },
-  { ai: '10', anyOf: ['01', '02'], why: 'a lot means nothing without the item' },
-  { ai: '11', anyOf: ['01', '02'], why: 'a date means nothing without the item' },
-  { ai: '17', anyOf: ['01', '02'], why: 'a date means nothing without the item' },
-  { ai: '21', anyOf: ['01'], why: 'a serial number identifies one instance of a trade item' },
+const REQUIREMENTS: readonly { ai: AiCode; anyOf: AiCode[]; why: string; problem: Problem }[] = [
+  { ai: '02', anyOf: ['37'], why: 'how many of the contained item the unit holds', problem: problem('scan_pair_contained_needs_count') },
+  { ai: '37', anyOf: ['02'], why: 'which item is counted', problem: problem('scan_pair_count_needs_contained') },
+  { ai: '37', anyOf: ['00'], why: 'GS1 allows a count only on a logistic unit with its own SSCC', problem: problem('scan_pair_count_needs_sscc') },
+  { ai: '10', anyOf: ['01', '02'], why: 'a lot means nothing without the item', problem: problem('scan_pair_needs_item', { ai: '10' }) },
+  { ai: '11', anyOf: ['01', '02'], why: 'a date means nothing without the item', problem: problem('scan_pair_needs_item', { ai: '11' }) },
+  { ai: '17', anyOf: ['01', '02'], why: 'a date means nothing without the item', problem: problem('scan_pair_needs_item', { ai: '17' }) },
+  { ai: '21', anyOf: ['01'], why: 'a serial number identifies one instance of a trade item', problem: problem('scan_pair_serial_needs_gtin') },
 ]
 
-/** Breaches of GS1's pairing rules among the fields present. */
-export function checkPairings(fields: Gs1Fields): Gs1Issue[] {
+/** Breaches of GS1's pairing rules among the fields present: the English reason and the coded problem. */
+export function checkPairings(fields: Gs1Fields): (Gs1Issue & { problem: Problem })[] {
   const has = (ai: AiCode) => fields[ai] !== undefined
-  const issues: Gs1Issue[] = []
-  for (const [a, b, why] of EXCLUSIONS) {
-    if (has(a) && has(b)) issues.push({ ai: b, message: `${label(a)} and ${label(b)} cannot be in one barcode: ${why}` })
+  const issues: (Gs1Issue & { problem: Problem })[] = []
+  for (const { a, b, why, problem: coded } of EXCLUSIONS) {
+    if (has(a) && has(b)) issues.push({ ai: b, message: `${label(a)} and ${label(b)} cannot be in one barcode: ${why}`, problem: coded })
   }
-  for (const { ai, anyOf, why } of REQUIREMENTS) {
+  for (const { ai, anyOf, why, problem: coded } of REQUIREMENTS) {
     if (has(ai) && !anyOf.some(has)) {
-      issues.push({ ai, message: `${label(ai)} needs ${anyOf.map(label).join(' or ')}: ${why}` })
+      issues.push({ ai, message: `${label(ai)} needs ${anyOf.map(label).join(' or ')}: ${why}`, problem: coded })
     }
   }
   return issues

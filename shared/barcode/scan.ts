@@ -49,8 +49,8 @@ export type ScanClass =
       count?: number
       sscc?: string
       serial?: string
-      /** Breaches of GS1 pairing rules: the data is still readable, the screen decides whether to accept it. */
-      warnings: string[]
+      /** Breaches of GS1 pairing rules, coded: the data is still readable, the screen decides whether to accept it. */
+      warnings: Problem[]
     }
   | { kind: 'gtin'; gtin: string; scanned: string }
   | { kind: 'bin'; code: string }
@@ -110,7 +110,7 @@ function classifyGs1(fields: Gs1Fields): ScanClass {
     ...(count !== undefined && { count: Number(count) }),
     ...(fields['00'] !== undefined && { sscc: fields['00'] }),
     ...(fields['21'] !== undefined && { serial: fields['21'] }),
-    warnings: checkPairings(fields).map((issue) => issue.message),
+    warnings: checkPairings(fields).map((issue) => issue.problem),
   }
 }
 

@@ -339,6 +339,14 @@ export const ERROR_CODES = {
   scan_sscc_only: ['sscc'],
   scan_not_on_order: ['code'],
   scan_count_invalid: ['count'],
+  // GS1 pairing rules a scanned label breaks (warnings: the label is still read)
+  scan_pair_gtin_and_contained: [],
+  scan_pair_count_with_gtin: [],
+  scan_pair_contained_needs_count: [],
+  scan_pair_count_needs_contained: [],
+  scan_pair_count_needs_sscc: [],
+  scan_pair_needs_item: ['ai'],
+  scan_pair_serial_needs_gtin: [],
 
   // Pick lists
   pick_list_status: ['number', 'listStatus', 'pickAction'],

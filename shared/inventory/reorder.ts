@@ -6,6 +6,7 @@ import { isMoney, type Money } from '../money.js'
 import { roundUpToPack } from './packs.js'
 import { DAYS_PER_YEAR } from './demand.js'
 import { classifyLine, policyCeiling } from './reorderStatus.js'
+import { Working, type ReorderStep } from './reorderWords.js'
 
 export { classifyLine, policyCeiling } from './reorderStatus.js'
 
@@ -93,7 +94,10 @@ export type ReorderStatus = 'orderNow' | 'orderSoon' | 'overstocked' | 'deadStoc
 
 export interface Explanation {
   inputs: Record<string, number | string | null>
+  /** The working in English (logs, accepted suggestions). */
   steps: string[]
+  /** The same steps keyed with their figures, for screens in the reader's language (reorderWords.ts). */
+  words: ReorderStep[]
 }
 
 export interface ReorderResult {
@@ -216,25 +220,24 @@ function validate(input: ReorderInput): void {
 
 interface Targets { z: number; safetyStock: number; reorderPoint: number; orderUpToLevel: number | null }
 
-function computeTargets({ demand, policy }: ReorderInput, steps: string[] | null): Targets {
+function computeTargets({ demand, policy }: ReorderInput, steps: Working | null): Targets {
   const { meanDaily: d, sdDaily: sd } = demand
   const { leadTimeDays: L, leadTimeSdDays: sL, overrides = {} } = policy
   const z = zForServiceLevel(policy.serviceLevel)
-  steps?.push(`z = Φ⁻¹(${policy.serviceLevel}) = ${z.toFixed(4)}`)
+  steps?.add('z', { serviceLevel: policy.serviceLevel, z: z.toFixed(4) })
   let ss = safetyStock({ z, meanDaily: d, sdDaily: sd, leadTimeDays: L, leadTimeSdDays: sL })
-  steps?.push(sL === 0
-    ? `SS = z·σd·√L = ${z.toFixed(4)} × ${show(sd)} × √${show(L)} = ${show(ss)}`
-    : `SS = z·√(L·σd² + d̄²·σL²) = ${z.toFixed(4)} × √(${show(L)} × ${show(sd)}² + ${show(d)}² × ${show(sL)}²) = ${show(ss)}`)
+  if (sL === 0) steps?.add('safetyStock', { z: z.toFixed(4), sd: show(sd), L: show(L), ss: show(ss) })
+  else steps?.add('safetyStockLeadSpread', { z: z.toFixed(4), L: show(L), sd: show(sd), d: show(d), sL: show(sL), ss: show(ss) })
   if (overrides.safetyStock) {
     ss = overrides.safetyStock.value
-    steps?.push(`SS = ${show(ss)} (override: ${overrides.safetyStock.reason})`)
+    steps?.add('override', { symbol: 'SS', value: show(ss), reason: overrides.safetyStock.reason })
   }
   const ropRaw = reorderPointRaw(d, L, ss)
   let reorderPoint = ceilQty(ropRaw)
-  steps?.push(`ROP = d̄·L + SS = ${show(d)} × ${show(L)} + ${show(ss)} = ${show(ropRaw)} → ${reorderPoint}`)
+  steps?.add('reorderPoint', { d: show(d), L: show(L), ss: show(ss), raw: show(ropRaw), rop: reorderPoint })
   if (overrides.reorderPoint) {
     reorderPoint = ceilQty(overrides.reorderPoint.value)
-    steps?.push(`ROP = ${reorderPoint} (override: ${overrides.reorderPoint.reason})`)
+    steps?.add('override', { symbol: 'ROP', value: reorderPoint, reason: overrides.reorderPoint.reason })
   }
   let orderUpToLevel: number | null = null
   if (policy.method === 'orderUpTo') {
@@ -242,29 +245,28 @@ function computeTargets({ demand, policy }: ReorderInput, steps: string[] | null
     const ssP = z * Math.sqrt(P * sd ** 2 + d ** 2 * sL ** 2)
     const tRaw = d * P + ssP
     orderUpToLevel = ceilQty(tRaw)
-    steps?.push(`T = d̄·(R+L) + z·√((R+L)·σd² + d̄²·σL²) = ${show(d)} × ${show(P)} + ${show(ssP)} = ${show(tRaw)} → ${orderUpToLevel}`)
+    steps?.add('orderUpTo', { d: show(d), period: show(P), ssPeriod: show(ssP), raw: show(tRaw), level: orderUpToLevel })
     if (overrides.orderUpToLevel) {
       orderUpToLevel = ceilQty(overrides.orderUpToLevel.value)
-      steps?.push(`T = ${orderUpToLevel} (override: ${overrides.orderUpToLevel.reason})`)
+      steps?.add('override', { symbol: 'T', value: orderUpToLevel, reason: overrides.orderUpToLevel.reason })
     }
   }
   return { z, safetyStock: ss, reorderPoint, orderUpToLevel }
 }
 
-function computeLotSize({ demand, policy, unitCost, vendor }: ReorderInput, steps: string[] | null): { eoq: number | null; lotSize: number } {
+function computeLotSize({ demand, policy, unitCost, vendor }: ReorderInput, steps: Working | null): { eoq: number | null; lotSize: number } {
   const D = demand.meanDaily * DAYS_PER_YEAR
   const S = Number(policy.costPerOrder)
   const H = policy.holdingRatePerYear * Number(unitCost)
   const eoq = economicOrderQuantity({ annualDemand: D, costPerOrder: S, holdingCostPerUnit: H })
-  steps?.push(`D = d̄ × ${DAYS_PER_YEAR} = ${show(D)}; H = i × C = ${policy.holdingRatePerYear} × ${unitCost} = ${show(H, 4)}`)
-  steps?.push(eoq === null
-    ? 'EOQ undefined (H = 0): lot size from need, pack and minimum only'
-    : `EOQ = √(2DS/H) = √(2 × ${show(D)} × ${policy.costPerOrder} / ${show(H, 4)}) = ${show(eoq)}`)
+  steps?.add('annual', { year: DAYS_PER_YEAR, D: show(D), rate: policy.holdingRatePerYear, cost: unitCost, H: show(H, 4) })
+  if (eoq === null) steps?.add('eoqNone')
+  else steps?.add('eoq', { D: show(D), S: policy.costPerOrder, H: show(H, 4), eoq: show(eoq) })
   const override = policy.overrides?.orderQuantity
   const base = override ? override.value : (eoq ?? 0)
-  if (override) steps?.push(`Q = ${show(base)} (override: ${override.reason})`)
+  if (override) steps?.add('override', { symbol: 'Q', value: show(base), reason: override.reason })
   const lotSize = D === 0 && !override ? 0 : roundOrderQuantity(Math.max(base, 1), vendor)
-  if (vendor) steps?.push(`lot size = ${show(base)} → whole packs of ${vendor.packSize}, minimum ${vendor.minimumOrder} → ${lotSize}`)
+  if (vendor) steps?.add('lotSize', { base: show(base), pack: vendor.packSize, minimum: vendor.minimumOrder, lot: lotSize })
   return { eoq, lotSize }
 }
 
@@ -277,29 +279,27 @@ export interface ReorderOptions {
 export function reorderSuggestion(input: ReorderInput, options: ReorderOptions = {}): ReorderResult {
   validate(input)
   const { demand, stock, policy, vendor } = input
-  const steps: string[] | null = options.explain === false ? null : []
+  const steps: Working | null = options.explain === false ? null : new Working()
   const position = inventoryPosition(stock)
-  steps?.push(stock.pending
-    ? `position = on hand + on order + pending − reserved = ${stock.onHand} + ${stock.onOrder} + ${stock.pending} − ${stock.reserved} = ${position}`
-    : `position = on hand + on order − reserved = ${stock.onHand} + ${stock.onOrder} − ${stock.reserved} = ${position}`)
+  if (stock.pending) steps?.add('positionPending', { onHand: stock.onHand, onOrder: stock.onOrder, pending: stock.pending, reserved: stock.reserved, position })
+  else steps?.add('position', { onHand: stock.onHand, onOrder: stock.onOrder, reserved: stock.reserved, position })
   const targets = computeTargets(input, steps)
   const { eoq, lotSize } = computeLotSize(input, steps)
   const ceiling = policyCeiling({ ...targets, lotSize, method: policy.method, packSize: vendor?.packSize ?? 1, minimumOrder: vendor?.minimumOrder ?? 0 })
-  const status = classifyLine({ position, stock, demand, policy, reorderPoint: targets.reorderPoint, ceiling }, steps ?? [])
+  const status = classifyLine({ position, stock, demand, policy, reorderPoint: targets.reorderPoint, ceiling }, steps ?? undefined)
   let suggestedOrder = 0
   if (status === 'orderNow' || status === 'orderSoon') {
     const need = status === 'orderNow' ? targets.reorderPoint + 1 - position : 0
     const raw = policy.method === 'orderUpTo' ? (targets.orderUpToLevel ?? 0) - position : Math.max(lotSize, need)
     suggestedOrder = roundOrderQuantity(Math.max(raw, need), vendor)
-    steps?.push(policy.method === 'orderUpTo'
-      ? `order = T − position = ${targets.orderUpToLevel} − ${position} = ${show(raw)} → ${suggestedOrder}`
-      : `order = max(lot size, ROP + 1 − position) = max(${lotSize}, ${need}) → ${suggestedOrder}`)
+    if (policy.method === 'orderUpTo') steps?.add('orderToLevel', { level: targets.orderUpToLevel ?? 0, position, raw: show(raw), qty: suggestedOrder })
+    else steps?.add('orderLot', { lot: lotSize, need, qty: suggestedOrder })
   }
   const figures = {
     status, ...targets, eoq, lotSize, position, suggestedOrder,
     daysOfSupply: demand.meanDaily > 0 ? position / demand.meanDaily : null,
   }
-  if (steps) return { ...figures, explanation: { inputs: explanationInputs(input), steps } }
+  if (steps) return { ...figures, explanation: { inputs: explanationInputs(input), steps: steps.steps, words: steps.words } }
   let written: Explanation | undefined
   return Object.defineProperty(figures, 'explanation', {
     enumerable: true,

@@ -9,6 +9,7 @@
 //   ok          otherwise.
 import { roundUpToPack } from './packs.js'
 import type { DemandInput, ReorderPolicy, ReorderStatus, StockPosition } from './reorder.js'
+import type { Working } from './reorderWords.js'
 
 export interface CeilingInput {
   reorderPoint: number
@@ -41,28 +42,29 @@ export interface ClassifyInput {
 }
 
 /** The line's status; appends the deciding comparison to `steps`. */
-export function classifyLine(c: ClassifyInput, steps: string[] = []): ReorderStatus {
+export function classifyLine(c: ClassifyInput, steps?: Working): ReorderStatus {
   const { position, stock, demand, policy, reorderPoint: rop } = c
   const free = stock.onHand - stock.reserved
   const idle = demand.daysSinceLastUse
   if (free > 0 && (idle === null || idle >= policy.deadStockDays)) {
-    steps.push(`dead stock: ${free} unreserved and ${idle === null ? 'no use recorded' : `no use for ${idle} days`} (limit ${policy.deadStockDays})`)
+    if (idle === null) steps?.add('deadNoUse', { free, limit: policy.deadStockDays })
+    else steps?.add('deadIdle', { free, idle, limit: policy.deadStockDays })
     return 'deadStock'
   }
   if (position < 0 || (rop > 0 && position <= rop)) {
-    steps.push(`order now: position ${position} ≤ ROP ${rop}`)
+    steps?.add('orderNow', { position, rop })
     return 'orderNow'
   }
   const soonLimit = rop + demand.meanDaily * policy.soonDays
   if (demand.meanDaily > 0 && position <= soonLimit) {
-    steps.push(`order soon: position ${position} ≤ ROP + d̄ × ${policy.soonDays} days = ${soonLimit.toFixed(2)}`)
+    steps?.add('orderSoon', { position, days: policy.soonDays, limit: soonLimit.toFixed(2) })
     return 'orderSoon'
   }
   const overLimit = c.ceiling + Math.ceil(demand.meanDaily * policy.overstockMarginDays)
   if (position > overLimit) {
-    steps.push(`overstocked: position ${position} > ceiling ${c.ceiling} + d̄ × ${policy.overstockMarginDays} days = ${overLimit}`)
+    steps?.add('overstocked', { position, ceiling: c.ceiling, days: policy.overstockMarginDays, limit: overLimit })
     return 'overstocked'
   }
-  steps.push(`ok: ROP ${rop} < position ${position} ≤ ${overLimit}`)
+  steps?.add('ok', { rop, position, limit: overLimit })
   return 'ok'
 }

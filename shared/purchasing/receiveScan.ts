@@ -14,7 +14,7 @@ export interface ScanLine {
 }
 
 export type ReceivingScan =
-  | { kind: 'line'; poLineId: number; qty: number; lotCode: string | null; sscc: string | null; warnings: string[] }
+  | { kind: 'line'; poLineId: number; qty: number; lotCode: string | null; sscc: string | null; warnings: Problem[] }
   | { kind: 'bin'; code: string }
   /** `message` in English for logs; `problem` for the screen. */
   | { kind: 'error'; message: string; problem: Problem }

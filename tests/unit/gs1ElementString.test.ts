@@ -156,7 +156,7 @@ describe('pairing rules', () => {
   it('buildElementString refuses a breach and says why', () => {
     const built = buildElementString({ '01': GTIN, '37': '12' })
     expect(built.ok).toBe(false)
-    expect(!built.ok && built.errors[0]).toEqual({ ai: '37', message: expect.stringContaining('cannot be in one barcode') })
+    expect(!built.ok && built.errors[0]).toEqual({ ai: '37', message: expect.stringContaining('cannot be in one barcode'), problem: { code: 'scan_pair_count_with_gtin' } })
   })
 
   it('agrees with bwip-js on every combination of our AIs', () => {

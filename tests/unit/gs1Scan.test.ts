@@ -83,7 +83,9 @@ describe('classifyScan', () => {
     // source: GS1 Syntax Dictionary, 01 ex 37 (bwip-js barcode.ps, read)
     const scan = classifyScan(`]C101${GTIN}3712`)
     expect(scan.kind).toBe('gs1')
-    expect(scan.kind === 'gs1' && scan.warnings[0]).toMatch(/\(01\) GTIN and \(37\) count cannot be in one barcode/)
+    expect(scan.kind === 'gs1' && scan.warnings).toEqual([
+      { code: 'scan_pair_count_with_gtin' }, { code: 'scan_pair_count_needs_contained' }, { code: 'scan_pair_count_needs_sscc' },
+    ])
   })
 
   it('bare GTINs of every length, normalised to 14 digits', () => {

@@ -1,6 +1,7 @@
 // One stock line's figures: demand statistics from the SQL sums, the merged policy, and the shared reorder
 // math (reorderSuggestion) with its working, plus the demand step written out with the line's own numbers.
 import type { AbcClass } from '../../../shared/inventory/abc.js'
+import { Working } from '../../../shared/inventory/reorderWords.js'
 import { dateOfDayNumber, statsFromSums } from '../../../shared/inventory/demand.js'
 import { reorderSuggestion, type Explanation, type ReorderResult } from '../../../shared/inventory/reorder.js'
 import type { Money } from '../../../shared/money.js'
@@ -44,11 +45,11 @@ export function lineUnitCost(avgCost: string | undefined, vendor: VendorTermsRow
   return item.cost
 }
 
-function demandSteps(u: UsageFigures, days: number, mean: number, sd: number): string[] {
-  return [
-    `d̄ = Σx / n = ${fmt(u.sum)} / ${days} = ${fmt(mean)} (n counts every day of the window, ${u.daysWithUse} with use)`,
-    `σd = √((Σx² − (Σx)²/n) / (n − 1)) = √((${fmt(u.sumSquares)} − ${fmt(u.sum)}²/${days}) / ${days - 1}) = ${fmt(sd)}`,
-  ]
+function demandSteps(u: UsageFigures, days: number, mean: number, sd: number): Working {
+  const working = new Working()
+  working.add('demandMean', { sum: fmt(u.sum), days, mean: fmt(mean), withUse: u.daysWithUse })
+  working.add('demandSd', { sumSquares: fmt(u.sumSquares), sum: fmt(u.sum), days, daysLess: days - 1, sd: fmt(sd) })
+  return working
 }
 
 export function computeLine(
@@ -81,6 +82,7 @@ export function computeLine(
   const line = toLine(input, usage, result, stats.mean, stats.sdSample, window)
   // The list never reads the working: it stays unwritten there unless something asks for it.
   if (!explain) return { line, usage: figures, get explanation() { return result.explanation } }
+  const demand = demandSteps(figures, window.days, stats.mean, stats.sdSample)
   const explanation: Explanation = {
     inputs: {
       // where the lead time came from is the answer's own field (leadTime.source), worded by screens: no raw code here
@@ -88,7 +90,8 @@ export function computeLine(
       'looked back for last use (days)': lookbackDays,
       ...result.explanation.inputs,
     },
-    steps: [...demandSteps(figures, window.days, stats.mean, stats.sdSample), ...result.explanation.steps],
+    steps: [...demand.steps, ...result.explanation.steps],
+    words: [...demand.words, ...result.explanation.words],
   }
   return { line, usage: figures, explanation }
 }

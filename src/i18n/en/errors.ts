@@ -267,6 +267,13 @@ export default {
   scan_sscc_only: 'SSCC {sscc} alone does not say what is on the pallet: scan its content label ((02) with (37)).',
   scan_not_on_order: '{code} is not on this purchase order.',
   scan_count_invalid: 'A count of {count} units cannot be received.',
+  scan_pair_gtin_and_contained: 'This label holds both (01) and (02): (01) names a trade item, (02) the items inside a logistic unit.',
+  scan_pair_count_with_gtin: 'This label holds a count (37) beside a trade item\'s (01): a count belongs with (02) on a logistic unit.',
+  scan_pair_contained_needs_count: 'This label holds (02) without (37): it does not say how many of the item the unit holds.',
+  scan_pair_count_needs_contained: 'This label holds a count (37) without (02): it does not say which item is counted.',
+  scan_pair_count_needs_sscc: 'This label holds a count (37) without an SSCC (00): GS1 allows a count only on a logistic unit with its own SSCC.',
+  scan_pair_needs_item: 'This label holds ({ai}) without (01) or (02): it means nothing without the item.',
+  scan_pair_serial_needs_gtin: 'This label holds a serial number (21) without (01): a serial number names one piece of a trade item.',
 
   // Pick lists
   pick_list_status: 'Pick list {number} is {listStatus}, so it cannot be {pickAction}.',

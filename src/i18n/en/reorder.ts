@@ -1,3 +1,5 @@
+import { REORDER_STEPS_EN } from '../../../shared/inventory/reorderWords.js'
+
 export default {
   title: 'Reorder suggestions',
   blurb: 'Each line is one item in one warehouse: its position (on hand + on order − reserved) against a reorder point worked out from the last {days} days of issues and picks. Days without use count as zero. The minimums on Stock are a separate floor set by hand, so the “below minimum” count there differs from this list.',
@@ -127,4 +129,6 @@ export default {
     total: 'Total {total}',
     summary: '{c}: {count} items ({items} % of items), {value} ({share} % of value)',
   },
+  /** The drawer's working, step by step: one wording with the computation's own English. */
+  step: REORDER_STEPS_EN,
 }

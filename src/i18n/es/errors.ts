@@ -266,6 +266,13 @@ export default {
   scan_sscc_only: 'El SSCC {sscc} por sí solo no dice qué hay en el palé: escanee su etiqueta de contenido ((02) con (37)).',
   scan_not_on_order: '{code} no está en esta orden de compra.',
   scan_count_invalid: 'No se puede recibir una cantidad de {count} unidades.',
+  scan_pair_gtin_and_contained: 'Esta etiqueta lleva (01) y (02) a la vez: (01) indica un artículo comercial y (02) los artículos que contiene una unidad logística.',
+  scan_pair_count_with_gtin: 'Esta etiqueta lleva una cantidad (37) junto al (01) de un artículo comercial: la cantidad va con (02) en una unidad logística.',
+  scan_pair_contained_needs_count: 'Esta etiqueta lleva (02) sin (37): no dice cuántas unidades del artículo contiene.',
+  scan_pair_count_needs_contained: 'Esta etiqueta lleva una cantidad (37) sin (02): no dice qué artículo se cuenta.',
+  scan_pair_count_needs_sscc: 'Esta etiqueta lleva una cantidad (37) sin SSCC (00): GS1 solo admite una cantidad en una unidad logística con su propio SSCC.',
+  scan_pair_needs_item: 'Esta etiqueta lleva ({ai}) sin (01) ni (02): no significa nada sin el artículo.',
+  scan_pair_serial_needs_gtin: 'Esta etiqueta lleva un número de serie (21) sin (01): un número de serie identifica una pieza de un artículo comercial.',
 
   // Pick lists
   pick_list_status: 'La lista {number} está {listStatus}; no se puede {pickAction}.',

@@ -39,7 +39,7 @@ export function useReceiveDraft(context: () => ReceivingContext | null) {
   }
 
   /** Applies one scan: adds units to a row, or switches the bin; says what happened for the screen. */
-  function scan(raw: string): { kind: 'line'; sku: string; qty: number; lot: string | null; warnings: string[] } | { kind: 'bin'; code: string } | { kind: 'error'; problem: Problem } {
+  function scan(raw: string): { kind: 'line'; sku: string; qty: number; lot: string | null; warnings: Problem[] } | { kind: 'bin'; code: string } | { kind: 'error'; problem: Problem } {
     const result = readReceivingScan(raw, scanLines.value)
     if (result.kind === 'error') return { kind: 'error', problem: result.problem }
     if (result.kind === 'bin') {

@@ -63,9 +63,15 @@ export async function runIdempotent<T>(
   const hash = requestHash(req.scope, req.input)
   try {
     return await inTransaction(ds, async (em) => {
-      await em.insert(IdempotencyRecord, { userId: req.userId, key, scope: req.scope, requestHash: hash, responseStatus: 0, responseBody: 'null' })
+      // Plain SQL: the ORM's insert reads the row back for its generated columns, a statement per request.
+      await em.query(
+        "INSERT INTO idempotency_records (user_id, idem_key, scope, request_hash, response_status, response_body) VALUES (?, ?, ?, ?, 0, 'null')",
+        [req.userId, key, req.scope, hash],
+      )
       const answer = await work(em)
-      await em.update(IdempotencyRecord, { userId: req.userId, key }, { responseStatus: answer.status, responseBody: JSON.stringify(answer.body) })
+      await em.query('UPDATE idempotency_records SET response_status = ?, response_body = ? WHERE user_id = ? AND idem_key = ?', [
+        answer.status, JSON.stringify(answer.body), req.userId, key,
+      ])
       return { ...answer, replayed: false }
     })
   } catch (err) {

@@ -30,9 +30,13 @@ export interface ApiHarness {
 
 let hashed: string | null = null
 
-export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}): Promise<ApiHarness> {
+/**
+ * `pool` sets the app's own connection pool size below the configured minimum: with one connection every
+ * statement the app sends runs on it, so the test can read that connection's counters (SHOW SESSION STATUS).
+ */
+export async function startApiHarness(overrides: Partial<NodeJS.ProcessEnv> = {}, opts: { pool?: number } = {}): Promise<ApiHarness> {
   const config = loadConfig({ LUMENYARD_SIGNIN_FAILS_PER_IP: '100000', ...process.env, ...overrides })
-  const ds = createDataSource(config)
+  const ds = createDataSource(opts.pool ? { db: { ...config.db, pool: opts.pool } } : config)
   await ds.initialize()
   const built = createApp({ config, ds })
   const signedIn = new Map<string, supertest.Agent>()

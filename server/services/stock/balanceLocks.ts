@@ -3,7 +3,9 @@
 // upgrades):
 //   1. the Idempotency-Key record (inserted first, runIdempotent);
 //   2. the document's own rows (pick list, bill of materials, transfer, purchase order);
-//   3. bins and lots are only read under share locks and never changed by a stock operation;
+//   3. bins and lots are only read under share locks and never changed by a stock operation; an issue or an
+//      adjustment reads its items and cost rows in that same share-locked read (stockLookups.ts), so a
+//      receipt's exclusive cost-row lock (4) waits for it, and nothing holding a balance waits on it;
 //   4. item × warehouse cost rows (item_warehouses), sorted by (item, warehouse), exclusive;
 //   5. balance rows, sorted by (item, warehouse, bin, lot), exclusive; a receipt's moving-average read
 //      locks an item's whole warehouse at its place in that order (index ix_balance_item_wh_bin);

@@ -54,9 +54,10 @@ function checkQuantities(specs: readonly MoveSpec[]): void {
   }
 }
 
-export async function applyMoves(em: EntityManager, actor: StockActor, specs: readonly MoveSpec[]): Promise<AppliedMoves> {
+/** `preloaded`: the lookups the caller already loaded for exactly these moves (one read per operation). */
+export async function applyMoves(em: EntityManager, actor: StockActor, specs: readonly MoveSpec[], preloaded?: Lookups): Promise<AppliedMoves> {
   checkQuantities(specs)
-  const lookups = await loadLookups(em, specs)
+  const lookups = preloaded ?? (await loadLookups(em, specs))
   const keys = specs.map((s) => ({ ...s, warehouseId: lookups.bin(s.binId).warehouseId }))
   // Stock coming in at a cost blends into its warehouse's moving average: the cost rows first, then the
   // item's whole balance group there, all in the one lock order (balanceLocks.ts).

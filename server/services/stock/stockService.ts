@@ -6,8 +6,8 @@ import type { AdjustmentReason } from '../../../shared/catalog.js'
 import { Bin } from '../../entities/Bin.js'
 import { Lot } from '../../entities/Lot.js'
 import { AppError, problem } from '../../errors.js'
-import { currentAverage } from './averageCost.js'
 import { currentLotByCode } from './currentRows.js'
+import { loadLookups } from './stockLookups.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
 
 export type { DocRef, StockActor }
@@ -26,9 +26,8 @@ export interface ReceiptLine {
   docLineId?: number | null
 }
 
-async function storageBin(em: EntityManager, binId: number, warehouseId?: number): Promise<Bin> {
-  const bin = await em.findOneBy(Bin, { id: binId })
-  if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+/** A bin stock may be put into or taken from: in use, not a transit bin, in the given warehouse if one is named. */
+function checkStorageBin(bin: Bin, warehouseId?: number): Bin {
   if (!bin.active) throw AppError.conflict('bin_inactive', `Bin ${bin.code} is not in use.`, { params: { bin: bin.code } })
   // Stock in a transit bin is on its way, never available: it leaves only by receiving the transfer.
   if (bin.kind === 'transit') throw AppError.conflict('bin_in_transit', `Bin ${bin.code} holds stock in transit; receive the transfer to put it away.`, { params: { bin: bin.code } })
@@ -36,6 +35,12 @@ async function storageBin(em: EntityManager, binId: number, warehouseId?: number
     throw AppError.badRequest('bin_other_warehouse', `Bin ${bin.code} is in another warehouse.`, { params: { bin: bin.code } })
   }
   return bin
+}
+
+async function storageBin(em: EntityManager, binId: number, warehouseId?: number): Promise<Bin> {
+  const bin = await em.findOneBy(Bin, { id: binId })
+  if (!bin) throw AppError.notFound('bin_not_found', 'That bin was not found.')
+  return checkStorageBin(bin, warehouseId)
 }
 
 export async function findOrCreateLot(
@@ -105,22 +110,23 @@ export async function issue(
   input: { lines: IssueLine[]; doc?: DocRef; reason?: string | null; note?: string | null },
 ): Promise<AppliedMoves> {
   if (!input.lines.length) throw AppError.badRequest('lines_needed', 'An issue needs at least one line.')
-  const specs = []
-  for (const l of input.lines) {
-    const bin = await storageBin(em, l.binId)
-    specs.push({
+  // One read for every line's item, bin and cost row (stockLookups.ts), then the balances and the ledger.
+  const lookups = await loadLookups(em, input.lines, { costs: true })
+  const specs = input.lines.map((l) => {
+    const bin = checkStorageBin(lookups.bin(l.binId))
+    return {
       moveType: 'issue' as const,
       itemId: l.itemId,
       binId: l.binId,
       lotId: l.lotId,
       qty: -l.qty,
-      unitCost: await currentAverage(em, l.itemId, bin.warehouseId),
+      unitCost: lookups.averageCost(l.itemId, bin.warehouseId),
       doc: input.doc ? { ...input.doc, docLineId: l.docLineId ?? null } : null,
       reason: input.reason ?? null,
       note: input.note ?? null,
-    })
-  }
-  return applyMoves(em, actor, specs)
+    }
+  })
+  return applyMoves(em, actor, specs, lookups)
 }
 
 /** A counted, damaged, found or written-off difference in one bin. */
@@ -129,14 +135,12 @@ export async function adjust(
   actor: StockActor,
   input: { itemId: number; binId: number; lotId: number | null; delta: number; reason: AdjustmentReason; note?: string | null; doc?: DocRef },
 ): Promise<AppliedMoves> {
-  const bin = await storageBin(em, input.binId)
+  const lookups = await loadLookups(em, [input], { costs: true })
+  const bin = checkStorageBin(lookups.bin(input.binId))
   // Found units of an item matched by lot must say which lot they are: without one they could never be
   // picked with their run (tint) and would sit apart in a lot of their own.
-  if (input.reason === 'found' && input.lotId === null) {
-    const [item]: { match_lot: number }[] = await em.query('SELECT match_lot FROM items WHERE id = ?', [input.itemId])
-    if (item && Number(item.match_lot)) {
-      throw AppError.badRequest('lot_required', 'This item is matched by lot: choose the lot the found units belong to.', { fields: { lotId: problem('lot_required') } })
-    }
+  if (input.reason === 'found' && input.lotId === null && lookups.item(input.itemId).matchLot) {
+    throw AppError.badRequest('lot_required', 'This item is matched by lot: choose the lot the found units belong to.', { fields: { lotId: problem('lot_required') } })
   }
   return applyMoves(em, actor, [
     {
@@ -145,12 +149,12 @@ export async function adjust(
       binId: input.binId,
       lotId: input.lotId,
       qty: input.delta,
-      unitCost: await currentAverage(em, input.itemId, bin.warehouseId),
+      unitCost: lookups.averageCost(input.itemId, bin.warehouseId),
       reason: input.reason,
       note: input.note ?? null,
       doc: input.doc ?? null,
     },
-  ])
+  ], lookups)
 }
 
 /** From one bin to another in the same warehouse. */
@@ -160,11 +164,13 @@ export async function moveBetweenBins(
   input: { itemId: number; lotId: number | null; fromBinId: number; toBinId: number; qty: number; note?: string | null },
 ): Promise<AppliedMoves> {
   if (input.fromBinId === input.toBinId) throw AppError.badRequest('move_same_bin', 'Choose a different bin to move to.', { fields: { toBinId: problem('move_same_bin') } })
-  const from = await storageBin(em, input.fromBinId)
-  await storageBin(em, input.toBinId, from.warehouseId)
   const common = { moveType: 'bin_move' as const, itemId: input.itemId, lotId: input.lotId, note: input.note ?? null }
-  return applyMoves(em, actor, [
+  const specs = [
     { ...common, binId: input.fromBinId, qty: -input.qty },
     { ...common, binId: input.toBinId, qty: input.qty },
-  ])
+  ]
+  const lookups = await loadLookups(em, specs)
+  const from = checkStorageBin(lookups.bin(input.fromBinId))
+  checkStorageBin(lookups.bin(input.toBinId), from.warehouseId)
+  return applyMoves(em, actor, specs, lookups)
 }

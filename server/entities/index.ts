@@ -12,6 +12,7 @@ import { ItemWarehouse } from './ItemWarehouse.js'
 import { Lot } from './Lot.js'
 import { CustomerTerms, PriceLevel, PriceRuleRow, SalesTaxRate } from './Pricing.js'
 import { Quote, QuoteLine } from './Quote.js'
+import { Payment, SalesOrder, SalesOrderLine } from './SalesOrder.js'
 import { PickConfirmation, PickList, PickListLine, PickShortage, PickTransferProposal } from './PickList.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from './PurchaseOrder.js'
 import { PurchaseReceipt, PurchaseReceiptLine } from './PurchaseReceipt.js'
@@ -33,6 +34,9 @@ export const allEntities = [
   CustomerTerms,
   Quote,
   QuoteLine,
+  SalesOrder,
+  SalesOrderLine,
+  Payment,
   User,
   AuditEntry,
   Item,

@@ -284,6 +284,11 @@ export const ERROR_CODES = {
   bill_not_found: [],
   customer_email_missing: [],
   quote_mail_failed: ['detail'],
+  sales_order_not_found: [],
+  sales_order_wrong_status: ['orderStatus'],
+  payment_over_balance: ['due'],
+  cheque_number_needed: [],
+  deposit_not_paid: ['order', 'required', 'paid'],
 
   // Records looked up by id or code
   record_not_found: [],

@@ -110,6 +110,16 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/quotes/:id/offer': { access: ['admin', 'counter'] },
   'POST /api/quotes/:id/lose': { access: ['admin', 'counter'] },
   'GET /api/quotes/:id/pdf': { access: ['admin', 'counter', 'viewer'] },
+  // Sales orders: the counter takes quotes into orders, cancels them and records cash and cheque; the
+  // warehouse, the buyer (special orders) and viewers read them. The deposit on made-to-order lines is the admin's.
+  'GET /api/sales-orders': { access: EVERYONE },
+  'POST /api/sales-orders': { access: ['admin', 'counter'] },
+  'GET /api/sales-orders/:id': { access: EVERYONE },
+  'POST /api/sales-orders/:id/cancel': { access: ['admin', 'counter'] },
+  'GET /api/sales-orders/:id/payments': { access: EVERYONE },
+  'POST /api/sales-orders/:id/payments': { access: ['admin', 'counter'] },
+  'GET /api/sales-settings': { access: ['admin', 'counter'] },
+  'PATCH /api/sales-settings': { access: ['admin'] },
   // Counter: contractor accounts, jobs, takeoffs, bills (counter staff and admin; see DEVELOPERS.md).
   'GET /api/customers': { access: ['admin', 'counter'] },
   'POST /api/customers': { access: ['admin', 'counter'] },

@@ -62,6 +62,56 @@ async function chosenLines(em: EntityManager, jobId: number, bomLineIds: number[
   return locked.filter((l) => l.qty > l.orderedQty)
 }
 
+/** A made-to-order line to buy: what, how many, its specification and the bill line it came from. */
+export interface SpecialLine {
+  itemId: number
+  qty: number
+  specJson: string | null
+  bomLineId: number | null
+}
+
+/**
+ * One draft PO per vendor for special-order lines: each line its own PO line with its spec. `joinDraft`
+ * adds them to the vendor's open draft for the same ship-to and job; otherwise each vendor gets a new PO.
+ * Returns the PO ids and, per input line, its PO line id. A bill line's ordered quantity goes up.
+ */
+export async function orderSpecialLines(
+  em: EntityManager,
+  actor: AuditActor,
+  head: { warehouseId: number; jobId: number | null; notes: string; joinDraft: boolean; source: string },
+  lines: readonly SpecialLine[],
+  vendorId?: number | null,
+): Promise<{ poIds: number[]; poLineIds: number[] }> {
+  const itemIds = lines.map((l) => l.itemId)
+  const preferred = vendorId ? new Map() : await preferredVendors(em, itemIds)
+  const vendorOf = (l: SpecialLine): number | undefined => vendorId ?? preferred.get(l.itemId)?.vendorId
+  if (lines.some((l) => !vendorOf(l))) throw AppError.badRequest('vendor_needed', 'Choose a vendor: no vendor lists these items.', { fields: { vendorId: problem('vendor_needed') } })
+  const items = await loadItems(em, itemIds)
+  const poIds: number[] = []
+  const poLineIds: number[] = new Array<number>(lines.length)
+  for (const vid of [...new Set(lines.map((l) => vendorOf(l)!))]) {
+    const vendor = await em.findOneBy(Vendor, { id: vid })
+    if (!vendor) throw AppError.badRequest('vendor_not_found', 'Choose a vendor.', { fields: { vendorId: problem('vendor_not_found') } })
+    const mine = lines.map((l, i) => ({ l, i })).filter(({ l }) => vendorOf(l) === vid)
+    const priced = await vendorItemsFor(em, vid, mine.map(({ l }) => l.itemId))
+    const poLines: NewPoLine[] = mine.map(({ l }) => {
+      const vi = priced.get(l.itemId)
+      const packQty = vi?.packQty ?? 1
+      const item = items.get(l.itemId)!
+      return {
+        itemId: item.id, vendorSku: vi?.vendorSku ?? null, description: describeSpecial(item, l.specJson), packQty,
+        packsOrdered: packsFor(l.qty, packQty), unitCost: vi?.unitCost ?? item.cost, bomLineId: l.bomLineId, specJson: l.specJson,
+      }
+    })
+    const po = { vendorId: vid, warehouseId: head.warehouseId, jobId: head.jobId, expectedDate: addDays(leadDays(vendor, [...priced.values()])), notes: head.notes }
+    const made = (head.joinDraft ? await addToOpenDraft(em, actor, po, poLines, head.source) : null) ?? (await insertPo(em, actor, po, poLines, head.source))
+    mine.forEach(({ i }, k) => { poLineIds[i] = made.lineIds[k] })
+    for (const l of poLines) if (l.bomLineId) await em.increment(BomLine, { id: l.bomLineId }, 'orderedQty', l.packsOrdered * l.packQty)
+    poIds.push(made.po.id)
+  }
+  return { poIds, poLineIds }
+}
+
 /** One draft PO per vendor for the job's shower bases (or the chosen lines). */
 export async function createFromJob(em: EntityManager, actor: AuditActor, input: PoFromJobInput): Promise<number[]> {
   const job = await em.findOneBy(Job, { id: input.jobId })
@@ -72,34 +122,13 @@ export async function createFromJob(em: EntityManager, actor: AuditActor, input:
     throw AppError.badRequest('ship_to_needed', 'Choose the warehouse to ship to: this job has no pick list yet.', { fields: { warehouseId: problem('ship_to_needed') } })
   }
   const lines = await chosenLines(em, job.id, input.bomLineIds)
-  const itemIds = lines.map((l) => l.itemId!)
-  const preferred = input.vendorId ? new Map() : await preferredVendors(em, itemIds)
-  const vendorOf = (l: BomLine) => input.vendorId ?? preferred.get(l.itemId!)?.vendorId
-  const orphan = lines.filter((l) => !vendorOf(l))
-  if (orphan.length) throw AppError.badRequest('vendor_needed', 'Choose a vendor: no vendor lists these items.', { fields: { vendorId: problem('vendor_needed') } })
-  const items = await loadItems(em, itemIds)
-  const ids: number[] = []
-  for (const vendorId of [...new Set(lines.map((l) => vendorOf(l)!))]) {
-    const vendor = await em.findOneBy(Vendor, { id: vendorId })
-    if (!vendor) throw AppError.badRequest('vendor_not_found', 'Choose a vendor.', { fields: { vendorId: problem('vendor_not_found') } })
-    const mine = lines.filter((l) => vendorOf(l) === vendorId)
-    const priced = await vendorItemsFor(em, vendorId, mine.map((l) => l.itemId!))
-    const poLines: NewPoLine[] = mine.map((l) => {
-      const vi = priced.get(l.itemId!)
-      const packQty = vi?.packQty ?? 1
-      const item = items.get(l.itemId!)!
-      return {
-        itemId: item.id, vendorSku: vi?.vendorSku ?? null, description: describeSpecial(item, l.specJson), packQty,
-        packsOrdered: packsFor(l.qty - l.orderedQty, packQty), unitCost: vi?.unitCost ?? item.cost, bomLineId: l.id, specJson: l.specJson,
-      }
-    })
-    const due = job.dueDate ? ` (due ${isoDay(job.dueDate)})` : ''
-    const head = { vendorId, warehouseId, jobId: job.id, expectedDate: addDays(leadDays(vendor, [...priced.values()])), notes: `Special order for job ${job.name}${due}` }
-    const { po } = (await addToOpenDraft(em, actor, head, poLines, 'job')) ?? (await insertPo(em, actor, head, poLines, 'job'))
-    for (const l of poLines) await em.increment(BomLine, { id: l.bomLineId! }, 'orderedQty', l.packsOrdered * l.packQty)
-    ids.push(po.id)
-  }
-  return ids
+  const due = job.dueDate ? ` (due ${isoDay(job.dueDate)})` : ''
+  const { poIds } = await orderSpecialLines(
+    em, actor, { warehouseId, jobId: job.id, notes: `Special order for job ${job.name}${due}`, joinDraft: true, source: 'job' },
+    lines.map((l) => ({ itemId: l.itemId!, qty: l.qty - l.orderedQty, specJson: l.specJson, bomLineId: l.id })),
+    input.vendorId,
+  )
+  return poIds
 }
 
 /** What the counter sees on a job: its purchase lines with dates against the due date, and what is still to order. */

@@ -7,6 +7,7 @@ import { MAX_LINE_QTY } from '../../../shared/purchasing/poMoney.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { ensureDepositsPaid } from '../sales/salesDeposits.js'
 import { manualLines } from './poCreation.js'
 import { checkLineSizes, recomputeTotal } from './poWrite.js'
 
@@ -125,6 +126,7 @@ export async function approve(em: EntityManager, actor: AuditActor, id: number, 
 export async function markSent(em: EntityManager, actor: AuditActor, id: number, how: string): Promise<void> {
   const po = await lockPo(em, id)
   ensure('send', po)
+  await ensureDepositsPaid(em, id)
   await setStatus(em, actor, po, 'sent', { sentBy: actor.userId, sentAt: new Date(), sendError: null }, { how })
 }
 

@@ -15,6 +15,7 @@ import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { lockPo } from './poLifecycle.js'
 import { poDetail } from './poRead.js'
+import { ensureDepositsPaid } from '../sales/salesDeposits.js'
 import { XLSX_TYPE } from '../exports/xlsxWriter.js'
 import { poWorkbook } from './poSpreadsheet.js'
 import { poPaper, type PoPaper } from './poDocument.js'
@@ -141,6 +142,7 @@ export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor
   const paper = await poPaper(ds, poId, actor.userId)
   const { po } = paper
   ensureSendable(po)
+  if (po.status === 'approved') await ensureDepositsPaid(ds, poId)
   if (!paper.company.complete) {
     throw AppError.conflict('company_profile_missing', 'Fill in the company profile (Admin → Company profile) first: a vendor must see who orders and where to bill.')
   }

@@ -428,8 +428,14 @@ export default {
   bill_not_found: 'That bill of materials was not found.',
   customer_email_missing: 'This account has no e-mail address: enter one.',
   quote_mail_failed: 'The e-mail could not be sent ({detail}). The quote was not marked as offered; check the address and send again.',
+  sales_order_not_found: 'That sales order was not found. It may have been removed.',
+  sales_order_wrong_status: 'This cannot be done to a sales order that is {orderStatus}.',
+  payment_over_balance: 'That is more than is owed: {due} is still due on this order.',
+  cheque_number_needed: 'Enter the cheque number',
+  deposit_not_paid: 'The deposit on sales order {order} is not paid yet ({paid} of {required}): the special order waits for it.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {
+    orderStatus: { booked: 'booked', ready: 'ready', handed_over: 'handed over', cancelled: 'cancelled' },
     quoteStatus: { draft: 'a draft', offered: 'offered', taken: 'taken', lapsed: 'lapsed', lost: 'lost', replaced: 'replaced by a newer revision' },
     countStatus: { open: 'open', closed: 'closed', cancelled: 'cancelled' },
     listStatus: { draft: 'still a draft', released: 'released', picking: 'being picked', picked: 'already picked', cancelled: 'cancelled' },

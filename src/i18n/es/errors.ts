@@ -427,7 +427,13 @@ export default {
   bill_not_found: 'No se encontró esa lista de materiales.',
   customer_email_missing: 'Esta cuenta no tiene correo electrónico: escriba uno.',
   quote_mail_failed: 'No se pudo enviar el correo ({detail}). El presupuesto no se marcó como ofrecido; revise la dirección y envíe de nuevo.',
+  sales_order_not_found: 'No se encontró ese pedido de venta. Puede que se haya eliminado.',
+  sales_order_wrong_status: 'Esto no se puede hacer con un pedido de venta {orderStatus}.',
+  payment_over_balance: 'Es más de lo que se debe: quedan {due} por pagar en este pedido.',
+  cheque_number_needed: 'Escriba el número del cheque',
+  deposit_not_paid: 'El anticipo del pedido de venta {order} aún no está pagado ({paid} de {required}): el pedido especial lo espera.',
   values: {
+    orderStatus: { booked: 'registrado', ready: 'listo', handed_over: 'entregado', cancelled: 'anulado' },
     quoteStatus: { draft: 'borrador', offered: 'ofrecido', taken: 'aceptado', lapsed: 'vencido', lost: 'perdido', replaced: 'sustituido por una revisión más nueva' },
     countStatus: { open: 'abierto', closed: 'cerrado', cancelled: 'cancelado' },
     listStatus: { draft: 'todavía en borrador', released: 'liberada', picking: 'en preparación', picked: 'ya preparada', cancelled: 'cancelada' },

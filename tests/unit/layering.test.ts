@@ -62,6 +62,14 @@ describe('server layering', () => {
     expect(found).toEqual(KNOWN)
   })
 
+  it('the server and shared code never import the client (words both need live in shared/)', () => {
+    // common practice: the server builds without the client's sources; a shared word list has one home
+    const CLIENT = /from '(?:\.\.\/)+src\//
+    expect(CLIENT.test("import catalogEn from '../../../src/i18n/en/catalog.js'")).toBe(true)
+    const own = [...sources('server'), ...sources('shared')].filter((f) => CLIENT.test(f.text)).map((f) => f.path)
+    expect(own).toEqual([])
+  })
+
   it('LIKE wildcards are escaped in one place (server/db/likePattern.ts)', () => {
     const own = [...sources('server'), ...sources('shared')].filter((f) => /\[\\\\%_\]/.test(f.text)).map((f) => f.path)
     expect(own).toEqual(['server/db/likePattern.ts'])

@@ -4,8 +4,7 @@
 import type { Writable } from 'node:stream'
 import type { DataSource } from 'typeorm'
 import type { DeadStockQuery, DeadStockRow, PeriodQuery, TurnsRow, UsageCell, VendorRow } from '../../../shared/schemas/reports.js'
-import catalogEn from '../../../src/i18n/en/catalog.js'
-import catalogEs from '../../../src/i18n/es/catalog.js'
+import { familyName } from '../../../shared/familyNames.js'
 import { fieldsSheet, sheet, streamXlsx, type Field, type SheetColumn } from '../exports/xlsxWriter.js'
 import { deadAndSlowStock } from './deadStock.js'
 import { stockTurns } from './stockTurns.js'
@@ -30,8 +29,6 @@ const WORDS = {
     vendors: { name: 'Proveedores', code: 'Proveedor', vendor: 'Nombre', orders: 'Órdenes recibidas', withDate: 'Con fecha prevista', onTime: 'A tiempo', rate: 'Tasa a tiempo', mean: 'Plazo de entrega, promedio (días)', min: 'Mínimo (días)', max: 'Máximo (días)', stated: 'Plazo declarado (días)' },
   },
 } as const
-
-const FAMILIES: Record<Lang, Record<string, string>> = { en: catalogEn.families, es: catalogEs.families }
 
 export interface ReportExport {
   filename: string
@@ -68,7 +65,7 @@ export async function turnsExport(ds: DataSource, q: PeriodQuery & { lang: Lang 
     write: async (out) => {
       const report = await stockTurns(ds, q)
       const rows: Row[] = [
-        ...report.families.map((r) => ({ ...r, label: FAMILIES[q.lang][r.family] ?? r.family })),
+        ...report.families.map((r) => ({ ...r, label: familyName(q.lang, r.family) })),
         ...(report.total ? [{ ...report.total, label: w.total }] : []),
       ]
       const fields = [...periodFields(q.lang, q), { label: w.days, kind: 'integer' as const, value: report.days }, await warehouseField(ds, q.lang, q.warehouseId)]
@@ -80,7 +77,7 @@ export async function turnsExport(ds: DataSource, q: PeriodQuery & { lang: Lang 
 export async function usageExport(ds: DataSource, q: PeriodQuery & { lang: Lang }): Promise<ReportExport> {
   const w = WORDS[q.lang]
   const columns: SheetColumn<UsageCell>[] = [
-    { header: w.family, kind: 'text', value: (r) => FAMILIES[q.lang][r.family] ?? r.family },
+    { header: w.family, kind: 'text', value: (r) => familyName(q.lang, r.family) },
     { header: w.usage.month, kind: 'text', value: (r) => r.month },
     { header: w.usage.qty, kind: 'integer', value: (r) => r.qty },
     { header: w.usage.value, kind: 'money', value: (r) => r.usageValue, cost: true },
@@ -103,7 +100,7 @@ export async function deadStockExport(ds: DataSource, q: DeadStockQuery & { lang
     { header: wd.kind, kind: 'text', value: (r) => (r.kind === 'dead' ? wd.dead : wd.slow) },
     { header: wd.sku, kind: 'text', value: (r) => r.sku },
     { header: wd.item, kind: 'text', width: 34, value: (r) => r.name },
-    { header: w.family, kind: 'text', value: (r) => FAMILIES[q.lang][r.family] ?? r.family },
+    { header: w.family, kind: 'text', value: (r) => familyName(q.lang, r.family) },
     { header: w.warehouse, kind: 'text', value: (r) => r.warehouseCode },
     { header: wd.onHand, kind: 'integer', value: (r) => r.onHand },
     { header: wd.lastUsed, kind: 'date', value: (r) => r.lastUsedAt },

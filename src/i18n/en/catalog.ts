@@ -1,4 +1,6 @@
 // Catalog, item, import, warehouse and label screens.
+import { FAMILY_NAMES_EN } from '../../../shared/familyNames.js'
+
 export default {
   title: 'Catalog',
   tabs: { catalog: 'Catalog', warehouses: 'Warehouses and bins', labels: 'Labels', ledger: 'Stock movements' },
@@ -18,10 +20,7 @@ export default {
   truncated: 'Only the first {count} items are listed; narrow the filters to see the rest.',
   inactiveTag: 'deactivated',
   madeToOrderTag: 'made to order',
-  families: {
-    glass_block: 'Glass block', spacer: 'Spacer', arc_spacer: 'Arc spacer', sealant: 'Sealant', grout: 'Grout and mortar',
-    anchor: 'Anchor', fastener: 'Fastener', shower_base: 'Shower base', wall_section: 'Wall section', accessory: 'Accessory',
-  },
+  families: FAMILY_NAMES_EN,
   units: { each: 'each', tube: 'tube', bag: 'bag', piece: 'piece', foot: 'foot' },
   shapes: { square: 'Square', rectangle: 'Rectangle', end_finish: 'End finish', double_end_finish: 'Double end finish', corner: 'Corner', angle_45: '45° angle' },
   patterns: { clear: 'Clear', frosted: 'Frosted', wavy: 'Wavy', rippled: 'Rippled', fluted: 'Fluted', dimpled: 'Dimpled', prism: 'Prism', tinted: 'Tinted' },

@@ -1,4 +1,6 @@
 // Pantallas de catálogo, artículo, importación, almacenes y etiquetas. Las claves siguen a en/catalog.ts.
+import { FAMILY_NAMES_ES } from '../../../shared/familyNames.js'
+
 export default {
   title: 'Catálogo',
   tabs: { catalog: 'Catálogo', warehouses: 'Almacenes y ubicaciones', labels: 'Etiquetas', ledger: 'Libro de movimientos' },
@@ -18,10 +20,7 @@ export default {
   truncated: 'Solo se muestran los primeros {count} artículos; afine los filtros para ver el resto.',
   inactiveTag: 'desactivado',
   madeToOrderTag: 'a pedido',
-  families: {
-    glass_block: 'Bloque de vidrio', spacer: 'Separador', arc_spacer: 'Separador para curva', sealant: 'Sellador', grout: 'Boquilla y mortero',
-    anchor: 'Anclaje', fastener: 'Tornillería', shower_base: 'Base de regadera', wall_section: 'Sección de muro', accessory: 'Accesorio',
-  },
+  families: FAMILY_NAMES_ES,
   units: { each: 'pieza', tube: 'tubo', bag: 'bolsa', piece: 'tramo', foot: 'pie' },
   shapes: { square: 'Cuadrado', rectangle: 'Rectangular', end_finish: 'Remate', double_end_finish: 'Doble remate', corner: 'Esquinero', angle_45: 'Ángulo de 45°' },
   patterns: { clear: 'Claro', frosted: 'Esmerilado', wavy: 'Ondulado', rippled: 'Rizado', fluted: 'Acanalado', dimpled: 'Punteado', prism: 'Prisma', tinted: 'Entintado' },

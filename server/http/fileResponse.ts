@@ -1,4 +1,5 @@
 import type { Response } from 'express'
+import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 
 /** Answers with a file download; the handler then returns undefined (the response is written). */
 export function sendDownload(res: Response, file: { name: string; type: string; bytes: Buffer }): undefined {
@@ -6,4 +7,9 @@ export function sendDownload(res: Response, file: { name: string; type: string; 
   res.setHeader('Content-Disposition', `attachment; filename="${file.name.replace(/[^A-Za-z0-9._-]/g, '_')}"`)
   res.send(file.bytes)
   return undefined
+}
+
+/** Sends a workbook as a download; the file name is ours, never the user's text. */
+export function sendXlsx(res: Response, filename: string, body: Buffer): void {
+  sendDownload(res, { name: filename, type: XLSX_TYPE, bytes: body })
 }

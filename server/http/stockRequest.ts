@@ -1,14 +1,18 @@
 import type { Request, Response } from 'express'
 import type { EntityManager } from 'typeorm'
+import type { z } from 'zod'
 import type { AppContext } from '../context.js'
 import { AppError } from '../errors.js'
 import { runIdempotent } from '../services/idempotency.js'
+import type { Access, Method, RouteSpec } from './routeTable.js'
+import { parseBody } from './validate.js'
 
 /**
  * Runs a stock-changing request: one transaction (deadlock retried), honouring Idempotency-Key.
  * `input` is the request as the route's schema parsed it (never the raw body): the key's fingerprint is
  * taken of it, so fields the schema strips neither count nor cost anything to hash.
  * A replay answers with the stored status and body and the header Idempotent-Replayed: true.
+ * `status` may depend on the answer (201 when something was made, else 200).
  */
 export async function runStockRequest<T>(
   ctx: AppContext,
@@ -16,14 +20,51 @@ export async function runStockRequest<T>(
   res: Response,
   input: unknown,
   work: (em: EntityManager) => Promise<T>,
-  status = 200,
+  status: number | ((body: T) => number) = 200,
 ): Promise<void> {
   if (!req.user) throw AppError.unauthenticated()
   const answer = await runIdempotent(
     ctx.ds,
     { userId: req.user.id, key: req.get('idempotency-key') ?? undefined, scope: `${req.method} ${req.baseUrl}${req.path}`, input },
-    async (em) => ({ status, body: await work(em) }),
+    async (em) => {
+      const body = await work(em)
+      return { status: typeof status === 'function' ? status(body) : status, body }
+    },
   )
   if (answer.replayed) res.set('Idempotent-Replayed', 'true')
   res.status(answer.status).json(answer.body)
+}
+
+/** One request that changes stock or a document, as a route declares it (see stockStep). */
+export interface StockStep<S extends z.ZodType, T> {
+  /** Default 'post'. */
+  method?: Method
+  path: string
+  access: Access
+  /** The record's id from the path, read first, so a wrong id answers its own not-found before the body is read. */
+  id?: (req: Request) => number
+  /** The body's schema; without one the request carries no body (input null). */
+  body?: S
+  /** Default 200; may depend on the answer. */
+  status?: number | ((body: T) => number)
+  /** The change, inside the request's one transaction. */
+  run: (em: EntityManager, step: { req: Request; input: z.infer<S>; id: number }) => Promise<T>
+}
+
+/**
+ * The route for a stock-changing request: the route table checks access, then the path id and the body are
+ * parsed, then `run` goes through runStockRequest (one transaction, Idempotency-Key). Routes declare what
+ * they change; none repeats the sequence or sees the transaction's type.
+ */
+export function stockStep<S extends z.ZodType = z.ZodNull, T = unknown>(ctx: AppContext, spec: StockStep<S, T>): RouteSpec {
+  return {
+    method: spec.method ?? 'post',
+    path: spec.path,
+    access: spec.access,
+    handler: (req, res) => {
+      const id = spec.id ? spec.id(req) : 0
+      const input = (spec.body ? parseBody(spec.body, req.body) : null) as z.infer<S>
+      return runStockRequest(ctx, req, res, input, (em) => spec.run(em, { req, input, id }), spec.status)
+    },
+  }
 }

@@ -2,10 +2,10 @@ import { signInSchema } from '../../shared/schemas/auth.js'
 import { ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import type { AppContext } from '../context.js'
 import { AppError } from '../errors.js'
+import { authenticate, logIn, logOut } from '../http/session.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
 import { auditSignIn } from '../services/auditService.js'
-import { authenticate, logIn, logOut } from '../services/authService.js'
 import { recordSignIn, toSessionUser } from '../services/userService.js'
 
 export default (ctx: AppContext) =>

@@ -5,12 +5,12 @@ import { ADMIN_ONLY } from '../../shared/roles.js'
 import { isDataImportKind, type DataImportKind } from '../../shared/schemas/dataImports.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
+import { sendXlsx } from '../http/fileResponse.js'
 import { defineRoutes } from '../http/routeTable.js'
+import { receiveUpload } from '../http/upload.js'
 import { idParam } from '../http/validate.js'
-import { sendXlsx } from '../services/exports/xlsxWriter.js'
 import { commitImport, listImports, previewImport, reverseImport } from '../services/imports/dataImports.js'
 import { DATA_IMPORTS, dataImportTemplate } from '../services/imports/dataImportKinds.js'
-import { receiveUpload } from '../services/imports/uploadGuard.js'
 
 const admin = { roles: ADMIN_ONLY }
 

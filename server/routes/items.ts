@@ -2,13 +2,13 @@
 import { itemListQuerySchema, itemPatchSchema, itemSchema, lotUpdateSchema } from '../../shared/schemas/catalog.js'
 import { ADMIN_ONLY, ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import { actorOf, type AppContext } from '../context.js'
+import { sendXlsx } from '../http/fileResponse.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { exportItems, itemImportTemplate } from '../services/catalogExport.js'
 import { itemDetail, listItems, listLots, updateLot } from '../services/catalogQueries.js'
 import { createItem, deactivateItem, updateItem } from '../services/catalogService.js'
-import { sendXlsx } from '../services/exports/xlsxWriter.js'
-import { receiveUpload } from '../services/imports/uploadGuard.js'
+import { receiveUpload } from '../http/upload.js'
 import { commitItemImport, previewItemImport } from '../services/itemImport.js'
 
 const readers = { roles: ANYONE_SIGNED_IN }

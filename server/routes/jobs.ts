@@ -8,7 +8,7 @@ import { saveBom } from '../services/counter/bomService.js'
 import { createJob, getJob, listJobs, updateJob } from '../services/counter/jobService.js'
 import { importTakeoff } from '../services/counter/takeoffImport.js'
 import { createTakeoff } from '../services/counter/takeoffService.js'
-import { receiveUpload } from '../services/imports/uploadGuard.js'
+import { receiveUpload } from '../http/upload.js'
 
 /** A takeoff sheet is small: a few hundred rows at most. */
 const MAX_UPLOAD_BYTES = 2 * 1024 * 1024

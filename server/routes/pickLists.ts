@@ -1,5 +1,5 @@
 // Pick lists: made by the counter from a saved bill of materials, picked by the warehouse with a
-// scanner, completed into stock moves. Every state change runs through runStockRequest (one
+// scanner, completed into stock moves. Every state change is a stockStep (one
 // transaction, deadlock retry, Idempotency-Key).
 import type { Request } from 'express'
 import {
@@ -9,7 +9,7 @@ import {
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
-import { runStockRequest } from '../http/stockRequest.js'
+import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { cancelPickList, releasePickList } from '../services/picking/pickListStates.js'
 import { completePickList } from '../services/picking/pickCompletion.js'
@@ -48,91 +48,45 @@ export default (ctx: AppContext) =>
         return planView(ctx.ds.manager, plan)
       },
     },
-    {
-      method: 'post',
-      path: '/',
-      access: counter,
-      handler: (req, res) => {
-        const input = parseBody(pickCreateSchema, req.body)
-        return runStockRequest(ctx, req, res, input, async (em) => {
-          const { ids } = await createPickLists(em, actorOf(req), input)
-          return { ids, lists: await pickListSummaries(em, { ids, status: 'all' }) }
-        }, 201)
+    stockStep(ctx, {
+      path: '/', access: counter, body: pickCreateSchema, status: 201,
+      run: async (em, { req, input }) => {
+        const { ids } = await createPickLists(em, actorOf(req), input)
+        return { ids, lists: await pickListSummaries(em, { ids, status: 'all' }) }
       },
-    },
+    }),
     { method: 'get', path: '/:id', access: readers, handler: (req) => pickListDetail(ctx.ds.manager, listId(req)) },
-    {
-      method: 'post',
-      path: '/:id/release',
-      access: counter,
-      handler: (req, res) => {
-        const id = listId(req)
-        return runStockRequest(ctx, req, res, null, async (em) => {
-          await releasePickList(em, actorOf(req), id)
-          return { id, status: 'released' }
-        })
+    stockStep(ctx, {
+      path: '/:id/release', access: counter, id: listId,
+      run: async (em, { req, id }) => {
+        await releasePickList(em, actorOf(req), id)
+        return { id, status: 'released' }
       },
-    },
-    {
-      method: 'post',
-      path: '/:id/cancel',
-      access: counter,
-      handler: (req, res) => {
-        const id = listId(req)
-        const { reason } = parseBody(pickCancelSchema, req.body)
-        return runStockRequest(ctx, req, res, { reason }, async (em) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, reason ?? null)) }))
-      },
-    },
-    {
-      method: 'post',
-      path: '/:id/confirmations',
-      access: pickers,
-      handler: (req, res) => {
-        const id = listId(req)
-        const input = parseBody(pickConfirmSchema, req.body)
-        const key = confirmationKey(req)
-        return runStockRequest(ctx, req, res, input, (em) => confirmPick(em, actorOf(req), id, input, key), 201)
-      },
-    },
-    {
-      method: 'post',
-      path: '/:id/discards',
-      access: pickers,
-      handler: (req, res) => {
-        const id = listId(req)
-        const input = parseBody(pickDiscardSchema, req.body)
-        return runStockRequest(ctx, req, res, input, (em) => discardConfirmation(em, actorOf(req), id, input))
-      },
-    },
-    {
+    }),
+    stockStep(ctx, {
+      path: '/:id/cancel', access: counter, id: listId, body: pickCancelSchema,
+      run: async (em, { req, input, id }) => ({ id, status: 'cancelled', ...(await cancelPickList(em, actorOf(req), id, input.reason ?? null)) }),
+    }),
+    stockStep(ctx, {
+      // The handheld's own key is required: a resend of the same confirmation is answered, never applied again.
+      path: '/:id/confirmations', access: pickers, id: listId, body: pickConfirmSchema, status: 201,
+      run: (em, { req, input, id }) => confirmPick(em, actorOf(req), id, input, confirmationKey(req)),
+    }),
+    stockStep(ctx, {
+      path: '/:id/discards', access: pickers, id: listId, body: pickDiscardSchema,
+      run: (em, { req, input, id }) => discardConfirmation(em, actorOf(req), id, input),
+    }),
+    stockStep(ctx, {
       // A line closed short: found on a recount, backordered or substituted (the counter or the warehouse).
-      method: 'post',
-      path: '/:id/short-resolutions',
-      access: readers,
-      handler: (req, res) => {
-        const id = listId(req)
-        const input = parseBody(pickShortResolveSchema, req.body)
-        return runStockRequest(ctx, req, res, input, (em) => resolveShort(em, actorOf(req), id, input))
-      },
-    },
-    {
-      method: 'post',
-      path: '/:id/complete',
-      access: pickers,
-      handler: (req, res) => {
-        const id = listId(req)
-        const input = parseBody(pickCompleteSchema, req.body)
-        return runStockRequest(ctx, req, res, input, async (em) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }))
-      },
-    },
-    {
-      method: 'post',
-      path: '/:id/transfers/ship',
-      access: pickers,
-      handler: (req, res) => {
-        const id = listId(req)
-        const { fromWarehouseId } = parseBody(pickShipSchema, req.body)
-        return runStockRequest(ctx, req, res, { fromWarehouseId }, (em) => shipProposedTransfer(em, actorOf(req), id, fromWarehouseId), 201)
-      },
-    },
+      path: '/:id/short-resolutions', access: readers, id: listId, body: pickShortResolveSchema,
+      run: (em, { req, input, id }) => resolveShort(em, actorOf(req), id, input),
+    }),
+    stockStep(ctx, {
+      path: '/:id/complete', access: pickers, id: listId, body: pickCompleteSchema,
+      run: async (em, { req, input, id }) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }),
+    }),
+    stockStep(ctx, {
+      path: '/:id/transfers/ship', access: pickers, id: listId, body: pickShipSchema, status: 201,
+      run: (em, { req, input, id }) => shipProposedTransfer(em, actorOf(req), id, input.fromWarehouseId),
+    }),
   ])

@@ -1,9 +1,9 @@
 import { passwordChangeSchema, profileUpdateSchema } from '../../shared/schemas/auth.js'
 import { ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import { actorOf, type AppContext } from '../context.js'
+import { logIn } from '../http/session.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
-import { logIn } from '../services/authService.js'
 import { changePassword, ownUser, updateProfile } from '../services/userService.js'
 
 const signedIn = { roles: ANYONE_SIGNED_IN }

@@ -5,7 +5,7 @@ import { poSendSchema, receiveSchema } from '../../shared/schemas/purchasing.js'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
-import { runStockRequest } from '../http/stockRequest.js'
+import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody } from '../http/validate.js'
 import { sendPurchaseOrder } from '../services/purchasing/poMail.js'
 import { poDetail } from '../services/purchasing/poRead.js'
@@ -38,12 +38,8 @@ export default (ctx: AppContext) =>
         return receiptsOfPo(ctx.ds, id)
       },
     },
-    {
-      method: 'post', path: '/:id/receipts', access: allow('admin', 'warehouse'),
-      handler: (req, res) => {
-        const id = poId(req)
-        const input = parseBody(receiveSchema, req.body)
-        return runStockRequest(ctx, req, res, input, (em) => receivePurchaseOrder(em, actorOf(req), id, input), 201)
-      },
-    },
+    stockStep(ctx, {
+      path: '/:id/receipts', access: allow('admin', 'warehouse'), id: poId, body: receiveSchema, status: 201,
+      run: (em, { req, input, id }) => receivePurchaseOrder(em, actorOf(req), id, input),
+    }),
   ])

@@ -1,19 +1,19 @@
 // Purchase orders: list and read (warehouse too, without costs unless allowed), create from accepted
 // suggestions, a job's special orders or by hand, edit drafts, approve, mark sent, cancel, close, export.
 import type { Request } from 'express'
-import type { EntityManager } from 'typeorm'
 import {
   poApproveSchema, poExportQuerySchema, poFromJobSchema, poFromSuggestionsSchema, poLineInputSchema, poListQuerySchema, poManualSchema, poReasonSchema,
   poUpdateSchema, suggestionUpdateSchema,
 } from '../../shared/schemas/purchasing.js'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
-import { inTransaction } from '../db/transaction.js'
 import { sendDownload } from '../http/fileResponse.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
-import { createFromSuggestions, createManual } from '../services/purchasing/poCreation.js'
-import { createFromJob, specialOrderJobs } from '../services/purchasing/jobPurchasing.js'
+import { specialOrderJobs } from '../services/purchasing/jobPurchasing.js'
+import {
+  changeOrder, changeSuggestion, createOrder, createOrdersFromJob, createOrdersFromSuggestions, dismissAcceptedSuggestion,
+} from '../services/purchasing/poCommands.js'
 import { addLine, approve, cancel, close, markSent, removeLine, updateDraft } from '../services/purchasing/poLifecycle.js'
 import { listPurchaseOrders, poDetail } from '../services/purchasing/poRead.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
@@ -21,7 +21,6 @@ import { multiPoWorkbook, poWorkbook } from '../services/purchasing/poSpreadshee
 import { poPaper } from '../services/purchasing/poDocument.js'
 import { PDF_TYPE, poPdf } from '../services/purchasing/poPdf.js'
 import { acceptedSuggestions } from '../services/purchasing/suggestionsRead.js'
-import { dismissSuggestion, updateSuggestion } from '../services/purchasing/suggestionEdits.js'
 
 const buyers = allow('admin', 'buyer')
 const readers = allow('admin', 'buyer', 'warehouse')
@@ -29,14 +28,8 @@ const poId = (req: Request) => idParam(req.params.id, 'po_not_found')
 const suggestionId = (req: Request) => idParam(req.params.suggestionId, 'suggestion_not_found')
 
 export default (ctx: AppContext) => {
-  const detail = (_req: Request, id: number) => poDetail(ctx.ds, id)
-  const details = async (req: Request, ids: number[]) => Promise.all(ids.map((id) => detail(req, id)))
-  /** A status change or edit in one transaction, answering the order as it is now. */
-  const change = async (req: Request, work: (em: EntityManager, id: number) => Promise<void>) => {
-    const id = poId(req)
-    await inTransaction(ctx.ds, (em) => work(em, id))
-    return detail(req, id)
-  }
+  /** A status change or edit of the order in the path, answering the order as it is now. */
+  const change = (req: Request, work: Parameters<typeof changeOrder>[2]) => changeOrder(ctx.ds, poId(req), work)
   return defineRoutes('/purchase-orders', [
     {
       method: 'get', path: '/', access: readers,
@@ -45,18 +38,14 @@ export default (ctx: AppContext) => {
     { method: 'get', path: '/suggestions', access: buyers, handler: () => acceptedSuggestions(ctx.ds) },
     {
       method: 'patch', path: '/suggestions/:suggestionId', access: buyers,
-      handler: async (req) => {
+      handler: (req) => {
         const input = parseBody(suggestionUpdateSchema, req.body)
-        await inTransaction(ctx.ds, (em) => updateSuggestion(em, actorOf(req), suggestionId(req), input))
-        return acceptedSuggestions(ctx.ds)
+        return changeSuggestion(ctx.ds, actorOf(req), suggestionId(req), input)
       },
     },
     {
       method: 'post', path: '/suggestions/:suggestionId/dismiss', access: buyers,
-      handler: async (req) => {
-        await inTransaction(ctx.ds, (em) => dismissSuggestion(em, actorOf(req), suggestionId(req)))
-        return acceptedSuggestions(ctx.ds)
-      },
+      handler: (req) => dismissAcceptedSuggestion(ctx.ds, actorOf(req), suggestionId(req)),
     },
     { method: 'get', path: '/special-orders', access: buyers, handler: () => specialOrderJobs(ctx.ds) },
     {
@@ -69,26 +58,17 @@ export default (ctx: AppContext) => {
     },
     {
       method: 'post', path: '/', access: buyers, status: 201,
-      handler: async (req) => {
-        const input = parseBody(poManualSchema, req.body)
-        return detail(req, await inTransaction(ctx.ds, (em) => createManual(em, actorOf(req), input)))
-      },
+      handler: (req) => createOrder(ctx.ds, actorOf(req), parseBody(poManualSchema, req.body)),
     },
     {
       method: 'post', path: '/from-suggestions', access: buyers, status: 201,
-      handler: async (req) => {
-        const input = parseBody(poFromSuggestionsSchema, req.body)
-        return details(req, await inTransaction(ctx.ds, (em) => createFromSuggestions(em, actorOf(req), input)))
-      },
+      handler: (req) => createOrdersFromSuggestions(ctx.ds, actorOf(req), parseBody(poFromSuggestionsSchema, req.body)),
     },
     {
       method: 'post', path: '/from-job', access: buyers, status: 201,
-      handler: async (req) => {
-        const input = parseBody(poFromJobSchema, req.body)
-        return details(req, await inTransaction(ctx.ds, (em) => createFromJob(em, actorOf(req), input)))
-      },
+      handler: (req) => createOrdersFromJob(ctx.ds, actorOf(req), parseBody(poFromJobSchema, req.body)),
     },
-    { method: 'get', path: '/:id', access: readers, handler: (req) => detail(req, poId(req)) },
+    { method: 'get', path: '/:id', access: readers, handler: (req) => poDetail(ctx.ds, poId(req)) },
     {
       method: 'get', path: '/:id/export', access: buyers,
       handler: async (req, res) => {

@@ -5,8 +5,8 @@ import {
 } from '../../shared/schemas/reorder.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
+import { runStockRequest } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
-import { runIdempotent } from '../services/idempotency.js'
 import { prepareAccept } from '../services/reorder/acceptSuggestions.js'
 import { deletePolicy, listPolicies, savePolicy } from '../services/reorder/policyService.js'
 import { abcPareto, lineDetail, reorderChoices, suggestionList } from '../services/reorder/suggestionList.js'
@@ -38,18 +38,9 @@ export default (ctx: AppContext) =>
       access: buyers,
       handler: async (req, res) => {
         const input = parseBody(acceptSchema, req.body)
-        const actor = actorOf(req)
+        // The lines are worked out before the transaction; the write takes them in it (Idempotency-Key honoured).
         const write = await prepareAccept(ctx.ds, input)
-        const answer = await runIdempotent(
-          ctx.ds,
-          { userId: actor.userId, key: req.get('idempotency-key') ?? undefined, scope: 'POST /api/reorder/accept', input },
-          async (em) => {
-            const body = await write(em, actor)
-            return { status: body.accepted.length ? 201 : 200, body }
-          },
-        )
-        if (answer.replayed) res.set('Idempotent-Replayed', 'true')
-        res.status(answer.status).json(answer.body)
+        return runStockRequest(ctx, req, res, input, (em) => write(em, actorOf(req)), (body) => (body.accepted.length ? 201 : 200))
       },
     },
     { method: 'get', path: '/policies', access: buyers, handler: () => listPolicies(ctx.ds) },

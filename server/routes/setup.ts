@@ -7,7 +7,7 @@ import { AppError } from '../errors.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { parseBody } from '../http/validate.js'
 import { companyLogo, setCompanyLogo } from '../services/companyProfile.js'
-import { receiveImage } from '../services/imports/uploadGuard.js'
+import { receiveImage } from '../http/upload.js'
 import { dismissSetup, saveGs1Prefix, saveSetupUnits, setupState } from '../services/setupChecklist.js'
 
 const admin = { roles: ADMIN_ONLY }

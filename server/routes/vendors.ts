@@ -9,7 +9,7 @@ import {
   addVendorItem, createVendor, getVendor, listVendorItems, listVendors, removeVendorItem, updateVendor, updateVendorItem,
 } from '../services/purchasing/vendorService.js'
 import { commitPriceList, previewPriceList, priceListTemplate } from '../services/purchasing/priceListImport.js'
-import { receiveUpload } from '../services/imports/uploadGuard.js'
+import { receiveUpload } from '../http/upload.js'
 import { sendDownload } from '../http/fileResponse.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
 

@@ -1,18 +1,14 @@
 import bcrypt from 'bcryptjs'
-import type { Request, Response, NextFunction } from 'express'
-import passport from 'passport'
-import { Strategy as LocalStrategy } from 'passport-local'
 import type { DataSource } from 'typeorm'
 import type { SessionUser } from '../../shared/schemas/auth.js'
 import { rolesTransformer, User } from '../entities/User.js'
 import { sessionUserColumns, userReadWithSession, type SessionUserRow } from '../db/sessionStore.js'
-import { AppError } from '../errors.js'
 import { toSessionUser } from './userService.js'
 
 // Compared against when the user name is unknown, so timing doesn't tell which names exist.
 const DUMMY_HASH = bcrypt.hashSync('lumenyard-no-such-user', 12)
 
-interface SessionRef {
+export interface SessionRef {
   id: number
   epoch: number
 }
@@ -30,75 +26,26 @@ function sessionUserOf(row: SessionUserRow): SessionUser {
   } as User)
 }
 
-export function configurePassport(ds: DataSource): passport.PassportStatic {
-  const pp = new passport.Passport()
-  pp.use(
-    new LocalStrategy(async (username, password, done) => {
-      try {
-        const user = await ds.getRepository(User).findOneBy({ username: username.trim().toLowerCase() })
-        const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH)
-        if (!user || !ok || !user.active) return done(null, false)
-        done(null, user)
-      } catch (err) {
-        done(err)
-      }
-    }),
-  )
-  pp.serializeUser((user, done) => {
-    const u = user as unknown as User
-    done(null, { id: u.id, epoch: u.sessionEpoch } satisfies SessionRef)
-  })
-  // Each request checks the user's current row: a deactivated account or a bumped epoch ends the session.
-  // The session store reads that row in the same query as the session (server/db/sessionStore.ts).
-  pp.deserializeUser(async (req: Request, ref: SessionRef, done: (err: unknown, user?: SessionUser | false) => void) => {
-    try {
-      const read = userReadWithSession(req.session?.passport)
-      const row = read !== undefined ? read : await userRowById(ds, ref?.id)
-      if (!row || !row.active || Number(row.session_epoch) !== ref.epoch) return done(null, false)
-      done(null, sessionUserOf(row))
-    } catch (err) {
-      done(err)
-    }
-  })
-  return pp as unknown as passport.PassportStatic
+/** The active user with this name and password, or null; an unknown name costs the same time as a wrong password. */
+export async function verifyCredentials(ds: DataSource, username: string, password: string): Promise<User | null> {
+  const user = await ds.getRepository(User).findOneBy({ username: username.trim().toLowerCase() })
+  const ok = await bcrypt.compare(password, user?.passwordHash ?? DUMMY_HASH)
+  return user && ok && user.active ? user : null
 }
 
-/** Verifies the password with the local strategy, then signs in on a fresh session id. */
-export function authenticate(pp: passport.PassportStatic, req: Request, res: Response): Promise<User | null> {
-  return new Promise((resolve, reject) => {
-    const next: NextFunction = (err?: unknown) => (err ? reject(err) : resolve(null))
-    pp.authenticate('local', { session: false }, (err: unknown, user: User | false) => {
-      if (err) return reject(err)
-      resolve(user || null)
-    })(req, res, next)
-  })
-}
+/** What a session stores of its user: the id and the epoch that signing out everywhere bumps. */
+export const sessionRefOf = (user: User): SessionRef => ({ id: user.id, epoch: user.sessionEpoch })
 
-export function logIn(req: Request, user: User): Promise<void> {
-  return new Promise((resolve, reject) => {
-    req.logIn(user as unknown as Express.User, (err) => (err ? reject(err) : resolve()))
-  })
-}
-
-export function logOut(req: Request): Promise<void> {
-  return new Promise((resolve, reject) => {
-    req.logOut((err) => {
-      if (err) return reject(err)
-      req.session.destroy((e) => (e ? reject(e) : resolve()))
-    })
-  })
-}
-
-/** Absolute session lifetime, on top of the idle timeout the rolling cookie gives. */
-export function absoluteTimeout(maxHours: number) {
-  return async (req: Request, _res: Response, next: NextFunction) => {
-    const started = req.session?.signedInAt
-    if (req.user && started && Date.now() - started > maxHours * 3_600_000) {
-      await logOut(req).catch(() => undefined)
-      return next(AppError.unauthenticated('session_ended', 'Your session has ended. Please sign in again.'))
-    }
-    next()
-  }
+/**
+ * The session's user as it is now, or false: a deactivated account or a bumped epoch ends the session. The
+ * session store reads that row in the same query as the session (server/db/sessionStore.ts); `sessionData` is
+ * the session's passport entry it was read with.
+ */
+export async function sessionUserFor(ds: DataSource, ref: SessionRef, sessionData: object | undefined): Promise<SessionUser | false> {
+  const read = userReadWithSession(sessionData)
+  const row = read !== undefined ? read : await userRowById(ds, ref?.id)
+  if (!row || !row.active || Number(row.session_epoch) !== ref.epoch) return false
+  return sessionUserOf(row)
 }
 
 export type { SessionUser }

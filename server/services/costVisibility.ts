@@ -5,11 +5,10 @@
 //   see costs, however deep they sit and whichever route or idempotent replay wrote them;
 // - every spreadsheet column and document part that shows a cost asks `costsVisible()` (the
 //   xlsx writer drops columns marked `cost: true`; PO sheets and PDFs ask before printing prices).
-// The caller's answer is worked out once per API request (`costScope`) and carried with the
+// The caller's answer is worked out once per API request (`costScope`, server/http/costScope.ts) and carried with the
 // request's async context; outside a request nothing is visible (deny by default).
 // A service answers with every cost it has under one of these names; it never checks the role.
 import { AsyncLocalStorage } from 'node:async_hooks'
-import type { NextFunction, Request, Response } from 'express'
 import type { DataSource, EntityManager } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
 import { purchasingSettings } from './appSettings.js'
@@ -59,14 +58,6 @@ export function costsVisible(): boolean {
 /** Runs `work` as a caller who may (or may not) see costs: the request scope, or a job of the system's own. */
 export function withCostAccess<T>(visible: boolean, work: () => T): T {
   return scope.run({ visible }, work)
-}
-
-/** Express middleware for /api: works out the signed-in caller's access once, for the whole request. */
-export function costScope(ds: DataSource) {
-  return async (req: Request, _res: Response, next: NextFunction) => {
-    const visible = req.user ? await costsVisibleTo(ds, req.user.roles) : false
-    scope.run({ visible }, next)
-  }
 }
 
 /** Express's JSON replacer: a cost field is left out of the answer unless the caller may see costs. */

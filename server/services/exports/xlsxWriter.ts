@@ -7,8 +7,6 @@
 // Whole workbooks are built in memory (buildXlsx); long ones are streamed (streamXlsx) with the same sheets.
 import type { Writable } from 'node:stream'
 import ExcelJS from 'exceljs'
-import type { Response } from 'express'
-import { sendDownload } from '../../http/fileResponse.js'
 import { visibleColumns } from '../costVisibility.js'
 import { cellText } from '../spreadsheetSafety.js'
 
@@ -301,8 +299,3 @@ export async function workbookBytes(book: ExcelJS.Workbook): Promise<Buffer> {
 }
 
 export const XLSX_TYPE = 'application/vnd.openxmlformats-officedocument.spreadsheetml.sheet'
-
-/** Sends a workbook as a download; the file name is ours, never the user's text. */
-export function sendXlsx(res: Response, filename: string, body: Buffer): void {
-  sendDownload(res, { name: filename, type: XLSX_TYPE, bytes: body })
-}

@@ -3,8 +3,6 @@
 // entries stay under an entry count, a total unpacked size and a compression ratio (a zip bomb is
 // refused while being measured, never unpacked whole); a .csv must be UTF-8 text with no NUL bytes.
 import path from 'node:path'
-import type { Request, Response } from 'express'
-import multer from 'multer'
 import yauzl from 'yauzl'
 import { AppError, problem } from '../../errors.js'
 
@@ -38,13 +36,10 @@ const refuse = (code: Refusal, message: string) => new AppError(415, code, messa
 type Excess = 'archive_too_many_parts' | 'archive_too_big' | 'archive_packed_too_tight'
 const tooBig = (code: Excess, message: string, params: Record<string, number>) => new AppError(422, code, message, { params })
 
-/** Runs multer for one field named "file" with the configured size cap. */
-function receive(req: Request, res: Response, maxBytes: number): Promise<void> {
-  const upload = multer({
-    storage: multer.memoryStorage(),
-    limits: { files: 1, fileSize: maxBytes, fields: 5, fieldSize: 1024, parts: 6, headerPairs: 100 },
-  }).single('file')
-  return new Promise((resolve, reject) => upload(req, res, (err: unknown) => (err ? reject(err) : resolve())))
+/** One received file, as the request edge (server/http/upload.ts) hands it over. */
+export interface ReceivedFile {
+  originalname: string
+  buffer: Buffer
 }
 
 export function kindOf(filename: string, allowed: readonly UploadKind[]): UploadKind {
@@ -56,10 +51,14 @@ export function kindOf(filename: string, allowed: readonly UploadKind[]): Upload
   return ext as UploadKind
 }
 
-/** Receives the upload and checks it is what its extension says. */
-export async function receiveUpload(req: Request, res: Response, opts: { maxBytes: number; allowed?: readonly UploadKind[]; limits?: ArchiveLimits }): Promise<GuardedUpload> {
-  await receive(req, res, opts.maxBytes)
-  const file = req.file
+export interface UploadRules {
+  maxBytes: number
+  allowed?: readonly UploadKind[]
+  limits?: ArchiveLimits
+}
+
+/** Checks a received upload is what its extension says. */
+export async function guardUpload(file: ReceivedFile | undefined, opts: UploadRules): Promise<GuardedUpload> {
   if (!file) throw AppError.badRequest('file_missing', 'Choose a file to upload.', { fields: { file: problem('file_missing') } })
   const kind = kindOf(file.originalname, opts.allowed ?? ['xlsx', 'csv'])
   await checkContent(kind, file.buffer, opts.limits ?? DEFAULT_ARCHIVE_LIMITS)
@@ -158,10 +157,8 @@ export interface GuardedImage {
   data: Buffer
 }
 
-/** Receives one image (PNG or JPEG, told by its first bytes, never by its name) up to maxBytes. */
-export async function receiveImage(req: Request, res: Response, maxBytes: number): Promise<GuardedImage> {
-  await receive(req, res, maxBytes)
-  const file = req.file
+/** Checks a received image is a PNG or JPEG, told by its first bytes, never by its name. */
+export function guardImage(file: ReceivedFile | undefined): GuardedImage {
   if (!file || !file.buffer.length) throw AppError.badRequest('file_missing', 'Choose a file to upload.', { fields: { file: problem('file_missing') } })
   const b = file.buffer
   if (b.length > 8 && b.readUInt32BE(0) === 0x89504e47) return { type: 'image/png', data: b }

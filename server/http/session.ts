@@ -1,0 +1,72 @@
+// The request side of signing in and out (passport on the request and its session); who may sign in and how a
+// session's user is read stay in services/authService.ts.
+import type { NextFunction, Request, Response } from 'express'
+import passport from 'passport'
+import { Strategy as LocalStrategy } from 'passport-local'
+import type { DataSource } from 'typeorm'
+import type { SessionUser } from '../../shared/schemas/auth.js'
+import type { User } from '../entities/User.js'
+import { AppError } from '../errors.js'
+import { sessionRefOf, sessionUserFor, verifyCredentials, type SessionRef } from '../services/authService.js'
+
+export function configurePassport(ds: DataSource): passport.PassportStatic {
+  const pp = new passport.Passport()
+  pp.use(
+    new LocalStrategy(async (username, password, done) => {
+      try {
+        const user = await verifyCredentials(ds, username, password)
+        done(null, user ?? false)
+      } catch (err) {
+        done(err)
+      }
+    }),
+  )
+  pp.serializeUser((user, done) => done(null, sessionRefOf(user as unknown as User)))
+  // Each request checks the user's current row (services/authService.ts, sessionUserFor).
+  pp.deserializeUser(async (req: Request, ref: SessionRef, done: (err: unknown, user?: SessionUser | false) => void) => {
+    try {
+      done(null, await sessionUserFor(ds, ref, req.session?.passport))
+    } catch (err) {
+      done(err)
+    }
+  })
+  return pp as unknown as passport.PassportStatic
+}
+
+/** Verifies the password with the local strategy, then signs in on a fresh session id. */
+export function authenticate(pp: passport.PassportStatic, req: Request, res: Response): Promise<User | null> {
+  return new Promise((resolve, reject) => {
+    const next: NextFunction = (err?: unknown) => (err ? reject(err) : resolve(null))
+    pp.authenticate('local', { session: false }, (err: unknown, user: User | false) => {
+      if (err) return reject(err)
+      resolve(user || null)
+    })(req, res, next)
+  })
+}
+
+export function logIn(req: Request, user: User): Promise<void> {
+  return new Promise((resolve, reject) => {
+    req.logIn(user as unknown as Express.User, (err) => (err ? reject(err) : resolve()))
+  })
+}
+
+export function logOut(req: Request): Promise<void> {
+  return new Promise((resolve, reject) => {
+    req.logOut((err) => {
+      if (err) return reject(err)
+      req.session.destroy((e) => (e ? reject(e) : resolve()))
+    })
+  })
+}
+
+/** Absolute session lifetime, on top of the idle timeout the rolling cookie gives. */
+export function absoluteTimeout(maxHours: number) {
+  return async (req: Request, _res: Response, next: NextFunction) => {
+    const started = req.session?.signedInAt
+    if (req.user && started && Date.now() - started > maxHours * 3_600_000) {
+      await logOut(req).catch(() => undefined)
+      return next(AppError.unauthenticated('session_ended', 'Your session has ended. Please sign in again.'))
+    }
+    next()
+  }
+}

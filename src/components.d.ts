@@ -59,6 +59,7 @@ declare module 'vue' {
     ElTooltip: typeof import('element-plus/es')['ElTooltip']
     LabelCard: typeof import('./components/labels/LabelCard.vue')['default']
     LabelSheet: typeof import('./components/labels/LabelSheet.vue')['default']
+    ListFilterNote: typeof import('./components/ListFilterNote.vue')['default']
     LumenyardLogo: typeof import('./components/shell/LumenyardLogo.vue')['default']
     OutageBanner: typeof import('./components/shell/OutageBanner.vue')['default']
     PickCautions: typeof import('./components/picking/PickCautions.vue')['default']
@@ -89,6 +90,7 @@ declare module 'vue' {
     TakeoffEditorWall: typeof import('./components/counter/TakeoffEditorWall.vue')['default']
     TakeoffEditorWallAdvice: typeof import('./components/counter/TakeoffEditorWallAdvice.vue')['default']
     TakeoffEditorWallOptions: typeof import('./components/counter/TakeoffEditorWallOptions.vue')['default']
+    TodayPanels: typeof import('./components/today/TodayPanels.vue')['default']
     UsageHistoryChart: typeof import('./components/charts/UsageHistoryChart.vue')['default']
     WallDrawing: typeof import('./components/counter/WallDrawing.vue')['default']
   }

@@ -37,6 +37,7 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
   'beginValue', // stock value at the start of a report's period
   'endValue', // and at its end
   'averageValue', // their average (the denominator of turns)
+  'spendValue', // what the purchase orders sent in a period come to (the buyer's start page)
 ])
 
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {

@@ -81,6 +81,8 @@ export const jobQuerySchema = z.object({
   customerId: z.coerce.number().int().positive().optional(),
   status: jobStatusSchema.optional(),
   q: z.string().trim().max(80).optional(),
+  /** Jobs whose special order is due by this day and has not all arrived (the start page's figure). */
+  specialDueBy: z.preprocess((v) => (v === '' ? undefined : v), z.iso.date().optional()),
   limit: z.coerce.number().int().min(1).max(200).default(50),
 })
 

@@ -3,6 +3,7 @@
 import { z } from 'zod'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { idSchema } from './stock.js'
+import { timeZoneParam } from './exportQuery.js'
 
 /** Optional text: blank becomes null, so "clear the field" and "never set" store the same. */
 const optionalText = (max: number) =>
@@ -142,6 +143,8 @@ export const poSendSchema = z.object({
 })
 export type PoSendInput = z.infer<typeof poSendSchema>
 
+const poListDay = z.preprocess((v) => (v === '' ? undefined : v), z.iso.date().optional())
+
 export const poListQuerySchema = z.object({
   status: z
     .string()
@@ -150,7 +153,15 @@ export const poListQuerySchema = z.object({
     .pipe(z.array(z.enum(PO_STATUSES))),
   vendorId: idSchema.optional(),
   q: z.string().trim().max(60).optional(),
+  /** Expected between these days (inclusive); the start page's late and due figures link here with them. */
+  expectedFrom: poListDay,
+  expectedTo: poListDay,
+  /** Sent between these days (inclusive) in the reader's time zone `tz`: the month's spend. */
+  sentFrom: poListDay,
+  sentTo: poListDay,
+  tz: timeZoneParam,
 })
+export type PoListQuery = z.infer<typeof poListQuerySchema>
 
 export const poExportQuerySchema = z.object({
   ids: z

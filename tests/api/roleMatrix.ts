@@ -246,6 +246,8 @@ export const designedAccess: Record<string, MatrixRow> = {
   // The audit trail: admins only; read and export, never changed through the app.
   'GET /api/audit': { access: ['admin'], query: 'limit=1' },
   'GET /api/audit/export': { access: ['admin'], query: 'from=2020-01-01&to=2020-01-01' },
+  // The start page's day at a glance: everyone signed in, a panel per role of theirs (tests/api/todayFigures.test.ts).
+  'GET /api/today': { access: EVERYONE },
   'GET /api/reports/stock-valuation': { access: ['admin', 'buyer'], costs: '/api/reports/stock-valuation?warehouseId={warehouse}' },
   'GET /api/reports/turns': { access: ['admin', 'buyer'], costs: '/api/reports/turns?warehouseId={warehouse}' },
   'GET /api/reports/dead-stock': { access: ['admin', 'buyer'], costs: '/api/reports/dead-stock?warehouseId={warehouse}&deadDays=30&slowDays=30&windowDays=30' },

@@ -59,9 +59,20 @@ const JOB_SELECT = `SELECT j.id, j.customer_id AS customerId, c.code AS customer
   (SELECT COUNT(*) FROM takeoffs t WHERE t.job_id = j.id) AS takeoffs
   FROM jobs j JOIN customers c ON c.id = j.customer_id`
 
+/**
+ * A job whose special order is due: still going (not complete or cancelled), due on or before the day given
+ * (one `?`), and its latest bill has a made-to-order line not yet all received on a live purchase order.
+ * The Counter's start-page figure counts with this, and the jobs list filters with it.
+ */
+export const SPECIAL_ORDER_DUE_SQL = `j.status NOT IN ('complete', 'cancelled') AND j.due_date <= ? AND EXISTS (
+  SELECT 1 FROM boms b JOIN bom_lines bl ON bl.bom_id = b.id AND bl.made_to_order = 1
+   WHERE b.job_id = j.id AND b.revision = (SELECT MAX(b2.revision) FROM boms b2 WHERE b2.job_id = j.id)
+     AND bl.qty > (SELECT COALESCE(SUM(pol.qty_received), 0) FROM purchase_order_lines pol
+                     JOIN purchase_orders po ON po.id = pol.po_id AND po.status <> 'cancelled' WHERE pol.bom_line_id = bl.id))`
+
 export async function listJobs(
   ds: DataSource,
-  query: { customerId?: number; status?: JobStatusName; q?: string; limit: number },
+  query: { customerId?: number; status?: JobStatusName; q?: string; specialDueBy?: string; limit: number },
 ): Promise<JobSummary[]> {
   const where: string[] = []
   const params: unknown[] = []
@@ -76,6 +87,10 @@ export async function listJobs(
   if (query.q) {
     where.push('(j.name LIKE ? OR c.name LIKE ? OR c.code LIKE ? OR j.site_address LIKE ?)')
     params.push(...Array(4).fill(containsPattern(query.q)))
+  }
+  if (query.specialDueBy) {
+    where.push(SPECIAL_ORDER_DUE_SQL)
+    params.push(query.specialDueBy)
   }
   const sql = `${JOB_SELECT}${where.length ? ' WHERE ' + where.join(' AND ') : ''} ORDER BY j.updated_at DESC, j.id DESC LIMIT ${query.limit}`
   const rows: JobRow[] = await ds.query(sql, params)

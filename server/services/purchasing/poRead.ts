@@ -1,7 +1,9 @@
 // Reading purchase orders for the screens: list, detail with lines, timeline and mail attempts.
 // Costs are always in the answer; the cost rule (services/costVisibility.ts) leaves them out for callers who may not see them.
 import type { DataSource, EntityManager } from 'typeorm'
-import type { PoStatus } from '../../../shared/schemas/purchasing.js'
+import type { PoListQuery, PoStatus } from '../../../shared/schemas/purchasing.js'
+import { dayEnd, dayStart } from '../../../shared/reports/zonedDays.js'
+import { SqlWhere } from '../../db/sqlWhere.js'
 import type { PoDetail, PoLineView, PoSummary, PoTimelineEntry } from '../../../shared/schemas/purchasingViews.js'
 import { lineTotal } from '../../../shared/purchasing/poMoney.js'
 import { parseSpec, specText } from '../../../shared/purchasing/specText.js'
@@ -45,29 +47,31 @@ function summaryFields(r: PoRow): PoSummary {
   }
 }
 
-export interface PoFilter {
-  status: PoStatus[]
-  vendorId?: number
-  q?: string
+export type PoFilter = Pick<PoListQuery, 'status' | 'vendorId' | 'q' | 'expectedFrom' | 'expectedTo' | 'sentFrom' | 'sentTo'> & { tz?: string }
+
+/**
+ * The list's filter as SQL over `purchase_orders o` (with `vendors v` and `jobs j` joined for the search).
+ * The start page counts its purchasing figures with this same filter, so a figure and its list agree.
+ */
+export function poFilterSql(filter: PoFilter): { sql: string; params: unknown[] } {
+  const tz = filter.tz ?? 'UTC'
+  const where = new SqlWhere()
+    .add(`o.status IN (${filter.status.map(() => '?').join(',')})`, filter.status, filter.status.length > 0)
+    .add('o.vendor_id = ?', [filter.vendorId], !!filter.vendorId)
+    .add('o.expected_date >= ?', [filter.expectedFrom], !!filter.expectedFrom)
+    .add('o.expected_date <= ?', [filter.expectedTo], !!filter.expectedTo)
+    .add('o.sent_at >= ?', [filter.sentFrom && dayStart(filter.sentFrom, tz)], !!filter.sentFrom)
+    .add('o.sent_at < ?', [filter.sentTo && dayEnd(filter.sentTo, tz)], !!filter.sentTo)
+  if (filter.q) {
+    const like = containsPattern(filter.q)
+    where.add('(o.number LIKE ? OR v.name LIKE ? OR j.name LIKE ?)', [like, like, like])
+  }
+  return { sql: where.sql(), params: where.params }
 }
 
 export async function listPurchaseOrders(db: Db, filter: PoFilter): Promise<PoSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  if (filter.status.length) {
-    where.push(`o.status IN (${filter.status.map(() => '?').join(',')})`)
-    params.push(...filter.status)
-  }
-  if (filter.vendorId) {
-    where.push('o.vendor_id = ?')
-    params.push(filter.vendorId)
-  }
-  if (filter.q) {
-    where.push('(o.number LIKE ? OR v.name LIKE ? OR j.name LIKE ?)')
-    const like = containsPattern(filter.q)
-    params.push(like, like, like)
-  }
-  const rows: PoRow[] = await db.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT 500`, params)
+  const where = poFilterSql(filter)
+  const rows: PoRow[] = await db.query(`${SUMMARY_SQL} ${where.sql} ORDER BY o.id DESC LIMIT 500`, where.params)
   return rows.map(summaryOf)
 }
 

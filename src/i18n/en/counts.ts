@@ -63,6 +63,12 @@ export default {
     lotWanted: 'Lot: scan its label', noLotShort: 'No lot', noLot: 'No lot label on it', qtyLabel: 'Quantity in the bin',
     less: 'One less', more: 'One more', save: 'Save', enteredHere: 'Counted in this bin (tap to change)', finishBin: 'Bin {bin} counted',
   },
+  accuracy: {
+    title: 'Count accuracy, {month}',
+    blurb: 'Lines counted right ÷ lines counted, by warehouse; a recounted line counts once, as its last count.',
+    warehouse: 'Warehouse', counted: 'Lines counted', right: 'Lines right', accuracy: 'Accuracy', valueOff: 'Value off',
+    empty: 'Nothing counted in this month yet.',
+  },
   caution: {
     handling: 'Count cases where they stand: glass blocks are heavy and cut when broken. Gloves and safety glasses; no climbing on racking, use a ladder.',
     defer: 'Follow the yard\'s handling rules and local safety regulations.',

@@ -63,6 +63,12 @@ export default {
     lotWanted: 'Lote: escanee su etiqueta', noLotShort: 'Sin lote', noLot: 'No tiene etiqueta de lote', qtyLabel: 'Cantidad en la ubicación',
     less: 'Uno menos', more: 'Uno más', save: 'Guardar', enteredHere: 'Contado en esta ubicación (toque para cambiar)', finishBin: 'Ubicación {bin} contada',
   },
+  accuracy: {
+    title: 'Exactitud de conteos, {month}',
+    blurb: 'Líneas contadas sin diferencia ÷ líneas contadas, por almacén; una línea recontada cuenta una vez, con su último conteo.',
+    warehouse: 'Almacén', counted: 'Líneas contadas', right: 'Líneas exactas', accuracy: 'Exactitud', valueOff: 'Valor de las diferencias',
+    empty: 'Aún no se ha contado nada este mes.',
+  },
   caution: {
     handling: 'Cuente las cajas donde están: los bloques de vidrio pesan y cortan si se rompen. Guantes y gafas de seguridad; no trepe por las estanterías, use una escalera.',
     defer: 'Siga las normas de manipulación del almacén y la normativa de seguridad local.',

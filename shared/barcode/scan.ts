@@ -162,6 +162,19 @@ export function classifyScan(raw: string, options: ScanOptions = {}): ScanClass 
   return classifyText(parsed.text, parsed.symbology, options)
 }
 
+/** One scan read once, where it enters (the handheld's scan box): the text as scanned and what it means. */
+export interface ReadScan {
+  raw: string
+  scan: ScanClass
+}
+
+export const readScan = (raw: string): ReadScan => ({ raw, scan: classifyScan(raw) })
+
+/** A scan as the checks take it: already read (the handheld), or the text as stored (the server reads it here). */
+export type ScanInput = string | ReadScan
+
+export const asRead = (input: ScanInput): ReadScan => (typeof input === 'string' ? readScan(input) : input)
+
 // ---- label payloads ----
 
 /** What to render and what a scanner will give back. Pass `bwip` straight to bwip-js, adding scale and the like. */

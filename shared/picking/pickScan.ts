@@ -1,8 +1,9 @@
 // Checks a picker's scans against the pick line in front of them: bin, then item (and lot), then
 // quantity. The handheld runs these for instant feedback (also while offline); the server runs the
-// same checks on every confirmation, so a wrong bin, item or lot never reaches the stock ledger.
+// same checks on every confirmation, so a wrong bin, item or lot never reaches the stock ledger. The handheld
+// hands over each scan already read (its scan box reads it once); the server passes the text it stored.
 import { normalizeGtin } from '../barcode/checkDigit.js'
-import { classifyScan, type ScanClass } from '../barcode/scan.js'
+import { asRead, type ScanClass, type ScanInput } from '../barcode/scan.js'
 
 /** What the line asks for. */
 export interface PickTarget {
@@ -51,8 +52,8 @@ function describe(scan: ScanClass, raw: string): string {
 }
 
 /** The bin label (B:code); a bin code typed by hand reads as a SKU-shaped text and counts too. */
-export function checkBinScan(raw: string, target: PickTarget): BinCheck {
-  const scan = classifyScan(raw)
+export function checkBinScan(input: ScanInput, target: PickTarget): BinCheck {
+  const { raw, scan } = asRead(input)
   const scanned = describe(scan, raw)
   if (scan.kind === 'invalid') return { ok: false, problem: 'unreadable', scanned }
   const code = scan.kind === 'bin' ? scan.code : scan.kind === 'sku' ? scan.sku : null
@@ -72,8 +73,8 @@ function checkGs1Item(scan: Extract<ScanClass, { kind: 'gs1' }>, target: PickTar
 }
 
 /** The item: GS1 data with (01)/(02), a bare GTIN, our lot label (L:SKU|lot) or the SKU. */
-export function checkItemScan(raw: string, target: PickTarget): ItemCheck {
-  const scan = classifyScan(raw)
+export function checkItemScan(input: ScanInput, target: PickTarget): ItemCheck {
+  const { raw, scan } = asRead(input)
   const scanned = describe(scan, raw)
   switch (scan.kind) {
     case 'invalid': return { ok: false, problem: 'unreadable', scanned }
@@ -89,12 +90,13 @@ export function checkItemScan(raw: string, target: PickTarget): ItemCheck {
 }
 
 /** The lot, when the item scan did not carry it: our lot label, GS1 data with (10), or the lot code typed. */
-export function checkLotScan(raw: string, target: PickTarget): LotCheck {
+export function checkLotScan(input: ScanInput, target: PickTarget): LotCheck {
   if (target.lotCode === null) return { ok: true }
-  const scan = classifyScan(raw)
+  const read = asRead(input)
+  const { raw, scan } = read
   const scanned = describe(scan, raw)
   if (scan.kind === 'lot' || scan.kind === 'gs1') {
-    const item = checkItemScan(raw, target)
+    const item = checkItemScan(read, target)
     if (!item.ok) return item
     return item.lotConfirmed ? { ok: true } : { ok: false, problem: 'wrong_lot', scanned }
   }

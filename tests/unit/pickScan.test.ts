@@ -1,5 +1,6 @@
 // Scan checks of a pick confirmation (shared/picking/pickScan.ts): bin, item, lot, in the order the picker scans.
 import { describe, expect, it } from 'vitest'
+import { readScan, type ReadScan } from '../../shared/barcode/scan.js'
 import { checkBinScan, checkConfirmationScans, checkItemScan, checkLotScan, type PickTarget } from '../../shared/picking/pickScan.js'
 
 const GTIN = '09506000134352' // source: GS1 guidance documents' example GTIN (from memory); check digit verified in gs1CheckDigit.test.ts
@@ -65,5 +66,27 @@ describe('lot scans and whole confirmations', () => {
     expect(checkConfirmationScans({ binScan: 'B:A-03-2', itemScan: null }, block, 5)).toMatchObject({ problem: 'unreadable' })
     // closing a line short with nothing taken needs the bin only
     expect(checkConfirmationScans({ binScan: 'B:A-03-2' }, block, 0)).toEqual({ ok: true })
+  })
+})
+
+describe('a scan read once at the edge', () => {
+  // common practice: the handheld's scan box reads each scan once (readScan) and the checks take that reading,
+  // so they judge the meaning they were handed and never read the text again; the server hands them the text.
+  it('gives the same verdicts for the text and for the scan read from it', () => {
+    const texts = ['B:A-03-2', 'A-03-1', `(02)${GTIN}(37)8(10)R2405`, `(01)${GTIN}`, 'L:GB8-CLR|R2405', 'L:GB8-CLR|R2406', 'GB8-CLR', 'B:', 'R2405']
+    for (const text of texts) {
+      expect(checkBinScan(readScan(text), block), text).toEqual(checkBinScan(text, block))
+      expect(checkItemScan(readScan(text), block), text).toEqual(checkItemScan(text, block))
+      expect(checkLotScan(readScan(text), block), text).toEqual(checkLotScan(text, block))
+    }
+  })
+
+  it('judges the reading it is handed, not the text beside it', () => {
+    // The text says bin A-03-1; the reading handed over says A-03-2: a check that read the text again would refuse it.
+    const handed: ReadScan = { raw: 'B:A-03-1', scan: { kind: 'bin', code: 'A-03-2' } }
+    expect(checkBinScan(handed, block)).toEqual({ ok: true })
+    const lot: ReadScan = { raw: 'L:GB8-CLR|R2406', scan: { kind: 'lot', itemSku: 'GB8-CLR', lotCode: 'R2405' } }
+    expect(checkItemScan(lot, block)).toEqual({ ok: true, lotConfirmed: true })
+    expect(checkLotScan(lot, block)).toEqual({ ok: true })
   })
 })

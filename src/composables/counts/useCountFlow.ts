@@ -3,7 +3,7 @@
 // records say. Each submission carries its own Idempotency-Key, so a double Enter applies once.
 import { computed, ref } from 'vue'
 import { ElMessageBox } from 'element-plus'
-import { classifyScan } from '@shared/barcode/scan'
+import type { ReadScan } from '@shared/barcode/scan'
 import { scanLookup } from '@shared/barcode/scanLookup'
 import type { HandheldCount } from '@shared/schemas/counts'
 import type { ItemOption } from '@shared/schemas/stockViews'
@@ -114,8 +114,7 @@ export function useCountFlow(countId: number, deps: { feedback: ReturnType<typeo
     fb.info(lotNeeded.value ? t('counts.handheld.scanLotNow', { sku: item.sku }) : t('counts.handheld.howMany', { sku: item.sku }))
   }
 
-  async function readItem(raw: string) {
-    const scan = classifyScan(raw)
+  async function readItem({ raw, scan }: ReadScan) {
     if (scan.kind === 'bin') {
       fb.error(t('counts.handheld.finishFirst', { bin: current.value?.binCode ?? '' }))
       return
@@ -134,9 +133,8 @@ export function useCountFlow(countId: number, deps: { feedback: ReturnType<typeo
     }
   }
 
-  function readLot(raw: string) {
+  function readLot({ raw, scan }: ReadScan) {
     const item = pending.value!.item
-    const scan = classifyScan(raw)
     let lot: string | null = null
     if (scan.kind === 'lot' && scan.itemSku.toUpperCase() === item.sku.toUpperCase()) lot = scan.lotCode
     else if (scan.kind === 'gs1' && scan.lot) lot = scan.lot
@@ -148,12 +146,12 @@ export function useCountFlow(countId: number, deps: { feedback: ReturnType<typeo
     chooseItem(item, lot)
   }
 
-  /** Every scan goes through here; what it means depends on the step. */
-  async function scan(raw: string) {
+  /** Every scan goes through here, as the scan box read it; what it means depends on the step. */
+  async function scan(read: ReadScan) {
     if (busy.value) return
-    if (step.value === 'bin') return startBin(raw)
-    if (step.value === 'lot') return readLot(raw)
-    return readItem(raw)
+    if (step.value === 'bin') return startBin(read.raw)
+    if (step.value === 'lot') return readLot(read)
+    return readItem(read)
   }
 
   function noLot() {

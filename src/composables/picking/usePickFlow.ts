@@ -3,6 +3,7 @@
 // clear message and a buzz, and nothing changes; a right one moves to the next step. One intent makes
 // one confirmation: while one is being kept, a second Enter, tap or scanner echo does nothing.
 import { computed, reactive, ref, type Ref } from 'vue'
+import type { ReadScan } from '@shared/barcode/scan'
 import { checkBinScan, checkItemScan, checkLotScan, type PickScanProblem, type PickTarget } from '@shared/picking/pickScan'
 import type { PickConfirmInput, PickLineView, ShortReason } from '@shared/schemas/picking'
 import type { useScanFeedback } from './useScanFeedback'
@@ -65,27 +66,29 @@ export function usePickFlow(d: PickFlowDeps) {
     d.feedback.error(d.t(`picking.handheld.problem.${problem}`, { scanned, bin: line.binCode, sku: line.sku, lot: line.lotCode ?? '', left: d.units(line, left(line)) }))
   }
 
-  function scanItem(raw: string, line: PickLineView) {
-    const check = checkItemScan(raw, target(line))
+  function scanItem(read: ReadScan, line: PickLineView) {
+    const check = checkItemScan(read, target(line))
     if (!check.ok) return refuse(check.problem, check.scanned, line)
-    scans.item = raw
+    scans.item = read.raw
     if (check.count !== undefined) qty.value = check.count
     step.value = check.lotConfirmed ? 'qty' : 'lot'
     d.feedback.ok(d.t(check.lotConfirmed ? 'picking.handheld.itemLotOk' : 'picking.handheld.itemOk', { sku: line.sku, lot: line.lotCode ?? '' }))
   }
 
-  function scan(raw: string) {
+  /** A scan as the scan box read it: its text goes into the confirmation, its meaning is checked here. */
+  function scan(read: ReadScan) {
     const line = current.value
+    const raw = read.raw
     if (!line || !raw.trim() || busy.value) return
     if (step.value === 'bin') {
-      const check = checkBinScan(raw, target(line))
+      const check = checkBinScan(read, target(line))
       if (!check.ok) return refuse(check.problem, check.scanned, line)
       scans.bin = raw
       step.value = 'item'
       d.feedback.ok(d.t('picking.handheld.binOk', { bin: line.binCode }))
-    } else if (step.value === 'item') scanItem(raw, line)
+    } else if (step.value === 'item') scanItem(read, line)
     else if (step.value === 'lot') {
-      const check = checkLotScan(raw, target(line))
+      const check = checkLotScan(read, target(line))
       if (!check.ok) return refuse(check.problem, check.scanned, line)
       scans.lot = raw
       step.value = 'qty'
@@ -93,7 +96,7 @@ export function usePickFlow(d: PickFlowDeps) {
     } else if (/^\d{1,6}$/.test(raw.trim())) {
       qty.value = Number(raw.trim())
       void confirm()
-    } else scanItem(raw, line)
+    } else scanItem(read, line)
   }
 
   function body(line: PickLineView, units: number, shortReason: ShortReason | null): PickConfirmInput {

@@ -23,4 +23,12 @@ export default {
   backHome: 'Back to my start page',
   fieldsNeedAttention: 'Some fields need attention.',
   safetyDefer: 'Check local building codes and follow licensed professional practice; Lumenyard’s figures are a planning aid, not an engineering approval.',
+  /** The handheld's scan box (picking, counting). */
+  scanBox: {
+    placeholder: 'Scan or type, then Enter',
+    keyboard: 'Keyboard',
+    camera: 'Camera',
+    cameraStop: 'Stop camera',
+    cameraFailed: 'The camera could not be started.',
+  },
 }

@@ -49,7 +49,6 @@ export default {
     title: 'Count', back: 'Counts', progress: '{done} of {total} bins counted', loadFailed: 'The count could not be loaded.',
     notOpen: 'This count is {status}.',
     step: { bin: 'Scan the bin', item: 'Scan an item in the bin', lot: 'Scan the lot label', qty: 'How many are there?' },
-    scanPlaceholder: 'Scan or type, then Enter', keyboard: 'Keyboard',
     nextBins: 'Bins to count', countingBy: 'Being counted by {name}', moreBins: 'and {n} more', allDone: 'Every bin is counted. A reviewer looks at the differences.',
     binStarted: 'Counting {bin}. Scan each item you find.', takeOverTitle: 'Someone is counting this bin', takeOver: 'Take it over', cancel: 'Cancel',
     notAsked: '{sku} is not counted in this count; count only the listed items.', scanLotNow: '{sku}: scan its lot label.',

@@ -24,4 +24,12 @@ export default {
   backHome: 'Volver a mi página de inicio',
   fieldsNeedAttention: 'Algunos campos necesitan atención.',
   safetyDefer: 'Consulte los códigos de construcción locales y siga la práctica de profesionales con licencia; las cifras de Lumenyard ayudan a planificar, no son una aprobación de ingeniería.',
+  /** The handheld's scan box (picking, counting). */
+  scanBox: {
+    placeholder: 'Escanee o escriba y pulse Intro',
+    keyboard: 'Teclado',
+    camera: 'Cámara',
+    cameraStop: 'Detener cámara',
+    cameraFailed: 'No se pudo encender la cámara.',
+  },
 }

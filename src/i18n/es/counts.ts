@@ -49,7 +49,6 @@ export default {
     title: 'Conteo', back: 'Conteos', progress: '{done} de {total} ubicaciones contadas', loadFailed: 'No se pudo cargar el conteo.',
     notOpen: 'Este conteo está {status}.',
     step: { bin: 'Escanee la ubicación', item: 'Escanee un artículo de la ubicación', lot: 'Escanee la etiqueta del lote', qty: '¿Cuántos hay?' },
-    scanPlaceholder: 'Escanee o escriba y pulse Intro', keyboard: 'Teclado',
     nextBins: 'Ubicaciones por contar', countingBy: 'La está contando {name}', moreBins: 'y {n} más', allDone: 'Todas las ubicaciones están contadas. Una persona revisará las diferencias.',
     binStarted: 'Contando {bin}. Escanee cada artículo que encuentre.', takeOverTitle: 'Alguien está contando esta ubicación', takeOver: 'Continuar yo', cancel: 'Cancelar',
     notAsked: '{sku} no entra en este conteo; cuente solo los artículos de la lista.', scanLotNow: '{sku}: escanee la etiqueta del lote.',

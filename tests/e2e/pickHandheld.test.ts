@@ -118,6 +118,13 @@ describe('handheld pick screen', () => {
     await scan(page, `L:${s.altBlock.sku}|W1${s.tag}`) // our own lot label: item and lot in one scan
     await poll(() => step(page)).toBe('qty')
     await page.locator('[data-test="short-pick"]').click()
+    // Escape closes the form and hands the focus back to the button that opened it (WCAG 2.2, 2.4.3 focus order).
+    const shortDialog = page.locator('[data-test="short-dialog"]')
+    await shortDialog.waitFor()
+    await page.keyboard.press('Escape')
+    await shortDialog.waitFor({ state: 'hidden' })
+    await poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('short-pick')
+    await page.locator('[data-test="short-pick"]').click()
     // 12 found of 10 wanted can't be a short pick: refused beside the field, never quietly made 9.
     await page.locator('[data-test="short-found"]').fill('12')
     await page.locator('[data-test="short-reason-damaged"]').click()
@@ -132,6 +139,9 @@ describe('handheld pick screen', () => {
     await page.locator('[data-test="short-reason-damaged"]').click()
     await h.screenshot(page, 'pick-handheld-short')
     await page.locator('[data-test="short-save"]').click()
+    // Saved, the scan box has the focus again (the next scan goes in), not the button that opened the form.
+    await shortDialog.waitFor({ state: 'hidden' })
+    await poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('scan-input')
     await poll(() => page.locator('[data-test="line-bin"]').textContent()).toBe('A-02-1') // on to the spacers
     await poll(() => page.locator('[data-test="queue-item"]').count()).toBe(0)
     const [row] = await h.ds.query('SELECT qty, short_qty, short_reason FROM pick_confirmations WHERE pick_list_id = ?', [id])

@@ -9,6 +9,7 @@ export default {
   to: 'To',
   empty: 'Nothing to show for these filters.',
   chartOf: 'Chart of the table below: {table}',
+  which: 'Report',
   tabs: { turns: 'Turns and days of supply', 'dead-stock': 'Dead and slow stock', usage: 'Usage by month', vendors: 'Vendors on time' },
   blurbs: {
     turns: 'For each family: the cost of what was issued and picked in the period against the average of the stock value at its start and end (each at moving-average cost), and how many days the average stock lasts at that rate.',

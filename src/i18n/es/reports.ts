@@ -9,6 +9,7 @@ export default {
   to: 'Hasta',
   empty: 'No hay nada que mostrar con estos filtros.',
   chartOf: 'Gráfica de la tabla de abajo: {table}',
+  which: 'Informe',
   tabs: { turns: 'Rotación y días de existencia', 'dead-stock': 'Existencias sin movimiento y lentas', usage: 'Consumo por mes', vendors: 'Proveedores a tiempo' },
   blurbs: {
     turns: 'Por familia: el costo de lo entregado y preparado en el periodo frente al promedio del valor de las existencias al comienzo y al final (cada uno a costo promedio móvil), y cuántos días dura la existencia promedio a ese ritmo.',

@@ -18,6 +18,8 @@ import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport } from './http/session.js'
 import { costReplacer } from './services/costVisibility.js'
 import { costScope } from './http/costScope.js'
+import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
+import { createPayProvider } from './services/payments/payProvider.js'
 import { SignInThrottle } from './services/signInThrottle.js'
 import { createLogger } from './logger.js'
 
@@ -97,6 +99,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     logger,
     passport: pp,
     throttle: new SignInThrottle(config.signin, config.db),
+    pay: createPayProvider(config.pay),
+    payEventHandlers: {},
   }
   const app = express()
   app.disable('x-powered-by')
@@ -115,6 +119,8 @@ export function createApp(deps: AppDeps): BuiltApp {
       },
     }),
   )
+  // The provider signs the exact bytes it sends: its webhook keeps the raw body (the JSON parser then skips it).
+  app.use(PAYMENT_WEBHOOK_PATH, express.raw({ type: () => true, limit: '256kb' }))
   app.use(express.json({ limit: '1mb' }))
   app.use('/api', compression()) // JSON answers over 1 KB; spreadsheets are zip files already and pass through
 
@@ -139,7 +145,8 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.use(pp.session())
   app.use(absoluteTimeout(config.session.maxHours))
   const origins = config.publicUrl ? [new URL(config.publicUrl).origin] : []
-  app.use('/api', csrfGuard(() => origins))
+  // The webhook carries no cookie and no app header; its provider signature is its proof (routes/payments.ts).
+  app.use('/api', csrfGuard(() => origins, [PAYMENT_WEBHOOK_PATH]))
   app.use('/api', (_req, res, next) => {
     res.set('Cache-Control', 'no-store')
     next()

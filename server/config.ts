@@ -43,7 +43,23 @@ const schema = z.object({
   LUMENYARD_MAIL_FROM: z.string().default('Lumenyard <purchasing@lumenyard.invalid>'),
 
   LUMENYARD_UPLOAD_MAX_MB: z.coerce.number().min(0.1).max(50).default(5),
+
+  // Card payments go through the payment provider's SDK. Outside production it talks to the local fake
+  // (server/fakes/payFake.ts) on 127.0.0.1:LUMENYARD_PAY_PORT; LUMENYARD_PAY_HOST points it elsewhere.
+  LUMENYARD_PAY_HOST: z.string().min(1).optional(),
+  LUMENYARD_PAY_PORT: port.default(4242),
+  LUMENYARD_PAY_PROTOCOL: z.enum(['http', 'https']).optional(),
+  LUMENYARD_PAY_SECRET_KEY: z.string().min(8, 'must be at least 8 characters').optional(),
+  LUMENYARD_PAY_WEBHOOK_SECRET: z.string().min(8, 'must be at least 8 characters').optional(),
+  LUMENYARD_PAY_CURRENCY: z.string().regex(/^[a-z]{3}$/, 'three lower-case letters (ISO 4217), e.g. usd').default('usd'),
 })
+
+/**
+ * Keys that only the local payment fake accepts: fixed so `npm start` and the tests need no setup.
+ * Never valid with the real provider, and refused in production (the keys must come from the environment).
+ */
+export const LOCAL_PAY_SECRET_KEY = 'sk_test_lumenyard_local_fake_only'
+export const LOCAL_PAY_WEBHOOK_SECRET = 'whsec_lumenyard_local_fake_only'
 
 export interface AppConfig {
   env: 'development' | 'production' | 'test'
@@ -64,6 +80,18 @@ export interface AppConfig {
   signin: { failsPerAccount: number; failsPerIp: number; lockMinutes: number }
   smtp: { host: string; port: number; secure: boolean; user?: string; password?: string; from: string }
   uploadMaxBytes: number
+  pay: {
+    /** Where the SDK sends its requests; absent: the provider's own API (production). */
+    api?: { host: string; port: number; protocol: 'http' | 'https' }
+    /** The port the local fake listens on. */
+    fakePort: number
+    /** `npm start` starts the local fake: outside production when LUMENYARD_PAY_HOST is not set. */
+    localFake: boolean
+    secretKey: string
+    webhookSecret: string
+    /** ISO 4217 code in the provider's lower-case form. */
+    currency: string
+  }
 }
 
 export class ConfigError extends Error {}
@@ -75,6 +103,17 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
     throw new ConfigError(`Lumenyard cannot start: bad configuration\n${lines.join('\n')}`)
   }
   const e = parsed.data
+  const production = e.NODE_ENV === 'production'
+  if (production) {
+    const missing = (['LUMENYARD_PAY_SECRET_KEY', 'LUMENYARD_PAY_WEBHOOK_SECRET'] as const).filter((k) => !e[k])
+    const local = [e.LUMENYARD_PAY_SECRET_KEY, e.LUMENYARD_PAY_WEBHOOK_SECRET].some((v) => v === LOCAL_PAY_SECRET_KEY || v === LOCAL_PAY_WEBHOOK_SECRET)
+    if (missing.length || local) {
+      const lines = missing.map((k) => `  ${k}: required in production (the payment provider's ${k.endsWith('WEBHOOK_SECRET') ? 'webhook signing secret' : 'secret API key'})`)
+      if (local) lines.push('  LUMENYARD_PAY_*: the local fake\'s keys cannot be used in production')
+      throw new ConfigError(`Lumenyard cannot start: bad configuration\n${lines.join('\n')}`)
+    }
+  }
+  const payHost = e.LUMENYARD_PAY_HOST ?? (production ? undefined : '127.0.0.1')
   return {
     env: e.NODE_ENV,
     host: e.LUMENYARD_HOST,
@@ -121,5 +160,15 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
       from: e.LUMENYARD_MAIL_FROM,
     },
     uploadMaxBytes: Math.round(e.LUMENYARD_UPLOAD_MAX_MB * 1024 * 1024),
+    pay: {
+      api: payHost
+        ? { host: payHost, port: e.LUMENYARD_PAY_PORT, protocol: e.LUMENYARD_PAY_PROTOCOL ?? (payHost === '127.0.0.1' || payHost === 'localhost' ? 'http' : 'https') }
+        : undefined,
+      fakePort: e.LUMENYARD_PAY_PORT,
+      localFake: !production && !e.LUMENYARD_PAY_HOST,
+      secretKey: e.LUMENYARD_PAY_SECRET_KEY ?? LOCAL_PAY_SECRET_KEY,
+      webhookSecret: e.LUMENYARD_PAY_WEBHOOK_SECRET ?? LOCAL_PAY_WEBHOOK_SECRET,
+      currency: e.LUMENYARD_PAY_CURRENCY,
+    },
   }
 }

@@ -5,6 +5,8 @@ import type { Request } from 'express'
 import type { AppConfig } from './config.js'
 import type { SignInThrottle } from './services/signInThrottle.js'
 import type { AuditActor } from './services/auditService.js'
+import type { PayProvider } from './services/payments/payProvider.js'
+import type { ProviderEventHandler } from './services/payments/paymentEvents.js'
 import { AppError } from './errors.js'
 
 /** What every router gets: built once in app.ts. */
@@ -19,6 +21,10 @@ export interface AppContext {
   passport: passport.PassportStatic
   throttle: SignInThrottle
   logger: Logger
+  /** The card-payment provider's SDK, configured (config.pay). */
+  pay: PayProvider
+  /** What each kind of provider event changes, by event type (the webhook records every event once). */
+  payEventHandlers: Partial<Record<string, ProviderEventHandler>>
 }
 
 export function actorOf(req: Request): AuditActor & { userId: number } {

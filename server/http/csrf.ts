@@ -6,9 +6,14 @@ import { AppError } from '../errors.js'
 export const CSRF_HEADER = 'x-lumenyard-request'
 const SAFE = new Set(['GET', 'HEAD', 'OPTIONS'])
 
-export function csrfGuard(allowedOrigins: () => string[]): RequestHandler {
+/**
+ * `signedPaths`: routes that take no session cookie and prove themselves another way (the payment
+ * provider's signed webhook); the guard lets them through and the route checks the signature.
+ */
+export function csrfGuard(allowedOrigins: () => string[], signedPaths: readonly string[] = []): RequestHandler {
   return (req, _res, next) => {
     if (SAFE.has(req.method)) return next()
+    if (signedPaths.includes(req.baseUrl + req.path)) return next()
     if (req.get(CSRF_HEADER) !== '1') {
       return next(new AppError(403, 'csrf', 'This request was refused: it did not come from the Lumenyard app.'))
     }

@@ -289,6 +289,10 @@ export const ERROR_CODES = {
   payment_over_balance: ['due'],
   cheque_number_needed: [],
   deposit_not_paid: ['order', 'required', 'paid'],
+  card_declined: [],
+  payment_provider_unreachable: [],
+  payment_provider_failed: [],
+  payment_signature_invalid: [],
 
   // Records looked up by id or code
   record_not_found: [],

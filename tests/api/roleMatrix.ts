@@ -257,4 +257,6 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/reports/usage/export': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
   'GET /api/reports/dead-stock/export': { access: ['admin', 'buyer'], query: 'warehouseId=999999999' },
   'GET /api/reports/vendors/export': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
+  // Card payments: the provider's webhook has no session; it is public and proves itself by its signature.
+  'POST /api/payments/webhook': { access: 'public' },
 }

@@ -75,7 +75,7 @@ describe('headers and cookies', () => {
   })
 
   it('marks the session cookie Secure by default in production (ASVS V3.3.1)', () => {
-    const required = { LUMENYARD_DB_PASSWORD: 'x', LUMENYARD_SESSION_SECRET: 'y'.repeat(32) }
+    const required = { LUMENYARD_DB_PASSWORD: 'x', LUMENYARD_SESSION_SECRET: 'y'.repeat(32), LUMENYARD_PAY_SECRET_KEY: 'sk-production-key', LUMENYARD_PAY_WEBHOOK_SECRET: 'signing-secret-production' }
     expect(loadConfig({ ...required, NODE_ENV: 'production' }).session.secureCookies).toBe(true)
     expect(loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_SECURE_COOKIES: 'false' }).session.secureCookies).toBe(false)
     expect(loadConfig({ ...required, NODE_ENV: 'development' }).session.secureCookies).toBe(false)

@@ -433,6 +433,10 @@ export default {
   payment_over_balance: 'That is more than is owed: {due} is still due on this order.',
   cheque_number_needed: 'Enter the cheque number',
   deposit_not_paid: 'The deposit on sales order {order} is not paid yet ({paid} of {required}): the special order waits for it.',
+  card_declined: 'The card was declined. Ask the customer for another card, or take the payment as cash or cheque.',
+  payment_provider_unreachable: 'The card payment service could not be reached, so nothing was charged. Try again in a moment.',
+  payment_provider_failed: 'The card payment service refused the request, so nothing was charged. Try again; if it keeps failing, tell your administrator.',
+  payment_signature_invalid: 'This payment notice was refused: its signature does not match the payment service.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {
     orderStatus: { booked: 'booked', ready: 'ready', handed_over: 'handed over', cancelled: 'cancelled' },

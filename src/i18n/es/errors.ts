@@ -432,6 +432,10 @@ export default {
   payment_over_balance: 'Es más de lo que se debe: quedan {due} por pagar en este pedido.',
   cheque_number_needed: 'Escriba el número del cheque',
   deposit_not_paid: 'El anticipo del pedido de venta {order} aún no está pagado ({paid} de {required}): el pedido especial lo espera.',
+  card_declined: 'La tarjeta fue rechazada. Pida al cliente otra tarjeta o cobre en efectivo o con cheque.',
+  payment_provider_unreachable: 'No se pudo contactar con el servicio de pago con tarjeta, así que no se cobró nada. Inténtelo de nuevo en un momento.',
+  payment_provider_failed: 'El servicio de pago con tarjeta rechazó la solicitud, así que no se cobró nada. Inténtelo de nuevo; si sigue fallando, avise a su administrador.',
+  payment_signature_invalid: 'Se rechazó este aviso de pago: su firma no coincide con el servicio de pago.',
   values: {
     orderStatus: { booked: 'registrado', ready: 'listo', handed_over: 'entregado', cancelled: 'anulado' },
     quoteStatus: { draft: 'borrador', offered: 'ofrecido', taken: 'aceptado', lapsed: 'vencido', lost: 'perdido', replaced: 'sustituido por una revisión más nueva' },

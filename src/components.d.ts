@@ -74,6 +74,7 @@ declare module 'vue' {
     PurchasingItemPicker: typeof import('./components/purchasing/PurchasingItemPicker.vue')['default']
     RouterLink: typeof import('vue-router')['RouterLink']
     RouterView: typeof import('vue-router')['RouterView']
+    StatusMark: typeof import('./components/base/StatusMark.vue')['default']
     StockAreaTabs: typeof import('./components/stock/StockAreaTabs.vue')['default']
     StockBinSelect: typeof import('./components/stock/StockBinSelect.vue')['default']
     StockConfirmDialog: typeof import('./components/stock/StockConfirmDialog.vue')['default']

@@ -15,6 +15,11 @@ declare module 'vue-router' {
     /** Full-screen page without the shell (handheld screens). */
     bare?: boolean
     /**
+     * A screen the warehouse crew use with gloves on a phone or tablet: at those widths every control is at
+     * least 44 × 44 px with 8 px between targets (theme.css, `.ly-touch`).
+     */
+    touch?: boolean
+    /**
      * API paths (GET) the page asks for as soon as it mounts: the guard starts them in parallel with the
      * page's code, and the page's own identical call takes the answer (src/api/client.ts, prefetchGet).
      */

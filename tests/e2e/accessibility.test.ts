@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Page, Request } from 'playwright-core'
 import type { Role } from '../../shared/roles.js'
 import { DEMO_PASSWORD, SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
-import { axeFindings, blocking, describeFindings, tally, type AxeFinding } from '../support/axeCheck.js'
+import { axeFindings, blocking, colourOnlyStatus, describeFindings, tally, unnamedTables, type AxeFinding } from '../support/axeCheck.js'
 import { CSRF } from '../support/apiHarness.js'
 import { fxBom, pickScenario, releasedPickList, signedInAgent } from '../support/pickFixtures.js'
 import { sidewaysScroll, targetSizes, type TargetSizes } from '../support/layoutChecks.js'
@@ -64,7 +64,7 @@ afterAll(async () => {
 })
 
 async function check(where: string) {
-  found.push(...(await axeFindings(page, where)))
+  found.push(...(await axeFindings(page, where)), ...(await unnamedTables(page, where)), ...(await colourOnlyStatus(page, where)))
 }
 
 /**
@@ -103,7 +103,14 @@ async function checkDialog(route: string, clicks: string[], where: string) {
   if (!back) found.push({ where: `${route} dialog (${where})`, rule: 'focus-return', impact: 'serious', help: 'Focus returns to the opener when the dialog closes', nodes: 1, targets: [clicks.at(-1)!] })
 }
 
-/** Opens each screen of a role and checks it, at the phone width too for the warehouse crew. */
+/**
+ * Lets the page lay itself out again after a change of width: two animation frames (the component library's
+ * tables and the grids re-measure in resize observers, which run before the next frame is drawn). A resize
+ * asks the server for nothing, so there is no request to wait for.
+ */
+const relayout = (on: Page) => on.evaluate(() => new Promise<void>((r) => requestAnimationFrame(() => requestAnimationFrame(() => r()))))
+
+/** Opens each screen of a role and checks it, at 320 px for reflow, and at the phone width too for the warehouse crew. */
 async function walk(who: Role | 'signed-out') {
   const routes = groups.get(who) ?? []
   await context.clearCookies()
@@ -131,19 +138,19 @@ async function walk(who: Role | 'signed-out') {
     const dialog = DIALOGS[route.name]
     if (dialog) await checkDialog(route.name, dialog, `${path}, ${who}`)
     await page.setViewportSize(NARROW)
-    await settle(page)
+    await relayout(page)
     const over = await sidewaysScroll(page)
     if (over.by) sideways.set(route.name, `${over.by} px: ${over.culprits.join(', ')}`)
+    t.push(Date.now())
     if (who === 'warehouse' && onPhone(route)) {
       await page.setViewportSize(PHONE)
-      await settle(page)
-      t.push(Date.now())
+      await relayout(page)
       await check(`${route.name} (${path}, ${who}, phone)`)
       targets.set(route.name, await targetSizes(page))
       t.push(Date.now())
     }
     await page.setViewportSize(DESKTOP)
-    if (process.env.A11Y_TIMING) console.log('TIMING', route.name, t.slice(1).map((x, i) => x - t[i]).join(' '))
+    if (process.env.A11Y_TIMING) console.log('TIMING', route.name, t.slice(1).map((x, k) => x - t[k]!).join(' '))
     visited.add(route.name)
   }
   return blocking(found.slice(before))
@@ -160,22 +167,23 @@ describe('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
       expect(bad, describeFindings(bad)).toEqual([])
     }, 300_000)
   }
-  // Screens that still scroll sideways at 320 px (WCAG 2.2 SC 1.4.10): any other screen that does fails.
-  it('reflows every screen at 320 px, but for the screens still listed', () => {
-    const STILL_SCROLLING = ['warehouse-pick-sheet', 'stock-item']
-    console.log('screens scrolling sideways at 320 px:', JSON.stringify(Object.fromEntries(sideways)))
+  // source: WCAG 2.2 SC 1.4.10 Reflow: at 320 CSS px no screen scrolls sideways (data grids and tables scroll
+  // inside their own box, which the measure leaves out).
+  it('reflows every screen at 320 px', () => {
     expect(sideways.size + visited.size).toBeGreaterThan(30)
-    const unlisted = [...sideways].filter(([route]) => !STILL_SCROLLING.includes(route))
-    expect(unlisted).toEqual([])
+    expect(Object.fromEntries(sideways)).toEqual({})
   })
-  // source: WCAG 2.2 SC 2.5.8 Target Size (Minimum), 24 px, on every warehouse screen at phone width. The
-  // glove rule, 44 px (SC 2.5.5 Target Size (Enhanced)), is measured and printed; not yet met everywhere.
-  it('gives the warehouse screens on a phone targets a finger can hit', () => {
-    console.log('targets under 44 px on a phone:', JSON.stringify([...targets].map(([r, s]) => `${r}: ${s.under44.length} of ${s.controls}`)))
+  // Gloves on a phone: every control on the warehouse screens at least 44 × 44 CSS px, with 8 px between one
+  // target and the next, so a gloved thumb lands on the control it aims at.
+  // source: WCAG 2.2 SC 2.5.5 Target Size (Enhanced), 44 × 44 CSS pixels
+  // source: WCAG 2.2 SC 2.5.8 Target Size (Minimum), spacing between targets; 8 px is common practice for touch
+  it('gives the warehouse screens on a phone targets a gloved finger can hit', () => {
     expect(targets.size).toBeGreaterThan(5)
     expect(targets.get('warehouse-pick')?.controls).toBeGreaterThan(3)
-    console.log('under 44 px on the pick screen:', JSON.stringify(targets.get('warehouse-pick')?.under44))
-    expect([...targets].filter(([, s]) => s.under24.length).map(([route, s]) => `${route}: ${s.under24.join(', ')}`)).toEqual([])
+    const small = [...targets].filter(([, s]) => s.under44.length).map(([route, s]) => `${route}: ${s.under44.join(', ')}`)
+    expect.soft(small, 'controls under 44 × 44 px').toEqual([])
+    const crowded = [...targets].filter(([, s]) => s.crowded.length).map(([route, s]) => `${route}: ${s.crowded.join('; ')}`)
+    expect(crowded, 'targets closer than 8 px').toEqual([])
   })
   it('opened every main dialog', () => {
     expect([...dialogsChecked].sort()).toEqual(Object.keys(DIALOGS).sort())

@@ -31,28 +31,46 @@ export interface TargetSizes {
   controls: number
   under44: string[]
   under24: string[]
+  /** Pairs of targets closer than 8 px to each other (or overlapping), with their gap. */
+  crowded: string[]
 }
 
 const CONTROLS = 'a[href], button, input:not([type="hidden"]), select, textarea, [role="button"], [role="checkbox"], [role="switch"], [role="tab"], [role="combobox"], .el-checkbox, .el-radio, .el-input-number__increase, .el-input-number__decrease'
 
 /**
  * Every visible control's hit box: the control itself or, for an input drawn inside the component library's
- * box (select, input, checkbox), that box.
+ * box (select, input, checkbox), that box. A stepper's own field is the input between its two buttons (the
+ * box around all three is not one target). Then how close each target comes to every other one: two targets
+ * side by side, closer than 8 px, or one over the other (neither inside the other), are crowded.
  */
 export async function targetSizes(page: Page): Promise<TargetSizes> {
   return page.evaluate((selector) => {
     const seen = new Set<Element>()
-    const out = { controls: 0, under44: [] as string[], under24: [] as string[] }
+    const out = { controls: 0, under44: [] as string[], under24: [] as string[], crowded: [] as string[] }
+    const boxes: { el: Element; r: DOMRect; name: string }[] = []
     for (const el of Array.from(document.querySelectorAll(selector))) {
-      const box = el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el
+      const box = el.closest('.el-input-number') && el.tagName === 'INPUT' ? el : (el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el)
       if (seen.has(box) || !(box as HTMLElement).checkVisibility?.()) continue
       seen.add(box)
       const r = box.getBoundingClientRect()
       if (!r.width || !r.height) continue
       out.controls++
       const name = `${box.tagName.toLowerCase()}${box.getAttribute('data-test') ? `[data-test=${box.getAttribute('data-test')}]` : ''}.${String(box.className).split(' ')[0]} ${Math.round(r.width)}×${Math.round(r.height)}`
-      if (r.width < 44 || r.height < 44) out.under44.push(name)
-      if (r.width < 24 || r.height < 24) out.under24.push(name)
+      // Half a pixel of rounding: a 44 px box can measure 43.99 after the browser's layout arithmetic.
+      if (r.width < 43.5 || r.height < 43.5) out.under44.push(name)
+      if (r.width < 23.5 || r.height < 23.5) out.under24.push(name)
+      boxes.push({ el: box, r, name })
+    }
+    for (let i = 0; i < boxes.length; i++) {
+      for (let j = i + 1; j < boxes.length; j++) {
+        const a = boxes[i]!
+        const b = boxes[j]!
+        if (a.el.contains(b.el) || b.el.contains(a.el)) continue
+        const dx = Math.max(0, b.r.left - a.r.right, a.r.left - b.r.right)
+        const dy = Math.max(0, b.r.top - a.r.bottom, a.r.top - b.r.bottom)
+        const gap = Math.hypot(dx, dy)
+        if (gap < 7.5) out.crowded.push(`${a.name} ↔ ${b.name}: ${Math.round(gap)} px`)
+      }
     }
     return out
   }, CONTROLS)

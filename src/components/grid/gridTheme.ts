@@ -5,6 +5,8 @@ import { themeQuartz } from 'ag-grid-community'
 
 export const gridParams = {
   fontFamily: 'Open Sans',
+  // In rem, so the grid's text grows with the browser's text size like the rest of the page.
+  fontSize: '0.875rem',
   accentColor: '#14505c',
   foregroundColor: '#1d2b30',
   subtleTextColor: '#56656a',

@@ -110,6 +110,7 @@ export default {
     signature: 'Signature',
     lineNo: '#',
     takeLot: 'take lot {lot}',
+    linesLabel: 'Lines to pick ({n})',
   },
   handheld: {
     net: { online: 'Connected', offline: 'No connection: confirmations stay on this device and go out when it is back', signedOut: 'Signed out: sign in again to send what waits' },

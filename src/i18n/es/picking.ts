@@ -110,6 +110,7 @@ export default {
     signature: 'Firma',
     lineNo: 'N.º',
     takeLot: 'tomar lote {lot}',
+    linesLabel: 'Líneas a preparar ({n})',
   },
   handheld: {
     net: { online: 'Conectado', offline: 'Sin conexión: las confirmaciones se quedan en este equipo y salen al volver la conexión', signedOut: 'Sesión cerrada: inicie sesión para enviar lo pendiente' },

@@ -43,13 +43,13 @@ export const stockRoutes: RouteRecordRaw[] = [
     path: '/stock/adjust',
     name: 'stock-adjust',
     component: () => import('@/views/stock/StockAdjustView.vue'),
-    meta: { area: 'stock', roles: ['admin', 'warehouse'], title: 'stock.adjust.title' },
+    meta: { touch: true, area: 'stock', roles: ['admin', 'warehouse'], title: 'stock.adjust.title' },
   },
   {
     path: '/stock/move',
     name: 'stock-move',
     component: () => import('@/views/stock/StockMoveView.vue'),
-    meta: { area: 'stock', roles: ['admin', 'warehouse'], title: 'stock.move.title' },
+    meta: { touch: true, area: 'stock', roles: ['admin', 'warehouse'], title: 'stock.move.title' },
   },
   // Catalog, warehouses and labels (catalog screens).
   {
@@ -75,7 +75,7 @@ export const stockRoutes: RouteRecordRaw[] = [
     name: 'stock-item',
     component: () => import('@/views/stock/ItemView.vue'),
     props: (route) => ({ id: Number(route.params.id) }),
-    meta: { area: 'stock', roles: AREA_ROLES.stock, title: 'catalog.item.title' },
+    meta: { touch: true, area: 'stock', roles: AREA_ROLES.stock, title: 'catalog.item.title' },
   },
   {
     path: '/stock/items/:id(\\d+)/edit',

@@ -5,6 +5,7 @@ import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CSRF } from '../support/apiHarness.js'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
+import { axeFindings, blocking, describeFindings } from '../support/axeCheck.js'
 import { sidewaysScroll } from '../support/layoutChecks.js'
 import { signedInAgent } from '../support/pickFixtures.js'
 import { createPurchasingFixture, type PurchasingFixture } from '../support/purchasingFixtures.js'
@@ -58,6 +59,9 @@ describe('the start page per role on a phone', () => {
       if (openCounts) expect(await figureText(page, 'countsOpen')).toContain(String(openCounts))
       else expect(await figureText(page, 'countsOpen')).toBe('Ningún conteo abierto')
       await h.screenshot(page, 'start-warehouse-phone')
+      // source: WCAG 2.2 AA through axe-core's rules; no critical or serious finding on the start page
+      const serious = blocking(await axeFindings(page, 'start page (warehouse, phone)'))
+      expect(serious, describeFindings(serious)).toEqual([])
 
       await page.locator('[data-figure="deliveriesToday"]').click()
       await page.waitForURL(/\/warehouse\/receiving\?/)

@@ -30,7 +30,6 @@ export const sidewaysScroll = (page: Page) =>
 export interface TargetSizes {
   controls: number
   under44: string[]
-  under24: string[]
   /** Pairs of targets closer than 8 px to each other (or overlapping), with their gap. */
   crowded: string[]
 }
@@ -46,7 +45,7 @@ const CONTROLS = 'a[href], button, input:not([type="hidden"]), select, textarea,
 export async function targetSizes(page: Page): Promise<TargetSizes> {
   return page.evaluate((selector) => {
     const seen = new Set<Element>()
-    const out = { controls: 0, under44: [] as string[], under24: [] as string[], crowded: [] as string[] }
+    const out = { controls: 0, under44: [] as string[], crowded: [] as string[] }
     const boxes: { el: Element; r: DOMRect; name: string }[] = []
     for (const el of Array.from(document.querySelectorAll(selector))) {
       const box = el.closest('.el-input-number') && el.tagName === 'INPUT' ? el : (el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el)
@@ -58,7 +57,6 @@ export async function targetSizes(page: Page): Promise<TargetSizes> {
       const name = `${box.tagName.toLowerCase()}${box.getAttribute('data-test') ? `[data-test=${box.getAttribute('data-test')}]` : ''}.${String(box.className).split(' ')[0]} ${Math.round(r.width)}×${Math.round(r.height)}`
       // Half a pixel of rounding: a 44 px box can measure 43.99 after the browser's layout arithmetic.
       if (r.width < 43.5 || r.height < 43.5) out.under44.push(name)
-      if (r.width < 23.5 || r.height < 23.5) out.under24.push(name)
       boxes.push({ el: box, r, name })
     }
     for (let i = 0; i < boxes.length; i++) {

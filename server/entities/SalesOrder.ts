@@ -1,7 +1,7 @@
 import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateColumn } from 'typeorm'
 import type { PaymentMethod, PaymentStatus, SalesOrderStatus } from '../../shared/sales/salesOrderTerms.js'
 
-/** What a contractor ordered by taking a quote: one order per quote row. Its holds carry doc_type 'sales_order'. */
+/** What a contractor ordered by taking a quote: one order per quote row. Its holds (stock_reservations, not moves) carry its own doc type. */
 @Entity({ name: 'sales_orders' })
 export class SalesOrder {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number

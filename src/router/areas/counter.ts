@@ -65,4 +65,29 @@ export const counterRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/counter/PickListStatusView.vue'),
     meta: { ...counter, title: 'picking.title' },
   },
+  // Counter sales: quotes (from a bill or by hand) and the sales orders taken from them.
+  {
+    path: '/counter/sales',
+    name: 'counter-sales',
+    component: () => import('@/views/counter/SalesView.vue'),
+    meta: { ...counter, title: 'sales.quotes.title' },
+  },
+  {
+    path: '/counter/quotes/new',
+    name: 'counter-quote-new',
+    component: () => import('@/views/counter/QuoteNewView.vue'),
+    meta: { ...counter, title: 'sales.quote.newTitle' },
+  },
+  {
+    path: '/counter/quotes/:id(\\d+)',
+    name: 'counter-quote',
+    component: () => import('@/views/counter/QuoteView.vue'),
+    meta: { ...counter, title: 'sales.quotes.number' },
+  },
+  {
+    path: '/counter/sales-orders/:id(\\d+)',
+    name: 'counter-sales-order',
+    component: () => import('@/views/counter/SalesOrderView.vue'),
+    meta: { ...counter, title: 'sales.quotes.orderNumber' },
+  },
 ]

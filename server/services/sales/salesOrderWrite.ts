@@ -1,6 +1,6 @@
 // A contractor takes a quote: in one transaction the quote becomes taken and a sales order is made from
 // its lines. Stocked lines are held in the quote's warehouse (allocated by bin and lot the way a pick plan
-// allocates, held under the order's own doc type, SALES_ORDER_HOLDS); made-to-order lines raise special-order PO lines of their
+// allocates, held under the order's own doc type, SALES_ORDER_DOC); made-to-order lines raise special-order PO lines of their
 // own, which cannot be sent to the vendor until the order's deposit is paid. Taking the same quote again
 // answers the order already made. Cancelling releases the holds once.
 import { In, type DataSource, type EntityManager } from 'typeorm'
@@ -23,7 +23,7 @@ import { salesSettings } from './salesSettings.js'
 import { salesOrderDetail } from './salesOrderRead.js'
 
 /** The doc_type of an order's holds (stock_reservations): holds, not stock moves. */
-export const SALES_ORDER_HOLDS = 'sales_order'
+export const SALES_ORDER_DOC = 'sales_order'
 
 type Actor = AuditActor & { userId: number }
 
@@ -49,7 +49,7 @@ async function holdStock(em: EntityManager, actor: Actor, order: SalesOrder, lin
   }
   if (!holds.length) return
   try {
-    await reserve(em, actor, { doc: { docType: SALES_ORDER_HOLDS, docId: order.id }, lines: holds })
+    await reserve(em, actor, { doc: { docType: SALES_ORDER_DOC, docId: order.id }, lines: holds })
   } catch (err) {
     if (err instanceof AppError && err.code === 'insufficient_stock') {
       throw AppError.conflict('stock_taken', `The stock changed while this order was being made: ${err.message} Nothing was held; try again.`)
@@ -144,7 +144,7 @@ export async function cancelSalesOrderIn(em: EntityManager, actor: Actor, id: nu
   if (lines.some((l) => l.qtyHandedOver > 0)) {
     throw AppError.conflict('sales_order_wrong_status', 'Goods of this order have left; take a return instead.', { params: { orderStatus: 'handed_over' } })
   }
-  const released = await releaseReservations(em, actor, { docType: SALES_ORDER_HOLDS, docId: id })
+  const released = await releaseReservations(em, actor, { docType: SALES_ORDER_DOC, docId: id })
   await em.update(SalesOrderLine, { salesOrderId: id }, { qtyReserved: 0 })
   await em.update(SalesOrder, { id }, { status: 'cancelled', cancelReason: reason, cancelledBy: actor.userId, cancelledAt: new Date() })
   await audit(em, actor, 'sales_order.cancel', 'sales_order', id, { number: order.number, reason, released })

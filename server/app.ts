@@ -20,6 +20,7 @@ import { costReplacer } from './services/costVisibility.js'
 import { costScope } from './http/costScope.js'
 import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
 import { createPayProvider } from './services/payments/payProvider.js'
+import { settleCardPaymentIn } from './services/sales/cardDeposits.js'
 import { SignInThrottle } from './services/signInThrottle.js'
 import { createLogger } from './logger.js'
 
@@ -108,7 +109,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     passport: pp,
     throttle: new SignInThrottle(config.signin, config.db),
     pay: createPayProvider(config.pay),
-    payEventHandlers: {},
+    payEventHandlers: { 'payment_intent.succeeded': settleCardPaymentIn },
   }
   const app = express()
   app.disable('x-powered-by')

@@ -1,10 +1,11 @@
 // Sales orders at the counter: the counter (and admin) takes quotes into orders, cancels them and records
 // cash and cheque payments; the warehouse, the buyer (special orders) and viewers read them.
-import { handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, salesOrderQuerySchema, salesSettingsSchema } from '../../shared/schemas/salesOrders.js'
+import { cardConfirmSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, salesOrderQuerySchema, salesSettingsSchema } from '../../shared/schemas/salesOrders.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
+import { confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
 import { recordPaymentIn } from '../services/sales/payments.js'
 import { listSalesOrders, salesOrderDetail } from '../services/sales/salesOrderRead.js'
 import { salesSettings, updateSalesSettings } from '../services/sales/salesSettings.js'
@@ -36,7 +37,11 @@ export default (ctx: AppContext) =>
     { method: 'get', path: '/:id', access: readers, handler: (req) => salesOrderDetail(ctx.ds, id(req.params.id)) },
     stockStep(ctx, {
       path: '/:id/cancel', access: counter, id: orderId, body: salesOrderCancelSchema,
-      run: (em, { req, input, id: order }) => cancelSalesOrderIn(em, actorOf(req), order, input.reason),
+      // Settled card payments go back through the provider in the same transaction (idempotent refunds).
+      run: async (em, { req, input, id: order }) => {
+        const done = await cancelSalesOrderIn(em, actorOf(req), order, input.reason)
+        return { ...done, refunded: await refundCardPaymentsIn(em, ctx.pay, actorOf(req), order) }
+      },
     }),
     { method: 'get', path: '/:id/payments', access: readers, handler: async (req) => (await salesOrderDetail(ctx.ds, id(req.params.id))).payments },
     stockStep(ctx, {
@@ -46,4 +51,14 @@ export default (ctx: AppContext) =>
         return { id: p.id, salesOrderId: order, method: p.method, amount: p.amount, status: p.status, reference: p.reference }
       },
     }),
+    // Card deposits: the card is entered on the provider's side; Lumenyard starts the payment and confirms it
+    // with the provider's token; the provider's signed event settles it (routes/payments.ts).
+    stockStep(ctx, {
+      path: '/:id/card-deposits', access: counter, id: orderId, status: 201,
+      run: (em, { req, id: order }) => startCardDepositIn(em, ctx.pay, actorOf(req), order),
+    }),
+    {
+      method: 'post', path: '/:id/card-deposits/:paymentId/confirm', access: counter,
+      handler: (req) => confirmCardDeposit(ctx.ds, ctx.pay, id(req.params.id), idParam(req.params.paymentId, 'payment_not_found'), parseBody(cardConfirmSchema, req.body).cardToken),
+    },
   ])

@@ -60,6 +60,8 @@ export const AUDIT_ACTIONS = {
   'sales_order.create': 'document',
   'sales_order.cancel': 'document',
   'payment.record': 'document',
+  'payment.card_start': 'document',
+  'payment.refund': 'document',
   'suggestion.update': 'document',
   'suggestion.dismiss': 'document',
   'settings.update': 'settings',

@@ -60,6 +60,8 @@ export const auditWordsEn = {
     sales_order_create: 'Sales order booked',
     sales_order_cancel: 'Sales order cancelled',
     payment_record: 'Payment recorded',
+    payment_card_start: 'Card deposit started',
+    payment_refund: 'Card payment refunded',
     reorder_accept: 'Reorder suggestions accepted',
     suggestion_update: 'Suggested quantity changed',
     suggestion_dismiss: 'Suggestion dismissed',

@@ -59,6 +59,8 @@ export const auditWordsEs: typeof auditWordsEn = {
     sales_order_create: 'Pedido de venta registrado',
     sales_order_cancel: 'Pedido de venta anulado',
     payment_record: 'Pago anotado',
+    payment_card_start: 'Anticipo con tarjeta iniciado',
+    payment_refund: 'Pago con tarjeta reembolsado',
     reorder_accept: 'Sugerencias de reorden aceptadas',
     suggestion_update: 'Cantidad sugerida cambiada',
     suggestion_dismiss: 'Sugerencia descartada',

@@ -293,6 +293,10 @@ export const ERROR_CODES = {
   payment_provider_unreachable: [],
   payment_provider_failed: [],
   payment_signature_invalid: [],
+  deposit_already_paid: ['order'],
+  payment_not_found: [],
+  payment_not_pending: [],
+  card_token_format: [],
 
   // Records looked up by id or code
   record_not_found: [],

@@ -1,7 +1,7 @@
 // Sales orders at the counter: made by taking a quote, cancelled while nothing has left (holds released),
 // and the payments recorded against them by hand (cash, cheque).
 import { z } from 'zod'
-import { issueOf } from '../errors/zodProblems.js'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import type { PaymentMethod, PaymentStatus, SalesOrderStatus } from '../sales/salesOrderTerms.js'
 import { percentSchema, priceSchema } from './pricing.js'
 import { idSchema } from './stock.js'
@@ -29,6 +29,12 @@ export const handPaymentSchema = z
     if (v.method === 'cheque' && !v.reference) ctx.addIssue({ code: 'custom', path: ['reference'], ...issueOf('cheque_number_needed') })
   })
 export type HandPaymentInput = z.infer<typeof handPaymentSchema>
+
+/**
+ * Confirming a card deposit: the token the payment provider gave for the card entered on its side. Never a
+ * card number (a token starts with the provider's `pm_` and is not all digits); no other field is taken.
+ */
+export const cardConfirmSchema = z.object({ cardToken: z.string().trim().regex(/^pm_[A-Za-z0-9_]{3,80}$/, issueCode('card_token_format')) }).strict()
 
 export const salesSettingsSchema = z.object({ depositPercent: percentSchema })
 export type SalesSettings = z.infer<typeof salesSettingsSchema>

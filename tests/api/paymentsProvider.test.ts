@@ -2,36 +2,29 @@
 // the app's webhook: the provider's signature is checked with the SDK, a bad one is refused with nothing
 // recorded, and an event received twice is recorded once (keyed by the provider's event id).
 import { createHmac, randomBytes } from 'node:crypto'
-import type { Server } from 'node:http'
 import Stripe from 'stripe'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ConfigError, loadConfig, LOCAL_PAY_SECRET_KEY, LOCAL_PAY_WEBHOOK_SECRET } from '../../server/config.js'
 import { AppError } from '../../server/errors.js'
-import { FAKE_CARD_TOKENS, startPayFake, type PayFake } from '../../server/fakes/payFake.js'
+import { FAKE_CARD_TOKENS, type PayFake } from '../../server/fakes/payFake.js'
 import { PAYMENT_WEBHOOK_PATH } from '../../server/routes/payments.js'
 import { createPayProvider } from '../../server/services/payments/payProvider.js'
-import { startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import type { ApiHarness } from '../support/apiHarness.js'
+import { startPayHarness, type PayHarness } from '../support/payFakeHarness.js'
 
 let h: ApiHarness
 let fake: PayFake
-let server: Server
+let pay: PayHarness
 const tag = randomBytes(4).toString('hex')
 // Used only for its documented test helper (generateTestHeaderString); it never sends a request.
 const sdk = new Stripe('sk_test_unused')
 
 beforeAll(async () => {
-  fake = await startPayFake({ port: 0, secretKey: LOCAL_PAY_SECRET_KEY, webhookSecret: LOCAL_PAY_WEBHOOK_SECRET, retryMs: 20 })
-  h = await startApiHarness({ LUMENYARD_PAY_PORT: String(fake.port) })
-  server = await new Promise<Server>((resolve) => {
-    const s = h.built.app.listen(0, '127.0.0.1', () => resolve(s))
-  })
-  const address = server.address()
-  fake.webhookUrl = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}${PAYMENT_WEBHOOK_PATH}`
+  pay = await startPayHarness()
+  ;({ h, fake } = pay)
 })
 afterAll(async () => {
-  await fake?.close()
-  await new Promise<void>((resolve) => (server ? server.close(() => resolve()) : resolve()))
-  await h?.close()
+  await pay?.close()
 })
 
 async function eventRows(eventId: string): Promise<{ type: string; amount: string | null; currency: string | null; deliveries: number; object_id: string | null }[]> {

@@ -259,4 +259,6 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/reports/vendors/export': { access: ['admin', 'buyer'], query: 'from=2026-01-01&to=2026-01-31' },
   // Card payments: the provider's webhook has no session; it is public and proves itself by its signature.
   'POST /api/payments/webhook': { access: 'public' },
+  'POST /api/sales-orders/:id/card-deposits': { access: ['admin', 'counter'] },
+  'POST /api/sales-orders/:id/card-deposits/:paymentId/confirm': { access: ['admin', 'counter'] },
 }

@@ -436,6 +436,10 @@ export default {
   card_declined: 'The card was declined. Ask the customer for another card, or take the payment as cash or cheque.',
   payment_provider_unreachable: 'The card payment service could not be reached, so nothing was charged. Try again in a moment.',
   payment_provider_failed: 'The card payment service refused the request, so nothing was charged. Try again; if it keeps failing, tell your administrator.',
+  deposit_already_paid: 'The deposit on sales order {order} is already paid.',
+  payment_not_found: 'That payment was not found on this order.',
+  payment_not_pending: 'This card payment is no longer waiting for a card. Reload the order to see it.',
+  card_token_format: 'The card reference from the payment service is not valid. Card numbers are never typed into Lumenyard.',
   payment_signature_invalid: 'This payment notice was refused: its signature does not match the payment service.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {

@@ -435,6 +435,10 @@ export default {
   card_declined: 'La tarjeta fue rechazada. Pida al cliente otra tarjeta o cobre en efectivo o con cheque.',
   payment_provider_unreachable: 'No se pudo contactar con el servicio de pago con tarjeta, así que no se cobró nada. Inténtelo de nuevo en un momento.',
   payment_provider_failed: 'El servicio de pago con tarjeta rechazó la solicitud, así que no se cobró nada. Inténtelo de nuevo; si sigue fallando, avise a su administrador.',
+  deposit_already_paid: 'El anticipo del pedido de venta {order} ya está pagado.',
+  payment_not_found: 'No se encontró ese pago en este pedido.',
+  payment_not_pending: 'Este pago con tarjeta ya no espera una tarjeta. Vuelva a cargar el pedido para verlo.',
+  card_token_format: 'La referencia de tarjeta del servicio de pago no es válida. Los números de tarjeta nunca se escriben en Lumenyard.',
   payment_signature_invalid: 'Se rechazó este aviso de pago: su firma no coincide con el servicio de pago.',
   values: {
     orderStatus: { booked: 'registrado', ready: 'listo', handed_over: 'entregado', cancelled: 'anulado' },

@@ -1,0 +1,133 @@
+// Card deposits on a sales order through the payment provider (services/payments/payProvider.ts). Starting
+// one makes a payment intent for the deposit still due and a 'pending' card payment row naming it; the card is
+// entered on the provider's side and confirmed with its token; the provider's signed event then settles the
+// row (deposit_paid rewritten in the same transaction). Cancelling an order refunds its settled card payments.
+import type { DataSource, EntityManager } from 'typeorm'
+import { addMoney, compareMoney, subtractMoney } from '../../../shared/money.js'
+import { fromMinorUnits, toMinorUnits } from '../../../shared/payments/minorUnits.js'
+import { Payment } from '../../entities/SalesOrder.js'
+import { AppError } from '../../errors.js'
+import { audit, type AuditActor } from '../auditService.js'
+import type { PayProvider, ProviderEvent } from '../payments/payProvider.js'
+import { recordPaymentIn, refreshPaid } from './payments.js'
+import { lockSalesOrder } from './salesOrderWrite.js'
+
+export interface CardDepositView {
+  paymentId: number
+  salesOrderId: number
+  amount: string
+  status: string
+  /** The provider's payment intent (its id only: no card detail ever reaches Lumenyard). */
+  intentId: string
+  providerStatus: string
+}
+
+const view = (p: Payment, providerStatus: string): CardDepositView => ({
+  paymentId: p.id, salesOrderId: p.salesOrderId, amount: p.amount, status: p.status, intentId: p.reference ?? '', providerStatus,
+})
+
+/**
+ * Starts a card deposit for the deposit still due. The order is locked first, so a second submit waits and
+ * then finds the pending card payment; the provider call carries an idempotency key made from the order and
+ * its count of card payments, so a retried transaction gets the same payment intent back, never a second one.
+ */
+export async function startCardDepositIn(em: EntityManager, pay: PayProvider, actor: AuditActor, orderId: number): Promise<CardDepositView> {
+  const order = await lockSalesOrder(em, orderId)
+  if (order.status === 'cancelled' || order.status === 'handed_over') {
+    throw AppError.conflict('sales_order_wrong_status', `A sales order that is ${order.status} takes no deposit.`, { params: { orderStatus: order.status } })
+  }
+  const pending = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', status: 'pending' } })
+  if (pending) return view(pending, 'requires_payment_method')
+  const due = subtractMoney(order.depositRequired, order.depositPaid)
+  if (compareMoney(due, '0') <= 0) {
+    throw AppError.conflict('deposit_already_paid', `The deposit on ${order.number} is paid.`, { params: { order: order.number ?? String(orderId) } })
+  }
+  const cards: { n: number }[] = await em.query("SELECT COUNT(*) AS n FROM payments WHERE sales_order_id = ? AND method = 'card'", [orderId])
+  const intent = await pay.createIntent({
+    amountMinor: toMinorUnits(due, pay.currency),
+    description: `Deposit, sales order ${order.number}`,
+    metadata: { salesOrderId: String(orderId), salesOrder: order.number ?? '' },
+    idempotencyKey: `lumenyard-deposit-${orderId}-${Number(cards[0]?.n ?? 0) + 1}`,
+  })
+  const payment = await em.save(em.create(Payment, {
+    salesOrderId: orderId, method: 'card', amount: due, status: 'pending', reference: intent.id, providerEventId: null, recordedBy: actor.userId, refundedAmount: '0.00',
+  }))
+  await audit(em, actor, 'payment.card_start', 'sales_order', orderId, { number: order.number, paymentId: payment.id, amount: due, intent: intent.id })
+  return view(payment, intent.status)
+}
+
+/**
+ * Confirms a pending card deposit with the token the provider gave for the card entered on its side. No
+ * database lock is held while the provider answers; the payment is settled by the provider's event.
+ */
+export async function confirmCardDeposit(ds: DataSource, pay: PayProvider, orderId: number, paymentId: number, cardToken: string): Promise<CardDepositView> {
+  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
+  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
+  if (payment.status !== 'pending') {
+    throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
+  }
+  const intent = await pay.confirmIntent(payment.reference, cardToken, `lumenyard-confirm-${payment.id}-${cardToken}`)
+  return view(payment, intent.status)
+}
+
+const SYSTEM: AuditActor = { userId: null }
+
+/** The provider's `payment_intent.succeeded` event: settles the pending card payment it names, once. */
+export async function settleCardPaymentIn(em: EntityManager, event: ProviderEvent): Promise<string> {
+  const intent = event.data.object as unknown as { id: string; amount_received: number; currency: string; metadata?: Record<string, string> }
+  const orderId = Number(intent.metadata?.salesOrderId)
+  if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
+  let order
+  try {
+    order = await lockSalesOrder(em, orderId)
+  } catch (err) {
+    if (err instanceof AppError && err.status === 404) return 'no_order'
+    throw err
+  }
+  const amount = fromMinorUnits(intent.amount_received, intent.currency)
+  const payment = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', reference: intent.id }, lock: { mode: 'pessimistic_write' } })
+  if (payment && payment.status !== 'pending') return payment.status === 'failed' ? 'order_cancelled' : 'already_recorded'
+  if (!payment) {
+    try {
+      await recordPaymentIn(em, SYSTEM, orderId, { method: 'card', amount, reference: intent.id, status: 'settled', providerEventId: event.id })
+      return 'settled'
+    } catch (err) {
+      if (err instanceof AppError) return err.code.slice(0, 40)
+      throw err
+    }
+  }
+  await em.update(Payment, { id: payment.id }, { status: 'settled', amount, providerEventId: event.id })
+  const paid = await refreshPaid(em, orderId)
+  await audit(em, SYSTEM, 'payment.record', 'sales_order', orderId, { number: order.number, paymentId: payment.id, method: 'card', amount, reference: intent.id, paid, event: event.id })
+  return 'settled'
+}
+
+/**
+ * On cancellation (inside its transaction, the order locked): every settled card payment is refunded in full
+ * through the provider, keyed by the payment and what was refunded before, so a retried transaction repeats
+ * the same refund instead of making a second; pending card payments are closed as failed.
+ */
+export async function refundCardPaymentsIn(em: EntityManager, pay: PayProvider, actor: AuditActor, orderId: number): Promise<string> {
+  const payments = await em.find(Payment, { where: { salesOrderId: orderId, method: 'card' }, lock: { mode: 'pessimistic_write' } })
+  let refunded = '0.00'
+  for (const p of payments) {
+    if (p.status === 'pending') {
+      await em.update(Payment, { id: p.id }, { status: 'failed' })
+      continue
+    }
+    if (p.status !== 'settled' || !p.reference) continue
+    const left = subtractMoney(p.amount, p.refundedAmount)
+    if (compareMoney(left, '0') <= 0) continue
+    const refund = await pay.refund({
+      intentId: p.reference,
+      amountMinor: toMinorUnits(left, pay.currency),
+      idempotencyKey: `lumenyard-refund-${p.id}-${p.refundedAmount}`,
+      metadata: { salesOrderId: String(orderId), paymentId: String(p.id) },
+    })
+    await em.update(Payment, { id: p.id }, { refundedAmount: p.amount, status: 'refunded' })
+    await audit(em, actor, 'payment.refund', 'sales_order', orderId, { paymentId: p.id, amount: left, refund: refund.id })
+    refunded = addMoney(refunded, left)
+  }
+  await refreshPaid(em, orderId)
+  return refunded
+}

@@ -24,6 +24,7 @@ import devices from './devices.js'
 import counts from './counts.js'
 import reports from './reports.js'
 import dataImports from './dataImports.js'
+import businessExport from './businessExport.js'
 import pricing from './pricing.js'
 import setup from './setup.js'
 import quotes from './quotes.js'
@@ -32,7 +33,7 @@ import audit from './audit.js'
 import today from './today.js'
 import payments from './payments.js'
 
-export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, pricing, setup, quotes, salesOrders, salesSettingsRoutes, audit, today, payments]
+export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, businessExport, pricing, setup, quotes, salesOrders, salesSettingsRoutes, audit, today, payments]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

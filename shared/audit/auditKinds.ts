@@ -93,6 +93,7 @@ export const AUDIT_ACTIONS = {
   'item.import': 'records',
   'data_import.commit': 'records',
   'data_import.reverse': 'records',
+  'business.export': 'records',
   'lot.update': 'records',
   'customer.create': 'records',
   'customer.update': 'records',

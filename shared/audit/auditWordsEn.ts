@@ -94,6 +94,7 @@ export const auditWordsEn = {
     item_import: 'Items imported',
     data_import_commit: 'Spreadsheet imported',
     data_import_reverse: 'Import undone',
+    business_export: 'Everything taken out (whole-business download)',
     lot_update: 'Lot note changed',
     customer_create: 'Customer added',
     customer_update: 'Customer changed',
@@ -128,7 +129,7 @@ export const auditWordsEn = {
   subjectsBare: {
     user: 'A person', purchase_order: 'A purchase order', pick_list: 'A pick list', pick_transfer: 'A pick list', job: 'A job',
     customer: 'A customer', vendor: 'A vendor', item: 'An item', lot: 'A lot', warehouse: 'A warehouse', bin: 'A bin', takeoff: 'A takeoff',
-    bom: 'A bill of materials', cycle_count: 'A count', transfer: 'A transfer', item_warehouse: 'An item in a warehouse', data_import: 'An import', price_level: 'A price level', quote: 'A quote', sales_order: 'A sales order',
+    bom: 'A bill of materials', cycle_count: 'A count', transfer: 'A transfer', item_warehouse: 'An item in a warehouse', data_import: 'An import', business: 'The whole business', price_level: 'A price level', quote: 'A quote', sales_order: 'A sales order',
   },
   settingsAreas: { purchasing: 'purchasing', counts: 'counts', takeoff: 'takeoffs', company: 'company', setup: 'setup', sales: 'counter sales' },
   sheet: {

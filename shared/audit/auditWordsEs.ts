@@ -93,6 +93,7 @@ export const auditWordsEs: typeof auditWordsEn = {
     item_import: 'Artículos importados',
     data_import_commit: 'Hoja de cálculo importada',
     data_import_reverse: 'Importación deshecha',
+    business_export: 'Todos los datos descargados (descarga del negocio completo)',
     lot_update: 'Nota del lote cambiada',
     customer_create: 'Cliente agregado',
     customer_update: 'Cliente modificado',
@@ -125,7 +126,7 @@ export const auditWordsEs: typeof auditWordsEn = {
   subjectsBare: {
     user: 'Una persona', purchase_order: 'Una orden de compra', pick_list: 'Una lista de preparación', pick_transfer: 'Una lista de preparación', job: 'Una obra',
     customer: 'Un cliente', vendor: 'Un proveedor', item: 'Un artículo', lot: 'Un lote', warehouse: 'Un almacén', bin: 'Una ubicación', takeoff: 'Un cálculo de materiales',
-    bom: 'Una lista de materiales', cycle_count: 'Un conteo', transfer: 'Un traslado', item_warehouse: 'Un artículo en un almacén', data_import: 'Una importación', price_level: 'Un nivel de precios', quote: 'Una cotización', sales_order: 'Un pedido de venta',
+    bom: 'Una lista de materiales', cycle_count: 'Un conteo', transfer: 'Un traslado', item_warehouse: 'Un artículo en un almacén', data_import: 'Una importación', business: 'Todo el negocio', price_level: 'Un nivel de precios', quote: 'Una cotización', sales_order: 'Un pedido de venta',
   },
   settingsAreas: { purchasing: 'compras', counts: 'conteos', takeoff: 'cálculo de materiales', company: 'empresa', setup: 'puesta en marcha', sales: 'ventas de mostrador' },
   sheet: {

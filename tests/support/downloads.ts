@@ -27,3 +27,28 @@ export function workbookTexts(book: ExcelJS.Workbook): string[] {
   })))
   return texts
 }
+
+/** Every file of a zip archive by name, read with yauzl (the same reader the upload guard uses). */
+export async function unzipEntries(bytes: Buffer): Promise<Map<string, Buffer>> {
+  const { default: yauzl } = await import('yauzl')
+  return new Promise((resolve, reject) => {
+    yauzl.fromBuffer(bytes, { lazyEntries: true, validateEntrySizes: true }, (openError, zip) => {
+      if (openError || !zip) return reject(openError ?? new Error('not a zip'))
+      const files = new Map<string, Buffer>()
+      zip.on('error', reject)
+      zip.on('end', () => resolve(files))
+      zip.on('entry', (entry: import('yauzl').Entry) => {
+        zip.openReadStream(entry, (streamError, stream) => {
+          if (streamError || !stream) return reject(streamError ?? new Error('unreadable entry'))
+          const chunks: Buffer[] = []
+          stream.on('data', (c: Buffer) => chunks.push(c))
+          stream.on('end', () => {
+            files.set(entry.fileName, Buffer.concat(chunks))
+            zip.readEntry()
+          })
+        })
+      })
+      zip.readEntry()
+    })
+  })
+}

@@ -216,33 +216,53 @@ export function wrappedHeight(values: readonly ExcelJS.CellValue[], widths: read
   return lines > 1 ? rowHeightFor(lines) : 0
 }
 
-/** A table: one header row, then one row per record. */
-export function sheet<Row>(table: SheetSpec<Row>): Sheet {
-  return (book) => {
-    const spec = { ...table, columns: visibleColumns(table.columns) }
-    const widths = columnWidths(spec.columns, spec.rows)
-    const ws = (book.addWorksheet as ExcelJS.Workbook['addWorksheet'])(spec.name.slice(0, 31), {
-      views: [{ state: 'frozen', ySplit: 1 }],
-      ...printOptions({ title: spec.title ?? spec.name, orientation: spec.orientation ?? orientationFor(widths.map((w) => w.width)), titleRows: '1:1' }),
-    })
-    const alignments = spec.columns.map((c, i) => alignmentOf(c.kind, widths[i].wrap))
-    ws.columns = spec.columns.map((c, i) => {
-      const numFmt = c.numFmt ?? numberFormat(c.kind, c.places)
-      return { header: c.header, width: widths[i].width, style: { ...(numFmt ? { numFmt } : {}), alignment: alignments[i] } }
-    })
-    if (spec.rows.length) ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: spec.columns.length } }
-    const head = ws.getRow(1)
-    headerRow(head, spec.columns.length)
-    spec.columns.forEach((c, i) => (head.getCell(i + 1).alignment = { ...alignments[i], wrapText: false, vertical: 'bottom' }))
-    head.commit()
-    for (const row of spec.rows) {
+/** A sheet whose rows are added one at a time; in a streamed workbook each row leaves memory as it is added. */
+export interface OpenSheet<Row> {
+  add(row: Row): void
+  done(): void
+}
+
+/**
+ * Opens a table sheet: the header row, print setup and column styles. Widths come from `sample` (the first rows,
+ * when they are at hand) or else from each column's header and `width`.
+ */
+export function openSheet<Row>(book: Book, table: Omit<SheetSpec<Row>, 'rows'>, sample: readonly Row[] = [], filter = true): OpenSheet<Row> {
+  const spec = { ...table, columns: visibleColumns(table.columns) }
+  const widths = sample.length
+    ? columnWidths(spec.columns, sample)
+    : spec.columns.map((c) => ({ width: Math.max(MIN_WIDTH, c.header.length + 2, Math.min(c.width ?? 14, DEFAULT_MAX_WIDTH)), wrap: false }))
+  const ws = (book.addWorksheet as ExcelJS.Workbook['addWorksheet'])(spec.name.slice(0, 31), {
+    views: [{ state: 'frozen', ySplit: 1 }],
+    ...printOptions({ title: spec.title ?? spec.name, orientation: spec.orientation ?? orientationFor(widths.map((w) => w.width)), titleRows: '1:1' }),
+  })
+  const alignments = spec.columns.map((c, i) => alignmentOf(c.kind, widths[i].wrap))
+  ws.columns = spec.columns.map((c, i) => {
+    const numFmt = c.numFmt ?? numberFormat(c.kind, c.places)
+    return { header: c.header, width: widths[i].width, style: { ...(numFmt ? { numFmt } : {}), alignment: alignments[i] } }
+  })
+  if (filter) ws.autoFilter = { from: { row: 1, column: 1 }, to: { row: 1, column: spec.columns.length } }
+  const head = ws.getRow(1)
+  headerRow(head, spec.columns.length)
+  spec.columns.forEach((c, i) => (head.getCell(i + 1).alignment = { ...alignments[i], wrapText: false, vertical: 'bottom' }))
+  head.commit()
+  return {
+    add(row) {
       const values = spec.columns.map((c) => cellValue(c.kind, c.value(row)))
       const added = ws.addRow(values)
       const height = wrappedHeight(values, widths)
       if (height) added.height = height
       added.commit()
-    }
-    ;(ws as { commit?: () => void }).commit?.()
+    },
+    done: () => (ws as { commit?: () => void }).commit?.(),
+  }
+}
+
+/** A table: one header row, then one row per record. */
+export function sheet<Row>(table: SheetSpec<Row>): Sheet {
+  return (book) => {
+    const open = openSheet(book, table, table.rows, table.rows.length > 0)
+    for (const row of table.rows) open.add(row)
+    open.done()
   }
 }
 

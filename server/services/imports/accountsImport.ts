@@ -23,6 +23,7 @@ export const ACCOUNTS_SPEC: ImportSpec = {
     { key: 'exemptCertificate', header: 'Tax-exempt certificate', aliases: ['Tax exempt certificate', 'Exemption certificate'], kind: 'text' },
     { key: 'exemptUntil', header: 'Exempt until', kind: 'text' },
   ],
+  ignore: ['Active'],
   maxRows: 20_000,
   maxColumns: 30,
 }

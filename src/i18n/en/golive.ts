@@ -50,6 +50,14 @@ export default {
     keep: 'Keep it',
     safety: 'Glass block is heavy: a full pallet weighs several hundred kilograms. Counting stock for your opening sheet means handling heavy packs — use the right lifting equipment and follow your site’s safety rules.',
   },
+  everythingOut: {
+    title: 'Take everything out',
+    intro: 'Download the whole business as one zip: a spreadsheet for each kind of record (items, stock by bin and lot with cost, the stock ledger, accounts, jobs, vendors and what they sell you, purchase orders, receipts, quotes, people without their passwords, settings) and a README that explains every column. The stock, accounts and open orders files use the columns of the imports on this page, so they can be brought in again. Only administrators can download it, and each download is recorded in the audit trail.',
+    download: 'Download everything (.zip)',
+    preparing: 'Preparing the download',
+    received: 'Preparing the download: {kb} KB received so far.',
+    done: 'Saved {file}.',
+  },
   setup: {
     title: 'Getting started',
     intro: 'A few steps to go live with your own business. Each shows whether it is done; come back to this list any time from the start page until you hide it.',

@@ -50,6 +50,14 @@ export default {
     keep: 'Conservarla',
     safety: 'El bloque de vidrio es pesado: una tarima completa pesa varios cientos de kilos. Contar la existencia para su hoja inicial implica mover empaques pesados: use el equipo de carga adecuado y siga las normas de seguridad de su lugar de trabajo.',
   },
+  everythingOut: {
+    title: 'Llevarse todos los datos',
+    intro: 'Descargue todo el negocio en un solo zip: una hoja de cálculo por cada tipo de registro (artículos, existencias por ubicación y lote con su costo, el libro de movimientos, cuentas, obras, proveedores y lo que le venden, órdenes de compra, recepciones, cotizaciones, personas sin sus contraseñas, ajustes) y un README que explica cada columna. Los archivos de existencias, cuentas y órdenes abiertas usan las columnas de las importaciones de esta página, así que pueden volver a importarse. Solo los administradores pueden descargarlo, y cada descarga queda en el registro de auditoría.',
+    download: 'Descargar todo (.zip)',
+    preparing: 'Preparando la descarga',
+    received: 'Preparando la descarga: {kb} KB recibidos hasta ahora.',
+    done: 'Se guardó {file}.',
+  },
   setup: {
     title: 'Primeros pasos',
     intro: 'Unos pocos pasos para empezar a trabajar con su propio negocio. Cada uno indica si está hecho; vuelva a esta lista desde la página de inicio cuando quiera, hasta que la oculte.',

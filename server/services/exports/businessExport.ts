@@ -1,0 +1,507 @@
+// The whole business in one zip: one workbook per kind of record, and a README.txt that says what each file
+// and column holds. Where an import reads a kind (items, stock by bin and lot, accounts, open purchase orders,
+// usage history), its file uses that import's columns, so the zip can be brought into another Lumenyard.
+// Everything is read in one consistent snapshot and streamed: rows go from the database cursor to the
+// workbook to the zip to the answer, and the writer waits whenever the reader is slower, so memory does not
+// grow with the ledger. Users go out without password hashes or session data; no setting holds a secret.
+import { once } from 'node:events'
+import { PassThrough, type Writable } from 'node:stream'
+import { ZipArchive, type Archiver } from 'archiver'
+import ExcelJS from 'exceljs'
+import type { DataSource, QueryRunner } from 'typeorm'
+import { audit, type AuditActor } from '../auditService.js'
+import { ITEM_COLUMNS, columnOf } from '../catalogSheet.js'
+import { OPENING_STOCK_SPEC } from '../imports/openingStockImport.js'
+import { ACCOUNTS_SPEC } from '../imports/accountsImport.js'
+import { PURCHASE_ORDERS_SPEC } from '../imports/purchaseOrdersImport.js'
+import { USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
+import { VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
+import type { ImportSpec } from '../imports/importTypes.js'
+import { openSheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
+
+type Raw = Record<string, unknown>
+
+interface PartColumn {
+  header: string
+  kind: CellKind
+  /** What the column holds, for the README. */
+  about: string
+  value: (row: Raw) => CellInput
+  places?: number
+}
+
+export interface ExportPart {
+  /** The file's name in the zip (without .xlsx) and its sheet's tab. */
+  file: string
+  sheet: string
+  about: string
+  columns: PartColumn[]
+  /** Rows in a stable order; streamed from the database. */
+  sql: string
+}
+
+const v = (key: string) => (row: Raw) => row[key] as CellInput
+const col = (header: string, kind: CellKind, key: string, about: string, places?: number): PartColumn => ({ header, kind, about, value: v(key), places })
+
+/** The columns of an import, in its own order and headers: the exported file reads back in. */
+function importColumns(spec: ImportSpec, kinds: Record<string, { kind: CellKind; key: string; about: string; places?: number }>): PartColumn[] {
+  return spec.columns.filter((c) => kinds[c.key]).map((c) => ({ header: c.header, ...kinds[c.key], value: v(kinds[c.key].key) }))
+}
+
+const DAY = (expr: string) => `DATE_FORMAT(${expr}, '%Y-%m-%d')`
+
+export const EXPORT_PARTS: readonly ExportPart[] = [
+  {
+    file: 'items', sheet: 'Items',
+    about: 'The catalog, one row per item, in the columns of the item import (Stock → Import items reads this file back).',
+    columns: ITEM_COLUMNS.map((c) => ({
+      header: c.header,
+      kind: c.kind === 'decimal' ? 'decimal' : c.kind,
+      places: c.places,
+      about: c.required ? 'As in the item import template (required there).' : 'As in the item import template.',
+      value: (row: Raw) => (c.kind === 'boolean' ? Boolean(Number(row[columnOf(c.key)])) : (row[columnOf(c.key)] as CellInput)),
+    })),
+    sql: 'SELECT * FROM items ORDER BY sku',
+  },
+  {
+    file: 'warehouses', sheet: 'Warehouses',
+    about: 'Each warehouse.',
+    columns: [
+      col('Code', 'text', 'code', 'The warehouse code used in every other file.'),
+      col('Name', 'text', 'name', 'Its name.'),
+      col('Address', 'text', 'address', 'Where it is.'),
+      col('Bin pattern', 'text', 'bin_pattern', 'How its bin codes are made.'),
+      col('Active', 'boolean', 'active', 'no: taken out of use.'),
+    ],
+    sql: 'SELECT code, name, address, bin_pattern, active FROM warehouses ORDER BY code',
+  },
+  {
+    file: 'bins', sheet: 'Bins',
+    about: 'Each bin of each warehouse.',
+    columns: [
+      col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),
+      col('Bin', 'text', 'code', 'The bin code, unique within its warehouse.'),
+      col('Kind', 'text', 'kind', 'storage, receiving, staging or transit (stock on the way between warehouses).'),
+      col('Active', 'boolean', 'active', 'no: taken out of use.'),
+    ],
+    sql: 'SELECT w.code AS warehouse, b.code, b.kind, b.active FROM bins b JOIN warehouses w ON w.id = b.warehouse_id ORDER BY w.code, b.code',
+  },
+  {
+    file: 'lots', sheet: 'Lots',
+    about: 'Production lots of items (blocks of one lot share a tint).',
+    columns: [
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Lot', 'text', 'code', 'The lot code as printed by the maker.'),
+      col('Received', 'datetime', 'received_at', 'When it first came in (UTC).'),
+      col('Vendor code', 'text', 'vendor', 'Who supplied it, when known.'),
+      col('Tint note', 'text', 'tint_note', 'A note on the lot\'s tint.'),
+    ],
+    sql: 'SELECT i.sku, l.code, l.received_at, v.code AS vendor, l.tint_note FROM lots l JOIN items i ON i.id = l.item_id LEFT JOIN vendors v ON v.id = l.vendor_id ORDER BY i.sku, l.code',
+  },
+  {
+    file: 'stock-by-bin', sheet: 'Stock by bin',
+    about: 'Stock on hand by item, warehouse, bin and lot at each item\'s average cost in that warehouse, in the columns of the opening-stock import (Admin → Bring your data in reads this file back). Stock on the way between warehouses is in stock-on-the-way.xlsx.',
+    columns: [
+      ...importColumns(OPENING_STOCK_SPEC, {
+        sku: { kind: 'text', key: 'sku', about: 'The item.' },
+        warehouse: { kind: 'text', key: 'warehouse', about: 'The warehouse code.' },
+        bin: { kind: 'text', key: 'bin', about: 'The bin code.' },
+        lot: { kind: 'text', key: 'lot', about: 'The production lot (blank: not kept by lot).' },
+        quantity: { kind: 'integer', key: 'on_hand', about: 'On hand, in the item\'s stock unit.' },
+        unitCost: { kind: 'cost', key: 'avg_cost', about: 'The moving-average cost of one stock unit in that warehouse.' },
+      }),
+      col('Value', 'money', 'value', 'Quantity × unit cost (the import skips this column).'),
+    ],
+    sql: `SELECT i.sku, w.code AS warehouse, b.code AS bin, l.code AS lot, s.on_hand, COALESCE(iw.avg_cost, 0) AS avg_cost,
+            ROUND(s.on_hand * COALESCE(iw.avg_cost, 0), 2) AS value
+          FROM stock_balances s JOIN items i ON i.id = s.item_id JOIN bins b ON b.id = s.bin_id JOIN warehouses w ON w.id = s.warehouse_id
+          LEFT JOIN lots l ON l.id = s.lot_id LEFT JOIN item_warehouses iw ON iw.item_id = s.item_id AND iw.warehouse_id = s.warehouse_id
+          WHERE s.on_hand <> 0 AND b.kind <> 'transit' ORDER BY w.code, b.code, i.sku, l.code`,
+  },
+  {
+    file: 'stock-on-the-way', sheet: 'On the way',
+    about: 'Stock shipped from one warehouse and not yet put away at the other (in the transit bins).',
+    columns: [
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Warehouse', 'text', 'warehouse', 'The warehouse whose transit bin holds it.'),
+      col('Bin', 'text', 'bin', 'The transit bin.'),
+      col('Lot', 'text', 'lot', 'The production lot.'),
+      col('Quantity', 'integer', 'on_hand', 'In the item\'s stock unit.'),
+    ],
+    sql: `SELECT i.sku, w.code AS warehouse, b.code AS bin, l.code AS lot, s.on_hand
+          FROM stock_balances s JOIN items i ON i.id = s.item_id JOIN bins b ON b.id = s.bin_id JOIN warehouses w ON w.id = s.warehouse_id
+          LEFT JOIN lots l ON l.id = s.lot_id WHERE s.on_hand <> 0 AND b.kind = 'transit' ORDER BY w.code, i.sku`,
+  },
+  {
+    file: 'averages-and-minimums', sheet: 'Averages',
+    about: 'Per item and warehouse: the moving-average cost and the manual minimum.',
+    columns: [
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),
+      col('Average cost', 'cost', 'avg_cost', 'Moving-average cost of one stock unit.'),
+      col('Manual minimum', 'integer', 'min_qty', 'The minimum set by hand (blank: none).'),
+    ],
+    sql: 'SELECT i.sku, w.code AS warehouse, iw.avg_cost, iw.min_qty FROM item_warehouses iw JOIN items i ON i.id = iw.item_id JOIN warehouses w ON w.id = iw.warehouse_id ORDER BY i.sku, w.code',
+  },
+  {
+    file: 'moves', sheet: 'Moves',
+    about: 'The stock ledger: every move of stock, oldest first. The sum of a bin\'s moves is its stock.',
+    columns: [
+      col('Move', 'integer', 'id', 'The move\'s number.'),
+      col('At', 'datetime', 'at', 'When (UTC).'),
+      col('Type', 'text', 'move_type', 'receipt, issue, pick, adjustment, count, bin_move, transfer_out, transfer_in or opening.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),
+      col('Bin', 'text', 'bin', 'The bin code.'),
+      col('Lot', 'text', 'lot', 'The production lot.'),
+      col('Quantity', 'integer', 'qty', 'Stock units in (positive) or out (negative).'),
+      col('Unit cost', 'cost', 'unit_cost', 'Cost of one stock unit on this move.'),
+      col('Document', 'text', 'doc_type', 'What the move belongs to (a receipt, a pick list, a count, a transfer…).'),
+      col('Document id', 'integer', 'doc_id', 'That document\'s number.'),
+      col('Reason', 'text', 'reason', 'Why (adjustments).'),
+      col('Note', 'text', 'note', 'A note typed with the move.'),
+      col('By', 'text', 'username', 'Who made it (user name).'),
+    ],
+    sql: `SELECT m.id, m.at, m.move_type, i.sku, w.code AS warehouse, b.code AS bin, l.code AS lot, m.qty, m.unit_cost, m.doc_type, m.doc_id, m.reason, m.note, u.username
+          FROM stock_moves m JOIN items i ON i.id = m.item_id JOIN warehouses w ON w.id = m.warehouse_id JOIN bins b ON b.id = m.bin_id
+          LEFT JOIN lots l ON l.id = m.lot_id LEFT JOIN users u ON u.id = m.user_id ORDER BY m.id`,
+  },
+  {
+    file: 'usage-history', sheet: 'Usage history',
+    about: 'Past usage brought in by the usage-history import (kept beside real issues for reorder points), in its columns.',
+    columns: importColumns(USAGE_HISTORY_SPEC, {
+      sku: { kind: 'text', key: 'sku', about: 'The item.' },
+      warehouse: { kind: 'text', key: 'warehouse', about: 'The warehouse code.' },
+      day: { kind: 'text', key: 'day', about: 'The day, YYYY-MM-DD.' },
+      quantity: { kind: 'integer', key: 'qty', about: 'Stock units used that day.' },
+    }),
+    sql: `SELECT i.sku, w.code AS warehouse, ${DAY('h.day')} AS day, h.qty FROM usage_history h JOIN items i ON i.id = h.item_id JOIN warehouses w ON w.id = h.warehouse_id ORDER BY h.day, i.sku, w.code`,
+  },
+  {
+    file: 'price-levels', sheet: 'Price levels',
+    about: 'Selling price levels an account can be given (the accounts file names them by code).',
+    columns: [
+      col('Code', 'text', 'code', 'The level\'s code.'),
+      col('Name', 'text', 'name', 'Its name.'),
+      col('Percent off', 'decimal', 'percent_off', 'Percent off list price.', 2),
+      col('Active', 'boolean', 'active', 'no: no longer offered.'),
+    ],
+    sql: 'SELECT code, name, percent_off, active FROM price_levels ORDER BY code',
+  },
+  {
+    file: 'accounts', sheet: 'Accounts',
+    about: 'Contractor accounts with their price level and tax exemption, in the columns of the accounts import.',
+    columns: [
+      ...importColumns(ACCOUNTS_SPEC, {
+        code: { kind: 'text', key: 'code', about: 'The account code.' },
+        name: { kind: 'text', key: 'name', about: 'The contractor\'s name.' },
+        contactName: { kind: 'text', key: 'contact_name', about: 'Who to ask for.' },
+        email: { kind: 'text', key: 'email', about: 'E-mail.' },
+        phone: { kind: 'text', key: 'phone', about: 'Phone.' },
+        address: { kind: 'text', key: 'address', about: 'Address.' },
+        notes: { kind: 'text', key: 'notes', about: 'Notes.' },
+        priceLevel: { kind: 'text', key: 'price_level', about: 'The price level code (blank: list prices).' },
+        exemptCertificate: { kind: 'text', key: 'exempt_certificate', about: 'Tax-exempt certificate number.' },
+        exemptUntil: { kind: 'text', key: 'exempt_until', about: 'Last day the certificate holds, YYYY-MM-DD.' },
+      }),
+      col('Active', 'boolean', 'active', 'no: closed (the import skips this column).'),
+    ],
+    sql: `SELECT c.code, c.name, c.contact_name, c.email, c.phone, c.address, c.notes, pl.code AS price_level, t.exempt_certificate,
+            ${DAY('t.exempt_until')} AS exempt_until, c.active
+          FROM customers c LEFT JOIN customer_terms t ON t.customer_id = c.id LEFT JOIN price_levels pl ON pl.id = t.price_level_id ORDER BY c.code`,
+  },
+  {
+    file: 'jobs', sheet: 'Jobs',
+    about: 'Contractors\' jobs.',
+    columns: [
+      col('Account code', 'text', 'account', 'Whose job.'),
+      col('Job', 'text', 'name', 'The job\'s name.'),
+      col('Site address', 'text', 'site_address', 'Where the work is.'),
+      col('Status', 'text', 'status', 'Where the job stands.'),
+      col('Due', 'text', 'due', 'When it is due, YYYY-MM-DD.'),
+      col('Notes', 'text', 'notes', 'Notes.'),
+      col('Created', 'datetime', 'created_at', 'When it was entered (UTC).'),
+    ],
+    sql: `SELECT c.code AS account, j.name, j.site_address, j.status, ${DAY('j.due_date')} AS due, j.notes, j.created_at FROM jobs j JOIN customers c ON c.id = j.customer_id ORDER BY c.code, j.id`,
+  },
+  {
+    file: 'vendors', sheet: 'Vendors',
+    about: 'Vendors.',
+    columns: [
+      col('Vendor code', 'text', 'code', 'The vendor code used in every other file.'),
+      col('Name', 'text', 'name', 'Its name.'),
+      col('Contact', 'text', 'contact_name', 'Who to ask for.'),
+      col('E-mail', 'text', 'email', 'Where orders go.'),
+      col('Phone', 'text', 'phone', 'Phone.'),
+      col('Address', 'text', 'address', 'Address.'),
+      col('Terms', 'text', 'terms', 'Payment terms.'),
+      col('Currency', 'text', 'currency', 'ISO 4217 currency code.'),
+      col('Lead time days', 'integer', 'lead_time_days', 'Usual days from order to arrival.'),
+      col('Active', 'boolean', 'active', 'no: no longer bought from.'),
+    ],
+    sql: 'SELECT code, name, contact_name, email, phone, address, terms, currency, lead_time_days, active FROM vendors ORDER BY code',
+  },
+  {
+    file: 'vendor-items', sheet: 'Vendor items',
+    about: 'What each vendor sells us, in the columns of the vendors-with-items import.',
+    columns: importColumns(VENDOR_ITEMS_SPEC, {
+      vendor: { kind: 'text', key: 'vendor', about: 'The vendor code.' },
+      vendorName: { kind: 'text', key: 'vendor_name', about: 'The vendor\'s name.' },
+      sku: { kind: 'text', key: 'sku', about: 'Our item.' },
+      vendorSku: { kind: 'text', key: 'vendor_sku', about: 'The vendor\'s own code for it.' },
+      packQty: { kind: 'integer', key: 'pack_qty', about: 'Stock units in one of the vendor\'s packs.' },
+      minOrder: { kind: 'integer', key: 'min_order_qty', about: 'The fewest packs the vendor takes an order for.' },
+      unitCost: { kind: 'cost', key: 'unit_cost', about: 'Cost of one stock unit from this vendor.' },
+      leadTimeDays: { kind: 'integer', key: 'lead_time_days', about: 'Days from order to arrival for this item (blank: the vendor\'s).' },
+      preferred: { kind: 'boolean', key: 'preferred', about: 'yes: the vendor reorder suggestions use for this item.' },
+    }),
+    sql: `SELECT v.code AS vendor, v.name AS vendor_name, i.sku, vi.vendor_sku, vi.pack_qty, vi.min_order_qty, vi.unit_cost, vi.lead_time_days, vi.preferred
+          FROM vendor_items vi JOIN vendors v ON v.id = vi.vendor_id JOIN items i ON i.id = vi.item_id ORDER BY v.code, i.sku`,
+  },
+  {
+    file: 'open-purchase-orders', sheet: 'Open purchase orders',
+    about: 'Lines of the orders sent to vendors and not yet fully received, in the columns of the open purchase orders import.',
+    columns: importColumns(PURCHASE_ORDERS_SPEC, {
+      number: { kind: 'text', key: 'number', about: 'The order number.' },
+      vendor: { kind: 'text', key: 'vendor', about: 'The vendor code.' },
+      warehouse: { kind: 'text', key: 'warehouse', about: 'Where it arrives.' },
+      orderedOn: { kind: 'text', key: 'ordered_on', about: 'The day it was sent, YYYY-MM-DD.' },
+      expected: { kind: 'text', key: 'expected', about: 'The day the vendor said, YYYY-MM-DD.' },
+      sku: { kind: 'text', key: 'sku', about: 'The item.' },
+      qty: { kind: 'integer', key: 'qty_ordered', about: 'Stock units ordered.' },
+      received: { kind: 'integer', key: 'qty_received', about: 'Stock units received so far.' },
+      unitCost: { kind: 'cost', key: 'unit_cost', about: 'Cost agreed per stock unit.' },
+    }),
+    sql: `SELECT o.number, v.code AS vendor, w.code AS warehouse, ${DAY('COALESCE(o.sent_at, o.created_at)')} AS ordered_on, ${DAY('o.expected_date')} AS expected,
+            i.sku, l.qty_ordered, l.qty_received, l.unit_cost
+          FROM purchase_orders o JOIN purchase_order_lines l ON l.po_id = o.id JOIN vendors v ON v.id = o.vendor_id JOIN warehouses w ON w.id = o.warehouse_id JOIN items i ON i.id = l.item_id
+          WHERE o.status IN ('sent', 'partly_received') ORDER BY o.number, l.line_no`,
+  },
+  {
+    file: 'purchase-orders', sheet: 'Purchase orders',
+    about: 'Every purchase order, whatever its status.',
+    columns: [
+      col('Order number', 'text', 'number', 'The order number.'),
+      col('Vendor code', 'text', 'vendor', 'The vendor.'),
+      col('Ship to warehouse', 'text', 'warehouse', 'Where it arrives.'),
+      col('Status', 'text', 'status', 'draft, approved, sent, partly_received, received, closed or cancelled.'),
+      col('Currency', 'text', 'currency', 'ISO 4217 currency code.'),
+      col('Expected', 'text', 'expected', 'The day the vendor said, YYYY-MM-DD.'),
+      col('Total', 'money', 'total', 'The order\'s total.'),
+      col('Created', 'datetime', 'created_at', 'When it was made (UTC).'),
+      col('Sent', 'datetime', 'sent_at', 'When it went to the vendor (UTC).'),
+      col('Notes', 'text', 'notes', 'Notes.'),
+    ],
+    sql: `SELECT o.number, v.code AS vendor, w.code AS warehouse, o.status, o.currency, ${DAY('o.expected_date')} AS expected, o.total, o.created_at, o.sent_at, o.notes
+          FROM purchase_orders o JOIN vendors v ON v.id = o.vendor_id JOIN warehouses w ON w.id = o.warehouse_id ORDER BY o.number`,
+  },
+  {
+    file: 'purchase-order-lines', sheet: 'Purchase order lines',
+    about: 'Every line of every purchase order.',
+    columns: [
+      col('Order number', 'text', 'number', 'The order.'),
+      col('Line', 'integer', 'line_no', 'The line\'s place on the order.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Vendor SKU', 'text', 'vendor_sku', 'The vendor\'s code.'),
+      col('Description', 'text', 'description', 'As printed on the order.'),
+      col('Pack size', 'integer', 'pack_qty', 'Stock units per pack.'),
+      col('Packs ordered', 'integer', 'packs_ordered', 'Packs ordered.'),
+      col('Quantity ordered', 'integer', 'qty_ordered', 'Stock units ordered.'),
+      col('Received so far', 'integer', 'qty_received', 'Stock units received.'),
+      col('Damaged', 'integer', 'qty_damaged', 'Stock units that arrived damaged.'),
+      col('Cost per stock unit', 'cost', 'unit_cost', 'Cost agreed per stock unit.'),
+    ],
+    sql: `SELECT o.number, l.line_no, i.sku, l.vendor_sku, l.description, l.pack_qty, l.packs_ordered, l.qty_ordered, l.qty_received, l.qty_damaged, l.unit_cost
+          FROM purchase_order_lines l JOIN purchase_orders o ON o.id = l.po_id JOIN items i ON i.id = l.item_id ORDER BY o.number, l.line_no`,
+  },
+  {
+    file: 'receipts', sheet: 'Receipts',
+    about: 'What arrived against purchase orders, one row per line received.',
+    columns: [
+      col('Order number', 'text', 'number', 'The order.'),
+      col('Received', 'datetime', 'received_at', 'When (UTC).'),
+      col('By', 'text', 'username', 'Who received it.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Bin', 'text', 'bin', 'Where it was put.'),
+      col('Lot', 'text', 'lot', 'The production lot.'),
+      col('Quantity', 'integer', 'qty', 'Stock units received.'),
+      col('Damaged', 'integer', 'qty_damaged', 'Stock units damaged.'),
+      col('Reason', 'text', 'reason', 'Why the quantity differed, when it did.'),
+    ],
+    sql: `SELECT o.number, r.received_at, u.username, i.sku, b.code AS bin, lt.code AS lot, rl.qty, rl.qty_damaged, rl.reason
+          FROM po_receipt_lines rl JOIN po_receipts r ON r.id = rl.receipt_id JOIN purchase_orders o ON o.id = r.po_id JOIN items i ON i.id = rl.item_id
+          LEFT JOIN bins b ON b.id = rl.bin_id LEFT JOIN lots lt ON lt.id = rl.lot_id LEFT JOIN users u ON u.id = r.received_by ORDER BY r.received_at, rl.id`,
+  },
+  {
+    file: 'quotes', sheet: 'Quotes',
+    about: 'Quotes given to contractors.',
+    columns: [
+      col('Quote', 'text', 'number', 'The quote number.'),
+      col('Revision', 'integer', 'revision', 'Its revision.'),
+      col('Status', 'text', 'status', 'Where it stands.'),
+      col('Account code', 'text', 'account', 'For whom.'),
+      col('Job', 'text', 'job', 'For which job.'),
+      col('Warehouse', 'text', 'warehouse', 'Supplied from.'),
+      col('Quoted on', 'text', 'quoted_on', 'YYYY-MM-DD.'),
+      col('Valid until', 'text', 'valid_until', 'YYYY-MM-DD.'),
+      col('Price level', 'text', 'price_level_code', 'The price level used.'),
+      col('Subtotal', 'money', 'subtotal', 'Before tax.'),
+      col('Tax rate', 'decimal', 'tax_rate', 'Percent.', 3),
+      col('Tax', 'money', 'tax_amount', 'Tax.'),
+      col('Amount due', 'money', 'amount_due', 'Subtotal plus tax.'),
+    ],
+    sql: `SELECT q.number, q.revision, q.status, c.code AS account, j.name AS job, w.code AS warehouse, ${DAY('q.quoted_on')} AS quoted_on, ${DAY('q.valid_until')} AS valid_until,
+            q.price_level_code, q.subtotal, q.tax_rate, q.tax_amount, q.amount_due
+          FROM quotes q LEFT JOIN customers c ON c.id = q.customer_id LEFT JOIN jobs j ON j.id = q.job_id LEFT JOIN warehouses w ON w.id = q.warehouse_id ORDER BY q.number, q.revision`,
+  },
+  {
+    file: 'quote-lines', sheet: 'Quote lines',
+    about: 'Every line of every quote.',
+    columns: [
+      col('Quote', 'text', 'number', 'The quote number.'),
+      col('Revision', 'integer', 'revision', 'Its revision.'),
+      col('Line', 'integer', 'line_no', 'The line\'s place.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Description', 'text', 'description', 'As printed.'),
+      col('Quantity', 'integer', 'qty', 'Stock units quoted.'),
+      col('Packs', 'integer', 'packs', 'Packs, when sold by the pack.'),
+      col('Unit price', 'cost', 'unit_price', 'Price of one stock unit.'),
+      col('Extension', 'money', 'extension', 'Quantity × price.'),
+    ],
+    sql: `SELECT q.number, q.revision, l.line_no, i.sku, l.description, l.qty, l.packs, l.unit_price, l.extension
+          FROM quote_lines l JOIN quotes q ON q.id = l.quote_id LEFT JOIN items i ON i.id = l.item_id ORDER BY q.number, q.revision, l.line_no`,
+  },
+  {
+    file: 'users', sheet: 'Users',
+    about: 'People who sign in, with their roles. No passwords or sign-in sessions are ever exported.',
+    columns: [
+      col('User name', 'text', 'username', 'What they sign in with.'),
+      col('Name', 'text', 'display_name', 'Their name as shown.'),
+      col('E-mail', 'text', 'email', 'E-mail.'),
+      col('Roles', 'text', 'roles', 'admin, counter, warehouse, buyer, viewer.'),
+      col('Active', 'boolean', 'active', 'no: can no longer sign in.'),
+      col('Length unit', 'text', 'unit_preference', 'in or mm.'),
+      col('Weight unit', 'text', 'weight_unit', 'lb or kg.'),
+      col('Language', 'text', 'locale', 'en or es.'),
+      col('Last sign-in', 'datetime', 'last_sign_in_at', 'UTC.'),
+    ],
+    sql: 'SELECT username, display_name, email, roles, active, unit_preference, weight_unit, locale, last_sign_in_at FROM users ORDER BY username',
+  },
+  {
+    file: 'settings', sheet: 'Settings',
+    about: 'The company profile every document carries, and the administrator\'s settings.',
+    columns: [
+      col('Setting', 'text', 'k', 'Which one.'),
+      col('Value', 'text', 'value', 'Its value.'),
+    ],
+    sql: `SELECT k, value FROM (
+            SELECT 1 AS o, 'company.legal_name' AS k, legal_name AS value FROM company_profile
+            UNION ALL SELECT 2, 'company.bill_to_address', bill_to_address FROM company_profile
+            UNION ALL SELECT 3, 'company.ship_to_address', ship_to_address FROM company_profile
+            UNION ALL SELECT 4, 'company.phone', phone FROM company_profile
+            UNION ALL SELECT 5, 'company.email', email FROM company_profile
+            UNION ALL SELECT 6, 'company.reply_to', reply_to FROM company_profile
+            UNION ALL SELECT 7, 'company.tax_number', tax_number FROM company_profile
+            UNION ALL SELECT 8, 'company.document_unit', document_unit FROM company_profile
+            UNION ALL SELECT 9, 'company.logo', IF(logo IS NULL, 'no', 'yes: logo file beside this one') FROM company_profile
+            UNION ALL SELECT 10, setting_key, value FROM app_settings WHERE setting_key NOT REGEXP 'secret|password|token|credential'
+          ) s ORDER BY o, k`,
+  },
+]
+
+/** Rows written, per file. */
+export type ExportCounts = Record<string, number>
+
+/** Column headers of a part with what each holds, as plain text. */
+export function readmeText(parts: readonly ExportPart[], at: Date): string {
+  const lines = [
+    'Lumenyard: everything out',
+    `Written ${at.toISOString().slice(0, 19).replace('T', ' ')} UTC, all files from one moment of the database.`,
+    '',
+    'Each .xlsx file holds one kind of record on one sheet, first row the column names. Files marked "reads back"',
+    'use the columns of a Lumenyard import (Admin → Bring your data in, or Stock → Import items), so they can be',
+    'brought into another Lumenyard as they are. Times are UTC; days are YYYY-MM-DD; quantities are in each item\'s',
+    'stock unit; costs and prices carry no currency sign. No passwords, password hashes or sign-in sessions are',
+    'included.',
+    '',
+  ]
+  for (const p of parts) {
+    lines.push(`${p.file}.xlsx (sheet "${p.sheet}")`, `  ${p.about}`)
+    for (const c of p.columns) lines.push(`  - ${c.header}: ${c.about}`)
+    lines.push('')
+  }
+  return lines.join('\r\n')
+}
+
+/** Waits while the destination is full, so rows are read no faster than they are taken. */
+async function whenRoom(out: Writable): Promise<void> {
+  if (out.writableNeedDrain) await once(out, 'drain')
+  else await new Promise((resolve) => setImmediate(resolve))
+}
+
+async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, part: ExportPart): Promise<number> {
+  const entry = new PassThrough()
+  archive.append(entry, { name: `${part.file}.xlsx`, store: true })
+  const book = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: entry, useStyles: true, useSharedStrings: false })
+  book.creator = 'Lumenyard'
+  const sheet = openSheet<Raw>(book, { name: part.sheet, columns: part.columns as SheetColumn<Raw>[] })
+  const rows = await runner.stream(part.sql)
+  let n = 0
+  for await (const row of rows as AsyncIterable<Raw>) {
+    sheet.add(row)
+    if (++n % 1000 === 0) await whenRoom(out)
+  }
+  sheet.done()
+  await book.commit()
+  return n
+}
+
+/**
+ * Streams the zip to `out`. Reads in one read-only transaction with a consistent snapshot, so every file
+ * describes the same moment. Answers the rows written per file.
+ */
+export async function streamBusinessExport(ds: DataSource, out: Writable, onPart?: (file: string, rows: number) => void): Promise<ExportCounts> {
+  const at = new Date()
+  const archive = new ZipArchive({ zlib: { level: 6 } })
+  const failed = new Promise<never>((_resolve, reject) => archive.on('error', reject))
+  failed.catch(() => undefined)
+  archive.pipe(out)
+  const runner = ds.createQueryRunner()
+  const counts: ExportCounts = {}
+  try {
+    await runner.connect()
+    await runner.query('SET SESSION TRANSACTION ISOLATION LEVEL REPEATABLE READ')
+    await runner.query('START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY')
+    archive.append(readmeText(EXPORT_PARTS, at), { name: 'README.txt' })
+    for (const part of EXPORT_PARTS) {
+      counts[part.file] = await Promise.race([writePart(runner, archive, out, part), failed])
+      onPart?.(part.file, counts[part.file])
+    }
+    const logo = (await runner.query('SELECT logo, logo_type FROM company_profile WHERE logo IS NOT NULL LIMIT 1')) as { logo: Buffer; logo_type: string }[]
+    if (logo[0]) archive.append(logo[0].logo, { name: `logo.${logo[0].logo_type.includes('png') ? 'png' : 'jpg'}` })
+    await runner.query('COMMIT')
+    await Promise.race([archive.finalize(), failed])
+  } catch (err) {
+    archive.abort()
+    throw err
+  } finally {
+    await runner.release()
+  }
+  return counts
+}
+
+export const businessExportName = (at = new Date()) => `lumenyard-everything-${at.toISOString().slice(0, 10)}.zip`
+
+/** The download, and an audit entry for it (who, when, the rows of each file, and whether it finished). */
+export async function exportBusiness(ds: DataSource, actor: AuditActor, out: Writable): Promise<ExportCounts> {
+  const started = Date.now()
+  let counts: ExportCounts = {}
+  let finished = false
+  try {
+    counts = await streamBusinessExport(ds, out, (file, rows) => (counts[file] = rows))
+    finished = true
+    return counts
+  } finally {
+    await ds.transaction((em) => audit(em, actor, 'business.export', 'business', null, { finished, ms: Date.now() - started, rows: counts }))
+  }
+}

@@ -448,6 +448,7 @@ export const ERROR_CODES = {
   import_touched: ['sku', 'warehouse'],
   import_kind_unknown: [],
   import_usage_day_or_month: [],
+  import_usage_overlap: ['sku', 'warehouse', 'period'],
   import_code_exists: ['code'],
   import_records_in_use: ['code'],
   import_vendor_unknown: ['vendor'],

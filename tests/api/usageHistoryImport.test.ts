@@ -83,6 +83,26 @@ describe('usage history import', () => {
     expect(list.importedHistoryDays).toBe(91)
   })
 
+  it('refuses usage for a day or month already held, naming the rows, and writes nothing', async () => {
+    const held = await countRows(h.ds, 'usage_history', 'item_id = ?', [ids.a])
+    expect(held).toBe(4)
+    const month = dayAgo(40).slice(0, 7)
+    // Row 2: a day already imported; row 3: a month holding an imported day; row 4: a day not held (fine alone).
+    const res = await (await h.as('admin')).post('/api/imports/usage_history/commit').set(CSRF)
+      .attach('file', csv(`UH${tag}-A,${WH},${dayAgo(10)},,5`, `UH${tag}-A,${WH},,${month},30`, `UH${tag}-A,${WH},${dayAgo(200)},,2`), 'usage-again.csv')
+    expect(res.status).toBe(422)
+    expect(res.body.error.code).toBe('import_invalid')
+    expect(res.body.error.fields['2']).toMatchObject({ code: 'import_usage_overlap', params: { sku: `UH${tag}-A`, warehouse: WH, period: dayAgo(10) } })
+    expect(res.body.error.fields['3']).toMatchObject({ code: 'import_usage_overlap', params: { period: month } })
+    expect(res.body.error.fields['4']).toBeUndefined()
+    expect(await countRows(h.ds, 'usage_history', 'item_id = ?', [ids.a])).toBe(held)
+    // The check says the same, row by row, before any commit.
+    const preview = await (await h.as('admin')).post('/api/imports/usage_history/preview').set(CSRF)
+      .attach('file', csv(`UH${tag}-A,${WH},${dayAgo(70)},,5`), 'usage-again.csv')
+    expect(preview.body.errorRows).toBe(1)
+    expect(preview.body.rows[0].errors[0]).toMatchObject({ column: 'Day', problem: { code: 'import_usage_overlap' } })
+  })
+
   it('is gone from the statistics once its import is reversed', async () => {
     const [record] = await h.ds.query("SELECT id FROM data_imports WHERE kind = 'usage_history' AND live_checksum IS NOT NULL ORDER BY id DESC LIMIT 1")
     const res = await (await h.as('admin')).post(`/api/imports/${record.id}/reverse`).set(CSRF)

@@ -1,11 +1,12 @@
 // Usage from before Lumenyard: past issues or sales per item, warehouse and day, or per month (spread over
 // its days). Kept in usage_history, which the reorder statistics read beside the ledger's issues; never
 // stock moves, so no balance changes. Reversing the import deletes its rows (nothing else writes them).
+import type { EntityManager } from 'typeorm'
 import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, issuesByRow, itemsBySku, readImportQuantity, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, readImportQuantity, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -45,6 +46,22 @@ function validDay(text: string): boolean {
   }
 }
 
+/**
+ * The item, warehouse and periods already held in usage history for these items, as `item:warehouse:YYYY-MM-DD`
+ * and `item:warehouse:YYYY-MM` keys.
+ */
+async function heldUsage(em: EntityManager, itemIds: number[]): Promise<Set<string>> {
+  const rows = await inChunks(itemIds, (c) => em.query(
+    `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day FROM usage_history WHERE item_id IN (${marks(c.length)})`, c,
+  ) as Promise<{ item_id: number; warehouse_id: number; day: string }[]>)
+  const keys = new Set<string>()
+  for (const r of rows) {
+    keys.add(`${r.item_id}:${r.warehouse_id}:${r.day}`)
+    keys.add(`${r.item_id}:${r.warehouse_id}:${r.day.slice(0, 7)}`)
+  }
+  return keys
+}
+
 export const usageHistoryImport: DataImportDefinition<Write> = {
   kind: 'usage_history',
   spec: USAGE_HISTORY_SPEC,
@@ -52,6 +69,7 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
     const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
     const warehouses = await warehousesByCode(em)
     const today = new Date().toISOString().slice(0, 10)
+    const held = await heldUsage(em, [...new Set([...items.values()].map((i) => i.id))])
     const seen = new Map<string, number>()
     const issuesOf = issuesByRow(sheet)
     return sheet.rows.map((r): CheckedRow<Write> => {
@@ -90,6 +108,8 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
         const first = seen.get(key)
         if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
         else seen.set(key, r.row)
+        // History already held for that day (or any day of that month) is never added to a second time.
+        if (held.has(key)) add(when.length === 7 ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
       }
       const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
       if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }

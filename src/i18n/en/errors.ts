@@ -399,6 +399,7 @@ export default {
   import_already_reversed: 'This import was already reversed.',
   import_touched: 'Stock of {sku} in {warehouse} has moved since the import, so it can no longer be reversed as a whole.',
   import_kind_unknown: 'There is no such import.',
+  import_usage_overlap: 'Usage of {sku} in {warehouse} for {period} is already held from an earlier import: reverse that import first, or leave this row out',
   import_usage_day_or_month: 'Give either a day (YYYY-MM-DD) or a month (YYYY-MM), not both',
   import_code_exists: '{code} is already in Lumenyard; change it there, or leave this row out',
   import_records_in_use: '{code} has been used since the import, so it can no longer be reversed as a whole.',

@@ -398,6 +398,7 @@ export default {
   import_already_reversed: 'Esta importación ya se revirtió.',
   import_touched: 'La existencia de {sku} en {warehouse} se movió después de la importación; ya no se puede revertir completa.',
   import_kind_unknown: 'No existe esa importación.',
+  import_usage_overlap: 'El consumo de {sku} en {warehouse} para {period} ya está registrado por una importación anterior: deshaga esa importación primero o quite esta fila',
   import_usage_day_or_month: 'Indique un día (AAAA-MM-DD) o un mes (AAAA-MM), no ambos',
   import_code_exists: '{code} ya está en Lumenyard; cámbielo ahí o deje fuera esta fila',
   import_records_in_use: '{code} se usó después de la importación; ya no se puede revertir completa.',

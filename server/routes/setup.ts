@@ -1,6 +1,7 @@
 // The first-run checklist of a new installation and the settings it asks for (units, GS1 company
-// prefix, the company logo). Administrators only.
-import { ADMIN_ONLY } from '../../shared/roles.js'
+// prefix, the company logo). Administrators only, but for the logo as printed documents show it, which anyone
+// signed in who prints one reads (204 when none is set).
+import { ADMIN_ONLY, ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import { setupGs1Schema, setupUnitsSchema } from '../../shared/schemas/setup.js'
 import { actorOf, type AppContext } from '../context.js'
 import { AppError } from '../errors.js'
@@ -34,6 +35,20 @@ export default (ctx: AppContext) => {
         if (!logo) throw AppError.notFound('logo_missing', 'No logo has been uploaded.')
         res.setHeader('Content-Type', logo.type)
         res.setHeader('Cache-Control', 'no-store')
+        res.send(logo.data)
+        return undefined
+      },
+    },
+    {
+      method: 'get', path: '/printed-logo', access: { roles: ANYONE_SIGNED_IN },
+      handler: async (_req, res) => {
+        const logo = await companyLogo(ctx.ds)
+        res.setHeader('Cache-Control', 'private, max-age=300')
+        if (!logo) {
+          res.status(204).end()
+          return undefined
+        }
+        res.setHeader('Content-Type', logo.type)
         res.send(logo.data)
         return undefined
       },

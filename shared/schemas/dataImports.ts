@@ -2,7 +2,7 @@
 // problem of every row), and the record each committed import leaves.
 import type { RowProblem } from '../errors/errorCodes.js'
 
-export const DATA_IMPORT_KINDS = ['opening_stock', 'usage_history', 'accounts', 'purchase_orders'] as const
+export const DATA_IMPORT_KINDS = ['opening_stock', 'usage_history', 'accounts', 'vendor_items', 'purchase_orders'] as const
 export type DataImportKind = (typeof DATA_IMPORT_KINDS)[number]
 
 export const isDataImportKind = (k: string): k is DataImportKind => (DATA_IMPORT_KINDS as readonly string[]).includes(k)

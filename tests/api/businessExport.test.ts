@@ -61,7 +61,7 @@ beforeAll(async () => {
   await freshDatabase(DST, false)
   src = await startApiHarness({ LUMENYARD_DB_NAME: SRC })
   dst = await startApiHarness({ LUMENYARD_DB_NAME: DST })
-}, 120_000)
+}, 300_000)
 
 afterAll(async () => {
   await src?.close()
@@ -116,7 +116,7 @@ describe('everything out', () => {
     expect(audits.length).toBe(auditsBefore + 1)
     console.log(`everything out took ${JSON.parse(audits.at(-1)!.detail).ms} ms on the server`)
     expect(JSON.parse(audits.at(-1)!.detail)).toMatchObject({ finished: true, rows: { moves: await count('stock_moves') } })
-  }, 120_000)
+  }, 300_000)
 
   it('refuses other roles', async () => {
     for (const role of ['counter', 'buyer', 'warehouse', 'viewer'] as const) {
@@ -172,5 +172,5 @@ describe('everything out', () => {
        JOIN stock_balances b ON b.item_id = m.item_id AND b.bin_id = m.bin_id AND b.lot_key = COALESCE(m.lot_id, 0)
        GROUP BY m.item_id, m.bin_id, m.lot_id HAVING moved <> on_hand`)
     expect(gaps).toEqual([])
-  }, 120_000)
+  }, 300_000)
 })

@@ -46,6 +46,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/imports/:kind/commit': { access: ['admin'] },
   'POST /api/imports/:id/reverse': { access: ['admin'] },
   'GET /api/business-export': { access: ['admin'] },
+  'GET /api/setup/printed-logo': { access: ['admin', 'counter', 'warehouse', 'buyer', 'viewer'] },
   // The first-run checklist and the settings it asks for: administrators only.
   'GET /api/setup': { access: ['admin'] },
   'PUT /api/setup/units': { access: ['admin'] },

@@ -29,8 +29,20 @@ export interface PdfSheet {
   finish(reference: string): Promise<Buffer>
 }
 
-/** A letter-size sheet with the fonts registered as 'body' and 'bold', collected into a Buffer. */
-export function openPdfSheet(title: string, author: string): PdfSheet {
+/** The company's logo as stored (PNG or JPEG, the two kinds the upload accepts and pdfkit draws). */
+export interface PdfLogo {
+  type: string
+  data: Buffer
+}
+
+/** The logo's box at the top right of the first page, in points (about 2 × 0.67 in). */
+export const LOGO_BOX: [number, number] = [144, 48]
+
+/**
+ * A letter-size sheet with the fonts registered as 'body' and 'bold', collected into a Buffer. With a logo, it is
+ * drawn at the top right of the first page, scaled to fit its box; text starts at the top left as before.
+ */
+export function openPdfSheet(title: string, author: string, logo?: PdfLogo | null): PdfSheet {
   const doc = new PDFDocument({ size: 'LETTER', margin: MARGIN, bufferPages: true, info: { Title: title, Author: author } })
   doc.registerFont('body', FONT)
   doc.registerFont('bold', FONT_BOLD)
@@ -41,6 +53,15 @@ export function openPdfSheet(title: string, author: string): PdfSheet {
     doc.on('error', reject)
   })
   const width = doc.page.width - 2 * MARGIN
+  if (logo && (logo.type === 'image/png' || logo.type === 'image/jpeg')) {
+    try {
+      doc.image(logo.data, MARGIN + width - LOGO_BOX[0], MARGIN, { fit: LOGO_BOX, align: 'right', valign: 'top' })
+    } catch {
+      // An image pdfkit cannot read prints no logo rather than no document.
+    }
+    doc.x = MARGIN
+    doc.y = MARGIN
+  }
   return {
     doc,
     width,

@@ -8,11 +8,13 @@ import { OPENING_STOCK_GUIDE, openingStockImport } from './openingStockImport.js
 import { USAGE_HISTORY_GUIDE, usageHistoryImport } from './usageHistoryImport.js'
 import { ACCOUNTS_GUIDE, accountsImport } from './accountsImport.js'
 import { PURCHASE_ORDERS_GUIDE, purchaseOrdersImport } from './purchaseOrdersImport.js'
+import { VENDOR_ITEMS_GUIDE, vendorItemsImport } from './vendorItemsImport.js'
 
 export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>> = {
   opening_stock: openingStockImport as DataImportDefinition<unknown>,
   usage_history: usageHistoryImport as DataImportDefinition<unknown>,
   accounts: accountsImport as DataImportDefinition<unknown>,
+  vendor_items: vendorItemsImport as DataImportDefinition<unknown>,
   purchase_orders: purchaseOrdersImport as DataImportDefinition<unknown>,
 }
 
@@ -20,6 +22,7 @@ const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string
   opening_stock: { tab: 'Opening stock', guide: OPENING_STOCK_GUIDE },
   usage_history: { tab: 'Usage history', guide: USAGE_HISTORY_GUIDE },
   accounts: { tab: 'Accounts', guide: ACCOUNTS_GUIDE },
+  vendor_items: { tab: 'Vendor items', guide: VENDOR_ITEMS_GUIDE },
   purchase_orders: { tab: 'Open purchase orders', guide: PURCHASE_ORDERS_GUIDE },
 }
 

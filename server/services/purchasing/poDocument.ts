@@ -5,7 +5,7 @@ import type { DataSource, EntityManager } from 'typeorm'
 import type { CompanyProfile } from '../../../shared/schemas/purchasing.js'
 import type { PoDetail, PoLineView } from '../../../shared/schemas/purchasingViews.js'
 import { specText } from '../../../shared/purchasing/specText.js'
-import { companyProfile } from '../companyProfile.js'
+import { companyLogo, companyProfile } from '../companyProfile.js'
 import { poDetail } from './poRead.js'
 
 type Db = EntityManager | DataSource
@@ -19,6 +19,8 @@ export interface PoPaper {
   po: PoDetail
   lines: PoPaperLine[]
   company: CompanyProfile
+  /** The company's logo for the printed order, when one is set. */
+  logo: { type: string; data: Buffer } | null
   /** The person ordering: whoever sends it, else who approved it, else who drafted it. */
   buyer: { name: string; email: string | null } | null
   /** Where the vendor's answer goes: the company's reply-to, else the buyer's own address. */
@@ -43,6 +45,7 @@ export async function poPaper(db: Db, poId: number, senderId?: number | null): P
     po,
     lines: po.lines.map((l) => ({ ...l, specification: specText(l.spec, company.documentUnit) })),
     company,
+    logo: await companyLogo(db),
     buyer,
     replyTo: company.replyTo ?? buyer?.email ?? null,
     billTo: [company.legalName, company.billToAddress].filter(Boolean).join('\n'),

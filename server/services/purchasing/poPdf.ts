@@ -32,7 +32,7 @@ export function breakLongWords(doc: PDFKit.PDFDocument, text: string, width: num
 
 export function poPdf(paper: PoPaper): Promise<Buffer> {
   const { po, company } = paper
-  const sheet = openPdfSheet(`Purchase order ${po.number}`, company.legalName || 'Lumenyard')
+  const sheet = openPdfSheet(`Purchase order ${po.number}`, company.legalName || 'Lumenyard', paper.logo)
   const { doc, width } = sheet
   const money = (amount: string | undefined) => (amount === undefined ? '' : formatMoney(amount, { symbol: `${po.currency} ` }))
 

@@ -11,7 +11,7 @@ import { Quote } from '../../entities/Quote.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
-import { companyProfile } from '../companyProfile.js'
+import { companyLogo, companyProfile } from '../companyProfile.js'
 import { mailTransport } from '../purchasing/poMail.js'
 import { ensureQuote, lockQuote } from './quoteWrite.js'
 import { quoteDetail } from './quoteRead.js'
@@ -39,7 +39,7 @@ function bodyText(q: QuoteDetail, company: CompanyProfile, message: string | nul
 
 export async function quotePdfFile(ds: DataSource, id: number): Promise<{ name: string; bytes: Buffer }> {
   const quote = await quoteDetail(ds, id)
-  return { name: `${quote.number}-r${quote.revision}.pdf`, bytes: await quotePdf(quote, await companyProfile(ds)) }
+  return { name: `${quote.number}-r${quote.revision}.pdf`, bytes: await quotePdf(quote, await companyProfile(ds), await companyLogo(ds)) }
 }
 
 export async function offerQuote(ds: DataSource, config: AppConfig, actor: AuditActor & { userId: number }, id: number, input: QuoteSendInput): Promise<QuoteDetail> {
@@ -51,7 +51,7 @@ export async function offerQuote(ds: DataSource, config: AppConfig, actor: Audit
   if (!to) throw AppError.badRequest('customer_email_missing', 'This account has no e-mail address: enter one.', { fields: { to: problem('customer_email_missing') } })
   const subject = `Quote ${quote.number}${quote.revision > 1 ? ` revision ${quote.revision}` : ''} from ${company.legalName}`
   const text = bodyText(quote, company, input.message)
-  const file = { name: `${quote.number}-r${quote.revision}.pdf`, bytes: await quotePdf(quote, company) }
+  const file = { name: `${quote.number}-r${quote.revision}.pdf`, bytes: await quotePdf(quote, company, await companyLogo(ds)) }
   let outcome: { messageId?: string; error?: string }
   try {
     const info = await mailTransport(config.smtp).sendMail({

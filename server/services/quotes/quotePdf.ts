@@ -4,7 +4,7 @@
 import { formatMoney } from '../../../shared/money.js'
 import type { CompanyProfile } from '../../../shared/schemas/purchasing.js'
 import type { QuoteDetail } from '../../../shared/schemas/quotes.js'
-import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
+import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn, type PdfLogo } from '../exports/pdfSheet.js'
 
 export { PDF_TYPE } from '../exports/pdfSheet.js'
 
@@ -13,9 +13,9 @@ export const QUOTE_CAUTIONS =
   'Glass block and pre-made sections are heavy: lift with two people or equipment. Cutting and drilling masonry needs eye, hand and dust protection. ' +
   'Panel sizes, anchoring and shower waterproofing must follow local building codes and licensed professional practice.'
 
-export function quotePdf(quote: QuoteDetail, company: CompanyProfile): Promise<Buffer> {
+export function quotePdf(quote: QuoteDetail, company: CompanyProfile, logo?: PdfLogo | null): Promise<Buffer> {
   const title = `Quote ${quote.number}${quote.revision > 1 ? ` revision ${quote.revision}` : ''}`
-  const sheet = openPdfSheet(title, company.legalName || 'Lumenyard')
+  const sheet = openPdfSheet(title, company.legalName || 'Lumenyard', logo)
   const { doc, width } = sheet
   const money = (a: string) => formatMoney(a)
 

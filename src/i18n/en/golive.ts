@@ -3,8 +3,9 @@ export default {
   imports: {
     title: 'Bring your data in',
     intro: 'Start from the sheets you keep today. Download a template, fill it in (or match your own columns to it), check the file, and import it. Nothing is written until every row reads; the same file imported twice changes nothing the second time.',
-    kinds: { opening_stock: 'Opening stock', usage_history: 'Usage history', accounts: 'Contractor accounts', purchase_orders: 'Open purchase orders' },
+    kinds: { opening_stock: 'Opening stock', usage_history: 'Usage history', vendor_items: 'Vendors and their items', accounts: 'Contractor accounts', purchase_orders: 'Open purchase orders' },
     kindIntro: {
+      vendor_items: 'Your vendors with what each sells you, a row per vendor and item: the vendor’s own code, pack size, minimum order, cost and lead time. A vendor code not yet here adds that vendor (give its name); an item a vendor already sells you here is changed on the vendor’s page. Bring vendors in before open purchase orders.',
       accounts: 'Your contractor accounts with their contact, price level and tax-exempt certificate. New accounts only: an account already here is changed on its own page.',
       purchase_orders: 'Orders already with your vendors, a row per line, with what has arrived so far, so what is on order is right from day one. The units already received belong in your opening stock.',
       usage_history: 'What you issued or sold before Lumenyard, per item, warehouse and day (or month, spread over its days). The reorder points read it beside the issues recorded here, so they are right from day one. It is history only: stock on hand does not change.',

@@ -102,6 +102,7 @@ export default {
     title: 'Pick sheet',
     print: 'Print',
     printed: 'Printed {when}',
+    companyLogo: 'Company logo',
     note: 'Note',
     totalWeight: 'Total weight {weight}',
     picker: 'Picked by',

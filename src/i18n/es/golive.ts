@@ -3,8 +3,9 @@ export default {
   imports: {
     title: 'Traer sus datos',
     intro: 'Parta de las hojas que ya lleva. Descargue una plantilla, llénela (o haga coincidir sus columnas), revise el archivo e impórtelo. No se escribe nada hasta que todas las filas se lean; el mismo archivo importado dos veces no cambia nada la segunda vez.',
-    kinds: { opening_stock: 'Existencia inicial', usage_history: 'Historial de consumo', accounts: 'Cuentas de contratistas', purchase_orders: 'Órdenes de compra abiertas' },
+    kinds: { opening_stock: 'Existencia inicial', usage_history: 'Historial de consumo', vendor_items: 'Proveedores y sus artículos', accounts: 'Cuentas de contratistas', purchase_orders: 'Órdenes de compra abiertas' },
     kindIntro: {
+      vendor_items: 'Sus proveedores con lo que cada uno le vende, una fila por proveedor y artículo: el código del proveedor, el tamaño del paquete, el pedido mínimo, el costo y el plazo de entrega. Un código de proveedor que aún no está aquí agrega ese proveedor (indique su nombre); un artículo que un proveedor ya le vende aquí se cambia en la página del proveedor. Importe los proveedores antes que las órdenes de compra abiertas.',
       accounts: 'Sus cuentas de contratistas con su contacto, nivel de precio y certificado de exención de impuestos. Solo cuentas nuevas: una cuenta que ya existe se cambia en su propia página.',
       purchase_orders: 'Pedidos ya hechos a sus proveedores, una fila por línea, con lo recibido hasta ahora, para que lo pedido sea correcto desde el primer día. Las unidades ya recibidas van en su existencia inicial.',
       usage_history: 'Lo que entregó o vendió antes de Lumenyard, por artículo, almacén y día (o mes, repartido en sus días). Los puntos de reorden lo leen junto con las salidas registradas aquí, así que son correctos desde el primer día. Es solo historial: la existencia no cambia.',

@@ -102,6 +102,7 @@ export default {
     title: 'Hoja de preparación',
     print: 'Imprimir',
     printed: 'Impresa {when}',
+    companyLogo: 'Logotipo de la empresa',
     note: 'Nota',
     totalWeight: 'Peso total {weight}',
     picker: 'Preparado por',

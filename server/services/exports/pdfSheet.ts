@@ -55,7 +55,7 @@ export function openPdfSheet(title: string, author: string, logo?: PdfLogo | nul
   const width = doc.page.width - 2 * MARGIN
   if (logo && (logo.type === 'image/png' || logo.type === 'image/jpeg')) {
     try {
-      doc.image(logo.data, MARGIN + width - LOGO_BOX[0], MARGIN, { fit: LOGO_BOX, align: 'right', valign: 'top' })
+      doc.image(logo.data, MARGIN + width - LOGO_BOX[0], MARGIN, { fit: LOGO_BOX, align: 'right' })
     } catch {
       // An image pdfkit cannot read prints no logo rather than no document.
     }

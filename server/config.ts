@@ -87,6 +87,8 @@ export interface AppConfig {
     fakePort: number
     /** `npm start` starts the local fake: outside production when LUMENYARD_PAY_HOST is not set. */
     localFake: boolean
+    /** Card payments can be taken: always outside production (the fake), in production when both keys are set. */
+    enabled: boolean
     secretKey: string
     webhookSecret: string
     /** ISO 4217 code in the provider's lower-case form. */
@@ -104,14 +106,18 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
   }
   const e = parsed.data
   const production = e.NODE_ENV === 'production'
+  // In production card payments are on only when both provider keys come from the environment; a supplier
+  // that takes no cards runs without them (the card routes answer `card_payments_off`). One key alone, or the
+  // local fake's keys, is a mistake worth stopping for.
+  const payKeys = [e.LUMENYARD_PAY_SECRET_KEY, e.LUMENYARD_PAY_WEBHOOK_SECRET]
   if (production) {
-    const missing = (['LUMENYARD_PAY_SECRET_KEY', 'LUMENYARD_PAY_WEBHOOK_SECRET'] as const).filter((k) => !e[k])
-    const local = [e.LUMENYARD_PAY_SECRET_KEY, e.LUMENYARD_PAY_WEBHOOK_SECRET].some((v) => v === LOCAL_PAY_SECRET_KEY || v === LOCAL_PAY_WEBHOOK_SECRET)
-    if (missing.length || local) {
-      const lines = missing.map((k) => `  ${k}: required in production (the payment provider's ${k.endsWith('WEBHOOK_SECRET') ? 'webhook signing secret' : 'secret API key'})`)
-      if (local) lines.push('  LUMENYARD_PAY_*: the local fake\'s keys cannot be used in production')
-      throw new ConfigError(`Lumenyard cannot start: bad configuration\n${lines.join('\n')}`)
+    const lines: string[] = []
+    if (payKeys.filter(Boolean).length === 1) {
+      const missing = e.LUMENYARD_PAY_SECRET_KEY ? 'LUMENYARD_PAY_WEBHOOK_SECRET' : 'LUMENYARD_PAY_SECRET_KEY'
+      lines.push(`  ${missing}: required with the other card-payment key (the payment provider's ${missing.endsWith('WEBHOOK_SECRET') ? 'webhook signing secret' : 'secret API key'})`)
     }
+    if (payKeys.some((v) => v === LOCAL_PAY_SECRET_KEY || v === LOCAL_PAY_WEBHOOK_SECRET)) lines.push('  LUMENYARD_PAY_*: the local fake\'s keys cannot be used in production')
+    if (lines.length) throw new ConfigError(`Lumenyard cannot start: bad configuration\n${lines.join('\n')}`)
   }
   const payHost = e.LUMENYARD_PAY_HOST ?? (production ? undefined : '127.0.0.1')
   return {
@@ -166,6 +172,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env): AppConfig {
         : undefined,
       fakePort: e.LUMENYARD_PAY_PORT,
       localFake: !production && !e.LUMENYARD_PAY_HOST,
+      enabled: !production || payKeys.every(Boolean),
       secretKey: e.LUMENYARD_PAY_SECRET_KEY ?? LOCAL_PAY_SECRET_KEY,
       webhookSecret: e.LUMENYARD_PAY_WEBHOOK_SECRET ?? LOCAL_PAY_WEBHOOK_SECRET,
       currency: e.LUMENYARD_PAY_CURRENCY,

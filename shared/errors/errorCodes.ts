@@ -291,6 +291,7 @@ export const ERROR_CODES = {
   deposit_not_paid: ['order', 'required', 'paid'],
   card_declined: [],
   payment_provider_unreachable: [],
+  card_payments_off: [],
   payment_provider_failed: [],
   payment_signature_invalid: [],
   deposit_already_paid: ['order'],

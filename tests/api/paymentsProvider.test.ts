@@ -176,12 +176,22 @@ describe('configuration', () => {
     expect(config.pay.localFake).toBe(true)
   })
 
-  it('production refuses to start without the provider keys, or with the fake\'s', () => {
-    expect(() => loadConfig({ ...required, NODE_ENV: 'production' })).toThrow(ConfigError)
-    expect(() => loadConfig({ ...required, NODE_ENV: 'production' })).toThrow(/LUMENYARD_PAY_SECRET_KEY[\s\S]*LUMENYARD_PAY_WEBHOOK_SECRET/)
+  it('production takes no cards without the provider keys, and refuses one key alone or the fake\'s', async () => {
+    const off = loadConfig({ ...required, NODE_ENV: 'production' })
+    expect(off.pay.enabled).toBe(false)
+    expect(off.pay.localFake).toBe(false)
+    // a supplier that takes no cards still starts; the card routes say so with a code the screens word
+    const provider = createPayProvider(off.pay)
+    await expect((async () => provider.createIntent({ amountMinor: 100, description: 'x', metadata: {}, idempotencyKey: 'k' }))())
+      .rejects.toMatchObject({ status: 409, code: 'card_payments_off' })
+    expect(() => provider.verifyEvent('{}', 't=1,v1=x')).toThrow(expect.objectContaining({ code: 'card_payments_off' }))
+    expect(() => loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_PAY_SECRET_KEY: 'sk_live_from_env' })).toThrow(ConfigError)
+    expect(() => loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_PAY_SECRET_KEY: 'sk_live_from_env' })).toThrow(/LUMENYARD_PAY_WEBHOOK_SECRET/)
+    expect(() => loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_PAY_WEBHOOK_SECRET: 'whsec_from_env' })).toThrow(/LUMENYARD_PAY_SECRET_KEY/)
     expect(() => loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_PAY_SECRET_KEY: LOCAL_PAY_SECRET_KEY, LUMENYARD_PAY_WEBHOOK_SECRET: 'whsec_real_one' }))
       .toThrow(/local fake/)
     const live = loadConfig({ ...required, NODE_ENV: 'production', LUMENYARD_PAY_SECRET_KEY: 'sk_live_from_env', LUMENYARD_PAY_WEBHOOK_SECRET: 'whsec_from_env' })
+    expect(live.pay.enabled).toBe(true)
     expect(live.pay.api).toBeUndefined() // the provider's own API
     expect(live.pay.localFake).toBe(false)
   })

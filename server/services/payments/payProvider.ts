@@ -40,7 +40,16 @@ async function call<T>(work: () => Promise<T>): Promise<T> {
   }
 }
 
+/** Every call refused with `card_payments_off`: production without the provider's keys takes no cards. */
+function payProviderOff(currency: string): PayProvider {
+  const off = (): never => {
+    throw AppError.conflict('card_payments_off', 'Card payments are not set up here (the provider keys are not configured); record cash or cheque instead.')
+  }
+  return { currency, createIntent: off, confirmIntent: off, retrieveIntent: off, refund: off, verifyEvent: off }
+}
+
 export function createPayProvider(config: AppConfig['pay']): PayProvider {
+  if (!config.enabled) return payProviderOff(config.currency)
   const sdk = new Stripe(config.secretKey, {
     ...(config.api ? { host: config.api.host, port: config.api.port, protocol: config.api.protocol } : {}),
     maxNetworkRetries: 2, // retried with the same Idempotency-Key, so a retry never charges twice

@@ -439,6 +439,7 @@ export default {
   deposit_not_paid: 'The deposit on sales order {order} is not paid yet ({paid} of {required}): the special order waits for it.',
   card_declined: 'The card was declined. Ask the customer for another card, or take the payment as cash or cheque.',
   payment_provider_unreachable: 'The card payment service could not be reached, so nothing was charged. Try again in a moment.',
+  card_payments_off: 'Card payments are not set up here. Record the payment as cash or cheque.',
   payment_provider_failed: 'The card payment service refused the request, so nothing was charged. Try again; if it keeps failing, tell your administrator.',
   deposit_already_paid: 'The deposit on sales order {order} is already paid.',
   payment_not_found: 'That payment was not found on this order.',

@@ -438,6 +438,7 @@ export default {
   deposit_not_paid: 'El anticipo del pedido de venta {order} aún no está pagado ({paid} de {required}): el pedido especial lo espera.',
   card_declined: 'La tarjeta fue rechazada. Pida al cliente otra tarjeta o cobre en efectivo o con cheque.',
   payment_provider_unreachable: 'No se pudo contactar con el servicio de pago con tarjeta, así que no se cobró nada. Inténtelo de nuevo en un momento.',
+  card_payments_off: 'Aquí no están configurados los pagos con tarjeta. Registre el pago en efectivo o con cheque.',
   payment_provider_failed: 'El servicio de pago con tarjeta rechazó la solicitud, así que no se cobró nada. Inténtelo de nuevo; si sigue fallando, avise a su administrador.',
   deposit_already_paid: 'El anticipo del pedido de venta {order} ya está pagado.',
   payment_not_found: 'No se encontró ese pago en este pedido.',

@@ -37,7 +37,18 @@ beforeAll(async () => {
   const crew = await signedInAgent(h.built.app, 'warehouse', DEMO_PASSWORD)
   const s = await pickScenario(h.ds, crew)
   const bom = await fxBom(h.ds, s.tag, [{ itemId: s.block.id, qty: 16 }, { itemId: s.spacer.id, qty: 10 }])
-  await releasedPickList(await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD), bom.bomId, s.main.id)
+  const counter = await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD)
+  await releasedPickList(counter, bom.bomId, s.main.id)
+  // Nor a quote or a sales order: one quote by hand, offered over the counter, then taken.
+  // A demo item the pick scenario's warehouse holds none of, so the order holds nothing the pick list needs.
+  const [{ customerId, itemId }] = (await h.ds.query(
+    'SELECT (SELECT MIN(id) FROM customers) AS customerId, (SELECT MIN(id) FROM items WHERE id NOT IN (?)) AS itemId', [[s.block.id, s.spacer.id]],
+  )) as { customerId: number; itemId: number }[]
+  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId: s.main.id, lines: [{ itemId, qty: 2 }] })
+  if (quote.status !== 201) throw new Error(`making a quote failed: ${quote.status} ${JSON.stringify(quote.body)}`)
+  await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
+  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
+  if (order.status !== 201) throw new Error(`taking the quote failed: ${order.status} ${JSON.stringify(order.body)}`)
   const count = await crew.post('/api/counts').set(CSRF).send({ warehouseId: s.main.id, scope: 'bins', binIds: [s.main.bins['A-03-1']] })
   if (count.status !== 201) throw new Error(`opening a count failed: ${count.status} ${JSON.stringify(count.body)}`)
   ;({ page, context } = await h.newPage({ viewport: DESKTOP }))

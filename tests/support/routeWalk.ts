@@ -80,6 +80,8 @@ const SAMPLE_SQL: Record<string, string> = {
   'stock-item-edit': 'SELECT MIN(id) AS id FROM items',
   'warehouse-count': "SELECT MIN(id) AS id FROM cycle_counts WHERE status = 'open'",
   'warehouse-count-review': 'SELECT MIN(id) AS id FROM cycle_counts',
+  'counter-quote': 'SELECT MIN(id) AS id FROM quotes',
+  'counter-sales-order': 'SELECT MIN(id) AS id FROM sales_orders',
 }
 
 export class RouteSamples {

@@ -145,7 +145,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
   },
   {
     file: 'moves', sheet: 'Moves',
-    about: 'The stock ledger: every move of stock, oldest first. The sum of a bin\'s moves is its stock.',
+    about: 'Stock movements: every move of stock, oldest first. The sum of a bin\'s moves is its stock.',
     columns: [
       col('Move', 'integer', 'id', 'The move\'s number.'),
       col('At', 'datetime', 'at', 'When (UTC).'),

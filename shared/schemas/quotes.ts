@@ -115,6 +115,8 @@ export interface QuoteDetail extends QuoteSummary {
   offeredAt: string | null
   takenAt: string | null
   priceLevelCode: string | null
+  /** The sales order this quote became when it was taken (a quote makes at most one). */
+  salesOrderId: number | null
   tax: DocumentTax
   /** Every revision of this quote number, oldest first. */
   revisions: { id: number; revision: number; status: QuoteStatus; amountDue: string }[]

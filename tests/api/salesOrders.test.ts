@@ -84,6 +84,8 @@ describe('taking a quote', () => {
     expect(await heldByOrder(orderId, fx.base.id)).toBe(0)
     const quote = await counter.get(`/api/quotes/${quoteId}`)
     expect(quote.body.status).toBe('taken')
+    // the quote names the one order it became (the counter's quote screen links to it)
+    expect(quote.body.salesOrderId).toBe(orderId)
   })
 
   it('a third submit later answers the same order and holds nothing more', async () => {

@@ -64,7 +64,8 @@ export async function quoteDetail(db: DataSource | EntityManager, id: number): P
   const today = todayIso()
   const [r]: Row[] = await db.query(
     `SELECT s.*, c.email AS customerEmail, c.contact_name AS contactName, q.terms, q.notes, q.lost_reason AS lostReason,
-            q.offered_at AS offeredAt, q.taken_at AS takenAt, q.price_level_code AS priceLevelCode, q.tax_json AS taxJson
+            q.offered_at AS offeredAt, q.taken_at AS takenAt, q.price_level_code AS priceLevelCode, q.tax_json AS taxJson,
+            (SELECT so.id FROM sales_orders so WHERE so.quote_id = q.id) AS salesOrderId
        FROM (${SUMMARY_SQL} WHERE q.id = ?) s JOIN quotes q ON q.id = s.id JOIN customers c ON c.id = q.customer_id`,
     [id],
   )
@@ -111,6 +112,7 @@ export async function quoteDetail(db: DataSource | EntityManager, id: number): P
     offeredAt: r.offeredAt === null ? null : new Date(r.offeredAt as Date).toISOString(),
     takenAt: r.takenAt === null ? null : new Date(r.takenAt as Date).toISOString(),
     priceLevelCode: r.priceLevelCode === null ? null : String(r.priceLevelCode),
+    salesOrderId: r.salesOrderId === null ? null : Number(r.salesOrderId),
     tax: JSON.parse(String(r.taxJson ?? '{}')) as DocumentTax,
     revisions: revisions.map((v) => ({
       id: Number(v.id),

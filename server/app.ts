@@ -20,7 +20,7 @@ import { costReplacer } from './services/costVisibility.js'
 import { costScope } from './http/costScope.js'
 import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
 import { createPayProvider } from './services/payments/payProvider.js'
-import { settleCardPaymentIn } from './services/sales/cardDeposits.js'
+import { cardSettlement } from './services/sales/cardDeposits.js'
 import { SignInThrottle } from './services/signInThrottle.js'
 import { createLogger } from './logger.js'
 
@@ -101,6 +101,7 @@ export function createApp(deps: AppDeps): BuiltApp {
   const { config, ds } = deps
   const logger = deps.logger ?? createLogger(config.logLevel)
   const pp = configurePassport(ds)
+  const pay = createPayProvider(config.pay)
   const ctx: AppContext = {
     config,
     ds,
@@ -108,8 +109,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     logger,
     passport: pp,
     throttle: new SignInThrottle(config.signin, config.db),
-    pay: createPayProvider(config.pay),
-    payEventHandlers: { 'payment_intent.succeeded': settleCardPaymentIn },
+    pay,
+    payEventHandlers: { 'payment_intent.succeeded': cardSettlement(pay) },
   }
   const app = express()
   app.disable('x-powered-by')

@@ -9,8 +9,7 @@ import { FAKE_CARD_TOKENS, type PayFake } from '../../server/fakes/payFake.js'
 import { PAYMENT_WEBHOOK_PATH } from '../../server/routes/payments.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
 import { startPayHarness, type PayHarness } from '../support/payFakeHarness.js'
-import { insertId } from '../support/fixtureRows.js'
-import { billFor, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
+import { bookedOrder, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
 
 let h: ApiHarness
 let fake: PayFake
@@ -35,15 +34,7 @@ beforeAll(async () => {
   counter = await h.as('counter')
   fx = await createSalesFixture(h.ds)
   // The account's level: 15 % off list, so the base sells at 895.00 × 0.85 = 760.75 (hand-worked).
-  const level = await insertId(h.ds, "INSERT INTO price_levels (code, name, percent_off) VALUES (?, 'Contractor', 15)", [`C${fx.tag}`])
-  await h.ds.query('INSERT INTO customer_terms (customer_id, price_level_id) VALUES (?, ?)', [fx.customerId, level])
-  const bill = await billFor(h.ds, fx, 1, 120)
-  const quote = await counter.post('/api/quotes').set(CSRF).send({ bomId: bill, warehouseId: fx.warehouseId })
-  expect(quote.status, JSON.stringify(quote.body)).toBe(201)
-  await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
-  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
-  expect(order.status, JSON.stringify(order.body)).toBe(201)
-  orderId = order.body.id
+  orderId = await bookedOrder(h.ds, counter, fx, `C${fx.tag}`)
 })
 afterAll(async () => {
   await pay?.close()

@@ -1,6 +1,8 @@
 // Counter-sales fixtures written straight into the tables: priced items (a block, spacers sold by the
 // case of 100), a warehouse with bins, and a contractor account with a job; all tagged afresh per file.
+import type supertest from 'supertest'
 import type { DataSource } from 'typeorm'
+import { CSRF } from './apiHarness.js'
 import { createCustomerAndJob } from './counterFixtures.js'
 import { insertId, tagOf } from './fixtureRows.js'
 import { createWarehouse } from './stockFixtures.js'
@@ -53,4 +55,20 @@ export async function billFor(ds: DataSource, fx: SalesFixture, revision: number
     )
   }
   return bomId
+}
+
+/**
+ * A booked order for the fixture's contractor on a 15 %-off level (the base sells at 895.00 × 0.85 = 760.75,
+ * hand-worked), made through the API: a bill, a quote offered by hand, the quote taken. Answers the order id.
+ */
+export async function bookedOrder(ds: DataSource, counter: supertest.Agent, fx: SalesFixture, levelCode: string, blocks = 120): Promise<number> {
+  const level = await insertId(ds, "INSERT INTO price_levels (code, name, percent_off) VALUES (?, 'Contractor', 15)", [levelCode])
+  await ds.query('INSERT INTO customer_terms (customer_id, price_level_id) VALUES (?, ?) ON DUPLICATE KEY UPDATE price_level_id = VALUES(price_level_id)', [fx.customerId, level])
+  const bill = await billFor(ds, fx, 1, blocks)
+  const quote = await counter.post('/api/quotes').set(CSRF).send({ bomId: bill, warehouseId: fx.warehouseId })
+  if (quote.status !== 201) throw new Error(`quote: ${quote.status} ${JSON.stringify(quote.body)}`)
+  await ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
+  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
+  if (order.status !== 201) throw new Error(`order: ${order.status} ${JSON.stringify(order.body)}`)
+  return order.body.id as number
 }

@@ -72,34 +72,65 @@ export async function confirmCardDeposit(ds: DataSource, pay: PayProvider, order
 
 const SYSTEM: AuditActor = { userId: null }
 
-/** The provider's `payment_intent.succeeded` event: settles the pending card payment it names, once. */
-export async function settleCardPaymentIn(em: EntityManager, event: ProviderEvent): Promise<string> {
-  const intent = event.data.object as unknown as { id: string; amount_received: number; currency: string; metadata?: Record<string, string> }
-  const orderId = Number(intent.metadata?.salesOrderId)
-  if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
-  let order
-  try {
-    order = await lockSalesOrder(em, orderId)
-  } catch (err) {
-    if (err instanceof AppError && err.status === 404) return 'no_order'
-    throw err
-  }
-  const amount = fromMinorUnits(intent.amount_received, intent.currency)
-  const payment = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', reference: intent.id }, lock: { mode: 'pessimistic_write' } })
-  if (payment && payment.status !== 'pending') return payment.status === 'failed' ? 'order_cancelled' : 'already_recorded'
-  if (!payment) {
+/**
+ * The provider's `payment_intent.succeeded` event: settles the pending card payment it names, once. A card
+ * confirmed on the provider's side after its order was cancelled (the clerk cancelled while the customer was
+ * still paying) is refunded in full at once through the provider, keyed by the payment intent so a retried
+ * transaction repeats the same refund, and recorded as a refunded payment; a replayed event finds its
+ * payment_events row first (paymentEvents.ts) and changes nothing.
+ */
+export function cardSettlement(pay: PayProvider) {
+  return async function settleCardPaymentIn(em: EntityManager, event: ProviderEvent): Promise<string> {
+    const intent = event.data.object as unknown as { id: string; amount_received: number; currency: string; metadata?: Record<string, string> }
+    const orderId = Number(intent.metadata?.salesOrderId)
+    if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
+    let order
     try {
-      await recordPaymentIn(em, SYSTEM, orderId, { method: 'card', amount, reference: intent.id, status: 'settled', providerEventId: event.id })
-      return 'settled'
+      order = await lockSalesOrder(em, orderId)
     } catch (err) {
-      if (err instanceof AppError) return err.code.slice(0, 40)
+      if (err instanceof AppError && err.status === 404) return 'no_order'
       throw err
     }
+    const amount = fromMinorUnits(intent.amount_received, intent.currency)
+    const payment = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', reference: intent.id }, lock: { mode: 'pessimistic_write' } })
+    if (payment && payment.status !== 'pending' && payment.status !== 'failed') return 'already_recorded'
+    if (order.status === 'cancelled') return refundLateCard(em, pay, event, order.id, order.number, payment, intent.id, amount)
+    if (payment?.status === 'failed') return 'already_recorded'
+    if (!payment) {
+      try {
+        await recordPaymentIn(em, SYSTEM, orderId, { method: 'card', amount, reference: intent.id, status: 'settled', providerEventId: event.id })
+        return 'settled'
+      } catch (err) {
+        if (err instanceof AppError) return err.code.slice(0, 40)
+        throw err
+      }
+    }
+    await em.update(Payment, { id: payment.id }, { status: 'settled', amount, providerEventId: event.id })
+    const paid = await refreshPaid(em, orderId)
+    await audit(em, SYSTEM, 'payment.record', 'sales_order', orderId, { number: order.number, paymentId: payment.id, method: 'card', amount, reference: intent.id, paid, event: event.id })
+    return 'settled'
   }
-  await em.update(Payment, { id: payment.id }, { status: 'settled', amount, providerEventId: event.id })
-  const paid = await refreshPaid(em, orderId)
-  await audit(em, SYSTEM, 'payment.record', 'sales_order', orderId, { number: order.number, paymentId: payment.id, method: 'card', amount, reference: intent.id, paid, event: event.id })
-  return 'settled'
+}
+
+/** A card paid after its order was cancelled: all of it goes back through the provider; the row says so. */
+async function refundLateCard(
+  em: EntityManager, pay: PayProvider, event: ProviderEvent, orderId: number, number: string | null,
+  payment: Payment | null, intentId: string, amount: string,
+): Promise<string> {
+  if (compareMoney(amount, '0') <= 0) return 'order_cancelled'
+  const refund = await pay.refund({
+    intentId,
+    amountMinor: toMinorUnits(amount, pay.currency),
+    idempotencyKey: `lumenyard-late-refund-${intentId}`,
+    metadata: { salesOrderId: String(orderId), reason: 'order_cancelled' },
+  })
+  const fields = { amount, status: 'refunded' as const, refundedAmount: amount, providerEventId: event.id }
+  const row = payment
+    ? (await em.update(Payment, { id: payment.id }, fields), payment.id)
+    : (await em.save(em.create(Payment, { salesOrderId: orderId, method: 'card', reference: intentId, recordedBy: null, ...fields }))).id
+  await refreshPaid(em, orderId)
+  await audit(em, SYSTEM, 'payment.refund', 'sales_order', orderId, { number, paymentId: row, amount, refund: refund.id, event: event.id, late: true })
+  return 'refunded_late'
 }
 
 /**

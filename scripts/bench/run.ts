@@ -6,8 +6,9 @@
 //   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff compute levels grid signin reorder golive
 //   npm run bench -- --sizes=demo        one data set (demo or large)
 //   npm run bench -- --rounds=5 --seconds=10 --rebuild --cpu-prof
+//   npm run bench -- --reuse-build        keep the client built by the last run (when only the server changed)
 import { spawnSync } from 'node:child_process'
-import { mkdirSync, writeFileSync } from 'node:fs'
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs'
 import path from 'node:path'
 import { parseArgs } from 'node:util'
 import type { Browser } from 'playwright-core'
@@ -20,7 +21,7 @@ import { measureGoLive, openGoLiveDatabase } from './goLive.js'
 import { measureReorder } from './reorder.js'
 import { measureTakeoffCompute } from './takeoffCompute.js'
 import { startNodeServer, type BenchServer } from './servers.js'
-import { describeMachine, loadAverage, machine, median, timed } from './stats.js'
+import { describeMachine, loadAverage, machine, mariadbPid, median, processCpuMs, timed } from './stats.js'
 
 const MEASURES = ['scan', 'issue', 'pick', 'takeoff', 'compute', 'levels', 'grid', 'signin', 'reorder', 'golive'] as const
 type MeasureName = (typeof MEASURES)[number]
@@ -33,6 +34,7 @@ const { values: opts } = parseArgs({
     seconds: { type: 'string', default: '8' },
     rebuild: { type: 'boolean', default: false },
     'cpu-prof': { type: 'boolean', default: false },
+    'reuse-build': { type: 'boolean', default: false },
   },
 })
 const only = new Set(opts.only!.split(',') as MeasureName[])
@@ -42,7 +44,16 @@ const SECONDS = Number(opts.seconds)
 const benchDir = path.join(dataRoot, 'bench')
 const portBase = Number(process.env.BENCH_PORT_BASE ?? 5690)
 
-interface Side { median: number; p50?: number; p99?: number; runs: number[]; unit: string; note?: string }
+interface Side {
+  median: number
+  p50?: number
+  p99?: number
+  runs: number[]
+  unit: string
+  note?: string
+  /** CPU per answered request (ms): the server process, and MariaDB over the same seconds (a load test's only). */
+  cpuMsPerRequest?: { server: number | null; database: number | null }
+}
 interface Row {
   measure: string
   size: Size | '—'
@@ -71,23 +82,38 @@ function build(outDir: string, config?: string): void {
   if (res.status !== 0) throw new Error(`vite build ${config ?? ''} failed`)
 }
 
+interface CpuLoadResult extends LoadResult { serverCpu: number | null; dbCpu: number | null }
+
+/** One round of load, with the CPU the server and MariaDB spent on it per answered request. */
+async function loadWithCpu(server: BenchServer, spec: LoadSpec): Promise<CpuLoadResult> {
+  const db = mariadbPid('test', dataRoot)
+  const before = [processCpuMs(server.child.pid), processCpuMs(db)]
+  const res = await runLoad(server.url, spec)
+  const after = [processCpuMs(server.child.pid), processCpuMs(db)]
+  const per = (i: number) => (before[i] === null || after[i] === null || !res.ok ? null : (after[i]! - before[i]!) / res.ok)
+  return { ...res, serverCpu: per(0), dbCpu: per(1) }
+}
+
 /** Rounds of load, alternating which side goes first, and the medians of each side's rounds. */
 async function sideBySide(app: BenchServer, floor: BenchServer, appSpec: LoadSpec, floorSpec: LoadSpec): Promise<[Side, Side]> {
-  const a: LoadResult[] = []
-  const f: LoadResult[] = []
+  const a: CpuLoadResult[] = []
+  const f: CpuLoadResult[] = []
   await runLoad(app.url, { ...appSpec, seconds: 2 })
   await runLoad(floor.url, { ...floorSpec, seconds: 2 })
   for (let r = 0; r < ROUNDS; r++) {
-    const order: [BenchServer, LoadSpec, LoadResult[]][] = [[app, appSpec, a], [floor, floorSpec, f]]
+    const order: [BenchServer, LoadSpec, CpuLoadResult[]][] = [[app, appSpec, a], [floor, floorSpec, f]]
     if (r % 2) order.reverse()
     for (const [server, spec, out] of order) {
-      const res = await runLoad(server.url, spec)
+      const res = await loadWithCpu(server, spec)
       out.push(res)
-      log(`  round ${r + 1} ${server.name}: ${res.rps.toFixed(0)} req/s, p50 ${res.p50} ms, p99 ${res.p99} ms${res.failed ? `, ${res.failed} FAILED` : ''}`)
+      const cpu = res.serverCpu === null ? '' : `; CPU per request: server ${res.serverCpu.toFixed(2)} ms, MariaDB ${res.dbCpu?.toFixed(2) ?? '?'} ms`
+      log(`  round ${r + 1} ${server.name}: ${res.rps.toFixed(0)} req/s, p50 ${res.p50} ms, p99 ${res.p99} ms${res.failed ? `, ${res.failed} FAILED` : ''}${cpu}`)
     }
   }
-  const side = (xs: LoadResult[]): Side => ({
+  const cpuMedian = (xs: (number | null)[]) => (xs.some((x) => x === null) ? null : median(xs as number[]))
+  const side = (xs: CpuLoadResult[]): Side => ({
     median: median(xs.map((x) => x.rps)), p50: median(xs.map((x) => x.p50)), p99: median(xs.map((x) => x.p99)), runs: xs.map((x) => x.rps), unit: 'req/s',
+    cpuMsPerRequest: { server: cpuMedian(xs.map((x) => x.serverCpu)), database: cpuMedian(xs.map((x) => x.dbCpu)) },
     ...(xs.some((x) => x.failed) ? { note: `${xs.reduce((s, x) => s + x.failed, 0)} failed requests` } : {}),
   })
   return [side(a), side(f)]
@@ -270,7 +296,7 @@ async function main(): Promise<void> {
   const loadAtStart = loadAverage()
   log(`npm run bench: ${[...only].join(', ')} on ${sizes.join(' and ')}; load average at start ${loadAtStart.join(' ')}`)
   const needsPages = ['grid', 'signin', 'scan', 'issue', 'pick', 'takeoff'].some((m) => only.has(m as MeasureName))
-  if (needsPages) {
+  if (needsPages && !(opts['reuse-build'] && existsSync(path.join(benchDir, 'dist')) && existsSync(path.join(benchDir, 'floor-pages')))) {
     log('building the client and the floor pages…')
     build(path.join(benchDir, 'dist'))
     build(path.join(benchDir, 'floor-pages'), 'scripts/bench/floorPages/vite.config.ts')
@@ -306,7 +332,8 @@ async function main(): Promise<void> {
   log(`\n${describeMachine(m)}; load average ${loadAtStart.join(' ')} at start, ${result.loadAverage.end.join(' ')} at the end`)
   log('| measure | data | Lumenyard | floor | ratio | target | |')
   log('|---|---|---|---|---|---|---|')
-  const cell = (s: Side) => `${s.median.toFixed(s.unit === 'ms' && s.median < 10 ? 1 : 0)} ${s.unit}${s.p99 !== undefined && s.unit === 'req/s' ? `, p99 ${s.p99.toFixed(0)} ms` : ''}${s.note ? ` (${s.note})` : ''}`
+  const cpu = (s: Side) => (s.cpuMsPerRequest?.server == null ? '' : `, CPU ${s.cpuMsPerRequest.server.toFixed(2)} + DB ${s.cpuMsPerRequest.database?.toFixed(2) ?? '?'} ms/req`)
+  const cell = (s: Side) => `${s.median.toFixed(s.unit === 'ms' && s.median < 10 ? 1 : 0)} ${s.unit}${s.p99 !== undefined && s.unit === 'req/s' ? `, p99 ${s.p99.toFixed(0)} ms` : ''}${cpu(s)}${s.note ? ` (${s.note})` : ''}`
   for (const r of rows) {
     log(`| ${r.measure} | ${r.size} | ${cell(r.lumenyard)} | ${r.floor ? cell(r.floor) : '—'} | ${r.ratio === null ? '—' : r.ratio.toFixed(2)} | ${r.target} | ${r.holds === null ? '' : r.holds ? 'holds' : 'missed'} |`)
   }

@@ -36,3 +36,28 @@ export function machine(mariadb: string): Machine {
 }
 
 export const describeMachine = (m: Machine) => `nproc ${m.nproc}, CPU ${m.cpu}, ${m.memoryGb} GB, MariaDB ${m.mariadb}, Node ${m.node}`
+
+/**
+ * CPU time (user + system, ms) a process has used so far, from /proc/<pid>/stat (fields 14 and 15, in clock
+ * ticks of 1/100 s on Linux). Wall time on a shared machine says how busy the machine was; CPU per request
+ * says what the request itself cost, and so compares two servers fairly under any load.
+ */
+export function processCpuMs(pid: number | undefined): number | null {
+  if (!pid) return null
+  try {
+    const stat = readFileSync(`/proc/${pid}/stat`, 'utf8')
+    const fields = stat.slice(stat.lastIndexOf(')') + 2).split(' ')
+    return (Number(fields[11]) + Number(fields[12])) * 10
+  } catch {
+    return null
+  }
+}
+
+/** The MariaDB server's process id, from the pid file of the instance under .data/ (null when not ours). */
+export function mariadbPid(profileName: string, dataRoot: string): number | undefined {
+  try {
+    return Number(readFileSync(`${dataRoot}/${profileName}/mysqld.pid`, 'utf8').trim()) || undefined
+  } catch {
+    return undefined
+  }
+}

@@ -21,6 +21,25 @@ export async function purchasingSettings(em: EntityManager | DataSource): Promis
   return { warehouseSeesCosts: read('warehouseSeesCosts'), autoCloseOnReceipt: read('autoCloseOnReceipt') }
 }
 
+/**
+ * The same settings as last read, for at most SETTINGS_CACHE_MS: every signed-in warehouse request asks
+ * whether the crew sees costs (costVisibility.ts), and that read was one statement in ten of a stock issue.
+ * A change through updatePurchasingSettings takes effect at once in this process (the cache is dropped on
+ * commit); another process running against the same database sees it within SETTINGS_CACHE_MS.
+ */
+export const SETTINGS_CACHE_MS = 30_000
+const cached = new WeakMap<DataSource, { at: number; value: Promise<PurchasingSettings> }>()
+
+export function recentPurchasingSettings(db: EntityManager | DataSource): Promise<PurchasingSettings> {
+  const ds = 'connection' in db ? db.connection : db
+  const hit = cached.get(ds)
+  if (hit && Date.now() - hit.at < SETTINGS_CACHE_MS) return hit.value
+  const value = purchasingSettings(ds)
+  cached.set(ds, { at: Date.now(), value })
+  value.catch(() => cached.delete(ds)) // a failed read is not kept
+  return value
+}
+
 export async function updatePurchasingSettings(ds: DataSource, actor: AuditActor, input: PurchasingSettingsInput): Promise<PurchasingSettings> {
   return ds.transaction(async (em) => {
     for (const name of Object.keys(KEYS) as (keyof PurchasingSettings)[]) {
@@ -33,5 +52,5 @@ export async function updatePurchasingSettings(ds: DataSource, actor: AuditActor
     }
     await audit(em, actor, 'settings.update', 'app_settings', 'purchasing', input)
     return purchasingSettings(em)
-  })
+  }).finally(() => cached.delete(ds))
 }

@@ -11,7 +11,7 @@
 import { AsyncLocalStorage } from 'node:async_hooks'
 import type { DataSource, EntityManager } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
-import { purchasingSettings } from './appSettings.js'
+import { recentPurchasingSettings } from './appSettings.js'
 
 /**
  * The only names under which a cost (what we pay, and sums of it) leaves the server. Never reuse
@@ -43,7 +43,7 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {
   if (roles.includes('admin') || roles.includes('buyer')) return true
   if (!roles.includes('warehouse')) return false
-  return (await purchasingSettings(db)).warehouseSeesCosts
+  return (await recentPurchasingSettings(db)).warehouseSeesCosts
 }
 
 /** The same answer for a signed-in user (services that word their answer by it, e.g. counts). */

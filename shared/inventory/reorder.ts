@@ -93,6 +93,7 @@ export interface ReorderInput {
 export type ReorderStatus = 'orderNow' | 'orderSoon' | 'overstocked' | 'deadStock' | 'ok'
 
 export interface Explanation {
+  /** The figures the working read, by name (a code such as meanDaily; screens word it). */
   inputs: Record<string, number | string | null>
   /** The working in English (logs, accepted suggestions). */
   steps: string[]
@@ -308,12 +309,13 @@ export function reorderSuggestion(input: ReorderInput, options: ReorderOptions =
 }
 
 function explanationInputs({ demand, stock, policy, vendor, unitCost }: ReorderInput): Explanation['inputs'] {
+  // Named by code: screens word each name in the reader's language (reorder.inputs.<name>).
   return {
-    'd̄ (units/day)': demand.meanDaily, 'σd (units/day)': demand.sdDaily, 'L (days)': policy.leadTimeDays,
-    'σL (days)': policy.leadTimeSdDays, 'R (days)': policy.reviewPeriodDays, 'service level': policy.serviceLevel,
-    'S (per order)': policy.costPerOrder, 'i (per year)': policy.holdingRatePerYear, 'C (unit cost)': unitCost,
-    'on hand': stock.onHand, 'on order': stock.onOrder, pending: stock.pending ?? 0, reserved: stock.reserved,
-    'days since last use': demand.daysSinceLastUse,
-    'pack size': vendor?.packSize ?? null, 'minimum order': vendor?.minimumOrder ?? null,
+    meanDaily: demand.meanDaily, sdDaily: demand.sdDaily, leadTimeDays: policy.leadTimeDays,
+    leadTimeSdDays: policy.leadTimeSdDays, reviewPeriodDays: policy.reviewPeriodDays, serviceLevel: policy.serviceLevel,
+    costPerOrder: policy.costPerOrder, holdingRatePerYear: policy.holdingRatePerYear, unitCost,
+    onHand: stock.onHand, onOrder: stock.onOrder, pending: stock.pending ?? 0, reserved: stock.reserved,
+    daysSinceLastUse: demand.daysSinceLastUse,
+    packSize: vendor?.packSize ?? null, minimumOrder: vendor?.minimumOrder ?? null,
   }
 }

@@ -1,4 +1,4 @@
-import { ref } from 'vue'
+import { computed, ref } from 'vue'
 import { ElMessage } from 'element-plus'
 import { isApiError } from '@/api/client'
 import { i18n } from '@/i18n'
@@ -15,6 +15,8 @@ export function useApiAction() {
   const errorStatus = ref<number | null>(null)
   /** The last failure's code (e.g. po_changed), for screens that answer a particular refusal. */
   const errorCode = ref('')
+  /** The failure when no field carries it: what a form dialog shows in its own alert region. */
+  const formError = computed(() => (Object.keys(fieldErrors.value).length ? '' : errorMessage.value))
 
   async function run<T>(action: () => Promise<T>): Promise<T | undefined> {
     busy.value = true
@@ -42,7 +44,7 @@ export function useApiAction() {
     }
   }
 
-  return { busy, fieldErrors, errorMessage, errorStatus, errorCode, run }
+  return { busy, fieldErrors, errorMessage, formError, errorStatus, errorCode, run }
 }
 
 /**

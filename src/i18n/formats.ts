@@ -9,6 +9,8 @@ export const fallbackLocale = { en: ['en-US'], es: ['es-US', 'en'], default: ['e
 const numbers = {
   integer: { maximumFractionDigits: 0 },
   decimal: { maximumFractionDigits: 3 },
+  /** The figures behind a computation (a mean daily use of 0.4167). */
+  precise: { maximumFractionDigits: 4 },
   percent: { style: 'percent', maximumFractionDigits: 1 },
 } as const
 

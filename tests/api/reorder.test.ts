@@ -9,6 +9,8 @@ import {
   zForServiceLevel,
 } from '../../shared/inventory/reorder.js'
 import type { ReorderLine, ReorderLineDetail, SuggestionList } from '../../shared/schemas/reorder.js'
+import enReorder from '../../src/i18n/en/reorder.js'
+import esReorder from '../../src/i18n/es/reorder.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { createReorderFixture, isoDay, WINDOW_DAYS, type ReorderFixture } from '../support/reorderFixture.js'
 
@@ -112,7 +114,14 @@ describe('reorder figures', () => {
     expect(text).toContain(`d̄ = Σx / n = ${sum(fx.series)} / ${WINDOW_DAYS} = ${mean(fx.series).toFixed(2)}`)
     expect(text).toContain('SS = z·√(L·σd² + d̄²·σL²) = 1.6449 × √(11 × ')
     expect(text).toContain(`ROP = d̄·L + SS = ${mean(fx.series).toFixed(2)} × 11 + `)
-    expect(d.explanation.inputs).toMatchObject({ 'on hand': fx.onHand, 'on order': fx.onOrder, reserved: fx.reserved })
+    expect(d.explanation.inputs).toMatchObject({ onHand: fx.onHand, onOrder: fx.onOrder, reserved: fx.reserved, windowDays: WINDOW_DAYS })
+    // common practice: a screen words every figure the working read in the reader's language; each name the
+    // answer gives has its words in English and Spanish (the drawer showed the server's English names before)
+    for (const name of Object.keys(d.explanation.inputs)) {
+      expect(enReorder.inputs, name).toHaveProperty([name])
+      expect(esReorder.inputs, name).toHaveProperty([name])
+    }
+    expect(esReorder.inputs.onHand).not.toBe(enReorder.inputs.onHand)
     expect(d.leadTime.source).toBe('observed')
     // the working a screen lists as it is carries no internal codes (a lead time "from vendorItem")
     expect(Object.values(d.explanation.inputs)).not.toContain('observed')

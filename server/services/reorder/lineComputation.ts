@@ -86,8 +86,7 @@ export function computeLine(
   const explanation: Explanation = {
     inputs: {
       // where the lead time came from is the answer's own field (leadTime.source), worded by screens: no raw code here
-      'window (days)': window.days, 'Σx (units)': sums.sum, 'Σx² (units²)': sums.sumSquares,
-      'looked back for last use (days)': lookbackDays,
+      windowDays: window.days, sumUnits: sums.sum, sumSquares: sums.sumSquares, lookbackDays,
       ...result.explanation.inputs,
     },
     steps: [...demand.steps, ...result.explanation.steps],

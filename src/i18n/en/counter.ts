@@ -222,6 +222,7 @@ export default {
   rulesIntro: 'Each rule turns wall measures into a quantity of one role. Changes apply to new computations; saved bills keep their figures.',
   addRule: 'Add a rule',
   editRule: 'Rule',
+  ruleNotJson: 'The rule is not well-formed JSON: check the braces, commas and quotation marks.',
   ruleId: 'Rule',
   ruleNote: 'What it does',
   origin: 'Origin',

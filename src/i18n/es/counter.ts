@@ -224,6 +224,7 @@ export default {
   rulesIntro: 'Cada regla convierte las medidas del muro en una cantidad de una función. Los cambios valen para los cálculos nuevos; las listas guardadas conservan sus cifras.',
   addRule: 'Agregar una regla',
   editRule: 'Regla',
+  ruleNotJson: 'La regla no es JSON bien formado: revise las llaves, las comas y las comillas.',
   ruleId: 'Regla',
   ruleNote: 'Qué hace',
   origin: 'Origen',

@@ -20,6 +20,8 @@ export class OutboxMessage {
   @Column({ name: 'po_id', type: 'int', nullable: true }) poId: number | null
   /** A quote e-mailed to a contractor (counter sales). */
   @Column({ name: 'quote_id', type: 'int', nullable: true }) quoteId: number | null
+  /** A sales order's notice to the contractor (ready to collect). */
+  @Column({ name: 'sales_order_id', type: 'int', nullable: true }) salesOrderId: number | null
   @Column({ name: 'created_by', type: 'int', nullable: true }) createdBy: number | null
   /** The failed message this one sends again (each failed message is sent again at most once). */
   @Column({ name: 'retry_of', type: 'int', nullable: true }) retryOf: number | null

@@ -5,8 +5,11 @@ import type { PickListStatus, ShortageAction, ShortReason } from '../../shared/s
 @Entity({ name: 'pick_lists' })
 export class PickList {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
-  @Column({ name: 'bom_id', type: 'int' }) bomId: number
-  @Column({ name: 'job_id', type: 'int' }) jobId: number
+  /** The bill of materials picked from; null when the list comes from a sales order. */
+  @Column({ name: 'bom_id', type: 'int', nullable: true }) bomId: number | null
+  @Column({ name: 'job_id', type: 'int', nullable: true }) jobId: number | null
+  /** The sales order whose held lines this list picks (its picked units stay held for the order's handover ticket). */
+  @Column({ name: 'sales_order_id', type: 'int', nullable: true }) salesOrderId: number | null
   @Column({ name: 'warehouse_id', type: 'int' }) warehouseId: number
   @Column({ type: 'varchar', length: 12, default: 'draft' }) status: PickListStatus
   @Column({ type: 'varchar', length: 200, nullable: true }) note: string | null
@@ -29,7 +32,8 @@ export class PickList {
 export class PickListLine {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
   @Column({ name: 'pick_list_id', type: 'int' }) pickListId: number
-  @Column({ name: 'bom_line_id', type: 'int' }) bomLineId: number
+  @Column({ name: 'bom_line_id', type: 'int', nullable: true }) bomLineId: number | null
+  @Column({ name: 'sales_order_line_id', type: 'int', nullable: true }) salesOrderLineId: number | null
   @Column({ name: 'item_id', type: 'int' }) itemId: number
   /** The bill of materials' item this line stands in for, when it is a substitute. */
   @Column({ name: 'substitute_for_item_id', type: 'int', nullable: true }) substituteForItemId: number | null
@@ -67,7 +71,7 @@ export class PickConfirmation {
 export class PickShortage {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
   @Column({ name: 'pick_list_id', type: 'int' }) pickListId: number
-  @Column({ name: 'bom_line_id', type: 'int' }) bomLineId: number
+  @Column({ name: 'bom_line_id', type: 'int', nullable: true }) bomLineId: number | null
   /** The line closed short that this row resolves (a backorder or substitute chosen after picking). */
   @Column({ name: 'pick_list_line_id', type: 'int', nullable: true }) pickListLineId: number | null
   @Column({ name: 'item_id', type: 'int' }) itemId: number

@@ -23,6 +23,11 @@ export class SalesOrder {
   @Column({ name: 'created_by', type: 'int', nullable: true }) createdBy: number | null
   @CreateDateColumn({ name: 'created_at', type: 'datetime' }) createdAt: Date
   @UpdateDateColumn({ name: 'updated_at', type: 'datetime' }) updatedAt: Date
+  /** When a completed pick left goods waiting at the counter; the contractor is e-mailed once per time (ready_mailed_at). */
+  @Column({ name: 'ready_at', type: 'datetime', nullable: true }) readyAt: Date | null
+  @Column({ name: 'ready_mailed_at', type: 'datetime', nullable: true }) readyMailedAt: Date | null
+  /** When every line was handed over or cancelled. */
+  @Column({ name: 'closed_at', type: 'datetime', nullable: true }) closedAt: Date | null
 }
 
 /** One quoted line as ordered; stock lines are held under doc_line_id = this id, made-to-order lines point at their PO line. */
@@ -43,6 +48,10 @@ export class SalesOrderLine {
   @Column({ name: 'qty_reserved', type: 'int', default: 0 }) qtyReserved: number
   @Column({ name: 'qty_picked', type: 'int', default: 0 }) qtyPicked: number
   @Column({ name: 'qty_handed_over', type: 'int', default: 0 }) qtyHandedOver: number
+  /** Stocked units a completed pick could not find, waiting for stock (a purchase suggestion was raised). */
+  @Column({ name: 'qty_backordered', type: 'int', default: 0 }) qtyBackordered: number
+  /** Units the counter took off the order (a backorder the contractor no longer wants). */
+  @Column({ name: 'qty_cancelled', type: 'int', default: 0 }) qtyCancelled: number
   @Column({ name: 'qty_returned', type: 'int', default: 0 }) qtyReturned: number
   @Column({ name: 'po_line_id', type: 'int', nullable: true }) poLineId: number | null
 }

@@ -5,6 +5,7 @@ import { Bom, BomLine } from './Bom.js'
 import { Customer, Job, Takeoff } from './Customer.js'
 import { CountBin, CountItem, CountLine, CycleCount } from './CycleCount.js'
 import { DeviceOutboxReport } from './DeviceOutboxReport.js'
+import { HandoverTicket, HandoverTicketLine } from './HandoverTicket.js'
 import { BomSnapshot, MaterialRoleItem, MaterialRuleRow, WasteAllowance } from './TakeoffSettings.js'
 import { IdempotencyRecord } from './IdempotencyRecord.js'
 import { Item } from './Item.js'
@@ -80,4 +81,6 @@ export const allEntities = [
   CountBin,
   CountLine,
   DeviceOutboxReport,
+  HandoverTicket,
+  HandoverTicketLine,
 ]

@@ -21,6 +21,7 @@ export async function runStockRequest<T>(
   input: unknown,
   work: (em: EntityManager) => Promise<T>,
   status: number | ((body: T) => number) = 200,
+  after?: (body: T) => Promise<void>,
 ): Promise<void> {
   if (!req.user) throw AppError.unauthenticated()
   const answer = await runIdempotent(
@@ -31,6 +32,7 @@ export async function runStockRequest<T>(
       return { status: typeof status === 'function' ? status(body) : status, body }
     },
   )
+  if (after && answer.status < 300) await after(answer.body as T)
   if (answer.replayed) res.set('Idempotent-Replayed', 'true')
   res.status(answer.status).json(answer.body)
 }
@@ -49,6 +51,8 @@ export interface StockStep<S extends z.ZodType, T> {
   status?: number | ((body: T) => number)
   /** The change, inside the request's one transaction. */
   run: (em: EntityManager, step: { req: Request; input: z.infer<S>; id: number }) => Promise<T>
+  /** Work after the transaction committed (and on a replay), before the answer goes out: e-mail, never stock. */
+  after?: (body: T, step: { req: Request; id: number }) => Promise<void>
 }
 
 /**
@@ -64,7 +68,8 @@ export function stockStep<S extends z.ZodType = z.ZodNull, T = unknown>(ctx: App
     handler: (req, res) => {
       const id = spec.id ? spec.id(req) : 0
       const input = (spec.body ? parseBody(spec.body, req.body) : null) as z.infer<S>
-      return runStockRequest(ctx, req, res, input, (em) => spec.run(em, { req, input, id }), spec.status)
+      const after = spec.after
+      return runStockRequest(ctx, req, res, input, (em) => spec.run(em, { req, input, id }), spec.status, after && ((body) => after(body, { req, id })))
     },
   }
 }

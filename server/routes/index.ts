@@ -29,11 +29,12 @@ import pricing from './pricing.js'
 import setup from './setup.js'
 import quotes from './quotes.js'
 import salesOrders, { salesSettingsRoutes } from './salesOrders.js'
+import handoverTickets, { orderFulfilmentRoutes } from './handoverTickets.js'
 import audit from './audit.js'
 import today from './today.js'
 import payments from './payments.js'
 
-export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, businessExport, pricing, setup, quotes, salesOrders, salesSettingsRoutes, audit, today, payments]
+export const routers = [health, auth, profile, users, stockOperations, stockViews, items, warehouses, customers, jobs, takeoffs, boms, takeoffSettings, reorder, pickLists, pickingSetup, vendors, purchaseOrders, purchaseOrderDelivery, purchasing, jobPurchasingRoutes, devices, counts, reports, dataImports, businessExport, pricing, setup, quotes, salesOrders, salesSettingsRoutes, orderFulfilmentRoutes, handoverTickets, audit, today, payments]
 
 export function buildRouters(ctx: AppContext) {
   return routers.map((make) => make(ctx))

@@ -13,6 +13,7 @@ import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { cancelPickList, releasePickList } from '../services/picking/pickListStates.js'
 import { completePickList } from '../services/picking/pickCompletion.js'
+import { mailReadyAfterPick } from '../services/sales/orderReadyMail.js'
 import { confirmPick } from '../services/picking/pickConfirmations.js'
 import { discardConfirmation } from '../services/picking/pickDiscards.js'
 import { createPickLists } from '../services/picking/pickListCreate.js'
@@ -84,6 +85,8 @@ export default (ctx: AppContext) =>
     stockStep(ctx, {
       path: '/:id/complete', access: pickers, id: listId, body: pickCompleteSchema,
       run: async (em, { req, input, id }) => ({ id, status: 'picked', ...(await completePickList(em, actorOf(req), id, input)) }),
+      // A sales order's list leaves the order ready: the contractor is e-mailed once the pick is committed.
+      after: (_body, { req, id }) => mailReadyAfterPick(ctx.ds, ctx.config, actorOf(req), id),
     }),
     stockStep(ctx, {
       path: '/:id/transfers/ship', access: pickers, id: listId, body: pickShipSchema, status: 201,

@@ -166,7 +166,7 @@ export interface PickLineView {
 
 export interface ShortageView {
   id: number
-  bomLineId: number
+  bomLineId: number | null
   sku: string
   description: string
   qty: number
@@ -200,10 +200,14 @@ export interface PickListSummary {
   id: number
   number: string
   status: PickListStatus
-  bomId: number
-  bomRevision: number
-  jobId: number
+  /** Null when the list picks a sales order (salesOrderId) rather than a bill of materials. */
+  bomId: number | null
+  bomRevision: number | null
+  jobId: number | null
+  /** The job's name, or the sales order's number when it has no job. */
   jobName: string
+  salesOrderId: number | null
+  salesOrderNumber: string | null
   customerName: string
   warehouse: { id: number; code: string; name: string }
   lineCount: number

@@ -107,6 +107,7 @@ const NAMERS: Record<string, string> = {
   transfer: "SELECT t.id, CONCAT(f.code, ' → ', d.code, ' · ', t.id) AS ref FROM transfers t JOIN warehouses f ON f.id = t.from_warehouse_id JOIN warehouses d ON d.id = t.to_warehouse_id WHERE t.id IN (?)",
   quote: 'SELECT id, number AS ref FROM quotes WHERE id IN (?)',
   sales_order: 'SELECT id, number AS ref FROM sales_orders WHERE id IN (?)',
+  handover_ticket: 'SELECT id, number AS ref FROM handover_tickets WHERE id IN (?)',
   price_level: 'SELECT id, code AS ref FROM price_levels WHERE id IN (?)',
   data_import: 'SELECT id, file_name AS ref FROM data_imports WHERE id IN (?)',
   item_warehouse: "SELECT CONCAT(iw.item_id, ':', iw.warehouse_id) AS id, CONCAT(i.sku, ' · ', w.code) AS ref FROM item_warehouses iw JOIN items i ON i.id = iw.item_id JOIN warehouses w ON w.id = iw.warehouse_id WHERE CONCAT(iw.item_id, ':', iw.warehouse_id) IN (?)",

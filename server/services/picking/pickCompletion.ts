@@ -8,6 +8,7 @@ import { StockReservation } from '../../entities/StockReservation.js'
 import { AppError } from '../../errors.js'
 import { audit } from '../auditService.js'
 import { lockDocumentBalances, pickReserved, releaseReservations } from '../stock/stockReservations.js'
+import { completeOrderPick } from '../sales/fulfilment.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { PICK_DOC } from './pickListCreate.js'
 import { lockPickList, pickNumber, requireStatus } from './pickListLocks.js'
@@ -54,11 +55,13 @@ export async function completePickList(em: EntityManager, actor: StockActor, id:
   // Same lock order as making a list from this bill of materials: the bill of materials, then the list.
   const unlocked = await em.findOneBy(PickList, { id })
   if (!unlocked) throw AppError.notFound('pick_list_not_found', 'That pick list was not found.')
-  await em.findOne(Bom, { where: { id: unlocked.bomId }, lock: { mode: 'pessimistic_write' } })
+  if (unlocked.bomId !== null) await em.findOne(Bom, { where: { id: unlocked.bomId }, lock: { mode: 'pessimistic_write' } })
   const list = await lockPickList(em, id)
   requireStatus(list, ['released', 'picking'], 'complete')
   const lines = await em.find(PickListLine, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
   const closedShort = await closeOpenLines(em, actor, list, lines, opts.acceptShort)
+  // A sales order's list issues nothing: the picked units wait, held, for the order's handover ticket.
+  if (list.salesOrderId !== null) return { issued: 0, moves: 0, closedShort, released: (await completeOrderPick(em, actor, list, lines)).released }
   // Locking reads see every confirmation committed before the list lock was granted, not an older snapshot.
   const confirmations = await em.find(PickConfirmation, { where: { pickListId: list.id }, order: { id: 'ASC' }, lock: { mode: 'pessimistic_write' } })
   await lockDocumentBalances(em, { docType: PICK_DOC, docId: list.id })
@@ -70,7 +73,7 @@ export async function completePickList(em: EntityManager, actor: StockActor, id:
     const moveId = await issueConfirmation(em, actor, list, line, c)
     await em.update(PickConfirmation, { id: c.id }, { moveId, issuedAt: new Date() })
     line.issuedQty += c.qty
-    issuedByBomLine.set(line.bomLineId, (issuedByBomLine.get(line.bomLineId) ?? 0) + c.qty)
+    if (line.bomLineId !== null) issuedByBomLine.set(line.bomLineId, (issuedByBomLine.get(line.bomLineId) ?? 0) + c.qty)
     moves++
   }
   for (const line of lines) await em.update(PickListLine, { id: line.id }, { issuedQty: line.issuedQty })

@@ -14,6 +14,7 @@ import { audit } from '../auditService.js'
 import { isDuplicateKey } from '../../db/transaction.js'
 import type { StockActor } from '../stock/stockLedger.js'
 import { requestCountForShortPick } from '../counts/countShortPick.js'
+import { countOrderPick } from '../sales/fulfilment.js'
 import { lockPickList, requireStatus } from './pickListLocks.js'
 
 const PROBLEM_TEXT: Record<string, string> = {
@@ -86,6 +87,7 @@ export async function confirmPick(em: EntityManager, actor: StockActor, pickList
   line.confirmedQty += input.qty
   line.shortQty += shortQty
   await em.update(PickListLine, { id: line.id }, { confirmedQty: line.confirmedQty, shortQty: line.shortQty })
+  await countOrderPick(em, line, input.qty)
   if (list.status === 'released') {
     list.status = 'picking'
     list.startedBy = actor.userId

@@ -12,7 +12,7 @@ export async function shortageViews(em: EntityManager, shortages: PickShortage[]
   const items = new Map((await em.findBy(Item, { id: In(itemIds) })).map((i) => [i.id, i]))
   const whIds = [...new Set(shortages.flatMap((s) => (s.fromWarehouseId ? [s.fromWarehouseId] : [])))]
   const warehouses = new Map((whIds.length ? await em.findBy(Warehouse, { id: In(whIds) }) : []).map((w) => [w.id, w]))
-  const lines = (await em.query('SELECT id, description FROM bom_lines WHERE id IN (?)', [shortages.map((s) => s.bomLineId)])) as { id: number; description: string }[]
+  const lines = (await em.query('SELECT id, description FROM bom_lines WHERE id IN (?)', [shortages.map((s) => s.bomLineId ?? 0)])) as { id: number; description: string }[]
   return shortages.map((s) => {
     const detail = s.action === 'substitute' ? items.get(s.substituteItemId ?? 0)?.sku ?? null
       : s.action === 'transfer' ? warehouses.get(s.fromWarehouseId ?? 0)?.code ?? null

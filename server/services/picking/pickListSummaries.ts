@@ -14,11 +14,13 @@ export interface SummaryFilter {
 }
 
 interface SummaryRow {
-  id: number; status: PickListStatus; bom_id: number; revision: number; job_id: number; job_name: string; customer_name: string | null
+  id: number; status: PickListStatus; bom_id: number | null; revision: number | null; job_id: number | null; job_name: string; customer_name: string | null
+  sales_order_id: number | null; so_number: string | null
   wh_id: number; wh_code: string; wh_name: string; created_at: Date; updated_at: Date
   line_count: string; qty: string | null; confirmed: string | null; short: string | null; issued: string | null
 }
 
+const nullableId = (v: number | null) => (v === null ? null : Number(v))
 const iso = (d: Date | string) => (d instanceof Date ? d.toISOString() : new Date(d).toISOString())
 
 function whereOf(f: SummaryFilter): { sql: string; params: unknown[] } {
@@ -68,14 +70,16 @@ async function lineStates(em: EntityManager, ids: number[]): Promise<Map<number,
 export async function pickListSummaries(em: EntityManager, filter: SummaryFilter): Promise<PickListSummary[]> {
   const where = whereOf(filter)
   const rows = (await em.query(
-    `SELECT pl.id, pl.status, pl.bom_id, b.revision, pl.job_id, j.name AS job_name, c.name AS customer_name,
+    `SELECT pl.id, pl.status, pl.bom_id, b.revision, pl.job_id, COALESCE(j.name, so.number) AS job_name, c.name AS customer_name,
+            pl.sales_order_id, so.number AS so_number,
             w.id AS wh_id, w.code AS wh_code, w.name AS wh_name, pl.created_at, pl.updated_at,
             COUNT(pll.id) AS line_count, SUM(pll.qty) AS qty, SUM(pll.confirmed_qty) AS confirmed,
             SUM(pll.short_qty) AS short, SUM(pll.issued_qty) AS issued
        FROM pick_lists pl
-       JOIN boms b ON b.id = pl.bom_id
-       JOIN jobs j ON j.id = pl.job_id
-       LEFT JOIN customers c ON c.id = j.customer_id
+       LEFT JOIN boms b ON b.id = pl.bom_id
+       LEFT JOIN jobs j ON j.id = pl.job_id
+       LEFT JOIN sales_orders so ON so.id = pl.sales_order_id
+       LEFT JOIN customers c ON c.id = COALESCE(so.customer_id, j.customer_id)
        JOIN warehouses w ON w.id = pl.warehouse_id
        LEFT JOIN pick_list_lines pll ON pll.pick_list_id = pl.id
       ${where.sql}
@@ -87,8 +91,9 @@ export async function pickListSummaries(em: EntityManager, filter: SummaryFilter
   const waiting = await transfersWaiting(em, rows.map((r) => Number(r.id)))
   const states = await lineStates(em, rows.map((r) => Number(r.id)))
   return rows.map((r) => ({
-    id: Number(r.id), number: pickNumber(Number(r.id)), status: r.status, bomId: Number(r.bom_id), bomRevision: Number(r.revision),
-    jobId: Number(r.job_id), jobName: r.job_name, customerName: r.customer_name ?? '',
+    id: Number(r.id), number: pickNumber(Number(r.id)), status: r.status, bomId: nullableId(r.bom_id), bomRevision: nullableId(r.revision),
+    jobId: nullableId(r.job_id), jobName: r.job_name ?? '', customerName: r.customer_name ?? '',
+    salesOrderId: nullableId(r.sales_order_id), salesOrderNumber: r.so_number,
     warehouse: { id: Number(r.wh_id), code: r.wh_code, name: r.wh_name },
     lineCount: Number(r.line_count), lineStates: states.get(Number(r.id))!, qty: Number(r.qty ?? 0), confirmedQty: Number(r.confirmed ?? 0), shortQty: Number(r.short ?? 0),
     issuedQty: Number(r.issued ?? 0), transfersWaiting: waiting.get(Number(r.id)) ?? [], createdAt: iso(r.created_at), updatedAt: iso(r.updated_at),

@@ -26,6 +26,9 @@ async function openShort(em: EntityManager, line: PickListLine): Promise<number>
 }
 
 async function backorder(em: EntityManager, actor: StockActor, list: PickList, line: PickListLine, item: Item, qty: number): Promise<Partial<PickShortage>> {
+  if (list.bomId === null || list.jobId === null) {
+    throw AppError.conflict('order_backorder_automatic', 'Short lines of a sales order are backordered when its pick list is completed.')
+  }
   const [warehouse, bom] = await Promise.all([em.findOneByOrFail(Warehouse, { id: list.warehouseId }), em.findOneByOrFail(Bom, { id: list.bomId })])
   const job = await em.findOneByOrFail(Job, { id: list.jobId })
   const suggestion = await em.save(em.create(PurchaseSuggestion, {
@@ -48,7 +51,7 @@ async function substitute(em: EntityManager, actor: StockActor, list: PickList, 
     throw AppError.conflict('substitute_short', `Only ${got.allocated} ${sub.stockUnit} of ${sub.sku} are free here; ${qty} were asked. Nothing was changed.`, { params: { sku: sub.sku } })
   }
   const lines = await em.save(got.lines.map((l) => em.create(PickListLine, {
-    pickListId: list.id, bomLineId: line.bomLineId, itemId: sub.id, substituteForItemId: line.substituteForItemId ?? line.itemId,
+    pickListId: list.id, bomLineId: line.bomLineId, salesOrderLineId: line.salesOrderLineId, itemId: sub.id, substituteForItemId: line.substituteForItemId ?? line.itemId,
     binId: Number(l.binId), lotId: l.lotId === null ? null : Number(l.lotId), qty: l.qty, confirmedQty: 0, shortQty: 0, issuedQty: 0,
   })))
   await reserve(em, actor, {

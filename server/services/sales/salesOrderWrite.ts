@@ -20,6 +20,7 @@ import { preferredVendors } from '../purchasing/poWrite.js'
 import { ensureQuote, lockQuote } from '../quotes/quoteWrite.js'
 import { releaseReservations, reserve, type ReserveLine } from '../stock/stockReservations.js'
 import { salesSettings } from './salesSettings.js'
+import { releaseFulfilment } from './fulfilment.js'
 import { salesOrderDetail } from './salesOrderRead.js'
 
 /** The doc_type of an order's holds (stock_reservations): holds, not stock moves. */
@@ -144,7 +145,8 @@ export async function cancelSalesOrderIn(em: EntityManager, actor: Actor, id: nu
   if (lines.some((l) => l.qtyHandedOver > 0)) {
     throw AppError.conflict('sales_order_wrong_status', 'Goods of this order have left; take a return instead.', { params: { orderStatus: 'handed_over' } })
   }
-  const released = await releaseReservations(em, actor, { docType: SALES_ORDER_DOC, docId: id })
+  // Held at the counter, on an open pick list, or picked and waiting: all of it goes back.
+  const released = (await releaseReservations(em, actor, { docType: SALES_ORDER_DOC, docId: id })) + (await releaseFulfilment(em, actor, id))
   await em.update(SalesOrderLine, { salesOrderId: id }, { qtyReserved: 0 })
   await em.update(SalesOrder, { id }, { status: 'cancelled', cancelReason: reason, cancelledBy: actor.userId, cancelledAt: new Date() })
   await audit(em, actor, 'sales_order.cancel', 'sales_order', id, { number: order.number, reason, released })

@@ -73,3 +73,43 @@ export async function targetSizes(page: Page): Promise<TargetSizes> {
     return out
   }, CONTROLS)
 }
+
+export interface MainControlSizes {
+  /** The scan boxes and steppers showing, with their boxes. */
+  main: string[]
+  /** Other controls as tall as the smallest of them, or larger in area. */
+  rivals: string[]
+}
+
+/**
+ * Measures, on the page as it stands, the screen's main controls (`mainSelector`: its scan box and quantity
+ * stepper; a component library's input or stepper is measured by its whole box, so a stepper's − and +
+ * buttons and its field are one thing to find) against every other visible control (the same hit boxes as
+ * `targetSizes`). A control outside them that is at least as tall as the smallest of them, or larger in
+ * area, is a rival.
+ */
+export async function mainControlSizes(page: Page, mainSelector: string): Promise<MainControlSizes> {
+  return page.evaluate(([selector, mainSel]) => {
+    const label = (el: Element, r: DOMRect) =>
+      `${el.tagName.toLowerCase()}${el.getAttribute('data-test') ? `[data-test=${el.getAttribute('data-test')}]` : ''}.${String(el.className).split(' ')[0]} ${Math.round(r.width)}×${Math.round(r.height)}`
+    const shown = (el: Element) => !!(el as HTMLElement).checkVisibility?.() && el.getBoundingClientRect().width > 0
+    const mains = [...new Set(Array.from(document.querySelectorAll(mainSel)).map((el) => el.closest('.el-input-number, .el-input') ?? el))].filter(shown)
+    const out = { main: [] as string[], rivals: [] as string[] }
+    if (!mains.length) return out
+    const rects = mains.map((el) => el.getBoundingClientRect())
+    const height = Math.min(...rects.map((r) => r.height))
+    const area = Math.min(...rects.map((r) => r.width * r.height))
+    mains.forEach((el, i) => out.main.push(label(el, rects[i]!)))
+    const seen = new Set<Element>()
+    for (const el of Array.from(document.querySelectorAll(selector))) {
+      if (mains.some((m) => m.contains(el))) continue
+      const box = el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el
+      if (seen.has(box) || !shown(box)) continue
+      seen.add(box)
+      const r = box.getBoundingClientRect()
+      // Half a pixel of rounding either way, as for the target sizes.
+      if (r.height > height - 0.5 || r.width * r.height > area + 0.5) out.rivals.push(label(box, r))
+    }
+    return out
+  }, [CONTROLS, mainSelector] as const)
+}

@@ -45,6 +45,7 @@ export default {
     standing: 'In place',
     reversedOn: 'Reversed on {when} by {who}',
     reverse: 'Reverse',
+    undoColumn: 'Undo',
     reverseConfirm: 'Take back everything “{file}” brought in? Stock goes back to what it was before the import, costs included. This is refused once anything else has moved that stock.',
     reverseTitle: 'Reverse this import',
     reversed: 'The import was reversed.',

@@ -45,6 +45,7 @@ export default {
     standing: 'Vigente',
     reversedOn: 'Revertida el {when} por {who}',
     reverse: 'Revertir',
+    undoColumn: 'Deshacer',
     reverseConfirm: '¿Deshacer todo lo que trajo «{file}»? La existencia vuelve a como estaba antes de la importación, costos incluidos. Se rechaza si algo más ya movió esa existencia.',
     reverseTitle: 'Revertir esta importación',
     reversed: 'La importación se revirtió.',

@@ -1,5 +1,5 @@
-// A Spanish user meets no English from the component libraries: the paginated ledger, its date picker and a
-// search that finds nothing. The English words looked for
+// A Spanish user meets no English from the component libraries: the paginated ledger, its date picker, a
+// search that finds nothing, the stock grid's filter menu and the grid left empty. The English words looked for
 // are the libraries' own English locale files (Element Plus's `en`, AG Grid's AG_GRID_LOCALE_EN), less the
 // words that are the same in their Spanish files.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -54,7 +54,7 @@ beforeAll(async () => {
 afterAll(() => h?.close())
 
 describe('the component libraries speak the user\'s language', () => {
-  it('shows a Spanish user no English in pagination, date picker and an empty search', async () => {
+  it('shows a Spanish user no English in pagination, date picker, an empty search, a grid menu and an empty grid', async () => {
     const { page, context } = await h.newPage()
     try {
       await h.signIn(page, 'warehouse') // the demo's warehouse user works in Spanish
@@ -79,6 +79,20 @@ describe('the component libraries speak the user\'s language', () => {
       const es = leaves(elEs as unknown as Tree)
       expect(empty.filter((w) => w === es.get('el.select.noMatch') || w === es.get('el.select.noData'))).toHaveLength(1)
       await page.keyboard.press('Escape')
+
+      // The stock grid: a column's filter menu, then a search that leaves it empty (the grid's own "no rows").
+      await openInApp(page, '/stock/overview')
+      await page.locator('.ag-header-cell[col-id="sku"] .ag-header-cell-filter-button, .ag-header-cell[col-id="sku"] .ag-header-cell-menu-button').first().click()
+      await page.locator('.ag-filter').first().waitFor()
+      const menu = await wordsIn(page, '.ag-popup')
+      expect(menu.length).toBeGreaterThan(0)
+      expect(english(menu), 'grid filter menu').toEqual([])
+      await page.keyboard.press('Escape')
+      await page.locator('[data-test="overview-search"]').fill('zzqx-nothing')
+      await page.locator('.ag-overlay-no-rows-center').first().waitFor()
+      const noRows = await wordsIn(page, '.ag-overlay')
+      expect(noRows).toContain(AG_GRID_LOCALE_ES.noRowsToShow)
+      expect(english(noRows), 'an empty grid').toEqual([])
 
     } finally {
       await context.close()

@@ -1,33 +1,34 @@
 // Every visible string goes through vue-i18n. Messages live in one file per language and area:
 // src/i18n/<language>/<area>.ts, whose default export becomes the messages under `<area>.` (so
-// en/stock.ts holds the keys `stock.…`). A new file is picked up by the globs below, nothing to register.
+// en/stock.ts holds the keys `stock.…`). A new file is picked up by the globs in bundles/, nothing to register.
 //
-// The files are loaded lazily, each its own small chunk, only for the language in use (and English, the
-// fallback): the sign-in page loads the BOOT_AREAS; the router guard loads every area of the user's language
-// before the first signed-in page shows, in parallel with that page's code and data (src/router/index.ts).
-// A key of an area not loaded yet (a language switch, a message asked for outside a page) starts loading
-// its file; the text appears when it arrives.
+// The files are loaded lazily, only for the language in use (and English, the fallback), in two chunks per
+// language (bundles/): the BOOT_AREAS the sign-in page and the shell need, and every other area. The router
+// guard loads both before the first signed-in page shows, in parallel with that page's code and data
+// (src/router/index.ts). A cold load used to ask for each area's file on its own (some twenty requests
+// queued ahead of the page's data on the browser's six connections). A key of an area not loaded yet (a
+// language switch, a message asked for outside a page) starts loading its chunk; the text appears when it
+// arrives.
 import { createI18n, type I18nOptions } from 'vue-i18n'
+import { BOOT_AREAS } from './bootAreas'
 import { datetimeFormats, fallbackLocale, numberFormats } from './formats'
+import type { Messages } from './messageFiles'
 
+export { BOOT_AREAS }
 export type Locale = 'en' | 'es'
-type Messages = Record<string, unknown>
-type Loader = () => Promise<{ default: Messages }>
+type Bundle = 'boot' | 'rest'
+type BundleLoader = () => Promise<{ default: Record<string, Messages> }>
 
 const FALLBACK: Locale = 'en'
-/** Areas the sign-in page and the shell need before anything is shown; missing files are skipped. */
-export const BOOT_AREAS = ['common', 'shell', 'auth', 'errors'] as const
 
-function byArea(modules: Record<string, Loader>): Map<string, Loader> {
-  return new Map(Object.entries(modules).map(([file, load]) => [file.replace(/^.*\/([^/]+)\.ts$/, '$1'), load]))
+const bundles: Record<Locale, Record<Bundle, BundleLoader>> = {
+  en: { boot: () => import('./bundles/enBoot'), rest: () => import('./bundles/enRest') },
+  es: { boot: () => import('./bundles/esBoot'), rest: () => import('./bundles/esRest') },
 }
 
-const files: Record<Locale, Map<string, Loader>> = {
-  en: byArea(import.meta.glob<{ default: Messages }>('./en/*.ts')),
-  es: byArea(import.meta.glob<{ default: Messages }>('./es/*.ts')),
-}
+const bundleOf = (area: string): Bundle => ((BOOT_AREAS as readonly string[]).includes(area) ? 'boot' : 'rest')
 
-/** Loads (or is loading) per language and area; a settled load stays, a failed one may be tried again. */
+/** Loads (or is loading) per language and bundle; a settled load stays, a failed one may be tried again. */
 const loads = new Map<string, Promise<void>>()
 
 const options: I18nOptions = {
@@ -45,14 +46,14 @@ const options: I18nOptions = {
 
 export const i18n = createI18n<false, typeof options>({ ...options, legacy: false })
 
-function loadOne(locale: Locale, area: string): Promise<void> {
-  const id = `${locale}/${area}`
+function loadOne(locale: Locale, bundle: Bundle): Promise<void> {
+  const id = `${locale}/${bundle}`
   let pending = loads.get(id)
   if (!pending) {
-    const load = files[locale]?.get(area)
+    const load = bundles[locale]?.[bundle]
     if (!load) return Promise.resolve()
     pending = load().then(
-      (mod) => i18n.global.mergeLocaleMessage(locale, { [area]: mod.default }),
+      (mod) => i18n.global.mergeLocaleMessage(locale, mod.default),
       (err: unknown) => {
         loads.delete(id) // a chunk that failed to arrive (offline) is asked for again next time
         throw err
@@ -63,16 +64,19 @@ function loadOne(locale: Locale, area: string): Promise<void> {
   return pending
 }
 
-/** Loads the message files of these areas ('all': every area) for a language and its fallback. */
+/** Loads the messages of these areas ('all': every area) for a language and its fallback. */
 export function loadMessages(areas: readonly string[] | 'all', locale: Locale = currentLocale()): Promise<void> {
-  const chain = locale === FALLBACK ? [FALLBACK] : [locale, FALLBACK]
-  const wanted = chain.flatMap((l) => (areas === 'all' ? [...files[l].keys()] : areas).map((area) => loadOne(l, area)))
-  return Promise.all(wanted).then(() => undefined)
+  return loadBundles(areas === 'all' ? ['boot', 'rest'] : [...new Set(areas.map(bundleOf))], locale)
 }
 
-/** The areas loaded so far in any language: a language switch loads the same ones in the new language. */
-function loadedAreas(): string[] {
-  return [...new Set([...loads.keys()].map((id) => id.split('/')[1]))]
+function loadBundles(wanted: readonly Bundle[], locale: Locale): Promise<void> {
+  const chain = locale === FALLBACK ? [FALLBACK] : [locale, FALLBACK]
+  return Promise.all(chain.flatMap((l) => wanted.map((b) => loadOne(l, b)))).then(() => undefined)
+}
+
+/** The bundles loaded so far in any language: a language switch loads the same ones in the new language. */
+function loadedBundles(): Bundle[] {
+  return [...new Set([...loads.keys()].map((id) => id.split('/')[1] as Bundle))]
 }
 
 export function currentLocale(): Locale {
@@ -100,7 +104,7 @@ export function lastLocale(): Locale {
 /** Switches the language; its messages for the areas in use load first (the old text stays meanwhile). */
 export async function setLocale(locale: Locale): Promise<void> {
   wanted = locale
-  await loadMessages(loadedAreas(), locale).catch(() => undefined)
+  await loadBundles(loadedBundles(), locale).catch(() => undefined)
   if (wanted !== locale) return // a later switch won
   i18n.global.locale.value = locale
   document.documentElement.lang = locale

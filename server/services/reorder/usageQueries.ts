@@ -56,6 +56,12 @@ export function assertPackable(warehouseIds: Iterable<number>): void {
   for (const id of warehouseIds) if (id >= WAREHOUSE_SPAN) throw new RangeError(`warehouse id ${id} does not fit the usage key`)
 }
 
+/** Whether any imported usage history falls in [from, to) (for these items): one indexed probe. */
+async function hasHistory(em: EntityManager, from: string, to: string, itemIds?: readonly number[]): Promise<boolean> {
+  const rows: unknown[] = await em.query(`SELECT 1 FROM usage_history m WHERE m.day >= ? AND m.day < ? ${itemFilter(itemIds)} LIMIT 1`, [from, to, ...(itemIds ?? [])])
+  return rows.length > 0
+}
+
 function itemFilter(itemIds: readonly number[] | undefined): string {
   return itemIds?.length ? `AND m.item_id IN (${itemIds.map(() => '?').join(',')})` : ''
 }
@@ -81,6 +87,25 @@ export async function usageSums(
   const t = `(d.k MOD ${DAY_SPAN})`
   const inWindow = from > 0 ? `${t} >= ${from} AND` : ''
   const sum = (expr: string) => (from > 0 ? `SUM(IF(${t} >= ${from}, ${expr}, 0))` : `SUM(${expr})`)
+  const first = addDays(window.end, 1 - lookback)
+  const movesByDay = `SELECT ${LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.at, ?) AS k, -SUM(m.qty) AS qty
+                 FROM stock_moves m
+                WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
+                GROUP BY k`
+  const movesParams = [first, ...USAGE_MOVE_TYPES, first, dayAfter(window.end), ...(itemIds ?? [])]
+  // Imported history is added day by day beside the moves (a second grouping of the union). Most yards have
+  // none in the look-back, and then the moves' own day groups are the days: one grouping pass fewer.
+  const history = await hasHistory(em, first, dayAfter(window.end), itemIds)
+  const days = history
+    ? `(SELECT u.k, SUM(u.qty) AS qty FROM (
+               ${movesByDay}
+               UNION ALL
+               SELECT ${HISTORY_LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.day, ?) AS k, SUM(m.qty) AS qty
+                 FROM usage_history m
+                WHERE m.day >= ? AND m.day < ? ${itemFilter(itemIds)}
+                GROUP BY k) u
+              GROUP BY u.k)`
+    : `(${movesByDay})`
   const rows: UsageRow[] = await em.query(
     `${AGGREGATE_MEMORY}
      SELECT d.k DIV ${DAY_SPAN} AS line,
@@ -90,22 +115,9 @@ export async function usageSums(
             SUM(IF(${inWindow} ${t} < ${firstEnd}, d.qty, 0)) AS first_half,
             SUM(IF(${t} >= ${secondStart}, d.qty, 0)) AS second_half,
             MAX(IF(d.qty > 0, ${t}, NULL)) AS last_offset
-       FROM (SELECT u.k, SUM(u.qty) AS qty FROM (
-               SELECT ${LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.at, ?) AS k, -SUM(m.qty) AS qty
-                 FROM stock_moves m
-                WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
-                GROUP BY k
-               UNION ALL
-               SELECT ${HISTORY_LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.day, ?) AS k, SUM(m.qty) AS qty
-                 FROM usage_history m
-                WHERE m.day >= ? AND m.day < ? ${itemFilter(itemIds)}
-                GROUP BY k) u
-              GROUP BY u.k) d
+       FROM ${days} d
       GROUP BY line`,
-    [
-      addDays(window.end, 1 - lookback), ...USAGE_MOVE_TYPES, addDays(window.end, 1 - lookback), dayAfter(window.end), ...(itemIds ?? []),
-      addDays(window.end, 1 - lookback), addDays(window.end, 1 - lookback), dayAfter(window.end), ...(itemIds ?? []),
-    ],
+    history ? [...movesParams, first, first, dayAfter(window.end), ...(itemIds ?? [])] : movesParams,
   )
   return new Map(rows.map((r) => {
     const key = keyOfLine(r.line)

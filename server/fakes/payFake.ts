@@ -6,6 +6,7 @@
 //   POST /v1/payment_intents/:id/confirm   confirm with a test card token (the card is entered on the
 //                                          provider's side; Lumenyard only ever sees the token)
 //   POST /v1/refunds                       refund all or part of a succeeded payment
+//   GET/POST /pay/:id                      the customer's side: a page to pay with one of the test cards
 // and then delivers the provider's signed event to the app's webhook URL: header `Stripe-Signature:
 // t=<unix seconds>,v1=<hex HMAC-SHA256 of "<t>.<body>" under the webhook secret>` (the provider's documented
 // signature scheme), retried a few times when the app does not answer 2xx. State lives in memory.
@@ -136,6 +137,13 @@ function positiveInteger(value: unknown, param: string): number {
   return Number(text)
 }
 
+const escapeHtml = (t: string) => t.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`)
+const formatMinor = (minor: number, currency: string) => `${(minor / 100).toFixed(2)} ${currency.toUpperCase()}`
+const customerPage = (title: string, body: string) =>
+  `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${escapeHtml(title)}</title>
+  <style>body{font-family:sans-serif;max-width:28rem;margin:2rem auto;padding:0 1rem}button{display:block;width:100%;min-height:3rem;margin:.75rem 0;font-size:1rem}</style></head>
+  <body><p>Local test payment page (no real card is charged)</p><h1>${escapeHtml(title)}</h1>${body}</body></html>`
+
 export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
   const intents = new Map<string, FakePaymentIntent>()
   const refunds: FakeRefund[] = []
@@ -194,6 +202,26 @@ export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
   app.use((req, _res, next) => {
     requests.push({ method: req.method, path: req.path, idempotencyKey: req.get('idempotency-key') ?? null, body: { ...(req.body ?? {}) } })
     next()
+  })
+  // The customer's side: a plain page where the person paying picks one of the fake's test cards (the real
+  // provider shows its own card form here). No key needed, as on the provider's hosted page.
+  app.get('/pay/:id', (req, res) => {
+    const intent = intents.get(String(req.params.id))
+    if (!intent) return res.status(404).type('html').send(customerPage('Payment not found', '<p>No payment with this reference.</p>'))
+    res.type('html').send(customerPage(`Pay ${formatMinor(intent.amount, intent.currency)}`, intent.status === 'succeeded'
+      ? '<p role="status">Paid. You can hand the device back.</p>'
+      : `<p>${escapeHtml(intent.description ?? '')}</p>${intent.last_payment_error ? '<p role="alert">That card was declined. Try another.</p>' : ''}
+        <form method="post"><button name="card" value="${FAKE_CARD_TOKENS.approved}">Pay with the test card that is approved</button>
+        <button name="card" value="${FAKE_CARD_TOKENS.declined}">Try the test card that is declined</button></form>`))
+  })
+  app.post('/pay/:id', (req, res) => {
+    const intent = intents.get(String(req.params.id))
+    try {
+      if (intent && intent.status !== 'succeeded' && intent.status !== 'canceled') confirmWith(intent, (req.body as Record<string, unknown>).card)
+    } catch (err) {
+      if (!(err instanceof ProviderError)) throw err
+    }
+    res.redirect(303, `/pay/${encodeURIComponent(String(req.params.id))}`)
   })
   app.use((req, _res, next) => {
     const auth = req.get('authorization') ?? ''
@@ -270,12 +298,11 @@ export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
     res.json(intentOf(String(req.params.id)))
   })
 
-  app.post('/v1/payment_intents/:id/confirm', idempotent((req) => {
-    const intent = intentOf(String(req.params.id))
+  /** Confirms an intent with a test card token, as the provider does when the customer pays on its side. */
+  function confirmWith(intent: FakePaymentIntent, token: unknown): { status: number; body: unknown } {
     if (intent.status === 'succeeded' || intent.status === 'canceled') {
       throw new ProviderError(400, 'invalid_request_error', `This PaymentIntent's status is ${intent.status}; it cannot be confirmed.`, { code: 'payment_intent_unexpected_state' })
     }
-    const token = (req.body as Record<string, unknown>).payment_method
     if (token === FAKE_CARD_TOKENS.approved) {
       intent.status = 'succeeded'
       intent.amount_received = intent.amount
@@ -293,7 +320,9 @@ export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
       return { status: 402, body: { error: { ...error, payment_intent: intent } } }
     }
     throw new ProviderError(400, 'invalid_request_error', 'No such PaymentMethod: the fake knows only its test card tokens.', { code: 'resource_missing', param: 'payment_method' })
-  }))
+  }
+
+  app.post('/v1/payment_intents/:id/confirm', idempotent((req) => confirmWith(intentOf(String(req.params.id)), (req.body as Record<string, unknown>).payment_method)))
 
   app.post('/v1/refunds', idempotent((req) => {
     const body = req.body as Record<string, unknown>

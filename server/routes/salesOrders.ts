@@ -1,5 +1,6 @@
 // Sales orders at the counter: the counter (and admin) takes quotes into orders, cancels them and records
 // cash and cheque payments; the warehouse, the buyer (special orders) and viewers read them.
+import { salesReturnSchema } from '../../shared/schemas/salesReturns.js'
 import { cardConfirmSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, salesOrderQuerySchema, salesSettingsSchema } from '../../shared/schemas/salesOrders.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
@@ -8,6 +9,7 @@ import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
 import { recordPaymentIn } from '../services/sales/payments.js'
 import { listSalesOrders, salesOrderDetail } from '../services/sales/salesOrderRead.js'
+import { returnsOf, takeReturnIn } from '../services/sales/returns.js'
 import { salesSettings, updateSalesSettings } from '../services/sales/salesSettings.js'
 import { cancelSalesOrderIn, takeQuoteIn } from '../services/sales/salesOrderWrite.js'
 
@@ -61,4 +63,10 @@ export default (ctx: AppContext) =>
       method: 'post', path: '/:id/card-deposits/:paymentId/confirm', access: counter,
       handler: (req) => confirmCardDeposit(ctx.ds, ctx.pay, id(req.params.id), idParam(req.params.paymentId, 'payment_not_found'), parseBody(cardConfirmSchema, req.body).cardToken),
     },
+    // Returns: goods handed over come back into a bin and lot; money back less the restocking fee, or credit.
+    { method: 'get', path: '/:id/returns', access: readers, handler: async (req) => returnsOf(ctx.ds, (await salesOrderDetail(ctx.ds, id(req.params.id))).id) },
+    stockStep(ctx, {
+      path: '/:id/returns', access: counter, id: orderId, body: salesReturnSchema, status: 201,
+      run: (em, { req, input, id: order }) => takeReturnIn(em, ctx.pay, actorOf(req), order, input),
+    }),
   ])

@@ -70,6 +70,7 @@ export const AUDIT_ACTIONS = {
   'payment.record': 'document',
   'payment.card_start': 'document',
   'payment.refund': 'document',
+  'sales_return.create': 'document',
   'suggestion.update': 'document',
   'suggestion.dismiss': 'document',
   'settings.update': 'settings',

@@ -70,6 +70,7 @@ export const auditWordsEn = {
     payment_record: 'Payment recorded',
     payment_card_start: 'Card deposit started',
     payment_refund: 'Card payment refunded',
+    sales_return_create: 'Goods returned',
     reorder_accept: 'Reorder suggestions accepted',
     suggestion_update: 'Suggested quantity changed',
     suggestion_dismiss: 'Suggestion dismissed',

@@ -69,6 +69,7 @@ export const auditWordsEs: typeof auditWordsEn = {
     payment_record: 'Pago anotado',
     payment_card_start: 'Anticipo con tarjeta iniciado',
     payment_refund: 'Pago con tarjeta reembolsado',
+    sales_return_create: 'Mercancía devuelta',
     reorder_accept: 'Sugerencias de reorden aceptadas',
     suggestion_update: 'Cantidad sugerida cambiada',
     suggestion_dismiss: 'Sugerencia descartada',

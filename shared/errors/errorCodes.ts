@@ -298,6 +298,15 @@ export const ERROR_CODES = {
   payment_not_found: [],
   payment_not_pending: [],
   card_token_format: [],
+  settings_nothing_to_change: [],
+  return_window_closed: ['days'],
+  return_line_not_on_order: [],
+  return_line_twice: [],
+  return_made_to_order: ['sku'],
+  return_opened_packs: ['sku'],
+  return_over_handed: ['sku', 'left'],
+  return_whole_packs: ['sku', 'pack'],
+  return_card_short: ['available'],
 
   // Records looked up by id or code
   record_not_found: [],

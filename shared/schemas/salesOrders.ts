@@ -36,8 +36,21 @@ export type HandPaymentInput = z.infer<typeof handPaymentSchema>
  */
 export const cardConfirmSchema = z.object({ cardToken: z.string().trim().regex(/^pm_[A-Za-z0-9_]{3,80}$/, issueCode('card_token_format')) }).strict()
 
-export const salesSettingsSchema = z.object({ depositPercent: percentSchema })
-export type SalesSettings = z.infer<typeof salesSettingsSchema>
+/** The counter's sales policy; a change names only what it changes. */
+export const salesSettingsSchema = z
+  .object({
+    depositPercent: percentSchema,
+    /** Days after the order is booked in which unopened goods may come back (0: no returns). */
+    returnWindowDays: z.coerce.number().int().min(0).max(365),
+    restockingPercent: percentSchema,
+  })
+  .partial()
+  .refine((v) => Object.keys(v).length > 0, issueOf('settings_nothing_to_change'))
+export interface SalesSettings {
+  depositPercent: string
+  returnWindowDays: number
+  restockingPercent: string
+}
 
 export interface SalesOrderLineView {
   id: number

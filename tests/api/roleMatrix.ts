@@ -273,4 +273,6 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/payments/webhook': { access: 'public' },
   'POST /api/sales-orders/:id/card-deposits': { access: ['admin', 'counter'] },
   'POST /api/sales-orders/:id/card-deposits/:paymentId/confirm': { access: ['admin', 'counter'] },
+  'GET /api/sales-orders/:id/returns': { access: EVERYONE },
+  'POST /api/sales-orders/:id/returns': { access: ['admin', 'counter'] },
 }

@@ -201,8 +201,8 @@ describe('the deposit setting', () => {
     }
     expect((await counter.patch('/api/sales-settings').set(CSRF).send({ depositPercent: '40' })).status).toBe(403)
     const set = await admin.patch('/api/sales-settings').set(CSRF).send({ depositPercent: '40' })
-    expect(set.body).toEqual({ depositPercent: '40' })
-    expect((await counter.get('/api/sales-settings')).body).toEqual({ depositPercent: '40' })
+    expect(set.body).toMatchObject({ depositPercent: '40' })
+    expect((await counter.get('/api/sales-settings')).body).toMatchObject({ depositPercent: '40' })
     await admin.patch('/api/sales-settings').set(CSRF).send({ depositPercent: before.body.depositPercent })
   })
 })

@@ -15,6 +15,8 @@ export interface PayProvider {
   confirmIntent(intentId: string, cardToken: string, idempotencyKey: string): Promise<ProviderIntent>
   retrieveIntent(intentId: string): Promise<ProviderIntent>
   refund(input: { intentId: string; amountMinor: number; idempotencyKey: string; metadata: Record<string, string> }): Promise<ProviderRefund>
+  /** Where the customer pays this intent on the provider's side, when the provider is the local fake (else null). */
+  customerPageUrl(intentId: string): string | null
   /** The event the provider signed, or a 400 `payment_signature_invalid` when the signature does not hold. */
   verifyEvent(rawBody: Buffer | string, signatureHeader: string | undefined): ProviderEvent
 }
@@ -45,7 +47,7 @@ function payProviderOff(currency: string): PayProvider {
   const off = (): never => {
     throw AppError.conflict('card_payments_off', 'Card payments are not set up here (the provider keys are not configured); record cash or cheque instead.')
   }
-  return { currency, createIntent: off, confirmIntent: off, retrieveIntent: off, refund: off, verifyEvent: off }
+  return { currency, createIntent: off, confirmIntent: off, retrieveIntent: off, refund: off, verifyEvent: off, customerPageUrl: () => null }
 }
 
 export function createPayProvider(config: AppConfig['pay']): PayProvider {
@@ -66,6 +68,7 @@ export function createPayProvider(config: AppConfig['pay']): PayProvider {
     confirmIntent: (intentId, cardToken, idempotencyKey) =>
       call(() => sdk.paymentIntents.confirm(intentId, { payment_method: cardToken }, { idempotencyKey })),
     retrieveIntent: (intentId) => call(() => sdk.paymentIntents.retrieve(intentId)),
+    customerPageUrl: (intentId) => (config.localFake && config.api ? `${config.api.protocol}://${config.api.host}:${config.api.port}/pay/${encodeURIComponent(intentId)}` : null),
     refund: ({ intentId, amountMinor, idempotencyKey, metadata }) =>
       call(() => sdk.refunds.create({ payment_intent: intentId, amount: amountMinor, reason: 'requested_by_customer', metadata }, { idempotencyKey })),
     verifyEvent(rawBody, signatureHeader) {

@@ -6,6 +6,7 @@ import type { AdjustmentReason } from '../../../shared/catalog.js'
 import { Bin } from '../../entities/Bin.js'
 import { Lot } from '../../entities/Lot.js'
 import { AppError, problem } from '../../errors.js'
+import { currentAverage } from './averageCost.js'
 import { currentLotByCode } from './currentRows.js'
 import { loadLookups } from './stockLookups.js'
 import { applyMoves, type AppliedMoves, type DocRef, type StockActor } from './stockLedger.js'
@@ -90,6 +91,29 @@ export async function receive(
       unitCost: line.unitCost,
       doc: input.doc ? { ...input.doc, docLineId: line.docLineId ?? input.doc.docLineId ?? null } : null,
       note: input.note ?? null,
+    })
+  }
+  return applyMoves(em, actor, specs)
+}
+
+/**
+ * Goods a customer brings back into a bin of the warehouse they left from: on hand up, at the warehouse's
+ * current moving-average cost (a return is not a purchase, so the average is left as it is).
+ */
+export async function receiveReturn(
+  em: EntityManager,
+  actor: StockActor,
+  input: { warehouseId: number; lines: (Omit<ReceiptLine, 'unitCost' | 'vendorId' | 'tintNote'>)[]; doc: DocRef; note?: string | null },
+): Promise<AppliedMoves> {
+  if (!input.lines.length) throw AppError.badRequest('lines_needed', 'A return needs at least one line.')
+  for (const line of input.lines) await storageBin(em, line.binId, input.warehouseId)
+  const specs = []
+  for (const line of input.lines) {
+    const lotId = line.lotId ?? (line.lotCode ? (await findOrCreateLot(em, line.itemId, line.lotCode, { receivedAt: line.lotReceivedAt })).id : null)
+    specs.push({
+      moveType: 'return' as const, itemId: line.itemId, binId: line.binId, lotId, qty: line.qty,
+      unitCost: await currentAverage(em, line.itemId, input.warehouseId),
+      doc: { ...input.doc, docLineId: line.docLineId ?? null }, note: input.note ?? null,
     })
   }
   return applyMoves(em, actor, specs)

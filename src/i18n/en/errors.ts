@@ -457,6 +457,15 @@ export default {
   payment_not_found: 'That payment was not found on this order.',
   payment_not_pending: 'This card payment is no longer waiting for a card. Reload the order to see it.',
   card_token_format: 'The card reference from the payment service is not valid. Card numbers are never typed into Lumenyard.',
+  settings_nothing_to_change: 'Change at least one setting.',
+  return_window_closed: 'Returns on this order are closed: goods come back within {days} days of the order.',
+  return_line_not_on_order: 'That line is not on this order.',
+  return_line_twice: 'This line is listed twice: give its whole quantity once.',
+  return_made_to_order: '{sku} was made to order for this job and is not taken back.',
+  return_opened_packs: 'Only unopened packs come back: {sku} was opened.',
+  return_over_handed: 'At most {left} of {sku} can come back: that is what left and has not been returned.',
+  return_whole_packs: '{sku} comes back in whole packs of {pack}.',
+  return_card_short: 'No card payment on this order can take back that much (at most {available}). Refund in cash or cheque, or give account credit.',
   payment_signature_invalid: 'This payment notice was refused: its signature does not match the payment service.',
   /** Enumerated values named in messages: values.<param>.<value>. */
   values: {

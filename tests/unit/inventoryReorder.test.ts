@@ -87,7 +87,7 @@ describe('reorder suggestion: hand-worked scenario', () => {
     expect(text).toContain('SS = z·σd·√L = 1.6449 × 2.50 × √12 = 14.24')
     expect(text).toContain('ROP = d̄·L + SS = 4.20 × 12 + 14.24 = 64.64 → 65')
     expect(text).toContain('EOQ = √(2DS/H) = √(2 × 1533 × 40.00 / 0.8000) = 391.54')
-    expect(r.explanation.inputs['L (days)']).toBe(12)
+    expect(r.explanation.inputs.leadTimeDays).toBe(12)
   })
 
   it('orders now at or below the reorder point', () => {

@@ -7,12 +7,11 @@ import path from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { BrowserContext, Page, Request } from 'playwright-core'
 import type { Role } from '../../shared/roles.js'
-import { DEMO_PASSWORD, SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
+import { SCREENSHOTS, startE2e, type E2eHarness } from '../support/browser.js'
 import { axeFindings, blocking, colourOnlyStatus, describeFindings, tally, unnamedTables, type AxeFinding } from '../support/axeCheck.js'
-import { CSRF } from '../support/apiHarness.js'
-import { fxBom, pickScenario, releasedPickList, signedInAgent } from '../support/pickFixtures.js'
 import { sidewaysScroll, targetSizes, type TargetSizes } from '../support/layoutChecks.js'
-import { byRole, openInApp, RouteSamples, routeTable, settle, type WalkRoute } from '../support/routeWalk.js'
+import { walkRecords } from '../support/walkRecords.js'
+import { byRole, MAIN_DIALOGS, openInApp, RouteSamples, routeTable, settle, type WalkRoute } from '../support/routeWalk.js'
 
 const DESKTOP = { width: 1280, height: 860 }
 // A 412 px phone: the warehouse's handheld width in the team's trials (Chromium's metrics of a common Android phone).
@@ -33,23 +32,7 @@ const targets = new Map<string, TargetSizes>()
 
 beforeAll(async () => {
   h = await startE2e()
-  // The demo has no pick list and no cycle count: one of each gives their screens a record to open.
-  const crew = await signedInAgent(h.built.app, 'warehouse', DEMO_PASSWORD)
-  const s = await pickScenario(h.ds, crew)
-  const bom = await fxBom(h.ds, s.tag, [{ itemId: s.block.id, qty: 16 }, { itemId: s.spacer.id, qty: 10 }])
-  const counter = await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD)
-  await releasedPickList(counter, bom.bomId, s.main.id)
-  // Nor a quote or a sales order: one quote by hand, offered over the counter, then taken. It holds some of
-  // the same spacers the open pick list needs, in the same warehouse, so the handheld pick screen is walked
-  // with another document's holds on its line's stock.
-  const [{ customerId }] = (await h.ds.query('SELECT MIN(id) AS customerId FROM customers')) as { customerId: number }[]
-  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId: s.main.id, lines: [{ itemId: s.spacer.id, qty: 2 }] })
-  if (quote.status !== 201) throw new Error(`making a quote failed: ${quote.status} ${JSON.stringify(quote.body)}`)
-  await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
-  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
-  if (order.status !== 201) throw new Error(`taking the quote failed: ${order.status} ${JSON.stringify(order.body)}`)
-  const count = await crew.post('/api/counts').set(CSRF).send({ warehouseId: s.main.id, scope: 'bins', binIds: [s.main.bins['A-03-1']] })
-  if (count.status !== 201) throw new Error(`opening a count failed: ${count.status} ${JSON.stringify(count.body)}`)
+  await walkRecords(h)
   ;({ page, context } = await h.newPage({ viewport: DESKTOP }))
   // With reduced motion the theme ends every transition at once, so axe reads colours as they settle.
   await page.emulateMedia({ reducedMotion: 'reduce' })
@@ -77,23 +60,6 @@ async function check(where: string) {
   found.push(...(await axeFindings(page, where)), ...(await unnamedTables(page, where)), ...(await colourOnlyStatus(page, where)))
 }
 
-/**
- * The main dialogs, opened on their screen by the role that uses the screen: the clicks that open each one
- * (a tab first where the opener sits on one). Each is checked open, then closed with Escape, and focus must
- * come back to what opened it.
- */
-const DIALOGS: Record<string, string[]> = {
-  'counter-home': ['[data-test="start-takeoff"]'],
-  'counter-customers': ['[data-test="new-customer"]'],
-  'counter-jobs': ['[data-test="new-job"]'],
-  'counter-job': ['[data-test="upload-takeoff"]'],
-  'purchasing-orders': ['[data-test="new-order"]'],
-  'purchasing-vendors': ['[data-test="add-vendor"]'],
-  'purchasing-vendor': ['[data-test="import-price-list"]'],
-  'purchasing-reorder-policies': ['[data-test="policy-add"]'],
-  'admin-users': ['[data-test="add-user"]'],
-  'counter-settings': ['#tab-rules', '[data-test="rule-add"]'],
-}
 const OPEN_DIALOG = '.el-overlay-dialog .el-dialog'
 
 /** The screens the warehouse crew use on a phone: picking, receiving, moving, adjusting, an item, counts. */
@@ -145,7 +111,7 @@ async function walk(who: Role | 'signed-out') {
     await samples.harvest(page)
     await check(`${route.name} (${path}, ${who}, desktop)`)
     t.push(Date.now())
-    const dialog = DIALOGS[route.name]
+    const dialog = MAIN_DIALOGS[route.name]
     if (dialog) await checkDialog(route.name, dialog, `${path}, ${who}`)
     await page.setViewportSize(NARROW)
     await relayout(page)
@@ -196,7 +162,7 @@ describe('accessibility of every screen (axe, WCAG 2.2 AA)', () => {
     expect(crowded, 'targets closer than 8 px').toEqual([])
   })
   it('opened every main dialog', () => {
-    expect([...dialogsChecked].sort()).toEqual(Object.keys(DIALOGS).sort())
+    expect([...dialogsChecked].sort()).toEqual(Object.keys(MAIN_DIALOGS).sort())
   })
   it('visited every route, and the page for an address that leads nowhere', async () => {
     await openInApp(page, '/no-such-page')

@@ -5,85 +5,12 @@
 // Signing out returns to a Spanish sign-in page. The share of Spanish messages per screen is printed.
 // The English wording of the grid ("No Rows To Show") and of Element Plus ("No Data") is from memory of
 // those libraries' default English texts.
-import { readdirSync } from 'node:fs'
-import path from 'node:path'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CSRF } from '../support/apiHarness.js'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
 import { fxBom, pickScenario, releasedPickList, signedInAgent } from '../support/pickFixtures.js'
-
-type Tree = { [key: string]: string | Tree }
-const I18N = path.resolve(import.meta.dirname, '..', '..', 'src', 'i18n')
-async function load(lang: string): Promise<Record<string, Tree>> {
-  const areas = readdirSync(path.join(I18N, lang)).filter((f) => f.endsWith('.ts')).map((f) => f.slice(0, -3))
-  const mods = await Promise.all(areas.map((a) => import(path.join(I18N, lang, `${a}.ts`)) as Promise<{ default: Tree }>))
-  return Object.fromEntries(areas.map((a, i) => [a, mods[i].default]))
-}
-const en = await load('en')
-const es = await load('es')
-
-function leaves(value: unknown, prefix: string, out: Map<string, string>): Map<string, string> {
-  if (typeof value === 'string') out.set(prefix, value)
-  else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) leaves(v, prefix ? `${prefix}.${k}` : k, out)
-  return out
-}
-const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
-/** A message's plural forms as whole-text patterns: named values match any text, {'x'} literals are x. */
-// A form with values needs 8 letters of its own ("{n} tubes" would match an item's name).
-function patterns(text: string): RegExp[] {
-  const letters = (form: string) => form.replace(/\{[^}]*\}/g, '').replace(/[^\p{L}]/gu, '').length
-  return text.split('|').map((form) => form.trim()).filter((form) => letters(form) >= (/\{\w+\}/.test(form) ? 8 : 4))
-    .map((form) => new RegExp('^' + form.split(/(\{[^}]*\})/).map((part) => {
-      if (/^\{'.*'\}$/.test(part)) return escape(part.slice(2, -2))
-      if (/^\{\w+\}$/.test(part)) return '.+?'
-      return escape(part.replace(/\s+/g, ' '))
-    }).join('') + '$', 'u'))
-}
-
-const enLeaves = leaves(en, '', new Map())
-const esLeaves = leaves(es, '', new Map())
-const spanish = [...esLeaves.values()].flatMap(patterns)
-// English messages that read differently in Spanish, and that no Spanish message also reads as.
-const english = [...enLeaves].filter(([key, text]) => esLeaves.get(key) !== text)
-  .flatMap(([key, text]) => patterns(text).map((re) => ({ key, re })))
-// The libraries' own default English (from memory): the grid's empty and loading overlays, Element Plus's empty table.
-const libraryEnglish = [/^No Rows To Show$/, /^Loading\.\.\.$/, /^No Data$/, /^Page Size:$/, /^Select$/]
-const AREAS = Object.keys(en).join('|')
-const rawKey = new RegExp(`^(${AREAS})(\\.[A-Za-z0-9_]+)+$`)
-
-interface ScreenText { english: string[]; keys: string[]; spanish: number; matched: number }
-
-/** Every visible text run (an element's own text) and every placeholder, title and label on the page. */
-async function screenText(page: Page): Promise<ScreenText> {
-  const runs: string[] = await page.evaluate(() => {
-    const out: string[] = []
-    for (const el of Array.from(document.body.querySelectorAll('*'))) {
-      if (!(el as HTMLElement).checkVisibility?.()) continue
-      if (el.closest('[col-id="note"]')) continue // what people typed, in their own words
-      let own = ''
-      for (const n of Array.from(el.childNodes)) if (n.nodeType === Node.TEXT_NODE) own += n.textContent
-      own = own.replace(/\s+/g, ' ').trim()
-      if (own) out.push(own)
-      for (const a of ['placeholder', 'title', 'aria-label']) {
-        const v = el.getAttribute(a)?.replace(/\s+/g, ' ').trim()
-        if (v) out.push(v)
-      }
-    }
-    return out
-  })
-  const result: ScreenText = { english: [], keys: [], spanish: 0, matched: 0 }
-  for (const run of runs) {
-    if (rawKey.test(run)) result.keys.push(run)
-    const isSpanish = spanish.some((re) => re.test(run))
-    const englishHit = english.find(({ re }) => re.test(run))
-    if (isSpanish) result.spanish++
-    if (isSpanish || englishHit) result.matched++
-    if (!isSpanish && englishHit) result.english.push(`${run}  (${englishHit.key})`)
-    if (libraryEnglish.some((re) => re.test(run))) result.english.push(`${run}  (library default)`)
-  }
-  return result
-}
+import { screenText } from '../support/spanishText.js'
 
 async function settle(page: Page): Promise<void> {
   await page.waitForLoadState('networkidle')

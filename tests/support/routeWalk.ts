@@ -64,6 +64,22 @@ export function roleFor(route: WalkRoute): Role {
   return ROLE_PREFERENCE.find((r) => route.roles!.includes(r)) ?? 'admin'
 }
 
+/**
+ * The main dialogs, opened on their screen by the role that uses the screen: the clicks that open each one
+ * (a tab first where the opener sits on one). The walks check each one open (accessibility, the Spanish screens).
+ */
+export const MAIN_DIALOGS: Record<string, string[]> = {
+  'counter-home': ['[data-test="start-takeoff"]'],
+  'counter-customers': ['[data-test="new-customer"]'],
+  'counter-jobs': ['[data-test="new-job"]'],
+  'counter-job': ['[data-test="upload-takeoff"]'],
+  'purchasing-orders': ['[data-test="new-order"]'],
+  'purchasing-vendors': ['[data-test="add-vendor"]'],
+  'purchasing-vendor': ['[data-test="import-price-list"]'],
+  'purchasing-reorder-policies': ['[data-test="policy-add"]'],
+  'admin-users': ['[data-test="add-user"]'],
+  'counter-settings': ['#tab-rules', '[data-test="rule-add"]'],
+}
 /** Records for parameterised routes that no earlier screen links to (the first one of each kind in the demo). */
 const SAMPLE_SQL: Record<string, string> = {
   'counter-job': 'SELECT MIN(job_id) AS id FROM takeoffs',

@@ -6,6 +6,8 @@ import type { Caution } from '@shared/takeoff/cautions'
 import type { SvgWords } from '@shared/takeoff/drawingSvg'
 import { englishPhrase, explainText, type ExplainToken } from '@shared/takeoff/explainWords'
 import { lineIssueCaution } from '@shared/takeoff/billOfMaterials'
+import type { MaterialRule } from '@shared/schemas/takeoff'
+import { defaultMaterialRules, ruleWordKey } from '@shared/takeoff/materials'
 import { takeoffIssueProblem, takeoffIssues } from '@shared/takeoff/issues'
 import { formatLength, type LengthUnit } from '@shared/units'
 import { problemText } from '@/i18n/errorText'
@@ -116,4 +118,16 @@ export function explainInputLabel(name: string, t: Translate, te: Exists): strin
 export function lineIssueText(row: { role: string | null; name: string; sku: string | null; issue?: string }, t: Translate, te: Exists): string {
   if (!row.issue) return ''
   return cautionText(lineIssueCaution({ role: (row.role ?? 'loose') as 'loose', name: row.name, sku: row.sku, issue: row.issue }, 'the line'), 'mm', t, te)
+}
+
+/**
+ * A rule's note and source in the reader's language: the words of a rule as shipped come from the messages
+ * (by the rule's key), an admin's own words stay as typed.
+ */
+export function ruleWords(rule: Pick<MaterialRule, 'id' | 'note' | 'source'>, t: Translate, te: Exists): { note: string; source: string } {
+  const stock = defaultMaterialRules.find((r) => r.id === rule.id)
+  const key = ruleWordKey(rule.id)
+  const word = (kind: 'ruleNote' | 'ruleSource', own: string, shipped: string | undefined) =>
+    own === shipped && te(`takeoff.explain.${kind}.${key}`) ? t(`takeoff.explain.${kind}.${key}`) : own
+  return { note: word('ruleNote', rule.note, stock?.note), source: word('ruleSource', rule.source, stock?.source) }
 }

@@ -236,6 +236,8 @@ export default {
     block: 'Glass block',
     endBlock: 'End-finish block',
     cornerBlock: 'Corner block',
+    doubleEndBlock: 'Block finished on two edges',
+    angleBlock: '45° angle block',
     spacer: 'Spacer',
     arcSpacer: 'Arc spacer',
     spacerBase: 'Spacer base strip',

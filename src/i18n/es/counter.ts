@@ -238,6 +238,8 @@ export default {
     block: 'Bloque de vidrio',
     endBlock: 'Bloque de remate',
     cornerBlock: 'Bloque esquinero',
+    doubleEndBlock: 'Bloque de remate en dos bordes',
+    angleBlock: 'Bloque en ángulo de 45°',
     spacer: 'Separador',
     arcSpacer: 'Separador para curva',
     spacerBase: 'Tira base de separadores',

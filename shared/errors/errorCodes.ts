@@ -123,6 +123,7 @@ export const ERROR_CODES = {
   internal: [],
   db_unavailable: [],
   network: [],
+  answer_shape: [],
   idempotency_key_invalid: [],
   idempotency_key_required: [],
   idempotency_key_reused: [],

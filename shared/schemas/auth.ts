@@ -85,3 +85,9 @@ export const userSummarySchema = z.object({
   createdAt: z.string(),
 })
 export type UserSummary = z.infer<typeof userSummarySchema>
+
+// ---- answers (checked by the client in development and tests) ----
+export const sessionAnswerSchema = z.object({ user: sessionUserSchema.nullable(), demo: z.boolean() })
+export type SessionAnswer = z.infer<typeof sessionAnswerSchema>
+export const signedInAnswerSchema = z.object({ user: sessionUserSchema })
+export const okAnswerSchema = z.object({ ok: z.literal(true) })

@@ -287,3 +287,54 @@ export interface BomRecord {
   walls: WallResult[]
   availability: LineAvailability[]
 }
+
+// ---- answers (checked by the client in development and tests) ----
+const catalogItemAnswer = z.object({
+  sku: z.string(),
+  name: z.string(),
+  unit: z.string().optional(),
+  packSize: z.number(),
+  sellByPack: z.boolean(),
+  cartridgeMl: z.number().optional(),
+  groutYieldMl: z.number().optional(),
+  mortarYieldMl: z.number().optional(),
+  pieceLengthMm: z.number().optional(),
+})
+const id = z.number().int()
+export const roleItemRecordSchema: z.ZodType<RoleItemRecord> = z.object({
+  id,
+  role: materialRoleSchema,
+  jointKind: jointKindSchema.nullable(),
+  blockItemId: id.nullable(),
+  blockSku: z.string().nullable(),
+  itemId: id,
+  pieceLengthMm: z.number().nullable(),
+  yieldMl: z.number().nullable(),
+  note: z.string().nullable(),
+  item: catalogItemAnswer.extend({ itemId: id, madeToOrder: z.boolean(), active: z.boolean() }),
+})
+export const counterCatalogSchema: z.ZodType<CounterCatalog> = z.object({
+  blocks: z.array(
+    z.object({
+      itemId: id,
+      sku: z.string(),
+      name: z.string(),
+      nominal: z.string(),
+      faceWidthMm: z.number(),
+      faceHeightMm: z.number(),
+      depthMm: z.number(),
+      thicknessClass: z.enum(['standard', 'thin']),
+      weightKg: z.number(),
+      pattern: z.string().nullable(),
+      shape: z.string().nullable(),
+      item: catalogItemAnswer,
+    }),
+  ),
+  roleItems: z.array(roleItemRecordSchema),
+  rules: z.array(materialRuleSchema),
+  wastePct: z.partialRecord(materialFamilySchema, z.number()),
+  figures: siteFiguresSchema,
+  looseItems: z.array(
+    z.object({ itemId: id, sku: z.string(), name: z.string(), unit: z.string(), family: z.string(), madeToOrder: z.boolean() }),
+  ),
+})

@@ -1,5 +1,6 @@
 // What the purchasing API answers. Money is decimal text; cost fields are absent (not null) for users
 // who may not see costs (server/services/costVisibility.ts), so a client can't show what the server never sent.
+import type { RowProblem } from '../errors/errorCodes.js'
 import type { PoStatus } from './purchasing.js'
 
 export interface VendorView {
@@ -233,3 +234,17 @@ export interface SpecialOrderJob {
   /** The job's warehouse (of its latest pick list), where its special orders ship by default. */
   warehouseId: number | null
 }
+
+/** One row of a vendor's price list as checked before it is taken in. */
+export interface PriceListPreviewRow {
+  row: number
+  sku: string | null
+  vendorSku: string | null
+  action: 'add' | 'update'
+  unitCost: string | null
+  previousCost: string | null
+  errors: RowProblem[]
+}
+
+/** A vendor's price list, checked (preview) or taken in (commit). */
+export interface PriceListPreview { filename: string; total: number; adds: number; updates: number; errorRows: number; rows: PriceListPreviewRow[] }

@@ -2,7 +2,7 @@
 // Query values arrive as strings; an empty value means "no filter".
 import { z } from 'zod'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
-import { MOVE_TYPES, type BinKind, type MoveType, type StockUnit } from '../catalog.js'
+import { BIN_KINDS, MOVE_TYPES, type BinKind, type MoveType, type StockUnit } from '../catalog.js'
 import { timeZoneParam } from './exportQuery.js'
 
 const blankToUndefined = (v: unknown) => (v === '' || v === null ? undefined : v)
@@ -269,6 +269,17 @@ export interface Place {
   active: boolean
   bins: PlaceBin[]
 }
+
+/** The answer of /stock/places (checked by the client in development and tests). */
+export const placesSchema: z.ZodType<Place[]> = z.array(
+  z.object({
+    id: z.number().int(),
+    code: z.string(),
+    name: z.string(),
+    active: z.boolean(),
+    bins: z.array(z.object({ id: z.number().int(), code: z.string(), kind: z.enum(BIN_KINDS), active: z.boolean() })),
+  }),
+)
 
 export const itemOptionsQuerySchema = z.object({
   q: searchText,

@@ -149,3 +149,27 @@ export interface BinRangeResult {
   created: number
   skipped: string[]
 }
+
+// ---- answers (checked by the client in development and tests) ----
+export const binRowSchema: z.ZodType<BinRow> = z.object({
+  id: z.number().int(),
+  warehouseId: z.number().int(),
+  code: z.string(),
+  kind: z.string(),
+  active: z.boolean(),
+  items: z.number(),
+  onHand: z.number(),
+})
+export const warehouseRowSchema: z.ZodType<WarehouseRow> = z.object({
+  id: z.number().int(),
+  code: z.string(),
+  name: z.string(),
+  address: z.string().nullable(),
+  binPattern: z.string(),
+  aisleOrder: z.string(),
+  walkDirection: z.enum(['serpentine', 'oneWay']),
+  active: z.boolean(),
+  bins: z.number().int(),
+})
+export const warehouseDetailSchema: z.ZodType<WarehouseDetail> = z.object({ warehouse: warehouseRowSchema, bins: z.array(binRowSchema) })
+export const binRangeResultSchema: z.ZodType<BinRangeResult> = z.object({ created: z.number().int(), skipped: z.array(z.string()) })

@@ -1,6 +1,7 @@
 // One typed client over fetch. Every failure becomes an ApiError with the server's code, and its
 // message and field messages already worded in the user's language (src/i18n/errorText.ts), so forms
 // show field errors beside inputs and the rest in a message.
+import type { ZodType } from 'zod'
 import type { ErrorParams, Problem } from '@shared/errors/errorCodes'
 import type { ApiErrorBody } from '@shared/schemas/apiError'
 import { errorText, fieldTexts } from '@/i18n/errorText'
@@ -44,15 +45,38 @@ export function onUnauthenticated(listener: Listener): void {
   unauthenticatedListeners.push(listener)
 }
 
-export interface RequestOptions {
+export interface RequestOptions<T = unknown> {
   headers?: Record<string, string>
   signal?: AbortSignal
   /** A 401 from this call is expected (sign-in) and must not trigger the global handler. */
   quiet401?: boolean
+  /** The answer's schema (shared/schemas): the answer's type, and its check in development and tests. */
+  answer?: ZodType<T>
+}
+
+/**
+ * Answers are checked against their schema in development and in the browser tests' build (vite --mode test),
+ * so a server and a screen that disagree fail there; production passes the server's answer on unchecked.
+ */
+const CHECK_ANSWERS = import.meta.env.DEV || import.meta.env.MODE === 'test'
+
+/**
+ * The answer as its schema's type, once it matches (when checking). The server's own value is passed on,
+ * not the parsed copy, so a schema's defaults or transforms never make development differ from production.
+ */
+export function checkAnswer<T>(schema: ZodType<T> | undefined, data: unknown, path: string): T {
+  if (schema && CHECK_ANSWERS) {
+    const got = schema.safeParse(data)
+    if (!got.success) {
+      console.error(`The answer of ${path} does not match its schema`, got.error.issues)
+      throw apiErrorFrom(200, null, 'answer_shape')
+    }
+  }
+  return data as T
 }
 
 /** A read the server could not answer for an outage is tried again by itself; anything else is answered once. */
-async function request<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
+async function request<T>(method: string, path: string, body?: unknown, opts: RequestOptions<T> = {}): Promise<T> {
   if (method !== 'GET') return requestOnce<T>(method, path, body, opts)
   let retrying = false
   try {
@@ -71,7 +95,7 @@ async function request<T>(method: string, path: string, body?: unknown, opts: Re
   }
 }
 
-async function requestOnce<T>(method: string, path: string, body?: unknown, opts: RequestOptions = {}): Promise<T> {
+async function requestOnce<T>(method: string, path: string, body?: unknown, opts: RequestOptions<T> = {}): Promise<T> {
   const headers: Record<string, string> = { Accept: 'application/json', 'X-Lumenyard-Request': '1', ...opts.headers }
   let payload: BodyInit | undefined
   if (body instanceof FormData) payload = body
@@ -88,14 +112,14 @@ async function requestOnce<T>(method: string, path: string, body?: unknown, opts
   }
   if (OUTAGE_STATUSES.has(res.status)) outageSeen(false)
   else answered()
-  if (res.status === 204) return undefined as T
+  if (res.status === 204) return checkAnswer(opts.answer, undefined, path)
   const type = res.headers.get('content-type') ?? ''
   const data = type.includes('application/json') ? await res.json().catch(() => null) : null
   if (!res.ok) {
     if (res.status === 401 && !opts.quiet401) unauthenticatedListeners.forEach((l) => l())
     throw apiErrorFrom(res.status, data)
   }
-  return data as T
+  return checkAnswer(opts.answer, data, path)
 }
 
 /** Downloads a file answer (spreadsheets, exports) as a Blob with its suggested name. */
@@ -126,19 +150,28 @@ export function prefetchGet(path: string): void {
   })
 }
 
-function get<T>(path: string, opts?: RequestOptions): Promise<T> {
+/** Answers started for the previous user must not reach the next one: forgotten on sign-out. */
+export function forgetPrefetched(): void {
+  early.clear()
+}
+
+function get<T>(path: string, opts?: RequestOptions<T>): Promise<T> {
   const hit = early.get(path)
   if (hit && !opts?.signal) {
     early.delete(path)
-    if (Date.now() - hit.at < EARLY_MS) return hit.answer as Promise<T>
+    if (Date.now() - hit.at < EARLY_MS) return hit.answer.then((data) => checkAnswer(opts?.answer, data, path))
   }
   return request<T>('GET', path, undefined, opts)
 }
 
+/**
+ * The fetch client the typed area modules (src/api/*.ts) are written with. Views and components call those
+ * modules, never a path (eslint.config.ts refuses `api.get('/…')` there).
+ */
 export const api = {
   get,
-  post: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('POST', path, body ?? {}, opts),
-  put: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PUT', path, body ?? {}, opts),
-  patch: <T>(path: string, body?: unknown, opts?: RequestOptions) => request<T>('PATCH', path, body ?? {}, opts),
-  delete: <T>(path: string, opts?: RequestOptions) => request<T>('DELETE', path, undefined, opts),
+  post: <T>(path: string, body?: unknown, opts?: RequestOptions<T>) => request<T>('POST', path, body ?? {}, opts),
+  put: <T>(path: string, body?: unknown, opts?: RequestOptions<T>) => request<T>('PUT', path, body ?? {}, opts),
+  patch: <T>(path: string, body?: unknown, opts?: RequestOptions<T>) => request<T>('PATCH', path, body ?? {}, opts),
+  delete: <T>(path: string, opts?: RequestOptions<T>) => request<T>('DELETE', path, undefined, opts),
 }

@@ -1,6 +1,7 @@
 // Typed calls for the report screens.
 import type { DeadStockReport, TurnsReport, UsageReport, ValuationReport, VendorReport } from '@shared/schemas/reports'
 import { api } from './client'
+import { downloadWithProgress } from './fileTransfer'
 import { toQuery } from './stock'
 
 export interface PeriodFilters { from: string; to: string; warehouseId: number | null; tz: string }
@@ -13,7 +14,7 @@ export const reportsApi = {
   usage: (q: PeriodFilters) => api.get<UsageReport>(`/reports/usage${toQuery({ ...q })}`),
   vendors: (q: PeriodFilters) => api.get<VendorReport>(`/reports/vendors${toQuery({ ...q })}`),
   deadStock: (q: DeadStockFilters) => api.get<DeadStockReport>(`/reports/dead-stock${toQuery({ ...q })}`),
-  /** The address of a report's spreadsheet in the reader's language. */
-  exportPath: (report: 'turns' | 'usage' | 'vendors' | 'dead-stock', q: PeriodFilters | DeadStockFilters, lang: string) =>
-    `/reports/${report}/export${toQuery({ ...q, lang })}`,
+  /** A report's spreadsheet in the reader's language, streamed (onBytes: bytes received so far). */
+  exportFile: (report: 'turns' | 'usage' | 'vendors' | 'dead-stock', q: PeriodFilters | DeadStockFilters, lang: string, onBytes: (bytes: number) => void) =>
+    downloadWithProgress(`/reports/${report}/export${toQuery({ ...q, lang })}`, onBytes),
 }

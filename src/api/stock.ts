@@ -2,8 +2,9 @@
 // submission that made them (see useIdempotentSubmit), so a double click applies once.
 import type { AdjustmentInput, BinMoveInput, TransferReceiveInput, TransferShipInput } from '@shared/schemas/stock'
 import type {
-  BinContentsAnswer, ItemOption, LedgerPage, LookupAnswer, LotLevelsAnswer, MinimumRow, Place, StockLevelsAnswer, TransferView,
+  BinContentsAnswer, ItemOption, LedgerPage, LookupAnswer, LotLevelsAnswer, MinimumRow, StockLevelsAnswer, TransferView,
 } from '@shared/schemas/stockViews'
+import { placesSchema } from '@shared/schemas/stockViews'
 import { api, download } from './client'
 
 export type QueryValues = Record<string, string | number | boolean | readonly string[] | null | undefined>
@@ -41,7 +42,7 @@ export const stockApi = {
   minimums: (q: QueryValues) => api.get<MinimumRow[]>(`/stock/minimums${toQuery(q)}`),
   setMinimum: (itemId: number, warehouseId: number, minQty: number | null) =>
     api.put<MinimumRow>(`/stock/minimums/${itemId}/${warehouseId}`, { minQty }),
-  places: () => api.get<Place[]>(stockPaths.places),
+  places: () => api.get(stockPaths.places, { answer: placesSchema }),
   itemOptions: (q: { q?: string; ids?: readonly string[] }) => api.get<ItemOption[]>(`/stock/item-options${toQuery(q)}`),
   lookup: (q: QueryValues) => api.get<LookupAnswer>(`/stock/lookup${toQuery(q)}`),
 

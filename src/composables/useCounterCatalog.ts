@@ -1,17 +1,9 @@
-import { ref } from 'vue'
-import type { CounterCatalog } from '@shared/schemas/counter'
-import { api } from '@/api/client'
+import { storeToRefs } from 'pinia'
+import { useCatalogStore } from '@/stores/catalog'
 
-const cached = ref<CounterCatalog | null>(null)
-let pending: Promise<CounterCatalog> | null = null
-
-/** The takeoff editor's catalog (blocks, role → item mapping, rules, waste), loaded once per visit. */
+/** The takeoff editor's catalog (blocks, role → item mapping, rules, waste), from the catalog store. */
 export function useCounterCatalog() {
-  async function load(force = false): Promise<CounterCatalog> {
-    if (cached.value && !force) return cached.value
-    pending ??= api.get<CounterCatalog>('/takeoffs/catalog').finally(() => (pending = null))
-    cached.value = await pending
-    return cached.value
-  }
-  return { catalog: cached, load }
+  const store = useCatalogStore()
+  const { catalog } = storeToRefs(store)
+  return { catalog, load: store.load }
 }

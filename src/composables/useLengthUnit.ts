@@ -1,8 +1,7 @@
 import { computed } from 'vue'
 import type { LengthUnit } from '@shared/units'
-import { api } from '@/api/client'
+import { sessionApi } from '@/api/session'
 import { useSessionStore } from '@/stores/session'
-import type { SessionUser } from '@shared/schemas/auth'
 
 /** The signed-in user's length unit (in or mm); changing it here saves it to their profile. */
 export function useLengthUnit() {
@@ -13,7 +12,7 @@ export function useLengthUnit() {
       if (!session.user || session.user.unitPreference === next) return
       session.replaceUser({ ...session.user, unitPreference: next })
       // Best effort: the screen follows at once, the profile catches up.
-      api.patch<{ user: SessionUser }>('/profile', { unitPreference: next }).catch(() => undefined)
+      sessionApi.saveProfile({ unitPreference: next }).catch(() => undefined)
     },
   })
   return { unit }

@@ -1,22 +1,12 @@
-import { computed, ref } from 'vue'
+import { storeToRefs } from 'pinia'
 import type { Place, PlaceBin } from '@shared/schemas/stockViews'
-import { stockApi } from '@/api/stock'
+import { useWarehousesStore } from '@/stores/warehouses'
 
-/** Warehouses and their bins for the stock screens' pickers, loaded once per page. */
+/** Warehouses and their bins for the stock screens' pickers (the warehouses store), loaded again per page. */
 export function useStockPlaces() {
-  const places = ref<Place[]>([])
-  const error = ref('')
-
-  async function load(): Promise<void> {
-    try {
-      places.value = await stockApi.places()
-      error.value = ''
-    } catch (err) {
-      error.value = (err as Error).message
-    }
-  }
-
-  const warehouses = computed(() => places.value.filter((w) => w.active))
+  const store = useWarehousesStore()
+  const { places, error, active: warehouses } = storeToRefs(store)
+  const load = store.load
 
   /** Bins of a warehouse in use; storage only leaves out transit bins (stock there is on its way). */
   function binsOf(warehouseId: number | null | undefined, opts: { storageOnly?: boolean } = {}): PlaceBin[] {

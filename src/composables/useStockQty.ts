@@ -6,7 +6,7 @@ import { Decimal } from 'decimal.js'
 import { STOCK_UNITS, type StockUnit } from '@shared/catalog'
 import type { SessionUser } from '@shared/schemas/auth'
 import { KG_PER_POUND } from '@shared/units'
-import { api } from '@/api/client'
+import { sessionApi } from '@/api/session'
 import { useSessionStore } from '@/stores/session'
 
 export type WeightUnit = SessionUser['weightUnit']
@@ -21,7 +21,7 @@ export function useStockQty() {
       if (!session.user || session.user.weightUnit === next) return
       session.replaceUser({ ...session.user, weightUnit: next })
       // The screen follows at once; the profile catches up.
-      api.patch<{ user: SessionUser }>('/profile', { weightUnit: next }).catch(() => undefined)
+      sessionApi.saveProfile({ weightUnit: next }).catch(() => undefined)
     },
   })
 

@@ -1,11 +1,11 @@
 import { computed, onBeforeUnmount, ref, toRaw, watch, type Ref } from 'vue'
 import { useI18n } from 'vue-i18n'
-import { billBlockers, computeCounterBill, type ComputeAnswer, type CounterBill } from '@shared/counter/counterBill'
+import { billBlockers, computeCounterBill, type CounterBill } from '@shared/counter/counterBill'
 import type { CounterCatalog, LineAvailability } from '@shared/schemas/counter'
 import { takeoffSchema, type Takeoff } from '@shared/schemas/takeoff'
 import type { Caution } from '@shared/takeoff/cautions'
 import type { LengthUnit } from '@shared/units'
-import { api } from '@/api/client'
+import { counterApi } from '@/api/counter'
 import { fieldProblems } from '@/components/counter/takeoffText'
 import type { BillReply, BillRequest } from '@/workers/takeoffBill.worker'
 
@@ -54,7 +54,7 @@ export function useTakeoffBill(takeoff: Ref<Takeoff>, catalog: Ref<CounterCatalo
     stockAbort?.abort()
     stockAbort = new AbortController()
     try {
-      const answer = await api.post<ComputeAnswer>('/takeoffs/compute', { takeoff: input, unit: unit.value }, { signal: stockAbort.signal })
+      const answer = await counterApi.compute({ takeoff: input, unit: unit.value }, stockAbort.signal)
       availability.value = new Map(answer.availability.map((a) => [a.itemId, a]))
     } catch {
       // Stock figures are a convenience here; the saved bill reads them again.

@@ -2,9 +2,13 @@ import { defineStore } from 'pinia'
 import { computed, ref } from 'vue'
 import type { SessionUser } from '@shared/schemas/auth'
 import { areasFor, hasAnyRole, type Role } from '@shared/roles'
-import { api } from '@/api/client'
+import { sessionApi } from '@/api/session'
+import { resetAreaStores } from './areaReset'
 
-/** The signed-in user, shared by the shell, the guard and every page. */
+/**
+ * The signed-in user, shared by the shell, the guard and every page. Signing out, a session that ended, and
+ * signing in as someone else empty the area stores (src/stores/areaReset.ts).
+ */
 export const useSessionStore = defineStore('session', () => {
   const user = ref<SessionUser | null>(null)
   const loaded = ref(false)
@@ -17,7 +21,8 @@ export const useSessionStore = defineStore('session', () => {
 
   async function load(): Promise<void> {
     try {
-      const res = await api.get<{ user: SessionUser | null; demo: boolean }>('/session', { quiet401: true })
+      const res = await sessionApi.current()
+      if (user.value && res.user?.id !== user.value.id) resetAreaStores()
       user.value = res.user
       demo.value = res.demo
     } finally {
@@ -26,21 +31,23 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   async function signIn(username: string, password: string): Promise<void> {
-    const res = await api.post<{ user: SessionUser }>('/session', { username, password }, { quiet401: true })
+    const res = await sessionApi.signIn(username, password)
+    resetAreaStores()
     user.value = res.user
     loaded.value = true
   }
 
   async function signOut(): Promise<void> {
     try {
-      await api.delete('/session', { quiet401: true })
+      await sessionApi.signOut()
     } finally {
-      user.value = null
+      forget()
     }
   }
 
   function forget(): void {
     user.value = null
+    resetAreaStores()
   }
 
   function replaceUser(next: SessionUser): void {

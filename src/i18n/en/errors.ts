@@ -107,6 +107,7 @@ export default {
   internal: 'Something went wrong on the server. The error was logged.',
   db_unavailable: 'The database is not answering. Try again in a moment.',
   network: 'The server could not be reached. Check the connection and try again.',
+  answer_shape: 'The server answered with data this screen does not expect. Reload the page; if it happens again, tell your administrator.',
   idempotency_key_invalid: 'The request carried a malformed repeat-protection key. Reload the page and try again.',
   idempotency_key_required: 'The request carried no repeat-protection key. Reload the page and try again.',
   idempotency_key_reused: 'This submission was already used for a different request. Reload the page and try again.',

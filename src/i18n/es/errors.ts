@@ -106,6 +106,7 @@ export default {
   internal: 'Algo falló en el servidor. El error quedó registrado.',
   db_unavailable: 'La base de datos no responde. Inténtelo de nuevo en un momento.',
   network: 'No se pudo conectar con el servidor. Revise la conexión e inténtelo de nuevo.',
+  answer_shape: 'El servidor respondió con datos que esta pantalla no espera. Vuelva a cargar la página; si se repite, avise a su administrador.',
   idempotency_key_invalid: 'La solicitud llevaba una clave de protección contra repeticiones mal formada. Vuelva a cargar la página e inténtelo de nuevo.',
   idempotency_key_required: 'La solicitud no llevaba clave de protección contra repeticiones. Vuelva a cargar la página e inténtelo de nuevo.',
   idempotency_key_reused: 'Este envío ya se usó para otra solicitud. Vuelva a cargar la página e inténtelo de nuevo.',

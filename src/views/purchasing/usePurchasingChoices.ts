@@ -1,13 +1,13 @@
 import { ref } from 'vue'
 import type { VendorView, WarehouseChoice } from '@shared/schemas/purchasingViews'
-import { api } from '@/api/client'
+import { purchasingApi } from '@/api/purchasing'
 
 /** Vendors and ship-to warehouses for the purchasing forms, loaded once per form. */
 export function usePurchasingChoices() {
   const vendors = ref<VendorView[]>([])
   const warehouses = ref<WarehouseChoice[]>([])
   async function load(): Promise<void> {
-    const [v, w] = await Promise.all([api.get<VendorView[]>('/vendors'), api.get<WarehouseChoice[]>('/purchasing/warehouses')])
+    const [v, w] = await Promise.all([purchasingApi.vendors(), purchasingApi.warehouses()])
     vendors.value = v.filter((x) => x.active)
     warehouses.value = w
   }

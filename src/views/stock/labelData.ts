@@ -1,9 +1,8 @@
 // What each label says, for bins, items or lots, built from the payload definitions in
 // shared/barcode/scan.ts so printing and scanning agree.
 import { binLabelPayload, itemLabelPayload, lotLabelPayload, type LabelPayload } from '@shared/barcode/scan'
-import type { ItemDetail, LotRow } from '@shared/schemas/catalog'
-import type { WarehouseDetail } from '@shared/schemas/warehouses'
-import { api } from '@/api/client'
+import { catalogApi } from '@/api/catalog'
+import { warehousesApi } from '@/api/warehouses'
 import type { LabelSpec } from '@/components/labels/labelSpec'
 
 export type LabelKind = 'bin' | 'item' | 'lot'
@@ -25,7 +24,7 @@ function build(key: string, make: () => LabelPayload, title: string, lines: stri
 
 async function binLabels(q: LabelQuery): Promise<LabelSpec[]> {
   if (!q.warehouseId) return []
-  const detail = await api.get<WarehouseDetail>(`/warehouses/${q.warehouseId}`)
+  const detail = await warehousesApi.detail(q.warehouseId)
   const wanted = new Set(q.ids)
   return detail.bins
     .filter((b) => (wanted.size ? wanted.has(b.id) : b.kind !== 'transit'))
@@ -33,14 +32,14 @@ async function binLabels(q: LabelQuery): Promise<LabelSpec[]> {
 }
 
 async function itemLabels(q: LabelQuery): Promise<LabelSpec[]> {
-  const details = await Promise.all(q.ids.slice(0, 200).map((id) => api.get<ItemDetail>(`/items/${id}`)))
+  const details = await Promise.all(q.ids.slice(0, 200).map((id) => catalogApi.item(id)))
   return details.map(({ item }) =>
     build(`item-${item.id}`, () => itemLabelPayload({ sku: item.sku, gtin: item.gtin }), item.sku, [item.name], true))
 }
 
 async function lotLabels(q: LabelQuery): Promise<LabelSpec[]> {
   if (!q.itemId) return []
-  const [{ item }, lots] = await Promise.all([api.get<ItemDetail>(`/items/${q.itemId}`), api.get<LotRow[]>(`/items/${q.itemId}/lots`)])
+  const [{ item }, lots] = await Promise.all([catalogApi.item(q.itemId), catalogApi.lots(q.itemId)])
   const wanted = new Set(q.ids)
   return lots
     .filter((l) => (wanted.size ? wanted.has(l.id) : l.onHand > 0))

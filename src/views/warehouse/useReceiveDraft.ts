@@ -5,7 +5,7 @@ import { computed, ref } from 'vue'
 import { problem, type Problem } from '@shared/errors/errorCodes'
 import { readReceivingScan, type ScanLine } from '@shared/purchasing/receiveScan'
 import type { ReceiveResult, ReceivingContext } from '@shared/schemas/purchasingViews'
-import { api } from '@/api/client'
+import { purchasingApi } from '@/api/purchasing'
 
 export interface DraftRow {
   key: number
@@ -61,7 +61,7 @@ export function useReceiveDraft(context: () => ReceivingContext | null) {
       note,
       lines: rows.value.map((r) => ({ poLineId: r.poLineId, binId: r.binId, lotCode: r.lotCode || null, qty: r.qty, damagedQty: r.damagedQty, reason: r.reason || null })),
     }
-    const result = await api.post<ReceiveResult>(`/purchase-orders/${context()!.po.id}/receipts`, body, { headers: { 'Idempotency-Key': idempotencyKey } })
+    const result = await purchasingApi.receive(context()!.po.id, body, idempotencyKey)
     idempotencyKey = newKey()
     rows.value = []
     return result

@@ -257,3 +257,41 @@ export interface ImportPreview {
   errorRows: number
   rows: ImportPreviewRow[]
 }
+
+// ---- answers (checked by the client in development and tests) ----
+const nullableText = z.string().nullable()
+export const itemPageSchema: z.ZodType<ItemPage> = z.object({
+  rows: z.array(z.object({
+    id: z.number().int(),
+    sku: z.string(),
+    name: z.string(),
+    family: z.string(),
+    stockUnit: z.string(),
+    nominalSize: nullableText,
+    pattern: nullableText,
+    shape: nullableText,
+    thicknessClass: nullableText,
+    gtin: nullableText,
+    caseQty: z.number().nullable(),
+    palletQty: z.number().nullable(),
+    cost: z.string().optional(),
+    listPrice: z.string(),
+    active: z.boolean(),
+    madeToOrder: z.boolean(),
+    matchLot: z.boolean(),
+    onHand: z.number(),
+    available: z.number(),
+  })),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+})
+export const lotRowsSchema: z.ZodType<LotRow[]> = z.array(z.object({
+  id: z.number().int(),
+  itemId: z.number().int(),
+  code: z.string(),
+  receivedAt: z.string(),
+  vendorId: z.number().int().nullable(),
+  tintNote: nullableText,
+  onHand: z.number(),
+}))

@@ -247,4 +247,12 @@ export interface PriceListPreviewRow {
 }
 
 /** A vendor's price list, checked (preview) or taken in (commit). */
-export interface PriceListPreview { filename: string; total: number; adds: number; updates: number; errorRows: number; rows: PriceListPreviewRow[] }
+export interface PriceListPreview {
+  filename: string
+  total: number
+  adds: number
+  updates: number
+  errorRows: number
+  /** Rows with errors first (up to 1,000), then a sample of good rows. */
+  rows: PriceListPreviewRow[]
+}

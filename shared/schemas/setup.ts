@@ -27,3 +27,14 @@ export const setupGs1Schema = z.object({
   prefix: z.string().trim().regex(/^\d{4,12}$/, issueCode('gs1_prefix_digits')).nullable(),
 }).strict()
 export type SetupGs1Input = z.infer<typeof setupGs1Schema>
+
+/** The checklist as the server answers it (checked by the client in development and tests). */
+export const setupStateSchema: z.ZodType<SetupState> = z.object({
+  show: z.boolean(),
+  dismissed: z.boolean(),
+  steps: z.array(z.object({
+    key: z.enum(SETUP_STEPS),
+    done: z.boolean(),
+    figures: z.record(z.string(), z.union([z.number(), z.string(), z.null()])).optional(),
+  })),
+})

@@ -1,7 +1,8 @@
 // Typed calls for the admin area: users and their roles, the audit trail and its export, the company profile,
 // purchasing settings and the mail outbox, and selling prices (levels, rules, tax rates, account terms).
 import type { AuditTrailPage } from '@shared/schemas/audit'
-import type { UserSummary } from '@shared/schemas/auth'
+import { z } from 'zod'
+import { userSummarySchema } from '@shared/schemas/auth'
 import type { CustomerTermsSummary, PriceLevelSummary, PriceRuleSummary, TaxRateSummary } from '@shared/schemas/pricing'
 import type { CompanyProfile, PurchasingSettings } from '@shared/schemas/purchasing'
 import type { OutboxSummary } from '@shared/schemas/purchasingViews'
@@ -12,9 +13,10 @@ type Id = number | string
 
 export const adminApi = {
   // Users (userCreateSchema, userUpdateSchema, passwordResetSchema)
-  users: () => api.get<UserSummary[]>('/users'),
-  createUser: (body: object) => api.post<UserSummary>('/users', body),
-  updateUser: (id: Id, body: { active?: boolean; roles?: string[]; displayName?: string; email?: string }) => api.patch<UserSummary>(`/users/${id}`, body),
+  users: () => api.get('/users', { answer: z.array(userSummarySchema) }),
+  createUser: (body: object) => api.post('/users', body, { answer: userSummarySchema }),
+  updateUser: (id: Id, body: { active?: boolean; roles?: string[]; displayName?: string; email?: string }) =>
+    api.patch(`/users/${id}`, body, { answer: userSummarySchema }),
   resetPassword: (id: Id, password: string) => api.post(`/users/${id}/password`, { password }),
 
   // Audit trail

@@ -1,6 +1,6 @@
 // Typed calls for the catalog: the item list and its export, one item with its stock and lots, the item
 // form, and the item import's template.
-import type { ItemDetail, ItemPage, ItemRecord, ItemRecordView, LotRow } from '@shared/schemas/catalog'
+import { itemPageSchema, lotRowsSchema, type ItemDetail, type ItemRecord, type ItemRecordView } from '@shared/schemas/catalog'
 import { api, download } from './client'
 import { toQuery, type QueryValues } from './stock'
 
@@ -10,12 +10,12 @@ export const catalogPaths = {
 }
 
 export const catalogApi = {
-  items: (q: QueryValues) => api.get<ItemPage>(`/items${toQuery(q)}`),
+  items: (q: QueryValues) => api.get(`/items${toQuery(q)}`, { answer: itemPageSchema }),
   exportItems: (q: QueryValues) => download(`/items/export.xlsx${toQuery(q)}`),
   item: (id: number | string) => api.get<ItemDetail>(`/items/${id}`),
   /** The item as the form edits it (cost only for those allowed to see it). */
   itemRecord: (id: number | string) => api.get<{ item: ItemRecordView }>(`/items/${id}`),
-  lots: (itemId: number | string) => api.get<LotRow[]>(`/items/${itemId}/lots`),
+  lots: (itemId: number | string) => api.get(`/items/${itemId}/lots`, { answer: lotRowsSchema }),
   create: (body: object) => api.post<ItemRecord>('/items', body),
   update: (id: number | string, body: object) => api.patch<ItemRecord>(`/items/${id}`, body),
   deactivate: (id: number | string) => api.post(`/items/${id}/deactivate`),

@@ -1,14 +1,14 @@
 // Typed calls for going live: the setup checklist (units, GS1 prefix, logo), the data imports with their
 // history and reversal, and the whole-business export. Uploads and the export report their progress.
 import type { DataImportKind, DataImportRecord } from '@shared/schemas/dataImports'
-import type { SetupState } from '@shared/schemas/setup'
+import { setupStateSchema } from '@shared/schemas/setup'
 import { api, download } from './client'
 import { downloadWithProgress, uploadWithProgress } from './fileTransfer'
 
 export const goliveApi = {
-  setup: () => api.get<SetupState>('/setup'),
-  saveUnits: (body: { lengthUnit: 'in' | 'mm'; weightUnit: 'lb' | 'kg' }) => api.put<SetupState>('/setup/units', body),
-  saveGs1Prefix: (prefix: string | null) => api.put<SetupState>('/setup/gs1-prefix', { prefix }),
+  setup: () => api.get('/setup', { answer: setupStateSchema }),
+  saveUnits: (body: { lengthUnit: 'in' | 'mm'; weightUnit: 'lb' | 'kg' }) => api.put('/setup/units', body, { answer: setupStateSchema }),
+  saveGs1Prefix: (prefix: string | null) => api.put('/setup/gs1-prefix', { prefix }, { answer: setupStateSchema }),
   uploadLogo: (form: FormData) => uploadWithProgress<unknown>('/setup/logo', form, () => {}).done,
   /** The logo for printed pages; null when none was uploaded. */
   printedLogo: () => download('/setup/printed-logo').catch(() => null),

@@ -4,6 +4,7 @@
 // already sells updates that vendor item (absent columns keep their values); others are added.
 import { In, type DataSource, type EntityManager } from 'typeorm'
 import { vendorItemSchema } from '../../../shared/schemas/purchasing.js'
+import type { PriceListPreview, PriceListPreviewRow as PriceListRow } from '../../../shared/schemas/purchasingViews.js'
 import { inTransaction } from '../../db/transaction.js'
 import { Item } from '../../entities/Item.js'
 import { VendorItem } from '../../entities/Vendor.js'
@@ -30,26 +31,6 @@ export const PRICE_LIST_SPEC: ImportSpec = {
   ignore: ['Description', 'Item name', 'Name', 'Notes'],
   maxRows: 5000,
   maxColumns: 30,
-}
-
-export interface PriceListRow {
-  row: number
-  sku: string | null
-  vendorSku: string | null
-  action: 'add' | 'update'
-  unitCost: string | null
-  previousCost: string | null
-  errors: RowProblem[]
-}
-
-export interface PriceListPreview {
-  filename: string
-  total: number
-  adds: number
-  updates: number
-  errorRows: number
-  /** Rows with errors first (up to 1,000), then a sample of good rows. */
-  rows: PriceListRow[]
 }
 
 interface Checked {

@@ -1,0 +1,80 @@
+// The answer schemas the client checks answers against (src/api/client.ts, in development and the browser tests'
+// build) must describe what the real server sends from the real database, or a screen would refuse a good answer.
+// Each answer below is read from the demo scenario and parsed with its schema; a field renamed or retyped on
+// either side fails here. A deliberately wrong answer is refused, so a schema that accepts anything fails too.
+// source: common practice (contract check between a client's expected shape and the server's answers)
+import { z } from 'zod'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { sessionAnswerSchema, userSummarySchema } from '../../shared/schemas/auth.js'
+import { itemPageSchema, lotRowsSchema } from '../../shared/schemas/catalog.js'
+import { counterCatalogSchema } from '../../shared/schemas/counter.js'
+import { setupStateSchema } from '../../shared/schemas/setup.js'
+import { placesSchema } from '../../shared/schemas/stockViews.js'
+import { warehouseDetailSchema, warehouseRowSchema } from '../../shared/schemas/warehouses.js'
+import { startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+
+let h: ApiHarness
+beforeAll(async () => {
+  h = await startApiHarness()
+})
+afterAll(() => h?.close())
+
+function problemsOf(schema: z.ZodType, body: unknown): string[] {
+  const got = schema.safeParse(body)
+  return got.success ? [] : got.error.issues.map((i) => `${i.path.join('.')}: ${i.code}`)
+}
+
+describe('answers match the schemas the client checks them with', () => {
+  it('session, warehouses, places, takeoff catalog, checklist and users', async () => {
+    const admin = await h.as('admin')
+    const session = await admin.get('/api/session')
+    expect(session.status).toBe(200)
+    expect(session.body.user).not.toBeNull()
+    expect(problemsOf(sessionAnswerSchema, session.body)).toEqual([])
+    expect(problemsOf(sessionAnswerSchema, (await h.agent().get('/api/session')).body)).toEqual([])
+
+    const list = await admin.get('/api/warehouses')
+    expect(list.status).toBe(200)
+    expect(list.body.length).toBeGreaterThan(0)
+    expect(problemsOf(z.array(warehouseRowSchema), list.body)).toEqual([])
+    const detail = await admin.get(`/api/warehouses/${list.body[0].id}`)
+    expect(detail.body.bins.length).toBeGreaterThan(0)
+    expect(problemsOf(warehouseDetailSchema, detail.body)).toEqual([])
+
+    const places = await admin.get('/api/stock/places')
+    expect(places.body.length).toBeGreaterThan(0)
+    expect(problemsOf(placesSchema, places.body)).toEqual([])
+
+    const catalog = await admin.get('/api/takeoffs/catalog')
+    expect(catalog.status).toBe(200)
+    expect(catalog.body.blocks.length).toBeGreaterThan(0)
+    expect(catalog.body.rules.length).toBeGreaterThan(0)
+    expect(problemsOf(counterCatalogSchema, catalog.body)).toEqual([])
+
+    expect(problemsOf(setupStateSchema, (await admin.get('/api/setup')).body)).toEqual([])
+    const users = await admin.get('/api/users')
+    expect(users.body.length).toBeGreaterThan(0)
+    expect(problemsOf(z.array(userSummarySchema), users.body)).toEqual([])
+  })
+
+  it('catalog pages and lots, with costs and without', async () => {
+    for (const who of [await h.as('admin'), await h.as('warehouse')]) {
+      const page = await who.get('/api/items?pageSize=50')
+      expect(page.status).toBe(200)
+      expect(page.body.rows.length).toBeGreaterThan(0)
+      expect(problemsOf(itemPageSchema, page.body)).toEqual([])
+      const lotted = page.body.rows.find((r: { matchLot: boolean; onHand: number }) => r.matchLot && r.onHand > 0) ?? page.body.rows[0]
+      const lots = await who.get(`/api/items/${lotted.id}/lots`)
+      expect(lots.status).toBe(200)
+      expect(problemsOf(lotRowsSchema, lots.body)).toEqual([])
+    }
+  })
+
+  it('refuses an answer that lost or retyped a field', async () => {
+    const admin = await h.as('admin')
+    const detail = (await admin.get('/api/warehouses')).body[0]
+    expect(problemsOf(warehouseRowSchema, { ...detail, active: 'yes' })).toEqual(['active: invalid_type'])
+    const { bins: _bins, ...noBinCount } = detail
+    expect(problemsOf(warehouseRowSchema, noBinCount)).toEqual(['bins: invalid_type'])
+  })
+})

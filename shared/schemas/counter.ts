@@ -338,3 +338,30 @@ export const counterCatalogSchema: z.ZodType<CounterCatalog> = z.object({
     z.object({ itemId: id, sku: z.string(), name: z.string(), unit: z.string(), family: z.string(), madeToOrder: z.boolean() }),
   ),
 })
+export const customerSummarySchema: z.ZodType<CustomerSummary> = z.object({
+  id,
+  code: z.string(),
+  name: z.string(),
+  contactName: z.string().nullable(),
+  email: z.string().nullable(),
+  phone: z.string().nullable(),
+  address: z.string().nullable(),
+  notes: z.string().nullable(),
+  active: z.boolean(),
+  openJobs: z.number().int(),
+  createdAt: z.string(),
+})
+export const jobSummarySchema: z.ZodType<JobSummary> = z.object({
+  id,
+  customerId: id,
+  customerCode: z.string(),
+  customerName: z.string(),
+  name: z.string(),
+  siteAddress: z.string().nullable(),
+  status: jobStatusSchema,
+  dueDate: z.string().nullable(),
+  notes: z.string().nullable(),
+  latestRevision: z.number().int().nullable(),
+  takeoffs: z.number().int(),
+  updatedAt: z.string(),
+})

@@ -2,9 +2,10 @@
 // and the takeoff settings (material rules, role → item mapping, waste, site figures). Bodies are checked by
 // the server with the schemas named beside them; the forms check with the same schemas first.
 import type { ComputeAnswer } from '@shared/counter/counterBill'
+import { z } from 'zod'
 import {
-  counterCatalogSchema,
-  type BomRecord, type CustomerSummary, type JobDetail, type JobSummary, type RoleItemRecord, type RuleRecord, type TakeoffRecord,
+  counterCatalogSchema, customerSummarySchema, jobSummarySchema,
+  type BomRecord, type JobDetail, type RoleItemRecord, type RuleRecord, type TakeoffRecord,
 } from '@shared/schemas/counter'
 import type { QuoteDetail, QuoteSummary } from '@shared/schemas/quotes'
 import type { SalesOrderDetail, SalesOrderSummary } from '@shared/schemas/salesOrders'
@@ -21,18 +22,19 @@ export const counterApi = {
   catalog: () => api.get('/takeoffs/catalog', { answer: counterCatalogSchema }),
 
   // Contractor accounts (customerCreateSchema, customerUpdateSchema)
-  customers: (q: { q?: string; active?: 'true' | 'false' | 'all' } = {}) => api.get<CustomerSummary[]>(`/customers${toQuery(q)}`),
-  createCustomer: (body: object) => api.post<CustomerSummary>('/customers', body),
-  updateCustomer: (id: Id, body: object) => api.patch<CustomerSummary>(`/customers/${id}`, body),
+  customers: (q: { q?: string; active?: 'true' | 'false' | 'all' } = {}) =>
+    api.get(`/customers${toQuery(q)}`, { answer: z.array(customerSummarySchema) }),
+  createCustomer: (body: object) => api.post('/customers', body, { answer: customerSummarySchema }),
+  updateCustomer: (id: Id, body: object) => api.patch(`/customers/${id}`, body, { answer: customerSummarySchema }),
   removeCustomer: (id: Id) => api.delete(`/customers/${id}`),
 
   // Jobs (jobCreateSchema, jobUpdateSchema)
-  jobs: (q: QueryValues) => api.get<JobSummary[]>(`/jobs${toQuery(q)}`),
+  jobs: (q: QueryValues) => api.get(`/jobs${toQuery(q)}`, { answer: z.array(jobSummarySchema) }),
   job: (id: Id) => api.get<JobDetail>(`/jobs/${id}`),
   /** A job's header only (its takeoffs and bills left out of the type). */
-  jobSummary: (id: Id) => api.get<JobSummary>(`/jobs/${id}`),
-  createJob: (body: object) => api.post<JobSummary>('/jobs', body),
-  updateJob: (id: Id, body: object) => api.patch<JobSummary>(`/jobs/${id}`, body),
+  jobSummary: (id: Id) => api.get(`/jobs/${id}`, { answer: jobSummarySchema }),
+  createJob: (body: object) => api.post('/jobs', body, { answer: jobSummarySchema }),
+  updateJob: (id: Id, body: object) => api.patch(`/jobs/${id}`, body, { answer: jobSummarySchema }),
 
   // Takeoffs (takeoffSaveSchema) and bills of materials (bomSaveSchema)
   takeoff: (id: Id) => api.get<TakeoffRecord>(`/takeoffs/${id}`),

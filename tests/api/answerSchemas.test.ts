@@ -7,11 +7,11 @@ import { z } from 'zod'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { sessionAnswerSchema, userSummarySchema } from '../../shared/schemas/auth.js'
 import { itemPageSchema, lotRowsSchema } from '../../shared/schemas/catalog.js'
-import { counterCatalogSchema } from '../../shared/schemas/counter.js'
+import { counterCatalogSchema, customerSummarySchema, jobSummarySchema } from '../../shared/schemas/counter.js'
 import { setupStateSchema } from '../../shared/schemas/setup.js'
 import { placesSchema } from '../../shared/schemas/stockViews.js'
 import { warehouseDetailSchema, warehouseRowSchema } from '../../shared/schemas/warehouses.js'
-import { startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 
 let h: ApiHarness
 beforeAll(async () => {
@@ -68,6 +68,20 @@ describe('answers match the schemas the client checks them with', () => {
       expect(lots.status).toBe(200)
       expect(problemsOf(lotRowsSchema, lots.body)).toEqual([])
     }
+  })
+
+  it('contractor accounts and jobs: lists, one job, and what a save answers', async () => {
+    const counter = await h.as('counter')
+    const customers = await counter.get('/api/customers?active=all')
+    expect(customers.body.length).toBeGreaterThan(0)
+    expect(problemsOf(z.array(customerSummarySchema), customers.body)).toEqual([])
+    const jobs = await counter.get('/api/jobs?limit=200')
+    expect(jobs.body.length).toBeGreaterThan(0)
+    expect(problemsOf(z.array(jobSummarySchema), jobs.body)).toEqual([])
+    expect(problemsOf(jobSummarySchema, (await counter.get(`/api/jobs/${jobs.body[0].id}`)).body)).toEqual([])
+    const saved = await counter.post('/api/jobs').set(CSRF).send({ customerId: customers.body[0].id, name: 'Brightcourse lobby screen wall' })
+    expect(saved.status).toBe(201)
+    expect(problemsOf(jobSummarySchema, saved.body)).toEqual([])
   })
 
   it('refuses an answer that lost or retyped a field', async () => {

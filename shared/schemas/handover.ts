@@ -7,6 +7,7 @@ import type { HandlingCaution } from '../picking/handling.js'
 import type { PickListStatus } from './picking.js'
 import { HANDOVER_KINDS, type HandoverKind, type HandoverStatus } from '../sales/handoverTerms.js'
 import type { SalesOrderStatus } from '../sales/salesOrderTerms.js'
+import type { SalesOrderLineView } from './salesOrders.js'
 import { idSchema, qtySchema } from './stock.js'
 
 const optionalText = (max: number) => z.preprocess((v) => (v === '' || v === undefined ? null : v), z.string().trim().max(max).nullable()).default(null)
@@ -78,14 +79,7 @@ export interface TicketDetail extends TicketSummary {
   heavy: boolean
 }
 
-export interface FulfilmentLine {
-  id: number
-  lineNo: number
-  itemId: number
-  sku: string
-  description: string
-  qty: number
-  madeToOrder: boolean
+export interface FulfilmentLine extends Pick<SalesOrderLineView, 'id' | 'lineNo' | 'itemId' | 'sku' | 'description' | 'qty' | 'madeToOrder'> {
   /** Held at the counter, not sent to the warehouse yet. */
   held: number
   onPickList: number

@@ -98,6 +98,7 @@ const SAMPLE_SQL: Record<string, string> = {
   'warehouse-count-review': 'SELECT MIN(id) AS id FROM cycle_counts',
   'counter-quote': 'SELECT MIN(id) AS id FROM quotes',
   'counter-sales-order': 'SELECT MIN(id) AS id FROM sales_orders',
+  'handover-ticket': 'SELECT MIN(id) AS id FROM handover_tickets',
 }
 
 export class RouteSamples {

@@ -112,3 +112,15 @@ export function pdfTable(sheet: PdfSheet, columns: PdfColumn[]) {
   }
   return { row, rule, header, keepRoom }
 }
+
+/** Label and value pairs down the sheet (who, for whom, which job…); pairs without a value are left out. */
+export function pdfFacts(sheet: PdfSheet, facts: [string, string | null | undefined][]): void {
+  const { doc, width } = sheet
+  for (const [label, value] of facts) {
+    if (!value) continue
+    const y = doc.y
+    doc.font('bold').fontSize(9).fillColor(SOFT).text(label, MARGIN, y, { width: 80 })
+    doc.font('body').fontSize(10).fillColor(INK).text(value, MARGIN + 84, y, { width: width - 84 })
+  }
+  doc.y += 10
+}

@@ -4,7 +4,7 @@
 import { formatMoney } from '../../../shared/money.js'
 import type { CompanyProfile } from '../../../shared/schemas/purchasing.js'
 import type { QuoteDetail } from '../../../shared/schemas/quotes.js'
-import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn, type PdfLogo } from '../exports/pdfSheet.js'
+import { INK, MARGIN, openPdfSheet, pdfFacts, pdfTable, SOFT, type PdfColumn, type PdfLogo } from '../exports/pdfSheet.js'
 
 export { PDF_TYPE } from '../exports/pdfSheet.js'
 
@@ -23,20 +23,14 @@ export function quotePdf(quote: QuoteDetail, company: CompanyProfile, logo?: Pdf
   doc.font('bold').fontSize(11).text(company.legalName || '—')
   doc.font('body').fontSize(9).fillColor(SOFT).text([company.billToAddress?.replace(/\n/g, ', '), company.phone, company.email].filter(Boolean).join(' · '))
   doc.moveDown(0.8)
-  const facts: [string, string | null][] = [
+  pdfFacts(sheet, [
     ['For', [quote.customerName, quote.contactName].filter(Boolean).join(', ')],
     ['Job', quote.jobName],
     ['Quoted on', quote.quotedOn],
     ['Valid until', quote.validUntil],
     ['From', quote.warehouseCode],
     ['Price level', quote.priceLevelCode],
-  ]
-  for (const [label, value] of facts.filter(([, v]) => v)) {
-    const y = doc.y
-    doc.font('bold').fontSize(9).fillColor(SOFT).text(label, MARGIN, y, { width: 80 })
-    doc.font('body').fontSize(10).fillColor(INK).text(value!, MARGIN + 84, y, { width: width - 84 })
-  }
-  doc.y += 10
+  ])
 
   const columns: PdfColumn[] = [
     { header: '#', width: 22, align: 'left' },

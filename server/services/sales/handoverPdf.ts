@@ -5,7 +5,7 @@ import type { DataSource } from 'typeorm'
 import type { HandlingCaution } from '../../../shared/picking/handling.js'
 import type { TicketDetail } from '../../../shared/schemas/handover.js'
 import { companyLogo, companyProfile } from '../companyProfile.js'
-import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
+import { INK, MARGIN, openPdfSheet, pdfFacts, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
 import { ticketDetail, ticketSignature } from './handoverRead.js'
 
 export { PDF_TYPE } from '../exports/pdfSheet.js'
@@ -36,7 +36,7 @@ export function ticketPdf(ticket: TicketDetail, companyName: string, signature: 
   doc.font('bold').fontSize(18).fillColor(INK).text(title)
   doc.font('bold').fontSize(11).text(companyName || '—')
   doc.moveDown(0.8)
-  const facts: [string, string | null][] = [
+  pdfFacts(sheet, [
     ['Sales order', ticket.orderNumber],
     ['For', ticket.customerName],
     ['Job', ticket.jobName],
@@ -44,13 +44,7 @@ export function ticketPdf(ticket: TicketDetail, companyName: string, signature: 
     ['Deliver to', ticket.deliverTo],
     ['Note', ticket.note],
     ['Made', `${ticket.createdAt.slice(0, 10)}${ticket.createdBy ? ` by ${ticket.createdBy}` : ''}`],
-  ]
-  for (const [label, value] of facts.filter(([, v]) => v)) {
-    const y = doc.y
-    doc.font('bold').fontSize(9).fillColor(SOFT).text(label, MARGIN, y, { width: 80 })
-    doc.font('body').fontSize(10).fillColor(INK).text(value!, MARGIN + 84, y, { width: width - 84 })
-  }
-  doc.y += 10
+  ])
   const columns: PdfColumn[] = [
     { header: '#', width: 22, align: 'left' },
     { header: 'SKU', width: 90, align: 'left' },

@@ -148,7 +148,7 @@ export default {
   order: {
     title: 'Sales order {number}',
     fromQuote: 'From quote {number}',
-    status: { booked: 'Booked', ready: 'Ready', handed_over: 'Handed over', cancelled: 'Cancelled' },
+    status: { booked: 'Booked', ready: 'Waiting at the counter', handed_over: 'Handed over', cancelled: 'Cancelled' },
     lines: 'Lines',
     held: 'Held',
     picked: 'Picked',

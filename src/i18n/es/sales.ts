@@ -148,7 +148,7 @@ export default {
   order: {
     title: 'Pedido de venta {number}',
     fromQuote: 'De la cotización {number}',
-    status: { booked: 'Registrado', ready: 'Listo', handed_over: 'Entregado', cancelled: 'Anulado' },
+    status: { booked: 'Registrado', ready: 'En espera en mostrador', handed_over: 'Entregado', cancelled: 'Anulado' },
     lines: 'Líneas',
     held: 'Reservado',
     picked: 'Preparado',

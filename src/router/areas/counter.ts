@@ -90,4 +90,11 @@ export const counterRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/counter/SalesOrderView.vue'),
     meta: { ...counter, title: 'sales.quotes.orderNumber' },
   },
+  // Handover tickets: made at the counter, checked and signed at the counter or at dispatch, read by viewers.
+  {
+    path: '/counter/tickets/:id(\\d+)',
+    name: 'handover-ticket',
+    component: () => import('@/views/sales/HandoverTicketView.vue'),
+    meta: { area: 'counter', touch: true, roles: ['admin', 'counter', 'warehouse', 'viewer'], title: 'handover.ticket.title' },
+  },
 ]

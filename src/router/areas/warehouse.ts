@@ -8,6 +8,13 @@ export const warehouseRoutes: RouteRecordRaw[] = [
     component: () => import('@/views/warehouse/WarehouseHomeView.vue'),
     meta: { area: 'warehouse', touch: true, roles: AREA_ROLES.warehouse, title: 'shell.areas.warehouse' },
   },
+  // Handover tickets at dispatch (the counter and viewers see them too).
+  {
+    path: '/warehouse/tickets',
+    name: 'handover-tickets',
+    component: () => import('@/views/sales/HandoverTicketsView.vue'),
+    meta: { area: 'warehouse', touch: true, roles: ['admin', 'counter', 'warehouse', 'viewer'], title: 'handover.tickets.title' },
+  },
   // The handheld pick screen, full screen for phones and tablets.
   {
     path: '/warehouse/pick/:id(\\d+)',

@@ -13,7 +13,7 @@ import { createDataSource } from '../../server/db/dataSource.js'
 import { commitImport } from '../../server/services/imports/dataImports.js'
 import { openingStockImport } from '../../server/services/imports/openingStockImport.js'
 import { prepareEnvironment } from '../environment.js'
-import { median, timed } from './stats.js'
+import { median, withPeak } from './stats.js'
 
 export const GO_LIVE_DATABASE = 'lumenyard_bench_golive'
 const SKUS = 20_000
@@ -82,20 +82,6 @@ async function bareBulkInsert(ds: DataSource, rows: number): Promise<void> {
       )
     }
   })
-}
-
-/** Runs work while sampling this process's resident memory; answers its time and the peak above the start. */
-async function withPeak<T>(work: () => Promise<T>): Promise<{ ms: number; peakMb: number }> {
-  const start = process.memoryUsage().rss
-  let peak = start
-  const timer = setInterval(() => { peak = Math.max(peak, process.memoryUsage().rss) }, 20)
-  try {
-    const { ms } = await timed(work)
-    peak = Math.max(peak, process.memoryUsage().rss)
-    return { ms, peakMb: (peak - start) / 1048576 }
-  } finally {
-    clearInterval(timer)
-  }
 }
 
 export async function measureGoLive(ds: DataSource, rounds: number, log: (line: string) => void): Promise<GoLiveTimes> {

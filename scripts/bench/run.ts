@@ -3,7 +3,7 @@
 // machine, and the whole run is written as JSON to .data/bench/. Not part of npm test.
 //
 //   npm run bench                        everything (about 15 minutes; the large data set is built once, ~1 min)
-//   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff compute levels grid signin reorder golive
+//   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff compute levels grid signin reorder golive everythingout
 //   npm run bench -- --sizes=demo        one data set (demo or large)
 //   npm run bench -- --rounds=5 --seconds=10 --rebuild --cpu-prof
 //   npm run bench -- --reuse-build        keep the client built by the last run (when only the server changed)
@@ -18,12 +18,13 @@ import { firstGridRows, launchChromium, pageScripts } from './browser.js'
 import { BENCH_PASSWORD, makeFixtures, openDatabase, SCANNERS, SIZES, WRITERS, type BenchDatabase, type Fixtures, type Size } from './data.js'
 import { runLoad, signIn, type LoadResult, type LoadSpec } from './http.js'
 import { measureGoLive, openGoLiveDatabase } from './goLive.js'
+import { measureEverythingOut, openEverythingOutDatabase } from './everythingOut.js'
 import { measureReorder } from './reorder.js'
 import { measureTakeoffCompute } from './takeoffCompute.js'
 import { startNodeServer, type BenchServer } from './servers.js'
 import { describeMachine, loadAverage, machine, mariadbPid, median, processCpuMs, timed } from './stats.js'
 
-const MEASURES = ['scan', 'issue', 'pick', 'takeoff', 'compute', 'levels', 'grid', 'signin', 'reorder', 'golive'] as const
+const MEASURES = ['scan', 'issue', 'pick', 'takeoff', 'compute', 'levels', 'grid', 'signin', 'reorder', 'golive', 'everythingout'] as const
 type MeasureName = (typeof MEASURES)[number]
 
 const { values: opts } = parseArgs({
@@ -279,6 +280,25 @@ async function goLiveMeasure(stops: (() => Promise<void>)[]): Promise<void> {
   }
 }
 
+async function everythingOutMeasure(stops: (() => Promise<void>)[]): Promise<void> {
+  log('everything-out zip over 100,000 and 1,000,000 moves, against a bare streamed write of the moves')
+  const { ds, stopServer } = await openEverythingOutDatabase()
+  stops.push(stopServer)
+  try {
+    for (const t of await measureEverythingOut(ds, ROUNDS, log)) {
+      const [lm, fm] = [median(t.exportMs), median(t.floorMs)]
+      record({
+        measure: `everything out, ${t.moves.toLocaleString('en')} moves`, size: '—',
+        lumenyard: { median: lm, runs: t.exportMs, unit: 'ms', note: `peak +${median(t.exportPeakMb).toFixed(0)} MB, zip ${t.zipMb.toFixed(1)} MB` },
+        floor: { median: fm, runs: t.floorMs, unit: 'ms', note: `peak +${median(t.floorPeakMb).toFixed(0)} MB, ${t.floorMb.toFixed(1)} MB` },
+        ratio: lm / fm, target: 'memory flat as moves grow (reported, not judged)', holds: null, loadAverage: loadAverage(),
+      })
+    }
+  } finally {
+    await ds.destroy()
+  }
+}
+
 /** The takeoff computation itself, in Node, no database or HTTP: what one compute request costs the worker. */
 function computeMeasure(): void {
   log('takeoff compute of a 200-wall job, in Node')
@@ -307,7 +327,9 @@ async function main(): Promise<void> {
   const stops: (() => Promise<void>)[] = []
   try {
     if (only.has('golive')) await goLiveMeasure(stops)
-    for (const size of sizes) {
+    if (only.has('everythingout')) await everythingOutMeasure(stops)
+    const perSize = needsPages || only.has('levels') || only.has('reorder')
+    for (const size of perSize ? sizes : []) {
       const db = await openDatabase(size, { rebuild: opts.rebuild! }, log)
       stops.push(() => db.prepared.stop())
       try {

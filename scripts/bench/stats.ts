@@ -16,6 +16,20 @@ export async function timed<T>(work: () => Promise<T>): Promise<{ ms: number; re
   return { ms: Number(process.hrtime.bigint() - started) / 1e6, result }
 }
 
+/** Runs work while sampling this process's resident memory; answers its time and the peak above the start. */
+export async function withPeak<T>(work: () => Promise<T>): Promise<{ ms: number; peakMb: number }> {
+  const start = process.memoryUsage().rss
+  let peak = start
+  const timer = setInterval(() => { peak = Math.max(peak, process.memoryUsage().rss) }, 20)
+  try {
+    const { ms } = await timed(work)
+    peak = Math.max(peak, process.memoryUsage().rss)
+    return { ms, peakMb: (peak - start) / 1048576 }
+  } finally {
+    clearInterval(timer)
+  }
+}
+
 export interface Machine {
   nproc: number
   cpu: string

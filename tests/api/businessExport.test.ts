@@ -9,6 +9,8 @@ import { adminSql, dataRoot } from '../../scripts/embeddedMariadb.js'
 import { loadConfig } from '../../server/config.js'
 import { createDataSource } from '../../server/db/dataSource.js'
 import { loadDemoScenario } from '../../server/demo/index.js'
+import { EXPORT_PARTS } from '../../server/services/exports/businessExport.js'
+import type { ReorderLine } from '../../shared/schemas/reorder.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { download, loadWorkbook, unzipEntries } from '../support/downloads.js'
 
@@ -79,7 +81,8 @@ describe('everything out', () => {
     console.log(`everything out: ${(res.body as Buffer).length} bytes, ${files.size} files`)
     // One file per kind of record the business holds (common practice: a full data export covers every record type).
     for (const f of ['items', 'warehouses', 'bins', 'lots', 'stock-by-bin', 'moves', 'accounts', 'jobs', 'vendors', 'vendor-items',
-      'open-purchase-orders', 'purchase-orders', 'purchase-order-lines', 'receipts', 'quotes', 'quote-lines', 'users', 'settings']) {
+      'open-purchase-orders', 'purchase-orders', 'purchase-order-lines', 'receipts', 'quotes', 'quote-lines', 'users', 'settings',
+      'takeoffs', 'takeoff-walls', 'takeoff-loose-lines', 'bills', 'bill-lines', 'bill-cautions', 'sales-orders', 'sales-order-lines', 'payments']) {
       expect(files.has(`${f}.xlsx`), f).toBe(true)
     }
     const readme = files.get('README.txt')!.toString('utf8')
@@ -97,6 +100,36 @@ describe('everything out', () => {
     expect((await sheetRows('items.xlsx')).rows.length).toBe(await count('items'))
     expect((await sheetRows('users.xlsx')).rows.length).toBe(await count('users'))
     expect((await sheetRows('purchase-order-lines.xlsx')).rows.length).toBe(await count('purchase_order_lines'))
+    for (const [file, table] of [['bills', 'boms'], ['bill-lines', 'bom_lines'], ['takeoffs', 'takeoffs'], ['sales-orders', 'sales_orders'],
+      ['sales-order-lines', 'sales_order_lines'], ['payments', 'payments'], ['transfers', 'transfer_lines'], ['counts', 'count_lines']] as const) {
+      expect((await sheetRows(`${file}.xlsx`)).rows.length, file).toBe(await count(table))
+    }
+    expect(await count('takeoffs')).toBeGreaterThan(0)
+    expect(await count('bom_lines')).toBeGreaterThan(0)
+    // Walls, loose lines and cautions are read out of the saved JSON here in the test (JSON.parse), one row each.
+    const takeoffs: { id: number; input_json: string }[] = await src.ds.query('SELECT id, input_json FROM takeoffs ORDER BY id')
+    const walls = takeoffs.flatMap((t) => (JSON.parse(t.input_json).walls as { name: string; wetArea: boolean }[]).map((w) => ({ takeoff: t.id, ...w })))
+    const loose = takeoffs.flatMap((t) => (JSON.parse(t.input_json).looseLines as { sku: string; quantity: number }[]).map((l) => ({ takeoff: t.id, ...l })))
+    expect(walls.length).toBeGreaterThan(0)
+    const wallRows = (await sheetRows('takeoff-walls.xlsx')).rows
+    expect(wallRows.map((r) => [r.Takeoff, r.Name, r['Wet area']])).toEqual(walls.map((w) => [w.takeoff, w.name, w.wetArea ? 'yes' : 'no']))
+    expect((await sheetRows('takeoff-loose-lines.xlsx')).rows.map((r) => [r.Takeoff, r.SKU, r.Quantity])).toEqual(loose.map((l) => [l.takeoff, l.sku, l.quantity]))
+    const boms: { id: number; cautions_json: string | null }[] = await src.ds.query('SELECT id, cautions_json FROM boms ORDER BY id')
+    const cautions = boms.flatMap((b) => (JSON.parse(b.cautions_json ?? '[]') as { message: string }[]).map((c) => [b.id, c.message]))
+    expect(cautions.length).toBeGreaterThan(0)
+    expect((await sheetRows('bill-cautions.xlsx')).rows.map((r) => [r.Bill, r.Text])).toEqual(cautions)
+    // Each bill line keeps its bill's revision.
+    const lineRevisions: { bom_id: number; line_no: number; revision: number; qty: number }[] = await src.ds.query(
+      'SELECT l.bom_id, l.line_no, b.revision, l.qty FROM bom_lines l JOIN boms b ON b.id = l.bom_id ORDER BY l.bom_id, l.line_no')
+    expect((await sheetRows('bill-lines.xlsx')).rows.map((r) => [r.Bill, r.Line, r.Revision, r.Quantity]))
+      .toEqual(lineRevisions.map((l) => [l.bom_id, l.line_no, l.revision, l.qty]))
+    // Payments carry no card number: no run of 13 to 19 digits passes the Luhn check (source: ISO/IEC 7812-1,
+    // the Luhn check digit of payment card numbers).
+    const luhn = (d: string) => [...d].reverse().reduce((sum, ch, i) => sum + (i % 2 ? [0, 2, 4, 6, 8, 1, 3, 5, 7, 9][Number(ch)] : Number(ch)), 0) % 10 === 0
+    for (const t of (await sheetRows('payments.xlsx')).texts) {
+      for (const run of t.replace(/[ -]/g, '').match(/\d{13,19}/g) ?? []) expect(luhn(run), `payments: ${run}`).toBe(false)
+    }
+    expect((await sheetRows('payments.xlsx')).headers.filter((h) => /card|pan|cvc|cvv|expir/i.test(h))).toEqual([])
 
     // No secrets: no bcrypt hash (source: OpenBSD bcrypt's modular crypt format, $2a$/$2b$/$2y$ and a two-digit
     // cost), no session secret, no database password, and no column that could hold them.
@@ -116,7 +149,21 @@ describe('everything out', () => {
     expect(audits.length).toBe(auditsBefore + 1)
     console.log(`everything out took ${JSON.parse(audits.at(-1)!.detail).ms} ms on the server`)
     expect(JSON.parse(audits.at(-1)!.detail)).toMatchObject({ finished: true, rows: { moves: await count('stock_moves') } })
-  }, 300_000)
+  }, 900_000)
+
+  it('has a file for every table the business records, or names the table and why it is left out', async () => {
+    expect(files, 'the download test ran first').toBeDefined()
+    // The tables come from the database itself; a file covers a table its query reads.
+    const tables: { name: string }[] = await src.ds.query(
+      "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' ORDER BY table_name")
+    expect(tables.length).toBeGreaterThan(40)
+    const read = new Set(EXPORT_PARTS.flatMap((p) => [...p.sql.matchAll(/\b(?:FROM|JOIN)\s+([a-z_]+)/gi)].map((m) => m[1])))
+    const readme = files.get('README.txt')!.toString('utf8')
+    const leftOut = readme.slice(readme.indexOf('Left out on purpose'))
+    const missing = tables.map((t) => t.name).filter((t) => !read.has(t) && !leftOut.includes(`  - ${t}: `))
+    // common practice: a full data export covers every record type, and says what it leaves out.
+    expect(missing).toEqual([])
+  })
 
   it('refuses other roles', async () => {
     for (const role of ['counter', 'buyer', 'warehouse', 'viewer'] as const) {
@@ -140,7 +187,8 @@ describe('everything out', () => {
     const admin = await dst.as('admin')
     const items = await admin.post('/api/items/import/commit').set(CSRF).attach('file', files.get('items.xlsx')!, 'items.xlsx')
     expect(items.status, JSON.stringify(items.body).slice(0, 400)).toBe(200)
-    for (const [kind, file] of [['opening_stock', 'stock-by-bin.xlsx'], ['accounts', 'accounts.xlsx']] as const) {
+    for (const [kind, file] of [['opening_stock', 'stock-by-bin.xlsx'], ['accounts', 'accounts.xlsx'], ['vendor_items', 'vendor-items.xlsx'],
+      ['purchase_orders', 'open-purchase-orders.xlsx'], ['usage_history', 'usage-history.xlsx']] as const) {
       const done = await admin.post(`/api/imports/${kind}/commit`).set(CSRF).attach('file', files.get(file)!, file)
       expect(done.status, `${kind}: ${JSON.stringify(done.body).slice(0, 600)}`).toBe(200)
       expect(done.body.errorRows).toBe(0)
@@ -172,5 +220,47 @@ describe('everything out', () => {
        JOIN stock_balances b ON b.item_id = m.item_id AND b.bin_id = m.bin_id AND b.lot_key = COALESCE(m.lot_id, 0)
        GROUP BY m.item_id, m.bin_id, m.lot_id HAVING moved <> on_hand`)
     expect(gaps).toEqual([])
+
+    // The same accounts, field by field.
+    const accounts = (h: ApiHarness) => h.ds.query(
+      `SELECT c.code, c.name, c.contact_name, c.email, c.phone, c.address, c.notes, pl.code AS level, t.exempt_certificate, t.exempt_until
+         FROM customers c LEFT JOIN customer_terms t ON t.customer_id = c.id LEFT JOIN price_levels pl ON pl.id = t.price_level_id ORDER BY c.code`)
+    expect(await accounts(dst)).toEqual(await accounts(src))
+    // The same vendor items: vendor, item, vendor SKU, pack, minimum, cost, preferred, and the lead time the
+    // reorder figures read (the item's, else its vendor's).
+    const vendorItems = (h: ApiHarness) => h.ds.query(
+      `SELECT v.code AS vendor, i.sku, vi.vendor_sku, vi.pack_qty, vi.min_order_qty, vi.unit_cost, vi.preferred, COALESCE(vi.lead_time_days, v.lead_time_days) AS lead
+         FROM vendor_items vi JOIN vendors v ON v.id = vi.vendor_id JOIN items i ON i.id = vi.item_id ORDER BY v.code, i.sku`)
+    const srcVendorItems = await vendorItems(src)
+    expect(srcVendorItems.length).toBeGreaterThan(10)
+    expect(await vendorItems(dst)).toEqual(srcVendorItems)
+    // The same open purchase orders: number, vendor, warehouse, and each line's item, ordered, received and cost.
+    const openOrders = (h: ApiHarness) => h.ds.query(
+      `SELECT o.number, v.code AS vendor, w.code AS warehouse, i.sku, l.qty_ordered, l.qty_received, l.unit_cost
+         FROM purchase_orders o JOIN purchase_order_lines l ON l.po_id = o.id JOIN vendors v ON v.id = o.vendor_id JOIN warehouses w ON w.id = o.warehouse_id
+         JOIN items i ON i.id = l.item_id WHERE o.status IN ('approved', 'sent', 'partly_received') ORDER BY o.number, i.sku, l.qty_ordered`)
+    const srcOrders = await openOrders(src)
+    expect(srcOrders.length).toBeGreaterThan(0)
+    expect(await openOrders(dst)).toEqual(srcOrders)
+    // On order per item and warehouse: ordered less received on open orders (common practice: the on-order
+    // term of the inventory position).
+    const onOrder = (h: ApiHarness) => h.ds.query(
+      `SELECT i.sku, w.code AS warehouse, SUM(l.qty_ordered - l.qty_received) AS qty FROM purchase_orders o JOIN purchase_order_lines l ON l.po_id = o.id
+         JOIN items i ON i.id = l.item_id JOIN warehouses w ON w.id = o.warehouse_id WHERE o.status IN ('approved', 'sent', 'partly_received')
+        GROUP BY i.sku, w.code HAVING qty > 0 ORDER BY i.sku, w.code`)
+    expect(await onOrder(dst)).toEqual(await onOrder(src))
+
+    // The same reorder figures per line: stock, on order, use per day and its spread, ABC class.
+    const reorder = async (h: ApiHarness) => {
+      const res = await (await h.as('buyer')).get('/api/reorder/suggestions')
+      expect(res.status).toBe(200)
+      return (res.body.lines as ReorderLine[]).map((l) => ({
+        line: `${l.sku}@${l.warehouseCode}`, onHand: l.onHand, onOrder: l.onOrder, meanDaily: l.meanDaily, sdDaily: l.sdDaily,
+        lastUsed: l.lastUsedDate, abc: l.abcClass, vendor: l.vendorCode,
+      })).sort((a, b) => a.line.localeCompare(b.line))
+    }
+    const srcReorder = await reorder(src)
+    expect(srcReorder.filter((l) => l.meanDaily > 0).length).toBeGreaterThan(10)
+    expect(await reorder(dst)).toEqual(srcReorder)
   }, 300_000)
 })

@@ -18,37 +18,17 @@ import { USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
 import { VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
 import type { ImportSpec } from '../imports/importTypes.js'
 import { openSheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
-
-type Raw = Record<string, unknown>
-
-interface PartColumn {
-  header: string
-  kind: CellKind
-  /** What the column holds, for the README. */
-  about: string
-  value: (row: Raw) => CellInput
-  places?: number
-}
-
-export interface ExportPart {
-  /** The file's name in the zip (without .xlsx) and its sheet's tab. */
-  file: string
-  sheet: string
-  about: string
-  columns: PartColumn[]
-  /** Rows in a stable order; streamed from the database. */
-  sql: string
-}
-
-const v = (key: string) => (row: Raw) => row[key] as CellInput
-const col = (header: string, kind: CellKind, key: string, about: string, places?: number): PartColumn => ({ header, kind, about, value: v(key), places })
+import { DAY, col, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
+import { LEFT_OUT, RECORD_PARTS } from './recordParts.js'
+import { OPEN_PO_STATUSES } from '../../entities/PurchaseOrder.js'
+import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
 
 /** The columns of an import, in its own order and headers: the exported file reads back in. */
 function importColumns(spec: ImportSpec, kinds: Record<string, { kind: CellKind; key: string; about: string; places?: number }>): PartColumn[] {
   return spec.columns.filter((c) => kinds[c.key]).map((c) => ({ header: c.header, ...kinds[c.key], value: v(kinds[c.key].key) }))
 }
 
-const DAY = (expr: string) => `DATE_FORMAT(${expr}, '%Y-%m-%d')`
+export type { ExportPart } from './exportParts.js'
 
 export const EXPORT_PARTS: readonly ExportPart[] = [
   {
@@ -168,14 +148,20 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
   },
   {
     file: 'usage-history', sheet: 'Usage history',
-    about: 'Past usage brought in by the usage-history import (kept beside real issues for reorder points), in its columns.',
+    about: 'Usage per item, warehouse and day: the issues and picks of the ledger added to any usage history brought in earlier, in the columns of the usage-history import. Read back into another Lumenyard, its reorder points start from the same use.',
     columns: importColumns(USAGE_HISTORY_SPEC, {
       sku: { kind: 'text', key: 'sku', about: 'The item.' },
       warehouse: { kind: 'text', key: 'warehouse', about: 'The warehouse code.' },
       day: { kind: 'text', key: 'day', about: 'The day, YYYY-MM-DD.' },
-      quantity: { kind: 'integer', key: 'qty', about: 'Stock units used that day.' },
+      quantity: { kind: 'integer', key: 'qty', about: 'Stock units used that day (issues and picks less what was put back the same way).' },
     }),
-    sql: `SELECT i.sku, w.code AS warehouse, ${DAY('h.day')} AS day, h.qty FROM usage_history h JOIN items i ON i.id = h.item_id JOIN warehouses w ON w.id = h.warehouse_id ORDER BY h.day, i.sku, w.code`,
+    // The same sums the reorder statistics read (usageQueries.ts): issues and picks by day, plus imported history.
+    sql: `SELECT i.sku, w.code AS warehouse, ${DAY('u.day')} AS day, SUM(u.qty) AS qty FROM (
+            SELECT m.item_id, m.warehouse_id, DATE(m.at) AS day, -SUM(m.qty) AS qty FROM stock_moves m
+             WHERE m.move_type IN (${USAGE_MOVE_TYPES.map((t) => `'${t}'`).join(', ')}) GROUP BY m.item_id, m.warehouse_id, DATE(m.at)
+            UNION ALL SELECT h.item_id, h.warehouse_id, h.day, h.qty FROM usage_history h) u
+          JOIN items i ON i.id = u.item_id JOIN warehouses w ON w.id = u.warehouse_id
+          GROUP BY u.day, i.sku, w.code HAVING qty <> 0 ORDER BY u.day, i.sku, w.code`,
   },
   {
     file: 'price-levels', sheet: 'Price levels',
@@ -252,15 +238,15 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       packQty: { kind: 'integer', key: 'pack_qty', about: 'Stock units in one of the vendor\'s packs.' },
       minOrder: { kind: 'integer', key: 'min_order_qty', about: 'The fewest packs the vendor takes an order for.' },
       unitCost: { kind: 'cost', key: 'unit_cost', about: 'Cost of one stock unit from this vendor.' },
-      leadTimeDays: { kind: 'integer', key: 'lead_time_days', about: 'Days from order to arrival for this item (blank: the vendor\'s).' },
+      leadTimeDays: { kind: 'integer', key: 'lead_time_days', about: 'Days from order to arrival for this item: its own, else the vendor\'s usual (what reorder points use).' },
       preferred: { kind: 'boolean', key: 'preferred', about: 'yes: the vendor reorder suggestions use for this item.' },
     }),
-    sql: `SELECT v.code AS vendor, v.name AS vendor_name, i.sku, vi.vendor_sku, vi.pack_qty, vi.min_order_qty, vi.unit_cost, vi.lead_time_days, vi.preferred
+    sql: `SELECT v.code AS vendor, v.name AS vendor_name, i.sku, vi.vendor_sku, vi.pack_qty, vi.min_order_qty, vi.unit_cost, COALESCE(vi.lead_time_days, v.lead_time_days) AS lead_time_days, vi.preferred
           FROM vendor_items vi JOIN vendors v ON v.id = vi.vendor_id JOIN items i ON i.id = vi.item_id ORDER BY v.code, i.sku`,
   },
   {
     file: 'open-purchase-orders', sheet: 'Open purchase orders',
-    about: 'Lines of the orders sent to vendors and not yet fully received, in the columns of the open purchase orders import.',
+    about: 'Lines of the orders approved or sent to vendors and not yet fully received (what is on order), in the columns of the open purchase orders import.',
     columns: importColumns(PURCHASE_ORDERS_SPEC, {
       number: { kind: 'text', key: 'number', about: 'The order number.' },
       vendor: { kind: 'text', key: 'vendor', about: 'The vendor code.' },
@@ -272,10 +258,10 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       received: { kind: 'integer', key: 'qty_received', about: 'Stock units received so far.' },
       unitCost: { kind: 'cost', key: 'unit_cost', about: 'Cost agreed per stock unit.' },
     }),
-    sql: `SELECT o.number, v.code AS vendor, w.code AS warehouse, ${DAY('COALESCE(o.sent_at, o.created_at)')} AS ordered_on, ${DAY('o.expected_date')} AS expected,
+    sql: `SELECT o.number, v.code AS vendor, w.code AS warehouse, ${DAY('COALESCE(o.sent_at, o.approved_at, o.created_at)')} AS ordered_on, ${DAY('o.expected_date')} AS expected,
             i.sku, l.qty_ordered, l.qty_received, l.unit_cost
           FROM purchase_orders o JOIN purchase_order_lines l ON l.po_id = o.id JOIN vendors v ON v.id = o.vendor_id JOIN warehouses w ON w.id = o.warehouse_id JOIN items i ON i.id = l.item_id
-          WHERE o.status IN ('sent', 'partly_received') ORDER BY o.number, l.line_no`,
+          WHERE o.status IN (${OPEN_PO_STATUSES.map((st) => `'${st}'`).join(', ')}) ORDER BY o.number, l.line_no`,
   },
   {
     file: 'purchase-orders', sheet: 'Purchase orders',
@@ -371,6 +357,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     sql: `SELECT q.number, q.revision, l.line_no, i.sku, l.description, l.qty, l.packs, l.unit_price, l.extension
           FROM quote_lines l JOIN quotes q ON q.id = l.quote_id LEFT JOIN items i ON i.id = l.item_id ORDER BY q.number, q.revision, l.line_no`,
   },
+  ...RECORD_PARTS,
   {
     file: 'users', sheet: 'Users',
     about: 'People who sign in, with their roles. No passwords or sign-in sessions are ever exported.',
@@ -430,6 +417,9 @@ export function readmeText(parts: readonly ExportPart[], at: Date): string {
     for (const c of p.columns) lines.push(`  - ${c.header}: ${c.about}`)
     lines.push('')
   }
+  lines.push('Left out on purpose (no file of their own):')
+  for (const l of LEFT_OUT) lines.push(`  - ${l.table}: ${l.why}.`)
+  lines.push('')
   return lines.join('\r\n')
 }
 

@@ -54,7 +54,7 @@ export default {
   },
   everythingOut: {
     title: 'Llevarse todos los datos',
-    intro: 'Descargue todo el negocio en un solo zip: una hoja de cálculo por cada tipo de registro (artículos, existencias por ubicación y lote con su costo, el libro de movimientos, cuentas, obras, proveedores y lo que le venden, órdenes de compra, recepciones, cotizaciones, personas sin sus contraseñas, ajustes) y un README que explica cada columna. Los archivos de existencias, cuentas y órdenes abiertas usan las columnas de las importaciones de esta página, así que pueden volver a importarse. Solo los administradores pueden descargarlo, y cada descarga queda en el registro de auditoría.',
+    intro: 'Descargue todo el negocio en un solo zip: una hoja de cálculo por cada tipo de registro (artículos, existencias por ubicación y lote con su costo, el libro de movimientos, el consumo por día, cuentas, obras, cálculos de materiales con sus muros y listas de materiales, cotizaciones, pedidos de venta y pagos, proveedores y lo que le venden, órdenes de compra, recepciones, traslados, conteos, personas sin sus contraseñas, ajustes, el registro de auditoría) y un README que explica cada columna y nombra lo que queda fuera. Los archivos de existencias, consumo, cuentas, artículos de proveedor y órdenes abiertas usan las columnas de las importaciones de esta página, así que pueden volver a importarse. Solo los administradores pueden descargarlo, y cada descarga queda en el registro de auditoría.',
     download: 'Descargar todo (.zip)',
     preparing: 'Preparando la descarga',
     received: 'Preparando la descarga: {kb} KB recibidos hasta ahora.',

@@ -5,7 +5,8 @@
 // size: memory that stays flat from 100,000 to 1,000,000 moves shows the ledger is never held. Rounds
 // alternate the two sides. In a database of its own on the test MariaDB instance. Not part of npm test.
 //
-//   tsx --tsconfig tsconfig.server.json scripts/bench/everythingOut.ts [--rounds=1]   (or npm run bench -- --only=everythingout)
+//   tsx --tsconfig tsconfig.server.json scripts/bench/everythingOut.ts [--rounds=1] [--moves=100000,1000000]
+//   (or npm run bench -- --only=everythingout [--moves=…])
 import { Writable } from 'node:stream'
 import { parseArgs } from 'node:util'
 import ExcelJS from 'exceljs'
@@ -88,10 +89,10 @@ async function bareStreamedWrite(sink: Writable): Promise<void> {
 
 let prepared: Awaited<ReturnType<typeof prepareEnvironment>> | null = null
 
-export async function measureEverythingOut(ds: DataSource, rounds: number, log: (line: string) => void): Promise<ExportSizeTimes[]> {
+export async function measureEverythingOut(ds: DataSource, rounds: number, log: (line: string) => void, sizes = LEDGER_SIZES): Promise<ExportSizeTimes[]> {
   await seedCatalog(ds)
   const out: ExportSizeTimes[] = []
-  for (const moves of LEDGER_SIZES) {
+  for (const moves of sizes) {
     await ledgerOf(ds, moves, log)
     const t: ExportSizeTimes = { moves, exportMs: [], floorMs: [], exportPeakMb: [], floorPeakMb: [], zipMb: 0, floorMb: 0 }
     for (let r = 0; r < rounds; r++) {
@@ -123,10 +124,10 @@ export async function openEverythingOutDatabase(): Promise<{ ds: DataSource; sto
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const { values } = parseArgs({ options: { rounds: { type: 'string', default: '1' } } })
+  const { values } = parseArgs({ options: { rounds: { type: 'string', default: '1' }, moves: { type: 'string', default: LEDGER_SIZES.join(',') } } })
   const { ds, stopServer } = await openEverythingOutDatabase()
   try {
-    await measureEverythingOut(ds, Number(values.rounds), (l) => console.log(l))
+    await measureEverythingOut(ds, Number(values.rounds), (l) => console.log(l), values.moves!.split(',').map(Number))
   } finally {
     await ds.destroy()
     await stopServer()

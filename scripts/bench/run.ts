@@ -6,6 +6,7 @@
 //   npm run bench -- --only=scan,issue   some measures: scan issue pick takeoff compute levels grid signin reorder golive everythingout
 //   npm run bench -- --sizes=demo        one data set (demo or large)
 //   npm run bench -- --rounds=5 --seconds=10 --rebuild --cpu-prof
+//   npm run bench -- --only=everythingout --moves=100000,1000000   the ledger sizes of the everything-out measure
 //   npm run bench -- --reuse-build        keep the client built by the last run (when only the server changed)
 import { spawnSync } from 'node:child_process'
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs'
@@ -18,7 +19,7 @@ import { firstGridRows, launchChromium, pageScripts } from './browser.js'
 import { BENCH_PASSWORD, makeFixtures, openDatabase, SCANNERS, SIZES, WRITERS, type BenchDatabase, type Fixtures, type Size } from './data.js'
 import { runLoad, signIn, type LoadResult, type LoadSpec } from './http.js'
 import { measureGoLive, openGoLiveDatabase } from './goLive.js'
-import { measureEverythingOut, openEverythingOutDatabase } from './everythingOut.js'
+import { LEDGER_SIZES, measureEverythingOut, openEverythingOutDatabase } from './everythingOut.js'
 import { measureReorder } from './reorder.js'
 import { measureTakeoffCompute } from './takeoffCompute.js'
 import { startNodeServer, type BenchServer } from './servers.js'
@@ -35,6 +36,7 @@ const { values: opts } = parseArgs({
     seconds: { type: 'string', default: '8' },
     rebuild: { type: 'boolean', default: false },
     'cpu-prof': { type: 'boolean', default: false },
+    moves: { type: 'string', default: LEDGER_SIZES.join(',') },
     'reuse-build': { type: 'boolean', default: false },
   },
 })
@@ -285,7 +287,7 @@ async function everythingOutMeasure(stops: (() => Promise<void>)[]): Promise<voi
   const { ds, stopServer } = await openEverythingOutDatabase()
   stops.push(stopServer)
   try {
-    for (const t of await measureEverythingOut(ds, ROUNDS, log)) {
+    for (const t of await measureEverythingOut(ds, ROUNDS, log, opts.moves!.split(',').map(Number))) {
       const [lm, fm] = [median(t.exportMs), median(t.floorMs)]
       record({
         measure: `everything out, ${t.moves.toLocaleString('en')} moves`, size: '—',

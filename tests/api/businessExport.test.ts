@@ -101,7 +101,7 @@ describe('everything out', () => {
     expect((await sheetRows('users.xlsx')).rows.length).toBe(await count('users'))
     expect((await sheetRows('purchase-order-lines.xlsx')).rows.length).toBe(await count('purchase_order_lines'))
     for (const [file, table] of [['bills', 'boms'], ['bill-lines', 'bom_lines'], ['takeoffs', 'takeoffs'], ['sales-orders', 'sales_orders'],
-      ['sales-order-lines', 'sales_order_lines'], ['payments', 'payments'], ['transfers', 'transfer_lines'], ['counts', 'count_lines']] as const) {
+      ['sales-order-lines', 'sales_order_lines'], ['payments', 'payments'], ['handovers', 'handover_ticket_lines'], ['returns', 'sales_return_lines'], ['account-credits', 'account_credits'], ['transfers', 'transfer_lines'], ['counts', 'count_lines']] as const) {
       expect((await sheetRows(`${file}.xlsx`)).rows.length, file).toBe(await count(table))
     }
     expect(await count('takeoffs')).toBeGreaterThan(0)

@@ -1,6 +1,6 @@
 // The files of the everything-out zip for what the business records beyond stock and purchasing: takeoffs
 // (their walls and loose lines, read out of the saved takeoff with JSON_TABLE so each wall is a row), bills
-// of materials with their revisions, lines and cautions, sales orders and payments, transfers, pick lists,
+// of materials with their revisions, lines and cautions, sales orders, payments, handovers, returns and credits, transfers, pick lists,
 // counts, reservations, reorder and price settings, imports, mail sent and the audit trail. Each is one
 // streamed query; nothing is gathered in memory. Tables left out on purpose are listed in LEFT_OUT.
 import { col, type ExportPart } from './exportParts.js'
@@ -172,13 +172,15 @@ export const RECORD_PARTS: readonly ExportPart[] = [
       col('Deposit percent', 'decimal', 'deposit_percent', 'Deposit asked on made-to-order lines.', 2),
       col('Deposit required', 'money', 'deposit_required', 'Deposit to take before ordering.'),
       col('Deposit paid', 'money', 'deposit_paid', 'Paid towards it.'),
+      col('Ready', 'datetime', 'ready_at', 'When everything stocked was picked (UTC).'),
+      col('Closed', 'datetime', 'closed_at', 'When every line was handed over or cancelled (UTC).'),
       col('Cancel reason', 'text', 'cancel_reason', 'Why it was cancelled.'),
       col('Cancelled', 'datetime', 'cancelled_at', 'UTC.'),
       col('By', 'text', 'username', 'Who booked it.'),
       col('Created', 'datetime', 'created_at', 'UTC.'),
     ],
     sql: `SELECT o.number, q.number AS quote, c.code AS account, j.name AS job, w.code AS warehouse, o.status, o.subtotal, o.tax_amount, o.total,
-            o.deposit_percent, o.deposit_required, o.deposit_paid, o.cancel_reason, o.cancelled_at, u.username, o.created_at
+            o.deposit_percent, o.deposit_required, o.deposit_paid, o.ready_at, o.closed_at, o.cancel_reason, o.cancelled_at, u.username, o.created_at
           FROM sales_orders o JOIN customers c ON c.id = o.customer_id JOIN warehouses w ON w.id = o.warehouse_id LEFT JOIN quotes q ON q.id = o.quote_id
           LEFT JOIN jobs j ON j.id = o.job_id LEFT JOIN users u ON u.id = o.created_by ORDER BY o.id`,
   },
@@ -198,11 +200,13 @@ export const RECORD_PARTS: readonly ExportPart[] = [
       col('Held', 'integer', 'qty_reserved', 'Stock units held for it.'),
       col('Picked', 'integer', 'qty_picked', 'Picked.'),
       col('Handed over', 'integer', 'qty_handed_over', 'Left the counter or the truck.'),
+      col('Backordered', 'integer', 'qty_backordered', 'Short when picked, waiting for stock.'),
+      col('Cancelled', 'integer', 'qty_cancelled', 'No longer to be supplied.'),
       col('Returned', 'integer', 'qty_returned', 'Brought back.'),
       col('Purchase order', 'text', 'po_number', 'The vendor order raised for a made-to-order line.'),
     ],
     sql: `SELECT o.number, l.line_no, i.sku, l.description, l.qty, l.unit_price, l.extension, l.tax, l.made_to_order, l.qty_reserved, l.qty_picked,
-            l.qty_handed_over, l.qty_returned, po.number AS po_number
+            l.qty_handed_over, l.qty_backordered, l.qty_cancelled, l.qty_returned, po.number AS po_number
           FROM sales_order_lines l JOIN sales_orders o ON o.id = l.sales_order_id JOIN items i ON i.id = l.item_id
           LEFT JOIN purchase_order_lines pl ON pl.id = l.po_line_id LEFT JOIN purchase_orders po ON po.id = pl.po_id ORDER BY o.id, l.line_no`,
   },
@@ -222,6 +226,69 @@ export const RECORD_PARTS: readonly ExportPart[] = [
     ],
     sql: `SELECT o.number, p.method, p.amount, p.status, p.refunded_amount, p.reference, p.provider_event_id, u.username, p.recorded_at
           FROM payments p JOIN sales_orders o ON o.id = p.sales_order_id LEFT JOIN users u ON u.id = p.recorded_by ORDER BY p.id`,
+  },
+  {
+    file: 'handovers', sheet: 'Handovers',
+    about: 'What left over the counter or on the truck against sales orders, one row per ticket line, with who signed for it. The signature images stay in Lumenyard (printed on each ticket\'s PDF).',
+    columns: [
+      col('Ticket', 'text', 'number', 'The handover ticket\'s number.'),
+      col('Order number', 'text', 'so_number', 'The sales order.'),
+      col('Kind', 'text', 'kind', 'pickup or delivery.'),
+      col('Status', 'text', 'status', 'Where the ticket stands.'),
+      col('Deliver to', 'text', 'deliver_to', 'The delivery address.'),
+      col('Signed by', 'text', 'signer_name', 'The name of who signed for it.'),
+      col('Signed', 'datetime', 'signed_at', 'UTC.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Bin', 'text', 'bin', 'Taken from.'),
+      col('Lot', 'text', 'lot', 'The production lot.'),
+      col('Quantity', 'integer', 'qty', 'Stock units handed over.'),
+      col('Note', 'text', 'note', 'A note.'),
+    ],
+    sql: `SELECT t.number, so.number AS so_number, t.kind, t.status, t.deliver_to, t.signer_name, t.signed_at, i.sku, b.code AS bin, lt.code AS lot, l.qty, t.note
+          FROM handover_ticket_lines l JOIN handover_tickets t ON t.id = l.ticket_id JOIN sales_orders so ON so.id = t.sales_order_id
+          JOIN items i ON i.id = l.item_id JOIN bins b ON b.id = l.bin_id LEFT JOIN lots lt ON lt.id = l.lot_id ORDER BY t.id, l.id`,
+  },
+  {
+    file: 'returns', sheet: 'Returns',
+    about: 'Goods brought back against sales orders, one row per returned line, with how the return was settled.',
+    columns: [
+      col('Return', 'text', 'number', 'The return\'s number.'),
+      col('Order number', 'text', 'so_number', 'The sales order.'),
+      col('Account code', 'text', 'account', 'Whose.'),
+      col('Settled by', 'text', 'settle_by', 'credit, cash, cheque or card.'),
+      col('Reference', 'text', 'reference', 'The cheque number or the payment provider\'s refund id.'),
+      col('Restocking percent', 'decimal', 'restocking_percent', 'Percent kept for restocking.', 2),
+      col('Restocking fee', 'money', 'restocking_fee', 'Kept for restocking (whole return).'),
+      col('Refund', 'money', 'refund', 'Given back (whole return).'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Quantity', 'integer', 'qty', 'Stock units back.'),
+      col('Goods', 'money', 'goods', 'Value of the line\'s goods.'),
+      col('Tax', 'money', 'tax', 'Tax on the line.'),
+      col('Bin', 'text', 'bin', 'Where it was put back.'),
+      col('Lot', 'text', 'lot', 'The production lot.'),
+      col('By', 'text', 'username', 'Who took it back.'),
+      col('At', 'datetime', 'created_at', 'UTC.'),
+      col('Note', 'text', 'note', 'A note.'),
+    ],
+    sql: `SELECT r.number, so.number AS so_number, c.code AS account, r.settle_by, r.reference, r.restocking_percent, r.restocking_fee, r.refund,
+            i.sku, l.qty, l.goods, l.tax, b.code AS bin, lt.code AS lot, u.username, r.created_at, r.note
+          FROM sales_return_lines l JOIN sales_returns r ON r.id = l.return_id JOIN sales_orders so ON so.id = r.sales_order_id JOIN customers c ON c.id = r.customer_id
+          JOIN items i ON i.id = l.item_id JOIN bins b ON b.id = l.bin_id LEFT JOIN lots lt ON lt.id = l.lot_id LEFT JOIN users u ON u.id = r.created_by ORDER BY r.id, l.id`,
+  },
+  {
+    file: 'account-credits', sheet: 'Account credits',
+    about: 'Credit held for contractors (from returns settled as credit, or given by hand).',
+    columns: [
+      col('Account code', 'text', 'account', 'Whose.'),
+      col('Amount', 'money', 'amount', 'Credit given (positive) or used (negative).'),
+      col('Return', 'text', 'return_number', 'The return it came from.'),
+      col('Note', 'text', 'note', 'A note.'),
+      col('By', 'text', 'username', 'Who.'),
+      col('At', 'datetime', 'created_at', 'UTC.'),
+    ],
+    sql: `SELECT c.code AS account, a.amount, r.number AS return_number, a.note, u.username, a.created_at
+          FROM account_credits a JOIN customers c ON c.id = a.customer_id LEFT JOIN sales_returns r ON r.id = a.sales_return_id
+          LEFT JOIN users u ON u.id = a.created_by ORDER BY a.id`,
   },
   {
     file: 'transfers', sheet: 'Transfers',
@@ -249,7 +316,8 @@ export const RECORD_PARTS: readonly ExportPart[] = [
     about: 'Pick lists and their lines: what was to be taken from which bin and lot, and what was taken.',
     columns: [
       col('Pick list', 'integer', 'pick_list_id', 'The pick list\'s number.'),
-      col('Bill', 'integer', 'bom_id', 'The bill it picks (bills.xlsx).'),
+      col('Bill', 'integer', 'bom_id', 'The bill it picks (bills.xlsx), when it picks a bill.'),
+      col('Sales order', 'text', 'so_number', 'The sales order it picks, when it picks one.'),
       col('Warehouse', 'text', 'warehouse', 'Where.'),
       col('Status', 'text', 'status', 'draft, released, picking, picked or cancelled.'),
       col('SKU', 'text', 'sku', 'The item.'),
@@ -262,10 +330,10 @@ export const RECORD_PARTS: readonly ExportPart[] = [
       col('Issued', 'integer', 'issued_qty', 'Taken out of stock.'),
       col('Created', 'datetime', 'created_at', 'UTC.'),
     ],
-    sql: `SELECT p.id AS pick_list_id, p.bom_id, w.code AS warehouse, p.status, i.sku, si.sku AS substitute_for, b.code AS bin, lt.code AS lot,
+    sql: `SELECT p.id AS pick_list_id, p.bom_id, so.number AS so_number, w.code AS warehouse, p.status, i.sku, si.sku AS substitute_for, b.code AS bin, lt.code AS lot,
             l.qty, l.confirmed_qty, l.short_qty, l.issued_qty, p.created_at
           FROM pick_list_lines l JOIN pick_lists p ON p.id = l.pick_list_id JOIN warehouses w ON w.id = p.warehouse_id JOIN items i ON i.id = l.item_id
-          LEFT JOIN items si ON si.id = l.substitute_for_item_id LEFT JOIN bins b ON b.id = l.bin_id LEFT JOIN lots lt ON lt.id = l.lot_id ORDER BY p.id, l.id`,
+          LEFT JOIN sales_orders so ON so.id = p.sales_order_id LEFT JOIN items si ON si.id = l.substitute_for_item_id LEFT JOIN bins b ON b.id = l.bin_id LEFT JOIN lots lt ON lt.id = l.lot_id ORDER BY p.id, l.id`,
   },
   {
     file: 'counts', sheet: 'Counts',

@@ -4,6 +4,7 @@ import type { DataSource, EntityManager } from 'typeorm'
 import { User } from '../entities/User.js'
 import { loadDemoCatalog } from './demoCatalog.js'
 import { loadDemoCounter } from './demoCounter.js'
+import { loadDemoCounterSales } from './demoCounterSales.js'
 import { loadDemoPurchasing } from './demoPurchasing.js'
 import { loadDemoStock } from './demoStock.js'
 import { loadDemoUsers } from './demoUsers.js'
@@ -22,6 +23,7 @@ export const demoSteps: DemoStep[] = [
   { name: 'stock history', run: (em) => loadDemoStock(em) },
   { name: 'counter', run: (em) => loadDemoCounter(em) },
   { name: 'purchasing', run: (em) => loadDemoPurchasing(em) },
+  { name: 'counter sales', run: (em, ds) => loadDemoCounterSales(em, ds) },
 ]
 
 export async function isDatabaseEmpty(ds: DataSource): Promise<boolean> {

@@ -1,5 +1,7 @@
 // Records the demo data lacks that the walks of every screen need (accessibility, the Spanish screens): a
-// released pick list, a quote taken into a sales order, and an open cycle count.
+// released pick list, a quote taken into a sales order, a handover ticket waiting for its signature, and an
+// open cycle count.
+import { randomUUID } from 'node:crypto'
 import { CSRF } from './apiHarness.js'
 import { DEMO_PASSWORD, type E2eHarness } from './browser.js'
 import { fxBom, pickScenario, releasedPickList, signedInAgent } from './pickFixtures.js'
@@ -20,6 +22,36 @@ export async function walkRecords(h: E2eHarness): Promise<void> {
   await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
   const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
   if (order.status !== 201) throw new Error(`taking the quote failed: ${order.status} ${JSON.stringify(order.body)}`)
+  // Nor a handover ticket: a second order for a few spacers goes to the warehouse, is picked and completed,
+  // and its pickup ticket waits for a signature (the first order keeps its holds for the pick screen above).
+  await handoverTicket(h, counter, crew, customerId, s.main.id, s.spacer)
   const count = await crew.post('/api/counts').set(CSRF).send({ warehouseId: s.main.id, scope: 'bins', binIds: [s.main.bins['A-03-1']] })
   if (count.status !== 201) throw new Error(`opening a count failed: ${count.status} ${JSON.stringify(count.body)}`)
+}
+
+type Agent = Awaited<ReturnType<typeof signedInAgent>>
+
+async function handoverTicket(h: E2eHarness, counter: Agent, crew: Agent, customerId: number, warehouseId: number, item: { id: number; sku: string }): Promise<void> {
+  const must = (what: string, res: { status: number; body: unknown }, status = 201) => {
+    if (res.status !== status) throw new Error(`${what} failed: ${res.status} ${JSON.stringify(res.body)}`)
+  }
+  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId, lines: [{ itemId: item.id, qty: 3 }] })
+  must('making the ticket\'s quote', quote)
+  await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
+  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
+  must('taking the ticket\'s quote', order)
+  const sent = await counter.post(`/api/sales-orders/${order.body.id}/pick-lists`).set(CSRF).set('Idempotency-Key', randomUUID())
+  must('sending the order to the warehouse', sent)
+  const listId = sent.body.pickListId as number
+  const list = await crew.get(`/api/pick-lists/${listId}`)
+  must('reading the order\'s pick list', list, 200)
+  for (const line of list.body.lines as { id: number; binCode: string; qty: number }[]) {
+    must('confirming a pick line', await crew.post(`/api/pick-lists/${listId}/confirmations`).set(CSRF).set('Idempotency-Key', randomUUID())
+      .send({ lineId: line.id, binScan: `B:${line.binCode}`, itemScan: item.sku, qty: line.qty }))
+  }
+  must('completing the pick', await crew.post(`/api/pick-lists/${listId}/complete`).set(CSRF).set('Idempotency-Key', randomUUID()).send({ acceptShort: true }), 200)
+  const f = await counter.get(`/api/sales-orders/${order.body.id}/fulfilment`)
+  must('reading the order\'s fulfilment', f, 200)
+  const lines = (f.body.lines as { id: number; picked: number }[]).map((l) => ({ salesOrderLineId: l.id, qty: l.picked }))
+  must('making the pickup ticket', await counter.post(`/api/sales-orders/${order.body.id}/tickets`).set(CSRF).set('Idempotency-Key', randomUUID()).send({ kind: 'pickup', lines }))
 }

@@ -33,7 +33,7 @@ export default {
     receipt: 'Received', issue: 'Issued', pick: 'Picked', adjustment: 'Adjusted', count: 'Counted', bin_move: 'Bin move',
     transfer_out: 'Shipped out', transfer_in: 'Arriving', assembly: 'Assembled', return: 'Returned', opening: 'Opening stock',
   },
-  docKinds: { purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job', data_import: 'Import', cycle_count: 'Cycle count', sales_order: 'Sales order', other: 'Document' },
+  docKinds: { purchase_order: 'Purchase order', pick_list: 'Pick list', pick_transfer: 'Pick list', transfer: 'Transfer', job: 'Job', data_import: 'Import', cycle_count: 'Cycle count', sales_order: 'Sales order', order_picked: 'Picked for an order', handover_ticket: 'Handover ticket', sales_return: 'Return', other: 'Document' },
   reasons: { damaged: 'Damaged', found: 'Found', counted: 'Counted', written_off: 'Written off' },
   binKinds: { storage: 'storage', receiving: 'receiving dock', staging: 'staging', transit: 'on the way' },
   overview: {

@@ -34,7 +34,7 @@ export default {
     receipt: 'Recibido', issue: 'Entregado', pick: 'Preparado', adjustment: 'Ajustado', count: 'Contado', bin_move: 'Cambio de ubicación',
     transfer_out: 'Enviado', transfer_in: 'Llegando', assembly: 'Armado', return: 'Devuelto', opening: 'Existencia inicial',
   },
-  docKinds: { purchase_order: 'Orden de compra', pick_list: 'Lista de preparación', pick_transfer: 'Lista de preparación', transfer: 'Traslado', job: 'Obra', data_import: 'Importación', cycle_count: 'Conteo cíclico', sales_order: 'Pedido de venta', other: 'Documento' },
+  docKinds: { purchase_order: 'Orden de compra', pick_list: 'Lista de preparación', pick_transfer: 'Lista de preparación', transfer: 'Traslado', job: 'Obra', data_import: 'Importación', cycle_count: 'Conteo cíclico', sales_order: 'Pedido de venta', order_picked: 'Preparado para un pedido', handover_ticket: 'Vale de entrega', sales_return: 'Devolución', other: 'Documento' },
   reasons: { damaged: 'Dañado', found: 'Encontrado', counted: 'Contado', written_off: 'Dado de baja' },
   binKinds: { storage: 'almacenaje', receiving: 'muelle de recepción', staging: 'preparación', transit: 'en camino' },
   overview: {

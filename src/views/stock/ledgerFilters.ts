@@ -46,4 +46,4 @@ export function blankFilters(): LedgerFilterModel {
 
 
 /** Documents a move can belong to, offered by name in the filter (the stored kind is never shown or typed). */
-export const LEDGER_DOC_KINDS = ['purchase_order', 'pick_list', 'pick_transfer', 'transfer', 'job', 'cycle_count', 'data_import', 'sales_order'] as const
+export const LEDGER_DOC_KINDS = ['purchase_order', 'pick_list', 'pick_transfer', 'transfer', 'job', 'cycle_count', 'data_import', 'sales_order', 'order_picked', 'handover_ticket', 'sales_return'] as const

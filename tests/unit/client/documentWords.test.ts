@@ -8,10 +8,14 @@ import esStock from '@/i18n/es/stock'
 import { documentName } from '@/components/stock/stockGrid'
 import { LEDGER_DOC_KINDS } from '@/views/stock/ledgerFilters'
 
-// The server's source as text (Vite's glob import, which the unit tests run under).
-const SERVER_SOURCES = import.meta.glob<string>('../../../server/**/*.ts', { query: '?raw', import: 'default', eager: true })
+// The server's source and the shared code it takes document kinds from, as text (Vite's glob import, which
+// the unit tests run under).
+const SERVER_SOURCES = {
+  ...import.meta.glob<string>('../../../server/**/*.ts', { query: '?raw', import: 'default', eager: true }),
+  ...import.meta.glob<string>('../../../shared/**/*.ts', { query: '?raw', import: 'default', eager: true }),
+}
 
-/** Document kinds written on stock moves: `docType: 'x'`, `doc_type = 'x'`, `…_DOC = 'x'` in the server's code. */
+/** Document kinds written on stock moves: `docType: 'x'`, `doc_type = 'x'`, `…_DOC = 'x'` in the server's and shared code. */
 function docKindsWritten(): Set<string> {
   const kinds = new Set<string>()
   for (const text of Object.values(SERVER_SOURCES)) {

@@ -4,8 +4,7 @@
 // exactly (NIST SP 811, appendix B).
 import { afterEach, beforeAll, describe, expect, it } from 'vitest'
 import { errorText, fieldErrorsFromZod, fieldTexts, problemText, setErrorLengthUnit } from '@/i18n/errorText'
-import { i18n } from '@/i18n'
-import enErrors from '@/i18n/en/errors'
+import { i18n, loadMessages } from '@/i18n'
 import esErrors from '@/i18n/es/errors'
 import { binRangeSchema } from '@shared/schemas/warehouses'
 
@@ -13,9 +12,10 @@ const speak = (locale: 'en' | 'es') => {
   i18n.global.locale.value = locale
 }
 
-beforeAll(() => {
-  i18n.global.mergeLocaleMessage('en', { errors: enErrors })
-  i18n.global.mergeLocaleMessage('es', { errors: esErrors })
+beforeAll(async () => {
+  // Every message of both languages, loaded before the first check: a key asked for before its chunk has
+  // arrived would start a load that outlives the test file.
+  await Promise.all([loadMessages('all', 'en'), loadMessages('all', 'es')])
   setErrorLengthUnit('mm')
 })
 afterEach(() => speak('en'))

@@ -54,6 +54,7 @@ export async function screenText(page: Page): Promise<ScreenText> {
     for (const el of Array.from(document.body.querySelectorAll('*'))) {
       if (!(el as HTMLElement).checkVisibility?.()) continue
       if (el.closest('[col-id="note"]')) continue // what people typed, in their own words
+      if (el.closest('[translate="no"]')) continue // marked as not for translating (HTML Living Standard, the translate attribute): a mail as it was sent
       let own = ''
       for (const n of Array.from(el.childNodes)) if (n.nodeType === Node.TEXT_NODE) own += n.textContent
       own = own.replace(/\s+/g, ' ').trim()

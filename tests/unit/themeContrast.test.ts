@@ -54,6 +54,13 @@ describe('theme contrast (WCAG 2.2)', () => {
     expect(ratio('#ffffff', `--el-color-${name}-dark-2`), `white on ${c}-dark-2 (pressed)`).toBeGreaterThanOrEqual(4.5)
   })
 
+  // source: WCAG 2.2 SC 1.4.3 exempts an inactive control's text, but a primary button that is inactive only
+  // while something is worked out (Save bill) is read the moment before it wakes: its words keep 4.5:1.
+  it('an inactive primary button keeps its words at 4.5:1', () => {
+    expect(css).toMatch(/--el-button-disabled-text-color:\s*var\(--el-color-primary\);\s*--el-button-disabled-bg-color:\s*var\(--el-color-primary-light-8\)/)
+    expect(ratio('--el-color-primary', '--el-color-primary-light-8')).toBeGreaterThanOrEqual(4.5)
+  })
+
   // source: WCAG 2.2 SC 1.4.11 Non-text Contrast, level AA: control edges and focus indicators at least 3:1
   it('control edges and the focus ring reach 3:1 on the page backgrounds', () => {
     for (const fg of ['--el-border-color', '--ly-focus', '--ly-edge']) {

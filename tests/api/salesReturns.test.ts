@@ -138,6 +138,30 @@ describe('refusals change nothing', () => {
     }
   })
 
+  it('the window runs from the last signed handover, not from booking', async () => {
+    // Booked 31 days ago, window 30 days: a pickup signed yesterday keeps the window open (the request then
+    // stops at the next rule, the opened pack); one signed 31 days ago closes it. common practice: a return
+    // window counts from when the goods left the supplier.
+    await h.ds.query('UPDATE sales_orders SET created_at = created_at - INTERVAL 31 DAY WHERE id = ?', [orderId])
+    const ticket = async (daysAgo: number) => (await h.ds.query(
+      "INSERT INTO handover_tickets (sales_order_id, kind, status, signer_name, signed_at) VALUES (?, 'pickup', 'signed', 'Window check', NOW() - INTERVAL ? DAY)",
+      [orderId, daysAgo],
+    ) as { insertId: number }).insertId
+    const ids: number[] = []
+    try {
+      ids.push(await ticket(1))
+      const open = await send({ lines: [line(fx.block.id, 2, { unopened: false })], settleBy: 'credit' })
+      expect(open.body.error?.code, JSON.stringify(open.body)).toBe('return_opened_packs')
+      await h.ds.query('UPDATE handover_tickets SET signed_at = NOW() - INTERVAL 31 DAY WHERE id = ?', [ids[0]])
+      const closed = await send({ lines: [line(fx.block.id, 2, { unopened: false })], settleBy: 'credit' })
+      expect(closed.body.error).toMatchObject({ code: 'return_window_closed', params: { days: 30 } })
+      expect(await returnMoves()).toBe(1)
+    } finally {
+      if (ids.length) await h.ds.query('DELETE FROM handover_tickets WHERE id IN (?)', [ids])
+      await h.ds.query('UPDATE sales_orders SET created_at = created_at + INTERVAL 31 DAY WHERE id = ?', [orderId])
+    }
+  })
+
   it('other roles may not take a return', async () => {
     const res = await (await h.as('warehouse')).post(`/api/sales-orders/${orderId}/returns`).set(CSRF).send({ lines: [line(fx.block.id, 2)], settleBy: 'credit' })
     expect(res.status).toBe(403)

@@ -1,5 +1,6 @@
 // Returns at the counter: a contractor brings back unused, unopened packs of goods handed over on an order,
-// within the supplier's window (days after the order was booked, an admin setting). In one transaction,
+// within the supplier's window (days after the order's goods last left on a signed handover ticket, or after
+// the order was booked when none has been signed; an admin setting). In one transaction,
 // under the order's lock: the goods come back into a bin and lot of the order's warehouse through the stock
 // service (a 'return' move each line), the order lines count them as returned, and the money goes back less
 // the restocking fee (an admin setting): a refund by cash or cheque (recorded), by the card it was paid with
@@ -63,9 +64,14 @@ export async function takeReturnIn(em: EntityManager, pay: PayProvider, actor: A
     throw AppError.conflict('sales_order_wrong_status', 'A cancelled order has nothing to return.', { params: { orderStatus: order.status } })
   }
   const policy = await salesSettings(em)
-  const closes = new Date(new Date(order.createdAt).getTime() + policy.returnWindowDays * DAY_MS)
+  // The window runs from the last signed handover (the goods left then), or from booking if none was signed.
+  const [left] = (await em.query(
+    "SELECT MAX(signed_at) AS at FROM handover_tickets WHERE sales_order_id = ? AND status = 'signed'", [orderId],
+  )) as { at: Date | string | null }[]
+  const opens = left?.at ? new Date(left.at) : new Date(order.createdAt)
+  const closes = new Date(opens.getTime() + policy.returnWindowDays * DAY_MS)
   if (policy.returnWindowDays <= 0 || Date.now() > closes.getTime()) {
-    throw AppError.conflict('return_window_closed', `Returns on ${order.number} closed ${policy.returnWindowDays} days after it was booked.`, { params: { days: policy.returnWindowDays } })
+    throw AppError.conflict('return_window_closed', `Returns on ${order.number} closed ${policy.returnWindowDays} days after its goods left.`, { params: { days: policy.returnWindowDays } })
   }
   const orderLines = await em.find(SalesOrderLine, { where: { salesOrderId: orderId } })
   const items = new Map((await em.findBy(Item, orderLines.map((l) => ({ id: l.itemId })))).map((i) => [i.id, i]))

@@ -459,7 +459,7 @@ export default {
   payment_not_pending: 'This card payment is no longer waiting for a card. Reload the order to see it.',
   card_token_format: 'The card reference from the payment service is not valid. Card numbers are never typed into Lumenyard.',
   settings_nothing_to_change: 'Change at least one setting.',
-  return_window_closed: 'Returns on this order are closed: goods come back within {days} days of the order.',
+  return_window_closed: 'Returns on this order are closed: goods come back within {days} days of leaving (of the order, if nothing was signed for).',
   return_line_not_on_order: 'That line is not on this order.',
   return_line_twice: 'This line is listed twice: give its whole quantity once.',
   return_made_to_order: '{sku} was made to order for this job and is not taken back.',

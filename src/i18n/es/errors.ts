@@ -458,7 +458,7 @@ export default {
   payment_not_pending: 'Este pago con tarjeta ya no espera una tarjeta. Vuelva a cargar el pedido para verlo.',
   card_token_format: 'La referencia de tarjeta del servicio de pago no es válida. Los números de tarjeta nunca se escriben en Lumenyard.',
   settings_nothing_to_change: 'Cambie al menos un ajuste.',
-  return_window_closed: 'Las devoluciones de este pedido están cerradas: la mercancía se devuelve dentro de {days} días desde el pedido.',
+  return_window_closed: 'Las devoluciones de este pedido están cerradas: la mercancía se devuelve dentro de {days} días desde que salió (desde el pedido, si no se firmó ninguna entrega).',
   return_line_not_on_order: 'Esa línea no está en este pedido.',
   return_line_twice: 'Esta línea aparece dos veces: indique toda su cantidad una sola vez.',
   return_made_to_order: '{sku} se fabricó por encargo para esta obra y no se acepta de vuelta.',

@@ -17,30 +17,33 @@ export async function walkRecords(h: E2eHarness): Promise<void> {
   // the same spacers the open pick list needs, in the same warehouse, so the handheld pick screen is walked
   // with another document's holds on its line's stock.
   const [{ customerId }] = (await h.ds.query('SELECT MIN(id) AS customerId FROM customers')) as { customerId: number }[]
-  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId: s.main.id, lines: [{ itemId: s.spacer.id, qty: 2 }] })
-  if (quote.status !== 201) throw new Error(`making a quote failed: ${quote.status} ${JSON.stringify(quote.body)}`)
-  await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
-  const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
-  if (order.status !== 201) throw new Error(`taking the quote failed: ${order.status} ${JSON.stringify(order.body)}`)
+  await takenQuote(h, counter, customerId, s.main.id, s.spacer.id, 2)
   // Nor a handover ticket: a second order for a few spacers goes to the warehouse, is picked and completed,
   // and its pickup ticket waits for a signature (the first order keeps its holds for the pick screen above).
   await handoverTicket(h, counter, crew, customerId, s.main.id, s.spacer)
   const count = await crew.post('/api/counts').set(CSRF).send({ warehouseId: s.main.id, scope: 'bins', binIds: [s.main.bins['A-03-1']] })
-  if (count.status !== 201) throw new Error(`opening a count failed: ${count.status} ${JSON.stringify(count.body)}`)
+  must('opening a count', count)
 }
 
 type Agent = Awaited<ReturnType<typeof signedInAgent>>
 
-async function handoverTicket(h: E2eHarness, counter: Agent, crew: Agent, customerId: number, warehouseId: number, item: { id: number; sku: string }): Promise<void> {
-  const must = (what: string, res: { status: number; body: unknown }, status = 201) => {
-    if (res.status !== status) throw new Error(`${what} failed: ${res.status} ${JSON.stringify(res.body)}`)
-  }
-  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId, lines: [{ itemId: item.id, qty: 3 }] })
-  must('making the ticket\'s quote', quote)
+function must(what: string, res: { status: number; body: unknown }, status = 201): void {
+  if (res.status !== status) throw new Error(`${what} failed: ${res.status} ${JSON.stringify(res.body)}`)
+}
+
+/** A quote by hand for one item, offered over the counter and taken: the sales order's id. */
+async function takenQuote(h: E2eHarness, counter: Agent, customerId: number, warehouseId: number, itemId: number, qty: number): Promise<number> {
+  const quote = await counter.post('/api/quotes').set(CSRF).send({ customerId, warehouseId, lines: [{ itemId, qty }] })
+  must('making a quote', quote)
   await h.ds.query("UPDATE quotes SET status = 'offered', offered_at = NOW() WHERE id = ?", [quote.body.id])
   const order = await counter.post('/api/sales-orders').set(CSRF).send({ quoteId: quote.body.id })
-  must('taking the ticket\'s quote', order)
-  const sent = await counter.post(`/api/sales-orders/${order.body.id}/pick-lists`).set(CSRF).set('Idempotency-Key', randomUUID())
+  must('taking the quote', order)
+  return order.body.id as number
+}
+
+async function handoverTicket(h: E2eHarness, counter: Agent, crew: Agent, customerId: number, warehouseId: number, item: { id: number; sku: string }): Promise<void> {
+  const orderId = await takenQuote(h, counter, customerId, warehouseId, item.id, 3)
+  const sent = await counter.post(`/api/sales-orders/${orderId}/pick-lists`).set(CSRF).set('Idempotency-Key', randomUUID())
   must('sending the order to the warehouse', sent)
   const listId = sent.body.pickListId as number
   const list = await crew.get(`/api/pick-lists/${listId}`)
@@ -50,8 +53,8 @@ async function handoverTicket(h: E2eHarness, counter: Agent, crew: Agent, custom
       .send({ lineId: line.id, binScan: `B:${line.binCode}`, itemScan: item.sku, qty: line.qty }))
   }
   must('completing the pick', await crew.post(`/api/pick-lists/${listId}/complete`).set(CSRF).set('Idempotency-Key', randomUUID()).send({ acceptShort: true }), 200)
-  const f = await counter.get(`/api/sales-orders/${order.body.id}/fulfilment`)
+  const f = await counter.get(`/api/sales-orders/${orderId}/fulfilment`)
   must('reading the order\'s fulfilment', f, 200)
   const lines = (f.body.lines as { id: number; picked: number }[]).map((l) => ({ salesOrderLineId: l.id, qty: l.picked }))
-  must('making the pickup ticket', await counter.post(`/api/sales-orders/${order.body.id}/tickets`).set(CSRF).set('Idempotency-Key', randomUUID()).send({ kind: 'pickup', lines }))
+  must('making the pickup ticket', await counter.post(`/api/sales-orders/${orderId}/tickets`).set(CSRF).set('Idempotency-Key', randomUUID()).send({ kind: 'pickup', lines }))
 }

@@ -151,7 +151,6 @@ export default {
     status: { booked: 'Booked', ready: 'Waiting at the counter', handed_over: 'Handed over', cancelled: 'Cancelled' },
     lines: 'Lines',
     held: 'Held',
-    picked: 'Picked',
     handedOver: 'Handed over',
     heldState: '{held} of {qty} held',
     short: '{qty} not in stock',
@@ -185,6 +184,5 @@ export default {
     cancelledNote: 'Cancelled: {reason}',
     pickList: 'Pick list',
     pickListHint: 'The warehouse picks from the stock held here. A made-to-order base goes straight to the job when it arrives.',
-    makePickList: 'Make a pick list from its bill',
   },
 }

@@ -151,7 +151,6 @@ export default {
     status: { booked: 'Registrado', ready: 'En espera en mostrador', handed_over: 'Entregado', cancelled: 'Anulado' },
     lines: 'Líneas',
     held: 'Reservado',
-    picked: 'Preparado',
     handedOver: 'Entregado',
     heldState: '{held} de {qty} reservados',
     short: '{qty} sin existencias',
@@ -185,6 +184,5 @@ export default {
     cancelledNote: 'Anulado: {reason}',
     pickList: 'Lista de preparación',
     pickListHint: 'El almacén prepara a partir del stock reservado aquí. Un plato hecho a medida va directo a la obra cuando llega.',
-    makePickList: 'Hacer una lista de preparación desde su lista de materiales',
   },
 }

@@ -5,7 +5,7 @@
 // A route with parameters (`/counter/jobs/:id`) needs a real record: the walk takes the first link to
 // that route it met on an earlier screen, else a record from the database (SAMPLE_SQL). A parameterised
 // route with neither makes the walk fail with the route's name, never pass it by.
-import type { Page } from 'playwright-core'
+import type { Page, Request } from 'playwright-core'
 import type { DataSource } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
 
@@ -162,18 +162,21 @@ export async function openInApp(page: Page, path: string): Promise<void> {
 
 interface RequestTracker {
   count(): number
+  /** The addresses still in flight, for a message when the page never goes quiet. */
+  pending(): string[]
   stop(): void
 }
 
 function trackRequests(page: Page): RequestTracker {
-  let n = 0
-  const up = () => n++
-  const down = () => n--
+  const inFlight = new Set<Request>()
+  const up = (r: Request) => inFlight.add(r)
+  const down = (r: Request) => inFlight.delete(r)
   page.on('request', up)
   page.on('requestfinished', down)
   page.on('requestfailed', down)
   return {
-    count: () => n,
+    count: () => inFlight.size,
+    pending: () => [...inFlight].map((r) => `${r.method()} ${r.url()}`),
     stop() {
       page.off('request', up)
       page.off('requestfinished', down)
@@ -182,15 +185,20 @@ function trackRequests(page: Page): RequestTracker {
   }
 }
 
+/** How long a screen may keep a request open before the walk names it rather than waiting on. */
+const QUIET_WITHIN_MS = 30_000
+
 // A mask on its way out (its fade's leave classes) no longer covers anything; a region that says it is
 // busy (aria-busy: data loading, a bill being computed) is still changing.
 const BUSY = '.el-loading-mask:not(.el-loading-fade-leave-active), .el-skeleton, .ag-overlay-loading-wrapper, [aria-busy="true"]'
 
-/** Waits for no request in flight over two animation frames in a row and no loading mask or skeleton. */
+/** Waits for no request in flight over three animation frames in a row (naming what is still open after 30 s) and no loading mask or skeleton. */
 export async function settle(page: Page, tracker?: RequestTracker): Promise<void> {
   const own = tracker ?? trackRequests(page)
   try {
+    const giveUpAt = Date.now() + QUIET_WITHIN_MS
     for (let quiet = 0; quiet < 3; ) {
+      if (Date.now() > giveUpAt) throw new Error(`requests still open after ${QUIET_WITHIN_MS / 1000} s: ${own.pending().join(', ')}`)
       await page.evaluate(() => new Promise((r) => requestAnimationFrame(() => setTimeout(r, 50))))
       quiet = own.count() <= 0 ? quiet + 1 : 0
     }

@@ -61,6 +61,18 @@ describe('theme contrast (WCAG 2.2)', () => {
     expect(ratio('--el-color-primary', '--el-color-primary-light-8')).toBeGreaterThanOrEqual(4.5)
   })
 
+  // source: WCAG 2.2 SC 1.4.3: a link is text. Every link takes one colour of ours (not the browser's blue
+  // and purple), read from the rule itself, and it reaches 4.5:1 on each page background, hovered too.
+  it('links take the theme colour and reach 4.5:1', () => {
+    const link = /:where\(a:any-link\) \{ color: var\((--[\w-]+)\); \}/.exec(css)
+    const hover = /:where\(a:any-link\):hover \{ color: var\((--[\w-]+)\); \}/.exec(css)
+    expect(link, 'a link colour rule in theme.css').not.toBeNull()
+    expect(hover, 'a hovered link colour rule in theme.css').not.toBeNull()
+    for (const fg of [link![1], hover![1]]) {
+      for (const bg of PAGES) expect(ratio(fg, bg), `${fg} on ${bg}`).toBeGreaterThanOrEqual(4.5)
+    }
+  })
+
   // source: WCAG 2.2 SC 1.4.11 Non-text Contrast, level AA: control edges and focus indicators at least 3:1
   it('control edges and the focus ring reach 3:1 on the page backgrounds', () => {
     for (const fg of ['--el-border-color', '--ly-focus', '--ly-edge']) {

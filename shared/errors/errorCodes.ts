@@ -261,6 +261,7 @@ export const ERROR_CODES = {
   compute_unavailable: [],
   compute_timeout: ['seconds'],
   bill_superseded: ['revision', 'latest'],
+  bill_on_sales_order: ['order', 'orderId'],
 
   // Short lines on pick lists
   substitute_not_fit: ['sku'],

@@ -286,6 +286,8 @@ export interface BomRecord {
   /** Each wall's layout, sections and drawing model as computed when the bill was saved. */
   walls: WallResult[]
   availability: LineAvailability[]
+  /** The (not cancelled) sales order this bill's quote became: its goods are picked through that order. */
+  salesOrder: { id: number; number: string } | null
 }
 
 // ---- answers (checked by the client in development and tests) ----

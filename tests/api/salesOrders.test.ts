@@ -17,6 +17,7 @@ let buyer: supertest.Agent
 let fx: SalesFixture
 let quoteId: number
 let orderId: number
+let billId: number
 
 /** Σ reserved of an item in the fixture's warehouse, straight from the balances table. */
 async function reservedOf(itemId: number): Promise<number> {
@@ -46,6 +47,7 @@ beforeAll(async () => {
     { itemId: fx.spacers.id, binId: fx.bins['C-01-1'], qty: 400 },
   ])
   const bill = await billFor(h.ds, fx, 1, 120)
+  billId = bill
   const quote = await counter.post('/api/quotes').set(CSRF).send({ bomId: bill, warehouseId: fx.warehouseId })
   expect(quote.status, JSON.stringify(quote.body)).toBe(201)
   quoteId = quote.body.id
@@ -169,6 +171,29 @@ describe('deposit before the special order goes out', () => {
   })
 })
 
+describe('a pick list from the bill the order was sold from', () => {
+  // common practice: one set of goods is held once; the order's own pick list carries its holds, so a second
+  // list straight from the bill would reserve the same blocks again.
+  it('is refused (409 bill_on_sales_order, naming the order), plans nothing and holds nothing more', async () => {
+    const [order]: { number: string }[] = await h.ds.query('SELECT number FROM sales_orders WHERE id = ?', [orderId])
+    const lists = await countRows(h.ds, 'pick_lists', 'bom_id = ?', [billId])
+    const held = await reservedOf(fx.block.id)
+    const plan = await counter.post('/api/pick-lists/plan').set(CSRF).send({ bomId: billId, warehouseId: fx.warehouseId })
+    expect(plan.status, JSON.stringify(plan.body)).toBe(409)
+    expect(plan.body.error).toMatchObject({ code: 'bill_on_sales_order', params: { order: order.number, orderId } })
+    const made = await counter.post('/api/pick-lists').set(CSRF).set('Idempotency-Key', `sold-${fx.tag}`).send({ bomId: billId, warehouseId: fx.warehouseId })
+    expect(made.status, JSON.stringify(made.body)).toBe(409)
+    expect(made.body.error.code).toBe('bill_on_sales_order')
+    expect(await countRows(h.ds, 'pick_lists', 'bom_id = ?', [billId])).toBe(lists)
+    expect(await reservedOf(fx.block.id)).toBe(held)
+    // The bill's page names the order, so the clerk goes there instead.
+    const bom = await counter.get(`/api/boms/${billId}`)
+    expect(bom.body.salesOrder).toEqual({ id: orderId, number: order.number })
+    const offered = await counter.get('/api/pick-lists/boms')
+    expect(offered.body.map((b: { bomId: number }) => b.bomId)).not.toContain(billId)
+  })
+})
+
 describe('cancelling', () => {
   it('releases the holds once: a second cancel is refused and changes nothing', async () => {
     const warehouse = await h.as('warehouse')
@@ -188,6 +213,11 @@ describe('cancelling', () => {
     const [onHand]: { q: string }[] = await h.ds.query('SELECT SUM(on_hand) AS q FROM stock_balances WHERE item_id = ? AND warehouse_id = ?', [fx.block.id, fx.warehouseId])
     expect(Number(onHand.q)).toBe(160)
     expect(await countRows(h.ds, 'audit_entries', "entity = 'sales_order' AND entity_id = ? AND action IN ('sales_order.create', 'payment.record', 'sales_order.cancel')", [String(orderId)])).toBe(3)
+    // Once the order is cancelled it holds nothing, and the bill may be picked on a list of its own again.
+    const plan = await counter.post('/api/pick-lists/plan').set(CSRF).send({ bomId: billId, warehouseId: fx.warehouseId })
+    expect(plan.status, JSON.stringify(plan.body)).toBe(200)
+    expect((await counter.get(`/api/boms/${billId}`)).body.salesOrder).toBeNull()
+    expect((await counter.get('/api/pick-lists/boms')).body.map((b: { bomId: number }) => b.bomId)).toContain(billId)
   })
 })
 

@@ -82,10 +82,28 @@ async function refuseSuperseded(em: EntityManager, bom: Bom, locking: boolean): 
   }
 }
 
+/**
+ * A bill whose quote became a sales order is picked through the order (its own pick list carries the order's
+ * holds); a second list from the bill would reserve the same goods twice. A cancelled order no longer holds anything.
+ */
+async function refuseSold(em: EntityManager, bomId: number, locking: boolean): Promise<void> {
+  const [sold] = (await em.query(
+    `SELECT o.id, o.number FROM sales_orders o JOIN quotes q ON q.id = o.quote_id
+      WHERE q.bom_id = ? AND o.status <> 'cancelled' ORDER BY o.id LIMIT 1${locking ? ' LOCK IN SHARE MODE' : ''}`,
+    [bomId],
+  )) as { id: number; number: string }[]
+  if (sold) {
+    throw AppError.conflict('bill_on_sales_order', `This bill became sales order ${sold.number}; pick it from the order.`, {
+      params: { order: sold.number, orderId: Number(sold.id) },
+    })
+  }
+}
+
 export async function loadPlanContext(em: EntityManager, bomId: number, warehouseId: number, opts: { locking: boolean }): Promise<PlanContext> {
   const bom = await em.findOne(Bom, { where: { id: bomId }, ...(opts.locking && { lock: { mode: 'pessimistic_write' as const } }) })
   if (!bom) throw AppError.badRequest('bom_not_found', 'That bill of materials does not exist.', { fields: { bomId: problem('bom_not_found') } })
   await refuseSuperseded(em, bom, opts.locking)
+  await refuseSold(em, bom.id, opts.locking)
   const warehouse = await loadWarehouse(em, warehouseId)
   const job = await em.findOneByOrFail(Job, { id: bom.jobId })
   const customer = await em.findOneBy(Customer, { id: job.customerId })

@@ -166,6 +166,8 @@ export default {
   drawingsTitle: 'Wall drawings',
   noDrawing: '{wall} cannot be drawn:',
   bomTitle: 'Bill of materials, revision {revision}',
+  billOnOrder: 'This bill was quoted and became sales order {number}. Its goods go to the warehouse from the order, which already holds the stock for it: a pick list of its own would hold the same goods twice.',
+  openOrder: 'Open sales order {number}',
   exportXlsx: 'Export .xlsx',
   madeToOrderSpec: 'Made-to-order spec: {name}',
   specLine: '{width} wide × {depth} deep; drain {left} from the left and {back} from the back; entry {entry}; {curb}',

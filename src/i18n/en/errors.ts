@@ -362,6 +362,7 @@ export default {
   compute_unavailable: 'The takeoff computation could not start; try again in a moment.',
   compute_timeout: 'The takeoff took more than {seconds} s to compute and was stopped; split it into smaller takeoffs.',
   bill_superseded: 'Revision {revision} of this job’s bill was replaced by revision {latest}; start the pick list from revision {latest}.',
+  bill_on_sales_order: 'This bill was quoted and became sales order {order}: the order makes its own pick list with the stock it already holds. Open the order to send it to the warehouse.',
 
   // Short lines on pick lists
   substitute_not_fit: 'That item cannot stand in for {sku}: choose another stocked item of the same kind and unit.',

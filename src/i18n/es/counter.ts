@@ -168,6 +168,8 @@ export default {
   drawingsTitle: 'Dibujos de los muros',
   noDrawing: 'No se puede dibujar {wall}:',
   bomTitle: 'Lista de materiales, revisión {revision}',
+  billOnOrder: 'Esta lista de materiales se cotizó y pasó a ser el pedido de venta {number}. Su material va al almacén desde el pedido, que ya tiene el stock reservado: una lista de preparación propia reservaría el mismo material dos veces.',
+  openOrder: 'Abrir el pedido de venta {number}',
   exportXlsx: 'Exportar .xlsx',
   madeToOrderSpec: 'Especificación a pedido: {name}',
   specLine: '{width} de ancho × {depth} de fondo; coladera a {left} de la izquierda y {back} de atrás; entrada {entry}; {curb}',

@@ -361,6 +361,7 @@ export default {
   compute_unavailable: 'El cálculo no pudo empezar; inténtelo de nuevo en un momento.',
   compute_timeout: 'El cálculo tardó más de {seconds} s y se detuvo; divídalo en cálculos más pequeños.',
   bill_superseded: 'La revisión {revision} de la lista de materiales de esta obra se sustituyó por la revisión {latest}; empiece la lista de preparación desde la revisión {latest}.',
+  bill_on_sales_order: 'Esta lista de materiales se cotizó y pasó a ser el pedido de venta {order}: el pedido hace su propia lista de preparación con el stock que ya tiene reservado. Abra el pedido para enviarlo al almacén.',
 
   // Short lines on pick lists
   substitute_not_fit: 'Ese artículo no puede sustituir a {sku}: elija otro artículo en existencia del mismo tipo y unidad.',

@@ -155,6 +155,67 @@ describe('reorder figures', () => {
   })
 })
 
+describe('dead stock at the edges of the window and of the look-back', () => {
+  // Hand-worked dates: the window is the 180 days up to today (UTC), so its first day is 179 days ago and the
+  // day before it 180 days ago; a 300-day dead-stock limit looks back to 299 days ago (the 300 days up to today).
+  // Days since last use count from that day to today. common practice: net use per day (a pick reversed on the
+  // same day is no use).
+  it('finds the last use on either side of the window start, and nothing past the look-back', async () => {
+    const tag = `E${fx.tag}`
+    const whId = Number((await h.ds.query('INSERT INTO warehouses (code, name) VALUES (?, ?)', [tag, `Test edge yard ${tag}`])).insertId)
+    const binId = Number((await h.ds.query(`INSERT INTO bins (warehouse_id, code, kind) VALUES (?, 'A-01-1', 'storage')`, [whId])).insertId)
+    const day = (daysAgo: number, hour: number) => isoDay(Date.now() - daysAgo * 86_400_000) + ` ${String(hour).padStart(2, '0')}:00:00`
+    // [name, moves as (days ago, hour, type, qty)]
+    const cases: [string, [number, number, string, number][]][] = [
+      ['dayBefore', [[180, 23, 'issue', -2]]],
+      ['firstDay', [[179, 0, 'issue', -2]]],
+      ['reversed', [[200, 9, 'issue', -4], [190, 9, 'pick', -3], [190, 16, 'pick', 3]]],
+      ['lookbackEdge', [[299, 12, 'issue', -1]]],
+      ['pastLookback', [[300, 12, 'issue', -1]]],
+    ]
+    const ids: Record<string, number> = {}
+    for (const [name, moves] of cases) {
+      const id = Number((await h.ds.query(`INSERT INTO items (sku, name, family, stock_unit, cost) VALUES (?, ?, 'anchor', 'each', 1.0000)`,
+        [`${tag}-${name}`, `Test anchor ${name}`])).insertId)
+      ids[name] = id
+      for (const [ago, hour, type, qty] of moves) {
+        await h.ds.query(`INSERT INTO stock_moves (at, move_type, item_id, warehouse_id, bin_id, qty, batch_id) VALUES (?, ?, ?, ?, ?, ?, UUID())`,
+          [day(ago, hour), type, id, whId, binId, qty])
+      }
+      await h.ds.query('INSERT INTO stock_balances (item_id, warehouse_id, bin_id, on_hand, reserved) VALUES (?, ?, ?, 10, 0)', [id, whId, binId])
+    }
+    const lines = async () => {
+      const res = await buyer.get(`/api/reorder/suggestions?warehouseId=${whId}`)
+      expect(res.status, JSON.stringify(res.body)).toBe(200)
+      return (name: string) => (res.body as SuggestionList).lines.find((l) => l.itemId === ids[name])!
+    }
+    // The default limit (180 days) is the window itself: nothing before it is read.
+    let line = await lines()
+    expect(line('firstDay')).toMatchObject({ daysSinceLastUse: 179, lastUsedDate: fx.windowStart })
+    expect(line('firstDay').status).not.toBe('deadStock')
+    for (const name of ['dayBefore', 'reversed', 'lookbackEdge', 'pastLookback']) {
+      expect(line(name), name).toMatchObject({ daysSinceLastUse: null, status: 'deadStock' })
+    }
+    const saved = await savePolicy({ scope: 'family', family: 'anchor', deadStockDays: 300 })
+    expect(saved.status).toBe(200)
+    try {
+      line = await lines()
+      expect(line('dayBefore')).toMatchObject({ daysSinceLastUse: 180, lastUsedDate: isoDay(Date.now() - 180 * 86_400_000) })
+      expect(line('firstDay')).toMatchObject({ daysSinceLastUse: 179 })
+      expect(line('reversed')).toMatchObject({ daysSinceLastUse: 200 })
+      expect(line('lookbackEdge')).toMatchObject({ daysSinceLastUse: 299 })
+      expect(line('lookbackEdge').status).not.toBe('deadStock')
+      expect(line('pastLookback')).toMatchObject({ daysSinceLastUse: null, status: 'deadStock' })
+      // One line's own figures (the drawer) read the same last use.
+      const one = await buyer.get(`/api/reorder/lines/${ids.reversed}/${whId}`)
+      expect(one.status).toBe(200)
+      expect((one.body as ReorderLineDetail).line.daysSinceLastUse).toBe(200)
+    } finally {
+      expect((await buyer.delete(`/api/reorder/policies/${saved.body.id}`).set(CSRF)).status).toBe(200)
+    }
+  })
+})
+
 describe('policies', () => {
   it('merge global, family, ABC class and item layers, showing where each value came from', async () => {
     const before = await detail()

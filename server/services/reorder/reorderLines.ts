@@ -10,7 +10,7 @@ import { leadTimeFor, observedLeadTimes } from './leadTimes.js'
 import { loadLineFacts, type LineFacts } from './lineFacts.js'
 import { computeLine, lineUnitCost, type ComputedLine, type PreparedLine } from './lineComputation.js'
 import { effectivePolicy, globalSettings, loadPolicyLayers, type EffectivePolicy, type PolicyLayers } from './policyLayers.js'
-import { assertPackable, lineKey, usageSums, usageTotals, type UsageSums } from './usageQueries.js'
+import { assertPackable, idleBeforeWindow, lineKey, usageSums, usageTotals, type UsageSums } from './usageQueries.js'
 import { usageWindow, type WindowBounds } from './usageWindow.js'
 
 export interface ReorderLinesOptions {
@@ -74,6 +74,11 @@ function windowTotals(usage: Map<string, UsageSums>): Map<string, number> {
   return totals
 }
 
+/** A line with no use in the window (its last use, if any, comes from before it). */
+const noUse = (key: string): UsageSums => ({
+  itemId: itemOfKey(key), warehouseId: warehouseOfKey(key), sum: 0, sumSquares: 0, daysWithUse: 0, firstHalfSum: 0, secondHalfSum: 0, idleDays: null,
+})
+
 function settingsAndWindow(layers: PolicyLayers, windowDays?: number) {
   const settings = globalSettings(layers, windowDays)
   return { settings, window: usageWindow(settings.windowDays) }
@@ -119,7 +124,9 @@ async function gather(em: EntityManager, layers: PolicyLayers, opts: ReorderLine
   const { settings, window } = settingsAndWindow(layers, opts.windowDays)
   const itemIds = opts.only ? [...new Set(opts.only.map((l) => l.itemId))] : undefined
   const wanted = opts.only ? new Set(opts.only.map((l) => lineKey(l.itemId, l.warehouseId))) : null
-  const aggregate = usageSums(em, window, settings.lookbackDays, itemIds)
+  // The aggregate reads the window alone, as the statistics do; the last use of a line quiet in the window is
+  // looked for further back on its own (idleBeforeWindow), once the window's quiet lines are known.
+  const aggregate = usageSums(em, window, itemIds)
   const factsLoaded = loadLineFacts(em)
   // The whole list takes each line's window use from the usage aggregate itself: a second scan of the window's
   // moves beside it (to start the ABC classes early) cost more on a two-core machine than it saved, 3× the
@@ -136,6 +143,13 @@ async function gather(em: EntityManager, layers: PolicyLayers, opts: ReorderLine
   const take = (k: string) => (!wanted || wanted.has(k)) && !prepared.has(k)
   for (const key of lineKeys(facts, totals)) if (take(key)) prepared.set(key, prepareLine(key, context))
   const usage = await aggregate
+  const quiet = [...new Set([...lineKeys(facts, totals), ...usage.keys()])]
+    .filter((k) => (!wanted || wanted.has(k)) && isLive(facts, k) && (usage.get(k)?.idleDays ?? null) === null)
+  for (const [key, idleDays] of await idleBeforeWindow(em, window, settings.lookbackDays, quiet)) {
+    const u = usage.get(key)
+    if (u) u.idleDays = idleDays
+    else usage.set(key, { ...noUse(key), idleDays })
+  }
   for (const key of usage.keys()) if (take(key) && isLive(facts, key)) prepared.set(key, prepareLine(key, context))
   return { settings, window, usage, prepared, abc: valued.abc }
 }

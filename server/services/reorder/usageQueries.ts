@@ -24,7 +24,7 @@ export interface UsageSums {
   daysWithUse: number
   firstHalfSum: number
   secondHalfSum: number
-  /** Days from the last day of net use to the window's end, looking back `lookbackDays`; null without use. */
+  /** Days from the last day of net use to the window's end; null without use (in the window, or as far back as looked). */
   idleDays: number | null
 }
 
@@ -67,35 +67,29 @@ function itemFilter(itemIds: readonly number[] | undefined): string {
 }
 
 /**
- * Per item and warehouse over the window, reading back `lookbackDays` (≥ the window) for the last use only,
- * so dead stock is found even when it is older than the statistics' window. `itemIds` narrows to some items.
+ * Per item and warehouse over the window: the sums behind the statistics, the halves for the trend and the last
+ * day of net use within the window (idleBeforeWindow looks further back for lines quiet in it). `itemIds`
+ * narrows to some items.
  */
 export async function usageSums(
   em: EntityManager,
   window: WindowBounds,
-  lookbackDays: number,
   itemIds?: readonly number[],
 ): Promise<Map<string, UsageSums>> {
   if (itemIds && itemIds.length === 0) return new Map()
-  const lookback = Math.max(lookbackDays, window.days)
-  if (lookback >= DAY_SPAN) throw new RangeError(`look-back of ${lookback} days is beyond ${DAY_SPAN - 1}`)
-  // Day offsets t from the first day read: the window is t ≥ from; its halves end and start at the offsets below.
-  const from = lookback - window.days
-  const firstEnd = from + window.half
-  const secondStart = lookback - window.half
-  // Only a longer look-back needs the window test inside the sums; without it the outer query stays lean.
+  if (window.days >= DAY_SPAN) throw new RangeError(`window of ${window.days} days is beyond ${DAY_SPAN - 1}`)
+  // Day offsets t from the window's first day; the halves end and start at the offsets below.
+  const secondStart = window.days - window.half
   const t = `(d.k MOD ${DAY_SPAN})`
-  const inWindow = from > 0 ? `${t} >= ${from} AND` : ''
-  const sum = (expr: string) => (from > 0 ? `SUM(IF(${t} >= ${from}, ${expr}, 0))` : `SUM(${expr})`)
-  const first = addDays(window.end, 1 - lookback)
   const movesByDay = `SELECT ${LINE_EXPR} * ${DAY_SPAN} + DATEDIFF(m.at, ?) AS k, -SUM(m.qty) AS qty
                  FROM stock_moves m
                 WHERE m.move_type IN (?, ?) AND m.at >= ? AND m.at < ? ${itemFilter(itemIds)}
                 GROUP BY k`
-  const movesParams = [first, ...USAGE_MOVE_TYPES, first, dayAfter(window.end), ...(itemIds ?? [])]
+  const end = dayAfter(window.end)
+  const movesParams = [window.start, ...USAGE_MOVE_TYPES, window.start, end, ...(itemIds ?? [])]
   // Imported history is added day by day beside the moves (a second grouping of the union). Most yards have
-  // none in the look-back, and then the moves' own day groups are the days: one grouping pass fewer.
-  const history = await hasHistory(em, first, dayAfter(window.end), itemIds)
+  // none in the window, and then the moves' own day groups are the days: one grouping pass fewer.
+  const history = await hasHistory(em, window.start, end, itemIds)
   const days = history
     ? `(SELECT u.k, SUM(u.qty) AS qty FROM (
                ${movesByDay}
@@ -109,20 +103,20 @@ export async function usageSums(
   const rows: UsageRow[] = await em.query(
     `${AGGREGATE_MEMORY}
      SELECT d.k DIV ${DAY_SPAN} AS line,
-            ${sum('d.qty')} AS sum_qty,
-            ${sum('d.qty * d.qty')} AS sum_sq,
-            SUM(${inWindow} d.qty > 0) AS days_with_use,
-            SUM(IF(${inWindow} ${t} < ${firstEnd}, d.qty, 0)) AS first_half,
+            SUM(d.qty) AS sum_qty,
+            SUM(d.qty * d.qty) AS sum_sq,
+            SUM(d.qty > 0) AS days_with_use,
+            SUM(IF(${t} < ${window.half}, d.qty, 0)) AS first_half,
             SUM(IF(${t} >= ${secondStart}, d.qty, 0)) AS second_half,
             MAX(IF(d.qty > 0, ${t}, NULL)) AS last_offset
        FROM ${days} d
       GROUP BY line`,
-    history ? [...movesParams, first, first, dayAfter(window.end), ...(itemIds ?? [])] : movesParams,
+    history ? [...movesParams, window.start, window.start, end, ...(itemIds ?? [])] : movesParams,
   )
   return new Map(rows.map((r) => {
     const key = keyOfLine(r.line)
     const [itemId, warehouseId] = key.split(':').map(Number)
-    return [key, toSums(r, itemId, warehouseId, lookback)]
+    return [key, toSums(r, itemId, warehouseId, window.days)]
   }))
 }
 
@@ -137,6 +131,53 @@ function toSums(r: UsageRow, itemId: number, warehouseId: number, lookback: numb
     secondHalfSum: Number(r.second_half ?? 0),
     idleDays: r.last_offset === null ? null : lookback - 1 - Number(r.last_offset),
   }
+}
+
+const LAST_USE_CHUNK = 400
+
+/**
+ * The last day of net use before the window, looking back `lookbackDays` from the window's end, for the lines
+ * given (those without use in the window) and for any line with imported history there: days from that day to
+ * the window's end, per line key. The usage aggregate reads the window alone (what the statistics need); dead
+ * stock older than the window is found here, through the line's own index (ix_moves_item_wh_at), so the cost
+ * grows with the quiet lines asked about, not with a year of everybody's moves.
+ */
+export async function idleBeforeWindow(
+  em: EntityManager,
+  window: WindowBounds,
+  lookbackDays: number,
+  quietLines: Iterable<string>,
+): Promise<Map<string, number>> {
+  const idle = new Map<string, number>()
+  if (lookbackDays <= window.days) return idle
+  const first = addDays(window.end, 1 - lookbackDays)
+  const range = [first, window.start]
+  const withHistory: { item_id: number; warehouse_id: number }[] = await em.query(
+    'SELECT DISTINCT item_id, warehouse_id FROM usage_history WHERE day >= ? AND day < ?', range)
+  const keys = [...new Set([...quietLines, ...withHistory.map((r) => lineKey(r.item_id, r.warehouse_id))])]
+  for (let i = 0; i < keys.length; i += LAST_USE_CHUNK) {
+    const pairs = keys.slice(i, i + LAST_USE_CHUNK).flatMap((k) => k.split(':').map(Number))
+    const rowIn = Array.from({ length: pairs.length / 2 }, () => '(?, ?)').join(', ')
+    const rows: { item_id: number; warehouse_id: number; idle: number }[] = await em.query(
+      `SELECT d.item_id, d.warehouse_id, DATEDIFF(?, MAX(d.day)) AS idle FROM (
+         SELECT u.item_id, u.warehouse_id, u.day FROM (
+           SELECT m.item_id, m.warehouse_id, DATE(m.at) AS day, -SUM(m.qty) AS qty
+             FROM stock_moves m
+            WHERE (m.item_id, m.warehouse_id) IN (${rowIn}) AND m.at >= ? AND m.at < ? AND m.move_type IN (?, ?)
+            GROUP BY m.item_id, m.warehouse_id, DATE(m.at)
+           UNION ALL
+           SELECT h.item_id, h.warehouse_id, h.day, SUM(h.qty)
+             FROM usage_history h
+            WHERE (h.item_id, h.warehouse_id) IN (${rowIn}) AND h.day >= ? AND h.day < ?
+            GROUP BY h.item_id, h.warehouse_id, h.day) u
+          GROUP BY u.item_id, u.warehouse_id, u.day
+         HAVING SUM(u.qty) > 0) d
+        GROUP BY d.item_id, d.warehouse_id`,
+      [window.end, ...pairs, ...range, ...USAGE_MOVE_TYPES, ...pairs, ...range],
+    )
+    for (const r of rows) idle.set(lineKey(r.item_id, r.warehouse_id), Number(r.idle))
+  }
+  return idle
 }
 
 /** Net use per day for one line, for its chart: at most one row per day of the window. */

@@ -20,7 +20,7 @@ import { costReplacer } from './services/costVisibility.js'
 import { costScope } from './http/costScope.js'
 import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
 import { createPayProvider } from './services/payments/payProvider.js'
-import { cardSettlement } from './services/sales/cardDeposits.js'
+import { cardSettlement, closeCancelledCardIn } from './services/sales/cardDeposits.js'
 import { SignInThrottle } from './services/signInThrottle.js'
 import { createLogger } from './logger.js'
 
@@ -110,7 +110,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     passport: pp,
     throttle: new SignInThrottle(config.signin, config.db),
     pay,
-    payEventHandlers: { 'payment_intent.succeeded': cardSettlement(pay) },
+    payEventHandlers: { 'payment_intent.succeeded': cardSettlement(pay), 'payment_intent.canceled': closeCancelledCardIn },
   }
   const app = express()
   app.disable('x-powered-by')

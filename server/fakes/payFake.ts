@@ -5,8 +5,10 @@
 //   GET  /v1/payment_intents/:id           read
 //   POST /v1/payment_intents/:id/confirm   confirm with a test card token (the card is entered on the
 //                                          provider's side; Lumenyard only ever sees the token)
+//   POST /v1/payment_intents/:id/cancel    cancel one not yet paid
 //   POST /v1/refunds                       refund all or part of a succeeded payment
-//   GET/POST /pay/:id                      the customer's side: a page to pay with one of the test cards
+//   GET/POST /pay/:id                      the customer's side: a page to pay with one of the test cards, or
+//                                          to cancel the payment
 // and then delivers the provider's signed event to the app's webhook URL: header `Stripe-Signature:
 // t=<unix seconds>,v1=<hex HMAC-SHA256 of "<t>.<body>" under the webhook secret>` (the provider's documented
 // signature scheme), retried a few times when the app does not answer 2xx. State lives in memory.
@@ -210,14 +212,20 @@ export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
     if (!intent) return res.status(404).type('html').send(customerPage('Payment not found', '<p>No payment with this reference.</p>'))
     res.type('html').send(customerPage(`Pay ${formatMinor(intent.amount, intent.currency)}`, intent.status === 'succeeded'
       ? '<p role="status">Paid. You can hand the device back.</p>'
+      : intent.status === 'canceled' ? '<p role="status">Payment cancelled. Nothing was charged.</p>'
       : `<p>${escapeHtml(intent.description ?? '')}</p>${intent.last_payment_error ? '<p role="alert">That card was declined. Try another.</p>' : ''}
         <form method="post"><button name="card" value="${FAKE_CARD_TOKENS.approved}">Pay with the test card that is approved</button>
-        <button name="card" value="${FAKE_CARD_TOKENS.declined}">Try the test card that is declined</button></form>`))
+        <button name="card" value="${FAKE_CARD_TOKENS.declined}">Try the test card that is declined</button>
+        <button name="card" value="cancel">Cancel this payment</button></form>`))
   })
   app.post('/pay/:id', (req, res) => {
     const intent = intents.get(String(req.params.id))
     try {
-      if (intent && intent.status !== 'succeeded' && intent.status !== 'canceled') confirmWith(intent, (req.body as Record<string, unknown>).card)
+      const card = (req.body as Record<string, unknown>).card
+      if (intent && intent.status !== 'succeeded' && intent.status !== 'canceled') {
+        if (card === 'cancel') cancel(intent)
+        else confirmWith(intent, card)
+      }
     } catch (err) {
       if (!(err instanceof ProviderError)) throw err
     }
@@ -321,6 +329,18 @@ export async function startPayFake(opts: PayFakeOptions): Promise<PayFake> {
     }
     throw new ProviderError(400, 'invalid_request_error', 'No such PaymentMethod: the fake knows only its test card tokens.', { code: 'resource_missing', param: 'payment_method' })
   }
+
+  /** Cancels an intent not yet paid (the customer on the provider's page, or the merchant through the API). */
+  function cancel(intent: FakePaymentIntent): { status: number; body: unknown } {
+    if (intent.status === 'succeeded' || intent.status === 'canceled') {
+      throw new ProviderError(400, 'invalid_request_error', `This PaymentIntent's status is ${intent.status}; it cannot be canceled.`, { code: 'payment_intent_unexpected_state' })
+    }
+    intent.status = 'canceled'
+    emit('payment_intent.canceled', intent)
+    return { status: 200, body: intent }
+  }
+
+  app.post('/v1/payment_intents/:id/cancel', idempotent((req) => cancel(intentOf(String(req.params.id)))))
 
   app.post('/v1/payment_intents/:id/confirm', idempotent((req) => confirmWith(intentOf(String(req.params.id)), (req.body as Record<string, unknown>).payment_method)))
 

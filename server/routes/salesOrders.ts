@@ -1,12 +1,12 @@
 // Sales orders at the counter: the counter (and admin) takes quotes into orders, cancels them and records
 // cash and cheque payments; the warehouse, the buyer (special orders) and viewers read them.
 import { salesReturnSchema } from '../../shared/schemas/salesReturns.js'
-import { cardConfirmSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, salesOrderQuerySchema, salesSettingsSchema } from '../../shared/schemas/salesOrders.js'
+import { cardConfirmSchema, cardDepositStartSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, salesOrderQuerySchema, salesSettingsSchema } from '../../shared/schemas/salesOrders.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
-import { confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
+import { cardDepositState, confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
 import { recordPaymentIn } from '../services/sales/payments.js'
 import { listSalesOrders, salesOrderDetail } from '../services/sales/salesOrderRead.js'
 import { returnsOf, takeReturnIn } from '../services/sales/returns.js'
@@ -56,9 +56,14 @@ export default (ctx: AppContext) =>
     // Card deposits: the card is entered on the provider's side; Lumenyard starts the payment and confirms it
     // with the provider's token; the provider's signed event settles it (routes/payments.ts).
     stockStep(ctx, {
-      path: '/:id/card-deposits', access: counter, id: orderId, status: 201,
-      run: (em, { req, id: order }) => startCardDepositIn(em, ctx.pay, actorOf(req), order),
+      path: '/:id/card-deposits', access: counter, id: orderId, body: cardDepositStartSchema, status: 201,
+      run: (em, { req, input, id: order }) => startCardDepositIn(em, ctx.pay, actorOf(req), order, input.amount),
     }),
+    {
+      // The counter follows a card deposit until the provider's signed event has recorded it.
+      method: 'get', path: '/:id/card-deposits/:paymentId', access: counter,
+      handler: (req) => cardDepositState(ctx.ds, ctx.pay, id(req.params.id), idParam(req.params.paymentId, 'payment_not_found')),
+    },
     {
       method: 'post', path: '/:id/card-deposits/:paymentId/confirm', access: counter,
       handler: (req) => confirmCardDeposit(ctx.ds, ctx.pay, id(req.params.id), idParam(req.params.paymentId, 'payment_not_found'), parseBody(cardConfirmSchema, req.body).cardToken),

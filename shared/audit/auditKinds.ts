@@ -69,6 +69,7 @@ export const AUDIT_ACTIONS = {
   'handover_ticket.void': 'document',
   'payment.record': 'document',
   'payment.card_start': 'document',
+  'payment.card_cancel': 'document',
   'payment.refund': 'document',
   'sales_return.create': 'document',
   'suggestion.update': 'document',

@@ -69,6 +69,7 @@ export const auditWordsEn = {
     handover_ticket_void: 'Handover ticket voided',
     payment_record: 'Payment recorded',
     payment_card_start: 'Card deposit started',
+    payment_card_cancel: 'Card deposit cancelled before it was paid',
     payment_refund: 'Card payment refunded',
     sales_return_create: 'Goods returned',
     reorder_accept: 'Reorder suggestions accepted',

@@ -68,6 +68,7 @@ export const auditWordsEs: typeof auditWordsEn = {
     handover_ticket_void: 'Vale de entrega anulado',
     payment_record: 'Pago anotado',
     payment_card_start: 'Anticipo con tarjeta iniciado',
+    payment_card_cancel: 'Anticipo con tarjeta cancelado antes de pagarse',
     payment_refund: 'Pago con tarjeta reembolsado',
     sales_return_create: 'Mercancía devuelta',
     reorder_accept: 'Sugerencias de reorden aceptadas',

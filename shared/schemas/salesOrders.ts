@@ -36,6 +36,47 @@ export type HandPaymentInput = z.infer<typeof handPaymentSchema>
  */
 export const cardConfirmSchema = z.object({ cardToken: z.string().trim().regex(/^pm_[A-Za-z0-9_]{3,80}$/, issueCode('card_token_format')) }).strict()
 
+/**
+ * Starting a card deposit: the amount the customer pays now, up to the deposit still due; left out, the whole
+ * deposit due. Nothing about the card: it is entered on the provider's side.
+ */
+export const cardDepositStartSchema = z
+  .object({ amount: priceSchema.refine((v) => Number(v) > 0, issueOf('at_least', { min: 0.01 })).optional() })
+  .strict()
+export type CardDepositStartInput = z.infer<typeof cardDepositStartSchema>
+
+/**
+ * Where a card deposit stands, as the counter follows it: waiting for the customer on the provider's page,
+ * declined (the customer may try another card there), settling (the provider took the card; its signed event is
+ * on its way), paid (the event recorded it), cancelled (by the customer or the clerk), refunded.
+ */
+export const CARD_DEPOSIT_STAGES = ['waiting', 'declined', 'settling', 'paid', 'cancelled', 'refunded'] as const
+export type CardDepositStage = (typeof CARD_DEPOSIT_STAGES)[number]
+
+export interface CardDepositState {
+  paymentId: number
+  salesOrderId: number
+  amount: string
+  stage: CardDepositStage
+  /** The provider's payment intent id (no card detail ever reaches Lumenyard). */
+  intentId: string
+  /** The provider's page where the customer enters the card; null when the provider gives none. */
+  payPageUrl: string | null
+  depositPaid: string
+  depositDue: string
+}
+
+export const cardDepositStateSchema: z.ZodType<CardDepositState> = z.object({
+  paymentId: z.number().int().positive(),
+  salesOrderId: z.number().int().positive(),
+  amount: z.string(),
+  stage: z.enum(CARD_DEPOSIT_STAGES),
+  intentId: z.string(),
+  payPageUrl: z.string().nullable(),
+  depositPaid: z.string(),
+  depositDue: z.string(),
+})
+
 /** The counter's sales policy; a change names only what it changes. */
 export const salesSettingsSchema = z
   .object({

@@ -8,7 +8,7 @@ import {
   type BomRecord, type JobDetail, type RoleItemRecord, type RuleRecord, type TakeoffRecord,
 } from '@shared/schemas/counter'
 import type { QuoteDetail, QuoteSummary } from '@shared/schemas/quotes'
-import type { SalesOrderDetail, SalesOrderSummary } from '@shared/schemas/salesOrders'
+import { cardDepositStateSchema, type CardDepositStartInput, type SalesOrderDetail, type SalesOrderSummary } from '@shared/schemas/salesOrders'
 import type { MaterialFamily, SiteFigures, Takeoff } from '@shared/schemas/takeoff'
 import type { LengthUnit } from '@shared/units'
 import { api, download } from './client'
@@ -79,4 +79,8 @@ export const salesApi = {
   takeQuote: (body: { quoteId: number }, key: string) => api.post<{ id: number }>('/sales-orders', body, keyed(key)),
   recordPayment: (id: Id, body: object, key: string) => api.post(`/sales-orders/${id}/payments`, body, keyed(key)),
   cancelOrder: (id: Id, body: { reason: string }, key: string) => api.post(`/sales-orders/${id}/cancel`, body, keyed(key)),
+  // Card deposits (cardDepositStartSchema): the card is entered on the provider's page, the counter follows it
+  startCardDeposit: (id: Id, body: CardDepositStartInput, key: string) =>
+    api.post<{ paymentId: number; amount: string; payPageUrl: string | null }>(`/sales-orders/${id}/card-deposits`, body, keyed(key)),
+  cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateSchema }),
 }

@@ -3,10 +3,12 @@
 // entered on the provider's side and confirmed with its token; the provider's signed event then settles the
 // row (deposit_paid rewritten in the same transaction). Cancelling an order refunds its settled card payments.
 import type { DataSource, EntityManager } from 'typeorm'
-import { addMoney, compareMoney, subtractMoney } from '../../../shared/money.js'
+import { addMoney, compareMoney, roundMoney, subtractMoney } from '../../../shared/money.js'
 import { fromMinorUnits, toMinorUnits } from '../../../shared/payments/minorUnits.js'
 import { Payment } from '../../entities/SalesOrder.js'
-import { AppError } from '../../errors.js'
+import type { CardDepositStage, CardDepositState } from '../../../shared/schemas/salesOrders.js'
+import { SalesOrder } from '../../entities/SalesOrder.js'
+import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import type { PayProvider, ProviderEvent } from '../payments/payProvider.js'
 import { recordPaymentIn, refreshPaid } from './payments.js'
@@ -20,28 +22,37 @@ export interface CardDepositView {
   /** The provider's payment intent (its id only: no card detail ever reaches Lumenyard). */
   intentId: string
   providerStatus: string
+  /** The provider's page where the customer enters the card (null when the provider gives none). */
+  payPageUrl: string | null
 }
 
-const view = (p: Payment, providerStatus: string): CardDepositView => ({
+const view = (pay: PayProvider, p: Payment, providerStatus: string): CardDepositView => ({
   paymentId: p.id, salesOrderId: p.salesOrderId, amount: p.amount, status: p.status, intentId: p.reference ?? '', providerStatus,
+  payPageUrl: p.reference ? pay.customerPageUrl(p.reference) : null,
 })
 
 /**
- * Starts a card deposit for the deposit still due. The order is locked first, so a second submit waits and
- * then finds the pending card payment; the provider call carries an idempotency key made from the order and
- * its count of card payments, so a retried transaction gets the same payment intent back, never a second one.
+ * Starts a card deposit for the deposit still due, or the part of it asked (`amount`, never more than is due).
+ * The order is locked first, so a second submit waits and then finds the pending card payment; the provider
+ * call carries an idempotency key made from the order and its count of card payments, so a retried
+ * transaction gets the same payment intent back, never a second one.
  */
-export async function startCardDepositIn(em: EntityManager, pay: PayProvider, actor: AuditActor, orderId: number): Promise<CardDepositView> {
+export async function startCardDepositIn(em: EntityManager, pay: PayProvider, actor: AuditActor, orderId: number, asked?: string): Promise<CardDepositView> {
   const order = await lockSalesOrder(em, orderId)
   if (order.status === 'cancelled' || order.status === 'handed_over') {
     throw AppError.conflict('sales_order_wrong_status', `A sales order that is ${order.status} takes no deposit.`, { params: { orderStatus: order.status } })
   }
   const pending = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', status: 'pending' } })
-  if (pending) return view(pending, 'requires_payment_method')
-  const due = subtractMoney(order.depositRequired, order.depositPaid)
-  if (compareMoney(due, '0') <= 0) {
+  if (pending) return view(pay, pending, 'requires_payment_method')
+  const owed = subtractMoney(order.depositRequired, order.depositPaid)
+  if (compareMoney(owed, '0') <= 0) {
     throw AppError.conflict('deposit_already_paid', `The deposit on ${order.number} is paid.`, { params: { order: order.number ?? String(orderId) } })
   }
+  if (asked !== undefined && compareMoney(asked, owed) > 0) {
+    const text = roundMoney(owed)
+    throw AppError.conflict('payment_over_balance', `${asked} is more than the ${text} of deposit still due.`, { params: { due: text }, fields: { amount: problem('payment_over_balance', { due: text }) } })
+  }
+  const due = roundMoney(asked ?? owed)
   const cards: { n: number }[] = await em.query("SELECT COUNT(*) AS n FROM payments WHERE sales_order_id = ? AND method = 'card'", [orderId])
   const intent = await pay.createIntent({
     amountMinor: toMinorUnits(due, pay.currency),
@@ -53,7 +64,7 @@ export async function startCardDepositIn(em: EntityManager, pay: PayProvider, ac
     salesOrderId: orderId, method: 'card', amount: due, status: 'pending', reference: intent.id, providerEventId: null, recordedBy: actor.userId, refundedAmount: '0.00',
   }))
   await audit(em, actor, 'payment.card_start', 'sales_order', orderId, { number: order.number, paymentId: payment.id, amount: due, intent: intent.id })
-  return view(payment, intent.status)
+  return view(pay, payment, intent.status)
 }
 
 /**
@@ -67,7 +78,34 @@ export async function confirmCardDeposit(ds: DataSource, pay: PayProvider, order
     throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
   }
   const intent = await pay.confirmIntent(payment.reference, cardToken, `lumenyard-confirm-${payment.id}-${cardToken}`)
-  return view(payment, intent.status)
+  return view(pay, payment, intent.status)
+}
+
+/** A pending card payment as the provider sees it: the customer still at the page, declined, cancelled or paid. */
+function pendingStage(intent: { status: string; last_payment_error?: unknown }): CardDepositStage {
+  if (intent.status === 'succeeded') return 'settling'
+  if (intent.status === 'canceled') return 'cancelled'
+  return intent.last_payment_error ? 'declined' : 'waiting'
+}
+
+const SETTLED_STAGES: Record<string, CardDepositStage> = { settled: 'paid', refunded: 'refunded', failed: 'cancelled' }
+
+/**
+ * Where one card deposit stands, for the counter to follow: the row's own status once the provider's event
+ * has settled or closed it, else the provider's word on its payment intent (read through the SDK, no lock held).
+ */
+export async function cardDepositState(ds: DataSource, pay: PayProvider, orderId: number, paymentId: number): Promise<CardDepositState> {
+  const order = await ds.getRepository(SalesOrder).findOneBy({ id: orderId })
+  if (!order) throw AppError.notFound('sales_order_not_found', 'That sales order was not found.')
+  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
+  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
+  const stage = payment.status === 'pending' ? pendingStage(await pay.retrieveIntent(payment.reference)) : SETTLED_STAGES[payment.status] ?? 'cancelled'
+  const owed = subtractMoney(order.depositRequired, order.depositPaid)
+  return {
+    paymentId: payment.id, salesOrderId: orderId, amount: payment.amount, stage, intentId: payment.reference,
+    payPageUrl: stage === 'waiting' || stage === 'declined' ? pay.customerPageUrl(payment.reference) : null,
+    depositPaid: roundMoney(order.depositPaid), depositDue: compareMoney(owed, '0') > 0 ? roundMoney(owed) : '0.00',
+  }
 }
 
 const SYSTEM: AuditActor = { userId: null }
@@ -161,4 +199,19 @@ export async function refundCardPaymentsIn(em: EntityManager, pay: PayProvider, 
   }
   await refreshPaid(em, orderId)
   return refunded
+}
+
+/**
+ * The provider's `payment_intent.canceled` event (the customer cancelled on the provider's page): the pending
+ * card payment naming it is closed as failed, once, so the counter can start another.
+ */
+export async function closeCancelledCardIn(em: EntityManager, event: ProviderEvent): Promise<string> {
+  const intent = event.data.object as unknown as { id: string; metadata?: Record<string, string> }
+  const orderId = Number(intent.metadata?.salesOrderId)
+  if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
+  const payment = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', reference: intent.id }, lock: { mode: 'pessimistic_write' } })
+  if (!payment || payment.status !== 'pending') return 'already_recorded'
+  await em.update(Payment, { id: payment.id }, { status: 'failed', providerEventId: event.id })
+  await audit(em, SYSTEM, 'payment.card_cancel', 'sales_order', orderId, { paymentId: payment.id, amount: payment.amount, intent: intent.id, event: event.id })
+  return 'cancelled'
 }

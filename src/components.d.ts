@@ -18,6 +18,7 @@ declare module 'vue' {
     BaseLengthInput: typeof import('./components/base/BaseLengthInput.vue')['default']
     BillOfMaterialsExplain: typeof import('./components/counter/BillOfMaterialsExplain.vue')['default']
     BillOfMaterialsTable: typeof import('./components/counter/BillOfMaterialsTable.vue')['default']
+    CardDepositPanel: typeof import('./components/sales/CardDepositPanel.vue')['default']
     ChartFigure: typeof import('./components/charts/ChartFigure.vue')['default']
     ElAlert: typeof import('element-plus/es')['ElAlert']
     ElButton: typeof import('element-plus/es')['ElButton']

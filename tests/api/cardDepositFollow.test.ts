@@ -8,14 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PayFake } from '../../server/fakes/payFake.js'
 import { cardDepositStateSchema } from '../../shared/schemas/salesOrders.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
-import { startPayHarness, type PayHarness } from '../support/payFakeHarness.js'
-import { bookedOrder, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
+import { startCardOrder, type CardOrderHarness } from '../support/payFakeHarness.js'
 
 let h: ApiHarness
 let fake: PayFake
-let pay: PayHarness
+let pay: CardOrderHarness
 let counter: supertest.Agent
-let fx: SalesFixture
 let orderId: number
 
 const start = (body: object = {}) => counter.post(`/api/sales-orders/${orderId}/card-deposits`).set(CSRF).send(body)
@@ -32,13 +30,10 @@ async function cardRows(): Promise<{ id: number; amount: string; status: string 
 const depositPaid = async () => ((await h.ds.query('SELECT deposit_paid FROM sales_orders WHERE id = ?', [orderId])) as { deposit_paid: string }[])[0].deposit_paid
 
 beforeAll(async () => {
-  pay = await startPayHarness()
-  ;({ h, fake } = pay)
-  counter = await h.as('counter')
-  fx = await createSalesFixture(h.ds)
-  // The account's level: 15 % off list, so the base sells at 895.00 × 0.85 = 760.75; the deposit is 50 % of it,
+  // startCardOrder: the account's level: 15 % off list, so the base sells at 895.00 × 0.85 = 760.75; the deposit is 50 % of it,
   // 380.375 → 380.38 rounded half up to the cent (hand-worked; the admin's default percent).
-  orderId = await bookedOrder(h.ds, counter, fx, `F${fx.tag}`)
+  pay = await startCardOrder('F')
+  ;({ h, fake, counter, orderId } = pay)
 })
 afterAll(async () => {
   await pay?.close()

@@ -8,12 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { FAKE_CARD_TOKENS, type PayFake } from '../../server/fakes/payFake.js'
 import { PAYMENT_WEBHOOK_PATH } from '../../server/routes/payments.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
-import { startPayHarness, type PayHarness } from '../support/payFakeHarness.js'
-import { bookedOrder, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
+import { startCardOrder, type CardOrderHarness } from '../support/payFakeHarness.js'
+import type { SalesFixture } from '../support/salesFixtures.js'
 
 let h: ApiHarness
 let fake: PayFake
-let pay: PayHarness
+let pay: CardOrderHarness
 let counter: supertest.Agent
 let fx: SalesFixture
 let orderId: number
@@ -29,12 +29,9 @@ async function cardRows(): Promise<{ id: number; amount: string; status: string;
 const intentsOfOrder = () => [...fake.intents.values()].filter((i) => i.metadata.salesOrderId === String(orderId))
 
 beforeAll(async () => {
-  pay = await startPayHarness()
-  ;({ h, fake } = pay)
-  counter = await h.as('counter')
-  fx = await createSalesFixture(h.ds)
-  // The account's level: 15 % off list, so the base sells at 895.00 × 0.85 = 760.75 (hand-worked).
-  orderId = await bookedOrder(h.ds, counter, fx, `C${fx.tag}`)
+  // startCardOrder: the account's level: 15 % off list, so the base sells at 895.00 × 0.85 = 760.75 (hand-worked).
+  pay = await startCardOrder('C')
+  ;({ h, fake, counter, fx, orderId } = pay)
 })
 afterAll(async () => {
   await pay?.close()

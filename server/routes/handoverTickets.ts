@@ -11,6 +11,7 @@ import { cancelLineRest, sendOrderToPick } from '../services/sales/fulfilment.js
 import { PDF_TYPE, ticketPdfFile } from '../services/sales/handoverPdf.js'
 import { listTickets, orderFulfilment, ticketDetail, ticketSignature } from '../services/sales/handoverRead.js'
 import { createTicket, signTicket, voidTicket } from '../services/sales/handoverTickets.js'
+import { sendReadyAgain } from '../services/sales/orderReadyMail.js'
 
 const counter = allow('admin', 'counter')
 const ticketReaders = allow('admin', 'counter', 'warehouse', 'viewer')
@@ -31,6 +32,8 @@ export const orderFulfilmentRoutes = (ctx: AppContext) =>
       path: '/:id/lines/:lineId/cancel-rest', access: counter, id: orderId,
       run: (em, { req, id }) => cancelLineRest(em, actorOf(req), id, idParam(req.params.lineId, 'sales_line_not_found')),
     }),
+    // The ready e-mail once more, after a failed attempt (sent once: a success keeps the order's claim).
+    { method: 'post', path: '/:id/ready-mail', access: counter, handler: (req) => sendReadyAgain(ctx.ds, ctx.config, actorOf(req), orderId(req)) },
     stockStep(ctx, {
       path: '/:id/tickets', access: counter, id: orderId, body: ticketCreateSchema, status: 201,
       run: (em, { req, input, id }) => createTicket(em, actorOf(req), id, input),

@@ -450,6 +450,7 @@ export const ERROR_CODES = {
   item_reserved: ['reserved', 'sku'],
   insufficient_stock: ['sku', 'bin', 'available', 'wanted'],
   mail_failed: ['detail'],
+  ready_mail_failed: ['detail'],
   over_receipt: ['max'],
   import_invalid: ['rows', 'total'],
   // Bringing a business's own data in (server/services/imports/dataImports.ts and its kinds)

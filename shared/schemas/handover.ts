@@ -98,6 +98,8 @@ export interface OrderFulfilment {
   status: SalesOrderStatus
   readyAt: string | null
   readyMailedAt: string | null
+  /** Why the last ready e-mail failed, while the ready order has not been mailed since. */
+  readyMailError: string | null
   lines: FulfilmentLine[]
   pickLists: { id: number; number: string; status: PickListStatus }[]
   tickets: TicketSummary[]

@@ -9,6 +9,8 @@ export const fulfilmentApi = {
   order: (orderId: number) => api.get<OrderFulfilment>(`/sales-orders/${orderId}/fulfilment`),
   sendToPick: (orderId: number, key: string) => api.post<{ pickListId: number; lines: number; qty: number }>(`/sales-orders/${orderId}/pick-lists`, {}, keyed(key)),
   cancelRest: (orderId: number, lineId: number, key: string) => api.post<{ cancelled: number }>(`/sales-orders/${orderId}/lines/${lineId}/cancel-rest`, {}, keyed(key)),
+  /** The ready e-mail once more after a failure (the server sends it once). */
+  sendReadyAgain: (orderId: number) => api.post<{ sent: boolean; mailedAt: string | null }>(`/sales-orders/${orderId}/ready-mail`, {}),
   createTicket: (orderId: number, body: TicketCreateInput, key: string) => api.post<{ id: number; number: string }>(`/sales-orders/${orderId}/tickets`, body, keyed(key)),
   tickets: (status: 'open' | 'signed' | 'voided' | 'all' = 'open') => api.get<TicketSummary[]>(`/handover-tickets?status=${status}`),
   ticket: (id: number) => api.get<TicketDetail>(`/handover-tickets/${id}`),

@@ -11,7 +11,6 @@ import path from 'node:path'
 import { promisify } from 'node:util'
 import { randomUUID } from 'node:crypto'
 import { simpleParser } from 'mailparser'
-import { PNG } from 'pngjs'
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
@@ -19,6 +18,7 @@ import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js
 import { countRows } from '../support/fixtureRows.js'
 import { pdfText } from '../support/pdfText.js'
 import { ledgerMismatches, receive } from '../support/pickFixtures.js'
+import { signatureDataUrl } from '../support/returnFixtures.js'
 import { billFor, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
 
 let smtp: SmtpFake
@@ -30,17 +30,6 @@ let fx: SalesFixture
 let orderId: number
 let listId: number
 let email: string
-
-/** A signature as a tablet's pad would send it: a 300 × 100 PNG with a stroke across (PNG encoded by pngjs, not by the app). */
-function signatureDataUrl(): string {
-  const png = new PNG({ width: 300, height: 100 })
-  for (let x = 20; x < 280; x++) {
-    const y = 50 + Math.round(20 * Math.sin(x / 20))
-    const i = (y * 300 + x) * 4
-    png.data[i + 3] = 255 // black, opaque
-  }
-  return `data:image/png;base64,${PNG.sync.write(png).toString('base64')}`
-}
 
 const fulfilment = async () => (await counter.get(`/api/sales-orders/${orderId}/fulfilment`)).body
 const lineOf = (f: { lines: { itemId: number }[] }, itemId: number) => f.lines.find((l) => l.itemId === itemId) as Record<string, number>

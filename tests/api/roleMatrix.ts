@@ -123,6 +123,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/sales-orders/:id/fulfilment': { access: EVERYONE },
   'POST /api/sales-orders/:id/pick-lists': { access: ['admin', 'counter'] },
   'POST /api/sales-orders/:id/lines/:lineId/cancel-rest': { access: ['admin', 'counter'] },
+  'POST /api/sales-orders/:id/ready-mail': { access: ['admin', 'counter'] },
   'POST /api/sales-orders/:id/tickets': { access: ['admin', 'counter'] },
   'GET /api/handover-tickets': { access: ['admin', 'counter', 'warehouse', 'viewer'] },
   'GET /api/handover-tickets/:id': { access: ['admin', 'counter', 'warehouse', 'viewer'] },

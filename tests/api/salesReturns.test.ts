@@ -36,6 +36,11 @@ const returned = async (itemId: number) => {
 }
 const line = (itemId: number, qty: unknown, extra: Record<string, unknown> = {}) => ({ orderLineId: lineIds.get(itemId), qty, binId: fx.bins['C-01-2'], lotCode: 'BACK-1', unopened: true, ...extra })
 const lineIds = new Map<number, number>()
+/** Moves the order's booking and its signed pickups `days` days (negative: into the past). */
+const shiftOrder = async (days: number) => {
+  await h.ds.query('UPDATE sales_orders SET created_at = created_at + INTERVAL ? DAY WHERE id = ?', [days, orderId])
+  await h.ds.query("UPDATE handover_tickets SET signed_at = signed_at + INTERVAL ? DAY WHERE sales_order_id = ? AND status = 'signed'", [days, orderId])
+}
 const send = (body: unknown, key?: string) => {
   const req = counter.post(`/api/sales-orders/${orderId}/returns`).set(CSRF)
   return (key ? req.set('Idempotency-Key', key) : req).send(body as object)
@@ -54,8 +59,11 @@ beforeAll(async () => {
     { itemId: fx.spacers.id, binId: fx.bins['C-01-1'], qty: 400 },
   ])
   orderId = await bookedOrder(h.ds, counter, fx, `R${fx.tag}`)
-  lineIds.set(fx.block.id, await handOver(h.ds, orderId, fx.block.id, 60))
-  lineIds.set(fx.spacers.id, await handOver(h.ds, orderId, fx.spacers.id, 200))
+  // Through the real path: the whole order picked (120 blocks, 300 spacers), then 60 blocks and 200 spacers
+  // leave on a signed pickup ticket.
+  const handed = await handOver(counter, await h.as('warehouse'), orderId, [{ itemId: fx.block.id, qty: 60 }, { itemId: fx.spacers.id, qty: 200 }])
+  lineIds.set(fx.block.id, handed.get(fx.block.id)!)
+  lineIds.set(fx.spacers.id, handed.get(fx.spacers.id)!)
   const [base]: { id: number }[] = await h.ds.query('SELECT id FROM sales_order_lines WHERE sales_order_id = ? AND item_id = ?', [orderId, fx.base.id])
   lineIds.set(fx.base.id, base.id)
   before = (await admin.get('/api/sales-settings')).body
@@ -126,15 +134,15 @@ describe('refusals change nothing', () => {
     expect(await returnMoves()).toBe(1)
   })
 
-  it('beyond the window (booked 31 days ago, window 30 days)', async () => {
-    await h.ds.query('UPDATE sales_orders SET created_at = created_at - INTERVAL 31 DAY WHERE id = ?', [orderId])
+  it('beyond the window (booked and handed over 31 days ago, window 30 days)', async () => {
+    await shiftOrder(-31)
     try {
       const res = await send({ lines: [line(fx.block.id, 2)], settleBy: 'credit' })
       expect(res.status).toBe(409)
       expect(res.body.error).toMatchObject({ code: 'return_window_closed', params: { days: 30 } })
       expect(await returnMoves()).toBe(1)
     } finally {
-      await h.ds.query('UPDATE sales_orders SET created_at = created_at + INTERVAL 31 DAY WHERE id = ?', [orderId])
+      await shiftOrder(31)
     }
   })
 
@@ -142,7 +150,7 @@ describe('refusals change nothing', () => {
     // Booked 31 days ago, window 30 days: a pickup signed yesterday keeps the window open (the request then
     // stops at the next rule, the opened pack); one signed 31 days ago closes it. common practice: a return
     // window counts from when the goods left the supplier.
-    await h.ds.query('UPDATE sales_orders SET created_at = created_at - INTERVAL 31 DAY WHERE id = ?', [orderId])
+    await shiftOrder(-31)
     const ticket = async (daysAgo: number) => (await h.ds.query(
       "INSERT INTO handover_tickets (sales_order_id, kind, status, signer_name, signed_at) VALUES (?, 'pickup', 'signed', 'Window check', NOW() - INTERVAL ? DAY)",
       [orderId, daysAgo],
@@ -158,7 +166,7 @@ describe('refusals change nothing', () => {
       expect(await returnMoves()).toBe(1)
     } finally {
       if (ids.length) await h.ds.query('DELETE FROM handover_tickets WHERE id IN (?)', [ids])
-      await h.ds.query('UPDATE sales_orders SET created_at = created_at + INTERVAL 31 DAY WHERE id = ?', [orderId])
+      await shiftOrder(31)
     }
   })
 

@@ -92,8 +92,13 @@ export async function orderFulfilment(ds: DataSource, orderId: number): Promise<
     [orderId],
   )
   const lists: Row[] = await ds.query('SELECT id, status FROM pick_lists WHERE sales_order_id = ? ORDER BY id', [orderId])
+  // A ready order not yet mailed shows why its last attempt failed (the outbox keeps every attempt).
+  const [failed]: Row[] = o.status === 'ready' && !o.ready_mailed_at
+    ? await ds.query("SELECT error FROM outbox_messages WHERE sales_order_id = ? AND status = 'failed' ORDER BY id DESC LIMIT 1", [orderId])
+    : []
   return {
     orderId, orderNumber: String(o.number), status: o.status as SalesOrderStatus, readyAt: iso(o.ready_at), readyMailedAt: iso(o.ready_mailed_at),
+    readyMailError: failed ? String(failed.error ?? '') : null,
     lines: lines.map((l): FulfilmentLine => {
       const picked = Number(l.qty_picked)
       const handedOver = Number(l.qty_handed_over)

@@ -393,6 +393,7 @@ export default {
   confirmation_key_invalid: 'Not a confirmation key',
   discard_note_needed: 'Say why',
   mail_failed: 'The e-mail could not be sent ({detail}). The order stays unsent; check the address or the mail server and send again.',
+  ready_mail_failed: 'The ready e-mail could not be sent ({detail}). The order shows it as not sent; check the contractor’s address or the mail server and send again.',
   over_receipt: 'Only {max} more can be received (what is open plus the over-receipt allowance).',
   import_invalid: '{rows} of {total} rows need attention; nothing was imported.',
   import_made_to_order: '{sku} is made to order and never held in stock',

@@ -392,6 +392,7 @@ export default {
   confirmation_key_invalid: 'No es una clave de confirmación',
   discard_note_needed: 'Diga por qué',
   mail_failed: 'No se pudo enviar el correo ({detail}). La orden sigue sin enviar; revise la dirección o el servidor de correo y envíela de nuevo.',
+  ready_mail_failed: 'No se pudo enviar el aviso de pedido listo ({detail}). El pedido lo muestra como no enviado; revise la dirección del cliente o el servidor de correo y vuelva a enviarlo.',
   over_receipt: 'Solo se pueden recibir {max} más (lo pendiente más el margen de sobrerrecepción).',
   import_invalid: '{rows} de {total} filas necesitan atención; no se importó nada.',
   import_made_to_order: '{sku} se fabrica por pedido y nunca se tiene en existencia',

@@ -11,7 +11,6 @@ import path from 'node:path'
 import { promisify } from 'node:util'
 import bcrypt from 'bcryptjs'
 import { simpleParser } from 'mailparser'
-import type { Page } from 'playwright-core'
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { User } from '../../server/entities/User.js'
@@ -23,6 +22,7 @@ import { sidewaysScroll } from '../support/layoutChecks.js'
 import { pdfText } from '../support/pdfText.js'
 import { countRows, ledgerMismatches, receive, signedInAgent } from '../support/pickFixtures.js'
 import { billFor, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
+import { drawSignature, scan } from '../support/handSteps.js'
 
 let h: E2eHarness
 let smtp: SmtpFake
@@ -62,23 +62,6 @@ afterAll(async () => {
   await h?.close()
   await smtp?.close()
 })
-
-async function scan(page: Page, text: string) {
-  const box = page.locator('[data-test="scan-input"]')
-  await box.fill(text)
-  await box.press('Enter')
-}
-
-/** Draws a signature across the pad with the mouse (pointer events, as a finger or stylus would). */
-async function drawSignature(page: Page) {
-  const canvas = page.locator('[data-test="signature-canvas"]')
-  await canvas.scrollIntoViewIfNeeded()
-  const box = (await canvas.boundingBox())!
-  await page.mouse.move(box.x + 20, box.y + box.height * 0.6)
-  await page.mouse.down()
-  for (let i = 1; i <= 24; i++) await page.mouse.move(box.x + 20 + i * 9, box.y + box.height * (0.6 - 0.25 * Math.sin(i / 3)), { steps: 2 })
-  await page.mouse.up()
-}
 
 describe('from the handheld pick to a signed pickup ticket', () => {
   it('the warehouse completes the pick on the phone; the order turns ready and the contractor is e-mailed', { timeout: 90_000 }, async () => {

@@ -64,6 +64,7 @@ export const AUDIT_ACTIONS = {
   'sales_order.line_rest_cancelled': 'document',
   'sales_order.ready_mail': 'document',
   'sales_order.ready_mail_failed': 'document',
+  'sales_order.special_held': 'document',
   'handover_ticket.create': 'document',
   'handover_ticket.sign': 'document',
   'handover_ticket.void': 'document',

@@ -64,6 +64,7 @@ export const auditWordsEn = {
     sales_order_line_rest_cancelled: 'Rest of an order line cancelled',
     sales_order_ready_mail: 'Contractor told the order is ready',
     sales_order_ready_mail_failed: 'E-mail that the order is ready failed',
+    sales_order_special_held: 'Made-to-order goods received and held for the order',
     handover_ticket_create: 'Handover ticket made',
     handover_ticket_sign: 'Handover ticket signed, goods left',
     handover_ticket_void: 'Handover ticket voided',

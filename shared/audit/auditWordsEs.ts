@@ -63,6 +63,7 @@ export const auditWordsEs: typeof auditWordsEn = {
     sales_order_line_rest_cancelled: 'Resto de una línea del pedido anulado',
     sales_order_ready_mail: 'Aviso de pedido listo enviado al cliente',
     sales_order_ready_mail_failed: 'Falló el aviso de pedido listo',
+    sales_order_special_held: 'Material hecho a medida recibido y reservado para el pedido',
     handover_ticket_create: 'Vale de entrega creado',
     handover_ticket_sign: 'Vale de entrega firmado, mercancía entregada',
     handover_ticket_void: 'Vale de entrega anulado',

@@ -1,6 +1,7 @@
 // Receiving against a purchase order: good units go into bins (and lots) through the stock service,
 // which blends the moving-average cost; damaged units are recorded and stay owed; made-to-order lines
-// are issued straight to their job in the same transaction, so they are never stocked. The PO row is
+// raised for a sales order are held for that order where they were received (so nobody else's pick list
+// takes them), the others are issued straight to their job in the same transaction. The PO row is
 // locked first, so two submissions racing for the last open units apply one after the other.
 import type { EntityManager } from 'typeorm'
 import type { ReceiveInput, ReceiveLineInput } from '../../../shared/schemas/purchasing.js'
@@ -14,6 +15,8 @@ import { AppError, problem, type FieldProblems } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { purchasingSettings } from '../appSettings.js'
 import { findOrCreateLot, issue, receive, type ReceiptLine } from '../stock/stockService.js'
+import { reserve } from '../stock/stockReservations.js'
+import { SALES_ORDER_DOC } from '../sales/salesOrderWrite.js'
 import { ensure, lockPo } from './poLifecycle.js'
 import { loadItems } from './poWrite.js'
 import { receiptById } from './poReceipts.js'
@@ -66,9 +69,9 @@ function checkQuantities(entries: Entry[]): void {
   if (over) throw new AppError(409, 'over_receipt', firstOver, { params: over.params, fields: conflicts })
 }
 
-async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder, entries: Entry[]): Promise<string | null> {
+async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder, entries: Entry[]): Promise<{ batchId: string | null; held: Set<Entry> }> {
   const stocked = entries.filter((e) => e.qty > 0)
-  if (!stocked.length) return null
+  if (!stocked.length) return { batchId: null, held: new Set() }
   const today = new Date().toISOString().slice(0, 10)
   for (const e of stocked) {
     if (e.lotCode) e.lotId = (await findOrCreateLot(em, e.item.id, e.lotCode, { receivedAt: today, vendorId: po.vendorId })).id
@@ -76,7 +79,10 @@ async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder
   const lines: ReceiptLine[] = stocked.map((e) => ({ itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, unitCost: e.line.unitCost, docLineId: e.line.id }))
   const doc = { docType: 'purchase_order', docId: po.id }
   const applied = await receive(em, { userId: actor.userId }, { warehouseId: po.warehouseId, lines, doc, note: `Received on ${po.number}` })
-  const special = stocked.filter((e) => e.item.madeToOrder)
+  // A special order raised for a sales order is held for that order where it was received (it waits for the
+  // order's pick list and the contractor's signature, and nobody else can pick it); the rest goes to its job.
+  const forOrders = await heldForSalesOrders(em, actor, po, stocked.filter((e) => e.item.madeToOrder))
+  const special = stocked.filter((e) => e.item.madeToOrder && !forOrders.has(e))
   if (special.length) {
     // Made to order: straight out to the job (or the order itself when it has no job), never left on hand.
     await issue(em, { userId: actor.userId }, {
@@ -86,7 +92,33 @@ async function postStock(em: EntityManager, actor: AuditActor, po: PurchaseOrder
       note: `Made to order, ${po.number}`,
     })
   }
-  return applied.batchId
+  return { batchId: applied.batchId, held: forOrders }
+}
+
+/** The entries whose PO line belongs to a standing sales order's line: held for it (reserved, qty_reserved up, audited). */
+async function heldForSalesOrders(em: EntityManager, actor: AuditActor, po: PurchaseOrder, special: Entry[]): Promise<Set<Entry>> {
+  const held = new Set<Entry>()
+  if (!special.length) return held
+  const rows: { id: number; sales_order_id: number; po_line_id: number; number: string }[] = await em.query(
+    `SELECT l.id, l.sales_order_id, l.po_line_id, o.number FROM sales_order_lines l JOIN sales_orders o ON o.id = l.sales_order_id
+      WHERE l.po_line_id IN (?) AND o.status <> 'cancelled' ORDER BY l.id FOR UPDATE`,
+    [special.map((e) => e.line.id)],
+  )
+  for (const e of special) {
+    const line = rows.find((r) => Number(r.po_line_id) === e.line.id)
+    if (!line) continue
+    const orderId = Number(line.sales_order_id)
+    await reserve(em, { userId: actor.userId }, {
+      doc: { docType: SALES_ORDER_DOC, docId: orderId },
+      lines: [{ itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, docLineId: Number(line.id) }],
+    })
+    await em.query('UPDATE sales_order_lines SET qty_reserved = qty_reserved + ? WHERE id = ?', [e.qty, line.id])
+    await audit(em, actor, 'sales_order.special_held', 'sales_order', orderId, {
+      number: line.number, po: po.number, sku: e.item.sku, qty: e.qty, binId: e.binId, lotId: e.lotId,
+    })
+    held.add(e)
+  }
+  return held
 }
 
 async function advance(em: EntityManager, actor: AuditActor, po: PurchaseOrder): Promise<PurchaseOrder['status']> {
@@ -112,12 +144,12 @@ export async function receivePurchaseOrder(em: EntityManager, actor: AuditActor,
   const items = await loadItems(em, poLines.map((l) => l.itemId))
   const entries = checkEntries(input, new Map(poLines.map((l) => [l.id, l])), items)
   checkQuantities(entries)
-  const batchId = await postStock(em, actor, po, entries)
+  const { batchId, held: heldEntries } = await postStock(em, actor, po, entries)
   const receipt = await em.save(em.create(PurchaseReceipt, { poId, receivedBy: actor.userId, note: input.note, batchId }))
   for (const e of entries) {
     await em.insert(PurchaseReceiptLine, {
       receiptId: receipt.id, poLineId: e.line.id, itemId: e.item.id, binId: e.binId, lotId: e.lotId, qty: e.qty, qtyDamaged: e.damagedQty,
-      variance: e.variance, reason: e.reason, issuedToJobId: e.item.madeToOrder && e.qty > 0 ? po.jobId : null,
+      variance: e.variance, reason: e.reason, issuedToJobId: e.item.madeToOrder && e.qty > 0 && !heldEntries.has(e) ? po.jobId : null,
     })
     await em.increment(PurchaseOrderLine, { id: e.line.id }, 'qtyReceived', e.qty)
     if (e.damagedQty) await em.increment(PurchaseOrderLine, { id: e.line.id }, 'qtyDamaged', e.damagedQty)

@@ -1,10 +1,9 @@
 // Catalog spreadsheets: the filtered item list as .xlsx (re-importable: the same columns as the
 // import) and the blank import template with a sheet that explains each column.
 import type { DataSource } from 'typeorm'
-import { BLOCK_PATTERNS, BLOCK_SHAPES, ITEM_FAMILIES, STOCK_UNITS, THICKNESS_CLASSES } from '../../shared/catalog.js'
 import type { ItemFields, ItemListQuery } from '../../shared/schemas/catalog.js'
 import { listFilter, STOCK_JOIN } from './catalogQueries.js'
-import { columnOf, ITEM_COLUMNS, itemSheetColumns, MAX_IMPORT_ROWS, STOCK_SHEET_COLUMNS } from './catalogSheet.js'
+import { columnOf, ITEM_COLUMNS, itemColumnAllowed, itemSheetColumns, MAX_IMPORT_ROWS, STOCK_SHEET_COLUMNS } from './catalogSheet.js'
 import { buildXlsx, sheet } from './exports/xlsxWriter.js'
 import { importGuideSheet } from './imports/importGuide.js'
 
@@ -32,23 +31,12 @@ export async function exportItems(ds: DataSource, q: ItemListQuery): Promise<Buf
   return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...itemSheetColumns<ExportRow>(), ...STOCK_SHEET_COLUMNS], rows }))
 }
 
-const ALLOWED: Partial<Record<string, string>> = {
-  family: ITEM_FAMILIES.join(', '),
-  stockUnit: STOCK_UNITS.join(', '),
-  thicknessClass: `${THICKNESS_CLASSES.join(', ')} (standard ≥ 3 7/8 in, thin ≥ 3 1/8 in thick, IRC R607.3)`,
-  shape: BLOCK_SHAPES.join(', '),
-  pattern: `${BLOCK_PATTERNS.join(', ')}, or a pattern of your own (letters, digits, space, - and _)`,
-  gtin: '8, 12, 13 or 14 digits with a valid GS1 check digit; format the column as text to keep leading zeros',
-  cost: 'Up to 4 decimals, no currency sign',
-  listPrice: 'Up to 2 decimals, no currency sign',
-}
-
 export async function itemImportTemplate(): Promise<Buffer> {
   return buildXlsx(
     sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [] }),
     importGuideSheet(
       ITEM_COLUMNS,
-      (c) => ALLOWED[c.key] ?? (c.kind === 'boolean' ? 'yes or no; blank keeps the item’s value (a new item: no)' : ''),
+      itemColumnAllowed,
       `At most ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows per file. A row whose SKU exists updates that item.`,
     ),
   )

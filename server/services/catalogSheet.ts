@@ -1,5 +1,6 @@
 // The item spreadsheet layout, one definition for the export, the blank import template and the
 // import itself, so an exported file can be edited and imported again.
+import { BLOCK_PATTERNS, BLOCK_SHAPES, ITEM_FAMILIES, STOCK_UNITS, THICKNESS_CLASSES } from '../../shared/catalog.js'
 import type { ItemFields, ItemRow } from '../../shared/schemas/catalog.js'
 import type { ImportColumn, ImportSpec } from './imports/importTypes.js'
 import type { CellKind, SheetColumn } from './exports/xlsxWriter.js'
@@ -40,6 +41,21 @@ export const ITEM_COLUMNS: readonly ItemColumn[] = [
   { key: 'jointMm', header: 'Joint mm', kind: 'decimal', places: 3 },
   { key: 'description', header: 'Description', kind: 'text', width: 40 },
 ]
+
+const ALLOWED: Partial<Record<string, string>> = {
+  family: ITEM_FAMILIES.join(', '),
+  stockUnit: STOCK_UNITS.join(', '),
+  thicknessClass: `${THICKNESS_CLASSES.join(', ')} (standard ≥ 3 7/8 in, thin ≥ 3 1/8 in thick, IRC R607.3)`,
+  shape: BLOCK_SHAPES.join(', '),
+  pattern: `${BLOCK_PATTERNS.join(', ')}, or a pattern of your own (letters, digits, space, - and _)`,
+  gtin: '8, 12, 13 or 14 digits with a valid GS1 check digit; format the column as text to keep leading zeros',
+  cost: 'Up to 4 decimals, no currency sign',
+  listPrice: 'Up to 2 decimals, no currency sign',
+}
+
+/** What a column of the item import takes, as its template's guide sheet and the everything-out README say it. */
+export const itemColumnAllowed = (c: { key: string; kind: ImportColumn['kind'] }): string =>
+  ALLOWED[c.key] ?? (c.kind === 'boolean' ? 'yes or no; blank keeps the item’s value (a new item: no)' : '')
 
 /** Read-only columns the export adds; the import skips them. */
 const STOCK_HEADERS = ['On hand', 'Available']

@@ -1,5 +1,5 @@
 // Everything out, against the real MariaDB: the demo scenario loaded into a database of its own is taken out
-// as one zip (a workbook per kind of record and a README), with no password hash or secret in it and an audit
+// as one zip (a README workbook first, then a workbook per kind of record), with no password hash or secret in it and an audit
 // entry for the download; then the files our imports read are brought into a second, empty database, and its
 // stock on hand by item, warehouse, bin and lot, its stock value and its counts equal the source's.
 import path from 'node:path'
@@ -12,7 +12,9 @@ import { loadDemoScenario } from '../../server/demo/index.js'
 import { EXPORT_PARTS } from '../../server/services/exports/businessExport.js'
 import type { ReorderLine } from '../../shared/schemas/reorder.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
-import { download, loadWorkbook, unzipEntries } from '../support/downloads.js'
+import { download, loadWorkbook, unzipEntries, workbookTexts } from '../support/downloads.js'
+import { parseXlsxRows } from '../../server/services/imports/sheetRows.js'
+import type { ImportSpec } from '../../server/services/imports/importTypes.js'
 
 const socket = path.join(dataRoot, 'test', 'mysqld.sock')
 const base = loadConfig(process.env).db.database
@@ -21,6 +23,9 @@ const DST = `${base}_out_dst`
 let src: ApiHarness
 let dst: ApiHarness
 let files: Map<string, Buffer>
+const HOSTILE_NAME = "=cmd|' /C calc'!A1"
+const HOSTILE_CONTACT = '@SUM(1)'
+const HOSTILE_ITEM = '+2 spare anchors =A1'
 
 async function freshDatabase(name: string, withDemo: boolean) {
   const user = loadConfig(process.env).db.user
@@ -36,7 +41,7 @@ async function freshDatabase(name: string, withDemo: boolean) {
   }
 }
 
-interface Parsed { headers: string[]; rows: Record<string, ExcelJS.CellValue>[]; texts: string[] }
+interface Parsed { headers: string[]; rows: Record<string, ExcelJS.CellValue>[]; texts: string[]; sheets: string[] }
 const parsed = new Map<string, Parsed>()
 
 /** A workbook's first sheet as objects keyed by the header row, and every text it shows (read once per file). */
@@ -53,7 +58,7 @@ async function sheetRows(file: string): Promise<Parsed> {
     rows.push(Object.fromEntries(headers.map((h, i) => [h, row.getCell(i + 1).value])))
     row.eachCell((cell) => { if (typeof cell.value === 'string') texts.push(cell.value) })
   })
-  const out = { headers, rows, texts }
+  const out = { headers, rows, texts, sheets: book.worksheets.map((w) => w.name) }
   parsed.set(file, out)
   return out
 }
@@ -63,6 +68,10 @@ beforeAll(async () => {
   await freshDatabase(DST, false)
   src = await startApiHarness({ LUMENYARD_DB_NAME: SRC })
   dst = await startApiHarness({ LUMENYARD_DB_NAME: DST })
+  // Text a spreadsheet would otherwise run as a formula (source: OWASP "CSV Injection") in an account's name and
+  // contact and an item's name: it goes out and comes back in exactly as typed.
+  await src.ds.query('UPDATE customers SET name = ?, contact_name = ? ORDER BY code LIMIT 1', [HOSTILE_NAME, HOSTILE_CONTACT])
+  await src.ds.query('UPDATE items SET name = ? ORDER BY sku LIMIT 1', [HOSTILE_ITEM])
 }, 300_000)
 
 afterAll(async () => {
@@ -84,15 +93,6 @@ describe('everything out', () => {
       'open-purchase-orders', 'purchase-orders', 'purchase-order-lines', 'receipts', 'quotes', 'quote-lines', 'users', 'settings',
       'takeoffs', 'takeoff-walls', 'takeoff-loose-lines', 'bills', 'bill-lines', 'bill-cautions', 'sales-orders', 'sales-order-lines', 'payments']) {
       expect(files.has(`${f}.xlsx`), f).toBe(true)
-    }
-    const readme = files.get('README.txt')!.toString('utf8')
-    // Every column of every workbook is explained in the README, under its file.
-    for (const [name] of files) {
-      if (!name.endsWith('.xlsx')) continue
-      const { headers } = await sheetRows(name)
-      const section = readme.slice(readme.indexOf(`${name} (sheet`))
-      expect(readme.includes(`${name} (sheet`), name).toBe(true)
-      for (const h of headers) expect(section.includes(`  - ${h}: `), `${name}: ${h}`).toBe(true)
     }
     // Counts straight from the source database.
     const count = async (table: string) => Number((await src.ds.query(`SELECT COUNT(*) AS n FROM ${table}`))[0].n)
@@ -137,7 +137,7 @@ describe('everything out', () => {
     expect(hashes.length).toBeGreaterThan(0)
     const secrets = [src.config.session.secret, src.config.db.password, ...hashes.map((u) => u.password_hash)]
     for (const [name, bytes] of files) {
-      const texts = name.endsWith('.xlsx') ? (await sheetRows(name)).texts : name.endsWith('.txt') ? [bytes.toString('utf8')] : []
+      const texts = name === 'README.xlsx' ? workbookTexts(await loadWorkbook(bytes)) : name.endsWith('.xlsx') ? (await sheetRows(name)).texts : []
       for (const t of texts) {
         expect(/\$2[aby]\$\d\d\$/.test(t), `${name}: ${t.slice(0, 20)}`).toBe(false)
         for (const s of secrets) expect(t.includes(s), name).toBe(false)
@@ -158,11 +158,92 @@ describe('everything out', () => {
       "SELECT table_name AS name FROM information_schema.tables WHERE table_schema = DATABASE() AND table_type = 'BASE TABLE' ORDER BY table_name")
     expect(tables.length).toBeGreaterThan(40)
     const read = new Set(EXPORT_PARTS.flatMap((p) => [...p.sql.matchAll(/\b(?:FROM|JOIN)\s+([a-z_]+)/gi)].map((m) => m[1])))
-    const readme = files.get('README.txt')!.toString('utf8')
-    const leftOut = readme.slice(readme.indexOf('Left out on purpose'))
-    const missing = tables.map((t) => t.name).filter((t) => !read.has(t) && !leftOut.includes(`  - ${t}: `))
+    const leftOutSheet = (await loadWorkbook(files.get('README.xlsx')!)).getWorksheet('Left out')!
+    const leftOut = new Map<string, string>()
+    leftOutSheet.eachRow((row, n) => { if (n > 1) leftOut.set(String(row.getCell(1).value), String(row.getCell(2).value ?? '')) })
+    const missing = tables.map((t) => t.name).filter((t) => !read.has(t) && !leftOut.get(t)?.trim())
     // common practice: a full data export covers every record type, and says what it leaves out.
     expect(missing).toEqual([])
+  })
+
+  it('describes every column of every sheet in a README workbook, the first entry, read as the imports read a file', async () => {
+    expect(files, 'the download test ran first').toBeDefined()
+    expect([...files.keys()][0]).toBe('README.xlsx')
+    // The README's first sheet, through the reader every import uses (exceljs's streaming reader, header matching).
+    const spec: ImportSpec = {
+      columns: [
+        { key: 'file', header: 'File', kind: 'text', required: true },
+        { key: 'sheet', header: 'Sheet', kind: 'text', required: true },
+        { key: 'column', header: 'Column', kind: 'text', required: true },
+        { key: 'meaning', header: 'Meaning', kind: 'text', required: true },
+        { key: 'allowed', header: 'Allowed values or format', kind: 'text', required: true },
+        { key: 'readBy', header: 'Read by an import', kind: 'text', required: true },
+      ],
+      maxRows: 5000, maxColumns: 10,
+    }
+    const parsedReadme = await parseXlsxRows(files.get('README.xlsx')!, spec)
+    if (!parsedReadme.ok) throw new Error(parsedReadme.message)
+    expect(parsedReadme.sheet.issues).toEqual([])
+    const described = new Map(parsedReadme.sheet.rows.map((r) => [`${r.values.file} | ${r.values.column}`, r.values as Record<string, string>]))
+    // Every column of every sheet of every workbook has its row (common practice: a data dictionary describes
+    // every column it ships), and the README describes no column the files do not have.
+    const shipped = new Set<string>()
+    for (const name of files.keys()) {
+      if (!name.endsWith('.xlsx') || name === 'README.xlsx') continue
+      const { headers, sheets } = await sheetRows(name)
+      expect(sheets.length, name).toBe(1)
+      expect(headers.length, name).toBeGreaterThan(0)
+      for (const h of headers) {
+        const row = described.get(`${name} | ${h}`)
+        expect(row, `${name}: ${h}`).toBeDefined()
+        expect(row!.sheet, `${name}: ${h}`).toBe(sheets[0])
+        expect(row!.meaning.length, `${name}: ${h}`).toBeGreaterThan(3)
+        shipped.add(`${name} | ${h}`)
+      }
+    }
+    expect([...described.keys()].filter((k) => !shipped.has(k))).toEqual([])
+
+    // A column said to be read by an import is a column of that import's own blank template, and a column of
+    // the template is never said to be skipped: the README and the templates agree on what reads back in.
+    const admin = await src.as('admin')
+    const templates: [string, string][] = [['items.xlsx', '/api/items/import/template.xlsx'], ['stock-by-bin.xlsx', '/api/imports/opening_stock/template.xlsx'],
+      ['usage-history.xlsx', '/api/imports/usage_history/template.xlsx'], ['accounts.xlsx', '/api/imports/accounts/template.xlsx'],
+      ['vendor-items.xlsx', '/api/imports/vendor_items/template.xlsx'], ['open-purchase-orders.xlsx', '/api/imports/purchase_orders/template.xlsx']]
+    for (const [file, path] of templates) {
+      const res = await download(admin, path)
+      expect(res.status, path).toBe(200)
+      const template = (await loadWorkbook(res.body as Buffer)).worksheets[0]
+      const templateHeaders = (template.getRow(1).values as ExcelJS.CellValue[]).slice(1).map(String)
+      for (const h of (await sheetRows(file)).headers) {
+        const readBy = described.get(`${file} | ${h}`)!.readBy
+        expect(readBy.startsWith('yes'), `${file}: ${h} (${readBy})`).toBe(templateHeaders.includes(h))
+      }
+    }
+    // No other file claims an import reads it.
+    const claimed = [...described.values()].filter((r) => r.readBy.startsWith('yes')).map((r) => r.file)
+    expect([...new Set(claimed)].sort()).toEqual(templates.map(([f]) => f).sort())
+
+    // A column whose values come from a list holds only values from that list (common practice: a data
+    // dictionary's allowed values cover the data it describes).
+    const listed = [...described.values()].filter((r) => r.allowed.startsWith('One of: '))
+    expect(listed.length).toBeGreaterThan(8)
+    for (const r of listed) {
+      const allowed = r.allowed.slice('One of: '.length).replace(/\.$/, '').split(', ')
+      const seen = new Set((await sheetRows(r.file)).rows.map((row) => row[r.column]).filter((x) => x !== null && x !== undefined && x !== ''))
+      expect([...seen].filter((x) => !allowed.includes(String(x))), `${r.file}: ${r.column}`).toEqual([])
+    }
+    const moveTypes = (await sheetRows('moves.xlsx')).rows.map((row) => row.Type)
+    expect(new Set(moveTypes).size, 'the demo ledger has several kinds of move').toBeGreaterThan(4)
+  })
+
+  it('reads the ledger in its own order, never sorting it in a temporary table', async () => {
+    // source: MariaDB's EXPLAIN documentation: "Using temporary" and "Using filesort" mean the rows are gathered
+    // and sorted before the first is sent; over a million-move ledger that is the whole ledger, held by the server.
+    for (const part of EXPORT_PARTS.filter((p) => /FROM stock_moves m JOIN/.test(p.sql))) {
+      const plan: { table: string; Extra: string | null }[] = await src.ds.query(`EXPLAIN ${part.sql}`)
+      expect(plan[0].table, part.file).toBe('m')
+      expect(plan.filter((row) => /temporary|filesort/i.test(row.Extra ?? '')), part.file).toEqual([])
+    }
   })
 
   it('refuses other roles', async () => {
@@ -221,10 +302,15 @@ describe('everything out', () => {
        GROUP BY m.item_id, m.bin_id, m.lot_id HAVING moved <> on_hand`)
     expect(gaps).toEqual([])
 
-    // The same accounts, field by field.
+    // The same item names, formula-looking ones included.
+    const itemNames = (h: ApiHarness) => h.ds.query('SELECT sku, name FROM items ORDER BY sku')
+    expect((await itemNames(src)).map((r: { name: string }) => r.name)).toContain(HOSTILE_ITEM)
+    expect(await itemNames(dst)).toEqual(await itemNames(src))
+    // The same accounts, field by field (formula-looking name and contact included).
     const accounts = (h: ApiHarness) => h.ds.query(
       `SELECT c.code, c.name, c.contact_name, c.email, c.phone, c.address, c.notes, pl.code AS level, t.exempt_certificate, t.exempt_until
          FROM customers c LEFT JOIN customer_terms t ON t.customer_id = c.id LEFT JOIN price_levels pl ON pl.id = t.price_level_id ORDER BY c.code`)
+    expect((await accounts(src)).some((a: { name: string; contact_name: string }) => a.name === HOSTILE_NAME && a.contact_name === HOSTILE_CONTACT)).toBe(true)
     expect(await accounts(dst)).toEqual(await accounts(src))
     // The same vendor items: vendor, item, vendor SKU, pack, minimum, cost, preferred, and the lead time the
     // reorder figures read (the item's, else its vendor's).

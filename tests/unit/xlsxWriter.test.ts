@@ -7,7 +7,8 @@ import { tmpdir } from 'node:os'
 import path from 'node:path'
 import { once } from 'node:events'
 import { afterAll, describe, expect, it } from 'vitest'
-import { buildXlsx, fieldsSheet, sheet, streamXlsx, type SheetColumn } from '../../server/services/exports/xlsxWriter.js'
+import ExcelJS from 'exceljs'
+import { buildXlsx, fieldsSheet, openSheet, sheet, streamXlsx, type SheetColumn } from '../../server/services/exports/xlsxWriter.js'
 
 // source: OWASP "CSV Injection": the leading characters that make a spreadsheet read a cell as a formula
 const HOSTILE = ['=HYPERLINK("http://example.invalid","x")', '+cmd', '-2+3 spare anchors', '@SUM(A1:A9)', '\tTab Street 4']
@@ -24,7 +25,7 @@ const ROWS: Row[] = HOSTILE.map((text, i) => ({ text, qty: 1234 + i, day: '2026-
 const dir = mkdtempSync(path.join(tmpdir(), 'lumenyard-xlsx-'))
 afterAll(() => rmSync(dir, { recursive: true, force: true }))
 function part(file: string, name: string): string {
-  return execFileSync('unzip', ['-p', file, name], { encoding: 'utf8' })
+  return execFileSync('unzip', ['-p', file, name], { encoding: 'utf8', maxBuffer: 64 * 1048576 })
 }
 const unescape = (xml: string) => xml.replace(/&quot;/g, '"').replace(/&apos;/g, "'").replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&amp;/g, '&')
 
@@ -98,4 +99,52 @@ describe('print setup', () => {
       expect(unescape(part(file, 'xl/workbook.xml'))).toContain(`<definedName name="_xlnm.Print_Titles" localSheetId="0">'Rows'!$1:$1</definedName>`)
     }
   })
+})
+
+describe('long streamed sheets', () => {
+  it('keep memory bounded while compressing lags, and every row keeps its column’s number format', async () => {
+    const file = path.join(dir, 'long.xlsx')
+    const out = createWriteStream(file)
+    const book = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: false })
+    const long = openSheet<number>(book, {
+      name: 'Moves',
+      columns: [
+        { header: 'Move', kind: 'integer', value: (n) => n },
+        { header: 'SKU', kind: 'text', value: (n) => `GB-${n % 997}` },
+        { header: 'Unit cost', kind: 'cost', value: (n) => `${n % 50}.2500` },
+        { header: 'At', kind: 'datetime', value: (n) => new Date(Date.UTC(2026, 0, 1) + n * 30_000) },
+        { header: 'Type', kind: 'text', value: (n) => (n % 2 ? 'receipt' : 'issue') },
+        { header: 'Bin', kind: 'text', value: (n) => `A-${String(n % 40).padStart(2, '0')}-${n % 5}` },
+        { header: 'Quantity', kind: 'integer', value: (n) => (n % 2 ? 12 : -12) },
+        { header: 'Note', kind: 'text', value: (n) => (n % 7 ? null : 'Counted again after the pallet was moved') },
+      ],
+    })
+    const ROWS_WRITTEN = 100_000
+    const before = process.memoryUsage().arrayBuffers
+    let peak = before
+    for (let n = 1; n <= ROWS_WRITTEN; n++) {
+      long.add(n)
+      if (n % 200 === 0) await long.room()
+      if (n % 1000 === 0) {
+        peak = Math.max(peak, process.memoryUsage().arrayBuffers)
+        await new Promise((resolve) => setImmediate(resolve))
+      }
+    }
+    long.done()
+    await book.commit()
+    if (!out.writableFinished) await once(out, 'finish')
+    // common practice: a streamed writer holds a window of the file, not the file (these rows' XML runs to tens of megabytes).
+    expect((peak - before) / 1048576).toBeLessThan(6)
+
+    // Read back with unzip: the last row's cost cell has the same style as the first row's, and that style's
+    // number format is the cost format (source: ECMA-376 Part 1, c@s indexes cellXfs, xf@numFmtId numFmts).
+    const xml = part(file, 'xl/worksheets/sheet1.xml')
+    const styleOf = (ref: string) => new RegExp(`<c r="${ref}" s="(\\d+)"`).exec(xml)?.[1]
+    expect(styleOf('C2')).toBeDefined()
+    expect(styleOf(`C${ROWS_WRITTEN + 1}`)).toBe(styleOf('C2'))
+    const styles = part(file, 'xl/styles.xml')
+    const xfs = [.../<cellXfs[^>]*>([\s\S]*?)<\/cellXfs>/.exec(styles)![1].matchAll(/<xf [^>]*numFmtId="(\d+)"/g)].map((m) => m[1])
+    const fmtId = xfs[Number(styleOf('C2'))]
+    expect(new RegExp(`<numFmt numFmtId="${fmtId}" formatCode="#,##0.0000"/>`).test(styles)).toBe(true)
+  }, 60_000)
 })

@@ -1,5 +1,5 @@
-// The whole business in one zip: one workbook per kind of record, and a README.txt that says what each file
-// and column holds. Where an import reads a kind (items, stock by bin and lot, accounts, open purchase orders,
+// The whole business in one zip: first a README workbook that says what each file and each column holds (its
+// meaning, what it allows and which import reads it back), then one workbook per kind of record. Where an import reads a kind (items, stock by bin and lot, accounts, open purchase orders,
 // usage history), its file uses that import's columns, so the zip can be brought into another Lumenyard.
 // Everything is read in one consistent snapshot and streamed: rows go from the database cursor to the
 // workbook to the zip to the answer, and the writer waits whenever the reader is slower, so memory does not
@@ -10,22 +10,39 @@ import { ZipArchive, type Archiver } from 'archiver'
 import ExcelJS from 'exceljs'
 import type { DataSource, QueryRunner } from 'typeorm'
 import { audit, type AuditActor } from '../auditService.js'
-import { ITEM_COLUMNS, columnOf } from '../catalogSheet.js'
-import { OPENING_STOCK_SPEC } from '../imports/openingStockImport.js'
-import { ACCOUNTS_SPEC } from '../imports/accountsImport.js'
-import { PURCHASE_ORDERS_SPEC } from '../imports/purchaseOrdersImport.js'
-import { USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
-import { VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
+import { ITEM_COLUMNS, columnOf, itemColumnAllowed } from '../catalogSheet.js'
+import { OPENING_STOCK_GUIDE, OPENING_STOCK_SPEC } from '../imports/openingStockImport.js'
+import { ACCOUNTS_GUIDE, ACCOUNTS_SPEC } from '../imports/accountsImport.js'
+import { PURCHASE_ORDERS_GUIDE, PURCHASE_ORDERS_SPEC } from '../imports/purchaseOrdersImport.js'
+import { USAGE_HISTORY_GUIDE, USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
+import { VENDOR_ITEMS_GUIDE, VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
 import type { ImportSpec } from '../imports/importTypes.js'
-import { openSheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
-import { DAY, col, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
+import { buildXlsx, fieldsSheet, openSheet, sheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
+import { DAY, col, formatOf, oneOf, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
 import { LEFT_OUT, RECORD_PARTS } from './recordParts.js'
 import { OPEN_PO_STATUSES } from '../../entities/PurchaseOrder.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
+import { ADJUSTMENT_REASONS, BIN_KINDS, MOVE_TYPES } from '../../../shared/catalog.js'
+import { ROLES } from '../../../shared/roles.js'
+import { JOB_STATUSES } from '../../../shared/schemas/counter.js'
+import { PO_STATUSES } from '../../../shared/schemas/purchasing.js'
+import { QUOTE_STATUSES } from '../../../shared/sales/quoteStatus.js'
+
+/** The import that reads a file back in: its name in the README, its spec and what its template says each column takes. */
+interface ReadBack { name: string; spec: ImportSpec; guide: Record<string, string> }
+
+const OPENING_STOCK: ReadBack = { name: 'opening stock import', spec: OPENING_STOCK_SPEC, guide: OPENING_STOCK_GUIDE }
+const USAGE_HISTORY: ReadBack = { name: 'usage history import', spec: USAGE_HISTORY_SPEC, guide: USAGE_HISTORY_GUIDE }
+const ACCOUNTS: ReadBack = { name: 'accounts import', spec: ACCOUNTS_SPEC, guide: ACCOUNTS_GUIDE }
+const VENDOR_ITEMS: ReadBack = { name: 'vendors with their items import', spec: VENDOR_ITEMS_SPEC, guide: VENDOR_ITEMS_GUIDE }
+const PURCHASE_ORDERS: ReadBack = { name: 'open purchase orders import', spec: PURCHASE_ORDERS_SPEC, guide: PURCHASE_ORDERS_GUIDE }
+const ITEM_IMPORT_NAME = 'item import'
 
 /** The columns of an import, in its own order and headers: the exported file reads back in. */
-function importColumns(spec: ImportSpec, kinds: Record<string, { kind: CellKind; key: string; about: string; places?: number }>): PartColumn[] {
-  return spec.columns.filter((c) => kinds[c.key]).map((c) => ({ header: c.header, ...kinds[c.key], value: v(kinds[c.key].key) }))
+function importColumns(by: ReadBack, kinds: Record<string, { kind: CellKind; key: string; about: string; places?: number }>): PartColumn[] {
+  return by.spec.columns.filter((c) => kinds[c.key]).map((c) => ({
+    header: c.header, ...kinds[c.key], value: v(kinds[c.key].key), allowed: by.guide[c.key] || undefined, readBy: by.name,
+  }))
 }
 
 export type { ExportPart } from './exportParts.js'
@@ -39,6 +56,8 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       kind: c.kind === 'decimal' ? 'decimal' : c.kind,
       places: c.places,
       about: c.required ? 'As in the item import template (required there).' : 'As in the item import template.',
+      allowed: itemColumnAllowed(c) || undefined,
+      readBy: ITEM_IMPORT_NAME,
       value: (row: Raw) => (c.kind === 'boolean' ? Boolean(Number(row[columnOf(c.key)])) : (row[columnOf(c.key)] as CellInput)),
     })),
     sql: 'SELECT * FROM items ORDER BY sku',
@@ -61,7 +80,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     columns: [
       col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),
       col('Bin', 'text', 'code', 'The bin code, unique within its warehouse.'),
-      col('Kind', 'text', 'kind', 'storage, receiving, staging or transit (stock on the way between warehouses).'),
+      oneOf(col('Kind', 'text', 'kind', 'What the bin is for; transit bins hold stock on the way between warehouses.'), BIN_KINDS),
       col('Active', 'boolean', 'active', 'no: taken out of use.'),
     ],
     sql: 'SELECT w.code AS warehouse, b.code, b.kind, b.active FROM bins b JOIN warehouses w ON w.id = b.warehouse_id ORDER BY w.code, b.code',
@@ -82,7 +101,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     file: 'stock-by-bin', sheet: 'Stock by bin',
     about: 'Stock on hand by item, warehouse, bin and lot at each item\'s average cost in that warehouse, in the columns of the opening-stock import (Admin → Bring your data in reads this file back). Stock on the way between warehouses is in stock-on-the-way.xlsx.',
     columns: [
-      ...importColumns(OPENING_STOCK_SPEC, {
+      ...importColumns(OPENING_STOCK, {
         sku: { kind: 'text', key: 'sku', about: 'The item.' },
         warehouse: { kind: 'text', key: 'warehouse', about: 'The warehouse code.' },
         bin: { kind: 'text', key: 'bin', about: 'The bin code.' },
@@ -129,7 +148,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     columns: [
       col('Move', 'integer', 'id', 'The move\'s number.'),
       col('At', 'datetime', 'at', 'When (UTC).'),
-      col('Type', 'text', 'move_type', 'receipt, issue, pick, adjustment, count, bin_move, transfer_out, transfer_in or opening.'),
+      oneOf(col('Type', 'text', 'move_type', 'What moved the stock.'), MOVE_TYPES),
       col('SKU', 'text', 'sku', 'The item.'),
       col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),
       col('Bin', 'text', 'bin', 'The bin code.'),
@@ -138,30 +157,32 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('Unit cost', 'cost', 'unit_cost', 'Cost of one stock unit on this move.'),
       col('Document', 'text', 'doc_type', 'What the move belongs to (a receipt, a pick list, a count, a transfer…).'),
       col('Document id', 'integer', 'doc_id', 'That document\'s number.'),
-      col('Reason', 'text', 'reason', 'Why (adjustments).'),
+      oneOf(col('Reason', 'text', 'reason', 'Why (adjustments).'), ADJUSTMENT_REASONS),
       col('Note', 'text', 'note', 'A note typed with the move.'),
       col('By', 'text', 'username', 'Who made it (user name).'),
     ],
-    sql: `SELECT m.id, m.at, m.move_type, i.sku, w.code AS warehouse, b.code AS bin, l.code AS lot, m.qty, m.unit_cost, m.doc_type, m.doc_id, m.reason, m.note, u.username
+    sql: `SELECT STRAIGHT_JOIN m.id, m.at, m.move_type, i.sku, w.code AS warehouse, b.code AS bin, l.code AS lot, m.qty, m.unit_cost, m.doc_type, m.doc_id, m.reason, m.note, u.username
           FROM stock_moves m JOIN items i ON i.id = m.item_id JOIN warehouses w ON w.id = m.warehouse_id JOIN bins b ON b.id = m.bin_id
           LEFT JOIN lots l ON l.id = m.lot_id LEFT JOIN users u ON u.id = m.user_id ORDER BY m.id`,
   },
   {
     file: 'usage-history', sheet: 'Usage history',
     about: 'Usage per item, warehouse and day: the issues and picks of the ledger added to any usage history brought in earlier, in the columns of the usage-history import. Read back into another Lumenyard, its reorder points start from the same use.',
-    columns: importColumns(USAGE_HISTORY_SPEC, {
+    columns: importColumns(USAGE_HISTORY, {
       sku: { kind: 'text', key: 'sku', about: 'The item.' },
       warehouse: { kind: 'text', key: 'warehouse', about: 'The warehouse code.' },
       day: { kind: 'text', key: 'day', about: 'The day, YYYY-MM-DD.' },
       quantity: { kind: 'integer', key: 'qty', about: 'Stock units used that day (issues and picks less what was put back the same way).' },
     }),
-    // The same sums the reorder statistics read (usageQueries.ts): issues and picks by day, plus imported history.
-    sql: `SELECT i.sku, w.code AS warehouse, ${DAY('u.day')} AS day, SUM(u.qty) AS qty FROM (
-            SELECT m.item_id, m.warehouse_id, DATE(m.at) AS day, -SUM(m.qty) AS qty FROM stock_moves m
-             WHERE m.move_type IN (${USAGE_MOVE_TYPES.map((t) => `'${t}'`).join(', ')}) GROUP BY m.item_id, m.warehouse_id, DATE(m.at)
-            UNION ALL SELECT h.item_id, h.warehouse_id, h.day, h.qty FROM usage_history h) u
-          JOIN items i ON i.id = u.item_id JOIN warehouses w ON w.id = u.warehouse_id
-          GROUP BY u.day, i.sku, w.code HAVING qty <> 0 ORDER BY u.day, i.sku, w.code`,
+    // The same sums the reorder statistics read (usageQueries.ts): issues and picks by day, plus imported history,
+    // summed once by ids (a second grouping by codes after the joins doubled the database's work on a long ledger).
+    sql: `SELECT i.sku, w.code AS warehouse, ${DAY('u.day')} AS day, u.qty FROM (
+            SELECT item_id, warehouse_id, day, SUM(qty) AS qty FROM (
+              SELECT m.item_id, m.warehouse_id, DATE(m.at) AS day, -m.qty AS qty FROM stock_moves m
+               WHERE m.move_type IN (${USAGE_MOVE_TYPES.map((t) => `'${t}'`).join(', ')})
+              UNION ALL SELECT h.item_id, h.warehouse_id, h.day, h.qty FROM usage_history h) x
+            GROUP BY item_id, warehouse_id, day HAVING qty <> 0) u
+          JOIN items i ON i.id = u.item_id JOIN warehouses w ON w.id = u.warehouse_id ORDER BY u.day, i.sku, w.code`,
   },
   {
     file: 'price-levels', sheet: 'Price levels',
@@ -178,7 +199,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     file: 'accounts', sheet: 'Accounts',
     about: 'Contractor accounts with their price level and tax exemption, in the columns of the accounts import.',
     columns: [
-      ...importColumns(ACCOUNTS_SPEC, {
+      ...importColumns(ACCOUNTS, {
         code: { kind: 'text', key: 'code', about: 'The account code.' },
         name: { kind: 'text', key: 'name', about: 'The contractor\'s name.' },
         contactName: { kind: 'text', key: 'contact_name', about: 'Who to ask for.' },
@@ -203,7 +224,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('Account code', 'text', 'account', 'Whose job.'),
       col('Job', 'text', 'name', 'The job\'s name.'),
       col('Site address', 'text', 'site_address', 'Where the work is.'),
-      col('Status', 'text', 'status', 'Where the job stands.'),
+      oneOf(col('Status', 'text', 'status', 'Where the job stands.'), JOB_STATUSES),
       col('Due', 'text', 'due', 'When it is due, YYYY-MM-DD.'),
       col('Notes', 'text', 'notes', 'Notes.'),
       col('Created', 'datetime', 'created_at', 'When it was entered (UTC).'),
@@ -221,7 +242,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('Phone', 'text', 'phone', 'Phone.'),
       col('Address', 'text', 'address', 'Address.'),
       col('Terms', 'text', 'terms', 'Payment terms.'),
-      col('Currency', 'text', 'currency', 'ISO 4217 currency code.'),
+      { ...col('Currency', 'text', 'currency', 'The currency of its prices.'), allowed: 'Three-letter ISO 4217 code (USD, CAD…).' },
       col('Lead time days', 'integer', 'lead_time_days', 'Usual days from order to arrival.'),
       col('Active', 'boolean', 'active', 'no: no longer bought from.'),
     ],
@@ -230,7 +251,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
   {
     file: 'vendor-items', sheet: 'Vendor items',
     about: 'What each vendor sells us, in the columns of the vendors-with-items import.',
-    columns: importColumns(VENDOR_ITEMS_SPEC, {
+    columns: importColumns(VENDOR_ITEMS, {
       vendor: { kind: 'text', key: 'vendor', about: 'The vendor code.' },
       vendorName: { kind: 'text', key: 'vendor_name', about: 'The vendor\'s name.' },
       sku: { kind: 'text', key: 'sku', about: 'Our item.' },
@@ -247,7 +268,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
   {
     file: 'open-purchase-orders', sheet: 'Open purchase orders',
     about: 'Lines of the orders approved or sent to vendors and not yet fully received (what is on order), in the columns of the open purchase orders import.',
-    columns: importColumns(PURCHASE_ORDERS_SPEC, {
+    columns: importColumns(PURCHASE_ORDERS, {
       number: { kind: 'text', key: 'number', about: 'The order number.' },
       vendor: { kind: 'text', key: 'vendor', about: 'The vendor code.' },
       warehouse: { kind: 'text', key: 'warehouse', about: 'Where it arrives.' },
@@ -270,8 +291,8 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('Order number', 'text', 'number', 'The order number.'),
       col('Vendor code', 'text', 'vendor', 'The vendor.'),
       col('Ship to warehouse', 'text', 'warehouse', 'Where it arrives.'),
-      col('Status', 'text', 'status', 'draft, approved, sent, partly_received, received, closed or cancelled.'),
-      col('Currency', 'text', 'currency', 'ISO 4217 currency code.'),
+      oneOf(col('Status', 'text', 'status', 'Where the order stands.'), PO_STATUSES),
+      { ...col('Currency', 'text', 'currency', 'The currency of its prices.'), allowed: 'Three-letter ISO 4217 code (USD, CAD…).' },
       col('Expected', 'text', 'expected', 'The day the vendor said, YYYY-MM-DD.'),
       col('Total', 'money', 'total', 'The order\'s total.'),
       col('Created', 'datetime', 'created_at', 'When it was made (UTC).'),
@@ -324,7 +345,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
     columns: [
       col('Quote', 'text', 'number', 'The quote number.'),
       col('Revision', 'integer', 'revision', 'Its revision.'),
-      col('Status', 'text', 'status', 'Where it stands.'),
+      oneOf(col('Status', 'text', 'status', 'Where it stands.'), QUOTE_STATUSES),
       col('Account code', 'text', 'account', 'For whom.'),
       col('Job', 'text', 'job', 'For which job.'),
       col('Warehouse', 'text', 'warehouse', 'Supplied from.'),
@@ -365,11 +386,11 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('User name', 'text', 'username', 'What they sign in with.'),
       col('Name', 'text', 'display_name', 'Their name as shown.'),
       col('E-mail', 'text', 'email', 'E-mail.'),
-      col('Roles', 'text', 'roles', 'admin, counter, warehouse, buyer, viewer.'),
+      { ...col('Roles', 'text', 'roles', 'What they may do.'), allowed: `One or more of ${ROLES.join(', ')}, separated by commas.` },
       col('Active', 'boolean', 'active', 'no: can no longer sign in.'),
-      col('Length unit', 'text', 'unit_preference', 'in or mm.'),
-      col('Weight unit', 'text', 'weight_unit', 'lb or kg.'),
-      col('Language', 'text', 'locale', 'en or es.'),
+      oneOf(col('Length unit', 'text', 'unit_preference', 'Lengths shown in inches or millimetres.'), ['in', 'mm']),
+      oneOf(col('Weight unit', 'text', 'weight_unit', 'Weights shown in pounds or kilograms.'), ['lb', 'kg']),
+      oneOf(col('Language', 'text', 'locale', 'The language of their screens and documents.'), ['en', 'es']),
       col('Last sign-in', 'datetime', 'last_sign_in_at', 'UTC.'),
     ],
     sql: 'SELECT username, display_name, email, roles, active, unit_preference, weight_unit, locale, last_sign_in_at FROM users ORDER BY username',
@@ -399,28 +420,62 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
 /** Rows written, per file. */
 export type ExportCounts = Record<string, number>
 
-/** Column headers of a part with what each holds, as plain text. */
-export function readmeText(parts: readonly ExportPart[], at: Date): string {
-  const lines = [
-    'Lumenyard: everything out',
-    `Written ${at.toISOString().slice(0, 19).replace('T', ' ')} UTC, all files from one moment of the database.`,
-    '',
-    'Each .xlsx file holds one kind of record on one sheet, first row the column names. Files marked "reads back"',
-    'use the columns of a Lumenyard import (Admin → Bring your data in, or Stock → Import items), so they can be',
-    'brought into another Lumenyard as they are. Times are UTC; days are YYYY-MM-DD; quantities are in each item\'s',
-    'stock unit; costs and prices carry no currency sign. No passwords, password hashes or sign-in sessions are',
-    'included.',
-    '',
-  ]
-  for (const p of parts) {
-    lines.push(`${p.file}.xlsx (sheet "${p.sheet}")`, `  ${p.about}`)
-    for (const c of p.columns) lines.push(`  - ${c.header}: ${c.about}`)
-    lines.push('')
-  }
-  lines.push('Left out on purpose (no file of their own):')
-  for (const l of LEFT_OUT) lines.push(`  - ${l.table}: ${l.why}.`)
-  lines.push('')
-  return lines.join('\r\n')
+export const README_FILE = 'README.xlsx'
+
+interface ReadmeColumn { file: string; sheet: string; column: string; meaning: string; allowed: string; readBy: string }
+
+/**
+ * The README workbook, the zip's first entry: on its first sheet one row per column of every file (what it
+ * means, what it allows, which import reads it back), then the files, what is left out and why, and general notes.
+ */
+export async function readmeWorkbook(parts: readonly ExportPart[], at: Date): Promise<Buffer> {
+  const rows: ReadmeColumn[] = parts.flatMap((p) => p.columns.map((c) => ({
+    file: `${p.file}.xlsx`, sheet: p.sheet, column: c.header, meaning: c.about, allowed: formatOf(c), readBy: c.readBy ? `yes: the ${c.readBy}` : 'no',
+  })))
+  const readers = (p: ExportPart) => [...new Set(p.columns.flatMap((c) => (c.readBy ? [c.readBy] : [])))]
+  return buildXlsx(
+    sheet<ReadmeColumn>({
+      name: 'Columns', title: 'Lumenyard everything out: columns',
+      columns: [
+        { header: 'File', kind: 'text', width: 28, value: (r) => r.file },
+        { header: 'Sheet', kind: 'text', width: 22, value: (r) => r.sheet },
+        { header: 'Column', kind: 'text', width: 26, value: (r) => r.column },
+        { header: 'Meaning', kind: 'text', width: 60, value: (r) => r.meaning },
+        { header: 'Allowed values or format', kind: 'text', width: 60, value: (r) => r.allowed },
+        { header: 'Read by an import', kind: 'text', width: 34, value: (r) => r.readBy },
+      ],
+      rows,
+    }),
+    sheet<ExportPart>({
+      name: 'Files', title: 'Lumenyard everything out: files',
+      columns: [
+        { header: 'File', kind: 'text', width: 28, value: (p) => `${p.file}.xlsx` },
+        { header: 'Sheet', kind: 'text', width: 22, value: (p) => p.sheet },
+        { header: 'What it holds', kind: 'text', width: 90, value: (p) => p.about },
+        { header: 'Read back by', kind: 'text', width: 34, value: (p) => readers(p).map((r) => `the ${r}`).join(', ') || 'no import' },
+      ],
+      rows: parts,
+    }),
+    sheet<{ table: string; why: string }>({
+      name: 'Left out', title: 'Lumenyard everything out: left out on purpose',
+      columns: [
+        { header: 'Table', kind: 'text', width: 26, value: (l) => l.table },
+        { header: 'Why it has no file', kind: 'text', width: 90, value: (l) => l.why },
+      ],
+      rows: LEFT_OUT,
+    }),
+    fieldsSheet({
+      name: 'About', title: 'Lumenyard everything out',
+      fields: [
+        { label: 'Written (UTC)', kind: 'datetime', value: at },
+        { label: 'Moment', kind: 'text', value: 'Every file was read from one moment of the database.' },
+        { label: 'Files', kind: 'text', value: 'Each .xlsx file holds one kind of record on one sheet; the first row names the columns.' },
+        { label: 'Reading back', kind: 'text', value: 'Files whose columns an import reads (the Columns sheet says which) can be brought into another Lumenyard as they are: Admin → Bring your data in, or Stock → Import items. Columns no import reads are skipped.' },
+        { label: 'Units', kind: 'text', value: 'Times are UTC; days are YYYY-MM-DD; quantities are in each item\'s stock unit; lengths in takeoffs are millimetres; costs and prices carry no currency sign.' },
+        { label: 'Not included', kind: 'text', value: 'No passwords, password hashes, sign-in sessions or card numbers.' },
+      ],
+    }),
+  )
 }
 
 /** Waits while the destination is full, so rows are read no faster than they are taken. */
@@ -429,17 +484,26 @@ async function whenRoom(out: Writable): Promise<void> {
   else await new Promise((resolve) => setImmediate(resolve))
 }
 
+/** Rows fetched ahead of the writer: TypeORM's stream asks for 16 at a time, and the socket stops and starts. */
+const ROWS_AHEAD = 1000
+
+/** The query's rows from the runner's own connection, as they arrive. */
+async function rowsOf(runner: QueryRunner, sql: string): Promise<AsyncIterable<Raw>> {
+  const conn = (await runner.connect()) as { query(sql: string): { stream(o: { highWaterMark: number }): AsyncIterable<Raw> } }
+  return conn.query(sql).stream({ highWaterMark: ROWS_AHEAD })
+}
+
 async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, part: ExportPart): Promise<number> {
   const entry = new PassThrough()
   archive.append(entry, { name: `${part.file}.xlsx`, store: true })
   const book = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: entry, useStyles: true, useSharedStrings: false })
   book.creator = 'Lumenyard'
   const sheet = openSheet<Raw>(book, { name: part.sheet, columns: part.columns as SheetColumn<Raw>[] })
-  const rows = await runner.stream(part.sql)
   let n = 0
-  for await (const row of rows as AsyncIterable<Raw>) {
+  for await (const row of await rowsOf(runner, part.sql)) {
     sheet.add(row)
-    if (++n % 1000 === 0) await whenRoom(out)
+    if (++n % 200 === 0) await sheet.room()
+    if (n % 1000 === 0) await whenRoom(out)
   }
   sheet.done()
   await book.commit()
@@ -462,7 +526,7 @@ export async function streamBusinessExport(ds: DataSource, out: Writable, onPart
     await runner.connect()
     await runner.query('SET SESSION TRANSACTION ISOLATION LEVEL REPEATABLE READ')
     await runner.query('START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY')
-    archive.append(readmeText(EXPORT_PARTS, at), { name: 'README.txt' })
+    archive.append(await readmeWorkbook(EXPORT_PARTS, at), { name: README_FILE, store: true })
     for (const part of EXPORT_PARTS) {
       counts[part.file] = await Promise.race([writePart(runner, archive, out, part), failed])
       onPart?.(part.file, counts[part.file])

@@ -10,6 +10,10 @@ export interface PartColumn {
   about: string
   value: (row: Raw) => CellInput
   places?: number
+  /** The values allowed or the way it is written, where its kind alone does not say it (a list of codes, a day as text). */
+  allowed?: string
+  /** The import that reads the column back in, when one does. */
+  readBy?: string
 }
 
 export interface ExportPart {
@@ -24,5 +28,23 @@ export interface ExportPart {
 
 export const v = (key: string) => (row: Raw) => row[key] as CellInput
 export const col = (header: string, kind: CellKind, key: string, about: string, places?: number): PartColumn => ({ header, kind, about, value: v(key), places })
+
+/** A column whose values come from a fixed list. */
+export const oneOf = (column: PartColumn, values: readonly string[]): PartColumn => ({ ...column, allowed: `One of: ${values.join(', ')}.` })
+
+/** What a column's cells hold, as the README says it: its own words, else its kind's. */
+export function formatOf(c: Pick<PartColumn, 'kind' | 'places' | 'allowed'>): string {
+  if (c.allowed) return c.allowed
+  switch (c.kind) {
+    case 'integer': return 'Whole number.'
+    case 'decimal': return c.places ? `Number, ${c.places} decimal places.` : 'Number.'
+    case 'money': return 'Amount with 2 decimals, no currency sign.'
+    case 'cost': return 'Amount with up to 4 decimals, no currency sign.'
+    case 'boolean': return 'yes or no.'
+    case 'date': return 'A day, YYYY-MM-DD.'
+    case 'datetime': return 'Date and time in UTC, YYYY-MM-DD hh:mm.'
+    default: return 'Text.'
+  }
+}
 
 export const DAY = (expr: string) => `DATE_FORMAT(${expr}, '%Y-%m-%d')`

@@ -3,7 +3,8 @@
 // of materials with their revisions, lines and cautions, sales orders, payments, handovers, returns and credits, transfers, pick lists,
 // counts, reservations, reorder and price settings, imports, mail sent and the audit trail. Each is one
 // streamed query; nothing is gathered in memory. Tables left out on purpose are listed in LEFT_OUT.
-import { col, type ExportPart } from './exportParts.js'
+import { SALES_ORDER_STATUSES } from '../../../shared/sales/salesOrderTerms.js'
+import { col, oneOf, type ExportPart } from './exportParts.js'
 
 const WALL_COLUMNS = `n FOR ORDINALITY, name VARCHAR(80) PATH '$.name', sizing VARCHAR(10) PATH '$.sizing',
   height_mm DOUBLE PATH '$.heightMm', courses INT PATH '$.courses', nominal VARCHAR(40) PATH '$.block.nominal',
@@ -165,7 +166,7 @@ export const RECORD_PARTS: readonly ExportPart[] = [
       col('Account code', 'text', 'account', 'For whom.'),
       col('Job', 'text', 'job', 'For which job.'),
       col('Warehouse', 'text', 'warehouse', 'Supplied from.'),
-      col('Status', 'text', 'status', 'booked, ready, handed_over or cancelled.'),
+      oneOf(col('Status', 'text', 'status', 'Where the order stands.'), SALES_ORDER_STATUSES),
       col('Subtotal', 'money', 'subtotal', 'Before tax.'),
       col('Tax', 'money', 'tax_amount', 'Tax.'),
       col('Total', 'money', 'total', 'Subtotal plus tax.'),

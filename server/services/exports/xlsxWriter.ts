@@ -5,6 +5,7 @@
 //   columns are wide, the header row repeated on every page, the document's name in the page header and
 //   page numbers in the footer, column widths from the content.
 // Whole workbooks are built in memory (buildXlsx); long ones are streamed (streamXlsx) with the same sheets.
+import { once } from 'node:events'
 import type { Writable } from 'node:stream'
 import ExcelJS from 'exceljs'
 import { visibleColumns } from '../costVisibility.js'
@@ -219,7 +220,30 @@ export function wrappedHeight(values: readonly ExcelJS.CellValue[], widths: read
 /** A sheet whose rows are added one at a time; in a streamed workbook each row leaves memory as it is added. */
 export interface OpenSheet<Row> {
   add(row: Row): void
+  /** Resolves when the rows added so far have been taken on towards the file (a streamed workbook), at once otherwise. */
+  room(): Promise<void>
   done(): void
+}
+
+/** exceljs's zip takes a sheet through a stream of the readable-stream package, older than Node's own: no writableNeedDrain. */
+type ZipInput = Writable & { _writableState?: { length: number; highWaterMark: number; needDrain?: boolean } }
+interface SheetOutput { pipes?: ZipInput[]; buffers?: unknown[] }
+
+const isFull = (p: ZipInput) => (p._writableState ? p._writableState.length >= p._writableState.highWaterMark : p.writableNeedDrain)
+
+/**
+ * exceljs's streamed sheet hands its XML to the workbook's zip without waiting, so a long sheet would pile up in
+ * memory whenever compressing is slower than writing rows (a million-row ledger: half a gigabyte). This waits
+ * while the compressor holds more than its buffer, or while the zip has not started on the sheet yet.
+ */
+async function sheetRoom(ws: unknown): Promise<void> {
+  const out = (ws as { _stream?: SheetOutput })._stream
+  for (;;) {
+    const full = out?.pipes?.find(isFull)
+    if (full) await once(full, 'drain')
+    else if (out && !out.pipes?.length && (out.buffers?.length ?? 0) > 1) await new Promise((resolve) => setTimeout(resolve, 2))
+    else return
+  }
 }
 
 /**
@@ -245,14 +269,22 @@ export function openSheet<Row>(book: Book, table: Omit<SheetSpec<Row>, 'rows'>, 
   headerRow(head, spec.columns.length)
   spec.columns.forEach((c, i) => (head.getCell(i + 1).alignment = { ...alignments[i], wrapText: false, vertical: 'bottom' }))
   head.commit()
+  // exceljs gives every new row and cell a fresh copy of its style and looks a style up by the object, so it
+  // would work each row's and cell's style out again (most of a long export's time): a data row takes one
+  // style object and each cell its column's one, the same from the first row to the last.
+  const rowStyle: Partial<ExcelJS.Style> = {}
+  const columnStyles: Partial<ExcelJS.Style>[] = []
   return {
     add(row) {
       const values = spec.columns.map((c) => cellValue(c.kind, c.value(row)))
       const added = ws.addRow(values)
+      ;(added as unknown as { style: Partial<ExcelJS.Style> }).style = rowStyle
+      added.eachCell({ includeEmpty: true }, (cell, n) => (cell.style = columnStyles[n - 1] ??= cell.style))
       const height = wrappedHeight(values, widths)
       if (height) added.height = height
       added.commit()
     },
+    room: () => sheetRoom(ws),
     done: () => (ws as { commit?: () => void }).commit?.(),
   }
 }

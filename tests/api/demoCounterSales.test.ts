@@ -1,7 +1,8 @@
 // The demo's counter sales (server/demo/demoCounterSales.ts), loaded on the test database's demo (again
-// harmlessly when it is there): quotes in each state a newcomer should see, and two sales orders whose
-// deposits on the made-to-order base are paid, one in cash and one by card. Checked through the API a
-// counter clerk uses, against sums read straight from the tables.
+// harmlessly when it is there): quotes in each state a newcomer should see, two sales orders whose
+// deposits on the made-to-order base are paid, one in cash and one by card, the cash order's blocks on a pick
+// list for the handheld, and a third order picked with its pickup ticket waiting for a signature. Checked
+// through the API a counter clerk and the warehouse use, against sums read straight from the tables.
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { loadDemoCounterSales } from '../../server/demo/demoCounterSales.js'
@@ -9,6 +10,7 @@ import { startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 
 let h: ApiHarness
 let counter: supertest.Agent
+let crew: supertest.Agent
 const DEMO_ACCOUNTS = "(SELECT id FROM customers WHERE code IN ('COPPERLINE', 'BROOKMOOR', 'QUILLFEATHER', 'ALDERCREEK'))"
 
 beforeAll(async () => {
@@ -16,6 +18,7 @@ beforeAll(async () => {
   await loadDemoCounterSales(h.ds.manager, h.ds)
   await loadDemoCounterSales(h.ds.manager, h.ds) // a second load adds nothing
   counter = await h.as('counter')
+  crew = await h.as('warehouse')
 })
 afterAll(() => h?.close())
 
@@ -46,5 +49,41 @@ describe('the demo counter sells', () => {
       const detail = await counter.get(`/api/sales-orders/${o.id}`)
       expect(detail.body.depositDue).toBe('0.00')
     }
+  })
+  it('puts the cash order\'s blocks on a released pick list, every unit the order line asks for', async () => {
+    const rows: { status: string; listed: string; ordered: number; picked: number }[] = await h.ds.query(
+      `SELECT pl.status, SUM(pll.qty) AS listed, sol.qty AS ordered, sol.qty_picked AS picked
+         FROM pick_lists pl JOIN pick_list_lines pll ON pll.pick_list_id = pl.id
+         JOIN sales_order_lines sol ON sol.id = pll.sales_order_line_id
+         JOIN sales_orders o ON o.id = pl.sales_order_id JOIN customers c ON c.id = o.customer_id
+        WHERE c.code = 'ALDERCREEK' AND o.created_by = (SELECT id FROM users WHERE username = 'counter')
+        GROUP BY pl.id, sol.id`,
+    )
+    expect(rows).toHaveLength(1)
+    expect(rows[0].status).toBe('released')
+    expect(Number(rows[0].listed)).toBe(rows[0].ordered)
+    expect(rows[0].picked).toBe(0)
+  })
+
+  it('has a pickup ticket waiting for a signature, for all the order picked, with no stock issued yet', async () => {
+    const tickets: { id: number; order_id: number; qty: string; issued: string }[] = await h.ds.query(
+      `SELECT t.id, t.sales_order_id AS order_id, SUM(tl.qty) AS qty, COUNT(tl.move_id) AS issued
+         FROM handover_tickets t JOIN handover_ticket_lines tl ON tl.ticket_id = t.id
+         JOIN sales_orders o ON o.id = t.sales_order_id JOIN customers c ON c.id = o.customer_id
+        WHERE c.code = 'BROOKMOOR' AND t.status = 'open' AND t.kind = 'pickup' GROUP BY t.id`,
+    )
+    expect(tickets).toHaveLength(1)
+    const [ticket] = tickets
+    const [line]: { qty: number; picked: number; handed: number }[] = await h.ds.query(
+      'SELECT SUM(qty) AS qty, SUM(qty_picked) AS picked, SUM(qty_handed_over) AS handed FROM sales_order_lines WHERE sales_order_id = ?', [ticket.order_id],
+    )
+    expect(Number(ticket.qty)).toBe(Number(line.qty))
+    expect(Number(line.picked)).toBe(Number(line.qty))
+    expect(Number(line.handed)).toBe(0)
+    expect(Number(ticket.issued)).toBe(0)
+    // The warehouse's dispatch list shows it among the tickets waiting for a signature.
+    const list = await crew.get('/api/handover-tickets?status=open')
+    expect(list.status).toBe(200)
+    expect(list.body.map((t: { id: number }) => t.id)).toContain(ticket.id)
   })
 })

@@ -1,24 +1,24 @@
-// Records the demo data lacks that the walks of every screen need (accessibility, the Spanish screens): a
-// released pick list, a quote taken into a sales order, a handover ticket waiting for its signature, and an
-// open cycle count.
+// Records the walks of every screen need (accessibility, the Spanish screens), made here rather than read from
+// the demo so each walk knows what it opens and how they overlap: a released pick list, a quote taken into a
+// sales order, a handover ticket waiting for its signature, and an open cycle count.
 import { randomUUID } from 'node:crypto'
 import { CSRF } from './apiHarness.js'
 import { DEMO_PASSWORD, type E2eHarness } from './browser.js'
 import { fxBom, pickScenario, releasedPickList, signedInAgent } from './pickFixtures.js'
 
 export async function walkRecords(h: E2eHarness): Promise<void> {
-  // The demo has no pick list and no cycle count: one of each gives their screens a record to open.
+  // A pick list and a cycle count of the walk's own give their screens a record to open.
   const crew = await signedInAgent(h.built.app, 'warehouse', DEMO_PASSWORD)
   const s = await pickScenario(h.ds, crew)
   const bom = await fxBom(h.ds, s.tag, [{ itemId: s.block.id, qty: 16 }, { itemId: s.spacer.id, qty: 10 }])
   const counter = await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD)
   await releasedPickList(counter, bom.bomId, s.main.id)
-  // Nor a quote or a sales order: one quote by hand, offered over the counter, then taken. It holds some of
+  // A quote and a sales order: one quote by hand, offered over the counter, then taken. It holds some of
   // the same spacers the open pick list needs, in the same warehouse, so the handheld pick screen is walked
   // with another document's holds on its line's stock.
   const [{ customerId }] = (await h.ds.query('SELECT MIN(id) AS customerId FROM customers')) as { customerId: number }[]
   await takenQuote(h, counter, customerId, s.main.id, s.spacer.id, 2)
-  // Nor a handover ticket: a second order for a few spacers goes to the warehouse, is picked and completed,
+  // A handover ticket: a second order for a few spacers goes to the warehouse, is picked and completed,
   // and its pickup ticket waits for a signature (the first order keeps its holds for the pick screen above).
   await handoverTicket(h, counter, crew, customerId, s.main.id, s.spacer)
   const count = await crew.post('/api/counts').set(CSRF).send({ warehouseId: s.main.id, scope: 'bins', binIds: [s.main.bins['A-03-1']] })

@@ -6,6 +6,7 @@ import { loadDemoCatalog } from './demoCatalog.js'
 import { loadDemoCounter } from './demoCounter.js'
 import { loadDemoCounterSales } from './demoCounterSales.js'
 import { loadDemoPurchasing } from './demoPurchasing.js'
+import { loadDemoSellingPrices } from './demoSellingPrices.js'
 import { loadDemoStock } from './demoStock.js'
 import { loadDemoUsers } from './demoUsers.js'
 import { loadDemoWarehouses } from './demoWarehouses.js'
@@ -23,6 +24,7 @@ export const demoSteps: DemoStep[] = [
   { name: 'stock history', run: (em) => loadDemoStock(em) },
   { name: 'counter', run: (em) => loadDemoCounter(em) },
   { name: 'purchasing', run: (em) => loadDemoPurchasing(em) },
+  { name: 'selling prices', run: (em, ds) => loadDemoSellingPrices(em, ds) },
   { name: 'counter sales', run: (em, ds) => loadDemoCounterSales(em, ds) },
 ]
 

@@ -86,4 +86,30 @@ describe('the demo counter sells', () => {
     expect(list.status).toBe(200)
     expect(list.body.map((t: { id: number }) => t.id)).toContain(ticket.id)
   })
+  // source: the quote's own rule (shared/pricing/salesTax.ts) is half-up to the cent once per document, as the
+  // Streamlined Sales and Use Tax Agreement, section 324, allows; the figures here are worked in whole cents.
+  it('prices the demo quotes by the account\'s level and the yard\'s tax, and exempts the account with a resale certificate', async () => {
+    const all = await counter.get('/api/quotes?status=all')
+    const draft = all.body.find((q: { customerName: string; status: string }) => q.customerName === 'Copperline Bath & Tile' && q.status === 'draft')
+    expect(draft, 'Copperline\'s draft quote').toBeDefined()
+    const q = (await counter.get(`/api/quotes/${draft.id}`)).body
+    expect(q.priceLevelCode).toBe('CONTRACTOR')
+    let subtotalCents = 0
+    for (const line of q.lines) {
+      // The contractor level takes 10 % off list: list cents × 9 / 10, half a cent up.
+      const listCents = Math.round(Number(line.explanation.listPrice) * 100)
+      expect(line.explanation.source).toBe('level')
+      expect(Math.round(Number(line.unitPrice) * 100)).toBe(Math.round((listCents * 9) / 10))
+      subtotalCents += Math.round(Number(line.extension) * 100)
+    }
+    expect(Math.round(Number(q.subtotal) * 100)).toBe(subtotalCents)
+    // Harbor Road Yard charges 7.25 %: subtotal cents × 725 / 10,000, half a cent up.
+    expect(Number(q.tax.ratePercent)).toBe(7.25)
+    expect(Math.round(Number(q.taxAmount) * 100)).toBe(Math.round((subtotalCents * 725) / 10_000))
+    // Quillfeather buys for resale: its quote names the certificate and charges no tax.
+    const lost = all.body.find((x: { customerName: string; status: string }) => x.customerName === 'Quillfeather Builders' && x.status === 'lost')
+    const exempt = (await counter.get(`/api/quotes/${lost.id}`)).body
+    expect(exempt.tax.exemptCertificate).toBe('RS-204117')
+    expect(exempt.taxAmount).toBe('0.00')
+  })
 })

@@ -90,7 +90,7 @@ describe('a quote from a bill of materials', () => {
     const text = (await pdfText(mail.attachments[0].content)).replace(/\s+/g, ' ')
     expect(text).toContain(`Quote ${res.body.number}`)
     expect(text).toContain('Amount due $3,278.62')
-    expect(text).toContain('Sales tax 8.2500 % $249.87')
+    expect(text).toContain('Sales tax 8.25 % $249.87')
     expect(text).toMatch(/local building codes and licensed professional practice/)
     expect(await countRows(h.ds, 'outbox_messages', 'quote_id = ?', [quoteId])).toBe(1)
     const edit = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ itemId: fx.block.id, qty: 1 }] })

@@ -56,7 +56,7 @@ export function quotePdf(quote: QuoteDetail, company: CompanyProfile, logo?: Pdf
   const tax = quote.tax
   const taxLabel = tax.exemptCertificate
     ? `Sales tax (exempt, certificate ${tax.exemptCertificate} valid until ${tax.exemptUntil})`
-    : tax.noRate ? 'Sales tax (no rate set for this location)' : `Sales tax ${tax.ratePercent} %`
+    : tax.noRate ? 'Sales tax (no rate set for this location)' : `Sales tax ${Number(tax.ratePercent)} %`
   total(taxLabel, quote.taxAmount)
   total('Amount due', quote.amountDue, true)
   doc.font('body').fontSize(9).fillColor(SOFT).text(`Total weight about ${quote.weightKg} kg.`, MARGIN, doc.y + 4, { width, align: 'right' })

@@ -87,6 +87,7 @@ const SAMPLE_SQL: Record<string, string> = {
   'counter-bom': 'SELECT MIN(id) AS id FROM boms',
   'counter-pick-new': 'SELECT MIN(id) AS bomId FROM boms',
   'counter-pick-list': 'SELECT MIN(id) AS id FROM pick_lists',
+  // On the demo, its sales order's list: a line matched by lot, so four steps (their wrap at 320 px is checked).
   'warehouse-pick': "SELECT MIN(id) AS id FROM pick_lists WHERE status IN ('released', 'picking')",
   'warehouse-pick-sheet': 'SELECT MIN(id) AS id FROM pick_lists',
   'warehouse-receive': "SELECT MIN(id) AS id FROM purchase_orders WHERE status IN ('sent', 'partly_received')",

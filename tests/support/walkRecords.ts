@@ -14,8 +14,8 @@ export async function walkRecords(h: E2eHarness): Promise<void> {
   const counter = await signedInAgent(h.built.app, 'counter', DEMO_PASSWORD)
   await releasedPickList(counter, bom.bomId, s.main.id)
   // A quote and a sales order: one quote by hand, offered over the counter, then taken. It holds some of
-  // the same spacers the open pick list needs, in the same warehouse, so the handheld pick screen is walked
-  // with another document's holds on its line's stock.
+  // the same spacers the walk's pick list needs, in the same warehouse. (The handheld walk opens the first
+  // open list, which on the demo is the demo order's list, with a step for its lot.)
   const [{ customerId }] = (await h.ds.query('SELECT MIN(id) AS customerId FROM customers')) as { customerId: number }[]
   await takenQuote(h, counter, customerId, s.main.id, s.spacer.id, 2)
   // A handover ticket: a second order for a few spacers goes to the warehouse, is picked and completed,

@@ -67,7 +67,8 @@ export async function sendOrderToPick(em: EntityManager, actor: StockActor, orde
   const holds = await em.find(StockReservation, { where: { docType: SALES_ORDER_DOC, docId: orderId }, order: { id: 'ASC' } })
   const list = await em.save(em.create(PickList, {
     bomId: null, jobId: order.jobId, salesOrderId: order.id, warehouseId: order.warehouseId, status: 'released',
-    note: `Sales order ${order.number}`, createdBy: actor.userId, releasedBy: actor.userId, releasedAt: new Date(),
+    // No note: the pick screens name the order themselves, in the picker's language.
+    note: null, createdBy: actor.userId, releasedBy: actor.userId, releasedAt: new Date(),
   }))
   const items = new Map((await em.findBy(Item, { id: In([...new Set(lines.map((l) => l.itemId))]) })).map((i) => [i.id, i]))
   const pool = new StockPool(em)

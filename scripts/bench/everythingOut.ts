@@ -27,7 +27,7 @@ const CHUNK = 250_000
 const ITEMS = 2_000
 const BINS = 500
 
-export interface ExportSizeTimes { moves: number; exportMs: number[]; floorMs: number[]; exportPeakMb: number[]; floorPeakMb: number[]; zipMb: number; floorMb: number }
+export interface ExportSizeTimes { moves: number; mariadb: string; exportMs: number[]; floorMs: number[]; exportPeakMb: number[]; floorPeakMb: number[]; zipMb: number; floorMb: number }
 
 /** A sink that keeps nothing: counts bytes and lets the writer go on. */
 class CountingSink extends Writable {
@@ -121,7 +121,8 @@ export async function measureEverythingOut(rounds: number, log: (line: string) =
 }
 
 async function measureSize(db: ExportDatabase, moves: number, rounds: number, log: (line: string) => void): Promise<ExportSizeTimes> {
-  const t: ExportSizeTimes = { moves, exportMs: [], floorMs: [], exportPeakMb: [], floorPeakMb: [], zipMb: 0, floorMb: 0 }
+  const [{ v }] = (await db.ds.query('SELECT VERSION() AS v')) as { v: string }[]
+  const t: ExportSizeTimes = { moves, mariadb: v, exportMs: [], floorMs: [], exportPeakMb: [], floorPeakMb: [], zipMb: 0, floorMb: 0 }
   for (let r = 0; r < rounds; r++) {
     const sides: [string, () => Promise<unknown>][] = [
       ['export', async () => { const sink = new CountingSink(); await streamBusinessExport(db.ds, sink); sink.end(); t.zipMb = sink.bytes / 1048576 }],

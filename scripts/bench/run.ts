@@ -282,9 +282,11 @@ async function goLiveMeasure(stops: (() => Promise<void>)[]): Promise<void> {
   }
 }
 
-async function everythingOutMeasure(stops: (() => Promise<void>)[]): Promise<void> {
+/** Answers the MariaDB version it ran on, for the machine line. */
+async function everythingOutMeasure(stops: (() => Promise<void>)[]): Promise<string> {
   const sizes = opts.moves!.split(',').map(Number)
   log(`everything-out zip over ${sizes.map((m) => m.toLocaleString('en')).join(' and ')} moves, against a bare streamed write of the moves`)
+  let version = ''
   for (const t of await measureEverythingOut(ROUNDS, log, sizes, stops)) {
     const [lm, fm] = [median(t.exportMs), median(t.floorMs)]
     record({
@@ -293,7 +295,9 @@ async function everythingOutMeasure(stops: (() => Promise<void>)[]): Promise<voi
       floor: { median: fm, runs: t.floorMs, unit: 'ms', note: `peak +${median(t.floorPeakMb).toFixed(0)} MB, ${t.floorMb.toFixed(1)} MB` },
       ratio: lm / fm, target: '≤ ~2× the floor, memory flat as moves grow', holds: lm / fm <= 2.2, loadAverage: loadAverage(),
     })
+    version = t.mariadb
   }
+  return version
 }
 
 /** The takeoff computation itself, in Node, no database or HTTP: what one compute request costs the worker. */
@@ -324,7 +328,7 @@ async function main(): Promise<void> {
   const stops: (() => Promise<void>)[] = []
   try {
     if (only.has('golive')) await goLiveMeasure(stops)
-    if (only.has('everythingout')) await everythingOutMeasure(stops)
+    if (only.has('everythingout')) mariadb = await everythingOutMeasure(stops)
     const perSize = needsPages || only.has('levels') || only.has('reorder')
     for (const size of perSize ? sizes : []) {
       const db = await openDatabase(size, { rebuild: opts.rebuild! }, log)

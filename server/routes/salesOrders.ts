@@ -6,7 +6,7 @@ import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
-import { cardDepositState, confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
+import { cancelCardDeposit, cardDepositState, confirmCardDeposit, refundCardPaymentsIn, startCardDepositIn } from '../services/sales/cardDeposits.js'
 import { recordPaymentIn } from '../services/sales/payments.js'
 import { listSalesOrders, salesOrderDetail } from '../services/sales/salesOrderRead.js'
 import { returnsOf, takeReturnIn } from '../services/sales/returns.js'
@@ -63,6 +63,11 @@ export default (ctx: AppContext) =>
       // The counter follows a card deposit until the provider's signed event has recorded it.
       method: 'get', path: '/:id/card-deposits/:paymentId', access: counter,
       handler: (req) => cardDepositState(ctx.ds, ctx.pay, id(req.params.id), idParam(req.params.paymentId, 'payment_not_found')),
+    },
+    {
+      // The clerk gives up on a card deposit still waiting: the provider cancels it, the row is closed.
+      method: 'post', path: '/:id/card-deposits/:paymentId/cancel', access: counter,
+      handler: (req) => cancelCardDeposit(ctx.ds, ctx.pay, actorOf(req), id(req.params.id), idParam(req.params.paymentId, 'payment_not_found')),
     },
     {
       method: 'post', path: '/:id/card-deposits/:paymentId/confirm', access: counter,

@@ -83,4 +83,5 @@ export const salesApi = {
   startCardDeposit: (id: Id, body: CardDepositStartInput, key: string) =>
     api.post<{ paymentId: number; amount: string; payPageUrl: string | null }>(`/sales-orders/${id}/card-deposits`, body, keyed(key)),
   cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateSchema }),
+  cancelCardDeposit: (id: Id, paymentId: number) => api.post(`/sales-orders/${id}/card-deposits/${paymentId}/cancel`, {}, { answer: cardDepositStateSchema }),
 }

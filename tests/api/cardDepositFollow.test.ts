@@ -87,6 +87,26 @@ describe('following a card deposit', () => {
     expect(await depositPaid()).toBe('0.00')
   })
 
+  it('the clerk cancels a payment still waiting: the provider cancels it first, the row closes once', async () => {
+    const res = await start({ amount: '50.00' })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    const cancel = () => counter.post(`/api/sales-orders/${orderId}/card-deposits/${res.body.paymentId}/cancel`).set(CSRF).send({})
+    const done = await cancel()
+    expect(done.status, JSON.stringify(done.body)).toBe(200)
+    expect(done.body).toMatchObject({ stage: 'cancelled', amount: '50.00', payPageUrl: null })
+    expect(fake.intents.get(res.body.intentId)!.status).toBe('canceled')
+    await fake.settled()
+    // The provider's own cancel event arrives after: acknowledged, nothing closed twice.
+    const again = await cancel()
+    expect(again.status).toBe(409)
+    expect(again.body.error.code).toBe('payment_not_pending')
+    expect((await cardRows()).map((r) => [r.amount, r.status])).toEqual([['100.00', 'failed'], ['50.00', 'failed']])
+    const audited: { n: number }[] = await h.ds.query("SELECT COUNT(*) AS n FROM audit_entries WHERE action = 'payment.card_cancel' AND entity_id = ?", [String(orderId)])
+    expect(Number(audited[0].n)).toBe(2)
+    // The customer's page no longer takes the card.
+    expect(await (await fetch(`${fake.url}/pay/${res.body.intentId}`)).text()).toContain('Payment cancelled')
+  })
+
   it('another payment for the whole deposit is paid on the page and reads paid once the event lands', async () => {
     const res = await start({})
     expect(res.status, JSON.stringify(res.body)).toBe(201)
@@ -94,7 +114,7 @@ describe('following a card deposit', () => {
     await onCustomerPage(res.body.intentId, 'pm_card_visa')
     const read = await state(res.body.paymentId)
     expect(read.body).toMatchObject({ stage: 'paid', amount: '380.38', depositPaid: '380.38', depositDue: '0.00', payPageUrl: null })
-    expect((await cardRows()).map((r) => r.status)).toEqual(['failed', 'settled'])
+    expect((await cardRows()).map((r) => r.status)).toEqual(['failed', 'failed', 'settled'])
     expect(await depositPaid()).toBe('380.38')
   })
 

@@ -274,6 +274,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/payments/webhook': { access: 'public' },
   'POST /api/sales-orders/:id/card-deposits': { access: ['admin', 'counter'] },
   'GET /api/sales-orders/:id/card-deposits/:paymentId': { access: ['admin', 'counter'] },
+  'POST /api/sales-orders/:id/card-deposits/:paymentId/cancel': { access: ['admin', 'counter'] },
   'POST /api/sales-orders/:id/card-deposits/:paymentId/confirm': { access: ['admin', 'counter'] },
   'GET /api/sales-orders/:id/returns': { access: EVERYONE },
   'POST /api/sales-orders/:id/returns': { access: ['admin', 'counter'] },

@@ -3,7 +3,8 @@
 // one), the customer pays on the provider's own page opened in a second browser (no session, as on their
 // phone), and the clerk's screen follows it to paid; the special order's PO can then be sent. The failure path
 // on a 412 px phone in Spanish: a declined card, the connection lost and back, a reload mid-payment, and the
-// customer cancelling on the provider's page; other roles see no card action. Screenshots of each step.
+// customer cancelling on the provider's page, the clerk cancelling a payment left waiting; other roles see no card
+// action. Screenshots of each step.
 import bcrypt from 'bcryptjs'
 import type { Page } from 'playwright-core'
 import type supertest from 'supertest'
@@ -167,6 +168,17 @@ describe('card deposit on the sales order screen', () => {
       expect(await page.locator('[data-test="card-start"]').textContent()).toMatch(/Cobrar otro pago con tarjeta/)
       await h.screenshot(page, 'card-deposit-phone-es-cancelled')
       expect(await cardRows(orderId)).toEqual([{ amount: '100.00', status: 'failed' }])
+
+      // Another one the clerk gives up on: asked first (danger), then cancelled at the provider and closed.
+      await amount.fill('50')
+      await page.locator('[data-test="card-start"]').click()
+      await page.locator('[data-test="card-cancel"]').click()
+      const ask = page.locator('.el-message-box')
+      await poll(() => ask.textContent()).toMatch(/¿Cancelar el pago con tarjeta de \$50\.00\?/)
+      await ask.locator('.el-button--danger').click()
+      await poll(() => stage(page)).toBe('cancelled')
+      expect(await cardRows(orderId)).toEqual([{ amount: '100.00', status: 'failed' }, { amount: '50.00', status: 'failed' }])
+      expect([...fake.intents.values()].filter((i) => i.metadata.salesOrderId === String(orderId)).map((i) => i.status)).toEqual(['canceled', 'canceled'])
       const [row]: { deposit_paid: string }[] = await h.ds.query('SELECT deposit_paid FROM sales_orders WHERE id = ?', [orderId])
       expect(row.deposit_paid).toBe('0.00')
     } finally {

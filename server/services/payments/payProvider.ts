@@ -14,6 +14,8 @@ export interface PayProvider {
   createIntent(input: { amountMinor: number; description: string; metadata: Record<string, string>; idempotencyKey: string }): Promise<ProviderIntent>
   confirmIntent(intentId: string, cardToken: string, idempotencyKey: string): Promise<ProviderIntent>
   retrieveIntent(intentId: string): Promise<ProviderIntent>
+  /** Cancels an intent the customer has not paid (the clerk gives up waiting); refused once it is paid. */
+  cancelIntent(intentId: string, idempotencyKey: string): Promise<ProviderIntent>
   refund(input: { intentId: string; amountMinor: number; idempotencyKey: string; metadata: Record<string, string> }): Promise<ProviderRefund>
   /** Where the customer pays this intent on the provider's side, when the provider is the local fake (else null). */
   customerPageUrl(intentId: string): string | null
@@ -47,7 +49,7 @@ function payProviderOff(currency: string): PayProvider {
   const off = (): never => {
     throw AppError.conflict('card_payments_off', 'Card payments are not set up here (the provider keys are not configured); record cash or cheque instead.')
   }
-  return { currency, createIntent: off, confirmIntent: off, retrieveIntent: off, refund: off, verifyEvent: off, customerPageUrl: () => null }
+  return { currency, createIntent: off, confirmIntent: off, retrieveIntent: off, cancelIntent: off, refund: off, verifyEvent: off, customerPageUrl: () => null }
 }
 
 export function createPayProvider(config: AppConfig['pay']): PayProvider {
@@ -68,6 +70,7 @@ export function createPayProvider(config: AppConfig['pay']): PayProvider {
     confirmIntent: (intentId, cardToken, idempotencyKey) =>
       call(() => sdk.paymentIntents.confirm(intentId, { payment_method: cardToken }, { idempotencyKey })),
     retrieveIntent: (intentId) => call(() => sdk.paymentIntents.retrieve(intentId)),
+    cancelIntent: (intentId, idempotencyKey) => call(() => sdk.paymentIntents.cancel(intentId, {}, { idempotencyKey })),
     customerPageUrl: (intentId) => (config.localFake && config.api ? `${config.api.protocol}://${config.api.host}:${config.api.port}/pay/${encodeURIComponent(intentId)}` : null),
     refund: ({ intentId, amountMinor, idempotencyKey, metadata }) =>
       call(() => sdk.refunds.create({ payment_intent: intentId, amount: amountMinor, reason: 'requested_by_customer', metadata }, { idempotencyKey })),

@@ -9,6 +9,7 @@ import { Payment } from '../../entities/SalesOrder.js'
 import type { CardDepositStage, CardDepositState } from '../../../shared/schemas/salesOrders.js'
 import { SalesOrder } from '../../entities/SalesOrder.js'
 import { AppError, problem } from '../../errors.js'
+import { inTransaction } from '../../db/transaction.js'
 import { audit, type AuditActor } from '../auditService.js'
 import type { PayProvider, ProviderEvent } from '../payments/payProvider.js'
 import { recordPaymentIn, refreshPaid } from './payments.js'
@@ -106,6 +107,27 @@ export async function cardDepositState(ds: DataSource, pay: PayProvider, orderId
     payPageUrl: stage === 'waiting' || stage === 'declined' ? pay.customerPageUrl(payment.reference) : null,
     depositPaid: roundMoney(order.depositPaid), depositDue: compareMoney(owed, '0') > 0 ? roundMoney(owed) : '0.00',
   }
+}
+
+/**
+ * The clerk cancels a card deposit still waiting (the customer walked away, or will pay another way): the
+ * provider cancels its payment intent first, so the card can no longer be taken on its page, then the row is
+ * closed as failed under the order's lock. A payment that is no longer waiting is refused and left alone; an
+ * intent the customer paid meanwhile is refused by the provider and settles by its event as usual.
+ */
+export async function cancelCardDeposit(ds: DataSource, pay: PayProvider, actor: AuditActor, orderId: number, paymentId: number): Promise<CardDepositState> {
+  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
+  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
+  if (payment.status !== 'pending') throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
+  const intent = await pay.retrieveIntent(payment.reference)
+  if (intent.status === 'succeeded') throw AppError.conflict('payment_not_pending', 'The customer has just paid this card payment.')
+  if (intent.status !== 'canceled') await pay.cancelIntent(payment.reference, `lumenyard-cancel-${payment.id}`)
+  await inTransaction(ds, async (em) => {
+    await lockSalesOrder(em, orderId)
+    const res = await em.update(Payment, { id: payment.id, status: 'pending' }, { status: 'failed' })
+    if (res.affected) await audit(em, actor, 'payment.card_cancel', 'sales_order', orderId, { paymentId: payment.id, amount: payment.amount, intent: payment.reference, by: 'counter' })
+  })
+  return cardDepositState(ds, pay, orderId, paymentId)
 }
 
 const SYSTEM: AuditActor = { userId: null }

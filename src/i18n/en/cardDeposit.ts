@@ -19,6 +19,9 @@ export default {
   },
   offline: 'The connection is lost, so the payment cannot be followed. The customer can still pay; check again when the connection is back.',
   checkAgain: 'Check again',
+  cancel: 'Cancel this card payment',
+  cancelAsk: 'Cancel the card payment of {amount}? The payment page stops taking the card; nothing has been charged.',
+  keep: 'Keep waiting',
   startAgain: 'Take another card payment',
   noPage: 'This payment provider gives no page link here; ask the customer to pay from the provider\'s own app.',
 }

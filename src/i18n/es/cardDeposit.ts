@@ -18,6 +18,9 @@ export default {
   },
   offline: 'Se perdió la conexión, así que no se puede seguir el pago. El cliente puede pagar igualmente; compruébelo de nuevo cuando vuelva la conexión.',
   checkAgain: 'Comprobar de nuevo',
+  cancel: 'Cancelar este pago con tarjeta',
+  cancelAsk: '¿Cancelar el pago con tarjeta de {amount}? La página de pago deja de aceptar la tarjeta; no se ha cobrado nada.',
+  keep: 'Seguir esperando',
   startAgain: 'Cobrar otro pago con tarjeta',
   noPage: 'Este proveedor de pagos no da un enlace a su página aquí; pida al cliente que pague desde la aplicación del proveedor.',
 }

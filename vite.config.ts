@@ -5,11 +5,14 @@ import AutoImport from 'unplugin-auto-import/vite'
 import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
 import { compression } from 'vite-plugin-compression2'
+import { routePreloads } from './scripts/routePreloads'
 
 // Element Plus is imported on demand (components and their styles) through the resolvers.
 export default defineConfig({
   plugins: [
     vue(),
+    // route-preloads.json: each page's files, named in its HTML by the server (server/http/pagePreloads.ts).
+    routePreloads(),
     AutoImport({ resolvers: [ElementPlusResolver()], dts: 'src/auto-imports.d.ts' }),
     Components({ resolvers: [ElementPlusResolver()], dts: 'src/components.d.ts' }),
     // .gz and .br beside each file, served as they are by the server (server/app.ts): no compression per request.

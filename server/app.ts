@@ -13,6 +13,7 @@ import type { AppConfig } from './config.js'
 import type { AppContext } from './context.js'
 import { apiNotFound, errorMiddleware } from './http/errorMiddleware.js'
 import { csrfGuard } from './http/csrf.js'
+import { pageHtml } from './http/pagePreloads.js'
 import { createSessionStore } from './db/sessionStore.js'
 import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport } from './http/session.js'
@@ -90,10 +91,16 @@ function clientFiles(dist: string): express.RequestHandler {
   return (req, res, next) => (req.path === '/api' || req.path.startsWith('/api/') ? next() : files(req, res, next))
 }
 
-/** Any other address outside the API is a page of the client: its index.html (after the API's routes). */
+/**
+ * Any other address outside the API is a page of the client: its index.html (after the API's routes), naming the
+ * files that page needs so the browser fetches them beside the entry (http/pagePreloads.ts).
+ */
 function clientPages(dist: string): express.RequestHandler {
   const router = express.Router()
-  router.get('/{*splat}', (_req, res) => res.set('Cache-Control', 'no-cache').sendFile(path.join(dist, 'index.html'), { dotfiles: 'allow' }))
+  const htmlFor = pageHtml(dist)
+  router.get('/{*splat}', (req, res) => {
+    res.set('Cache-Control', 'no-cache').type('html').send(htmlFor(req.path))
+  })
   return router
 }
 

@@ -98,8 +98,11 @@ function clientFiles(dist: string): express.RequestHandler {
 function clientPages(dist: string): express.RequestHandler {
   const router = express.Router()
   const htmlFor = pageHtml(dist)
+  // Only a visitor with a session cookie gets the page's links: anyone else is sent on to sign in, and
+  // fetching the page's code would only hold up the sign-in page's own.
+  const hasSession = (req: express.Request) => (req.headers.cookie ?? '').includes(`${SESSION_COOKIE}=`)
   router.get('/{*splat}', (req, res) => {
-    res.set('Cache-Control', 'no-cache').type('html').send(htmlFor(req.path))
+    res.set('Cache-Control', 'no-cache').type('html').send(hasSession(req) ? htmlFor(req.path) : htmlFor(''))
   })
   return router
 }

@@ -83,8 +83,9 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
       const quoteLines: { item_id: number; qty: number; extension: string; made_to_order: number }[] =
         await h.ds.query('SELECT item_id, qty, extension, made_to_order FROM quote_lines WHERE quote_id = ? ORDER BY line_no', [quoteId])
       expect(quoteLines.map((l) => [l.item_id, Number(l.qty)])).toEqual(lines.map((l) => [l.itemId, l.qty]))
-      // The base at its list price: SB-3636-CRV lists at 455.00 in the demo catalog, one unit, Copperline on no level.
-      expect(quoteLines.filter((l) => Number(l.made_to_order)).map((l) => String(l.extension))).toEqual(['455.00'])
+      // The base: SB-3636-CRV lists at 455.00 in the demo catalog; Copperline is on the demo's contractor level,
+      // 10 % off list: 455.00 × 0.90 = 409.50 for the one unit (hand-worked).
+      expect(quoteLines.filter((l) => Number(l.made_to_order)).map((l) => String(l.extension))).toEqual(['409.50'])
 
       // 2. E-mailed to the contractor through the mail fake, with the quote as a PDF.
       const mailsBefore = smtp.messages.length
@@ -104,14 +105,14 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
       await page.locator('.el-message-box__btns .el-button--primary').click()
       await page.waitForURL(/\/counter\/sales-orders\/\d+$/)
       const orderId = Number(/sales-orders\/(\d+)/.exec(page.url())![1])
-      // Deposit: 50 % (the admin's setting, default) of the made-to-order lines: 455.00 × 0.50 = 227.50 (hand-worked).
+      // Deposit: 50 % (the admin's setting, default) of the made-to-order lines: 409.50 × 0.50 = 204.75 (hand-worked).
       const [{ percent }]: { percent: string }[] = await h.ds.query('SELECT deposit_percent AS percent FROM sales_orders WHERE id = ?', [orderId])
       expect(String(percent)).toMatch(/^50(\.0+)?$/)
-      await poll(() => page.locator('[data-test="order-deposit"]').getAttribute('data-due')).toBe('227.50')
+      await poll(() => page.locator('[data-test="order-deposit"]').getAttribute('data-due')).toBe('204.75')
       await h.screenshot(page, 'journey-3-order')
 
       // 4. The card deposit: the customer pays on the provider's page in a browser of their own.
-      expect(await page.locator('[data-test="card-amount"]').inputValue()).toBe('227.50')
+      expect(await page.locator('[data-test="card-amount"]').inputValue()).toBe('204.75')
       await page.locator('[data-test="card-start"]').click()
       const href = await page.locator('[data-test="card-page-link"]').getAttribute('href')
       const phone = await h.browser.newContext({ viewport: { width: 390, height: 844 } })
@@ -119,7 +120,7 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
         const customer = await phone.newPage()
         shotPage = customer
         await customer.goto(href!)
-        expect(await customer.locator('h1').textContent()).toBe('Pay 227.50 USD')
+        expect(await customer.locator('h1').textContent()).toBe('Pay 204.75 USD')
         await customer.getByRole('button', { name: /approved/ }).click()
         await customer.getByRole('status').waitFor()
         await h.screenshot(customer, 'journey-4-customer-paid')
@@ -130,8 +131,8 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
       await poll(() => page.locator('[data-test="card-deposit"]').getAttribute('data-stage')).toBe('paid')
       await poll(() => page.locator('[data-test="order-deposit"]').getAttribute('data-due')).toBe('0.00')
       const [money]: { deposit_required: string; deposit_paid: string }[] = await h.ds.query('SELECT deposit_required, deposit_paid FROM sales_orders WHERE id = ?', [orderId])
-      expect(money).toEqual({ deposit_required: '227.50', deposit_paid: '227.50' })
-      expect(await countRows(h.ds, 'payments', "sales_order_id = ? AND method = 'card' AND status = 'settled' AND amount = '227.50'", [orderId])).toBe(1)
+      expect(money).toEqual({ deposit_required: '204.75', deposit_paid: '204.75' })
+      expect(await countRows(h.ds, 'payments', "sales_order_id = ? AND method = 'card' AND status = 'settled' AND amount = '204.75'", [orderId])).toBe(1)
       await h.screenshot(page, 'journey-5-deposit-paid')
 
       // 5. Sent to the warehouse.

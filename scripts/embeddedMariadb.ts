@@ -54,6 +54,9 @@ function profileDirs(profile: EmbeddedProfile) {
     socket: path.join(base, 'mysqld.sock'),
     pidFile: path.join(base, 'mysqld.pid'),
     logFile: path.join(base, 'mariadb.log'),
+    // Its own temporary files (large sorts, temporary tables): the machine's /tmp is shared with every other
+    // program, which may clean it while a query still needs a file there.
+    tmpDir: path.join(base, 'tmp'),
     credentials: path.join(base, 'app-credentials.json'),
   }
 }
@@ -112,11 +115,13 @@ export async function ensureEmbeddedServer(profile: EmbeddedProfile): Promise<Em
     )
   }
   if (!existsSync(path.join(dirs.dataDir, 'mysql'))) await initialise(dirs)
+  mkdirSync(dirs.tmpDir, { recursive: true, mode: 0o700 })
   const args = [
     '--no-defaults',
     `--datadir=${dirs.dataDir}`,
     `--socket=${dirs.socket}`,
     `--pid-file=${dirs.pidFile}`,
+    `--tmpdir=${dirs.tmpDir}`,
     `--port=${profile.port}`,
     '--bind-address=127.0.0.1',
     ...(profile.extraArgs?.some((a) => a.startsWith('--log-bin')) ? [] : ['--skip-log-bin']),

@@ -76,6 +76,7 @@ declare module 'vue' {
     PurchasingItemPicker: typeof import('./components/purchasing/PurchasingItemPicker.vue')['default']
     RouterLink: typeof import('vue-router')['RouterLink']
     RouterView: typeof import('vue-router')['RouterView']
+    SalesOrderReturns: typeof import('./components/sales/SalesOrderReturns.vue')['default']
     SignaturePad: typeof import('./components/handover/SignaturePad.vue')['default']
     StatusMark: typeof import('./components/base/StatusMark.vue')['default']
     StockAreaTabs: typeof import('./components/stock/StockAreaTabs.vue')['default']

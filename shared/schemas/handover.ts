@@ -98,9 +98,12 @@ export interface OrderFulfilment {
   status: SalesOrderStatus
   readyAt: string | null
   readyMailedAt: string | null
-  /** Why the last ready e-mail failed, while the ready order has not been mailed since. */
+  /** Why the last ready e-mail failed, while the ready order has not been mailed since (READY_MAIL_NO_ADDRESS: the account has none). */
   readyMailError: string | null
   lines: FulfilmentLine[]
   pickLists: { id: number; number: string; status: PickListStatus }[]
   tickets: TicketSummary[]
 }
+
+/** The ready e-mail's failure when the contractor's account has no address (the client words it in the reader's language). */
+export const READY_MAIL_NO_ADDRESS = 'The account has no e-mail address.'

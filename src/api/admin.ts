@@ -5,6 +5,7 @@ import { z } from 'zod'
 import { userSummarySchema } from '@shared/schemas/auth'
 import type { CustomerTermsSummary, PriceLevelSummary, PriceRuleSummary, TaxRateSummary } from '@shared/schemas/pricing'
 import type { CompanyProfile, PurchasingSettings } from '@shared/schemas/purchasing'
+import type { SalesSettings } from '@shared/schemas/salesOrders'
 import type { OutboxSummary } from '@shared/schemas/purchasingViews'
 import { api, download } from './client'
 import { toQuery, type QueryValues } from './stock'
@@ -31,6 +32,12 @@ export const adminApi = {
   outbox: () => api.get<OutboxSummary[]>('/purchasing/outbox'),
   outboxAttachment: (messageId: Id, attachmentId: Id) => download(`/purchasing/outbox/${messageId}/attachments/${attachmentId}`),
   sendAgain: (messageId: Id) => api.post(`/purchasing/outbox/${messageId}/send-again`),
+}
+
+export const salesPolicyApi = {
+  /** The counter's sales policy: deposit on made-to-order lines, return window and restocking fee (read by admin and counter). */
+  read: () => api.get<SalesSettings>('/sales-settings'),
+  save: (body: Partial<Record<keyof SalesSettings, string | number>>) => api.patch<SalesSettings>('/sales-settings', body),
 }
 
 export const pricingApi = {

@@ -8,7 +8,8 @@ import {
   type BomRecord, type JobDetail, type RoleItemRecord, type RuleRecord, type TakeoffRecord,
 } from '@shared/schemas/counter'
 import type { QuoteDetail, QuoteSummary } from '@shared/schemas/quotes'
-import { cardDepositStateSchema, type CardDepositStartInput, type SalesOrderDetail, type SalesOrderSummary } from '@shared/schemas/salesOrders'
+import { cardDepositStateSchema, type CardDepositStartInput, type SalesOrderDetail, type SalesOrderSummary, type SalesSettings } from '@shared/schemas/salesOrders'
+import type { SalesReturnView } from '@shared/schemas/salesReturns'
 import type { MaterialFamily, SiteFigures, Takeoff } from '@shared/schemas/takeoff'
 import type { LengthUnit } from '@shared/units'
 import { api, download } from './client'
@@ -84,4 +85,9 @@ export const salesApi = {
     api.post<{ paymentId: number; amount: string; payPageUrl: string | null }>(`/sales-orders/${id}/card-deposits`, body, keyed(key)),
   cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateSchema }),
   cancelCardDeposit: (id: Id, paymentId: number) => api.post(`/sales-orders/${id}/card-deposits/${paymentId}/cancel`, {}, { answer: cardDepositStateSchema }),
+
+  // Returns against an order (salesReturnSchema) and the policy they follow (window, restocking fee)
+  returns: (id: Id) => api.get<SalesReturnView[]>(`/sales-orders/${id}/returns`),
+  takeReturn: (id: Id, body: object, key: string) => api.post<SalesReturnView & { accountCredit: string }>(`/sales-orders/${id}/returns`, body, keyed(key)),
+  policy: () => api.get<SalesSettings>('/sales-settings'),
 }

@@ -5,6 +5,7 @@
 // shows the failure and the clerk's "send again" tries once more; a success
 // keeps the claim, so it is never sent twice.
 import type { DataSource } from 'typeorm'
+import { READY_MAIL_NO_ADDRESS } from '../../../shared/schemas/handover.js'
 import type { AppConfig } from '../../config.js'
 import { OutboxMessage } from '../../entities/OutboxMessage.js'
 import { inTransaction } from '../../db/transaction.js'
@@ -59,7 +60,7 @@ async function attemptReadyMail(ds: DataSource, config: AppConfig, actor: AuditA
     [company.phone, company.email].filter(Boolean).join(' · ') || null,
   ].filter((l) => l !== null).join('\n')
   let outcome: { messageId?: string; error?: string }
-  if (!o.email) outcome = { error: 'The account has no e-mail address.' }
+  if (!o.email) outcome = { error: READY_MAIL_NO_ADDRESS }
   else {
     try {
       const info = await mailTransport(config.smtp).sendMail({ from: config.smtp.from, to: o.email, replyTo: company.replyTo ?? undefined, subject, text })

@@ -11,6 +11,7 @@ export default {
     mailed: 'The contractor was e-mailed on {at}.',
     readyMailFailed: 'The e-mail telling the contractor the order is ready was not sent: {detail}',
     readyMailAgain: 'Send the ready e-mail again',
+    readyMailNoAddress: 'The contractor was not told the order is ready: the account has no e-mail address. Add one to the account, then send again, or call them.',
     readyMailSent: 'The contractor was e-mailed.',
     newPickup: 'New pickup ticket',
     newDelivery: 'New delivery ticket',

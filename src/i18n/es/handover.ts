@@ -11,6 +11,7 @@ export default {
     mailed: 'Se avisó al cliente por correo el {at}.',
     readyMailFailed: 'No se envió el correo que avisa al cliente de que el pedido está listo: {detail}',
     readyMailAgain: 'Volver a enviar el aviso de pedido listo',
+    readyMailNoAddress: 'No se avisó al cliente de que el pedido está listo: la cuenta no tiene correo electrónico. Añádalo a la cuenta y vuelva a enviarlo, o llámele.',
     readyMailSent: 'Se avisó al cliente por correo.',
     newPickup: 'Nuevo vale de retiro',
     newDelivery: 'Nuevo vale de entrega',

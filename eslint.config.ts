@@ -5,6 +5,16 @@ import { defineConfigWithVueTs, vueTsConfigs } from '@vue/eslint-config-typescri
 // area knows the server's addresses and the schema each answer is checked against.
 const VIEW_API_MESSAGE = 'Views and components call a typed module in src/api (e.g. catalogApi.item(id)), not the API by path.'
 
+// Numbers and dates on screen go through vue-i18n's formatters (n(x, 'tenths'), d(date, 'dateTime'); formats in
+// src/i18n/formats.ts), so they are written the reader's way; the browser's own formatting is refused in views and
+// components, in scripts and templates alike.
+const NUMBER_MESSAGE = "Write numbers and dates with vue-i18n's n() / d() and a named format (src/i18n/formats.ts), not toFixed or Intl."
+const OWN_FORMATTING = [
+  { selector: "CallExpression[callee.property.name=/^(toFixed|toPrecision|toLocaleString|toLocaleDateString|toLocaleTimeString)$/]", message: NUMBER_MESSAGE },
+  { selector: "MemberExpression[object.name='Intl']", message: NUMBER_MESSAGE },
+]
+const V_LOADING = { selector: "VAttribute[directive=true][key.name.name='loading']", message: 'Use v-busy (src/directives/vBusy.ts): v-loading can leave its mask over loaded data.' }
+
 export default defineConfigWithVueTs(
   { name: 'lumenyard/files', files: ['**/*.{ts,mts,vue}'] },
   { name: 'lumenyard/ignores', ignores: ['dist/**', '.data/**', 'node_modules/**', 'test-results/**', 'src/auto-imports.d.ts', 'src/components.d.ts'] },
@@ -17,7 +27,7 @@ export default defineConfigWithVueTs(
       '@typescript-eslint/no-namespace': 'off',
       'vue/multi-word-component-names': ['error', { ignores: [] }],
       // The library's loading directive shows its mask after a quick load has ended (src/directives/vBusy.ts).
-      'vue/no-restricted-syntax': ['error', { selector: "VAttribute[directive=true][key.name.name='loading']", message: 'Use v-busy (src/directives/vBusy.ts): v-loading can leave its mask over loaded data.' }],
+      'vue/no-restricted-syntax': ['error', V_LOADING],
     },
   },
   {
@@ -35,7 +45,9 @@ export default defineConfigWithVueTs(
         { selector: "CallExpression[callee.name=/^(download|downloadWithProgress|uploadWithProgress|prefetchGet|fetch)$/]", message: VIEW_API_MESSAGE },
         { selector: "Literal[value=/^\\/api\\//]", message: VIEW_API_MESSAGE },
         { selector: "TemplateElement[value.raw=/^\\/api\\//]", message: VIEW_API_MESSAGE },
+        ...OWN_FORMATTING,
       ],
+      'vue/no-restricted-syntax': ['error', V_LOADING, ...OWN_FORMATTING],
     },
   },
 )

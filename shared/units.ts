@@ -179,6 +179,11 @@ function readFeetAndInches(text: string, input: string): number | undefined {
   return undefined
 }
 
+/** A measure as the catalog stores it: fixed decimals, a point, no grouping (101.60); never shown as is. */
+export function storedDecimal(value: number, places: number): string {
+  return value.toFixed(places)
+}
+
 /**
  * Reads what a person types into millimetres: `7 3/4"`, `7.75 in`, `190 mm`, `5' 2"`, `5 ft 2 1/8 in`.
  * A bare number takes `defaultUnit`. Throws LengthParseError with a message fit to show beside the field.

@@ -49,8 +49,10 @@ export interface StockStep<S extends z.ZodType, T> {
   body?: S
   /** Default 200; may depend on the answer. */
   status?: number | ((body: T) => number)
-  /** The change, inside the request's one transaction. */
-  run: (em: EntityManager, step: { req: Request; input: z.infer<S>; id: number }) => Promise<T>
+  /** The caller must send its own Idempotency-Key (a handheld's queued confirmation): refused without one. */
+  keyRequired?: boolean
+  /** The change, inside the request's one transaction; `key` is the request's Idempotency-Key, if any. */
+  run: (em: EntityManager, step: { req: Request; input: z.infer<S>; id: number; key: string | null }) => Promise<T>
   /** Work after the transaction committed (and on a replay), before the answer goes out: e-mail, never stock. */
   after?: (body: T, step: { req: Request; id: number }) => Promise<void>
 }
@@ -67,9 +69,11 @@ export function stockStep<S extends z.ZodType = z.ZodNull, T = unknown>(ctx: App
     access: spec.access,
     handler: (req, res) => {
       const id = spec.id ? spec.id(req) : 0
+      const key = req.get('idempotency-key') ?? null
+      if (spec.keyRequired && !key) throw AppError.badRequest('idempotency_key_required', 'This request needs an Idempotency-Key header.')
       const input = (spec.body ? parseBody(spec.body, req.body) : null) as z.infer<S>
       const after = spec.after
-      return runStockRequest(ctx, req, res, input, (em) => spec.run(em, { req, input, id }), spec.status, after && ((body) => after(body, { req, id })))
+      return runStockRequest(ctx, req, res, input, (em) => spec.run(em, { req, input, id, key }), spec.status, after && ((body) => after(body, { req, id })))
     },
   }
 }

@@ -7,7 +7,6 @@ import {
   pickShortResolveSchema,
 } from '../../shared/schemas/picking.js'
 import { actorOf, type AppContext } from '../context.js'
-import { AppError } from '../errors.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
@@ -27,13 +26,6 @@ const readers = allow('admin', 'counter', 'warehouse')
 const counter = allow('admin', 'counter')
 const pickers = allow('admin', 'warehouse')
 const listId = (req: Request) => idParam(req.params.id, 'pick_list_not_found')
-
-/** Scanner confirmations must carry the key the handheld made with them, so a resend never counts twice. */
-function confirmationKey(req: Request): string {
-  const key = req.get('idempotency-key')
-  if (!key) throw AppError.badRequest('idempotency_key_required', 'A confirmation needs an Idempotency-Key header.')
-  return key
-}
 
 export default (ctx: AppContext) =>
   defineRoutes('/pick-lists', [
@@ -70,8 +62,8 @@ export default (ctx: AppContext) =>
     }),
     stockStep(ctx, {
       // The handheld's own key is required: a resend of the same confirmation is answered, never applied again.
-      path: '/:id/confirmations', access: pickers, id: listId, body: pickConfirmSchema, status: 201,
-      run: (em, { req, input, id }) => confirmPick(em, actorOf(req), id, input, confirmationKey(req)),
+      path: '/:id/confirmations', access: pickers, id: listId, body: pickConfirmSchema, status: 201, keyRequired: true,
+      run: (em, { req, input, id, key }) => confirmPick(em, actorOf(req), id, input, key!),
     }),
     stockStep(ctx, {
       path: '/:id/discards', access: pickers, id: listId, body: pickDiscardSchema,

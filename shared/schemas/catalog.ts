@@ -286,7 +286,7 @@ export const itemPageSchema: z.ZodType<ItemPage> = z.object({
   page: z.number().int(),
   pageSize: z.number().int(),
 })
-export const lotRowsSchema: z.ZodType<LotRow[]> = z.array(z.object({
+export const lotRowSchema: z.ZodType<LotRow> = z.object({
   id: z.number().int(),
   itemId: z.number().int(),
   code: z.string(),
@@ -294,4 +294,5 @@ export const lotRowsSchema: z.ZodType<LotRow[]> = z.array(z.object({
   vendorId: z.number().int().nullable(),
   tintNote: nullableText,
   onHand: z.number(),
-}))
+})
+export const lotRowsSchema = z.array(lotRowSchema)

@@ -1,7 +1,7 @@
 // One typed client over fetch. Every failure becomes an ApiError with the server's code, and its
 // message and field messages already worded in the user's language (src/i18n/errorText.ts), so forms
 // show field errors beside inputs and the rest in a message.
-import type { ZodType } from 'zod'
+import type { input as ZodInput, ZodType } from 'zod'
 import type { ErrorParams, Problem } from '@shared/errors/errorCodes'
 import type { ApiErrorBody } from '@shared/schemas/apiError'
 import { errorText, fieldTexts } from '@/i18n/errorText'
@@ -44,6 +44,9 @@ const unauthenticatedListeners: Listener[] = []
 export function onUnauthenticated(listener: Listener): void {
   unauthenticatedListeners.push(listener)
 }
+
+/** A request body as its shared schema reads it (shared/schemas): the server parses it with the same schema. */
+export type BodyOf<S extends ZodType> = ZodInput<S>
 
 export interface RequestOptions<T = unknown> {
   headers?: Record<string, string>

@@ -1,14 +1,25 @@
 // File transfers the fetch client cannot do: uploads with a progress figure and a way to stop them
 // (XMLHttpRequest reports upload progress; fetch does not), and saving a downloaded file.
-import { apiErrorFrom } from './client'
+import type { ZodType } from 'zod'
+import { apiErrorFrom, checkAnswer } from './client'
+
+/** A two-step spreadsheet upload (checked, then written): each step's route and the schema of its answer. */
+export interface SheetSteps<P, C> {
+  path: (which: 'preview' | 'commit') => string
+  preview: ZodType<P>
+  commit: ZodType<C>
+}
 
 export interface UploadHandle<T> {
   done: Promise<T>
   abort(): void
 }
 
-/** Posts a form with a file; onProgress gets 0–1 while sending, then 1 while the server works. */
-export function uploadWithProgress<T>(path: string, form: FormData, onProgress: (fraction: number) => void): UploadHandle<T> {
+/**
+ * Posts a form with a file; onProgress gets 0–1 while sending, then 1 while the server works. The answer is
+ * checked against its schema like every fetch answer (src/api/client.ts).
+ */
+export function uploadWithProgress<T>(path: string, form: FormData, answer: ZodType<T>, onProgress: (fraction: number) => void): UploadHandle<T> {
   const xhr = new XMLHttpRequest()
   const done = new Promise<T>((resolve, reject) => {
     xhr.open('POST', '/api' + path)
@@ -26,8 +37,12 @@ export function uploadWithProgress<T>(path: string, form: FormData, onProgress: 
       } catch {
         body = null
       }
-      if (xhr.status >= 200 && xhr.status < 300) return resolve(body as T)
-      reject(apiErrorFrom(xhr.status, body))
+      if (xhr.status < 200 || xhr.status >= 300) return reject(apiErrorFrom(xhr.status, body))
+      try {
+        resolve(checkAnswer(answer, body, path))
+      } catch (err) {
+        reject(err)
+      }
     }
     xhr.send(form)
   })

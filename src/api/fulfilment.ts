@@ -1,21 +1,24 @@
 // Typed calls for fulfilling sales orders: sending an order to the warehouse, taking a backordered rest off,
 // and handover tickets (made, signed, voided). Every change carries the caller's Idempotency-Key.
-import type { OrderFulfilment, TicketCreateInput, TicketDetail, TicketSignInput, TicketSummary } from '@shared/schemas/handover'
+import { z } from 'zod'
+import { readyMailShape, restCancelledShape, sentToPickShape, ticketMadeShape, ticketSignedShape, ticketVoidedShape } from '@shared/schemas/answers/changes'
+import { orderFulfilmentShape, ticketDetailShape, ticketSummaryShape } from '@shared/schemas/answers/handover'
+import type { TicketCreateInput, TicketSignInput } from '@shared/schemas/handover'
 import { api } from './client'
 
 const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 
 export const fulfilmentApi = {
-  order: (orderId: number) => api.get<OrderFulfilment>(`/sales-orders/${orderId}/fulfilment`),
-  sendToPick: (orderId: number, key: string) => api.post<{ pickListId: number; lines: number; qty: number }>(`/sales-orders/${orderId}/pick-lists`, {}, keyed(key)),
-  cancelRest: (orderId: number, lineId: number, key: string) => api.post<{ cancelled: number }>(`/sales-orders/${orderId}/lines/${lineId}/cancel-rest`, {}, keyed(key)),
+  order: (orderId: number) => api.get(`/sales-orders/${orderId}/fulfilment`, { answer: orderFulfilmentShape }),
+  sendToPick: (orderId: number, key: string) => api.post(`/sales-orders/${orderId}/pick-lists`, {}, { ...keyed(key), answer: sentToPickShape }),
+  cancelRest: (orderId: number, lineId: number, key: string) => api.post(`/sales-orders/${orderId}/lines/${lineId}/cancel-rest`, {}, { ...keyed(key), answer: restCancelledShape }),
   /** The ready e-mail once more after a failure (the server sends it once). */
-  sendReadyAgain: (orderId: number) => api.post<{ sent: boolean; mailedAt: string | null }>(`/sales-orders/${orderId}/ready-mail`, {}),
-  createTicket: (orderId: number, body: TicketCreateInput, key: string) => api.post<{ id: number; number: string }>(`/sales-orders/${orderId}/tickets`, body, keyed(key)),
-  tickets: (status: 'open' | 'signed' | 'voided' | 'all' = 'open') => api.get<TicketSummary[]>(`/handover-tickets?status=${status}`),
-  ticket: (id: number) => api.get<TicketDetail>(`/handover-tickets/${id}`),
-  sign: (id: number, body: TicketSignInput, key: string) => api.post<{ issued: number; replayed: boolean; orderStatus: string }>(`/handover-tickets/${id}/sign`, body, keyed(key)),
-  voidTicket: (id: number, key: string) => api.post(`/handover-tickets/${id}/void`, {}, keyed(key)),
+  sendReadyAgain: (orderId: number) => api.post(`/sales-orders/${orderId}/ready-mail`, {}, { answer: readyMailShape }),
+  createTicket: (orderId: number, body: TicketCreateInput, key: string) => api.post(`/sales-orders/${orderId}/tickets`, body, { ...keyed(key), answer: ticketMadeShape }),
+  tickets: (status: 'open' | 'signed' | 'voided' | 'all' = 'open') => api.get(`/handover-tickets?status=${status}`, { answer: z.array(ticketSummaryShape) }),
+  ticket: (id: number) => api.get(`/handover-tickets/${id}`, { answer: ticketDetailShape }),
+  sign: (id: number, body: TicketSignInput, key: string) => api.post(`/handover-tickets/${id}/sign`, body, { ...keyed(key), answer: ticketSignedShape }),
+  voidTicket: (id: number, key: string) => api.post(`/handover-tickets/${id}/void`, {}, { ...keyed(key), answer: ticketVoidedShape }),
   /** Same-origin addresses the browser opens itself (the session cookie goes along). */
   pdfUrl: (id: number) => `/api/handover-tickets/${id}/pdf`,
   signatureUrl: (id: number) => `/api/handover-tickets/${id}/signature`,

@@ -1,26 +1,29 @@
 // Typed calls for going live: the setup checklist (units, GS1 prefix, logo), the data imports with their
 // history and reversal, and the whole-business export. Uploads and the export report their progress.
-import type { DataImportKind, DataImportRecord } from '@shared/schemas/dataImports'
+import { z } from 'zod'
+import { okShape } from '@shared/schemas/answers/changes'
+import { dataImportPreviewShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
+import type { DataImportKind, DataImportPreview, DataImportResult } from '@shared/schemas/dataImports'
 import { setupStateSchema } from '@shared/schemas/setup'
 import { api, download } from './client'
-import { downloadWithProgress, uploadWithProgress } from './fileTransfer'
+import { downloadWithProgress, uploadWithProgress, type SheetSteps } from './fileTransfer'
 
 export const goliveApi = {
   setup: () => api.get('/setup', { answer: setupStateSchema }),
   saveUnits: (body: { lengthUnit: 'in' | 'mm'; weightUnit: 'lb' | 'kg' }) => api.put('/setup/units', body, { answer: setupStateSchema }),
   saveGs1Prefix: (prefix: string | null) => api.put('/setup/gs1-prefix', { prefix }, { answer: setupStateSchema }),
-  uploadLogo: (form: FormData) => uploadWithProgress<unknown>('/setup/logo', form, () => {}).done,
+  uploadLogo: (form: FormData) => uploadWithProgress('/setup/logo', form, okShape, () => {}).done,
   /** The logo for printed pages; null when none was uploaded. */
   printedLogo: () => download('/setup/printed-logo').catch(() => null),
-  dismissSetup: () => api.post('/setup/dismiss'),
+  dismissSetup: () => api.post('/setup/dismiss', {}, { answer: setupStateSchema }),
 
-  imports: () => api.get<DataImportRecord[]>('/imports'),
-  reverseImport: (id: number) => api.post(`/imports/${id}/reverse`),
+  imports: () => api.get('/imports', { answer: z.array(dataImportRecordShape) }),
+  reverseImport: (id: number) => api.post(`/imports/${id}/reverse`, {}, { answer: dataImportRecordShape }),
   importTemplate: (kind: DataImportKind) => download(`/imports/${kind}/template.xlsx`),
   businessExport: (onBytes: (bytes: number) => void) => downloadWithProgress('/business-export', onBytes),
 }
 
-export const golivePaths = {
-  /** A data import's two steps, for the upload with progress (useSheetUpload). */
-  importStep: (kind: DataImportKind, which: 'preview' | 'commit') => `/imports/${kind}/${which}`,
+/** A data import's two steps for the upload with progress (useSheetUpload); `kind` is read at each step. */
+export function dataImportSteps(kind: () => DataImportKind): SheetSteps<DataImportPreview, DataImportResult> {
+  return { path: (which) => `/imports/${kind()}/${which}`, preview: dataImportPreviewShape, commit: dataImportResultShape }
 }

@@ -1,5 +1,5 @@
 // Typed calls for the report screens.
-import type { DeadStockReport, TurnsReport, UsageReport, ValuationReport, VendorReport } from '@shared/schemas/reports'
+import { deadStockReportShape, turnsReportShape, usageReportShape, valuationReportShape, vendorReportShape } from '@shared/schemas/answers/reports'
 import { api } from './client'
 import { downloadWithProgress } from './fileTransfer'
 import { toQuery } from './stock'
@@ -9,11 +9,11 @@ export interface DeadStockFilters { deadDays: number; slowDays: number; windowDa
 
 export const reportsApi = {
   stockValuation: (q: { asOf: string; warehouseId: number | null; tz: string }) =>
-    api.get<ValuationReport>(`/reports/stock-valuation${toQuery(q)}`),
-  turns: (q: PeriodFilters) => api.get<TurnsReport>(`/reports/turns${toQuery({ ...q })}`),
-  usage: (q: PeriodFilters) => api.get<UsageReport>(`/reports/usage${toQuery({ ...q })}`),
-  vendors: (q: PeriodFilters) => api.get<VendorReport>(`/reports/vendors${toQuery({ ...q })}`),
-  deadStock: (q: DeadStockFilters) => api.get<DeadStockReport>(`/reports/dead-stock${toQuery({ ...q })}`),
+    api.get(`/reports/stock-valuation${toQuery(q)}`, { answer: valuationReportShape }),
+  turns: (q: PeriodFilters) => api.get(`/reports/turns${toQuery({ ...q })}`, { answer: turnsReportShape }),
+  usage: (q: PeriodFilters) => api.get(`/reports/usage${toQuery({ ...q })}`, { answer: usageReportShape }),
+  vendors: (q: PeriodFilters) => api.get(`/reports/vendors${toQuery({ ...q })}`, { answer: vendorReportShape }),
+  deadStock: (q: DeadStockFilters) => api.get(`/reports/dead-stock${toQuery({ ...q })}`, { answer: deadStockReportShape }),
   /** A report's spreadsheet in the reader's language, streamed (onBytes: bytes received so far). */
   exportFile: (report: 'turns' | 'usage' | 'vendors' | 'dead-stock', q: PeriodFilters | DeadStockFilters, lang: string, onBytes: (bytes: number) => void) =>
     downloadWithProgress(`/reports/${report}/export${toQuery({ ...q, lang })}`, onBytes),

@@ -1,5 +1,6 @@
 // Typed calls for the session (sign-in, sign-out, who is signed in) and the signed-in user's own profile.
 // Their answers are checked against the schemas in shared/schemas/auth.ts in development and tests.
+import { nothingShape } from '@shared/schemas/answers/changes'
 import {
   okAnswerSchema, sessionAnswerSchema, signedInAnswerSchema, type ProfileUpdateInput, type SessionAnswer, type SessionUser,
 } from '@shared/schemas/auth'
@@ -10,7 +11,7 @@ export const sessionApi = {
   current: (): Promise<SessionAnswer> => api.get('/session', { quiet401: true, answer: sessionAnswerSchema }),
   signIn: (username: string, password: string): Promise<{ user: SessionUser }> =>
     api.post('/session', { username, password }, { quiet401: true, answer: signedInAnswerSchema }),
-  signOut: (): Promise<void> => api.delete('/session', { quiet401: true }),
+  signOut: (): Promise<void> => api.delete('/session', { quiet401: true, answer: nothingShape }),
   saveProfile: (changes: ProfileUpdateInput): Promise<{ user: SessionUser }> => api.patch('/profile', changes, { answer: signedInAnswerSchema }),
   changePassword: (body: { currentPassword: string; newPassword: string }) => api.post('/profile/password', body, { answer: okAnswerSchema }),
 }

@@ -1,9 +1,12 @@
 // Typed calls for the stock screens. Stock-changing calls carry the Idempotency-Key of the form
 // submission that made them (see useIdempotentSubmit), so a double click applies once.
+import { z } from 'zod'
+import { moveSummaryShape, transferReceivedShape, transferShippedShape } from '@shared/schemas/answers/changes'
+import {
+  binContentsAnswerShape, itemOptionShape, ledgerPageShape, lookupAnswerShape, lotLevelsAnswerShape, minimumRowShape, stockLevelsAnswerShape,
+  transferViewShape,
+} from '@shared/schemas/answers/stockViews'
 import type { AdjustmentInput, BinMoveInput, TransferReceiveInput, TransferShipInput } from '@shared/schemas/stock'
-import type {
-  BinContentsAnswer, ItemOption, LedgerPage, LookupAnswer, LotLevelsAnswer, MinimumRow, StockLevelsAnswer, TransferView,
-} from '@shared/schemas/stockViews'
 import { placesSchema } from '@shared/schemas/stockViews'
 import { api, download } from './client'
 
@@ -20,11 +23,6 @@ export function toQuery(values: QueryValues): string {
   return text ? `?${text}` : ''
 }
 
-export interface MoveSummary {
-  batchId: string
-  moves: { id: string; moveType: string; itemId: number; binId: number; lotId: number | null; qty: number }[]
-}
-
 const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 
 export const stockPaths = {
@@ -33,21 +31,21 @@ export const stockPaths = {
 }
 
 export const stockApi = {
-  levels: (q: QueryValues) => api.get<StockLevelsAnswer>(stockPaths.levels(q)),
-  binContents: (q: QueryValues) => api.get<BinContentsAnswer>(`/stock/bin-contents${toQuery(q)}`),
-  lotLevels: (itemId: number) => api.get<LotLevelsAnswer>(`/stock/lot-levels${toQuery({ itemId })}`),
-  ledger: (q: QueryValues) => api.get<LedgerPage>(`/stock/ledger${toQuery(q)}`),
+  levels: (q: QueryValues) => api.get(stockPaths.levels(q), { answer: stockLevelsAnswerShape }),
+  binContents: (q: QueryValues) => api.get(`/stock/bin-contents${toQuery(q)}`, { answer: binContentsAnswerShape }),
+  lotLevels: (itemId: number) => api.get(`/stock/lot-levels${toQuery({ itemId })}`, { answer: lotLevelsAnswerShape }),
+  ledger: (q: QueryValues) => api.get(`/stock/ledger${toQuery(q)}`, { answer: ledgerPageShape }),
   ledgerExport: (q: QueryValues) => download(`/stock/ledger/export${toQuery(q)}`),
-  transfers: (q: QueryValues) => api.get<TransferView[]>(`/stock/transfers${toQuery(q)}`),
-  minimums: (q: QueryValues) => api.get<MinimumRow[]>(`/stock/minimums${toQuery(q)}`),
+  transfers: (q: QueryValues) => api.get(`/stock/transfers${toQuery(q)}`, { answer: z.array(transferViewShape) }),
+  minimums: (q: QueryValues) => api.get(`/stock/minimums${toQuery(q)}`, { answer: z.array(minimumRowShape) }),
   setMinimum: (itemId: number, warehouseId: number, minQty: number | null) =>
-    api.put<MinimumRow>(`/stock/minimums/${itemId}/${warehouseId}`, { minQty }),
+    api.put(`/stock/minimums/${itemId}/${warehouseId}`, { minQty }, { answer: minimumRowShape }),
   places: () => api.get(stockPaths.places, { answer: placesSchema }),
-  itemOptions: (q: { q?: string; ids?: readonly string[] }) => api.get<ItemOption[]>(`/stock/item-options${toQuery(q)}`),
-  lookup: (q: QueryValues) => api.get<LookupAnswer>(`/stock/lookup${toQuery(q)}`),
+  itemOptions: (q: { q?: string; ids?: readonly string[] }) => api.get(`/stock/item-options${toQuery(q)}`, { answer: z.array(itemOptionShape) }),
+  lookup: (q: QueryValues) => api.get(`/stock/lookup${toQuery(q)}`, { answer: lookupAnswerShape }),
 
-  adjust: (body: AdjustmentInput, key: string) => api.post<MoveSummary>('/stock/adjustments', body, keyed(key)),
-  moveBetweenBins: (body: BinMoveInput, key: string) => api.post<MoveSummary>('/stock/bin-moves', body, keyed(key)),
-  shipTransfer: (body: TransferShipInput, key: string) => api.post<{ transfer: { id: number } }>('/stock/transfers', body, keyed(key)),
-  receiveTransfer: (id: number, body: TransferReceiveInput, key: string) => api.post<{ id: number; status: string }>(`/stock/transfers/${id}/receive`, body, keyed(key)),
+  adjust: (body: AdjustmentInput, key: string) => api.post('/stock/adjustments', body, { ...keyed(key), answer: moveSummaryShape }),
+  moveBetweenBins: (body: BinMoveInput, key: string) => api.post('/stock/bin-moves', body, { ...keyed(key), answer: moveSummaryShape }),
+  shipTransfer: (body: TransferShipInput, key: string) => api.post('/stock/transfers', body, { ...keyed(key), answer: transferShippedShape }),
+  receiveTransfer: (id: number, body: TransferReceiveInput, key: string) => api.post(`/stock/transfers/${id}/receive`, body, { ...keyed(key), answer: transferReceivedShape }),
 }

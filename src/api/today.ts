@@ -1,8 +1,8 @@
 // Typed call for the start page's panels (what needs doing today, per role).
-import type { TodayAnswer } from '@shared/schemas/today'
+import { todayAnswerShape } from '@shared/schemas/answers/today'
 import { api } from './client'
 import { toQuery } from './stock'
 
 export const todayApi = {
-  panels: (tz: string) => api.get<TodayAnswer>(`/today${toQuery({ tz })}`),
+  panels: (tz: string) => api.get(`/today${toQuery({ tz })}`, { answer: todayAnswerShape }),
 }

@@ -1,11 +1,6 @@
+import { newIdempotencyKey } from '@/api/idempotencyKey'
 import { useApiAction } from './useApiAction'
 
-/** A key for Idempotency-Key. randomUUID needs a secure context, so plain-HTTP tablets get random bytes instead. */
-export function newIdempotencyKey(): string {
-  if (typeof crypto.randomUUID === 'function') return crypto.randomUUID()
-  const bytes = crypto.getRandomValues(new Uint8Array(16))
-  return [...bytes].map((b) => b.toString(16).padStart(2, '0')).join('')
-}
 
 /**
  * Submits a stock form with one Idempotency-Key per submission: the same body sent again (a double

@@ -1,15 +1,17 @@
 import { computed, ref, shallowRef, type Ref } from 'vue'
+import type { ZodType } from 'zod'
 import { useI18n } from 'vue-i18n'
 import { ElMessage } from 'element-plus'
 import { isApiError } from '@/api/client'
-import { uploadWithProgress, type UploadHandle } from '@/api/fileTransfer'
+import { uploadWithProgress, type SheetSteps, type UploadHandle } from '@/api/fileTransfer'
 
 /**
  * A spreadsheet sent to the server twice, first to be checked and then to be written: the chosen file, the
  * upload's progress (sending, then working on the server), cancelling, and the failure worded per row.
- * `pathOf` gives the route for each step; `words` is the message area with `cancelled` and `row`.
+ * `steps` gives the route and the answer's schema for each step (from the area's API module); `words` is the
+ * message area with `cancelled` and `row`.
  */
-export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => string, words: string) {
+export function useSheetUpload<P, C>(steps: SheetSteps<P, C>, words: string) {
   const { t } = useI18n()
   const file = shallowRef<File | null>(null)
   const preview = ref<P | null>(null) as Ref<P | null>
@@ -17,7 +19,7 @@ export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => strin
   const step = ref<'preview' | 'commit'>('preview')
   const progress = ref(0)
   const failure = ref('')
-  let handle: UploadHandle<P> | null = null
+  let handle: UploadHandle<P | C> | null = null
   const busy = computed(() => phase.value !== 'idle')
 
   /** Forgets the file, its check and any failure (a new file chosen, or a new kind of import). */
@@ -31,7 +33,7 @@ export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => strin
     reset((e.target as HTMLInputElement).files?.[0] ?? null)
   }
 
-  async function send<T extends P = P>(which: 'preview' | 'commit'): Promise<T | null> {
+  async function send<T extends P | C>(which: 'preview' | 'commit', answer: ZodType<T>): Promise<T | null> {
     if (!file.value || busy.value) return null
     const form = new FormData()
     form.append('file', file.value)
@@ -39,12 +41,13 @@ export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => strin
     phase.value = 'sending'
     progress.value = 0
     failure.value = ''
-    handle = uploadWithProgress<P>(pathOf(which), form, (f) => {
+    const upload = uploadWithProgress(steps.path(which), form, answer, (f) => {
       progress.value = Math.round(f * 100)
       if (f >= 1) phase.value = 'working'
     })
+    handle = upload
     try {
-      return (await handle.done) as T
+      return await upload.done
     } catch (err) {
       if (isApiError(err) && err.code === 'aborted') ElMessage.info(t(`${words}.cancelled`))
       else failure.value = isApiError(err) ? [err.message, ...Object.entries(err.fields).map(([row, text]) => `${t(`${words}.row`)} ${row}: ${text}`)].join('\n') : String(err)
@@ -56,10 +59,13 @@ export function useSheetUpload<P>(pathOf: (which: 'preview' | 'commit') => strin
   }
 
   async function check() {
-    preview.value = await send('preview')
+    preview.value = await send('preview', steps.preview)
   }
+
+  /** Writes the checked file; null when it failed or was cancelled (the failure is shown). */
+  const commit = () => send('commit', steps.commit)
 
   const cancel = () => handle?.abort()
 
-  return { file, preview, phase, step, progress, failure, busy, reset, choose, send, check, cancel }
+  return { file, preview, phase, step, progress, failure, busy, reset, choose, check, commit, cancel }
 }

@@ -8,6 +8,10 @@ export const fallbackLocale = { en: ['en-US'], es: ['es-US', 'en'], default: ['e
 
 const numbers = {
   integer: { maximumFractionDigits: 0 },
+  /** Areas, angles and weights shown to a tenth (12.5 ft², 97.5°). */
+  tenths: { maximumFractionDigits: 1 },
+  /** Small measures and rates shown to a hundredth (3.72 m², a mean of 4.17 a day). */
+  hundredths: { maximumFractionDigits: 2 },
   decimal: { maximumFractionDigits: 3 },
   /** The figures behind a computation (a mean daily use of 0.4167). */
   precise: { maximumFractionDigits: 4 },

@@ -9,3 +9,8 @@ type When = string | number | Date | null | undefined
 export function dateTimeText(value: When, empty = '—'): string {
   return value === null || value === undefined || value === '' ? empty : i18n.global.d(new Date(value), 'dateTime')
 }
+
+/** The reader's time zone (the browser's), which the server needs to cut days and months where the reader does. */
+export function readerTimeZone(): string {
+  return Intl.DateTimeFormat().resolvedOptions().timeZone
+}

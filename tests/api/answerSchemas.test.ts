@@ -12,6 +12,8 @@ import { setupStateSchema } from '../../shared/schemas/setup.js'
 import { placesSchema } from '../../shared/schemas/stockViews.js'
 import { warehouseDetailSchema, warehouseRowSchema } from '../../shared/schemas/warehouses.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { designedAccess } from './roleMatrix.js'
+import { CHECKED_ELSEWHERE, everyRead, FILE_ROUTES, FIRST_CHECKED } from './answerSchemaReads.js'
 
 let h: ApiHarness
 beforeAll(async () => {
@@ -85,6 +87,28 @@ describe('answers match the schemas the client checks them with', () => {
     const saved = await counter.post('/api/jobs').set(CSRF).send({ customerId: customers.body[0].id, name: 'Brightcourse lobby screen wall' })
     expect(saved.status).toBe(201)
     expect(problemsOf(jobSummarySchema, saved.body)).toEqual([])
+  })
+
+  it('every other read: its answer from the demo scenario passes the schema its API call checks it with', async () => {
+    const problems: Record<string, string[]> = {}
+    for (const read of await everyRead(h)) {
+      const who = await h.as(read.role)
+      const got = await who.get(read.path)
+      const rows: unknown = read.nonEmpty === true ? got.body : read.nonEmpty ? got.body?.[read.nonEmpty] : null
+      const found = got.status !== 200 ? [`status ${got.status}`]
+        : read.nonEmpty && !(Array.isArray(rows) && rows.length) ? ['no rows: nothing was checked']
+        : problemsOf(read.schema, got.body)
+      if (found.length) problems[`${read.route} as ${read.role}`] = found.slice(0, 6)
+    }
+    expect(problems).toEqual({})
+  })
+
+  it("every JSON read the server routes is checked above, or is a file download", async () => {
+    const checked = new Set([...FIRST_CHECKED, ...Object.keys(CHECKED_ELSEWHERE), ...(await everyRead(h)).map((r) => r.route)])
+    const gets = Object.keys(designedAccess).filter((k) => k.startsWith('GET '))
+    expect(gets.length).toBeGreaterThan(80)
+    const unchecked = gets.filter((k) => !checked.has(k) && !FILE_ROUTES.has(k))
+    expect(unchecked).toEqual([])
   })
 
   it('refuses an answer that lost or retyped a field', async () => {

@@ -7,7 +7,6 @@
 import { once } from 'node:events'
 import { PassThrough, type Writable } from 'node:stream'
 import { ZipArchive, type Archiver } from 'archiver'
-import ExcelJS from 'exceljs'
 import type { DataSource, QueryRunner } from 'typeorm'
 import { audit, type AuditActor } from '../auditService.js'
 import { ITEM_COLUMNS, columnOf, itemColumnAllowed } from '../catalogSheet.js'
@@ -17,7 +16,7 @@ import { PURCHASE_ORDERS_GUIDE, PURCHASE_ORDERS_SPEC } from '../imports/purchase
 import { USAGE_HISTORY_GUIDE, USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
 import { VENDOR_ITEMS_GUIDE, VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
 import type { ImportSpec } from '../imports/importTypes.js'
-import { buildXlsx, fieldsSheet, openSheet, sheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
+import { buildXlsx, fieldsSheet, newStreamingBook, openSheet, sheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
 import { DAY, col, formatOf, oneOf, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
 import { LEFT_OUT, RECORD_PARTS } from './recordParts.js'
 import { OPEN_PO_STATUSES } from '../../entities/PurchaseOrder.js'
@@ -496,8 +495,7 @@ async function rowsOf(runner: QueryRunner, sql: string): Promise<AsyncIterable<R
 async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, part: ExportPart): Promise<number> {
   const entry = new PassThrough()
   archive.append(entry, { name: `${part.file}.xlsx`, store: true })
-  const book = new ExcelJS.stream.xlsx.WorkbookWriter({ stream: entry, useStyles: true, useSharedStrings: false })
-  book.creator = 'Lumenyard'
+  const book = newStreamingBook(entry)
   const sheet = openSheet<Raw>(book, { name: part.sheet, columns: part.columns as SheetColumn<Raw>[] })
   let n = 0
   for await (const row of await rowsOf(runner, part.sql)) {

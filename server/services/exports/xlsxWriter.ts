@@ -343,6 +343,13 @@ export async function streamXlsx(out: Writable, ...sheets: Sheet[]): Promise<voi
   await book.commit()
 }
 
+/**
+ * A workbook written to a stream as its rows arrive, for a writer that reads rows at its own pace (the whole-business
+ * export); strings written inline keep memory flat however many rows there are.
+ */
+export const newStreamingBook = (out: Writable) =>
+  newBook(new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: false }))
+
 /** An empty workbook to lay out by hand (the purchase order's sheet); pair it with printOptions and putCell. */
 export const newWorkbook = () => newBook(new ExcelJS.Workbook())
 

@@ -10,7 +10,7 @@ import type { ItemOption } from '@shared/schemas/stockViews'
 import { isApiError } from '@/api/client'
 import { countsApi } from '@/api/counts'
 import { stockApi } from '@/api/stock'
-import { newIdempotencyKey } from '@/composables/useIdempotentSubmit'
+import { newIdempotencyKey } from '@/api/idempotencyKey'
 import type { useScanFeedback } from '@/composables/picking/useScanFeedback'
 
 export type CountStep = 'bin' | 'item' | 'lot' | 'qty'

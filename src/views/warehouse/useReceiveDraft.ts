@@ -1,6 +1,7 @@
 // The receipt being put together at the dock: rows per PO line, bin and lot, filled by scans or by
 // hand, posted once with an Idempotency-Key that stays the same until the post succeeds, so a retry
 // after a lost answer never receives twice.
+import { newIdempotencyKey } from '@/api/idempotencyKey'
 import { computed, ref } from 'vue'
 import { problem, type Problem } from '@shared/errors/errorCodes'
 import { readReceivingScan, type ScanLine } from '@shared/purchasing/receiveScan'
@@ -17,12 +18,10 @@ export interface DraftRow {
   reason: string
 }
 
-const newKey = () => (crypto.randomUUID ? crypto.randomUUID() : `rcv-${Date.now()}-${Math.random().toString(36).slice(2)}`)
-
 export function useReceiveDraft(context: () => ReceivingContext | null) {
   const rows = ref<DraftRow[]>([])
   const binId = ref<number | null>(null)
-  let idempotencyKey = newKey()
+  let idempotencyKey = newIdempotencyKey()
   let seq = 0
 
   const lineOf = (id: number) => context()?.po.lines.find((l) => l.id === id)
@@ -62,7 +61,7 @@ export function useReceiveDraft(context: () => ReceivingContext | null) {
       lines: rows.value.map((r) => ({ poLineId: r.poLineId, binId: r.binId, lotCode: r.lotCode || null, qty: r.qty, damagedQty: r.damagedQty, reason: r.reason || null })),
     }
     const result = await purchasingApi.receive(context()!.po.id, body, idempotencyKey)
-    idempotencyKey = newKey()
+    idempotencyKey = newIdempotencyKey()
     rows.value = []
     return result
   }

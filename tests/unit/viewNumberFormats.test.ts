@@ -2,13 +2,11 @@
 // src/i18n/formats.ts, so a Spanish reader and an English one each get their own writing from one place. The
 // lint configuration refuses the browser's own formatting (toFixed, toLocaleString, Intl) in views and components,
 // in a script and in a template; these probes run the project's own lint configuration so the rule cannot quietly
-// stop matching, and check the named formats themselves.
-// source: vue-i18n guide, "Number Formatting" (n() with named formats); ECMA-402 (Intl.NumberFormat options
-// maximumFractionDigits); common practice (one formatting rule per project)
+// stop matching (the named formats themselves: tests/unit/client/numberFormats.test.ts).
+// source: vue-i18n guide, "Number Formatting" (n() with named formats); common practice (one formatting rule per project)
 import { fileURLToPath } from 'node:url'
 import { ESLint } from 'eslint'
 import { beforeAll, describe, expect, it } from 'vitest'
-import { numberFormats } from '../../src/i18n/formats.js'
 
 const root = fileURLToPath(new URL('../..', import.meta.url))
 let eslint: ESLint
@@ -35,15 +33,5 @@ describe('numbers on screen go through the named formats', () => {
 
   it("lets a view write a number with vue-i18n's n() and a named format", async () => {
     expect(await refusals(sfc("import { useI18n } from 'vue-i18n'\nconst { n } = useI18n()\nconst area = (x: number) => n(x, 'tenths')\nvoid area"))).toEqual([])
-  })
-
-  it('the named formats round as their names say, the same for English and Spanish readers', () => {
-    // ECMA-402: maximumFractionDigits rounds half away from zero ("half expand"); figures worked by hand.
-    for (const locale of ['en-US', 'es-US'] as const) {
-      const f = numberFormats[locale] as Record<string, Intl.NumberFormatOptions>
-      expect(new Intl.NumberFormat('en-US', f.tenths).format(97.46)).toBe('97.5')
-      expect(new Intl.NumberFormat('en-US', f.hundredths).format(3.716)).toBe('3.72')
-      expect(new Intl.NumberFormat('en-US', f.integer).format(1234.5)).toBe('1,235')
-    }
   })
 })

@@ -142,7 +142,8 @@ export const bomRecordShape = z.object({
   cautions: z.array(cautionShape),
   totals: takeoffTotalsShape.nullable(),
   walls: z.array(wallResultShape),
-  availability: z.array(lineAvailabilityShape)
+  availability: z.array(lineAvailabilityShape),
+  salesOrder: z.object({ id: z.number(), number: z.string() }).nullable()
 }) satisfies z.ZodType<BomRecord>
 
 

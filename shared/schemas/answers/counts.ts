@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import type { CountAccuracyRow, CountScopeDetail, CountSettings, CountSummary, CountLineView, CountDetail, HandheldBinRow, HandheldCountBin, HandheldCount, CountDueClass, CountDuePlan, CountHistoryRow } from '../counts.js'
-import { abcClassShape, countBinStatusShape, countIntervalsShape, countLineSourceShape, countLineStatusShape, countReviewerChoiceShape, countScopeShape, countStatusShape } from './terms.js'
+import { abcClassShape, codedRefShape, countBinStatusShape, countIntervalsShape, countLineSourceShape, countLineStatusShape, countReviewerChoiceShape, countScopeShape, countStatusShape } from './terms.js'
 
 export const countAccuracyRowShape = z.object({
   warehouseId: z.number(),
@@ -29,11 +29,7 @@ export const countSettingsShape = z.object({
 
 export const countSummaryShape = z.object({
   id: z.number(),
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  warehouse: codedRefShape,
   scope: countScopeShape,
   scopeDetail: countScopeDetailShape,
   status: countStatusShape,
@@ -129,11 +125,7 @@ const handheldCountBinShape = handheldBinRowShape.extend({
 
 export const handheldCountShape = z.object({
   id: z.number(),
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  warehouse: codedRefShape,
   scope: countScopeShape,
   scopeDetail: countScopeDetailShape,
   status: countStatusShape,

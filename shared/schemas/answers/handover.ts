@@ -66,6 +66,7 @@ export const orderFulfilmentShape = z.object({
   status: salesOrderStatusShape,
   readyAt: z.string().nullable(),
   readyMailedAt: z.string().nullable(),
+  readyMailError: z.string().nullable(),
   lines: z.array(fulfilmentLineShape),
   pickLists: z.array(z.object({
     id: z.number(),

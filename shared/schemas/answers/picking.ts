@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import { PICK_LIST_STATUSES, PICK_MODES, SHORTAGE_ACTIONS, SHORT_REASONS, SHORT_RESOLUTIONS } from '../picking.js'
 import type { PickListStatus, ShortReason, ShortageAction, PickMode, ShortResolution, Person, StatusStep, ShortageView, TransferProposalView, ConfirmationView, PickListSummary, PickConfirmAnswer, PickShortResolveAnswer, PickDiscardAnswer, PlannedLine, PlannedList, PlannedShortage, PickPlan, WalkWarehouse, BomForPicking, PickLineView, PickListDetail } from '../picking.js'
-import { handlingCautionShape } from './terms.js'
+import { codedRefShape, handlingCautionShape } from './terms.js'
 
 export const pickListStatusShape = z.enum(PICK_LIST_STATUSES) satisfies z.ZodType<PickListStatus>
 
@@ -38,11 +38,7 @@ const shortageViewShape = z.object({
 
 const transferProposalViewShape = z.object({
   id: z.number(),
-  fromWarehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  fromWarehouse: codedRefShape,
   sku: z.string(),
   binCode: z.string(),
   lotCode: z.string().nullable(),
@@ -73,11 +69,7 @@ export const pickListSummaryShape = z.object({
   salesOrderId: z.number().nullable(),
   salesOrderNumber: z.string().nullable(),
   customerName: z.string(),
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  warehouse: codedRefShape,
   lineCount: z.number(),
   lineStates: z.object({
     total: z.number(),
@@ -136,11 +128,7 @@ const plannedLineShape = z.object({
 }) satisfies z.ZodType<PlannedLine>
 
 const plannedListShape = z.object({
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  warehouse: codedRefShape,
   lines: z.array(plannedLineShape)
 }) satisfies z.ZodType<PlannedList>
 

@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import type { VendorView, VendorItemView, ItemChoice, WarehouseChoice, PoTimelineEntry, PoLineView, OutboxSummary, BinChoice, ReceiptLineView, ReceiptView, SuggestionView, JobOpenSpecialOrder, SpecialOrderJob, PoSummary, PoDetail, ReceivingContext, ReceiveResult, JobPurchaseLine, JobPurchaseLines, PriceListPreviewRow, PriceListPreview } from '../purchasingViews.js'
 import { poStatusShape } from './purchasing.js'
-import { rowProblemShape } from './terms.js'
+import { codedRefShape, rowProblemShape } from './terms.js'
 
 export const vendorViewShape = z.object({
   id: z.number(),
@@ -44,11 +44,7 @@ export const itemChoiceShape = z.object({
   gtin: z.string().nullable()
 }) satisfies z.ZodType<ItemChoice>
 
-export const warehouseChoiceShape = z.object({
-  id: z.number(),
-  code: z.string(),
-  name: z.string()
-}) satisfies z.ZodType<WarehouseChoice>
+export const warehouseChoiceShape = codedRefShape satisfies z.ZodType<WarehouseChoice>
 
 const poTimelineEntryShape = z.object({
   event: z.union([z.literal('created'), z.literal('approved'), z.literal('sent'), z.literal('delivery'), z.literal('received'), z.literal('closed'), z.literal('cancelled')]),
@@ -144,16 +140,8 @@ export const suggestionViewShape = z.object({
   sku: z.string(),
   itemName: z.string(),
   stockUnit: z.string(),
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
-  vendor: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }).nullable(),
+  warehouse: codedRefShape,
+  vendor: codedRefShape.nullable(),
   qty: z.number(),
   source: z.string(),
   acceptedAt: z.string(),
@@ -185,16 +173,8 @@ export const poSummaryShape = z.object({
   id: z.number(),
   number: z.string(),
   status: poStatusShape,
-  vendor: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  vendor: codedRefShape,
+  warehouse: codedRefShape,
   job: z.object({
     id: z.number(),
     name: z.string(),

@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import { POLICY_SCOPES } from '../reorder.js'
 import type { PolicyScopeName, LeadTimeSource, PolicySource, UsageWindow, UsageFigures, LeadTimeFigures, UsageHistory, AcceptResult, ReorderChoices, ReorderLine, SuggestionList, ReorderLineDetail, ReorderPolicyView, AbcParetoItem, AbcPareto } from '../reorder.js'
-import { abcClassShape, itemFamilyShape, moneyShape } from './terms.js'
+import { abcClassShape, codedRefShape, itemFamilyShape, moneyShape } from './terms.js'
 import { explanationShape, reorderPolicyShape, reorderStatusShape } from './reorderWorking.js'
 
 const policyScopeNameShape = z.enum(POLICY_SCOPES) satisfies z.ZodType<PolicyScopeName>
@@ -63,16 +63,8 @@ export const acceptResultShape = z.object({
 }) satisfies z.ZodType<AcceptResult>
 
 export const reorderChoicesShape = z.object({
-  warehouses: z.array(z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  })),
-  vendors: z.array(z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  })),
+  warehouses: z.array(codedRefShape),
+  vendors: z.array(codedRefShape),
   families: z.array(itemFamilyShape)
 }) satisfies z.ZodType<ReorderChoices>
 

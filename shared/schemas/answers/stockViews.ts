@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import type { LotPlace, LotLevel, TransferLineView, TransferView, MinimumRow, LotOption, StockLevelRow, StockLevelsAnswer, BinContentLine, BinContents, BinContentsAnswer, LotLevelsAnswer, LedgerRow, LedgerPage, PlaceBin, ItemOption, LookupAnswer } from '../stockViews.js'
-import { binKindShape, moveTypeShape, stockUnitShape } from './terms.js'
+import { binKindShape, codedRefShape, moveTypeShape, stockUnitShape } from './terms.js'
 
 const lotPlaceShape = z.object({
   warehouseId: z.number(),
@@ -107,11 +107,7 @@ const binContentsShape = z.object({
 }) satisfies z.ZodType<BinContents>
 
 export const binContentsAnswerShape = z.object({
-  warehouse: z.object({
-    id: z.number(),
-    code: z.string(),
-    name: z.string()
-  }),
+  warehouse: codedRefShape,
   bins: z.array(binContentsShape)
 }) satisfies z.ZodType<BinContentsAnswer>
 

@@ -21,6 +21,9 @@ export { jobStatusSchema as jobStatusNameShape } from '../counter.js'
 export { companyProfileSchema as companyProfileInputShape } from '../purchasing.js'
 export { deadStockQuerySchema as deadStockQueryShape } from '../reports.js'
 
+/** A record named by its code and name (a warehouse, a vendor) beside its id. */
+export const codedRefShape = z.object({ id: z.number(), code: z.string(), name: z.string() })
+
 /** Money travels as a decimal string ("12.50"). */
 export const moneyShape = z.string().regex(/^-?\d+(\.\d+)?$/)
 export const abcClassShape = z.enum(['A', 'B', 'C'])

@@ -3,6 +3,7 @@
 // company prefix) and its dismissal, kept in app_settings.
 import type { DataSource, EntityManager } from 'typeorm'
 import type { SetupGs1Input, SetupState, SetupUnitsInput } from '../../shared/schemas/setup.js'
+import { OPEN_PO_STATUSES } from '../entities/PurchaseOrder.js'
 import { audit, type AuditActor } from './auditService.js'
 
 const KEYS = {
@@ -37,6 +38,11 @@ export async function setupState(db: Db, production: boolean): Promise<SetupStat
   const items = await one(db, 'SELECT COUNT(*) AS n FROM items WHERE active = 1')
   const openings = await one(db, "SELECT COUNT(*) AS n FROM data_imports WHERE kind = 'opening_stock' AND reversed_at IS NULL")
   const stocked = await one(db, 'SELECT EXISTS (SELECT 1 FROM stock_balances WHERE on_hand > 0) AS n')
+  const vendorItems = await one(db, 'SELECT COUNT(*) AS n FROM vendor_items')
+  const accounts = await one(db, 'SELECT COUNT(*) AS n FROM customers')
+  const openOrders = await one(db, `SELECT COUNT(*) AS n FROM purchase_orders WHERE status IN (${OPEN_PO_STATUSES.map((st) => `'${st}'`).join(', ')})`)
+  // Use is there once history came in, or once the ledger holds issues or picks of its own.
+  const used = await one(db, "SELECT EXISTS (SELECT 1 FROM data_imports WHERE kind = 'usage_history' AND reversed_at IS NULL) OR EXISTS (SELECT 1 FROM stock_moves WHERE move_type IN ('issue', 'pick')) AS n")
   const dismissed = s.get(KEYS.dismissed) === 'true'
   const prefix = s.get(KEYS.gs1Prefix)
   return {
@@ -49,6 +55,10 @@ export async function setupState(db: Db, production: boolean): Promise<SetupStat
       { key: 'gs1', done: prefix !== undefined, figures: { prefix: prefix || null } },
       { key: 'items', done: items > 0, figures: { items } },
       { key: 'opening_stock', done: openings > 0 || stocked > 0, figures: { imports: openings } },
+      { key: 'vendors', done: vendorItems > 0, figures: { vendorItems } },
+      { key: 'accounts', done: accounts > 0, figures: { accounts } },
+      { key: 'purchase_orders', done: openOrders > 0, figures: { orders: openOrders } },
+      { key: 'usage_history', done: used > 0 },
     ],
   }
 }

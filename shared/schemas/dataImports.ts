@@ -2,7 +2,11 @@
 // problem of every row), and the record each committed import leaves.
 import type { RowProblem } from '../errors/errorCodes.js'
 
-export const DATA_IMPORT_KINDS = ['opening_stock', 'usage_history', 'accounts', 'vendor_items', 'purchase_orders'] as const
+/** In the order a new business brings them in: what later kinds refer to comes first. */
+export const DATA_IMPORT_KINDS = [
+  'warehouses', 'bins', 'price_levels', 'price_rules', 'vendors', 'vendor_items', 'accounts',
+  'opening_stock', 'purchase_orders', 'usage_history', 'reorder_settings', 'lead_times',
+] as const
 export type DataImportKind = (typeof DATA_IMPORT_KINDS)[number]
 
 export const isDataImportKind = (k: string): k is DataImportKind => (DATA_IMPORT_KINDS as readonly string[]).includes(k)

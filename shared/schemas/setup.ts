@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import { issueCode } from '../errors/zodProblems.js'
 
-export const SETUP_STEPS = ['company', 'units', 'warehouses', 'gs1', 'items', 'opening_stock'] as const
+export const SETUP_STEPS = ['company', 'units', 'warehouses', 'gs1', 'items', 'opening_stock', 'vendors', 'accounts', 'purchase_orders', 'usage_history'] as const
 export type SetupStep = (typeof SETUP_STEPS)[number]
 
 export interface SetupState {

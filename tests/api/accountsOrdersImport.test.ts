@@ -1,6 +1,6 @@
 // Contractor accounts and open purchase orders from the business's own sheets, against the real database:
 // refusals change nothing; imported open orders make "on order" = ordered − received at once; each import
-// reverses whole while untouched.
+// reverses whole while untouched; the same file committed twice changes nothing the second time.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { SuggestionList } from '../../shared/schemas/reorder.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
@@ -30,9 +30,17 @@ const codesOf = (res: { body: { error: { fields: Record<string, { code: string }
 describe('contractor accounts import', () => {
   it('refuses a code already here, a bad e-mail and an unknown price level, then brings new accounts in with their terms and reverses them', async () => {
     const head = 'Account code,Name,Contact,E-mail,Phone,Price level,Tax-exempt certificate,Exempt until'
-    const first = await send('accounts', [head, `A${tag}-1,Harbor Lane Masonry,Ines Calder,ines@harborlane.example,555-0140,l${tag},EX-40771,2027-06-30`, `A${tag}-2,Quarry Row Builders,,,,,,`])
+    const file = [head, `A${tag}-1,Harbor Lane Masonry,Ines Calder,ines@harborlane.example,555-0140,l${tag},EX-40771,2027-06-30`, `A${tag}-2,Quarry Row Builders,,,,,,`]
+    const first = await send('accounts', file)
     expect(first.status, JSON.stringify(first.body)).toBe(200)
     expect(first.body.record.summary).toEqual({ accounts: 2, withTerms: 1 })
+    // The same file committed again changes nothing: no account, terms or import record is added.
+    const counts = () => Promise.all(['customers', 'customer_terms', 'data_imports'].map((t) => countRows(h.ds, t)))
+    const held = await counts()
+    const again = await send('accounts', file)
+    expect(again.status).toBe(200)
+    expect(again.body).toMatchObject({ repeated: true, record: { id: first.body.record.id } })
+    expect(await counts()).toEqual(held)
     const [acct] = await h.ds.query('SELECT name, contact_name, email FROM customers WHERE code = ?', [`A${tag}-1`])
     expect(acct).toEqual({ name: 'Harbor Lane Masonry', contact_name: 'Ines Calder', email: 'ines@harborlane.example' })
     const [terms] = await h.ds.query("SELECT t.price_level_id, t.exempt_certificate, DATE_FORMAT(t.exempt_until, '%Y-%m-%d') AS until FROM customer_terms t JOIN customers c ON c.id = t.customer_id WHERE c.code = ?", [`A${tag}-1`])
@@ -70,13 +78,20 @@ describe('open purchase orders import', () => {
     expect(await countRows(h.ds, 'purchase_orders')).toBe(before)
   })
 
-  it('makes on order = ordered − received from the first day, and reverses whole', async () => {
-    const res = await send('purchase_orders', [head,
+  it('makes on order = ordered − received from the first day, changes nothing when the file comes again, and reverses whole', async () => {
+    const file = [head,
       `P${tag}-1,${VENDOR},${WH},2026-11-20,2026-12-18,AO${tag}-1,40,15,0.8500`,
       `P${tag}-1,${VENDOR},${WH},2026-11-20,2026-12-18,AO${tag}-2,30,0,7.25`,
       `P${tag}-2,${VENDOR},${WH},2026-11-28,,AO${tag}-1,12,0,0.85`,
-    ])
+    ]
+    const res = await send('purchase_orders', file)
     expect(res.status, JSON.stringify(res.body)).toBe(200)
+    const counts = () => Promise.all(['purchase_orders', 'purchase_order_lines', 'data_imports'].map((t) => countRows(h.ds, t)))
+    const held = await counts()
+    const again = await send('purchase_orders', file)
+    expect(again.status).toBe(200)
+    expect(again.body).toMatchObject({ repeated: true, record: { id: res.body.record.id } })
+    expect(await counts()).toEqual(held)
     // worked by hand: item 1 is 40 − 15 + 12 = 37 on order; item 2 is 30; 67 units in all
     expect(res.body.record.summary).toEqual({ orders: 2, lines: 3, units: 67 })
     expect(await onOrder(ids.item)).toBe(37)

@@ -20,7 +20,7 @@ describe('first-run checklist settings', () => {
     const first = await admin.get('/api/setup')
     expect(first.status).toBe(200)
     expect(first.body.show).toBe(false) // NODE_ENV=test: only a production installation opens it by itself
-    expect(first.body.steps.map((s: { key: string }) => s.key)).toEqual(['company', 'units', 'warehouses', 'gs1', 'items', 'opening_stock'])
+    expect(first.body.steps.map((s: { key: string }) => s.key)).toEqual(['company', 'units', 'warehouses', 'gs1', 'items', 'opening_stock', 'vendors', 'accounts', 'purchase_orders', 'usage_history'])
 
     // source: GS1 General Specifications, GS1 Company Prefix: 4 to 12 digits
     for (const bad of ['123', '1234567890123', '06141A1']) {

@@ -4,6 +4,7 @@
 // counts, reservations, reorder and price settings, imports, mail sent and the audit trail. Each is one
 // streamed query; nothing is gathered in memory. Tables left out on purpose are listed in LEFT_OUT.
 import { SALES_ORDER_STATUSES } from '../../../shared/sales/salesOrderTerms.js'
+import { observedLeadTimeSql } from '../reorder/leadTimes.js'
 import { col, oneOf, type ExportPart } from './exportParts.js'
 
 const WALL_COLUMNS = `n FOR ORDINALITY, name VARCHAR(80) PATH '$.name', sizing VARCHAR(10) PATH '$.sizing',
@@ -407,6 +408,18 @@ export const RECORD_PARTS: readonly ExportPart[] = [
             p.soon_days, p.overstock_margin_days, p.dead_stock_days, p.usage_window_days, p.abc_cutoff_a, p.abc_cutoff_b, p.override_reorder_point,
             p.override_order_qty, p.override_reason, p.note
           FROM reorder_policies p LEFT JOIN items i ON i.id = p.item_id LEFT JOIN warehouses w ON w.id = p.warehouse_id ORDER BY p.scope, p.id`,
+  },
+  {
+    file: 'lead-times', sheet: 'Lead times',
+    about: 'Each lead time seen: a vendor, an item, the order it came on and the days from sending the order to the first arrival of the item (from receipts here, and any brought in from before), in the columns of the lead times import. Reorder points read their mean and spread.',
+    columns: [
+      col('Vendor code', 'text', 'vendor', 'The vendor.'),
+      col('SKU', 'text', 'sku', 'The item.'),
+      col('Order number', 'text', 'order_ref', 'The purchase order.'),
+      col('Lead time days', 'decimal', 'days', 'Days from sending the order to the first receipt of the item (to the second).', 6),
+    ],
+    sql: `SELECT v.code AS vendor, i.sku, t.order_ref, ROUND(t.seconds / 86400, 6) AS days FROM (${observedLeadTimeSql()}) t
+          JOIN vendors v ON v.id = t.vendor_id JOIN items i ON i.id = t.item_id ORDER BY v.code, i.sku, t.order_ref`,
   },
   {
     file: 'reorder-suggestions', sheet: 'Reorder suggestions',

@@ -9,6 +9,10 @@ import { USAGE_HISTORY_GUIDE, usageHistoryImport } from './usageHistoryImport.js
 import { ACCOUNTS_GUIDE, accountsImport } from './accountsImport.js'
 import { PURCHASE_ORDERS_GUIDE, purchaseOrdersImport } from './purchaseOrdersImport.js'
 import { VENDOR_ITEMS_GUIDE, vendorItemsImport } from './vendorItemsImport.js'
+import { BINS_GUIDE, WAREHOUSES_GUIDE, binsImport, warehousesImport } from './warehousesImport.js'
+import { PRICE_LEVELS_GUIDE, PRICE_RULES_GUIDE, priceLevelsImport, priceRulesImport } from './pricingImport.js'
+import { VENDORS_GUIDE, vendorsImport } from './vendorsImport.js'
+import { LEAD_TIMES_GUIDE, REORDER_SETTINGS_GUIDE, leadTimesImport, reorderSettingsImport } from './reorderSettingsImport.js'
 
 export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>> = {
   opening_stock: openingStockImport as DataImportDefinition<unknown>,
@@ -16,6 +20,13 @@ export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>>
   accounts: accountsImport as DataImportDefinition<unknown>,
   vendor_items: vendorItemsImport as DataImportDefinition<unknown>,
   purchase_orders: purchaseOrdersImport as DataImportDefinition<unknown>,
+  warehouses: warehousesImport as DataImportDefinition<unknown>,
+  bins: binsImport as DataImportDefinition<unknown>,
+  price_levels: priceLevelsImport as DataImportDefinition<unknown>,
+  price_rules: priceRulesImport as DataImportDefinition<unknown>,
+  vendors: vendorsImport as DataImportDefinition<unknown>,
+  reorder_settings: reorderSettingsImport as DataImportDefinition<unknown>,
+  lead_times: leadTimesImport as DataImportDefinition<unknown>,
 }
 
 const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string> }> = {
@@ -24,6 +35,13 @@ const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string
   accounts: { tab: 'Accounts', guide: ACCOUNTS_GUIDE },
   vendor_items: { tab: 'Vendor items', guide: VENDOR_ITEMS_GUIDE },
   purchase_orders: { tab: 'Open purchase orders', guide: PURCHASE_ORDERS_GUIDE },
+  warehouses: { tab: 'Warehouses', guide: WAREHOUSES_GUIDE },
+  bins: { tab: 'Bins', guide: BINS_GUIDE },
+  price_levels: { tab: 'Price levels', guide: PRICE_LEVELS_GUIDE },
+  price_rules: { tab: 'Price rules', guide: PRICE_RULES_GUIDE },
+  vendors: { tab: 'Vendors', guide: VENDORS_GUIDE },
+  reorder_settings: { tab: 'Reorder settings', guide: REORDER_SETTINGS_GUIDE },
+  lead_times: { tab: 'Lead times', guide: LEAD_TIMES_GUIDE },
 }
 
 export async function dataImportTemplate(kind: DataImportKind): Promise<Buffer> {

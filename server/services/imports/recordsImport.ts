@@ -1,0 +1,100 @@
+// The shape shared by the imports of simple records a business sets up once (warehouses, bins, price levels
+// and their breaks, vendors, reorder settings, lead times seen before): each row is read on its own against
+// lookups made once per file, a record already in Lumenyard or named twice in the file is refused on its row,
+// the good rows are inserted carrying the import's id, and a reversal deletes them unless something made since
+// refers to one of them.
+import type { EntityManager } from 'typeorm'
+import type { z } from 'zod'
+import { problem, type Problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
+import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
+import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
+import { AppError } from '../../errors.js'
+import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import { issuesByRow } from './importFacts.js'
+import type { CellValue, ImportSpec, ParsedSheet } from './importTypes.js'
+
+export interface RowReader {
+  /** A problem in one column (by the spec's key). */
+  add(key: string, p: Problem): void
+  /** A schema's issues, each under its column (`fields` maps a schema field to a spec key when they differ). */
+  issues(list: readonly z.core.$ZodIssue[], fields?: Record<string, string>): void
+}
+
+export interface RecordsImport<W, F> {
+  kind: DataImportKind
+  spec: ImportSpec
+  /** Lookups read once per file, and the identities of the records already held. */
+  facts(em: EntityManager, sheet: ParsedSheet): Promise<F & { held: Set<string> }>
+  /** One row read into what to write, or null (problems go through `reader`; null with none: nothing to write). */
+  read(values: Record<string, CellValue>, facts: F, reader: RowReader): W | null
+  /** What makes the record one of a kind ('HRY' or 'HRY A-01-1'), compared without regard to case. */
+  identity(w: W): string
+  /** The column a record already held is reported under. */
+  identityColumn: string
+  preview(w: W | null, values: Record<string, CellValue>): { label: string | null; place: string | null; qty?: number | null }
+  insert(em: EntityManager, importId: number, rows: W[]): Promise<Record<string, number>>
+  /** The name of a record of the import that something made since refers to, or null: the import can be reversed. */
+  inUse(em: EntityManager, importId: number): Promise<string | null>
+  /** Deletes the import's records (children first). */
+  remove(em: EntityManager, importId: number): Promise<void>
+}
+
+/** The row's cells that hold something, for a schema whose fields take their defaults when absent. */
+export const filledCells = (values: Record<string, CellValue>) => Object.fromEntries(Object.entries(values).filter(([, v]) => v !== null))
+
+export const chunked = async <T>(rows: readonly T[], size: number, each: (chunk: T[]) => Promise<unknown>) => {
+  for (let i = 0; i < rows.length; i += size) await each(rows.slice(i, i + size))
+}
+
+/** `INSERT INTO table (columns…, import_id) VALUES …` in chunks of 500. */
+export async function insertRows<W>(em: EntityManager, table: string, columns: readonly string[], importId: number, rows: readonly W[], values: (w: W) => unknown[]): Promise<void> {
+  const row = `(${[...columns, 'import_id'].map(() => '?').join(', ')})`
+  await chunked(rows, 500, (chunk) => em.query(
+    `INSERT INTO ${table} (${[...columns, 'import_id'].join(', ')}) VALUES ${chunk.map(() => row).join(', ')}`,
+    chunk.flatMap((w) => [...values(w), importId]),
+  ))
+}
+
+export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinition<W> {
+  const header = new Map(def.spec.columns.map((c) => [c.key, c.header]))
+  const col = (key: string) => header.get(key) ?? key
+  return {
+    kind: def.kind,
+    spec: def.spec,
+    async check(em, sheet) {
+      const facts = await def.facts(em, sheet)
+      const issuesOf = issuesByRow(sheet)
+      const seen = new Map<string, number>()
+      return sheet.rows.map((r): CheckedRow<W> => {
+        const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+        const reader: RowReader = {
+          add: (key, p) => errors.push({ column: col(key), problem: p }),
+          issues: (list, fields = {}) => {
+            for (const issue of list) {
+              const field = String(issue.path[0] ?? '')
+              const column = field ? col(fields[field] ?? field) : null
+              // A cell the parser already found wanting (blank where required, not a number) is reported once.
+              if (!errors.some((e) => e.column === column)) errors.push({ column, problem: zodIssueProblem(issue) })
+            }
+          },
+        }
+        const write = def.read(r.values, facts, reader)
+        if (write !== null) {
+          const id = def.identity(write).toUpperCase()
+          const first = seen.get(id)
+          if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
+          else seen.set(id, r.row)
+          if (facts.held.has(id)) reader.add(def.identityColumn, problem('import_code_exists', { code: def.identity(write) }))
+        }
+        const shown = def.preview(write, r.values)
+        return { preview: { row: r.row, label: shown.label, place: shown.place, qty: shown.qty ?? null, errors }, write: errors.length ? null : write }
+      })
+    },
+    write: (em, _actor, importId, rows) => def.insert(em, importId, rows),
+    async reverse(em, _actor, importId) {
+      const used = await def.inUse(em, importId)
+      if (used) throw AppError.conflict('import_records_in_use', `${used} has been used since the import; it can no longer be reversed as a whole.`, { params: { code: used } })
+      await def.remove(em, importId)
+    },
+  }
+}

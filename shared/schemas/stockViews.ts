@@ -182,7 +182,8 @@ export interface LedgerRow {
   lotId: number | null
   lotCode: string | null
   qty: number
-  unitCost: string | null
+  /** Absent for a caller who may not see costs (the API drops cost fields for them). */
+  unitCost?: string | null
   docType: string | null
   docId: number | null
   /** The document's own number or name (PO and pick list numbers, the job's name); null when it has none. */

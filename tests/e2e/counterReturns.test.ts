@@ -124,6 +124,20 @@ describe('returns at the counter', () => {
       const [credit]: { total: string }[] = await h.ds.query('SELECT SUM(amount) AS total FROM account_credits WHERE customer_id = ?', [fx.customerId])
       expect(credit.total).toBe('475.36')
       await h.screenshot(page, 'return-receipt-phone-en')
+      // Printed, the receipt goes on paper alone: at the moment of printing (print media), the order's title and
+      // the navigation are not visible and the receipt is (common practice: a receipt is its own document).
+      await page.emulateMedia({ media: 'print' })
+      await page.evaluate(() => {
+        const seen = (sel: string) => [...document.querySelectorAll(sel)].some((e) => getComputedStyle(e).visibility === 'visible' && e.getClientRects().length > 0)
+        ;(window as unknown as { lyPrinted: unknown }).lyPrinted = null
+        window.print = () => {
+          ;(window as unknown as { lyPrinted: unknown }).lyPrinted = { receipt: seen('[data-test^="return-RT-"] td'), order: seen('h1'), nav: seen('nav a') }
+        }
+      })
+      // The print button itself stays off paper, so it is pressed as an event rather than by a pointer.
+      await page.locator(`[data-test="return-print-${(await receipt.getAttribute('data-test'))!.slice('return-'.length)}"]`).dispatchEvent('click')
+      await poll(() => page.evaluate(() => (window as unknown as { lyPrinted: unknown }).lyPrinted)).toEqual({ receipt: true, order: false, nav: false })
+      await page.emulateMedia({ media: 'screen' })
     } finally {
       await context.close()
     }

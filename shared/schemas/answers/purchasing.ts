@@ -3,11 +3,22 @@
 import { z } from 'zod'
 import { PO_STATUSES } from '../purchasing.js'
 import type { PoStatus, CompanyProfile, PurchasingSettings } from '../purchasing.js'
-import { companyProfileInputShape } from './terms.js'
 
 export const poStatusShape = z.enum(PO_STATUSES) satisfies z.ZodType<PoStatus>
 
-export const companyProfileShape = companyProfileInputShape.extend({
+/**
+ * The profile as stored, not as an admin must enter it: before anyone fills it in (a first run) its names are
+ * empty and `complete` is false, which the input schema would refuse.
+ */
+export const companyProfileShape = z.object({
+  legalName: z.string(),
+  billToAddress: z.string(),
+  shipToAddress: z.string().nullable(),
+  phone: z.string().nullable(),
+  email: z.string().nullable(),
+  replyTo: z.string().nullable(),
+  taxNumber: z.string().nullable(),
+  documentUnit: z.enum(['in', 'mm']),
   complete: z.boolean()
 }) satisfies z.ZodType<CompanyProfile>
 

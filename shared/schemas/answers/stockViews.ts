@@ -136,7 +136,7 @@ const ledgerRowShape = z.object({
   lotId: z.number().nullable(),
   lotCode: z.string().nullable(),
   qty: z.number(),
-  unitCost: z.string().nullable(),
+  unitCost: z.string().nullable().optional(),
   docType: z.string().nullable(),
   docId: z.number().nullable(),
   docRef: z.string().nullable(),

@@ -18,7 +18,6 @@ export {
   thicknessClassSchema as thicknessClassShape,
 } from '../takeoff.js'
 export { jobStatusSchema as jobStatusNameShape } from '../counter.js'
-export { companyProfileSchema as companyProfileInputShape } from '../purchasing.js'
 export { deadStockQuerySchema as deadStockQueryShape } from '../reports.js'
 
 /** A record named by its code and name (a warehouse, a vendor) beside its id. */

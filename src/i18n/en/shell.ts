@@ -28,7 +28,6 @@ export default {
   toggleNav: 'Show or hide the menu',
   greeting: 'Hello, {name}',
   yourAreas: 'Your areas',
-  comingNext: 'This area is being built: its screens arrive with the next releases.',
   open: 'Open',
   outage: {
     title: 'Lumenyard cannot reach its database right now.',

@@ -28,7 +28,6 @@ export default {
   toggleNav: 'Mostrar u ocultar el menú',
   greeting: 'Hola, {name}',
   yourAreas: 'Sus áreas',
-  comingNext: 'Esta área está en construcción: sus pantallas llegan con las próximas versiones.',
   open: 'Abrir',
   outage: {
     title: 'Lumenyard no puede comunicarse con su base de datos en este momento.',

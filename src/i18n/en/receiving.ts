@@ -36,7 +36,7 @@ export default {
   labelsTitle: 'Lot labels for what was received',
   print: 'Print',
   lotRequired: 'lot needed',
-  madeToOrder: 'made to order: goes straight to the job',
+  madeToOrder: 'made to order: set aside for its job or order',
   caution: 'Glass block pallets are heavy and broken block cuts: pallet jack or forklift by trained operators, cut-resistant gloves and safety glasses. Follow your yard’s safety rules.',
   warning: 'Note: {text}',
 }

@@ -218,6 +218,6 @@ export default {
     cancelled: 'Order cancelled; its stock released.',
     cancelledNote: 'Cancelled: {reason}',
     pickList: 'Pick list',
-    pickListHint: 'The warehouse picks from the stock held here. A made-to-order base goes straight to the job when it arrives.',
+    pickListHint: 'The warehouse picks from the stock held here. A made-to-order base is held for this order when it arrives, and leaves on its handover ticket.',
   },
 }

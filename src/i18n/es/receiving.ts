@@ -36,7 +36,7 @@ export default {
   labelsTitle: 'Etiquetas de lote de lo recibido',
   print: 'Imprimir',
   lotRequired: 'falta el lote',
-  madeToOrder: 'hecho a pedido: va directo a la obra',
+  madeToOrder: 'hecho a pedido: se aparta para su obra o pedido',
   caution: 'Las tarimas de bloque de vidrio pesan mucho y el bloque roto corta: transpaleta o montacargas con operadores capacitados, guantes anticorte y lentes de seguridad. Siga las normas de seguridad de su patio.',
   warning: 'Nota: {text}',
 }

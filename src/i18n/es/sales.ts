@@ -218,6 +218,6 @@ export default {
     cancelled: 'Pedido anulado; su stock liberado.',
     cancelledNote: 'Anulado: {reason}',
     pickList: 'Lista de preparación',
-    pickListHint: 'El almacén prepara a partir del stock reservado aquí. Un plato hecho a medida va directo a la obra cuando llega.',
+    pickListHint: 'El almacén prepara a partir del stock reservado aquí. Un plato hecho a medida queda reservado para este pedido cuando llega, y sale con su vale de entrega.',
   },
 }

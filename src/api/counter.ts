@@ -19,10 +19,10 @@ import { quoteCreateSchema, quoteSendSchema, quoteUpdateSchema } from '@shared/s
 import { cardDepositStateSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, type CardDepositStartInput } from '@shared/schemas/salesOrders'
 import { materialFamilySchema, siteFiguresSchema } from '@shared/schemas/takeoff'
 import { api, download, type BodyOf } from './client'
+import { keyed } from './idempotencyKey'
 import { toQuery, type QueryValues } from './stock'
 
 type Id = number | string
-const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 const wasteShape = z.record(materialFamilySchema, z.number())
 
 export const counterApi = {

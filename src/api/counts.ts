@@ -11,9 +11,8 @@ import type {
   CountEntryInput, CountOpenInput, CountReviewInput, CountSettingsInput, CountStartBinInput,
 } from '@shared/schemas/counts'
 import { api } from './client'
+import { keyed } from './idempotencyKey'
 import { toQuery, type QueryValues } from './stock'
-
-const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 
 export const countsApi = {
   list: (q: QueryValues) => api.get(`/counts${toQuery(q)}`, { answer: z.array(countSummaryShape) }),

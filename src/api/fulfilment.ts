@@ -5,8 +5,7 @@ import { readyMailShape, restCancelledShape, sentToPickShape, ticketMadeShape, t
 import { orderFulfilmentShape, ticketDetailShape, ticketSummaryShape } from '@shared/schemas/answers/handover'
 import type { TicketCreateInput, TicketSignInput } from '@shared/schemas/handover'
 import { api } from './client'
-
-const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
+import { keyed } from './idempotencyKey'
 
 export const fulfilmentApi = {
   order: (orderId: number) => api.get(`/sales-orders/${orderId}/fulfilment`, { answer: orderFulfilmentShape }),

@@ -7,3 +7,6 @@ export function newIdempotencyKey(): string {
   const bytes = crypto.getRandomValues(new Uint8Array(16))
   return [...bytes].map((b) => b.toString(16).padStart(2, '0')).join('')
 }
+
+/** The request options that carry a submission's key (a fresh one when the call makes its own). */
+export const keyed = (key: string = newIdempotencyKey()) => ({ headers: { 'Idempotency-Key': key } })

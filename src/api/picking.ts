@@ -9,10 +9,7 @@ import {
 import type { PickConfirmInput, PickDiscardInput, PickCreateInput, PickPlanInput, PickShortResolveInput } from '@shared/schemas/picking'
 import type { DeviceOutboxReportInput } from '@shared/schemas/devices'
 import { api } from './client'
-import { newIdempotencyKey } from './idempotencyKey'
-
-
-const keyed = (key = newIdempotencyKey()) => ({ headers: { 'Idempotency-Key': key } })
+import { keyed } from './idempotencyKey'
 
 export const pickingApi = {
   list: (query: { warehouseId?: number; bomId?: number; jobId?: number; status?: string } = {}) => {

@@ -12,6 +12,7 @@ import {
   vendorItemSchema, vendorItemUpdateSchema, vendorUpdateSchema,
 } from '@shared/schemas/purchasing'
 import { api, download, type BodyOf } from './client'
+import { keyed } from './idempotencyKey'
 import { toQuery, type QueryValues } from './stock'
 
 type Id = number | string
@@ -66,5 +67,5 @@ export const purchasingApi = {
   // Receiving at the dock
   receiving: (id: Id) => api.get(`/purchase-orders/${id}/receiving`, { answer: receivingContextShape }),
   receive: (id: Id, body: BodyOf<typeof receiveSchema>, key: string) =>
-    api.post(`/purchase-orders/${id}/receipts`, body, { headers: { 'Idempotency-Key': key }, answer: receiveResultShape }),
+    api.post(`/purchase-orders/${id}/receipts`, body, { ...keyed(key), answer: receiveResultShape }),
 }

@@ -8,6 +8,7 @@ import {
 } from '@shared/schemas/answers/reorder'
 import type { PolicyUpsertInput } from '@shared/schemas/reorder'
 import { api } from './client'
+import { keyed } from './idempotencyKey'
 import { toQuery, type QueryValues } from './stock'
 
 export const reorderApi = {
@@ -20,5 +21,5 @@ export const reorderApi = {
   savePolicy: (body: PolicyUpsertInput) => api.post('/reorder/policies', body, { answer: reorderPolicyViewShape }),
   removePolicy: (id: number) => api.delete(`/reorder/policies/${id}`, { answer: okShape }),
   accept: (lines: { itemId: number; warehouseId: number }[], key: string) =>
-    api.post('/reorder/accept', { lines }, { headers: { 'Idempotency-Key': key }, answer: acceptResultShape }),
+    api.post('/reorder/accept', { lines }, { ...keyed(key), answer: acceptResultShape }),
 }

@@ -9,6 +9,7 @@ import {
 import type { AdjustmentInput, BinMoveInput, TransferReceiveInput, TransferShipInput } from '@shared/schemas/stock'
 import { placesSchema } from '@shared/schemas/stockViews'
 import { api, download } from './client'
+import { keyed } from './idempotencyKey'
 
 export type QueryValues = Record<string, string | number | boolean | readonly string[] | null | undefined>
 
@@ -22,8 +23,6 @@ export function toQuery(values: QueryValues): string {
   const text = params.toString()
   return text ? `?${text}` : ''
 }
-
-const keyed = (key: string) => ({ headers: { 'Idempotency-Key': key } })
 
 export const stockPaths = {
   levels: (q: QueryValues) => `/stock/levels${toQuery(q)}`,

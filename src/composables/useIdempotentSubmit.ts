@@ -1,7 +1,6 @@
 import { newIdempotencyKey } from '@/api/idempotencyKey'
 import { useApiAction } from './useApiAction'
 
-
 /**
  * Submits a stock form with one Idempotency-Key per submission: the same body sent again (a double
  * click, a retry after a lost answer) carries the same key and applies once; a changed body gets a

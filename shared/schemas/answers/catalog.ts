@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import { BLOCK_SHAPES, THICKNESS_CLASSES } from '../../catalog.js'
 import type { ItemRecord, ItemRecordView, ItemWarehouseStock, ItemBinStock, ItemVendorSource, ItemDetail, ImportPreviewRow, ImportPreview } from '../catalog.js'
-import { itemFamilyShape, rowProblemShape, stockUnitShape } from './terms.js'
+import { itemFamilyShape, rowProblemShape, stockUnitShape, withheldCost } from './terms.js'
 
 const text = z.string()
 const textOrNull = z.string().nullable()
@@ -39,7 +39,7 @@ const itemRecordFields = {
 export const itemRecordShape = z.object({ ...itemRecordFields, cost: text }) satisfies z.ZodType<ItemRecord>
 
 /** The standard cost is absent for roles that do not see costs. */
-export const itemRecordViewShape = z.object({ ...itemRecordFields, cost: text.optional() }) satisfies z.ZodType<ItemRecordView>
+export const itemRecordViewShape = z.object({ ...itemRecordFields, cost: withheldCost(text) }) satisfies z.ZodType<ItemRecordView>
 
 const itemWarehouseStockShape = z.object({
   warehouseId: z.number(),
@@ -47,7 +47,7 @@ const itemWarehouseStockShape = z.object({
   warehouseName: z.string(),
   onHand: z.number(),
   reserved: z.number(),
-  avgCost: z.string().optional().nullable(),
+  avgCost: withheldCost(z.string().nullable()),
   minQty: z.number().nullable()
 }) satisfies z.ZodType<ItemWarehouseStock>
 
@@ -72,7 +72,7 @@ const itemVendorSourceShape = z.object({
   vendorSku: z.string(),
   packQty: z.number(),
   minOrderQty: z.number(),
-  unitCost: z.string().optional(),
+  unitCost: withheldCost(z.string()),
   leadTimeDays: z.number().nullable(),
   preferred: z.boolean()
 }) satisfies z.ZodType<ItemVendorSource>

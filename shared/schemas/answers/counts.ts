@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import type { CountAccuracyRow, CountScopeDetail, CountSettings, CountSummary, CountLineView, CountDetail, HandheldBinRow, HandheldCountBin, HandheldCount, CountDueClass, CountDuePlan, CountHistoryRow } from '../counts.js'
-import { abcClassShape, codedRefShape, countBinStatusShape, countIntervalsShape, countLineSourceShape, countLineStatusShape, countReviewerChoiceShape, countScopeShape, countStatusShape } from './terms.js'
+import { abcClassShape, codedRefShape, countBinStatusShape, countIntervalsShape, countLineSourceShape, countLineStatusShape, countReviewerChoiceShape, countScopeShape, countStatusShape, withheldCost } from './terms.js'
 
 export const countAccuracyRowShape = z.object({
   warehouseId: z.number(),
@@ -11,8 +11,8 @@ export const countAccuracyRowShape = z.object({
   linesCounted: z.number(),
   linesRight: z.number(),
   accuracy: z.number().nullable(),
-  valueOff: z.string().optional(),
-  valueNet: z.string().optional()
+  valueOff: withheldCost(z.string()),
+  valueNet: withheldCost(z.string())
 }) satisfies z.ZodType<CountAccuracyRow>
 
 const countScopeDetailShape = z.object({
@@ -46,7 +46,7 @@ export const countSummaryShape = z.object({
     toReview: z.number(),
     settled: z.number()
   }),
-  valueOff: z.string().optional()
+  valueOff: withheldCost(z.string())
 }) satisfies z.ZodType<CountSummary>
 
 const countLineViewShape = z.object({
@@ -67,8 +67,8 @@ const countLineViewShape = z.object({
   expectedQty: z.number().nullable(),
   countedQty: z.number().nullable(),
   variance: z.number().nullable(),
-  unitCost: z.string().optional().nullable(),
-  varianceValue: z.string().optional().nullable(),
+  unitCost: withheldCost(z.string().nullable()),
+  varianceValue: withheldCost(z.string().nullable()),
   countedBy: z.string().nullable(),
   countedById: z.number().nullable(),
   countedAt: z.string().nullable(),
@@ -162,7 +162,7 @@ export const countHistoryRowShape = z.object({
   expectedQty: z.number().nullable(),
   countedQty: z.number().nullable(),
   variance: z.number().nullable(),
-  varianceValue: z.string().optional().nullable(),
+  varianceValue: withheldCost(z.string().nullable()),
   countedBy: z.string().nullable(),
   countedAt: z.string().nullable(),
   reviewedBy: z.string().nullable()

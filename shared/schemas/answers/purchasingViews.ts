@@ -3,7 +3,7 @@
 import { z } from 'zod'
 import type { VendorView, VendorItemView, ItemChoice, WarehouseChoice, PoTimelineEntry, PoLineView, OutboxSummary, BinChoice, ReceiptLineView, ReceiptView, SuggestionView, JobOpenSpecialOrder, SpecialOrderJob, PoSummary, PoDetail, ReceivingContext, ReceiveResult, JobPurchaseLine, JobPurchaseLines, PriceListPreviewRow, PriceListPreview } from '../purchasingViews.js'
 import { poStatusShape } from './purchasing.js'
-import { codedRefShape, rowProblemShape } from './terms.js'
+import { codedRefShape, rowProblemShape, withheldCost } from './terms.js'
 
 export const vendorViewShape = z.object({
   id: z.number(),
@@ -75,8 +75,8 @@ const poLineViewShape = z.object({
   qtyOrdered: z.number(),
   qtyReceived: z.number(),
   qtyDamaged: z.number(),
-  unitCost: z.string().optional(),
-  lineTotal: z.string().optional()
+  unitCost: withheldCost(z.string()),
+  lineTotal: withheldCost(z.string())
 }) satisfies z.ZodType<PoLineView>
 
 export const outboxSummaryShape = z.object({
@@ -147,7 +147,7 @@ export const suggestionViewShape = z.object({
   acceptedAt: z.string(),
   packQty: z.number().nullable(),
   packs: z.number().nullable(),
-  unitCost: z.string().optional().nullable()
+  unitCost: withheldCost(z.string().nullable())
 }) satisfies z.ZodType<SuggestionView>
 
 const jobOpenSpecialOrderShape = z.object({
@@ -184,7 +184,7 @@ export const poSummaryShape = z.object({
   expectedDate: z.string().nullable(),
   createdAt: z.string(),
   lineCount: z.number(),
-  orderTotal: z.string().optional(),
+  orderTotal: withheldCost(z.string()),
   version: z.number(),
   arrivesAfterDue: z.boolean()
 }) satisfies z.ZodType<PoSummary>

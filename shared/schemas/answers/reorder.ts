@@ -12,6 +12,12 @@ const leadTimeSourceShape = z.union([z.literal('observed'), z.literal('vendorIte
 
 const policySourceShape = z.union([z.literal('default'), policyScopeNameShape]) satisfies z.ZodType<PolicySource>
 
+/** The ABC cut-offs: where class A ends and where class B ends. */
+const abcCutoffsShape = z.object({
+  a: z.number(),
+  b: z.number()
+})
+
 const usageWindowShape = z.object({
   start: z.string(),
   end: z.string(),
@@ -114,10 +120,7 @@ export const suggestionListShape = z.object({
   asOf: z.string(),
   window: usageWindowShape,
   importedHistoryDays: z.number(),
-  abcCutoffs: z.object({
-    a: z.number(),
-    b: z.number()
-  }),
+  abcCutoffs: abcCutoffsShape,
   counts: z.record(reorderStatusShape, z.number()),
   lines: z.array(reorderLineShape)
 }) satisfies z.ZodType<SuggestionList>
@@ -172,10 +175,7 @@ const abcParetoItemShape = z.object({
 
 export const abcParetoShape = z.object({
   window: usageWindowShape,
-  cutoffs: z.object({
-    a: z.number(),
-    b: z.number()
-  }),
+  cutoffs: abcCutoffsShape,
   annualValueTotal: moneyShape,
   items: z.array(abcParetoItemShape),
   summary: z.record(abcClassShape, z.object({

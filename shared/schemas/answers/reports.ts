@@ -46,12 +46,11 @@ export const valuationReportShape = z.object({
   stockValue: moneyShape
 }) satisfies z.ZodType<ValuationReport>
 
-const turnsFigureRowShape = turnsFiguresShape.omit({ 'averageValue': true }).extend({
+const turnsFigureRowShape = turnsFiguresShape.extend({
   usedQty: z.number(),
   usageValue: moneyShape,
   beginValue: moneyShape,
-  endValue: moneyShape,
-  averageValue: moneyShape
+  endValue: moneyShape
 }) satisfies z.ZodType<TurnsFigureRow>
 
 const turnsRowShape = turnsFigureRowShape.extend({

@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import type { LotPlace, LotLevel, TransferLineView, TransferView, MinimumRow, LotOption, StockLevelRow, StockLevelsAnswer, BinContentLine, BinContents, BinContentsAnswer, LotLevelsAnswer, LedgerRow, LedgerPage, PlaceBin, ItemOption, LookupAnswer } from '../stockViews.js'
-import { binKindShape, codedRefShape, moveTypeShape, stockUnitShape } from './terms.js'
+import { binKindShape, codedRefShape, moveTypeShape, stockUnitShape, withheldCost } from './terms.js'
 
 const lotPlaceShape = z.object({
   warehouseId: z.number(),
@@ -136,7 +136,7 @@ const ledgerRowShape = z.object({
   lotId: z.number().nullable(),
   lotCode: z.string().nullable(),
   qty: z.number(),
-  unitCost: z.string().nullable().optional(),
+  unitCost: withheldCost(z.string().nullable()),
   docType: z.string().nullable(),
   docId: z.number().nullable(),
   docRef: z.string().nullable(),

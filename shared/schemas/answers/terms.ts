@@ -23,6 +23,13 @@ export { deadStockQuerySchema as deadStockQueryShape } from '../reports.js'
 /** A record named by its code and name (a warehouse, a vendor) beside its id. */
 export const codedRefShape = z.object({ id: z.number(), code: z.string(), name: z.string() })
 
+/**
+ * A cost in an answer that callers without cost access also read: the API leaves every cost field out for them
+ * (COST_FIELDS in server/services/costVisibility.ts), so it may be absent. An answer only buyers and admins read
+ * keeps its costs required, so a missing one is still caught.
+ */
+export const withheldCost = <T extends z.ZodType>(shape: T) => shape.optional()
+
 /** Money travels as a decimal string ("12.50"). */
 export const moneyShape = z.string().regex(/^-?\d+(\.\d+)?$/)
 export const abcClassShape = z.enum(['A', 'B', 'C'])

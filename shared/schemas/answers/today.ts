@@ -2,6 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import { TODAY_FIGURES, TODAY_PANELS } from '../today.js'
+import { withheldCost } from './terms.js'
 import type { TodayPanelName, TodayFigureName, TodayFigure, TodayPanel, TodayAnswer } from '../today.js'
 
 const todayPanelNameShape = z.enum(TODAY_PANELS) satisfies z.ZodType<TodayPanelName>
@@ -11,8 +12,8 @@ const todayFigureNameShape = z.enum(TODAY_FIGURES) satisfies z.ZodType<TodayFigu
 const todayFigureShape = z.object({
   name: todayFigureNameShape,
   count: z.number().optional(),
-  stockValue: z.string().optional(),
-  spendValue: z.string().optional(),
+  stockValue: withheldCost(z.string()),
+  spendValue: withheldCost(z.string()),
   accuracy: z.number().optional().nullable(),
   warehouseCode: z.string().optional(),
   query: z.record(z.string(), z.string())

@@ -2,13 +2,14 @@
 // selling-price terms of an account), from the business's own list. New accounts only (a code already in
 // Lumenyard is refused: edit that account on its page), so the import can be reversed whole while none of
 // its accounts has a job.
-import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
+import { problem } from '../../../shared/errors/errorCodes.js'
 import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { customerCreateSchema, type CustomerCreateInput } from '../../../shared/schemas/counter.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, marks, validDay } from './importFacts.js'
+import { cellText, distinctOf, filledCells, headerOf, inChunks, marks, parserProblems, repeatedRows, validDay } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
+import { insertRows } from './recordsImport.js'
 
 export const ACCOUNTS_SPEC: ImportSpec = {
   columns: [
@@ -40,8 +41,7 @@ export const ACCOUNTS_GUIDE: Record<string, string> = {
 
 type Account = CustomerCreateInput & { priceLevelId: number | null; exemptCertificate: string | null; exemptUntil: string | null }
 
-const HEADER = new Map(ACCOUNTS_SPEC.columns.map((c) => [c.key, c.header]))
-const col = (key: string) => HEADER.get(key) ?? key
+const col = headerOf(ACCOUNTS_SPEC)
 
 export const accountsImport: DataImportDefinition<Account> = {
   kind: 'accounts',
@@ -51,17 +51,16 @@ export const accountsImport: DataImportDefinition<Account> = {
     const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)})`, c) as Promise<{ code: string }[]>)).map((r) => r.code.toUpperCase()))
     const levelRows: { id: number; code: string }[] = await em.query('SELECT id, code FROM price_levels WHERE active = 1')
     const levels = new Map(levelRows.map((l) => [l.code.toUpperCase(), l.id]))
-    const seen = new Map<string, number>()
-    const issuesOf = issuesByRow(sheet)
+    const repeated = repeatedRows()
+    const problemsOf = parserProblems(sheet, col)
     return sheet.rows.map((r): CheckedRow<Account> => {
-      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
-      const parsed = customerCreateSchema.safeParse(Object.fromEntries(Object.entries(r.values).filter(([, v]) => v !== null)))
+      const errors = problemsOf(r.row)
+      const parsed = customerCreateSchema.safeParse(filledCells(r.values))
       if (!parsed.success) for (const issue of parsed.error.issues) errors.push({ column: col(String(issue.path[0] ?? '')), problem: zodIssueProblem(issue) })
       const code = cellText(r.values.code).toUpperCase()
       if (code && taken.has(code)) errors.push({ column: col('code'), problem: problem('import_code_exists', { code }) })
-      const first = seen.get(code)
-      if (code && first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
-      else if (code) seen.set(code, r.row)
+      const again = code ? repeated(code, r.row) : null
+      if (again) errors.push(again)
       const level = cellText(r.values.priceLevel)
       const priceLevelId = level ? (levels.get(level.toUpperCase()) ?? null) : null
       if (level && priceLevelId === null) errors.push({ column: col('priceLevel'), problem: problem('import_price_level_unknown', { level }) })
@@ -74,13 +73,8 @@ export const accountsImport: DataImportDefinition<Account> = {
     })
   },
   async write(em, actor, importId, rows) {
-    for (let i = 0; i < rows.length; i += 500) {
-      const chunk = rows.slice(i, i + 500)
-      await em.query(
-        `INSERT INTO customers (code, name, contact_name, email, phone, address, notes, import_id) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`,
-        chunk.flatMap((a) => [a.code, a.name, a.contactName ?? null, a.email ?? null, a.phone ?? null, a.address ?? null, a.notes ?? null, importId]),
-      )
-    }
+    await insertRows(em, 'customers', ['code', 'name', 'contact_name', 'email', 'phone', 'address', 'notes'], importId, rows,
+      (a) => [a.code, a.name, a.contactName ?? null, a.email ?? null, a.phone ?? null, a.address ?? null, a.notes ?? null])
     const withTerms = rows.filter((a) => a.priceLevelId !== null || a.exemptCertificate !== null)
     if (withTerms.length) {
       const ids = new Map(((await em.query('SELECT id, code FROM customers WHERE import_id = ?', [importId])) as { id: number; code: string }[]).map((c) => [c.code, c.id]))

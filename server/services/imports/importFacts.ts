@@ -1,9 +1,9 @@
 // What the imports of a business's own data look rows up against, read once per file in chunks:
 // items by SKU, warehouses by code (codes match without regard to case).
 import type { EntityManager } from 'typeorm'
-import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
+import { problem, type Problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { parsePackQuantity } from '../../../shared/inventory/packs.js'
-import type { ParsedSheet, RowIssue } from './importTypes.js'
+import type { CellValue, ImportSpec, ParsedSheet, RowIssue } from './importTypes.js'
 
 export interface ItemFacts { id: number; sku: string; match_lot: number; made_to_order: number; case_qty: number | null; pallet_qty: number | null }
 export interface WarehouseFacts { id: number; code: string; active: number }
@@ -36,6 +36,34 @@ export function issuesByRow(sheet: ParsedSheet): (row: number) => RowIssue[] {
   for (const i of sheet.issues) byRow.set(i.row, [...(byRow.get(i.row) ?? []), i])
   return (row) => byRow.get(row) ?? []
 }
+
+/** A column's header by its spec key, as a row's problem names it (the key itself when the spec has none). */
+export function headerOf(spec: ImportSpec): (key: string) => string {
+  const header = new Map(spec.columns.map((c) => [c.key, c.header]))
+  return (key) => header.get(key) ?? key
+}
+
+/** A row's problems as the parser found them, each under its column's header: where a row's check starts. */
+export function parserProblems(sheet: ParsedSheet, col: (key: string) => string): (row: number) => RowProblem[] {
+  const issuesOf = issuesByRow(sheet)
+  return (row) => issuesOf(row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+}
+
+/**
+ * Remembers the first row of each key of one file: a later row with the same key answers the problem naming
+ * that first row, any other null.
+ */
+export function repeatedRows(): (key: string, row: number) => RowProblem | null {
+  const seen = new Map<string, number>()
+  return (key, row) => {
+    const first = seen.get(key)
+    if (first === undefined) seen.set(key, row)
+    return first === undefined ? null : { column: null, problem: problem('import_row_repeated', { row: first }) }
+  }
+}
+
+/** The row's cells that hold something, for a schema whose fields take their defaults when absent. */
+export const filledCells = (values: Record<string, CellValue>) => Object.fromEntries(Object.entries(values).filter(([, v]) => v !== null))
 
 /** A real calendar day written YYYY-MM-DD. */
 export const validDay = (t: string) => /^\d{4}-\d{2}-\d{2}$/.test(t) && !Number.isNaN(Date.parse(`${t}T00:00:00Z`)) && new Date(`${t}T00:00:00Z`).toISOString().startsWith(t)

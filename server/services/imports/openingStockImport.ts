@@ -7,7 +7,7 @@ import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
 import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, readImportQuantity, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, headerOf, issuesByRow, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -37,8 +37,7 @@ export const OPENING_STOCK_GUIDE: Record<string, string> = {
 interface BinFacts { id: number; warehouse_id: number; code: string; kind: string; active: number }
 type Write = OpeningLine & { lotCode: string | null; row: number }
 
-const HEADER = new Map(OPENING_STOCK_SPEC.columns.map((c) => [c.key, c.header]))
-const col = (key: string) => HEADER.get(key) ?? key
+const col = headerOf(OPENING_STOCK_SPEC)
 const text = cellText
 
 async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
@@ -55,10 +54,11 @@ async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
 }
 
 function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFacts>>): CheckedRow<Write>[] {
-  const seen = new Map<string, number>()
+  const repeated = repeatedRows()
+  const problemsOf = parserProblems(sheet, col)
   const issuesOf = issuesByRow(sheet)
   return sheet.rows.map((r) => {
-    const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+    const errors = problemsOf(r.row)
     const bad = new Set(issuesOf(r.row).map((i) => i.column))
     const add = (key: string, p: RowProblem['problem']) => { errors.push({ column: col(key), problem: p }); bad.add(key) }
     const sku = text(r.values.sku)
@@ -96,10 +96,8 @@ function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFact
       else if (Number(cost) >= 100_000_000) add('unitCost', problem('less_than', { max: 100_000_000 }))
     }
     if (item && bin) {
-      const key = `${item.id}:${bin.id}:${(lotCode ?? '').toUpperCase()}`
-      const first = seen.get(key)
-      if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
-      else seen.set(key, r.row)
+      const again = repeated(`${item.id}:${bin.id}:${(lotCode ?? '').toUpperCase()}`, r.row)
+      if (again) errors.push(again)
     }
     const place = warehouse && binCode ? `${warehouse.code} ${binCode}` : null
     const preview = { row: r.row, label: sku || null, place, qty, unitCost: cost, errors }

@@ -7,7 +7,7 @@ import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { orderTotal } from '../../../shared/purchasing/poMoney.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, validDay, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, validDay, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const PURCHASE_ORDERS_SPEC: ImportSpec = {
@@ -41,8 +41,7 @@ export const PURCHASE_ORDERS_GUIDE: Record<string, string> = {
 interface Line { itemId: number; description: string; qty: number; received: number; unitCost: string }
 interface Order { number: string; vendorId: number; warehouseId: number; orderedOn: string; expected: string | null; lines: Line[] }
 
-const HEADER = new Map(PURCHASE_ORDERS_SPEC.columns.map((c) => [c.key, c.header]))
-const col = (key: string) => HEADER.get(key) ?? key
+const col = headerOf(PURCHASE_ORDERS_SPEC)
 
 export const purchaseOrdersImport: DataImportDefinition<Order> = {
   kind: 'purchase_orders',
@@ -57,9 +56,9 @@ export const purchaseOrdersImport: DataImportDefinition<Order> = {
     const taken = new Set((await inChunks(numbers, (c) => em.query(`SELECT number FROM purchase_orders WHERE number IN (${marks(c.length)})`, c) as Promise<{ number: string }[]>)).map((r) => r.number.toUpperCase()))
     const orders = new Map<string, Order & { firstRow: number; rows: CheckedRow<Order>[] }>()
     const today = new Date().toISOString().slice(0, 10)
-    const issuesOf = issuesByRow(sheet)
+    const problemsOf = parserProblems(sheet, col)
     const checked = sheet.rows.map((r): CheckedRow<Order> => {
-      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const errors = problemsOf(r.row)
       const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
       const number = cellText(r.values.number)
       if (number && taken.has(number.toUpperCase())) add('number', problem('import_code_exists', { code: number }))

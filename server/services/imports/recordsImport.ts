@@ -5,12 +5,12 @@
 // refers to one of them.
 import type { EntityManager } from 'typeorm'
 import type { z } from 'zod'
-import { problem, type Problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
+import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
 import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { issuesByRow } from './importFacts.js'
+import { headerOf, parserProblems, repeatedRows } from './importFacts.js'
 import type { CellValue, ImportSpec, ParsedSheet } from './importTypes.js'
 
 export interface RowReader {
@@ -39,9 +39,6 @@ export interface RecordsImport<W, F> {
   remove(em: EntityManager, importId: number): Promise<void>
 }
 
-/** The row's cells that hold something, for a schema whose fields take their defaults when absent. */
-export const filledCells = (values: Record<string, CellValue>) => Object.fromEntries(Object.entries(values).filter(([, v]) => v !== null))
-
 export const chunked = async <T>(rows: readonly T[], size: number, each: (chunk: T[]) => Promise<unknown>) => {
   for (let i = 0; i < rows.length; i += size) await each(rows.slice(i, i + size))
 }
@@ -56,17 +53,16 @@ export async function insertRows<W>(em: EntityManager, table: string, columns: r
 }
 
 export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinition<W> {
-  const header = new Map(def.spec.columns.map((c) => [c.key, c.header]))
-  const col = (key: string) => header.get(key) ?? key
+  const col = headerOf(def.spec)
   return {
     kind: def.kind,
     spec: def.spec,
     async check(em, sheet) {
       const facts = await def.facts(em, sheet)
-      const issuesOf = issuesByRow(sheet)
-      const seen = new Map<string, number>()
+      const problemsOf = parserProblems(sheet, col)
+      const repeated = repeatedRows()
       return sheet.rows.map((r): CheckedRow<W> => {
-        const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+        const errors = problemsOf(r.row)
         const reader: RowReader = {
           add: (key, p) => errors.push({ column: col(key), problem: p }),
           issues: (list, fields = {}) => {
@@ -81,9 +77,8 @@ export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinit
         const write = def.read(r.values, facts, reader)
         if (write !== null) {
           const id = def.identity(write).toUpperCase()
-          const first = seen.get(id)
-          if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
-          else seen.set(id, r.row)
+          const again = repeated(id, r.row)
+          if (again) errors.push(again)
           if (facts.held.has(id)) reader.add(def.identityColumn, problem('import_code_exists', { code: def.identity(write) }))
         }
         const shown = def.preview(write, r.values)

@@ -5,7 +5,7 @@
 import { ITEM_FAMILIES } from '../../../shared/catalog.js'
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { policyUpsertSchema, type PolicyUpsertInput } from '../../../shared/schemas/reorder.js'
-import { observedLeadTimeSql } from '../reorder/leadTimes.js'
+import { DAY_SECONDS, observedLeadTimeSql } from '../reorder/leadTimes.js'
 import type { CellValue, ImportSpec } from './importTypes.js'
 import { cellText, distinctOf, itemsBySku, warehousesByCode, type ItemFacts, type WarehouseFacts } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
@@ -151,8 +151,6 @@ export const LEAD_TIMES_GUIDE: Record<string, string> = {
 
 interface LeadTimeWrite { vendorId: number; vendor: string; itemId: number; sku: string; order: string; seconds: number }
 interface LeadTimeFacts { items: Map<string, ItemFacts>; vendors: Map<string, { id: number; code: string }> }
-
-const DAY_SECONDS = 86_400
 
 export const leadTimesImport = recordsImport<LeadTimeWrite, LeadTimeFacts>({
   kind: 'lead_times',

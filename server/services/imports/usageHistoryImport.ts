@@ -6,7 +6,7 @@ import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks, readImportQuantity, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -32,8 +32,7 @@ export const USAGE_HISTORY_GUIDE: Record<string, string> = {
 
 type Write = { itemId: number; warehouseId: number; days: { date: string; qty: number }[] }
 
-const HEADER = new Map(USAGE_HISTORY_SPEC.columns.map((c) => [c.key, c.header]))
-const col = (key: string) => HEADER.get(key) ?? key
+const col = headerOf(USAGE_HISTORY_SPEC)
 const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
 
 function validDay(text: string): boolean {
@@ -70,10 +69,10 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
     const warehouses = await warehousesByCode(em)
     const today = new Date().toISOString().slice(0, 10)
     const held = await heldUsage(em, [...new Set([...items.values()].map((i) => i.id))])
-    const seen = new Map<string, number>()
-    const issuesOf = issuesByRow(sheet)
+    const repeated = repeatedRows()
+    const problemsOf = parserProblems(sheet, col)
     return sheet.rows.map((r): CheckedRow<Write> => {
-      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const errors = problemsOf(r.row)
       const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
       const sku = cellText(r.values.sku)
       const item = sku ? items.get(sku) : undefined
@@ -105,9 +104,8 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
       }
       if (item && warehouse && when) {
         const key = `${item.id}:${warehouse.id}:${when}`
-        const first = seen.get(key)
-        if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
-        else seen.set(key, r.row)
+        const again = repeated(key, r.row)
+        if (again) errors.push(again)
         // History already held for that day (or any day of that month) is never added to a second time.
         if (held.has(key)) add(when.length === 7 ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
       }

@@ -6,7 +6,8 @@ import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { vendorCreateSchema, vendorItemSchema } from '../../../shared/schemas/purchasing.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, inChunks, issuesByRow, itemsBySku, marks } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, repeatedRows } from './importFacts.js'
+import { insertRows } from './recordsImport.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const VENDOR_ITEMS_SPEC: ImportSpec = {
@@ -51,8 +52,7 @@ interface VendorItemWrite {
   preferred: boolean
 }
 
-const HEADER = new Map(VENDOR_ITEMS_SPEC.columns.map((c) => [c.key, c.header]))
-const col = (key: string) => HEADER.get(key) ?? key
+const col = headerOf(VENDOR_ITEMS_SPEC)
 /** The vendor item schema's fields by this sheet's keys. */
 const FIELD_KEY: Record<string, string> = { itemId: 'sku', minOrderQty: 'minOrder' }
 
@@ -70,10 +70,10 @@ export const vendorItemsImport: DataImportDefinition<VendorItemWrite> = {
     const sold = new Set(held.map((h) => `${h.vendor_id}:${h.item_id}`))
     const preferredBy = new Map(held.filter((h) => Number(h.preferred)).map((h) => [h.item_id, h.code]))
     const newVendorNames = new Map<string, string>()
-    const seen = new Map<string, number>()
-    const issuesOf = issuesByRow(sheet)
+    const repeated = repeatedRows()
+    const problemsOf = parserProblems(sheet, col)
     return sheet.rows.map((r): CheckedRow<VendorItemWrite> => {
-      const errors: RowProblem[] = issuesOf(r.row).map((i) => ({ column: i.column ? col(i.column) : null, problem: i.problem }))
+      const errors = problemsOf(r.row)
       const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
       const code = cellText(r.values.vendor)
       const codeCheck = vendorCreateSchema.shape.code.safeParse(code)
@@ -105,10 +105,8 @@ export const vendorItemsImport: DataImportDefinition<VendorItemWrite> = {
         }
       }
       if (item && code) {
-        const key = `${code.toUpperCase()}:${item.id}`
-        const first = seen.get(key)
-        if (first !== undefined) errors.push({ column: null, problem: problem('import_row_repeated', { row: first }) })
-        else seen.set(key, r.row)
+        const again = repeated(`${code.toUpperCase()}:${item.id}`, r.row)
+        if (again) errors.push(again)
         if (vendorId !== null && sold.has(`${vendorId}:${item.id}`)) add('sku', problem('import_vendor_item_exists', { vendor: code, sku }))
         if (r.values.preferred === true) {
           const other = preferredBy.get(item.id)
@@ -137,13 +135,8 @@ export const vendorItemsImport: DataImportDefinition<VendorItemWrite> = {
       await em.query('INSERT INTO vendors (code, name, import_id) VALUES (?, ?, ?)', [firstCode.get(upper), name, importId])
     }
     const ids = new Map(((await em.query('SELECT id, code FROM vendors')) as { id: number; code: string }[]).map((v) => [v.code.toUpperCase(), v.id]))
-    for (let i = 0; i < rows.length; i += 500) {
-      const chunk = rows.slice(i, i + 500)
-      await em.query(
-        `INSERT INTO vendor_items (vendor_id, item_id, vendor_sku, pack_qty, min_order_qty, unit_cost, lead_time_days, preferred, import_id) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`,
-        chunk.flatMap((r) => [ids.get(r.vendorCode.toUpperCase()), r.itemId, r.vendorSku, r.packQty, r.minOrderQty, r.unitCost, r.leadTimeDays, r.preferred ? 1 : 0, importId]),
-      )
-    }
+    await insertRows(em, 'vendor_items', ['vendor_id', 'item_id', 'vendor_sku', 'pack_qty', 'min_order_qty', 'unit_cost', 'lead_time_days', 'preferred'], importId, rows,
+      (r) => [ids.get(r.vendorCode.toUpperCase()), r.itemId, r.vendorSku, r.packQty, r.minOrderQty, r.unitCost, r.leadTimeDays, r.preferred ? 1 : 0])
     return { vendorItems: rows.length, vendors: fresh.size }
   },
   async reverse(em, _actor, importId) {

@@ -3,8 +3,8 @@
 // items so the items import finds them with their full details.
 import { vendorCreateSchema, type VendorCreateInput } from '../../../shared/schemas/purchasing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText } from './importFacts.js'
-import { filledCells, insertRows, recordsImport } from './recordsImport.js'
+import { cellText, filledCells } from './importFacts.js'
+import { insertRows, recordsImport } from './recordsImport.js'
 
 export const VENDORS_SPEC: ImportSpec = {
   columns: [

@@ -4,8 +4,8 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { binCodeFitsPattern, binSchema, warehouseSchema } from '../../../shared/schemas/warehouses.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, warehousesByCode } from './importFacts.js'
-import { filledCells, insertRows, recordsImport } from './recordsImport.js'
+import { cellText, filledCells, warehousesByCode } from './importFacts.js'
+import { insertRows, recordsImport } from './recordsImport.js'
 
 export const WAREHOUSES_SPEC: ImportSpec = {
   columns: [

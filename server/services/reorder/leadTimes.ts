@@ -7,7 +7,7 @@ import { DEFAULT_REORDER_POLICY } from '../../../shared/inventory/reorder.js'
 import type { LeadTimeFigures } from '../../../shared/schemas/reorder.js'
 import type { VendorTermsRow } from './lineFacts.js'
 
-const DAY_SECONDS = 86_400
+export const DAY_SECONDS = 86_400
 
 /**
  * Each observed lead time: an order's vendor, an item, the order's number and the seconds from sending (or

@@ -68,16 +68,28 @@ export async function startCardDepositIn(em: EntityManager, pay: PayProvider, ac
   return view(pay, payment, intent.status)
 }
 
+/** One card payment of the order, with its payment intent (no lock); `pending` refuses one no longer waiting for a card. */
+async function cardPayment(ds: DataSource, orderId: number, paymentId: number, opts: { pending?: boolean } = {}): Promise<Payment & { reference: string }> {
+  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
+  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
+  if (opts.pending && payment.status !== 'pending') {
+    throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
+  }
+  return payment as Payment & { reference: string }
+}
+
+/** The order a provider's event names in its metadata, or null when it names none. */
+function orderOfEvent(event: ProviderEvent): number | null {
+  const orderId = Number((event.data.object as { metadata?: Record<string, string> }).metadata?.salesOrderId)
+  return Number.isSafeInteger(orderId) && orderId > 0 ? orderId : null
+}
+
 /**
  * Confirms a pending card deposit with the token the provider gave for the card entered on its side. No
  * database lock is held while the provider answers; the payment is settled by the provider's event.
  */
 export async function confirmCardDeposit(ds: DataSource, pay: PayProvider, orderId: number, paymentId: number, cardToken: string): Promise<CardDepositView> {
-  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
-  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
-  if (payment.status !== 'pending') {
-    throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
-  }
+  const payment = await cardPayment(ds, orderId, paymentId, { pending: true })
   const intent = await pay.confirmIntent(payment.reference, cardToken, `lumenyard-confirm-${payment.id}-${cardToken}`)
   return view(pay, payment, intent.status)
 }
@@ -98,8 +110,7 @@ const SETTLED_STAGES: Record<string, CardDepositStage> = { settled: 'paid', refu
 export async function cardDepositState(ds: DataSource, pay: PayProvider, orderId: number, paymentId: number): Promise<CardDepositState> {
   const order = await ds.getRepository(SalesOrder).findOneBy({ id: orderId })
   if (!order) throw AppError.notFound('sales_order_not_found', 'That sales order was not found.')
-  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
-  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
+  const payment = await cardPayment(ds, orderId, paymentId)
   const stage = payment.status === 'pending' ? pendingStage(await pay.retrieveIntent(payment.reference)) : SETTLED_STAGES[payment.status] ?? 'cancelled'
   const owed = subtractMoney(order.depositRequired, order.depositPaid)
   return {
@@ -116,9 +127,7 @@ export async function cardDepositState(ds: DataSource, pay: PayProvider, orderId
  * intent the customer paid meanwhile is refused by the provider and settles by its event as usual.
  */
 export async function cancelCardDeposit(ds: DataSource, pay: PayProvider, actor: AuditActor, orderId: number, paymentId: number): Promise<CardDepositState> {
-  const payment = await ds.getRepository(Payment).findOneBy({ id: paymentId, salesOrderId: orderId, method: 'card' })
-  if (!payment || !payment.reference) throw AppError.notFound('payment_not_found', `Card payment ${paymentId} of this order was not found.`)
-  if (payment.status !== 'pending') throw AppError.conflict('payment_not_pending', `This card payment is ${payment.status}, no longer waiting for a card.`)
+  const payment = await cardPayment(ds, orderId, paymentId, { pending: true })
   const intent = await pay.retrieveIntent(payment.reference)
   if (intent.status === 'succeeded') throw AppError.conflict('payment_not_pending', 'The customer has just paid this card payment.')
   if (intent.status !== 'canceled') await pay.cancelIntent(payment.reference, `lumenyard-cancel-${payment.id}`)
@@ -141,9 +150,9 @@ const SYSTEM: AuditActor = { userId: null }
  */
 export function cardSettlement(pay: PayProvider) {
   return async function settleCardPaymentIn(em: EntityManager, event: ProviderEvent): Promise<string> {
-    const intent = event.data.object as unknown as { id: string; amount_received: number; currency: string; metadata?: Record<string, string> }
-    const orderId = Number(intent.metadata?.salesOrderId)
-    if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
+    const intent = event.data.object as unknown as { id: string; amount_received: number; currency: string }
+    const orderId = orderOfEvent(event)
+    if (orderId === null) return 'no_order'
     let order
     try {
       order = await lockSalesOrder(em, orderId)
@@ -228,9 +237,9 @@ export async function refundCardPaymentsIn(em: EntityManager, pay: PayProvider, 
  * card payment naming it is closed as failed, once, so the counter can start another.
  */
 export async function closeCancelledCardIn(em: EntityManager, event: ProviderEvent): Promise<string> {
-  const intent = event.data.object as unknown as { id: string; metadata?: Record<string, string> }
-  const orderId = Number(intent.metadata?.salesOrderId)
-  if (!Number.isSafeInteger(orderId) || orderId <= 0) return 'no_order'
+  const intent = event.data.object as unknown as { id: string }
+  const orderId = orderOfEvent(event)
+  if (orderId === null) return 'no_order'
   const payment = await em.findOne(Payment, { where: { salesOrderId: orderId, method: 'card', reference: intent.id }, lock: { mode: 'pessimistic_write' } })
   if (!payment || payment.status !== 'pending') return 'already_recorded'
   await em.update(Payment, { id: payment.id }, { status: 'failed', providerEventId: event.id })

@@ -23,6 +23,7 @@ import { OPEN_PO_STATUSES } from '../../entities/PurchaseOrder.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
 import { ADJUSTMENT_REASONS, BIN_KINDS, MOVE_TYPES } from '../../../shared/catalog.js'
 import { ROLES } from '../../../shared/roles.js'
+import { localeSchema, unitPreferenceSchema, weightUnitSchema } from '../../../shared/schemas/auth.js'
 import { JOB_STATUSES } from '../../../shared/schemas/counter.js'
 import { PO_STATUSES } from '../../../shared/schemas/purchasing.js'
 import { QUOTE_STATUSES } from '../../../shared/sales/quoteStatus.js'
@@ -387,9 +388,9 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
       col('E-mail', 'text', 'email', 'E-mail.'),
       { ...col('Roles', 'text', 'roles', 'What they may do.'), allowed: `One or more of ${ROLES.join(', ')}, separated by commas.` },
       col('Active', 'boolean', 'active', 'no: can no longer sign in.'),
-      oneOf(col('Length unit', 'text', 'unit_preference', 'Lengths shown in inches or millimetres.'), ['in', 'mm']),
-      oneOf(col('Weight unit', 'text', 'weight_unit', 'Weights shown in pounds or kilograms.'), ['lb', 'kg']),
-      oneOf(col('Language', 'text', 'locale', 'The language of their screens and documents.'), ['en', 'es']),
+      oneOf(col('Length unit', 'text', 'unit_preference', 'Lengths shown in inches or millimetres.'), unitPreferenceSchema.options),
+      oneOf(col('Weight unit', 'text', 'weight_unit', 'Weights shown in pounds or kilograms.'), weightUnitSchema.options),
+      oneOf(col('Language', 'text', 'locale', 'The language of their screens and documents.'), localeSchema.options),
       col('Last sign-in', 'datetime', 'last_sign_in_at', 'UTC.'),
     ],
     sql: 'SELECT username, display_name, email, roles, active, unit_preference, weight_unit, locale, last_sign_in_at FROM users ORDER BY username',

@@ -141,9 +141,10 @@ async function gather(em: EntityManager, layers: PolicyLayers, opts: ReorderLine
   }
   const prepared = new Map<string, PreparedLine>()
   const take = (k: string) => (!wanted || wanted.has(k)) && !prepared.has(k)
-  for (const key of lineKeys(facts, totals)) if (take(key)) prepared.set(key, prepareLine(key, context))
+  const keys = lineKeys(facts, totals)
+  for (const key of keys) if (take(key)) prepared.set(key, prepareLine(key, context))
   const usage = await aggregate
-  const quiet = [...new Set([...lineKeys(facts, totals), ...usage.keys()])]
+  const quiet = [...new Set([...keys, ...usage.keys()])]
     .filter((k) => (!wanted || wanted.has(k)) && isLive(facts, k) && (usage.get(k)?.idleDays ?? null) === null)
   for (const [key, idleDays] of await idleBeforeWindow(em, window, settings.lookbackDays, quiet)) {
     const u = usage.get(key)

@@ -104,8 +104,11 @@ async function heldForSalesOrders(em: EntityManager, actor: AuditActor, po: Purc
       WHERE l.po_line_id IN (?) AND o.status <> 'cancelled' ORDER BY l.id FOR UPDATE`,
     [special.map((e) => e.line.id)],
   )
+  // The first sales order line per PO line (rows come in line order).
+  const byPoLine = new Map<number, (typeof rows)[number]>()
+  for (const r of rows) if (!byPoLine.has(Number(r.po_line_id))) byPoLine.set(Number(r.po_line_id), r)
   for (const e of special) {
-    const line = rows.find((r) => Number(r.po_line_id) === e.line.id)
+    const line = byPoLine.get(e.line.id)
     if (!line) continue
     const orderId = Number(line.sales_order_id)
     await reserve(em, { userId: actor.userId }, {

@@ -13,6 +13,7 @@ import { User } from '../../entities/User.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { salesOrderOfBill } from '../picking/pickPlanContext.js'
 import { availabilityFor } from './availability.js'
 import { computeOffThread } from './computeRunner.js'
 import { loadCounterCatalog } from './counterCatalog.js'
@@ -128,10 +129,7 @@ export async function getBom(ds: DataSource, id: number): Promise<BomRecord> {
   const stocked = lines.filter((l) => l.itemId !== null && !l.madeToOrder).map((l) => l.itemId as number)
   const availability = await availabilityFor(ds.manager, stocked)
   // A bill whose quote became a sales order is picked through that order, never on a list of its own.
-  const [sold] = (await ds.query(
-    "SELECT o.id, o.number FROM sales_orders o JOIN quotes q ON q.id = o.quote_id WHERE q.bom_id = ? AND o.status <> 'cancelled' ORDER BY o.id LIMIT 1",
-    [id],
-  )) as { id: number; number: string }[]
+  const salesOrder = await salesOrderOfBill(ds.manager, id)
   return {
     id: bom.id,
     jobId: bom.jobId,
@@ -147,6 +145,6 @@ export async function getBom(ds: DataSource, id: number): Promise<BomRecord> {
     totals: bom.totalsJson ? JSON.parse(bom.totalsJson) : null,
     walls: snapshot ? JSON.parse(snapshot.wallsJson) : [],
     availability: [...availability.values()],
-    salesOrder: sold ? { id: Number(sold.id), number: String(sold.number) } : null,
+    salesOrder,
   }
 }

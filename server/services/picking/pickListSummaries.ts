@@ -4,6 +4,7 @@ import type { EntityManager } from 'typeorm'
 import { pickProgress, type ProgressLine } from '../../../shared/picking/pickProgress.js'
 import { OPEN_PICK_STATUSES, type BomForPicking, type PickListStatus, type PickListSummary } from '../../../shared/schemas/picking.js'
 import { pickNumber } from './pickListLocks.js'
+import { ordersOfBillSql } from './pickPlanContext.js'
 
 export interface SummaryFilter {
   ids?: number[]
@@ -112,7 +113,7 @@ export async function bomsForPicking(em: EntityManager): Promise<BomForPicking[]
        LEFT JOIN customers c ON c.id = j.customer_id
        LEFT JOIN bom_lines bl ON bl.bom_id = b.id AND bl.item_id IS NOT NULL AND bl.made_to_order = 0
       WHERE b.revision = (SELECT MAX(b2.revision) FROM boms b2 WHERE b2.job_id = b.job_id)
-        AND NOT EXISTS (SELECT 1 FROM sales_orders o JOIN quotes q ON q.id = o.quote_id WHERE q.bom_id = b.id AND o.status <> 'cancelled')
+        AND NOT EXISTS (SELECT 1 ${ordersOfBillSql('b.id')})
       GROUP BY b.id
       ORDER BY b.created_at DESC, b.id DESC
       LIMIT 200`,

@@ -82,19 +82,27 @@ async function refuseSuperseded(em: EntityManager, bom: Bom, locking: boolean): 
   }
 }
 
+/** `FROM … WHERE` of the standing (not cancelled) sales orders made from a bill's quote; `bom` is `?` or a column. */
+export const ordersOfBillSql = (bom: string) => `FROM sales_orders o JOIN quotes q ON q.id = o.quote_id WHERE q.bom_id = ${bom} AND o.status <> 'cancelled'`
+
+/** The first standing sales order made from the bill's quote, or null. */
+export async function salesOrderOfBill(em: EntityManager, bomId: number, locking = false): Promise<{ id: number; number: string } | null> {
+  const [sold] = (await em.query(
+    `SELECT o.id, o.number ${ordersOfBillSql('?')} ORDER BY o.id LIMIT 1${locking ? ' LOCK IN SHARE MODE' : ''}`,
+    [bomId],
+  )) as { id: number; number: string }[]
+  return sold ? { id: Number(sold.id), number: String(sold.number) } : null
+}
+
 /**
  * A bill whose quote became a sales order is picked through the order (its own pick list carries the order's
  * holds); a second list from the bill would reserve the same goods twice. A cancelled order no longer holds anything.
  */
 async function refuseSold(em: EntityManager, bomId: number, locking: boolean): Promise<void> {
-  const [sold] = (await em.query(
-    `SELECT o.id, o.number FROM sales_orders o JOIN quotes q ON q.id = o.quote_id
-      WHERE q.bom_id = ? AND o.status <> 'cancelled' ORDER BY o.id LIMIT 1${locking ? ' LOCK IN SHARE MODE' : ''}`,
-    [bomId],
-  )) as { id: number; number: string }[]
+  const sold = await salesOrderOfBill(em, bomId, locking)
   if (sold) {
     throw AppError.conflict('bill_on_sales_order', `This bill became sales order ${sold.number}; pick it from the order.`, {
-      params: { order: sold.number, orderId: Number(sold.id) },
+      params: { order: sold.number, orderId: sold.id },
     })
   }
 }

@@ -5,6 +5,7 @@ import type { DataSource, EntityManager } from 'typeorm'
 import type { SetupGs1Input, SetupState, SetupUnitsInput } from '../../shared/schemas/setup.js'
 import { OPEN_PO_STATUSES } from '../entities/PurchaseOrder.js'
 import { audit, type AuditActor } from './auditService.js'
+import { USAGE_MOVE_TYPES } from './reorder/usageQueries.js'
 
 const KEYS = {
   dismissed: 'setup.dismissed',
@@ -42,7 +43,8 @@ export async function setupState(db: Db, production: boolean): Promise<SetupStat
   const accounts = await one(db, 'SELECT COUNT(*) AS n FROM customers')
   const openOrders = await one(db, `SELECT COUNT(*) AS n FROM purchase_orders WHERE status IN (${OPEN_PO_STATUSES.map((st) => `'${st}'`).join(', ')})`)
   // Use is there once history came in, or once the ledger holds issues or picks of its own.
-  const used = await one(db, "SELECT EXISTS (SELECT 1 FROM data_imports WHERE kind = 'usage_history' AND reversed_at IS NULL) OR EXISTS (SELECT 1 FROM stock_moves WHERE move_type IN ('issue', 'pick')) AS n")
+  const used = await one(db, `SELECT EXISTS (SELECT 1 FROM data_imports WHERE kind = 'usage_history' AND reversed_at IS NULL)
+    OR EXISTS (SELECT 1 FROM stock_moves WHERE move_type IN (${USAGE_MOVE_TYPES.map((t) => `'${t}'`).join(', ')})) AS n`)
   const dismissed = s.get(KEYS.dismissed) === 'true'
   const prefix = s.get(KEYS.gs1Prefix)
   return {

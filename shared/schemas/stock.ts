@@ -6,7 +6,12 @@ import { ADJUSTMENT_REASONS } from '../catalog.js'
 /** The most units one stock change may carry. */
 const MAX_UNITS = 1_000_000
 
-export const idSchema = z.coerce.number().int().positive()
+/**
+ * A record's id. On a form it is always picked from a list (a bin, an item, a warehouse), so every way of
+ * getting it wrong, nothing picked included, reads "choose one of the options", not a rule about numbers.
+ */
+const choose = issueCode('invalid_choice')
+export const idSchema = z.coerce.number(choose).int(choose).positive(choose)
 export const lotIdSchema = z.union([idSchema, z.null()]).default(null)
 export const qtySchema = z.coerce
   .number()

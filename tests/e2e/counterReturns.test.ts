@@ -12,7 +12,7 @@ import { User } from '../../server/entities/User.js'
 import { CSRF, TEST_PASSWORD } from '../support/apiHarness.js'
 import { axeFindings, blocking, describeFindings } from '../support/axeCheck.js'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
-import { sidewaysScroll } from '../support/layoutChecks.js'
+import { cutOffInside, sidewaysScroll } from '../support/layoutChecks.js'
 import { countRows, receive, signedInAgent } from '../support/pickFixtures.js'
 import { handOver } from '../support/returnFixtures.js'
 import { bookedOrder, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
@@ -114,6 +114,8 @@ describe('returns at the counter', () => {
       await poll(() => page.locator('[data-test="return-figures"]').getAttribute('data-refund')).toBe('475.36')
       expect(await page.locator('[data-test="return-figure-refund"]').textContent()).toContain('475.36')
       expect((await sidewaysScroll(page)).by).toBe(0)
+      // Nor is anything in the dialog cut off at its edge (common practice: no cut-off field at 412 px).
+      expect(await cutOffInside(page, '[data-test="return-dialog"]')).toEqual([])
       await h.screenshot(page, 'return-dialog-phone-en')
       await page.locator('[data-test="return-confirm"]').dblclick()
       await page.locator('[data-test="return-dialog"]').waitFor({ state: 'hidden' })
@@ -174,6 +176,7 @@ describe('returns at the counter', () => {
       await poll(() => page.locator('[data-test="return-figures"]').getAttribute('data-refund')).toBe('35.44')
       expect(await page.locator('[data-test="return-dialog"]').textContent()).toMatch(/Reembolso con cheque/)
       expect((await sidewaysScroll(page)).by).toBe(0)
+      expect(await cutOffInside(page, '[data-test="return-dialog"]')).toEqual([])
       const findings = blocking(await axeFindings(page, 'return dialog'))
       expect(findings, describeFindings(findings)).toEqual([])
       await h.screenshot(page, 'return-dialog-phone-es')

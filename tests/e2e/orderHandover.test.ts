@@ -165,6 +165,12 @@ describe('from the handheld pick to a signed pickup ticket', () => {
       await poll(() => page.locator('.sign').textContent()).toMatch(/obligatorio|escriba|indique|al menos/i)
       expect(await countRows(h.ds, 'handover_tickets', "id = ? AND status = 'open'", [made.body.id])).toBe(1)
       expect((await sidewaysScroll(page)).by).toBe(0)
+      // What is signed for is on the screen: each line's quantity lies within the phone's width, not in a column
+      // scrolled out of sight (common practice: no cut-off column at 412 px), in the reader's words for the unit.
+      const qty = page.locator('[data-test="ticket-line-qty"]').first()
+      const box = (await qty.boundingBox())!
+      expect(box.x + box.width).toBeLessThanOrEqual(412)
+      expect(await qty.textContent()).not.toMatch(/\beach\b/)
       const findings = blocking(await axeFindings(page, 'handover ticket'))
       expect(findings, describeFindings(findings)).toEqual([])
       await h.screenshot(page, 'order-ticket-phone-es')

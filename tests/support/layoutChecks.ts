@@ -27,6 +27,26 @@ export const sidewaysScroll = (page: Page) =>
     return { by, culprits: culprits.slice(0, 4) }
   })
 
+/**
+ * What sticks out past the right edge of a box that clips its content (a dialog): the page may not scroll, yet
+ * a field or its label is cut off. Elements inside a box that scrolls by itself don't count.
+ */
+export const cutOffInside = (page: Page, selector: string) =>
+  page.locator(selector).evaluate((box) => {
+    const right = box.getBoundingClientRect().right
+    const scrolls = (el: Element) => ['auto', 'scroll'].includes(getComputedStyle(el).overflowX)
+    const out: string[] = []
+    const walk = (el: Element) => {
+      for (const child of Array.from(el.children)) {
+        const r = child.getBoundingClientRect()
+        if (r.width && r.right > right + 1) out.push(`${child.tagName.toLowerCase()}.${String(child.className).split(' ').slice(0, 2).join('.')} ${Math.round(r.right - right)}px`)
+        else if (!scrolls(child)) walk(child)
+      }
+    }
+    walk(box)
+    return out.slice(0, 4)
+  })
+
 export interface TargetSizes {
   controls: number
   under44: string[]

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest'
 import { z } from 'zod'
 import { fieldKey, issueCode, issueOf, unitOfPath, zodFieldProblems, zodIssueProblem } from '../../shared/errors/zodProblems.js'
+import { idSchema } from '../../shared/schemas/stock.js'
 
 function problemOf(schema: z.ZodType, value: unknown) {
   const r = schema.safeParse(value)
@@ -50,6 +51,9 @@ describe('zod issues to codes', () => {
 
   it('choices, multiples, unexpected keys and unions', () => {
     expect(problemOf(z.enum(['in', 'mm']), 'ft')).toEqual({ code: 'invalid_choice' })
+    // A record picked from a list: nothing picked (a bin select left empty) reads as a choice to make, not as
+    // "more than zero" (found on the returns dialog at the counter).
+    for (const nothing of [null, undefined, '', 0, 'x', 1.5]) expect(problemOf(idSchema, nothing), String(nothing)).toEqual({ code: 'invalid_choice' })
     expect(problemOf(z.number().multipleOf(5), 7)).toEqual({ code: 'not_multiple', params: { divisor: 5 } })
     expect(problemOf(z.object({ a: z.string() }).strict(), { a: 'x', b: 1 })).toEqual({ code: 'unknown_fields', params: { keys: ['b'] } })
     expect(problemOf(z.union([z.string(), z.number()]), null)).toEqual({ code: 'invalid_value' })

@@ -7,7 +7,7 @@ import {
 } from '@shared/schemas/answers/changes'
 import { bomRecordShape, computeAnswerShape, jobDetailShape, ruleRecordShape, takeoffRecordShape } from '@shared/schemas/answers/counter'
 import { quoteDetailShape, quoteSummaryShape } from '@shared/schemas/answers/quotes'
-import { salesOrderDetailShape, salesOrderSummaryShape, salesSettingsShape } from '@shared/schemas/answers/salesOrders'
+import { salesOrderDetailShape, salesOrderSummaryShape } from '@shared/schemas/answers/salesOrders'
 import { salesReturnViewShape } from '@shared/schemas/answers/salesReturns'
 import { salesReturnSchema } from '@shared/schemas/salesReturns'
 import {
@@ -96,10 +96,9 @@ export const salesApi = {
   startCardDeposit: (id: Id, body: CardDepositStartInput, key: string) =>
     api.post(`/sales-orders/${id}/card-deposits`, body, { ...keyed(key), answer: cardDepositStartedShape }),
   cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateSchema }),
-  // Returns against an order and the policy they follow (window, restocking fee)
+  // Returns against an order (the policy they follow, window and restocking fee, is salesPolicyApi.read in ./admin)
   returns: (id: Id) => api.get(`/sales-orders/${id}/returns`, { answer: z.array(salesReturnViewShape) }),
   takeReturn: (id: Id, body: BodyOf<typeof salesReturnSchema>, key: string) =>
     api.post(`/sales-orders/${id}/returns`, body, { ...keyed(key), answer: salesReturnViewShape.extend({ accountCredit: z.string() }) }),
-  policy: () => api.get('/sales-settings', { answer: salesSettingsShape }),
   cancelCardDeposit: (id: Id, paymentId: number) => api.post(`/sales-orders/${id}/card-deposits/${paymentId}/cancel`, {}, { answer: cardDepositStateSchema }),
 }

@@ -8,12 +8,7 @@
 import { readdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
 import type { Plugin } from 'vite'
-
-export const ROUTE_PRELOADS_FILE = 'route-preloads.json'
-
-export interface RoutePreloads {
-  routes: { paths: string[]; scripts: string[]; styles: string[] }[]
-}
+import { ROUTE_PRELOADS_FILE, type RoutePreloads } from '../server/http/pagePreloads.js'
 
 /** Each lazily loaded view of the route table with the paths that show it, in the table's order. */
 export function routeViews(root: string): { paths: string[]; view: string }[] {

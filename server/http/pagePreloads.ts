@@ -5,7 +5,11 @@
 import { existsSync, readFileSync, statSync } from 'node:fs'
 import path from 'node:path'
 
-interface PreloadFile {
+/** The build's list beside index.html (written by scripts/routePreloads.ts). */
+export const ROUTE_PRELOADS_FILE = 'route-preloads.json'
+
+/** Each page's paths with the scripts and styles it needs beyond the entry. */
+export interface RoutePreloads {
   routes: { paths: string[]; scripts: string[]; styles: string[] }[]
 }
 
@@ -25,9 +29,9 @@ const FILE_NAME = /^\/assets\/[\w.-]+\.(js|css)$/
 /** The pages of one build: index.html with each listed page's links, and index.html as it is. */
 function readBuild(dist: string): (requestPath: string) => string {
   const index = readFileSync(path.join(dist, 'index.html'), 'utf8')
-  const listFile = path.join(dist, 'route-preloads.json')
+  const listFile = path.join(dist, ROUTE_PRELOADS_FILE)
   if (!existsSync(listFile) || !index.includes('</head>')) return () => index
-  const list = JSON.parse(readFileSync(listFile, 'utf8')) as PreloadFile
+  const list = JSON.parse(readFileSync(listFile, 'utf8')) as RoutePreloads
   const pages = list.routes.map((r) => {
     const links = [
       ...r.scripts.filter((f) => FILE_NAME.test(f)).map((f) => `<link rel="modulepreload" crossorigin href="${f}">`),

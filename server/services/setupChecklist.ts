@@ -28,7 +28,7 @@ async function put(em: EntityManager, key: string, value: string, actor: AuditAc
   )
 }
 
-const one = async (db: Db, sql: string): Promise<number> => Number(((await db.query(sql)) as { n: string }[])[0]?.n ?? 0)
+const one = async (db: Db, sql: string, params: unknown[] = []): Promise<number> => Number(((await db.query(sql, params)) as { n: string }[])[0]?.n ?? 0)
 
 export async function setupState(db: Db, production: boolean): Promise<SetupState> {
   const s = await settings(db)
@@ -41,10 +41,10 @@ export async function setupState(db: Db, production: boolean): Promise<SetupStat
   const stocked = await one(db, 'SELECT EXISTS (SELECT 1 FROM stock_balances WHERE on_hand > 0) AS n')
   const vendorItems = await one(db, 'SELECT COUNT(*) AS n FROM vendor_items')
   const accounts = await one(db, 'SELECT COUNT(*) AS n FROM customers')
-  const openOrders = await one(db, `SELECT COUNT(*) AS n FROM purchase_orders WHERE status IN (${OPEN_PO_STATUSES.map((st) => `'${st}'`).join(', ')})`)
+  const openOrders = await one(db, 'SELECT COUNT(*) AS n FROM purchase_orders WHERE status IN (?)', [OPEN_PO_STATUSES])
   // Use is there once history came in, or once the ledger holds issues or picks of its own.
   const used = await one(db, `SELECT EXISTS (SELECT 1 FROM data_imports WHERE kind = 'usage_history' AND reversed_at IS NULL)
-    OR EXISTS (SELECT 1 FROM stock_moves WHERE move_type IN (${USAGE_MOVE_TYPES.map((t) => `'${t}'`).join(', ')})) AS n`)
+    OR EXISTS (SELECT 1 FROM stock_moves WHERE move_type IN (?)) AS n`, [USAGE_MOVE_TYPES])
   const dismissed = s.get(KEYS.dismissed) === 'true'
   const prefix = s.get(KEYS.gs1Prefix)
   return {

@@ -338,17 +338,17 @@ export async function buildXlsx(...sheets: Sheet[]): Promise<Buffer> {
 
 /** The same sheets written row by row to a stream (rows leave memory as they are written). */
 export async function streamXlsx(out: Writable, ...sheets: Sheet[]): Promise<void> {
-  const book = newBook(new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: true }))
+  const book = newStreamingBook(out, { sharedStrings: true })
   for (const add of sheets) add(book)
   await book.commit()
 }
 
 /**
  * A workbook written to a stream as its rows arrive, for a writer that reads rows at its own pace (the whole-business
- * export); strings written inline keep memory flat however many rows there are.
+ * export); strings written inline (the default) keep memory flat however many rows there are.
  */
-export const newStreamingBook = (out: Writable) =>
-  newBook(new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: false }))
+export const newStreamingBook = (out: Writable, opts: { sharedStrings?: boolean } = {}) =>
+  newBook(new ExcelJS.stream.xlsx.WorkbookWriter({ stream: out, useStyles: true, useSharedStrings: opts.sharedStrings ?? false }))
 
 /** An empty workbook to lay out by hand (the purchase order's sheet); pair it with printOptions and putCell. */
 export const newWorkbook = () => newBook(new ExcelJS.Workbook())

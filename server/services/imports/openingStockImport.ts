@@ -7,6 +7,7 @@ import { LOT_CODE_PATTERN } from '../../../shared/schemas/counts.js'
 import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import { insertRows } from './recordsImport.js'
 import { cellText, distinctOf, inChunks, headerOf, issuesByRow, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
@@ -142,13 +143,8 @@ export const openingStockImport: DataImportDefinition<Write> = {
   async write(em, actor: AuditActor, importId, rows) {
     const lotsCreated = await settleLots(em, rows)
     const { costsBefore } = await bringInOpeningStock(em, actor, rows, { docType: 'data_import', docId: importId })
-    for (let i = 0; i < costsBefore.length; i += 1000) {
-      const chunk = costsBefore.slice(i, i + 1000)
-      await em.query(
-        `INSERT INTO data_import_costs (import_id, item_id, warehouse_id, avg_before, on_hand_before) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?)').join(', ')}`,
-        chunk.flatMap((c) => [importId, c.itemId, c.warehouseId, c.avgBefore, c.onHandBefore]),
-      )
-    }
+    await insertRows(em, 'data_import_costs', ['item_id', 'warehouse_id', 'avg_before', 'on_hand_before'], importId, costsBefore,
+      (c) => [c.itemId, c.warehouseId, c.avgBefore, c.onHandBefore], 1000)
     return { lines: rows.length, units: rows.reduce((n, r) => n + r.qty, 0), lotsCreated }
   },
   async reverse(em, actor, importId) {

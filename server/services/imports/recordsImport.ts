@@ -43,12 +43,14 @@ export const chunked = async <T>(rows: readonly T[], size: number, each: (chunk:
   for (let i = 0; i < rows.length; i += size) await each(rows.slice(i, i + size))
 }
 
-/** `INSERT INTO table (columns…, import_id) VALUES …` in chunks of 500. */
-export async function insertRows<W>(em: EntityManager, table: string, columns: readonly string[], importId: number, rows: readonly W[], values: (w: W) => unknown[]): Promise<void> {
+/** `INSERT INTO table (columns…, import_id) VALUES …` in chunks of `chunk` rows (500 unless said). */
+export async function insertRows<W>(
+  em: EntityManager, table: string, columns: readonly string[], importId: number, rows: readonly W[], values: (w: W) => unknown[], chunk = 500,
+): Promise<void> {
   const row = `(${[...columns, 'import_id'].map(() => '?').join(', ')})`
-  await chunked(rows, 500, (chunk) => em.query(
-    `INSERT INTO ${table} (${[...columns, 'import_id'].join(', ')}) VALUES ${chunk.map(() => row).join(', ')}`,
-    chunk.flatMap((w) => [...values(w), importId]),
+  await chunked(rows, chunk, (part) => em.query(
+    `INSERT INTO ${table} (${[...columns, 'import_id'].join(', ')}) VALUES ${part.map(() => row).join(', ')}`,
+    part.flatMap((w) => [...values(w), importId]),
   ))
 }
 

@@ -6,6 +6,7 @@ import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
+import { insertRows } from './recordsImport.js'
 import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
@@ -116,11 +117,8 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
     })
   },
   async write(em, _actor, importId, rows) {
-    const flat = rows.flatMap((r) => r.days.map((d) => [importId, r.itemId, r.warehouseId, d.date, d.qty]))
-    for (let i = 0; i < flat.length; i += 1000) {
-      const chunk = flat.slice(i, i + 1000)
-      await em.query(`INSERT INTO usage_history (import_id, item_id, warehouse_id, day, qty) VALUES ${chunk.map(() => '(?, ?, ?, ?, ?)').join(', ')}`, chunk.flat())
-    }
+    const flat = rows.flatMap((r) => r.days.map((d) => [r.itemId, r.warehouseId, d.date, d.qty]))
+    await insertRows(em, 'usage_history', ['item_id', 'warehouse_id', 'day', 'qty'], importId, flat, (values) => values, 1000)
     return { lines: rows.length, units: rows.reduce((n, r) => n + r.days.reduce((m, d) => m + d.qty, 0), 0), days: flat.length }
   },
   async reverse(em, _actor, importId) {

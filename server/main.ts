@@ -30,13 +30,21 @@ export async function startServer(config: AppConfig, opts: { loadDemo?: boolean 
     logger.info({ host: config.readDb!.host, port: config.readDb!.port }, 'reports read from the replica')
   }
   const built = createApp({ config, ds, readDs, logger })
-  const server: Server = await new Promise((resolve, reject) => {
-    const s = built.app.listen(config.port, config.host, () => resolve(s))
+  const server: Server = await new Promise<Server>((resolve, reject) => {
+    // Express 5 calls listen's callback with the error too (a port taken): only a call without one means listening.
+    const s = built.app.listen(config.port, config.host, (err?: Error) => {
+      if (!err) resolve(s)
+    })
     s.once('error', (err: NodeJS.ErrnoException) => {
       if (err.code === 'EADDRINUSE') {
         reject(new Error(`Port ${config.port} on ${config.host} is already in use: is Lumenyard already running? Set LUMENYARD_PORT to use another port.`))
       } else reject(err)
     })
+  }).catch(async (err: unknown) => {
+    await built.close()
+    await readDs?.destroy()
+    await ds.destroy()
+    throw err
   })
   const address = server.address()
   const port = typeof address === 'object' && address ? address.port : config.port

@@ -141,7 +141,12 @@ app.use((err: Error, _req: express.Request, res: express.Response, _next: expres
   res.status(500).json({ error: err.message })
 })
 
-const server = app.listen(Number(process.env.BENCH_PORT ?? 0), '127.0.0.1', () => {
+// Express 5 calls this with the error when the port is taken: stop then, rather than report port 0 and fail every request.
+const server = app.listen(Number(process.env.BENCH_PORT ?? 0), '127.0.0.1', (err?: Error) => {
+  if (err) {
+    console.error(`floor: cannot listen on port ${process.env.BENCH_PORT}: ${err.message}`)
+    process.exit(1)
+  }
   const a = server.address()
   process.send?.({ url: `http://127.0.0.1:${typeof a === 'object' && a ? a.port : 0}` })
 })

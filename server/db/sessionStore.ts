@@ -56,6 +56,7 @@ export function createSessionStore(config: AppConfig): { store: session.Store; c
     password: config.db.password,
     database: config.db.database,
     connectionLimit: 10,
+    trace: false, // no stack captured before every session read (see db/dataSource.ts)
   })
   const store = new MySQLStore(
     { createDatabaseTable: false, clearExpired: true, checkExpirationInterval: 15 * 60_000, expiration: config.session.maxHours * 3_600_000 },

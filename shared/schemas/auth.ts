@@ -91,3 +91,5 @@ export const sessionAnswerSchema = z.object({ user: sessionUserSchema.nullable()
 export type SessionAnswer = z.infer<typeof sessionAnswerSchema>
 export const signedInAnswerSchema = z.object({ user: sessionUserSchema })
 export const okAnswerSchema = z.object({ ok: z.literal(true) })
+/** A 204 answer has no body. */
+export const nothingShape = z.undefined()

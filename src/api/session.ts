@@ -1,8 +1,7 @@
 // Typed calls for the session (sign-in, sign-out, who is signed in) and the signed-in user's own profile.
 // Their answers are checked against the schemas in shared/schemas/auth.ts in development and tests.
-import { nothingShape } from '@shared/schemas/answers/changes'
 import {
-  okAnswerSchema, sessionAnswerSchema, signedInAnswerSchema, type ProfileUpdateInput, type SessionAnswer, type SessionUser,
+  nothingShape, okAnswerSchema, sessionAnswerSchema, signedInAnswerSchema, type ProfileUpdateInput, type SessionAnswer, type SessionUser,
 } from '@shared/schemas/auth'
 import { api } from './client'
 

@@ -7,27 +7,13 @@ import {
   transferViewShape,
 } from '@shared/schemas/answers/stockViews'
 import type { AdjustmentInput, BinMoveInput, TransferReceiveInput, TransferShipInput } from '@shared/schemas/stock'
+import { stockPaths, toQuery, type QueryValues } from '@shared/pageData'
 import { placesSchema } from '@shared/schemas/stockViews'
 import { api, download } from './client'
 import { keyed } from './idempotencyKey'
 
-export type QueryValues = Record<string, string | number | boolean | readonly string[] | null | undefined>
-
-/** A query string from filters, leaving out empty ones; lists become comma-separated. */
-export function toQuery(values: QueryValues): string {
-  const params = new URLSearchParams()
-  for (const [k, v] of Object.entries(values)) {
-    if (v === undefined || v === null || v === '' || (Array.isArray(v) && !v.length)) continue
-    params.set(k, Array.isArray(v) ? v.join(',') : String(v))
-  }
-  const text = params.toString()
-  return text ? `?${text}` : ''
-}
-
-export const stockPaths = {
-  levels: (q: QueryValues) => `/stock/levels${toQuery(q)}`,
-  places: '/stock/places',
-}
+// The query strings and the paths a page opens with are shared with the server's page preloads (shared/pageData.ts).
+export { toQuery, type QueryValues } from '@shared/pageData'
 
 export const stockApi = {
   levels: (q: QueryValues) => api.get(stockPaths.levels(q), { answer: stockLevelsAnswerShape }),

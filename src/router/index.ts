@@ -1,10 +1,10 @@
 import { createRouter, createWebHistory, type RouteLocationNormalized, type RouteRecordRaw } from 'vue-router'
 import './meta'
+import { openingData } from '@shared/pageData'
 import { hasAnyRole } from '@shared/roles'
 import { prefetchGet } from '@/api/client'
 import { BOOT_AREAS, currentLocale, lastLocale, loadMessages, setLocale } from '@/i18n'
 import { useSessionStore } from '@/stores/session'
-import HomeView from '@/views/HomeView.vue'
 import { adminRoutes } from './areas/admin'
 import { counterRoutes } from './areas/counter'
 import { purchasingRoutes } from './areas/purchasing'
@@ -12,7 +12,7 @@ import { stockRoutes } from './areas/stock'
 import { warehouseRoutes } from './areas/warehouse'
 
 const routes: RouteRecordRaw[] = [
-  { path: '/', name: 'home', component: HomeView, meta: { title: 'shell.areas.home' } },
+  { path: '/', name: 'home', component: () => import('@/views/HomeView.vue'), meta: { title: 'shell.areas.home' } },
   {
     path: '/sign-in',
     name: 'sign-in',
@@ -36,14 +36,15 @@ const isLazy = (c: unknown): c is Lazy => typeof c === 'function' && !('displayN
 
 /**
  * Starts what a page needs side by side, before the session has even answered: its code (with the
- * chunks it imports, such as the grid), the data it declares in `meta.prefetch`, and its messages.
+ * chunks it imports, such as the grid), the data it opens with (shared/pageData.ts; on a cold load the
+ * server's HTML has already asked for the same addresses), and its messages.
  * vue-router asks for the same code after the guard and gets the module already loading or loaded.
  */
 function startPageLoads(to: RouteLocationNormalized, locale: Parameters<typeof loadMessages>[1]): Promise<void> {
   for (const record of to.matched) {
     for (const c of Object.values(record.components ?? {})) if (isLazy(c)) c().catch(() => undefined)
   }
-  for (const path of to.meta.prefetch?.(to) ?? []) prefetchGet(path)
+  for (const path of openingData(to.path, to.query)) prefetchGet(path)
   return messagesFor(to, locale)
 }
 

@@ -1,5 +1,4 @@
 import 'vue-router'
-import type { RouteLocationNormalized } from 'vue-router'
 import type { Area, Role } from '@shared/roles'
 
 declare module 'vue-router' {
@@ -19,10 +18,5 @@ declare module 'vue-router' {
      * least 44 × 44 px with 8 px between targets (theme.css, `.ly-touch`).
      */
     touch?: boolean
-    /**
-     * API paths (GET) the page asks for as soon as it mounts: the guard starts them in parallel with the
-     * page's code, and the page's own identical call takes the answer (src/api/client.ts, prefetchGet).
-     */
-    prefetch?: (to: RouteLocationNormalized) => string[]
   }
 }

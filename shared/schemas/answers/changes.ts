@@ -8,9 +8,7 @@ import { poDetailShape } from './purchasingViews.js'
 const id = z.number().int()
 const count = z.number()
 
-export { okAnswerSchema as okShape } from '../auth.js'
-/** A 204 answer has no body. */
-export const nothingShape = z.undefined()
+export { okAnswerSchema as okShape, nothingShape } from '../auth.js'
 export const createdShape = z.object({ id })
 export const deletedShape = z.object({ deleted: count })
 

@@ -1,7 +1,5 @@
 import type { RouteRecordRaw } from 'vue-router'
 import { AREA_ROLES } from '@shared/roles'
-import { stockPaths } from '@/api/stock'
-import { levelFiltersFrom } from '@/views/stock/levelFilters'
 
 export const stockRoutes: RouteRecordRaw[] = [
   {
@@ -15,10 +13,7 @@ export const stockRoutes: RouteRecordRaw[] = [
     path: '/stock/overview',
     name: 'stock-overview',
     component: () => import('@/views/stock/StockOverviewView.vue'),
-    meta: {
-      area: 'stock', roles: AREA_ROLES.stock, title: 'stock.overview.title',
-      prefetch: (to) => [stockPaths.levels({ ...levelFiltersFrom(to.query) }), stockPaths.places],
-    },
+    meta: { area: 'stock', roles: AREA_ROLES.stock, title: 'stock.overview.title' },
   },
   {
     path: '/stock/bins',

@@ -1,0 +1,71 @@
+// Where a cold load of the stock grid spends its time, in Chromium: every request with its start and end
+// relative to navigation (the browser's Resource Timing entries), the scripts' sizes, the main thread's
+// script and task time (the DevTools protocol's Performance.getMetrics), and the first frame with rows.
+// Not a measure with a floor (that is `npm run bench -- --only=grid`): a look inside one load.
+//
+//   BENCH_PORT_BASE=5796 LUMENYARD_DB_PORT=3467 npx tsx --tsconfig tsconfig.server.json scripts/bench/gridTrace.ts [--size=demo] [--runs=3] [--reuse-build]
+import { spawnSync } from 'node:child_process'
+import { existsSync } from 'node:fs'
+import path from 'node:path'
+import { parseArgs } from 'node:util'
+import { dataRoot, projectRoot } from '../embeddedMariadb.js'
+import { launchChromium } from './browser.js'
+import { BENCH_PASSWORD, makeFixtures, openDatabase, type Size } from './data.js'
+import { signIn } from './http.js'
+import { startNodeServer } from './servers.js'
+import { median } from './stats.js'
+
+const { values: opts } = parseArgs({
+  options: { size: { type: 'string', default: 'demo' }, runs: { type: 'string', default: '3' }, 'reuse-build': { type: 'boolean', default: false }, path: { type: 'string', default: '/stock/overview' } },
+})
+const dist = path.join(dataRoot, 'bench', 'trace-dist')
+if (!(opts['reuse-build'] && existsSync(dist))) {
+  const res = spawnSync(path.join(projectRoot, 'node_modules/.bin/vite'), ['build', '--logLevel', 'error', '--outDir', dist, '--emptyOutDir'], { cwd: projectRoot, stdio: 'inherit' })
+  if (res.status !== 0) throw new Error('vite build failed')
+}
+
+interface Entry { name: string; start: number; end: number; type: string; bytes: number }
+
+const db = await openDatabase(opts.size as Size, { rebuild: false }, console.log)
+const fx = await makeFixtures(db.ds)
+const port = Number(process.env.BENCH_PORT_BASE ?? 5690) + 5
+const app = await startNodeServer('Lumenyard', 'scripts/bench/serveApp.ts', {
+  ...db.env, NODE_ENV: 'production', LUMENYARD_SECURE_COOKIES: 'false', LUMENYARD_LOG_LEVEL: 'warn', LUMENYARD_CLIENT_DIST: dist, LUMENYARD_HOST: '127.0.0.1', LUMENYARD_PORT: String(port),
+})
+const browser = await launchChromium()
+try {
+  const [cookie] = await signIn(app.url, [fx.admin], BENCH_PASSWORD)
+  const firsts: number[] = []
+  for (let run = 0; run < Number(opts.runs); run++) {
+    const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
+    const [name, value] = cookie.split('=')
+    await context.addCookies([{ name, value, url: app.url }])
+    const page = await context.newPage()
+    const cdp = await context.newCDPSession(page)
+    await cdp.send('Performance.enable')
+    await page.goto(app.url + opts.path, { waitUntil: 'commit' })
+    const first = Number(await (await page.waitForFunction(() => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false), null, { polling: 'raf', timeout: 60_000 })).jsonValue())
+    firsts.push(first)
+    const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] }
+    const metric = (n: string) => (metrics.find((m) => m.name === n)?.value ?? 0) * 1000
+    const entries = (await page.evaluate(() => [
+      ...performance.getEntriesByType('navigation').map((e) => ({ name: 'document', start: e.startTime, end: (e as PerformanceNavigationTiming).responseEnd, type: 'navigation', bytes: (e as PerformanceNavigationTiming).transferSize })),
+      ...(performance.getEntriesByType('resource') as PerformanceResourceTiming[]).map((e) => ({ name: new URL(e.name).pathname + new URL(e.name).search, start: e.startTime, end: e.responseEnd, type: e.initiatorType, bytes: e.encodedBodySize })),
+    ])) as Entry[]
+    const scripts = entries.filter((e) => /\.js$/.test(e.name))
+    console.log(`\nrun ${run + 1}: first rows ${first.toFixed(0)} ms; ${entries.length} requests, ${scripts.length} scripts, ${(scripts.reduce((s, e) => s + e.bytes, 0) / 1024).toFixed(0)} KB of script over the wire; ` +
+      `main thread: script ${metric('ScriptDuration').toFixed(0)} ms, tasks ${metric('TaskDuration').toFixed(0)} ms, layout ${metric('LayoutDuration').toFixed(0)} ms, style ${metric('RecalcStyleDuration').toFixed(0)} ms`)
+    if (run === Number(opts.runs) - 1 || process.env.TRACE_ALL) {
+      for (const e of entries.sort((a, b) => a.start - b.start)) {
+        console.log(`  ${e.start.toFixed(0).padStart(6)} → ${e.end.toFixed(0).padStart(6)} ms  ${(e.bytes / 1024).toFixed(1).padStart(7)} KB  ${e.type.padEnd(10)} ${e.name}`)
+      }
+    }
+    await context.close()
+  }
+  console.log(`\nfirst rows, median of ${firsts.length}: ${median(firsts).toFixed(0)} ms (${firsts.map((f) => f.toFixed(0)).join(', ')})`)
+} finally {
+  await browser.close()
+  await app.stop()
+  await db.ds.destroy()
+  if (db.prepared.server?.startedHere) await db.prepared.stop()
+}

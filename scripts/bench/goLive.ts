@@ -3,15 +3,19 @@
 // service), side by side with its floor: a bare bulk insert of the same 60,000 balances and 60,000 ledger
 // rows in one transaction. Rounds alternate; each starts from empty stock tables. Reports time and the
 // server process's peak resident memory (the parse child's own heap is capped at 128 MB apart from it).
+// Beside it, a bins import (one of the kinds of simple records, checked chunk by chunk) at two sizes, with the
+// same peak figure, to show that memory follows the chunk and the file rather than the tables.
 // In a database of its own on the test MariaDB instance. Not part of npm test.
 //
-//   tsx --tsconfig tsconfig.server.json scripts/bench/goLive.ts [--rounds=3]    (or npm run bench -- --only=golive)
+//   tsx --tsconfig tsconfig.server.json scripts/bench/goLive.ts [--rounds=3] [--bins-only] [--bins=2000,20000]
+//   (or npm run bench -- --only=golive)
 import { parseArgs } from 'node:util'
 import type { DataSource } from 'typeorm'
 import { loadConfig } from '../../server/config.js'
 import { createDataSource } from '../../server/db/dataSource.js'
 import { commitImport } from '../../server/services/imports/dataImports.js'
 import { openingStockImport } from '../../server/services/imports/openingStockImport.js'
+import { binsImport } from '../../server/services/imports/warehousesImport.js'
 import { prepareEnvironment } from '../environment.js'
 import { median, withPeak } from './stats.js'
 
@@ -110,6 +114,38 @@ export async function measureGoLive(ds: DataSource, rounds: number, log: (line: 
   return out
 }
 
+export interface BinsImportFigures { rows: number; ms: number; peakMb: number; bytes: number }
+export const BINS_IMPORT_SIZES = [2_000, 20_000]
+const BINS_WAREHOUSE = 'GLBINS'
+
+/** A bins file of `rows` storage bins (A-1-1 … in the default pattern) for the bench's own warehouse. */
+function binsSheet(rows: number): Buffer {
+  const lines = ['Warehouse,Bin,Kind,Active']
+  for (let k = 0; k < rows; k++) lines.push(`${BINS_WAREHOUSE},A-${Math.floor(k / 20) + 1}-${(k % 20) + 1},storage,yes`)
+  return Buffer.from(lines.join('\n') + '\n')
+}
+
+/**
+ * A bins import committed at each size, smallest first, from no bins in the bench's warehouse each time: the
+ * time and the peak resident memory of this process above its start (the parse child's heap is apart, capped).
+ */
+export async function measureBinsImport(ds: DataSource, sizes: readonly number[], log: (line: string) => void): Promise<BinsImportFigures[]> {
+  const [{ id: adminId }] = (await ds.query('SELECT id FROM users ORDER BY id LIMIT 1')) as { id: number }[]
+  await ds.query('INSERT IGNORE INTO warehouses (code, name) VALUES (?, ?)', [BINS_WAREHOUSE, 'Bench bins yard'])
+  const out: BinsImportFigures[] = []
+  for (const rows of [...sizes].sort((a, b) => a - b)) {
+    await ds.query('DELETE b FROM bins b JOIN warehouses w ON w.id = b.warehouse_id WHERE w.code = ?', [BINS_WAREHOUSE])
+    await ds.query("DELETE FROM data_imports WHERE kind = 'bins'")
+    const csv = binsSheet(rows)
+    const { ms, peakMb } = await withPeak(() => commitImport(ds, { userId: adminId }, binsImport, { kind: 'csv', filename: `bins-${rows}.csv`, data: csv }))
+    const [{ n }] = (await ds.query('SELECT COUNT(*) AS n FROM bins b JOIN warehouses w ON w.id = b.warehouse_id WHERE w.code = ?', [BINS_WAREHOUSE])) as { n: string }[]
+    if (Number(n) !== rows) throw new Error(`bins import wrote ${n} bins of ${rows}`)
+    log(`  bins import ${rows.toLocaleString('en-US')} rows (${(csv.length / 1048576).toFixed(2)} MB CSV): ${(ms / 1000).toFixed(1)} s, peak +${peakMb.toFixed(0)} MB`)
+    out.push({ rows, ms, peakMb, bytes: csv.length })
+  }
+  return out
+}
+
 export async function openGoLiveDatabase(): Promise<{ ds: DataSource; stopServer: () => Promise<void> }> {
   const prepared = await prepareEnvironment('bench', { database: GO_LIVE_DATABASE, reset: false })
   const ds = createDataSource(loadConfig({ ...process.env, ...prepared.env, LUMENYARD_DB_NAME: GO_LIVE_DATABASE, NODE_ENV: 'test' }))
@@ -121,10 +157,11 @@ export async function openGoLiveDatabase(): Promise<{ ds: DataSource; stopServer
 }
 
 if (import.meta.url === `file://${process.argv[1]}`) {
-  const { values } = parseArgs({ options: { rounds: { type: 'string', default: '3' } } })
+  const { values } = parseArgs({ options: { rounds: { type: 'string', default: '3' }, 'bins-only': { type: 'boolean', default: false }, bins: { type: 'string' } } })
   const { ds, stopServer } = await openGoLiveDatabase()
   try {
-    await measureGoLive(ds, Number(values.rounds), (l) => console.log(l))
+    if (!values['bins-only']) await measureGoLive(ds, Number(values.rounds), (l) => console.log(l))
+    await measureBinsImport(ds, values.bins ? values.bins.split(',').map(Number) : BINS_IMPORT_SIZES, (l) => console.log(l))
   } finally {
     await ds.destroy()
     await stopServer()

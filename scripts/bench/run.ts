@@ -18,7 +18,7 @@ import { dataRoot, projectRoot } from '../embeddedMariadb.js'
 import { firstGridRows, launchChromium, pageScripts } from './browser.js'
 import { BENCH_PASSWORD, makeFixtures, openDatabase, SCANNERS, SIZES, WRITERS, type BenchDatabase, type Fixtures, type Size } from './data.js'
 import { runLoad, signIn, type LoadResult, type LoadSpec } from './http.js'
-import { measureGoLive, openGoLiveDatabase } from './goLive.js'
+import { BINS_IMPORT_SIZES, measureBinsImport, measureGoLive, openGoLiveDatabase } from './goLive.js'
 import { LEDGER_SIZES, measureEverythingOut } from './everythingOut.js'
 import { measureReorder } from './reorder.js'
 import { measureTakeoffCompute } from './takeoffCompute.js'
@@ -291,6 +291,14 @@ async function goLiveMeasure(stops: (() => Promise<void>)[]): Promise<void> {
       lumenyard: { median: lm, runs: t.importMs, unit: 'ms', note: `peak +${median(t.importPeakMb).toFixed(0)} MB` },
       floor: { median: fm, runs: t.floorMs, unit: 'ms', note: `peak +${median(t.floorPeakMb).toFixed(0)} MB` },
       ratio: lm / fm, target: 'an afternoon (reported, not judged)', holds: null, loadAverage: loadAverage(),
+    })
+    log(`bins import at ${BINS_IMPORT_SIZES.map((n) => n.toLocaleString('en')).join(' and ')} rows: peak memory as the file grows`)
+    const [small, large] = await measureBinsImport(ds, BINS_IMPORT_SIZES, log)
+    record({
+      measure: `bins import, ${large.rows.toLocaleString('en')} rows against ${small.rows.toLocaleString('en')}`, size: '—',
+      lumenyard: { median: large.ms, runs: [large.ms], unit: 'ms', note: `peak +${large.peakMb.toFixed(0)} MB` },
+      floor: { median: small.ms, runs: [small.ms], unit: 'ms', note: `peak +${small.peakMb.toFixed(0)} MB (the smaller file)` },
+      ratio: large.ms / small.ms, target: 'memory bounded as the file grows (reported, not judged)', holds: null, loadAverage: loadAverage(),
     })
   } finally {
     await ds.destroy()

@@ -17,6 +17,12 @@ export async function inChunks<T>(values: readonly unknown[], read: (chunk: unkn
   return out
 }
 
+/** Which of `values` a table already holds in `column`, in upper case (codes match without regard to case). */
+export async function heldValues(em: EntityManager, table: string, column: string, values: readonly string[]): Promise<Set<string>> {
+  const rows = await inChunks(values, (c) => em.query(`SELECT ${column} AS v FROM ${table} WHERE ${column} IN (${marks(c.length)})`, c) as Promise<{ v: string }[]>)
+  return new Set(rows.map((r) => r.v.toUpperCase()))
+}
+
 /** The distinct non-blank values of one column. */
 export const distinctOf = (sheet: ParsedSheet, key: string) => [...new Set(sheet.rows.map((r) => cellText(r.values[key])).filter(Boolean))]
 

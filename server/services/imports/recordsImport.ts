@@ -1,6 +1,7 @@
 // The shape shared by the imports of simple records a business sets up once (warehouses, bins, price levels
 // and their breaks, vendors, reorder settings, lead times seen before): each row is read on its own against
-// lookups made once per file, a record already in Lumenyard or named twice in the file is refused on its row,
+// lookups made per chunk of the file (only what the chunk's rows name, never a whole table), a record already in
+// Lumenyard or named twice in the file is refused on its row,
 // the good rows are inserted carrying the import's id, and a reversal deletes them unless something made since
 // refers to one of them.
 import type { EntityManager } from 'typeorm'
@@ -11,7 +12,7 @@ import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { headerOf, parserProblems, repeatedRows } from './importFacts.js'
-import type { CellValue, ImportSpec, ParsedSheet } from './importTypes.js'
+import type { CellValue, ImportRow, ImportSpec, ParsedSheet } from './importTypes.js'
 
 export interface RowReader {
   /** A problem in one column (by the spec's key). */
@@ -23,8 +24,11 @@ export interface RowReader {
 export interface RecordsImport<W, F> {
   kind: DataImportKind
   spec: ImportSpec
-  /** Lookups read once per file, and the identities of the records already held. */
-  facts(em: EntityManager, sheet: ParsedSheet): Promise<F & { held: Set<string> }>
+  /**
+   * Lookups for one chunk of the file's rows (`part`), and which of the records those rows name are already held:
+   * read by what the rows name (IN lists), so the work and memory follow the chunk, not the size of the tables.
+   */
+  facts(em: EntityManager, part: ParsedSheet): Promise<F & { held: Set<string> }>
   /** One row read into what to write, or null (problems go through `reader`; null with none: nothing to write). */
   read(values: Record<string, CellValue>, facts: F, reader: RowReader): W | null
   /** What makes the record one of a kind ('HRY' or 'HRY A-01-1'), compared without regard to case. */
@@ -38,6 +42,9 @@ export interface RecordsImport<W, F> {
   /** Deletes the import's records (children first). */
   remove(em: EntityManager, importId: number): Promise<void>
 }
+
+/** Rows checked against the database at a time: each chunk's lookups name at most this many values per column. */
+export const CHECK_CHUNK_ROWS = 2_000
 
 export const chunked = async <T>(rows: readonly T[], size: number, each: (chunk: T[]) => Promise<unknown>) => {
   for (let i = 0; i < rows.length; i += size) await each(rows.slice(i, i + size))
@@ -60,10 +67,16 @@ export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinit
     kind: def.kind,
     spec: def.spec,
     async check(em, sheet) {
-      const facts = await def.facts(em, sheet)
       const problemsOf = parserProblems(sheet, col)
       const repeated = repeatedRows()
-      return sheet.rows.map((r): CheckedRow<W> => {
+      const checked: CheckedRow<W>[] = []
+      await chunked(sheet.rows, CHECK_CHUNK_ROWS, async (part) => {
+        const facts = await def.facts(em, { rows: part, issues: [] })
+        for (const r of part) checked.push(checkRow(r, facts))
+      })
+      return checked
+
+      function checkRow(r: ImportRow, facts: F & { held: Set<string> }): CheckedRow<W> {
         const errors = problemsOf(r.row)
         const reader: RowReader = {
           add: (key, p) => errors.push({ column: col(key), problem: p }),
@@ -85,7 +98,7 @@ export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinit
         }
         const shown = def.preview(write, r.values)
         return { preview: { row: r.row, label: shown.label, place: shown.place, qty: shown.qty ?? null, errors }, write: errors.length ? null : write }
-      })
+      }
     },
     write: (em, _actor, importId, rows) => def.insert(em, importId, rows),
     async reverse(em, _actor, importId) {

@@ -3,7 +3,7 @@
 // items so the items import finds them with their full details.
 import { vendorCreateSchema, type VendorCreateInput } from '../../../shared/schemas/purchasing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, filledCells } from './importFacts.js'
+import { cellText, distinctOf, filledCells, heldValues } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const VENDORS_SPEC: ImportSpec = {
@@ -37,9 +37,8 @@ export const VENDORS_GUIDE: Record<string, string> = {
 export const vendorsImport = recordsImport<VendorCreateInput, object>({
   kind: 'vendors',
   spec: VENDORS_SPEC,
-  async facts(em) {
-    const rows: { code: string }[] = await em.query('SELECT code FROM vendors')
-    return { held: new Set(rows.map((r) => r.code.toUpperCase())) }
+  async facts(em, part) {
+    return { held: await heldValues(em, 'vendors', 'code', distinctOf(part, 'code')) }
   },
   read(values, _facts, reader) {
     const parsed = vendorCreateSchema.safeParse(filledCells(values))

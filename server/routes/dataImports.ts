@@ -27,7 +27,7 @@ export default (ctx: AppContext) =>
       method: 'get', path: '/:kind/template.xlsx', access: admin,
       handler: async (req, res) => {
         const kind = kindOf(req.params.kind)
-        sendXlsx(res, `lumenyard-${kind.replace(/_/g, '-')}-template.xlsx`, await dataImportTemplate(kind))
+        sendXlsx(res, `lumenyard-${kind.replace(/_/g, '-')}-template.xlsx`, await dataImportTemplate(kind, req.user!.locale))
       },
     },
     {

@@ -36,7 +36,7 @@ export default (ctx: AppContext) =>
       method: 'get',
       path: '/import/template.xlsx',
       access: admin,
-      handler: async (_req, res) => sendXlsx(res, 'lumenyard-item-import-template.xlsx', await itemImportTemplate()),
+      handler: async (req, res) => sendXlsx(res, 'lumenyard-item-import-template.xlsx', await itemImportTemplate(req.user!.locale)),
     },
     {
       method: 'post',

@@ -5,6 +5,7 @@ import type { ItemFields, ItemListQuery } from '../../shared/schemas/catalog.js'
 import { listFilter, STOCK_JOIN } from './catalogQueries.js'
 import { columnOf, ITEM_COLUMNS, itemColumnAllowed, itemSheetColumns, MAX_IMPORT_ROWS, STOCK_SHEET_COLUMNS } from './catalogSheet.js'
 import { buildXlsx, sheet } from './exports/xlsxWriter.js'
+import { readmeWord, type ReadmeLang } from './exports/readmeWords.js'
 import { importGuideSheet } from './imports/importGuide.js'
 
 type ExportRow = Partial<Record<keyof ItemFields, string | number | boolean | null>> & { onHand: number; available: number }
@@ -31,13 +32,9 @@ export async function exportItems(ds: DataSource, q: ItemListQuery): Promise<Buf
   return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...itemSheetColumns<ExportRow>(), ...STOCK_SHEET_COLUMNS], rows }))
 }
 
-export async function itemImportTemplate(): Promise<Buffer> {
+export async function itemImportTemplate(lang: ReadmeLang = 'en'): Promise<Buffer> {
   return buildXlsx(
     sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [] }),
-    importGuideSheet(
-      ITEM_COLUMNS,
-      itemColumnAllowed,
-      `At most ${MAX_IMPORT_ROWS.toLocaleString('en-US')} rows per file. A row whose SKU exists updates that item.`,
-    ),
+    importGuideSheet(ITEM_COLUMNS, itemColumnAllowed, readmeWord(lang, 'itemTemplateRows', { max: MAX_IMPORT_ROWS.toLocaleString(lang === 'es' ? 'es-ES' : 'en-US') }), lang),
   )
 }

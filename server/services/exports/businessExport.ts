@@ -19,6 +19,7 @@ import type { ImportSpec } from '../imports/importTypes.js'
 import { buildXlsx, fieldsSheet, newStreamingBook, openSheet, sheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
 import { DAY, col, formatOf, oneOf, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
 import { LEFT_OUT, RECORD_PARTS } from './recordParts.js'
+import { readmeText, readmeWord, type ReadmeLang } from './readmeWords.js'
 import { OPEN_PO_STATUSES } from '../../entities/PurchaseOrder.js'
 import { USAGE_MOVE_TYPES } from '../reorder/usageQueries.js'
 import { ADJUSTMENT_REASONS, BIN_KINDS, MOVE_TYPES } from '../../../shared/catalog.js'
@@ -428,51 +429,50 @@ interface ReadmeColumn { file: string; sheet: string; column: string; meaning: s
  * The README workbook, the zip's first entry: on its first sheet one row per column of every file (what it
  * means, what it allows, which import reads it back), then the files, what is left out and why, and general notes.
  */
-export async function readmeWorkbook(parts: readonly ExportPart[], at: Date): Promise<Buffer> {
+export async function readmeWorkbook(parts: readonly ExportPart[], at: Date, lang: ReadmeLang = 'en'): Promise<Buffer> {
+  const w = (key: Parameters<typeof readmeWord>[1], values?: Record<string, string>) => readmeWord(lang, key, values)
+  const text = (english: string) => readmeText(lang, english)
   const rows: ReadmeColumn[] = parts.flatMap((p) => p.columns.map((c) => ({
-    file: `${p.file}.xlsx`, sheet: p.sheet, column: c.header, meaning: c.about, allowed: formatOf(c), readBy: c.readBy ? `yes: the ${c.readBy}` : 'no',
+    file: `${p.file}.xlsx`, sheet: p.sheet, column: c.header, meaning: text(c.about), allowed: formatOf(c, lang),
+    readBy: c.readBy ? w('yesThe', { name: text(c.readBy) }) : w('no'),
   })))
   const readers = (p: ExportPart) => [...new Set(p.columns.flatMap((c) => (c.readBy ? [c.readBy] : [])))]
   return buildXlsx(
     sheet<ReadmeColumn>({
-      name: 'Columns', title: 'Lumenyard everything out: columns',
+      name: w('columnsTab'), title: w('columnsTitle'),
       columns: [
-        { header: 'File', kind: 'text', width: 28, value: (r) => r.file },
-        { header: 'Sheet', kind: 'text', width: 22, value: (r) => r.sheet },
-        { header: 'Column', kind: 'text', width: 26, value: (r) => r.column },
-        { header: 'Meaning', kind: 'text', width: 60, value: (r) => r.meaning },
-        { header: 'Allowed values or format', kind: 'text', width: 60, value: (r) => r.allowed },
-        { header: 'Read by an import', kind: 'text', width: 34, value: (r) => r.readBy },
+        { header: w('file'), kind: 'text', width: 28, value: (r) => r.file },
+        { header: w('sheet'), kind: 'text', width: 22, value: (r) => r.sheet },
+        { header: w('column'), kind: 'text', width: 26, value: (r) => r.column },
+        { header: w('meaning'), kind: 'text', width: 60, value: (r) => r.meaning },
+        { header: w('allowed'), kind: 'text', width: 60, value: (r) => r.allowed },
+        { header: w('readBy'), kind: 'text', width: 34, value: (r) => r.readBy },
       ],
       rows,
     }),
     sheet<ExportPart>({
-      name: 'Files', title: 'Lumenyard everything out: files',
+      name: w('filesTab'), title: w('filesTitle'),
       columns: [
-        { header: 'File', kind: 'text', width: 28, value: (p) => `${p.file}.xlsx` },
-        { header: 'Sheet', kind: 'text', width: 22, value: (p) => p.sheet },
-        { header: 'What it holds', kind: 'text', width: 90, value: (p) => p.about },
-        { header: 'Read back by', kind: 'text', width: 34, value: (p) => readers(p).map((r) => `the ${r}`).join(', ') || 'no import' },
+        { header: w('file'), kind: 'text', width: 28, value: (p) => `${p.file}.xlsx` },
+        { header: w('sheet'), kind: 'text', width: 22, value: (p) => p.sheet },
+        { header: w('holds'), kind: 'text', width: 90, value: (p) => text(p.about) },
+        { header: w('readBackBy'), kind: 'text', width: 34, value: (p) => readers(p).map((r) => w('the', { name: text(r) })).join(', ') || w('noImport') },
       ],
       rows: parts,
     }),
     sheet<{ table: string; why: string }>({
-      name: 'Left out', title: 'Lumenyard everything out: left out on purpose',
+      name: w('leftOutTab'), title: w('leftOutTitle'),
       columns: [
-        { header: 'Table', kind: 'text', width: 26, value: (l) => l.table },
-        { header: 'Why it has no file', kind: 'text', width: 90, value: (l) => l.why },
+        { header: w('table'), kind: 'text', width: 26, value: (l) => l.table },
+        { header: w('why'), kind: 'text', width: 90, value: (l) => text(l.why) },
       ],
       rows: LEFT_OUT,
     }),
     fieldsSheet({
-      name: 'About', title: 'Lumenyard everything out',
+      name: w('aboutTab'), title: w('aboutTitle'),
       fields: [
-        { label: 'Written (UTC)', kind: 'datetime', value: at },
-        { label: 'Moment', kind: 'text', value: 'Every file was read from one moment of the database.' },
-        { label: 'Files', kind: 'text', value: 'Each .xlsx file holds one kind of record on one sheet; the first row names the columns.' },
-        { label: 'Reading back', kind: 'text', value: 'Files whose columns an import reads (the Columns sheet says which) can be brought into another Lumenyard as they are: Admin → Bring your data in, or Stock → Import items. Columns no import reads are skipped.' },
-        { label: 'Units', kind: 'text', value: 'Times are UTC; days are YYYY-MM-DD; quantities are in each item\'s stock unit; lengths in takeoffs are millimetres; costs and prices carry no currency sign.' },
-        { label: 'Not included', kind: 'text', value: 'No passwords, password hashes, sign-in sessions or card numbers.' },
+        { label: w('written'), kind: 'datetime', value: at },
+        ...(['moment', 'files', 'readingBack', 'units', 'notIncluded'] as const).map((k) => ({ label: w(`${k}Label`), kind: 'text' as const, value: w(k) })),
       ],
     }),
   )
@@ -513,7 +513,7 @@ async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, 
  * Streams the zip to `out`. Reads in one read-only transaction with a consistent snapshot, so every file
  * describes the same moment. Answers the rows written per file.
  */
-export async function streamBusinessExport(ds: DataSource, out: Writable, onPart?: (file: string, rows: number) => void): Promise<ExportCounts> {
+export async function streamBusinessExport(ds: DataSource, out: Writable, onPart?: (file: string, rows: number) => void, lang: ReadmeLang = 'en'): Promise<ExportCounts> {
   const at = new Date()
   const archive = new ZipArchive({ zlib: { level: 6 } })
   const failed = new Promise<never>((_resolve, reject) => archive.on('error', reject))
@@ -525,7 +525,7 @@ export async function streamBusinessExport(ds: DataSource, out: Writable, onPart
     await runner.connect()
     await runner.query('SET SESSION TRANSACTION ISOLATION LEVEL REPEATABLE READ')
     await runner.query('START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY')
-    archive.append(await readmeWorkbook(EXPORT_PARTS, at), { name: README_FILE, store: true })
+    archive.append(await readmeWorkbook(EXPORT_PARTS, at, lang), { name: README_FILE, store: true })
     for (const part of EXPORT_PARTS) {
       counts[part.file] = await Promise.race([writePart(runner, archive, out, part), failed])
       onPart?.(part.file, counts[part.file])
@@ -545,13 +545,13 @@ export async function streamBusinessExport(ds: DataSource, out: Writable, onPart
 
 export const businessExportName = (at = new Date()) => `lumenyard-everything-${at.toISOString().slice(0, 10)}.zip`
 
-/** The download, and an audit entry for it (who, when, the rows of each file, and whether it finished). */
-export async function exportBusiness(ds: DataSource, actor: AuditActor, out: Writable): Promise<ExportCounts> {
+/** The download with its README in `lang`, and an audit entry for it (who, when, the rows of each file, and whether it finished). */
+export async function exportBusiness(ds: DataSource, actor: AuditActor, out: Writable, lang: ReadmeLang = 'en'): Promise<ExportCounts> {
   const started = Date.now()
   let counts: ExportCounts = {}
   let finished = false
   try {
-    counts = await streamBusinessExport(ds, out, (file, rows) => (counts[file] = rows))
+    counts = await streamBusinessExport(ds, out, (file, rows) => (counts[file] = rows), lang)
     finished = true
     return counts
   } finally {

@@ -1,6 +1,7 @@
 // The kinds of import of a business's own data, and the blank template of each (its columns, and a
 // guide sheet saying what each column takes).
 import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
+import { readmeWord, type ReadmeLang } from '../exports/readmeWords.js'
 import { buildXlsx, sheet } from '../exports/xlsxWriter.js'
 import type { DataImportDefinition } from './dataImports.js'
 import { importGuideSheet } from './importGuide.js'
@@ -29,7 +30,8 @@ export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>>
   lead_times: leadTimesImport as DataImportDefinition<unknown>,
 }
 
-const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string> }> = {
+/** Each kind's template tab and what its guide sheet says each column takes (in English; Spanish through readmeWords). */
+export const DATA_IMPORT_GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string> }> = {
   opening_stock: { tab: 'Opening stock', guide: OPENING_STOCK_GUIDE },
   usage_history: { tab: 'Usage history', guide: USAGE_HISTORY_GUIDE },
   accounts: { tab: 'Accounts', guide: ACCOUNTS_GUIDE },
@@ -44,12 +46,11 @@ const GUIDES: Record<DataImportKind, { tab: string; guide: Record<string, string
   lead_times: { tab: 'Lead times', guide: LEAD_TIMES_GUIDE },
 }
 
-export async function dataImportTemplate(kind: DataImportKind): Promise<Buffer> {
+export async function dataImportTemplate(kind: DataImportKind, lang: ReadmeLang = 'en'): Promise<Buffer> {
   const { spec } = DATA_IMPORTS[kind]
-  const { tab, guide } = GUIDES[kind]
+  const { tab, guide } = DATA_IMPORT_GUIDES[kind]
   return buildXlsx(
     sheet<never>({ name: tab, columns: spec.columns.map((c) => ({ header: c.header, kind: 'text', value: () => null })), rows: [] }),
-    importGuideSheet(spec.columns, (c) => guide[c.key] ?? '',
-      `At most ${spec.maxRows.toLocaleString('en-US')} rows per file. The same file imported twice changes nothing the second time.`),
+    importGuideSheet(spec.columns, (c) => guide[c.key] ?? '', readmeWord(lang, 'templateRows', { max: spec.maxRows.toLocaleString(lang === 'es' ? 'es-ES' : 'en-US') }), lang),
   )
 }

@@ -8,6 +8,7 @@ import type { PickListStatus } from './picking.js'
 import { HANDOVER_KINDS, type HandoverKind, type HandoverStatus } from '../sales/handoverTerms.js'
 import type { SalesOrderStatus } from '../sales/salesOrderTerms.js'
 import type { SalesOrderLineView } from './salesOrders.js'
+import { newestPageQuery } from './newestPage.js'
 import { idSchema, qtySchema } from './stock.js'
 
 const optionalText = (max: number) => z.preprocess((v) => (v === '' || v === undefined ? null : v), z.string().trim().max(max).nullable()).default(null)
@@ -32,7 +33,12 @@ export const ticketSignSchema = z.object({
 })
 export type TicketSignInput = z.infer<typeof ticketSignSchema>
 
-export const ticketQuerySchema = z.object({ status: z.enum(['open', 'signed', 'voided', 'all']).default('open') })
+export const ticketQuerySchema = z.object({
+  status: z.enum(['open', 'signed', 'voided', 'all']).default('open'),
+  /** Part of the ticket's number, its order's number or the contractor's name. */
+  q: z.string().trim().max(80).optional(),
+  ...newestPageQuery,
+})
 
 export interface TicketLineView {
   id: number

@@ -6,6 +6,7 @@ import type { DocumentTax } from '../pricing/salesTax.js'
 import type { PriceExplanation } from '../pricing/sellingPrice.js'
 import type { QuoteStatus } from '../sales/quoteStatus.js'
 import { isoDaySchema, priceSchema } from './pricing.js'
+import { newestPageQuery } from './newestPage.js'
 import { idSchema } from './stock.js'
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
@@ -63,6 +64,7 @@ export const quoteQuerySchema = z.object({
   status: z.enum(['draft', 'offered', 'taken', 'lapsed', 'lost', 'replaced', 'open', 'all']).default('open'),
   customerId: idSchema.optional(),
   q: z.string().trim().max(80).optional(),
+  ...newestPageQuery,
 })
 
 export interface QuoteLineView {

@@ -4,6 +4,7 @@ import { z } from 'zod'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import type { PaymentMethod, PaymentStatus, SalesOrderStatus } from '../sales/salesOrderTerms.js'
 import { percentSchema, priceSchema } from './pricing.js'
+import { newestPageQuery } from './newestPage.js'
 import { idSchema } from './stock.js'
 
 export const salesOrderFromQuoteSchema = z.object({ quoteId: idSchema })
@@ -16,6 +17,7 @@ export const salesOrderQuerySchema = z.object({
   /** Orders waiting on a special order (the buyer's view). */
   specialOnly: z.enum(['true', 'false']).optional().transform((v) => v === 'true'),
   q: z.string().trim().max(80).optional(),
+  ...newestPageQuery,
 })
 
 /** A payment taken by hand at the counter. A cheque carries its number. */
@@ -105,9 +107,13 @@ export interface SalesOrderLineView {
   tax: string
   madeToOrder: boolean
   qtyReserved: number
+  /** Still to pick on the order's open pick list (its hold passed to the list). */
+  qtyOnPickList: number
   qtyPicked: number
   qtyHandedOver: number
   qtyReturned: number
+  /** Of a stocked line, what nothing holds yet: not at the counter, not on a pick list, not picked, not cancelled. */
+  qtyShort: number
   /** The special order's PO line (made-to-order lines), its PO number and status. */
   poLineId: number | null
   poId: number | null

@@ -75,7 +75,7 @@ export const counterApi = {
 
 export const salesApi = {
   // Quotes
-  quotes: (q: { status?: string } = {}) => api.get(`/quotes${toQuery(q)}`, { answer: z.array(quoteSummaryShape) }),
+  quotes: (q: { status?: string; q?: string; limit?: number; beforeId?: number } = {}) => api.get(`/quotes${toQuery(q)}`, { answer: z.array(quoteSummaryShape) }),
   quote: (id: Id) => api.get(`/quotes/${id}`, { answer: quoteDetailShape }),
   createQuote: (body: BodyOf<typeof quoteCreateSchema>) => api.post('/quotes', body, { answer: quoteDetailShape }),
   saveQuote: (id: Id, body: BodyOf<typeof quoteUpdateSchema>) => api.put(`/quotes/${id}`, body, { answer: quoteDetailShape }),
@@ -85,7 +85,7 @@ export const salesApi = {
   quotePdf: (id: Id) => download(`/quotes/${id}/pdf`),
 
   // Sales orders; state changes carry the submission's Idempotency-Key
-  orders: (q: { status?: string } = {}) => api.get(`/sales-orders${toQuery(q)}`, { answer: z.array(salesOrderSummaryShape) }),
+  orders: (q: { status?: string; q?: string; limit?: number; beforeId?: number } = {}) => api.get(`/sales-orders${toQuery(q)}`, { answer: z.array(salesOrderSummaryShape) }),
   order: (id: Id) => api.get(`/sales-orders/${id}`, { answer: salesOrderDetailShape }),
   takeQuote: (body: BodyOf<typeof salesOrderFromQuoteSchema>, key: string) => api.post('/sales-orders', body, { ...keyed(key), answer: createdShape }),
   recordPayment: (id: Id, body: BodyOf<typeof handPaymentSchema>, key: string) =>

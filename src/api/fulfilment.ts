@@ -5,6 +5,7 @@ import { readyMailShape, restCancelledShape, sentToPickShape, ticketMadeShape, t
 import { orderFulfilmentShape, ticketDetailShape, ticketSummaryShape } from '@shared/schemas/answers/handover'
 import type { TicketCreateInput, TicketSignInput } from '@shared/schemas/handover'
 import { api } from './client'
+import { toQuery } from './stock'
 import { keyed } from './idempotencyKey'
 
 export const fulfilmentApi = {
@@ -14,7 +15,7 @@ export const fulfilmentApi = {
   /** The ready e-mail once more after a failure (the server sends it once). */
   sendReadyAgain: (orderId: number) => api.post(`/sales-orders/${orderId}/ready-mail`, {}, { answer: readyMailShape }),
   createTicket: (orderId: number, body: TicketCreateInput, key: string) => api.post(`/sales-orders/${orderId}/tickets`, body, { ...keyed(key), answer: ticketMadeShape }),
-  tickets: (status: 'open' | 'signed' | 'voided' | 'all' = 'open') => api.get(`/handover-tickets?status=${status}`, { answer: z.array(ticketSummaryShape) }),
+  tickets: (q: { status: 'open' | 'signed' | 'voided' | 'all'; q?: string; limit?: number; beforeId?: number }) => api.get(`/handover-tickets${toQuery(q)}`, { answer: z.array(ticketSummaryShape) }),
   ticket: (id: number) => api.get(`/handover-tickets/${id}`, { answer: ticketDetailShape }),
   sign: (id: number, body: TicketSignInput, key: string) => api.post(`/handover-tickets/${id}/sign`, body, { ...keyed(key), answer: ticketSignedShape }),
   voidTicket: (id: number, key: string) => api.post(`/handover-tickets/${id}/void`, {}, { ...keyed(key), answer: ticketVoidedShape }),

@@ -87,6 +87,11 @@ describe('the pick list starts from the order', () => {
     expect(await heldAs('sales_order', fx.block.id)).toBe(0)
     // common practice: a balance's reserved equals the sum of its reservation rows
     expect(await ledgerMismatches(h.ds, [fx.block.id, fx.spacers.id])).toEqual([])
+    // The order's own view: what went to the list is still held for it, not missing. Of the 120 blocks ordered,
+    // 100 are on the list and 20 are short (no more on the shelf); the 300 spacers are all on the list.
+    const lines = (await counter.get(`/api/sales-orders/${orderId}`)).body.lines as Record<string, number>[]
+    expect(lines.find((l) => l.itemId === fx.block.id)).toMatchObject({ qty: 120, qtyReserved: 0, qtyOnPickList: 100, qtyShort: 20 })
+    expect(lines.find((l) => l.itemId === fx.spacers.id)).toMatchObject({ qty: 300, qtyReserved: 0, qtyOnPickList: 300, qtyShort: 0 })
   })
 
   it('refuses a second list while the first is open, and the buyer or the warehouse cannot send one', async () => {

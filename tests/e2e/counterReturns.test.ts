@@ -94,6 +94,33 @@ describe('returns at the counter', () => {
     }
   })
 
+  it('the tax tab: every rate field is named, a bad rate is refused beside its own field, and nothing is saved', { timeout: 45_000 }, async () => {
+    const { page, context } = await h.newPage()
+    try {
+      await h.signIn(page, 'admin')
+      const [w]: { code: string }[] = await h.ds.query('SELECT code FROM warehouses WHERE id = ?', [fx.warehouseId])
+      const rateNow = async () => (await h.ds.query('SELECT rate_percent AS r FROM sales_tax_rates WHERE warehouse_id = ?', [fx.warehouseId]))[0].r
+      await page.goto('/admin/selling-prices')
+      await page.getByRole('tab', { name: 'Sales tax by location' }).click()
+      const rate = page.locator(`[data-test="tax-rate-${w.code}"]`)
+      await poll(() => rate.inputValue()).toBe('8.2500')
+      // source: WCAG 2.2 SC 1.3.1 Info and Relationships and SC 4.1.2 Name, Role, Value (axe-core rule "label")
+      const findings = blocking(await axeFindings(page, 'selling prices, tax tab'))
+      expect(findings, describeFindings(findings)).toEqual([])
+      expect(await rate.getAttribute('aria-label')).toContain(w.code)
+      // Each bad figure gets its own words beside the field, not only a notice naming no field (common practice).
+      for (const bad of ['1e9', '-5', '1,5', '7 3/4']) {
+        await rate.fill(bad)
+        await page.locator(`[data-test="tax-save-${w.code}"]`).click()
+        await poll(() => page.locator(`[data-test="tax-rate-problem-${w.code}"]`).textContent()).toMatch(/30 %/)
+        expect(await rate.getAttribute('aria-invalid')).toBe('true')
+      }
+      expect(await rateNow()).toBe('8.2500')
+    } finally {
+      await context.close()
+    }
+  })
+
   it('in English at 412 px: 24 blocks back into C-01-2, lot BACK-1, as credit; confirmed twice, taken once', { timeout: 90_000 }, async () => {
     await admin.patch('/api/sales-settings').set(CSRF).send({ returnWindowDays: 30, restockingPercent: '15' })
     const { page, context } = await h.newPage({ viewport: PHONE })

@@ -18,7 +18,7 @@ import { startSmtpFake, type SmtpFake } from '../../server/fakes/smtpFake.js'
 import { CSRF, TEST_PASSWORD } from '../support/apiHarness.js'
 import { axeFindings, blocking, describeFindings } from '../support/axeCheck.js'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
-import { sidewaysScroll } from '../support/layoutChecks.js'
+import { regionsScrolledSideways, sidewaysScroll } from '../support/layoutChecks.js'
 import { pdfText } from '../support/pdfText.js'
 import { countRows, ledgerMismatches, receive, signedInAgent } from '../support/pickFixtures.js'
 import { billFor, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
@@ -174,6 +174,29 @@ describe('from the handheld pick to a signed pickup ticket', () => {
       const findings = blocking(await axeFindings(page, 'handover ticket'))
       expect(findings, describeFindings(findings)).toEqual([])
       await h.screenshot(page, 'order-ticket-phone-es')
+    } finally {
+      await context.close()
+    }
+  })
+
+  it('the sales order page at 412 px: its lines and how far each got read as cards, none in a region scrolled sideways', { timeout: 30_000 }, async () => {
+    const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
+    try {
+      await h.signIn(page, 'counter')
+      await page.goto(`/counter/sales-orders/${orderId}`)
+      await page.locator('[data-test="fulfilment-lines"]').waitFor()
+      // Nothing the clerk reads off the order (a quantity, what is held, what was handed over) sits in a column
+      // scrolled out of the phone's width.
+      // source: WCAG 2.2 SC 1.4.10 Reflow (content reads without scrolling in two directions at 320 CSS px)
+      expect(await regionsScrolledSideways(page)).toEqual([])
+      expect((await sidewaysScroll(page)).by).toBe(0)
+      for (const cell of ['[data-test="order-line-qty"]', '[data-test="fulfilment-handed"]']) {
+        const box = (await page.locator(cell).first().boundingBox())!
+        expect(box.x + box.width, cell).toBeLessThanOrEqual(412)
+      }
+      // Each figure still carries its column's name, as the card's label.
+      expect(await page.locator('[data-test="fulfilment-handed"]').first().evaluate((el) => getComputedStyle(el, '::before').content)).toMatch(/Handed over/i)
+      await h.screenshot(page, 'order-phone-cards')
     } finally {
       await context.close()
     }

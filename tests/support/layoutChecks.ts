@@ -47,6 +47,22 @@ export const cutOffInside = (page: Page, selector: string) =>
     return out.slice(0, 4)
   })
 
+/**
+ * The boxes inside `selector` that scroll sideways by themselves because their content is wider than they are
+ * (a table's region), each with its label and by how many pixels. `sidewaysScroll` doesn't count these, yet on a
+ * phone a column scrolled out of such a box is as far out of sight as one cut off.
+ */
+export const regionsScrolledSideways = (page: Page, selector = '#app') =>
+  page.locator(selector).first().evaluate((root) => {
+    const out: string[] = []
+    for (const el of Array.from(root.querySelectorAll('*'))) {
+      if (!['auto', 'scroll'].includes(getComputedStyle(el).overflowX) || !(el as HTMLElement).checkVisibility?.()) continue
+      const by = el.scrollWidth - el.clientWidth
+      if (by > 1) out.push(`${el.getAttribute('aria-label') ?? el.tagName.toLowerCase() + '.' + String(el.className).split(' ')[0]} by ${by}px`)
+    }
+    return out
+  })
+
 export interface TargetSizes {
   controls: number
   under44: string[]

@@ -3,6 +3,7 @@
 import type { DataSource, EntityManager } from 'typeorm'
 import { quoteStatusOn, type QuoteStatus } from '../../../shared/sales/quoteStatus.js'
 import type { DocumentTax } from '../../../shared/pricing/salesTax.js'
+import type { NewestPage } from '../../../shared/schemas/newestPage.js'
 import type { QuoteDetail, QuoteLineView, QuoteSummary } from '../../../shared/schemas/quotes.js'
 import { MoneyDecimal } from '../../../shared/money.js'
 import { AppError } from '../../errors.js'
@@ -42,7 +43,7 @@ function toSummary(r: Row, today: string): QuoteSummary {
   }
 }
 
-export async function listQuotes(ds: DataSource, query: { status: string; customerId?: number; q?: string }): Promise<QuoteSummary[]> {
+export async function listQuotes(ds: DataSource, query: { status: string; customerId?: number; q?: string } & NewestPage): Promise<QuoteSummary[]> {
   const today = todayIso()
   const where: string[] = []
   const params: unknown[] = []
@@ -56,7 +57,8 @@ export async function listQuotes(ds: DataSource, query: { status: string; custom
   else if (query.status !== 'all') add('q.status = ?', query.status)
   if (query.customerId) add('q.customer_id = ?', query.customerId)
   if (query.q) add('(q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(3).fill(containsPattern(query.q)))
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY q.id DESC LIMIT 500`, params)
+  if (query.beforeId) add('q.id < ?', query.beforeId)
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY q.id DESC LIMIT ?`, [...params, query.limit])
   return rows.map((r) => toSummary(r, today))
 }
 

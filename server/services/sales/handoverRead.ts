@@ -6,8 +6,10 @@ import { lineHandling } from '../../../shared/picking/handling.js'
 import type { HandoverKind, HandoverStatus } from '../../../shared/sales/handoverTerms.js'
 import type { SalesOrderStatus } from '../../../shared/sales/salesOrderTerms.js'
 import type { FulfilmentLine, OrderFulfilment, TicketDetail, TicketSummary } from '../../../shared/schemas/handover.js'
+import { NEWEST_PAGE_MAX, type NewestPage } from '../../../shared/schemas/newestPage.js'
 import type { PickListStatus } from '../../../shared/schemas/picking.js'
 import { Decimal } from 'decimal.js'
+import { containsPattern } from '../../db/likePattern.js'
 import { AppError } from '../../errors.js'
 import { pickNumber } from '../picking/pickListLocks.js'
 
@@ -27,12 +29,20 @@ function toSummary(r: Row): TicketSummary {
   }
 }
 
-export async function listTickets(ds: DataSource, query: { status: string; orderId?: number }): Promise<TicketSummary[]> {
+export async function listTickets(ds: DataSource, query: { status: string; orderId?: number; q?: string } & Partial<NewestPage>): Promise<TicketSummary[]> {
   const where: string[] = []
   const params: unknown[] = []
-  if (query.status !== 'all') { where.push('t.status = ?'); params.push(query.status) }
-  if (query.orderId) { where.push('t.sales_order_id = ?'); params.push(query.orderId) }
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY t.id DESC LIMIT 300`, params)
+  const add = (sql: string, ...values: unknown[]) => {
+    where.push(sql)
+    params.push(...values)
+  }
+  if (query.status !== 'all') add('t.status = ?', query.status)
+  if (query.orderId) add('t.sales_order_id = ?', query.orderId)
+  if (query.q) add('(t.number LIKE ? OR o.number LIKE ? OR c.name LIKE ?)', ...Array(3).fill(containsPattern(query.q)))
+  if (query.beforeId) add('t.id < ?', query.beforeId)
+  // An order's own tickets come whole; the dispatch list a page at a time.
+  const page = query.orderId ? { sql: '', params: [] } : { sql: 'LIMIT ?', params: [query.limit ?? NEWEST_PAGE_MAX] }
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY t.id DESC ${page.sql}`, [...params, ...page.params])
   return rows.map(toSummary)
 }
 

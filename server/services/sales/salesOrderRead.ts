@@ -4,6 +4,7 @@ import type { DataSource } from 'typeorm'
 import { compareMoney, roundMoney, subtractMoney } from '../../../shared/money.js'
 import type { PaymentMethod, PaymentStatus, SalesOrderStatus } from '../../../shared/sales/salesOrderTerms.js'
 import { balanceDue } from '../../../shared/sales/salesOrderMoney.js'
+import type { NewestPage } from '../../../shared/schemas/newestPage.js'
 import type { SalesOrderDetail, SalesOrderSummary } from '../../../shared/schemas/salesOrders.js'
 import { containsPattern } from '../../db/likePattern.js'
 import { AppError } from '../../errors.js'
@@ -37,7 +38,7 @@ function toSummary(r: Row): SalesOrderSummary {
   }
 }
 
-export async function listSalesOrders(ds: DataSource, query: { status: string; customerId?: number; specialOnly?: boolean; q?: string }): Promise<SalesOrderSummary[]> {
+export async function listSalesOrders(ds: DataSource, query: { status: string; customerId?: number; specialOnly?: boolean; q?: string } & NewestPage): Promise<SalesOrderSummary[]> {
   const where: string[] = []
   const params: unknown[] = []
   const add = (sql: string, ...values: unknown[]) => {
@@ -49,7 +50,8 @@ export async function listSalesOrders(ds: DataSource, query: { status: string; c
   if (query.customerId) add('o.customer_id = ?', query.customerId)
   if (query.specialOnly) add('EXISTS (SELECT 1 FROM sales_order_lines sl WHERE sl.sales_order_id = o.id AND sl.made_to_order = 1)')
   if (query.q) add('(o.number LIKE ? OR q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(4).fill(containsPattern(query.q)))
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT 500`, params)
+  if (query.beforeId) add('o.id < ?', query.beforeId)
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT ?`, [...params, query.limit])
   return rows.map(toSummary)
 }
 
@@ -57,7 +59,9 @@ export async function salesOrderDetail(ds: DataSource, id: number): Promise<Sale
   const [r]: Row[] = await ds.query(`${SUMMARY_SQL} WHERE o.id = ?`, [id])
   if (!r) throw AppError.notFound('sales_order_not_found', 'That sales order was not found.')
   const lines: Row[] = await ds.query(
-    `SELECT l.*, i.sku, po.id AS po_id, po.number AS po_number, po.status AS po_status
+    `SELECT l.*, i.sku, po.id AS po_id, po.number AS po_number, po.status AS po_status,
+            (SELECT COALESCE(SUM(pll.qty - pll.confirmed_qty - pll.short_qty), 0) FROM pick_list_lines pll JOIN pick_lists pl ON pl.id = pll.pick_list_id
+              WHERE pll.sales_order_line_id = l.id AND pl.status IN ('draft', 'released', 'picking')) AS on_pick
        FROM sales_order_lines l JOIN items i ON i.id = l.item_id
        LEFT JOIN purchase_order_lines pl ON pl.id = l.po_line_id LEFT JOIN purchase_orders po ON po.id = pl.po_id
       WHERE l.sales_order_id = ? ORDER BY l.line_no`,
@@ -69,6 +73,7 @@ export async function salesOrderDetail(ds: DataSource, id: number): Promise<Sale
     [id],
   )
   const summary = toSummary(r)
+  const open = summary.status === 'booked' || summary.status === 'ready'
   return {
     ...summary,
     subtotal: String(r.subtotal), taxAmount: String(r.taxAmount), depositPercent: String(r.depositPercent),
@@ -77,7 +82,11 @@ export async function salesOrderDetail(ds: DataSource, id: number): Promise<Sale
     lines: lines.map((l) => ({
       id: Number(l.id), lineNo: Number(l.line_no), itemId: Number(l.item_id), sku: String(l.sku), description: String(l.description),
       qty: Number(l.qty), unitPrice: String(l.unit_price), extension: String(l.extension), tax: String(l.tax), madeToOrder: Number(l.made_to_order) === 1,
-      qtyReserved: Number(l.qty_reserved), qtyPicked: Number(l.qty_picked), qtyHandedOver: Number(l.qty_handed_over), qtyReturned: Number(l.qty_returned),
+      qtyReserved: Number(l.qty_reserved), qtyOnPickList: Number(l.on_pick), qtyPicked: Number(l.qty_picked), qtyHandedOver: Number(l.qty_handed_over), qtyReturned: Number(l.qty_returned),
+      // Units on the order's pick list are held there, not missing: only what nothing holds is short.
+      qtyShort: open && Number(l.made_to_order) !== 1
+        ? Math.max(0, Number(l.qty) - Number(l.qty_cancelled) - Number(l.qty_reserved) - Number(l.on_pick) - Number(l.qty_picked))
+        : 0,
       poLineId: l.po_line_id === null ? null : Number(l.po_line_id), poId: l.po_id === null ? null : Number(l.po_id), poNumber: str(l.po_number), poStatus: str(l.po_status),
     })),
     payments: payments.map((p) => ({

@@ -9,6 +9,8 @@ export default {
   delete: 'Delete',
   confirm: 'Confirm',
   search: 'Search',
+  /** Below a list shown a page at a time, newest first. */
+  showOlder: 'Show older',
   loading: 'Loading…',
   retry: 'Try again',
   yes: 'Yes',

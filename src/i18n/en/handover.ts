@@ -28,7 +28,7 @@ export default {
     cancelRest: 'Take the rest off',
     cancelRestAsk: 'Take the {qty} of {sku} still to come off this order? What is held for it goes back to stock.',
   },
-  tickets: { title: 'Handover tickets', none: 'No handover tickets yet.', units: '{qty} units', show: 'Show tickets', all: 'All' },
+  tickets: { title: 'Handover tickets', none: 'No handover tickets yet.', units: '{qty} units', show: 'Show tickets', all: 'All', find: 'Find a ticket', findHint: 'Ticket or order number, or account', noneFound: 'No ticket matches “{q}”.' },
   new: {
     pickup: 'Pickup ticket',
     delivery: 'Delivery ticket',

@@ -124,6 +124,9 @@ export default {
     depositDue: 'Deposit due',
     empty: 'No open quotes.',
     emptyOrders: 'No open sales orders.',
+    find: 'Find a quote or order',
+    findHint: 'Number, account or job',
+    noneFound: 'Nothing matches “{q}”.',
     statusName: { draft: 'Draft', offered: 'Offered', taken: 'Taken', lapsed: 'Lapsed', lost: 'Lost', replaced: 'Replaced' },
   },
   quote: {

@@ -9,6 +9,8 @@ export default {
   create: 'Crear',
   delete: 'Eliminar',
   confirm: 'Confirmar',
+  /** Below a list shown a page at a time, newest first. */
+  showOlder: 'Mostrar anteriores',
   search: 'Buscar',
   loading: 'Cargando…',
   retry: 'Intentar de nuevo',

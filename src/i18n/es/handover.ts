@@ -28,7 +28,7 @@ export default {
     cancelRest: 'Quitar lo pendiente',
     cancelRestAsk: '¿Quitar de este pedido las {qty} de {sku} que faltan? Lo reservado para ellas vuelve a las existencias.',
   },
-  tickets: { title: 'Vales de entrega', none: 'Aún no hay vales de entrega.', units: '{qty} unidades', show: 'Mostrar vales', all: 'Todos' },
+  tickets: { title: 'Vales de entrega', none: 'Aún no hay vales de entrega.', units: '{qty} unidades', show: 'Mostrar vales', all: 'Todos', find: 'Buscar un vale', findHint: 'Número de vale o de pedido, o cuenta', noneFound: 'Ningún vale coincide con «{q}».' },
   new: {
     pickup: 'Vale de retiro',
     delivery: 'Vale de entrega',

@@ -124,6 +124,9 @@ export default {
     depositDue: 'Anticipo pendiente',
     empty: 'No hay cotizaciones abiertas.',
     emptyOrders: 'No hay pedidos de venta abiertos.',
+    find: 'Buscar una cotización o un pedido',
+    findHint: 'Número, cuenta u obra',
+    noneFound: 'Nada coincide con «{q}».',
     statusName: { draft: 'Borrador', offered: 'Ofrecida', taken: 'Aceptada', lapsed: 'Vencida', lost: 'Perdida', replaced: 'Sustituida' },
   },
   quote: {

@@ -73,31 +73,59 @@ function mapHeader(header: RawCell[], spec: ImportSpec): { ok: true; map: (Impor
   return { ok: true, map }
 }
 
-/** Header in the first non-empty record, then typed rows with their spreadsheet row numbers. */
-export function rowsFromRecords(records: { row: number; cells: RawCell[] }[], spec: ImportSpec): ParseOutcome {
-  const start = records.findIndex((r) => r.cells.some((c) => c !== null && String(c).trim() !== ''))
-  if (start === -1) return { ok: false, code: 'sheet_empty', message: 'The file holds no rows.' }
-  const header = mapHeader(records[start].cells, spec)
-  if (!header.ok) return { ok: false, code: 'sheet_columns', params: { missing: header.missing, unknown: header.unknown }, message: header.message }
+type SheetRecord = { row: number; cells: RawCell[] }
+type Refusal = Extract<ParseOutcome, { ok: false }>
+
+/**
+ * Types records one at a time as they are read, in sheet order: the header is the first non-empty record, then
+ * each later non-empty record becomes a typed row with its issues. The raw cells of a record are not kept, so a
+ * streamed sheet is held once (typed), not twice. `add` answers a refusal that stops the reading (more rows than
+ * the spec allows), else null; `done` answers the outcome (a header that does not fit is answered there, after
+ * the reading's own refusals, as when the whole sheet was read first).
+ */
+export function rowTyper(spec: ImportSpec): { add(record: SheetRecord): Refusal | null; done(): ParseOutcome } {
+  let header: ReturnType<typeof mapHeader> | null = null
   const rows: ImportRow[] = []
   const issues: RowIssue[] = []
-  for (const record of records.slice(start + 1)) {
-    if (!record.cells.some((c) => c !== null && String(c).trim() !== '')) continue
-    if (rows.length >= spec.maxRows) return tooManyRows(spec)
-    const values: Record<string, CellValue> = {}
-    header.map.forEach((column, i) => {
-      if (!column) return
-      const typed = typedCell(column, record.cells[i] ?? null)
-      if ('issue' in typed) issues.push({ row: record.row, column: column.key, problem: typed.issue })
-      // A blank yes/no cell says nothing: the record keeps its value (a new one takes the default).
-      else if (!(column.kind === 'boolean' && typed.value === null)) values[column.key] = typed.value
-    })
-    rows.push({ row: record.row, values })
+  return {
+    add(record) {
+      if (!record.cells.some((c) => c !== null && String(c).trim() !== '')) return null
+      if (!header) {
+        header = mapHeader(record.cells, spec)
+        return null
+      }
+      if (!header.ok) return null
+      if (rows.length >= spec.maxRows) return tooManyRows(spec)
+      const values: Record<string, CellValue> = {}
+      header.map.forEach((column, i) => {
+        if (!column) return
+        const typed = typedCell(column, record.cells[i] ?? null)
+        if ('issue' in typed) issues.push({ row: record.row, column: column.key, problem: typed.issue })
+        // A blank yes/no cell says nothing: the record keeps its value (a new one takes the default).
+        else if (!(column.kind === 'boolean' && typed.value === null)) values[column.key] = typed.value
+      })
+      rows.push({ row: record.row, values })
+      return null
+    },
+    done() {
+      if (!header) return { ok: false, code: 'sheet_empty', message: 'The file holds no rows.' }
+      if (!header.ok) return { ok: false, code: 'sheet_columns', params: { missing: header.missing, unknown: header.unknown }, message: header.message }
+      return { ok: true, sheet: { rows, issues } }
+    },
   }
-  return { ok: true, sheet: { rows, issues } }
 }
 
-const tooManyRows = (spec: ImportSpec): ParseOutcome => ({
+/** Header in the first non-empty record, then typed rows with their spreadsheet row numbers. */
+export function rowsFromRecords(records: readonly SheetRecord[], spec: ImportSpec): ParseOutcome {
+  const typer = rowTyper(spec)
+  for (const record of records) {
+    const refused = typer.add(record)
+    if (refused) return refused
+  }
+  return typer.done()
+}
+
+const tooManyRows = (spec: ImportSpec): Refusal => ({
   ok: false, code: 'sheet_too_many_rows', params: { max: spec.maxRows }, message: `The file has more than ${spec.maxRows.toLocaleString('en-US')} rows; split it into smaller files.`,
 })
 
@@ -113,15 +141,18 @@ export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec): Promise
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(data)]), {
     sharedStrings: 'cache', hyperlinks: 'ignore', styles: 'ignore', worksheets: 'emit', entries: 'ignore',
   })
-  const records: { row: number; cells: RawCell[] }[] = []
+  // Each row is typed as the streaming reader hands it over; only the typed rows are kept.
+  const typer = rowTyper(spec)
+  let read = 0
   for await (const sheet of reader) {
     for await (const row of sheet) {
       const values = row.values as unknown[]
       if (values.length - 1 > spec.maxColumns) return { ok: false, code: 'sheet_too_many_columns', params: { row: row.number, max: spec.maxColumns }, message: `Row ${row.number} has more than ${spec.maxColumns} columns.` }
-      records.push({ row: row.number, cells: values.slice(1).map(plainCell) })
-      if (records.length > spec.maxRows + 1) return tooManyRows(spec)
+      if (++read > spec.maxRows + 1) return tooManyRows(spec)
+      const refused = typer.add({ row: row.number, cells: values.slice(1).map(plainCell) })
+      if (refused) return refused
     }
     break // the first sheet only
   }
-  return rowsFromRecords(records, spec)
+  return typer.done()
 }

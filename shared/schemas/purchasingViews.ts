@@ -191,7 +191,8 @@ export interface SuggestionView {
   /** The vendor item the line would be ordered as; null when the vendor has no price for the item. */
   packQty: number | null
   packs: number | null
-  unitCost?: string | null
+  /** Only buyers and admins read suggestions, so the vendor's price is always there (null without one). */
+  unitCost: string | null
 }
 
 export interface JobPurchaseLine {

@@ -1,10 +1,11 @@
 // Every JSON read the server routes, with the schema the client checks its answer with (src/api/*.ts) and a
 // real address for it in the demo scenario: ids are taken from the lists, never assumed. Used by
-// answerSchemas.test.ts; a new GET route fails there until it has a row here or is a file download.
+// answerSchemas.test.ts, which reads each address as every role the role matrix lets read it; a new GET route
+// fails there until it has a row here or is a file download.
 import { randomUUID } from 'node:crypto'
 import { z } from 'zod'
 import type { Role } from '../../shared/roles.js'
-import { signedInAnswerSchema } from '../../shared/schemas/auth.js'
+import { sessionAnswerSchema, signedInAnswerSchema, userSummarySchema } from '../../shared/schemas/auth.js'
 import { auditTrailPageShape } from '../../shared/schemas/answers/audit.js'
 import { itemDetailShape } from '../../shared/schemas/answers/catalog.js'
 import { bomRecordShape, jobDetailShape, ruleRecordShape, takeoffRecordShape } from '../../shared/schemas/answers/counter.js'
@@ -31,25 +32,22 @@ import {
   transferViewShape,
 } from '../../shared/schemas/answers/stockViews.js'
 import { todayAnswerShape } from '../../shared/schemas/answers/today.js'
-import { customerSummarySchema, roleItemRecordSchema } from '../../shared/schemas/counter.js'
+import { itemPageSchema, lotRowsSchema } from '../../shared/schemas/catalog.js'
+import { counterCatalogSchema, customerSummarySchema, jobSummarySchema, roleItemRecordSchema } from '../../shared/schemas/counter.js'
+import { setupStateSchema } from '../../shared/schemas/setup.js'
+import { placesSchema } from '../../shared/schemas/stockViews.js'
+import { warehouseDetailSchema, warehouseRowSchema } from '../../shared/schemas/warehouses.js'
 import { siteFiguresSchema, materialFamilySchema } from '../../shared/schemas/takeoff.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
 
 export interface Read {
-  /** The route as the role matrix names it. */
+  /** The route as the role matrix names it: its row there says which roles read it. */
   route: string
-  role: Role
   path: string
   schema: z.ZodType
   /** The answer (or this list in it) must hold rows, so the check is not made on an empty list. */
   nonEmpty?: true | string
 }
-
-/** Reads checked by the first tests of answerSchemas.test.ts. */
-export const FIRST_CHECKED = [
-  'GET /api/session', 'GET /api/warehouses', 'GET /api/warehouses/:id', 'GET /api/stock/places', 'GET /api/takeoffs/catalog',
-  'GET /api/setup', 'GET /api/users', 'GET /api/items', 'GET /api/items/:id/lots', 'GET /api/customers', 'GET /api/jobs', 'GET /api/jobs/:id',
-]
 
 /** Reads whose answer another API test parses with the same schema, on a record only it can make (a card payment
  * needs the payment provider's fake), by route and the test that does it. */
@@ -128,6 +126,7 @@ async function readsOf(h: ApiHarness): Promise<Read[]> {
   const hry = warehouses.find((w) => w.code === 'HRY')!.id
   const items = (await admin.get('/api/items?pageSize=50&q=')).body.rows as { id: number; sku: string; matchLot: boolean; onHand: number }[]
   const stocked = items.find((i) => i.onHand > 0)!
+  const lotted = items.find((i) => i.matchLot && i.onHand > 0) ?? stocked
   const job = await firstId(h, 'counter', '/api/jobs?limit=200')
   const jobDetail = (await admin.get(`/api/jobs/${job}`)).body as { takeoffList: { id: number }[]; boms: { id: number }[] }
   let takeoff = jobDetail.takeoffList[0]?.id
@@ -148,83 +147,90 @@ async function readsOf(h: ApiHarness): Promise<Read[]> {
   const period = `from=2026-01-01&to=2026-03-31&tz=${TZ}`
 
   const reads: Read[] = [
-    { route: 'GET /api/profile', role: 'warehouse', path: '/api/profile', schema: signedInAnswerSchema },
-    { route: 'GET /api/items/:id', role: 'admin', path: `/api/items/${stocked.id}`, schema: itemDetailShape },
-    { route: 'GET /api/items/:id', role: 'viewer', path: `/api/items/${stocked.id}`, schema: itemDetailShape },
-    { route: 'GET /api/imports', role: 'admin', path: '/api/imports', schema: z.array(dataImportRecordShape) },
-    { route: 'GET /api/stock/levels', role: 'warehouse', path: `/api/stock/levels?warehouseId=${hry}`, schema: stockLevelsAnswerShape, nonEmpty: 'rows' },
-    { route: 'GET /api/stock/bin-contents', role: 'warehouse', path: `/api/stock/bin-contents?warehouseId=${hry}`, schema: binContentsAnswerShape },
-    { route: 'GET /api/stock/lot-levels', role: 'warehouse', path: `/api/stock/lot-levels?itemId=${stocked.id}`, schema: lotLevelsAnswerShape },
-    { route: 'GET /api/stock/ledger', role: 'buyer', path: '/api/stock/ledger?pageSize=50', schema: ledgerPageShape, nonEmpty: 'rows' },
-    { route: 'GET /api/stock/transfers', role: 'warehouse', path: '/api/stock/transfers', schema: z.array(transferViewShape) },
-    { route: 'GET /api/stock/minimums', role: 'warehouse', path: `/api/stock/minimums?warehouseId=${hry}`, schema: z.array(minimumRowShape) },
-    { route: 'GET /api/stock/item-options', role: 'warehouse', path: '/api/stock/item-options?q=', schema: z.array(itemOptionShape), nonEmpty: true },
-    { route: 'GET /api/stock/lookup', role: 'warehouse', path: `/api/stock/lookup?kind=sku&code=${encodeURIComponent(stocked.sku)}&warehouseId=${hry}`, schema: lookupAnswerShape },
-    { route: 'GET /api/pricing/levels', role: 'counter', path: '/api/pricing/levels', schema: z.array(priceLevelSummaryShape) },
-    { route: 'GET /api/pricing/rules', role: 'counter', path: '/api/pricing/rules', schema: z.array(priceRuleSummaryShape) },
-    { route: 'GET /api/pricing/tax-rates', role: 'counter', path: '/api/pricing/tax-rates', schema: z.array(taxRateSummaryShape) },
-    { route: 'GET /api/pricing/accounts', role: 'counter', path: '/api/pricing/accounts', schema: z.array(customerTermsSummaryShape) },
-    { route: 'GET /api/pricing/accounts/:customerId', role: 'counter', path: `/api/pricing/accounts/${customer}`, schema: customerTermsSummaryShape },
-    { route: 'GET /api/quotes', role: 'counter', path: '/api/quotes?status=all', schema: z.array(quoteSummaryShape), nonEmpty: true },
-    { route: 'GET /api/quotes/:id', role: 'counter', path: `/api/quotes/${quote}`, schema: quoteDetailShape },
-    { route: 'GET /api/sales-orders', role: 'counter', path: '/api/sales-orders?status=all', schema: z.array(salesOrderSummaryShape), nonEmpty: true },
-    { route: 'GET /api/sales-orders/:id', role: 'counter', path: `/api/sales-orders/${order}`, schema: salesOrderDetailShape },
-    { route: 'GET /api/sales-orders/:id/payments', role: 'counter', path: `/api/sales-orders/${order}/payments`, schema: z.array(paymentViewShape) },
-    { route: 'GET /api/sales-orders/:id/fulfilment', role: 'counter', path: `/api/sales-orders/${order}/fulfilment`, schema: orderFulfilmentShape },
-    { route: 'GET /api/sales-orders/:id/returns', role: 'counter', path: `/api/sales-orders/${order}/returns`, schema: z.array(salesReturnViewShape) },
-    { route: 'GET /api/handover-tickets', role: 'counter', path: '/api/handover-tickets?status=all', schema: z.array(ticketSummaryShape), nonEmpty: true },
-    { route: 'GET /api/handover-tickets/:id', role: 'counter', path: `/api/handover-tickets/${ticket}`, schema: ticketDetailShape },
-    { route: 'GET /api/sales-settings', role: 'counter', path: '/api/sales-settings', schema: salesSettingsShape },
-    { route: 'GET /api/customers/:id', role: 'counter', path: `/api/customers/${customer}`, schema: customerSummarySchema },
-    { route: 'GET /api/takeoffs/:id', role: 'counter', path: `/api/takeoffs/${takeoff}`, schema: takeoffRecordShape },
-    { route: 'GET /api/boms/:id', role: 'counter', path: `/api/boms/${bom}`, schema: bomRecordShape },
-    { route: 'GET /api/jobs/:id', role: 'counter', path: `/api/jobs/${job}`, schema: jobDetailShape },
-    { route: 'GET /api/takeoff-settings/rules', role: 'counter', path: '/api/takeoff-settings/rules', schema: z.array(ruleRecordShape), nonEmpty: true },
-    { route: 'GET /api/takeoff-settings/waste', role: 'counter', path: '/api/takeoff-settings/waste', schema: z.record(materialFamilySchema, z.number()) },
-    { route: 'GET /api/takeoff-settings/figures', role: 'counter', path: '/api/takeoff-settings/figures', schema: siteFiguresSchema },
-    { route: 'GET /api/takeoff-settings/role-items', role: 'counter', path: '/api/takeoff-settings/role-items', schema: z.array(roleItemRecordSchema), nonEmpty: true },
-    { route: 'GET /api/reorder/suggestions', role: 'buyer', path: `/api/reorder/suggestions?tz=${TZ}`, schema: suggestionListShape, nonEmpty: 'lines' },
-    { route: 'GET /api/reorder/choices', role: 'buyer', path: '/api/reorder/choices', schema: reorderChoicesShape },
-    { route: 'GET /api/reorder/lines/:itemId/:warehouseId', role: 'buyer', path: `/api/reorder/lines/${line.itemId}/${line.warehouseId}`, schema: reorderLineDetailShape },
-    { route: 'GET /api/reorder/abc', role: 'buyer', path: '/api/reorder/abc', schema: abcParetoShape },
-    { route: 'GET /api/reorder/policies', role: 'buyer', path: '/api/reorder/policies', schema: z.array(reorderPolicyViewShape) },
-    { route: 'GET /api/pick-lists', role: 'warehouse', path: '/api/pick-lists?status=all', schema: z.array(pickListSummaryShape), nonEmpty: true },
-    { route: 'GET /api/pick-lists/boms', role: 'counter', path: '/api/pick-lists/boms', schema: z.array(bomForPickingShape) },
-    { route: 'GET /api/pick-lists/:id', role: 'warehouse', path: `/api/pick-lists/${pickList}`, schema: pickListDetailShape },
-    { route: 'GET /api/picking/warehouses', role: 'warehouse', path: '/api/picking/warehouses', schema: z.array(walkWarehouseShape), nonEmpty: true },
-    { route: 'GET /api/vendors', role: 'buyer', path: '/api/vendors', schema: z.array(vendorViewShape), nonEmpty: true },
-    { route: 'GET /api/vendors/:id', role: 'buyer', path: `/api/vendors/${vendor}`, schema: vendorViewShape },
-    { route: 'GET /api/vendors/:id/items', role: 'buyer', path: `/api/vendors/${vendor}/items`, schema: z.array(vendorItemViewShape), nonEmpty: true },
-    { route: 'GET /api/purchase-orders', role: 'buyer', path: '/api/purchase-orders', schema: z.array(poSummaryShape), nonEmpty: true },
-    { route: 'GET /api/purchase-orders', role: 'warehouse', path: '/api/purchase-orders', schema: z.array(poSummaryShape) },
-    { route: 'GET /api/purchase-orders/suggestions', role: 'buyer', path: '/api/purchase-orders/suggestions', schema: z.array(suggestionViewShape) },
-    { route: 'GET /api/purchase-orders/special-orders', role: 'buyer', path: '/api/purchase-orders/special-orders', schema: z.array(specialOrderJobShape) },
-    { route: 'GET /api/purchase-orders/:id', role: 'buyer', path: `/api/purchase-orders/${po}`, schema: poDetailShape },
-    { route: 'GET /api/purchase-orders/:id', role: 'warehouse', path: `/api/purchase-orders/${po}`, schema: poDetailShape },
-    { route: 'GET /api/purchase-orders/:id/receiving', role: 'warehouse', path: `/api/purchase-orders/${po}/receiving`, schema: receivingContextShape },
-    { route: 'GET /api/purchase-orders/:id/receipts', role: 'warehouse', path: `/api/purchase-orders/${po}/receipts`, schema: z.array(receiptViewShape) },
-    { route: 'GET /api/purchasing/items', role: 'buyer', path: '/api/purchasing/items?q=', schema: z.array(itemChoiceShape) },
-    { route: 'GET /api/purchasing/warehouses', role: 'buyer', path: '/api/purchasing/warehouses', schema: z.array(warehouseChoiceShape), nonEmpty: true },
-    { route: 'GET /api/purchasing/settings', role: 'admin', path: '/api/purchasing/settings', schema: purchasingSettingsShape },
-    { route: 'GET /api/purchasing/company', role: 'admin', path: '/api/purchasing/company', schema: companyProfileShape },
-    { route: 'GET /api/purchasing/outbox', role: 'admin', path: '/api/purchasing/outbox', schema: z.array(outboxSummaryShape) },
-    { route: 'GET /api/jobs/:id/purchase-lines', role: 'buyer', path: `/api/jobs/${job}/purchase-lines`, schema: jobPurchaseLinesShape },
-    { route: 'GET /api/devices/outbox', role: 'warehouse', path: `/api/devices/outbox?warehouseId=${hry}`, schema: deviceOutboxSummaryShape },
-    { route: 'GET /api/counts', role: 'warehouse', path: '/api/counts?status=all', schema: z.array(countSummaryShape), nonEmpty: true },
-    { route: 'GET /api/counts/due', role: 'warehouse', path: `/api/counts/due?warehouseId=${hry}`, schema: countDuePlanShape },
-    { route: 'GET /api/counts/settings', role: 'warehouse', path: '/api/counts/settings', schema: countSettingsShape },
-    { route: 'GET /api/counts/history', role: 'buyer', path: `/api/counts/history?itemId=${stocked.id}&warehouseId=${hry}`, schema: z.array(countHistoryRowShape) },
-    { route: 'GET /api/counts/accuracy', role: 'buyer', path: `/api/counts/accuracy?from=2026-01-01&to=2026-12-31&warehouseId=${hry}`, schema: z.array(countAccuracyRowShape) },
-    { route: 'GET /api/counts/:id', role: 'warehouse', path: `/api/counts/${count}`, schema: countDetailShape },
-    { route: 'GET /api/counts/:id/handheld', role: 'warehouse', path: `/api/counts/${count}/handheld`, schema: handheldCountShape },
-    { route: 'GET /api/audit', role: 'admin', path: '/api/audit', schema: auditTrailPageShape, nonEmpty: 'entries' },
-    { route: 'GET /api/today', role: 'warehouse', path: `/api/today?tz=${TZ}`, schema: todayAnswerShape },
-    { route: 'GET /api/today', role: 'admin', path: `/api/today?tz=${TZ}`, schema: todayAnswerShape },
-    { route: 'GET /api/reports/stock-valuation', role: 'buyer', path: `/api/reports/stock-valuation?tz=${TZ}`, schema: valuationReportShape },
-    { route: 'GET /api/reports/turns', role: 'buyer', path: `/api/reports/turns?${period}`, schema: turnsReportShape },
-    { route: 'GET /api/reports/usage', role: 'buyer', path: `/api/reports/usage?${period}`, schema: usageReportShape },
-    { route: 'GET /api/reports/vendors', role: 'buyer', path: `/api/reports/vendors?${period}`, schema: vendorReportShape },
-    { route: 'GET /api/reports/dead-stock', role: 'buyer', path: '/api/reports/dead-stock', schema: deadStockReportShape },
+    { route: 'GET /api/session', path: '/api/session', schema: sessionAnswerSchema },
+    { route: 'GET /api/warehouses', path: '/api/warehouses', schema: z.array(warehouseRowSchema), nonEmpty: true },
+    { route: 'GET /api/warehouses/:id', path: `/api/warehouses/${hry}`, schema: warehouseDetailSchema, nonEmpty: 'bins' },
+    { route: 'GET /api/stock/places', path: '/api/stock/places', schema: placesSchema, nonEmpty: true },
+    { route: 'GET /api/takeoffs/catalog', path: '/api/takeoffs/catalog', schema: counterCatalogSchema, nonEmpty: 'blocks' },
+    { route: 'GET /api/setup', path: '/api/setup', schema: setupStateSchema },
+    { route: 'GET /api/users', path: '/api/users', schema: z.array(userSummarySchema), nonEmpty: true },
+    { route: 'GET /api/items', path: '/api/items?pageSize=50', schema: itemPageSchema, nonEmpty: 'rows' },
+    { route: 'GET /api/items/:id/lots', path: `/api/items/${lotted.id}/lots`, schema: lotRowsSchema, nonEmpty: true },
+    { route: 'GET /api/customers', path: '/api/customers?active=all', schema: z.array(customerSummarySchema), nonEmpty: true },
+    { route: 'GET /api/jobs', path: '/api/jobs?limit=200', schema: z.array(jobSummarySchema), nonEmpty: true },
+    { route: 'GET /api/profile', path: '/api/profile', schema: signedInAnswerSchema },
+    { route: 'GET /api/items/:id', path: `/api/items/${stocked.id}`, schema: itemDetailShape },
+    { route: 'GET /api/imports', path: '/api/imports', schema: z.array(dataImportRecordShape) },
+    { route: 'GET /api/stock/levels', path: `/api/stock/levels?warehouseId=${hry}`, schema: stockLevelsAnswerShape, nonEmpty: 'rows' },
+    { route: 'GET /api/stock/bin-contents', path: `/api/stock/bin-contents?warehouseId=${hry}`, schema: binContentsAnswerShape },
+    { route: 'GET /api/stock/lot-levels', path: `/api/stock/lot-levels?itemId=${stocked.id}`, schema: lotLevelsAnswerShape },
+    { route: 'GET /api/stock/ledger', path: '/api/stock/ledger?pageSize=50', schema: ledgerPageShape, nonEmpty: 'rows' },
+    { route: 'GET /api/stock/transfers', path: '/api/stock/transfers', schema: z.array(transferViewShape) },
+    { route: 'GET /api/stock/minimums', path: `/api/stock/minimums?warehouseId=${hry}`, schema: z.array(minimumRowShape) },
+    { route: 'GET /api/stock/item-options', path: '/api/stock/item-options?q=', schema: z.array(itemOptionShape), nonEmpty: true },
+    { route: 'GET /api/stock/lookup', path: `/api/stock/lookup?kind=sku&code=${encodeURIComponent(stocked.sku)}&warehouseId=${hry}`, schema: lookupAnswerShape },
+    { route: 'GET /api/pricing/levels', path: '/api/pricing/levels', schema: z.array(priceLevelSummaryShape) },
+    { route: 'GET /api/pricing/rules', path: '/api/pricing/rules', schema: z.array(priceRuleSummaryShape) },
+    { route: 'GET /api/pricing/tax-rates', path: '/api/pricing/tax-rates', schema: z.array(taxRateSummaryShape) },
+    { route: 'GET /api/pricing/accounts', path: '/api/pricing/accounts', schema: z.array(customerTermsSummaryShape) },
+    { route: 'GET /api/pricing/accounts/:customerId', path: `/api/pricing/accounts/${customer}`, schema: customerTermsSummaryShape },
+    { route: 'GET /api/quotes', path: '/api/quotes?status=all', schema: z.array(quoteSummaryShape), nonEmpty: true },
+    { route: 'GET /api/quotes/:id', path: `/api/quotes/${quote}`, schema: quoteDetailShape },
+    { route: 'GET /api/sales-orders', path: '/api/sales-orders?status=all', schema: z.array(salesOrderSummaryShape), nonEmpty: true },
+    { route: 'GET /api/sales-orders/:id', path: `/api/sales-orders/${order}`, schema: salesOrderDetailShape },
+    { route: 'GET /api/sales-orders/:id/payments', path: `/api/sales-orders/${order}/payments`, schema: z.array(paymentViewShape) },
+    { route: 'GET /api/sales-orders/:id/fulfilment', path: `/api/sales-orders/${order}/fulfilment`, schema: orderFulfilmentShape },
+    { route: 'GET /api/sales-orders/:id/returns', path: `/api/sales-orders/${order}/returns`, schema: z.array(salesReturnViewShape) },
+    { route: 'GET /api/handover-tickets', path: '/api/handover-tickets?status=all', schema: z.array(ticketSummaryShape), nonEmpty: true },
+    { route: 'GET /api/handover-tickets/:id', path: `/api/handover-tickets/${ticket}`, schema: ticketDetailShape },
+    { route: 'GET /api/sales-settings', path: '/api/sales-settings', schema: salesSettingsShape },
+    { route: 'GET /api/customers/:id', path: `/api/customers/${customer}`, schema: customerSummarySchema },
+    { route: 'GET /api/takeoffs/:id', path: `/api/takeoffs/${takeoff}`, schema: takeoffRecordShape },
+    { route: 'GET /api/boms/:id', path: `/api/boms/${bom}`, schema: bomRecordShape },
+    { route: 'GET /api/jobs/:id', path: `/api/jobs/${job}`, schema: jobDetailShape },
+    { route: 'GET /api/takeoff-settings/rules', path: '/api/takeoff-settings/rules', schema: z.array(ruleRecordShape), nonEmpty: true },
+    { route: 'GET /api/takeoff-settings/waste', path: '/api/takeoff-settings/waste', schema: z.record(materialFamilySchema, z.number()) },
+    { route: 'GET /api/takeoff-settings/figures', path: '/api/takeoff-settings/figures', schema: siteFiguresSchema },
+    { route: 'GET /api/takeoff-settings/role-items', path: '/api/takeoff-settings/role-items', schema: z.array(roleItemRecordSchema), nonEmpty: true },
+    { route: 'GET /api/reorder/suggestions', path: `/api/reorder/suggestions?tz=${TZ}`, schema: suggestionListShape, nonEmpty: 'lines' },
+    { route: 'GET /api/reorder/choices', path: '/api/reorder/choices', schema: reorderChoicesShape },
+    { route: 'GET /api/reorder/lines/:itemId/:warehouseId', path: `/api/reorder/lines/${line.itemId}/${line.warehouseId}`, schema: reorderLineDetailShape },
+    { route: 'GET /api/reorder/abc', path: '/api/reorder/abc', schema: abcParetoShape },
+    { route: 'GET /api/reorder/policies', path: '/api/reorder/policies', schema: z.array(reorderPolicyViewShape) },
+    { route: 'GET /api/pick-lists', path: '/api/pick-lists?status=all', schema: z.array(pickListSummaryShape), nonEmpty: true },
+    { route: 'GET /api/pick-lists/boms', path: '/api/pick-lists/boms', schema: z.array(bomForPickingShape) },
+    { route: 'GET /api/pick-lists/:id', path: `/api/pick-lists/${pickList}`, schema: pickListDetailShape },
+    { route: 'GET /api/picking/warehouses', path: '/api/picking/warehouses', schema: z.array(walkWarehouseShape), nonEmpty: true },
+    { route: 'GET /api/vendors', path: '/api/vendors', schema: z.array(vendorViewShape), nonEmpty: true },
+    { route: 'GET /api/vendors/:id', path: `/api/vendors/${vendor}`, schema: vendorViewShape },
+    { route: 'GET /api/vendors/:id/items', path: `/api/vendors/${vendor}/items`, schema: z.array(vendorItemViewShape), nonEmpty: true },
+    { route: 'GET /api/purchase-orders', path: '/api/purchase-orders', schema: z.array(poSummaryShape), nonEmpty: true },
+    { route: 'GET /api/purchase-orders/suggestions', path: '/api/purchase-orders/suggestions', schema: z.array(suggestionViewShape) },
+    { route: 'GET /api/purchase-orders/special-orders', path: '/api/purchase-orders/special-orders', schema: z.array(specialOrderJobShape) },
+    { route: 'GET /api/purchase-orders/:id', path: `/api/purchase-orders/${po}`, schema: poDetailShape },
+    { route: 'GET /api/purchase-orders/:id/receiving', path: `/api/purchase-orders/${po}/receiving`, schema: receivingContextShape },
+    { route: 'GET /api/purchase-orders/:id/receipts', path: `/api/purchase-orders/${po}/receipts`, schema: z.array(receiptViewShape) },
+    { route: 'GET /api/purchasing/items', path: '/api/purchasing/items?q=', schema: z.array(itemChoiceShape) },
+    { route: 'GET /api/purchasing/warehouses', path: '/api/purchasing/warehouses', schema: z.array(warehouseChoiceShape), nonEmpty: true },
+    { route: 'GET /api/purchasing/settings', path: '/api/purchasing/settings', schema: purchasingSettingsShape },
+    { route: 'GET /api/purchasing/company', path: '/api/purchasing/company', schema: companyProfileShape },
+    { route: 'GET /api/purchasing/outbox', path: '/api/purchasing/outbox', schema: z.array(outboxSummaryShape) },
+    { route: 'GET /api/jobs/:id/purchase-lines', path: `/api/jobs/${job}/purchase-lines`, schema: jobPurchaseLinesShape },
+    { route: 'GET /api/devices/outbox', path: `/api/devices/outbox?warehouseId=${hry}`, schema: deviceOutboxSummaryShape },
+    { route: 'GET /api/counts', path: '/api/counts?status=all', schema: z.array(countSummaryShape), nonEmpty: true },
+    { route: 'GET /api/counts/due', path: `/api/counts/due?warehouseId=${hry}`, schema: countDuePlanShape },
+    { route: 'GET /api/counts/settings', path: '/api/counts/settings', schema: countSettingsShape },
+    { route: 'GET /api/counts/history', path: `/api/counts/history?itemId=${stocked.id}&warehouseId=${hry}`, schema: z.array(countHistoryRowShape) },
+    { route: 'GET /api/counts/accuracy', path: `/api/counts/accuracy?from=2026-01-01&to=2026-12-31&warehouseId=${hry}`, schema: z.array(countAccuracyRowShape) },
+    { route: 'GET /api/counts/:id', path: `/api/counts/${count}`, schema: countDetailShape },
+    { route: 'GET /api/counts/:id/handheld', path: `/api/counts/${count}/handheld`, schema: handheldCountShape },
+    { route: 'GET /api/audit', path: '/api/audit', schema: auditTrailPageShape, nonEmpty: 'entries' },
+    { route: 'GET /api/today', path: `/api/today?tz=${TZ}`, schema: todayAnswerShape },
+    { route: 'GET /api/reports/stock-valuation', path: `/api/reports/stock-valuation?tz=${TZ}`, schema: valuationReportShape },
+    { route: 'GET /api/reports/turns', path: `/api/reports/turns?${period}`, schema: turnsReportShape },
+    { route: 'GET /api/reports/usage', path: `/api/reports/usage?${period}`, schema: usageReportShape },
+    { route: 'GET /api/reports/vendors', path: `/api/reports/vendors?${period}`, schema: vendorReportShape },
+    { route: 'GET /api/reports/dead-stock', path: '/api/reports/dead-stock', schema: deadStockReportShape },
   ]
   return reads
 }

@@ -9,7 +9,7 @@ import { CSRF, TEST_PASSWORD, startApiHarness, type ApiHarness } from '../suppor
 import { createPurchasingFixture, suggestion } from '../support/purchasingFixtures.js'
 import { download, loadWorkbook, workbookTexts } from '../support/downloads.js'
 import { pdfText } from '../support/pdfText.js'
-import { designedAccess } from './roleMatrix.js'
+import { COST_ROLES, costKeysIn, designedAccess } from './roleMatrix.js'
 
 let h: ApiHarness
 beforeAll(async () => {
@@ -75,26 +75,8 @@ describe('role matrix', () => {
   })
 })
 
-// The cost rule as DEVELOPERS.md states it ("Who sees costs"): buyers and admins always, the warehouse
-// crew only while the admin setting allows it, counter and viewer never. The names below are the API's
-// documented cost fields and export headers, written out here rather than taken from the server.
-const COST_ROLES: readonly Role[] = ['admin', 'buyer']
-const COST_KEYS = [
-  'cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder',
-  'valueOff', 'valueNet', 'varianceValue', 'stockValue', 'usageValue', 'beginValue', 'endValue', 'averageValue',
-]
+// The export headers that show a cost (the JSON fields are COST_KEYS in roleMatrix.ts).
 const COST_HEADERS = ['Cost', 'Unit cost', 'Value', 'Line total', 'Total', 'Cost of what was used', 'Average stock value']
-
-function costKeysIn(body: unknown, found: string[] = []): string[] {
-  if (Array.isArray(body)) for (const v of body) costKeysIn(v, found)
-  else if (body && typeof body === 'object' && !Buffer.isBuffer(body)) {
-    for (const [k, v] of Object.entries(body)) {
-      if (COST_KEYS.includes(k)) found.push(k)
-      costKeysIn(v, found)
-    }
-  }
-  return found
-}
 
 /** The costs an answer carries: cost fields of JSON, cost headers of a workbook or of a PDF's table. */
 async function costsAnswered(agent: supertest.Agent, path: string): Promise<{ status: number; costs: string[] }> {

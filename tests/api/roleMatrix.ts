@@ -20,6 +20,27 @@ export interface MatrixRow {
   costs?: string
 }
 
+// The cost rule as DEVELOPERS.md states it ("Who sees costs"): buyers and admins always, the warehouse
+// crew only while the admin setting allows it (off unless a test turns it on), counter and viewer never. The
+// names below are the API's documented cost fields, written out here rather than taken from the server.
+export const COST_ROLES: readonly Role[] = ['admin', 'buyer']
+export const COST_KEYS: readonly string[] = [
+  'cost', 'avgCost', 'unitCost', 'previousCost', 'lineTotal', 'orderTotal', 'moveValue', 'annualValue', 'annualValueTotal', 'costPerOrder',
+  'valueOff', 'valueNet', 'varianceValue', 'stockValue', 'usageValue', 'beginValue', 'endValue', 'averageValue', 'spendValue',
+]
+
+/** The cost fields an answer carries, however deep they sit. */
+export function costKeysIn(body: unknown, found: string[] = []): string[] {
+  if (Array.isArray(body)) for (const v of body) costKeysIn(v, found)
+  else if (body && typeof body === 'object' && !Buffer.isBuffer(body)) {
+    for (const [k, v] of Object.entries(body)) {
+      if (COST_KEYS.includes(k)) found.push(k)
+      costKeysIn(v, found)
+    }
+  }
+  return found
+}
+
 export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/health': { access: 'public' },
   'POST /api/session': { access: 'public' },

@@ -147,7 +147,7 @@ export const suggestionViewShape = z.object({
   acceptedAt: z.string(),
   packQty: z.number().nullable(),
   packs: z.number().nullable(),
-  unitCost: withheldCost(z.string().nullable())
+  unitCost: z.string().nullable()
 }) satisfies z.ZodType<SuggestionView>
 
 const jobOpenSpecialOrderShape = z.object({

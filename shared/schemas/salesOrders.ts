@@ -30,7 +30,6 @@ export const handPaymentSchema = z
   .superRefine((v, ctx) => {
     if (v.method === 'cheque' && !v.reference) ctx.addIssue({ code: 'custom', path: ['reference'], ...issueOf('cheque_number_needed') })
   })
-export type HandPaymentInput = z.infer<typeof handPaymentSchema>
 
 /**
  * Confirming a card deposit: the token the payment provider gave for the card entered on its side. Never a
@@ -67,17 +66,6 @@ export interface CardDepositState {
   depositPaid: string
   depositDue: string
 }
-
-export const cardDepositStateSchema: z.ZodType<CardDepositState> = z.object({
-  paymentId: z.number().int().positive(),
-  salesOrderId: z.number().int().positive(),
-  amount: z.string(),
-  stage: z.enum(CARD_DEPOSIT_STAGES),
-  intentId: z.string(),
-  payPageUrl: z.string().nullable(),
-  depositPaid: z.string(),
-  depositDue: z.string(),
-})
 
 /** The counter's sales policy; a change names only what it changes. */
 export const salesSettingsSchema = z

@@ -54,6 +54,12 @@ export interface SalesReturnView {
   lines: { orderLineId: number; sku: string; qty: number; goods: string; tax: string; binCode: string; lotCode: string | null }[]
 }
 
+/** What taking a return answers: the return, and the contractor's account credit after it. */
+export interface ReturnTaken extends SalesReturnView {
+  /** The contractor's account credit after this return (a return settled as credit adds to it). */
+  accountCredit: string
+}
+
 /** The returns policy the admin sets: days after the order is booked, and the fee in percent of the goods. */
 export const DEFAULT_RETURN_WINDOW_DAYS = 30 // common practice: 30 days for unopened stock goods
 export const DEFAULT_RESTOCKING_PERCENT = '15' // common practice: building suppliers charge 15–25 %

@@ -1,7 +1,7 @@
 // Typed calls for the catalog: the item list and its export, one item with its stock and lots, the item
 // form, and the item import's template.
-import { importPreviewShape, itemDetailShape, itemRecordShape, itemRecordViewShape } from '@shared/schemas/answers/catalog'
-import { itemPageSchema, itemPatchSchema, itemSchema, lotRowSchema, lotRowsSchema, type ImportPreview } from '@shared/schemas/catalog'
+import { importPreviewShape, itemDetailShape, itemPageShape, itemRecordShape, itemRecordViewShape, lotRowShape, lotRowsShape } from '@shared/schemas/answers/catalog'
+import { itemPatchSchema, itemSchema, type ImportPreview } from '@shared/schemas/catalog'
 import { z } from 'zod'
 import { api, download, type BodyOf } from './client'
 import type { SheetSteps } from './fileTransfer'
@@ -15,16 +15,16 @@ export const itemImportSteps: SheetSteps<ImportPreview, ImportPreview> = {
 }
 
 export const catalogApi = {
-  items: (q: QueryValues) => api.get(`/items${toQuery(q)}`, { answer: itemPageSchema }),
+  items: (q: QueryValues) => api.get(`/items${toQuery(q)}`, { answer: itemPageShape }),
   exportItems: (q: QueryValues) => download(`/items/export.xlsx${toQuery(q)}`),
   item: (id: number | string) => api.get(`/items/${id}`, { answer: itemDetailShape }),
   /** The item as the form edits it (cost only for those allowed to see it). */
   itemRecord: (id: number | string) => api.get(`/items/${id}`, { answer: z.object({ item: itemRecordViewShape }) }),
-  lots: (itemId: number | string) => api.get(`/items/${itemId}/lots`, { answer: lotRowsSchema }),
+  lots: (itemId: number | string) => api.get(`/items/${itemId}/lots`, { answer: lotRowsShape }),
   create: (body: BodyOf<typeof itemSchema>) => api.post('/items', body, { answer: itemRecordShape }),
   update: (id: number | string, body: BodyOf<typeof itemPatchSchema>) => api.patch(`/items/${id}`, body, { answer: itemRecordShape }),
   deactivate: (id: number | string) => api.post(`/items/${id}/deactivate`, {}, { answer: itemRecordShape }),
   setLotTint: (itemId: number, lotId: number, tintNote: string) =>
-    api.patch(`/items/${itemId}/lots/${lotId}`, { tintNote }, { answer: lotRowSchema }),
+    api.patch(`/items/${itemId}/lots/${lotId}`, { tintNote }, { answer: lotRowShape }),
   importTemplate: () => download('/items/import/template.xlsx'),
 }

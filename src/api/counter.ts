@@ -7,8 +7,8 @@ import {
 } from '@shared/schemas/answers/changes'
 import { bomRecordShape, computeAnswerShape, jobDetailShape, ruleRecordShape, takeoffRecordShape } from '@shared/schemas/answers/counter'
 import { quoteDetailShape, quoteSummaryShape } from '@shared/schemas/answers/quotes'
-import { salesOrderDetailShape, salesOrderSummaryShape } from '@shared/schemas/answers/salesOrders'
-import { salesReturnViewShape } from '@shared/schemas/answers/salesReturns'
+import { cardDepositStateShape, salesOrderDetailShape, salesOrderSummaryShape } from '@shared/schemas/answers/salesOrders'
+import { returnTakenShape, salesReturnViewShape } from '@shared/schemas/answers/salesReturns'
 import { salesReturnSchema } from '@shared/schemas/salesReturns'
 import {
   computeRequestSchema, counterCatalogSchema, customerCreateSchema, customerSummarySchema, customerUpdateSchema, jobCreateSchema,
@@ -16,7 +16,7 @@ import {
   wasteUpdateSchema,
 } from '@shared/schemas/counter'
 import { quoteCreateSchema, quoteSendSchema, quoteUpdateSchema } from '@shared/schemas/quotes'
-import { cardDepositStateSchema, handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, type CardDepositStartInput } from '@shared/schemas/salesOrders'
+import { handPaymentSchema, salesOrderCancelSchema, salesOrderFromQuoteSchema, type CardDepositStartInput } from '@shared/schemas/salesOrders'
 import { materialFamilySchema, siteFiguresSchema } from '@shared/schemas/takeoff'
 import { api, download, type BodyOf } from './client'
 import { keyed } from './idempotencyKey'
@@ -95,10 +95,10 @@ export const salesApi = {
   // Card deposits: the card is entered on the provider's page, the counter follows it
   startCardDeposit: (id: Id, body: CardDepositStartInput, key: string) =>
     api.post(`/sales-orders/${id}/card-deposits`, body, { ...keyed(key), answer: cardDepositStartedShape }),
-  cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateSchema }),
+  cardDeposit: (id: Id, paymentId: number) => api.get(`/sales-orders/${id}/card-deposits/${paymentId}`, { answer: cardDepositStateShape }),
   // Returns against an order (the policy they follow, window and restocking fee, is salesPolicyApi.read in ./admin)
   returns: (id: Id) => api.get(`/sales-orders/${id}/returns`, { answer: z.array(salesReturnViewShape) }),
   takeReturn: (id: Id, body: BodyOf<typeof salesReturnSchema>, key: string) =>
-    api.post(`/sales-orders/${id}/returns`, body, { ...keyed(key), answer: salesReturnViewShape.extend({ accountCredit: z.string() }) }),
-  cancelCardDeposit: (id: Id, paymentId: number) => api.post(`/sales-orders/${id}/card-deposits/${paymentId}/cancel`, {}, { answer: cardDepositStateSchema }),
+    api.post(`/sales-orders/${id}/returns`, body, { ...keyed(key), answer: returnTakenShape }),
+  cancelCardDeposit: (id: Id, paymentId: number) => api.post(`/sales-orders/${id}/card-deposits/${paymentId}/cancel`, {}, { answer: cardDepositStateShape }),
 }

@@ -7,7 +7,7 @@ import { z } from 'zod'
 import type { Role } from '../../shared/roles.js'
 import { sessionAnswerSchema, signedInAnswerSchema, userSummarySchema } from '../../shared/schemas/auth.js'
 import { auditTrailPageShape } from '../../shared/schemas/answers/audit.js'
-import { itemDetailShape } from '../../shared/schemas/answers/catalog.js'
+import { itemDetailShape, itemPageShape, lotRowsShape } from '../../shared/schemas/answers/catalog.js'
 import { bomRecordShape, jobDetailShape, ruleRecordShape, takeoffRecordShape } from '../../shared/schemas/answers/counter.js'
 import {
   countAccuracyRowShape, countDetailShape, countDuePlanShape, countHistoryRowShape, countSettingsShape, countSummaryShape, handheldCountShape,
@@ -32,7 +32,6 @@ import {
   transferViewShape,
 } from '../../shared/schemas/answers/stockViews.js'
 import { todayAnswerShape } from '../../shared/schemas/answers/today.js'
-import { itemPageSchema, lotRowsSchema } from '../../shared/schemas/catalog.js'
 import { counterCatalogSchema, customerSummarySchema, jobSummarySchema, roleItemRecordSchema } from '../../shared/schemas/counter.js'
 import { setupStateSchema } from '../../shared/schemas/setup.js'
 import { placesSchema } from '../../shared/schemas/stockViews.js'
@@ -52,7 +51,7 @@ export interface Read {
 /** Reads whose answer another API test parses with the same schema, on a record only it can make (a card payment
  * needs the payment provider's fake), by route and the test that does it. */
 export const CHECKED_ELSEWHERE: Record<string, string> = {
-  'GET /api/sales-orders/:id/card-deposits/:paymentId': 'tests/api/cardDepositFollow.test.ts (cardDepositStateSchema.parse)',
+  'GET /api/sales-orders/:id/card-deposits/:paymentId': 'tests/api/cardDepositFollow.test.ts (cardDepositStateShape.parse)',
 }
 
 /** Answers that are files (spreadsheets, PDFs, images), not JSON; and the health probe, read by machines. */
@@ -154,8 +153,8 @@ async function readsOf(h: ApiHarness): Promise<Read[]> {
     { route: 'GET /api/takeoffs/catalog', path: '/api/takeoffs/catalog', schema: counterCatalogSchema, nonEmpty: 'blocks' },
     { route: 'GET /api/setup', path: '/api/setup', schema: setupStateSchema },
     { route: 'GET /api/users', path: '/api/users', schema: z.array(userSummarySchema), nonEmpty: true },
-    { route: 'GET /api/items', path: '/api/items?pageSize=50', schema: itemPageSchema, nonEmpty: 'rows' },
-    { route: 'GET /api/items/:id/lots', path: `/api/items/${lotted.id}/lots`, schema: lotRowsSchema, nonEmpty: true },
+    { route: 'GET /api/items', path: '/api/items?pageSize=50', schema: itemPageShape, nonEmpty: 'rows' },
+    { route: 'GET /api/items/:id/lots', path: `/api/items/${lotted.id}/lots`, schema: lotRowsShape, nonEmpty: true },
     { route: 'GET /api/customers', path: '/api/customers?active=all', schema: z.array(customerSummarySchema), nonEmpty: true },
     { route: 'GET /api/jobs', path: '/api/jobs?limit=200', schema: z.array(jobSummarySchema), nonEmpty: true },
     { route: 'GET /api/profile', path: '/api/profile', schema: signedInAnswerSchema },

@@ -6,7 +6,7 @@
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { PayFake } from '../../server/fakes/payFake.js'
-import { cardDepositStateSchema } from '../../shared/schemas/salesOrders.js'
+import { cardDepositStateShape } from '../../shared/schemas/answers/salesOrders.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
 import { startCardOrder, type CardOrderHarness } from '../support/payFakeHarness.js'
 
@@ -61,7 +61,7 @@ describe('following a card deposit', () => {
     expect(res.body.payPageUrl).toBe(`${fake.url}/pay/${intent.id}`)
     const read = await state(res.body.paymentId)
     expect(read.status).toBe(200)
-    expect(cardDepositStateSchema.parse(read.body)).toMatchObject({ stage: 'waiting', amount: '100.00', payPageUrl: `${fake.url}/pay/${intent.id}`, depositDue: '380.38' })
+    expect(cardDepositStateShape.parse(read.body)).toMatchObject({ stage: 'waiting', amount: '100.00', payPageUrl: `${fake.url}/pay/${intent.id}`, depositDue: '380.38' })
     // The page the customer sees asks for that amount and offers to cancel.
     const page = await (await fetch(`${fake.url}/pay/${intent.id}`)).text()
     expect(page).toContain('Pay 100.00 USD')

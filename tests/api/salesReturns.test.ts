@@ -7,6 +7,7 @@
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { FAKE_CARD_TOKENS, type PayFake } from '../../server/fakes/payFake.js'
+import { returnTakenShape } from '../../shared/schemas/answers/salesReturns.js'
 import { CSRF, type ApiHarness } from '../support/apiHarness.js'
 import { countRows } from '../support/fixtureRows.js'
 import { startPayHarness, type PayHarness } from '../support/payFakeHarness.js'
@@ -99,6 +100,8 @@ describe('a return settled as account credit', () => {
     // figure (source: Streamlined Sales and Use Tax Agreement §324 rounding rule, from memory).
     expect(a.body).toMatchObject({ goods: '509.76', tax: '42.06', restockingPercent: '15.00', restockingFee: '76.46', refund: '475.36', settleBy: 'credit', accountCredit: '475.36' })
     expect(a.body.lines).toEqual([expect.objectContaining({ sku: fx.block.sku, qty: 24, binCode: 'C-01-2', lotCode: 'BACK-1' })])
+    // The answer passes the schema the counter's API call checks it with (src/api/counter.ts, takeReturn).
+    expect(returnTakenShape.safeParse(a.body).error?.issues ?? []).toEqual([])
     expect(await onHand(fx.block.id, fx.bins['C-01-2'])).toBe(binBefore + 24)
     expect(await returnMoves()).toBe(1)
     expect(await returned(fx.block.id)).toBe(24)

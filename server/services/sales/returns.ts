@@ -11,7 +11,7 @@ import type { DataSource, EntityManager } from 'typeorm'
 import { addMoney, compareMoney, parseMoney, subtractMoney } from '../../../shared/money.js'
 import { toMinorUnits } from '../../../shared/payments/minorUnits.js'
 import { returnFigures } from '../../../shared/sales/returnMoney.js'
-import type { ReturnSettlement, SalesReturnInput, SalesReturnView } from '../../../shared/schemas/salesReturns.js'
+import type { ReturnSettlement, ReturnTaken, SalesReturnInput, SalesReturnView } from '../../../shared/schemas/salesReturns.js'
 import { Item } from '../../entities/Item.js'
 import { SalesOrderLine } from '../../entities/SalesOrder.js'
 import { AppError, problem } from '../../errors.js'
@@ -27,11 +27,6 @@ export const SALES_RETURN_DOC = 'sales_return'
 type Actor = AuditActor & { userId: number }
 
 const DAY_MS = 86_400_000
-
-export interface ReturnTaken extends SalesReturnView {
-  /** The contractor's account credit after this return (a return settled as credit adds to it). */
-  accountCredit: string
-}
 
 /** The contractor's account credit: Σ of its credit rows. */
 export async function accountCredit(db: EntityManager | DataSource, customerId: number): Promise<string> {

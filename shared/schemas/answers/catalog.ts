@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import { BLOCK_SHAPES, THICKNESS_CLASSES } from '../../catalog.js'
-import type { ItemRecord, ItemRecordView, ItemWarehouseStock, ItemBinStock, ItemVendorSource, ItemDetail, ImportPreviewRow, ImportPreview } from '../catalog.js'
+import type { ItemRecord, ItemRecordView, ItemWarehouseStock, ItemBinStock, ItemVendorSource, ItemDetail, ImportPreviewRow, ImportPreview, ItemPage, LotRow } from '../catalog.js'
 import { itemFamilyShape, rowProblemShape, stockUnitShape, withheldCost } from './terms.js'
 
 const text = z.string()
@@ -100,3 +100,28 @@ export const importPreviewShape = z.object({
   errorRows: z.number(),
   rows: z.array(importPreviewRowShape)
 }) satisfies z.ZodType<ImportPreview>
+
+/** A row of the item list: the item's own fields the list shows, its stock, and the standard cost (absent for roles that do not see costs). */
+const itemListRowShape = z.object(itemRecordFields).pick({
+  id: true, sku: true, name: true, family: true, stockUnit: true, nominalSize: true, pattern: true, shape: true, thicknessClass: true,
+  gtin: true, caseQty: true, palletQty: true, listPrice: true, active: true, madeToOrder: true, matchLot: true,
+}).extend({ cost: withheldCost(text), onHand: z.number(), available: z.number() })
+
+/** Typed as the list's interface (whose family, unit and shape are plain text) rather than the stricter row above. */
+export const itemPageShape: z.ZodType<ItemPage> = z.object({
+  rows: z.array(itemListRowShape),
+  total: z.number().int(),
+  page: z.number().int(),
+  pageSize: z.number().int(),
+})
+
+export const lotRowShape = z.object({
+  id: z.number().int(),
+  itemId: z.number().int(),
+  code: text,
+  receivedAt: text,
+  vendorId: z.number().int().nullable(),
+  tintNote: textOrNull,
+  onHand: z.number(),
+}) satisfies z.ZodType<LotRow>
+export const lotRowsShape = z.array(lotRowShape)

@@ -1,7 +1,8 @@
 // The answers' schemas for the interfaces in shared/schemas/salesOrders.ts, each held to its interface
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
-import type { SalesSettings, SalesOrderLineView, PaymentView, SalesOrderSummary, SalesOrderDetail } from '../salesOrders.js'
+import { CARD_DEPOSIT_STAGES } from '../salesOrders.js'
+import type { CardDepositState, SalesSettings, SalesOrderLineView, PaymentView, SalesOrderSummary, SalesOrderDetail } from '../salesOrders.js'
 import { paymentMethodShape, paymentStatusShape, salesOrderStatusShape } from './terms.js'
 
 export const salesSettingsShape = z.object({
@@ -74,3 +75,15 @@ export const salesOrderDetailShape = salesOrderSummaryShape.extend({
   lines: z.array(salesOrderLineViewShape),
   payments: z.array(paymentViewShape)
 }) satisfies z.ZodType<SalesOrderDetail>
+
+/** Where a card deposit stands, as the counter follows it while the customer pays on the provider's page. */
+export const cardDepositStateShape = z.object({
+  paymentId: z.number().int().positive(),
+  salesOrderId: z.number().int().positive(),
+  amount: z.string(),
+  stage: z.enum(CARD_DEPOSIT_STAGES),
+  intentId: z.string(),
+  payPageUrl: z.string().nullable(),
+  depositPaid: z.string(),
+  depositDue: z.string(),
+}) satisfies z.ZodType<CardDepositState>

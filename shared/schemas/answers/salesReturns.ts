@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import { RETURN_SETTLEMENTS } from '../salesReturns.js'
-import type { ReturnSettlement, SalesReturnView } from '../salesReturns.js'
+import type { ReturnSettlement, ReturnTaken, SalesReturnView } from '../salesReturns.js'
 
 const returnSettlementShape = z.enum(RETURN_SETTLEMENTS) satisfies z.ZodType<ReturnSettlement>
 
@@ -30,3 +30,6 @@ export const salesReturnViewShape = z.object({
     lotCode: z.string().nullable()
   }))
 }) satisfies z.ZodType<SalesReturnView>
+
+/** What taking a return answers: the return, and the contractor's account credit after it. */
+export const returnTakenShape = salesReturnViewShape.extend({ accountCredit: z.string() }) satisfies z.ZodType<ReturnTaken>

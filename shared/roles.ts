@@ -24,5 +24,5 @@ export function hasAnyRole(userRoles: readonly Role[], allowed: readonly Role[])
 }
 
 /** Common groups used by the route table, so each route reads as a sentence. */
-export const ANYONE_SIGNED_IN: readonly Role[] = ROLES
+export const ANYONE_SIGNED_IN: readonly Role[] = [...ROLES]
 export const ADMIN_ONLY: readonly Role[] = ['admin']

@@ -15,15 +15,12 @@ export type LengthUnit = 'in' | 'mm'
 export const inchesToMm = (inches: number): number => inches * MM_PER_INCH
 export const mmToInches = (mm: number): number => mm / MM_PER_INCH
 export const feetToMm = (feet: number): number => feet * MM_PER_FOOT
-export const mmToFeet = (mm: number): number => mm / MM_PER_FOOT
 export const ft2ToM2 = (ft2: number): number => ft2 * M2_PER_FT2
 export const m2ToFt2 = (m2: number): number => m2 / M2_PER_FT2
-export const mm2ToFt2 = (mm2: number): number => m2ToFt2(mm2 / 1e6)
 export const flOzToMl = (flOz: number): number => flOz * ML_PER_US_FL_OZ
 export const mlToFlOz = (ml: number): number => ml / ML_PER_US_FL_OZ
 export const flOzToIn3 = (flOz: number): number => flOz * IN3_PER_US_FL_OZ
 export const in3ToMl = (in3: number): number => in3 * ML_PER_IN3
-export const mlToIn3 = (ml: number): number => ml / ML_PER_IN3
 export const poundsToKg = (lb: number): number => lb * KG_PER_POUND
 export const kgToPounds = (kg: number): number => kg / KG_PER_POUND
 

@@ -46,9 +46,6 @@ export async function costsVisibleTo(db: EntityManager | DataSource, roles: read
   return (await recentPurchasingSettings(db)).warehouseSeesCosts
 }
 
-/** The same answer for a signed-in user (services that word their answer by it, e.g. counts). */
-export const canSeeCosts = (db: EntityManager | DataSource, viewer: { roles: readonly Role[] }) => costsVisibleTo(db, viewer.roles)
-
 const scope = new AsyncLocalStorage<{ visible: boolean }>()
 
 /** Whether the caller of the current request may see costs; false outside a request. */

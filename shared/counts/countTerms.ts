@@ -22,8 +22,3 @@ export type CountLineStatus = (typeof COUNT_LINE_STATUSES)[number]
 /** Why the line exists: planned when the count was opened or the bin started, found by the counter, or asked for by a short pick. */
 export const COUNT_LINE_SOURCES = ['planned', 'found', 'short_pick'] as const
 export type CountLineSource = (typeof COUNT_LINE_SOURCES)[number]
-
-/** Lines still needing someone: counted lines wait for review, waiting lines for a counter. */
-export const OPEN_LINE_STATUSES: readonly CountLineStatus[] = ['waiting', 'counted']
-/** Lines whose result stands (the last attempt of each bin × item × lot). */
-export const SETTLED_LINE_STATUSES: readonly CountLineStatus[] = ['matched', 'approved']

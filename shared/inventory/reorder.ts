@@ -8,8 +8,6 @@ import { DAYS_PER_YEAR } from './demand.js'
 import { classifyLine, policyCeiling } from './reorderStatus.js'
 import { Working, type ReorderStep } from './reorderWords.js'
 
-export { classifyLine, policyCeiling } from './reorderStatus.js'
-
 export interface PolicyOverride {
   value: number
   /** Why the computed figure is set aside; shown wherever the figure is. */

@@ -47,9 +47,6 @@ const VERB: Readonly<Record<PoAction, string>> = {
   cancel: 'cancelled',
 }
 
-/** Statuses whose unreceived quantity is still on order. */
-export const ON_ORDER_STATUSES: readonly PoStatus[] = ['approved', 'sent', 'partly_received']
-
 /** Status after a receipt: received when every line has all it ordered, else partly received. */
 export function statusAfterReceipt(lines: readonly { qtyOrdered: number; qtyReceived: number }[]): 'partly_received' | 'received' {
   return lines.every((l) => l.qtyReceived >= l.qtyOrdered) ? 'received' : 'partly_received'

@@ -24,7 +24,6 @@ export const signInSchema = z.object({
   username: z.string().trim().min(1).max(40),
   password: z.string().min(1).max(128),
 })
-export type SignInInput = z.infer<typeof signInSchema>
 
 export const sessionUserSchema = z.object({
   id: z.number().int(),

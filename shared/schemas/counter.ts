@@ -96,7 +96,6 @@ export const computeRequestSchema = z.object({
   takeoff: takeoffSchema,
   unit: lengthUnitSchema.optional(),
 })
-export type ComputeRequest = z.infer<typeof computeRequestSchema>
 
 /** The form fields sent with a takeoff spreadsheet. */
 export const takeoffImportFieldsSchema = z.object({

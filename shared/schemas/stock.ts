@@ -57,7 +57,6 @@ export const issueSchema = z.object({
   reason: z.string().trim().max(20).optional().nullable(),
   note: noteSchema,
 })
-export type IssueInput = z.infer<typeof issueSchema>
 
 export const receiptSchema = z.object({
   warehouseId: idSchema,
@@ -76,7 +75,6 @@ export const receiptSchema = z.object({
     .max(500),
   note: noteSchema,
 })
-export type ReceiptInput = z.infer<typeof receiptSchema>
 
 export const transferShipSchema = z.object({
   fromWarehouseId: idSchema,

@@ -7,8 +7,8 @@ import { buildPlanView, type WallPlanView } from './planView.js'
 import { sectionOwners, type SectionPlan } from './sections.js'
 import type { WallGeometry } from './wallLayout.js'
 
-export type { WallPlanView, PlanFootprint, PlanArc, PlanLabel, Point } from './planView.js'
-export { toSvg, type SvgOptions } from './drawingSvg.js'
+export type { WallPlanView } from './planView.js'
+export { toSvg } from './drawingSvg.js'
 
 export interface ElevationBlock {
   /** Along the developed run from the panel's start, mm. */

@@ -158,9 +158,6 @@ export const defaultMaterialRules: MaterialRule[] = [
   },
 ]
 
-/** Each measure in the trade's words, for formulas (screens word the same keys under `takeoff.explain.measure`). */
-export const MEASURE_WORDS: Record<MeasureName, string> = EXPLAIN_EN.measure
-
 /** A rule's note and source keys in the explanation's phrases: the rule's id in camel case. */
 export const ruleWordKey = (id: string) => id.replace(/-(\w)/g, (_, c: string) => c.toUpperCase())
 

@@ -22,12 +22,6 @@ function toLot(em: EntityManager, r: LotRow): Lot {
   })
 }
 
-export async function currentBinsById(em: EntityManager, ids: readonly number[]): Promise<Bin[]> {
-  if (!ids.length) return []
-  const rows: BinRow[] = await em.query(`SELECT ${BIN_COLUMNS} FROM bins WHERE id IN (?) LOCK IN SHARE MODE`, [ids])
-  return rows.map((r) => toBin(em, r))
-}
-
 export async function currentBinByCode(em: EntityManager, warehouseId: number, code: string): Promise<Bin | null> {
   const rows: BinRow[] = await em.query(`SELECT ${BIN_COLUMNS} FROM bins WHERE warehouse_id = ? AND code = ? LOCK IN SHARE MODE`, [warehouseId, code])
   return rows.length ? toBin(em, rows[0]) : null

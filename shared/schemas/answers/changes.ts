@@ -8,7 +8,7 @@ import { poDetailShape } from './purchasingViews.js'
 const id = z.number().int()
 const count = z.number()
 
-export { okAnswerSchema as okShape, nothingShape } from '../auth.js'
+export { okAnswerSchema as okShape } from '../auth.js'
 export const createdShape = z.object({ id })
 export const deletedShape = z.object({ deleted: count })
 
@@ -17,7 +17,6 @@ export const moveSummaryShape = z.object({
   batchId: z.string(),
   moves: z.array(z.object({ id: z.string(), moveType: moveTypeShape, itemId: id, binId: id, lotId: id.nullable(), qty: count })),
 })
-export type MoveSummary = z.infer<typeof moveSummaryShape>
 export const transferShippedShape = z.object({ transfer: z.object({ id }) })
 export const transferReceivedShape = z.object({ id, status: z.string() })
 

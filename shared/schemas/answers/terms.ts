@@ -12,12 +12,7 @@ import { HANDOVER_KINDS, HANDOVER_STATUSES } from '../../sales/handoverTerms.js'
 import { QUOTE_STATUSES } from '../../sales/quoteStatus.js'
 import { PAYMENT_METHODS, PAYMENT_STATUSES, SALES_ORDER_STATUSES } from '../../sales/salesOrderTerms.js'
 
-export {
-  catalogItemSchema as catalogItemShape, jointKindSchema as jointKindShape, materialFamilySchema as materialFamilyShape,
-  materialRoleSchema as materialRoleShape, materialRuleSchema as materialRuleShape, siteFiguresSchema as siteFiguresShape,
-  thicknessClassSchema as thicknessClassShape,
-} from '../takeoff.js'
-export { jobStatusSchema as jobStatusNameShape } from '../counter.js'
+export { materialRuleSchema as materialRuleShape } from '../takeoff.js'
 export { deadStockQuerySchema as deadStockQueryShape } from '../reports.js'
 
 /** A record named by its code and name (a warehouse, a vendor) beside its id. */

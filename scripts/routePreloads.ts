@@ -3,8 +3,9 @@
 // instead of after it has run, the router has started and the page's import() has been reached.
 //
 // The pages come from the client's own route table (src/router/index.ts and src/router/areas/*.ts): each route
-// record's `path:` (and `alias:`) followed by its `component: () => import('@/views/…')`. Written to
-// route-preloads.json beside index.html; server/http/pagePreloads.ts reads it.
+// record's `path:` (and `alias:`) followed by its `component: () => import('@/views/…')`. Beside them, the
+// English message bundles, which every signed-in page loads (English is every language's fallback,
+// src/i18n/index.ts). Written to route-preloads.json beside index.html; server/http/pagePreloads.ts reads it.
 import { readdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
 import type { Plugin } from 'vite'
@@ -32,6 +33,9 @@ export function routeViews(root: string): { paths: string[]; view: string }[] {
   }
   return out
 }
+
+/** The message bundles every signed-in page loads whatever its language: English's, the fallback (src/i18n/index.ts). */
+export const FALLBACK_MESSAGE_BUNDLES = ['src/i18n/bundles/enBoot.ts', 'src/i18n/bundles/enRest.ts']
 
 export function routePreloads(): Plugin {
   let root = process.cwd()
@@ -71,7 +75,8 @@ export function routePreloads(): Plugin {
           styles: [...own.styles].filter((f) => !entry.styles.has(f)).map((f) => '/' + f),
         })
       }
-      const preloads: RoutePreloads = { routes }
+      const messages = closure(chunks.filter((c) => c.isDynamicEntry && FALLBACK_MESSAGE_BUNDLES.some((f) => c.facadeModuleId === path.join(root, f))).map((c) => c.fileName))
+      const preloads: RoutePreloads = { routes, signedIn: { scripts: [...messages.scripts].filter((f) => !entry.scripts.has(f)).map((f) => '/' + f) } }
       this.emitFile({ type: 'asset', fileName: ROUTE_PRELOADS_FILE, source: JSON.stringify(preloads) })
     },
   }

@@ -102,7 +102,7 @@ function clientPages(dist: string): express.RequestHandler {
   // fetching the page's code would only hold up the sign-in page's own.
   const hasSession = (req: express.Request) => (req.headers.cookie ?? '').includes(`${SESSION_COOKIE}=`)
   router.get('/{*splat}', (req, res) => {
-    res.set('Cache-Control', 'no-cache').type('html').send(hasSession(req) ? htmlFor(req.path) : htmlFor(''))
+    res.set('Cache-Control', 'no-cache').type('html').send(htmlFor(req.path, hasSession(req) ? { query: req.query } : undefined))
   })
   return router
 }

@@ -478,6 +478,8 @@ export const ERROR_CODES = {
   import_vendor_item_exists: ['vendor', 'sku'],
   import_preferred_taken: ['sku', 'vendor'],
   import_code_exists: ['code'],
+  import_average_from_stock: ['sku', 'warehouse', 'cost'],
+  import_tax_rate_set: ['warehouse', 'rate'],
   import_records_in_use: ['code'],
   import_vendor_unknown: ['vendor'],
   import_received_over: ['ordered'],

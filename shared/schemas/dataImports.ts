@@ -4,8 +4,8 @@ import type { RowProblem } from '../errors/errorCodes.js'
 
 /** In the order a new business brings them in: what later kinds refer to comes first. */
 export const DATA_IMPORT_KINDS = [
-  'warehouses', 'bins', 'price_levels', 'price_rules', 'vendors', 'vendor_items', 'accounts',
-  'opening_stock', 'purchase_orders', 'usage_history', 'reorder_settings', 'lead_times',
+  'warehouses', 'bins', 'sales_tax', 'price_levels', 'price_rules', 'vendors', 'vendor_items', 'accounts',
+  'opening_stock', 'averages', 'purchase_orders', 'usage_history', 'reorder_settings', 'lead_times',
 ] as const
 export type DataImportKind = (typeof DATA_IMPORT_KINDS)[number]
 

@@ -134,7 +134,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
   },
   {
     file: 'averages-and-minimums', sheet: 'Averages',
-    about: 'Per item and warehouse: the moving-average cost and the manual minimum.',
+    about: 'Per item and warehouse: the moving-average cost and the manual minimum, in the columns of the averages and minimums import (read back after the stock, it keeps the average of a warehouse that holds none of the item now).',
     columns: [
       col('SKU', 'text', 'sku', 'The item.'),
       col('Warehouse', 'text', 'warehouse', 'The warehouse code.'),

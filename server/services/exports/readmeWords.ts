@@ -163,8 +163,8 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'El lote de producción.',
   'In the item\'s stock unit.':
     'En la unidad de existencia del artículo.',
-  'Per item and warehouse: the moving-average cost and the manual minimum.':
-    'Por artículo y almacén: el costo promedio móvil y el mínimo fijado a mano.',
+  'Per item and warehouse: the moving-average cost and the manual minimum, in the columns of the averages and minimums import (read back after the stock, it keeps the average of a warehouse that holds none of the item now).':
+    'Por artículo y almacén: el costo promedio móvil y el mínimo fijado a mano, en las columnas de la importación de costos promedio y mínimos (leído después de la existencia, guarda el promedio de un almacén que hoy no tiene el artículo).',
   'Moving-average cost of one stock unit.':
     'Costo promedio móvil de una unidad de existencia.',
   'The minimum set by hand (blank: none).':
@@ -193,8 +193,6 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'Quién lo hizo (nombre de usuario).',
   'Usage per item, warehouse and day: the issues and picks of the ledger added to any usage history brought in earlier, in the columns of the usage-history import. Read back into another Lumenyard, its reorder points start from the same use.':
     'Consumo por artículo, almacén y día: las salidas y preparaciones del libro de movimientos sumadas al historial de consumo traído antes, en las columnas de la importación de historial de consumo. Leído en otro Lumenyard, sus puntos de reorden parten del mismo consumo.',
-  'An item already in the catalog.':
-    'Un artículo que ya está en el catálogo.',
   'usage history import':
     'importación de historial de consumo',
   'The warehouse the units left from (its code).':
@@ -819,8 +817,8 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'Cómo se fija el precio.',
   'Percent off list.':
     'Porcentaje de descuento sobre la lista.',
-  'The sales tax rate charged at each warehouse.':
-    'La tasa de impuesto sobre las ventas que se cobra en cada almacén.',
+  'The sales tax rate charged at each warehouse, in the columns of the sales tax rates import.':
+    'La tasa de impuesto sobre las ventas que se cobra en cada almacén, en las columnas de la importación de tasas de impuesto.',
   'Which item fills each material role of a takeoff, the waste allowance of each family, and the material rules (as JSON).':
     'Qué artículo cubre cada función de material de un cálculo, el margen de desperdicio de cada familia y las reglas de material (como JSON).',
   'role, waste or rule.':
@@ -913,6 +911,10 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'lo último que cada escáner informó como pendiente de enviar; estado del dispositivo, no registros',
   'average costs kept only so an import can be reversed in this database':
     'costos promedio guardados solo para poder revertir una importación en esta base de datos',
+  'averages and minimums before an import, kept only so it can be reversed in this database':
+    'costos promedio y mínimos de antes de una importación, guardados solo para poder revertirla en esta base de datos',
+  'An item already in the catalog.':
+    'Un artículo que ya está en el catálogo.',
   'the takeoff as it stood when each bill revision was made; its result is in bill-lines.xlsx':
     'el cálculo tal como estaba al hacerse cada revisión de la lista; su resultado está en bill-lines.xlsx',
   'the items a count was limited to; the counted lines are in counts.xlsx':
@@ -990,6 +992,18 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'La orden de compra en que vino (hasta 40 caracteres); una fila por proveedor, artículo y orden.',
   'Days from sending the order to the first arrival of the item, 0 to 3650 (fractions of a day allowed).':
     'Días desde el envío de la orden hasta la primera llegada del artículo, de 0 a 3650 (se admiten fracciones de día).',
+  'A warehouse code, as set up under Warehouses. One row per item and warehouse.':
+    'Un código de almacén, tal como está en Almacenes. Una fila por artículo y almacén.',
+  'The moving-average cost of one stock unit there, 0 or more, up to 4 decimals. Where the warehouse holds the item, bring its stock in first: the cost must then be the one its stock carries.':
+    'El costo promedio móvil de una unidad de existencia ahí, 0 o más, hasta 4 decimales. Donde el almacén tiene el artículo, importe antes su existencia: el costo debe ser entonces el que lleva esa existencia.',
+  'The minimum set by hand (below it the stock screens flag the item), a whole number 0 or more; blank: none.':
+    'El mínimo fijado a mano (por debajo, las pantallas de existencia marcan el artículo), un número entero de 0 o más; en blanco: ninguno.',
+  'The code of a warehouse already in Lumenyard: sales from it are taxed at this rate. One row per warehouse.':
+    'El código de un almacén que ya está en Lumenyard: sus ventas pagan impuesto a esta tasa. Una fila por almacén.',
+  'The rate in percent, 0 to 30 with up to 4 decimals (8.25 for 8.25 %). A warehouse that already charges a rate is refused: change it under Selling prices → Sales tax by location.':
+    'La tasa en porcentaje, de 0 a 30 con hasta 4 decimales (8.25 para 8.25 %). Un almacén que ya cobra una tasa se rechaza: cámbiela en Precios de venta → Impuesto por sede.',
+  'How documents name the tax, up to 80 characters (optional).':
+    'Cómo nombran el impuesto los documentos, hasta 80 caracteres (opcional).',
   'global (the whole business), family, abc (an ABC class) or item_warehouse (one item in one warehouse). One row per target; a target already set in Lumenyard is refused.':
     'global (todo el negocio), family (una familia), abc (una clase ABC) o item_warehouse (un artículo en un almacén). Una fila por destino; un destino ya fijado en Lumenyard se rechaza.',
   'For family rows: glass_block, spacer, arc_spacer, sealant, grout, anchor, fastener, shower_base, wall_section, accessory.':

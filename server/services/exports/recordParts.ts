@@ -454,10 +454,10 @@ export const RECORD_PARTS: readonly ExportPart[] = [
   },
   {
     file: 'sales-tax', sheet: 'Sales tax',
-    about: 'The sales tax rate charged at each warehouse.',
+    about: 'The sales tax rate charged at each warehouse, in the columns of the sales tax rates import.',
     columns: [
       col('Warehouse', 'text', 'warehouse', 'Where.'),
-      col('Rate percent', 'decimal', 'rate_percent', 'Percent.', 3),
+      col('Rate percent', 'decimal', 'rate_percent', 'Percent.', 4),
       col('Label', 'text', 'label', 'As printed.'),
     ],
     sql: 'SELECT w.code AS warehouse, t.rate_percent, t.label FROM sales_tax_rates t JOIN warehouses w ON w.id = t.warehouse_id ORDER BY w.code',
@@ -542,6 +542,7 @@ export const LEFT_OUT: readonly { table: string; why: string }[] = [
   { table: 'po_number_counters', why: 'the next purchase order number; follows from purchase-orders.xlsx' },
   { table: 'device_outbox_reports', why: 'what each scanner last reported as waiting to send; device state, not records' },
   { table: 'data_import_costs', why: 'average costs kept only so an import can be reversed in this database' },
+  { table: 'data_import_averages', why: 'averages and minimums before an import, kept only so it can be reversed in this database' },
   { table: 'bom_snapshots', why: 'the takeoff as it stood when each bill revision was made; its result is in bill-lines.xlsx' },
   { table: 'count_items', why: 'the items a count was limited to; the counted lines are in counts.xlsx' },
   { table: 'count_bins', why: 'progress through each bin of a count; the counted lines are in counts.xlsx' },

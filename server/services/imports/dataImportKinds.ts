@@ -13,6 +13,8 @@ import { VENDOR_ITEMS_GUIDE, vendorItemsImport } from './vendorItemsImport.js'
 import { BINS_GUIDE, WAREHOUSES_GUIDE, binsImport, warehousesImport } from './warehousesImport.js'
 import { PRICE_LEVELS_GUIDE, PRICE_RULES_GUIDE, priceLevelsImport, priceRulesImport } from './pricingImport.js'
 import { VENDORS_GUIDE, vendorsImport } from './vendorsImport.js'
+import { AVERAGES_GUIDE, averagesImport } from './averagesImport.js'
+import { SALES_TAX_GUIDE, salesTaxImport } from './salesTaxImport.js'
 import { LEAD_TIMES_GUIDE, REORDER_SETTINGS_GUIDE, leadTimesImport, reorderSettingsImport } from './reorderSettingsImport.js'
 
 export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>> = {
@@ -28,6 +30,8 @@ export const DATA_IMPORTS: Record<DataImportKind, DataImportDefinition<unknown>>
   vendors: vendorsImport as DataImportDefinition<unknown>,
   reorder_settings: reorderSettingsImport as DataImportDefinition<unknown>,
   lead_times: leadTimesImport as DataImportDefinition<unknown>,
+  averages: averagesImport as DataImportDefinition<unknown>,
+  sales_tax: salesTaxImport as DataImportDefinition<unknown>,
 }
 
 /** Each kind's template tab and what its guide sheet says each column takes (in English; Spanish through readmeWords). */
@@ -44,6 +48,8 @@ export const DATA_IMPORT_GUIDES: Record<DataImportKind, { tab: string; guide: Re
   vendors: { tab: 'Vendors', guide: VENDORS_GUIDE },
   reorder_settings: { tab: 'Reorder settings', guide: REORDER_SETTINGS_GUIDE },
   lead_times: { tab: 'Lead times', guide: LEAD_TIMES_GUIDE },
+  averages: { tab: 'Averages', guide: AVERAGES_GUIDE },
+  sales_tax: { tab: 'Sales tax', guide: SALES_TAX_GUIDE },
 }
 
 export async function dataImportTemplate(kind: DataImportKind, lang: ReadmeLang = 'en'): Promise<Buffer> {

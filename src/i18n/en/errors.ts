@@ -420,6 +420,8 @@ export default {
   import_usage_overlap: 'Usage of {sku} in {warehouse} for {period} is already held from an earlier import: reverse that import first, or leave this row out',
   import_usage_day_or_month: 'Give either a day (YYYY-MM-DD) or a month (YYYY-MM), not both',
   import_code_exists: '{code} is already in Lumenyard; change it there, or leave this row out',
+  import_average_from_stock: '{warehouse} holds {sku}, so its average cost comes from that stock ({cost}); give that cost here, or change the stock’s cost in the opening stock file',
+  import_tax_rate_set: '{warehouse} already charges sales tax at {rate} %; change it under Selling prices → Sales tax by location, or leave this row out',
   import_records_in_use: '{code} has been used since the import, so it can no longer be reversed as a whole.',
   import_vendor_unknown: 'There is no vendor {vendor}; set it up under Vendors first',
   import_received_over: 'More than the {ordered} ordered',

@@ -4,9 +4,11 @@ export default {
     title: 'Bring your data in',
     intro: 'Start from the sheets you keep today. Download a template, fill it in (or match your own columns to it), check the file, and import it. Nothing is written until every row reads; the same file imported twice changes nothing the second time.',
     kinds: { opening_stock: 'Opening stock', usage_history: 'Usage history', vendor_items: 'Vendors and their items', accounts: 'Contractor accounts', purchase_orders: 'Open purchase orders',
-      warehouses: 'Warehouses', bins: 'Bins', price_levels: 'Price levels', price_rules: 'Price breaks', vendors: 'Vendors',
-      reorder_settings: 'Reorder settings', lead_times: 'Lead times seen' },
+      warehouses: 'Warehouses', bins: 'Bins', sales_tax: 'Sales tax rates', price_levels: 'Price levels', price_rules: 'Price breaks', vendors: 'Vendors',
+      reorder_settings: 'Reorder settings', averages: 'Averages and minimums', lead_times: 'Lead times seen' },
     kindIntro: {
+      sales_tax: 'The sales tax rate the counter charges at each warehouse, a row per warehouse: 0 to 30 %, with how documents name it. A warehouse that already charges a rate is changed under Selling prices.',
+      averages: 'Per item and warehouse, the moving-average cost and the minimum set by hand. Bring it in after opening stock: it keeps the average of a warehouse that holds none of the item now (reorder quantities are valued at it); where a warehouse holds the item, the cost must be the one its stock carries.',
       warehouses: 'Your sites, a row each: code, name, address and how their bin codes are made. Bring warehouses in first; their bins follow in the next import (or generate them under Warehouses).',
       bins: 'The bins of each warehouse, a row per bin: warehouse code, bin code and kind (storage, receiving or staging). A storage bin must fit its warehouse’s bin pattern; rows for transit bins are skipped, transfers make their own.',
       price_levels: 'The price levels your accounts buy at, with a percent off list where a level has one. Bring them in before accounts that name them.',
@@ -21,6 +23,8 @@ export default {
       opening_stock: 'What you hold now, by warehouse, bin and production lot, at what it cost you. Items, warehouses and bins must exist first. Quantities are in the item’s stock unit, or in packs (“3 cases”). The moving-average cost starts from these costs.',
     },
     heads: {
+      sales_tax: { label: 'Warehouse', place: 'Rate' },
+      averages: { label: 'SKU', place: 'Warehouse' },
       warehouses: { label: 'Code', place: 'Name' }, bins: { label: 'Bin', place: 'Warehouse' }, price_levels: { label: 'Code', place: 'Name' },
       price_rules: { label: 'SKU', place: 'Price level' }, vendors: { label: 'Vendor code', place: 'Name' }, accounts: { label: 'Account code', place: 'Name' },
       reorder_settings: { label: 'Applies to', place: 'Where' }, lead_times: { label: 'SKU', place: 'Vendor and order' },

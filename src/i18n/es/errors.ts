@@ -419,6 +419,8 @@ export default {
   import_usage_overlap: 'El consumo de {sku} en {warehouse} para {period} ya está registrado por una importación anterior: deshaga esa importación primero o quite esta fila',
   import_usage_day_or_month: 'Indique un día (AAAA-MM-DD) o un mes (AAAA-MM), no ambos',
   import_code_exists: '{code} ya está en Lumenyard; cámbielo ahí o deje fuera esta fila',
+  import_average_from_stock: '{warehouse} tiene existencia de {sku}, así que su costo promedio sale de esa existencia ({cost}); ponga ese costo aquí o cambie el costo en el archivo de existencia inicial',
+  import_tax_rate_set: '{warehouse} ya cobra impuesto sobre la venta al {rate} %; cámbielo en Precios de venta → Impuesto por sede, o deje fuera esta fila',
   import_records_in_use: '{code} se usó después de la importación; ya no se puede revertir completa.',
   import_vendor_unknown: 'No existe el proveedor {vendor}; agréguelo antes en Proveedores',
   import_received_over: 'Más de las {ordered} pedidas',

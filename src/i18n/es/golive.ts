@@ -4,9 +4,11 @@ export default {
     title: 'Traer sus datos',
     intro: 'Parta de las hojas que ya lleva. Descargue una plantilla, llénela (o haga coincidir sus columnas), revise el archivo e impórtelo. No se escribe nada hasta que todas las filas se lean; el mismo archivo importado dos veces no cambia nada la segunda vez.',
     kinds: { opening_stock: 'Existencia inicial', usage_history: 'Historial de consumo', vendor_items: 'Proveedores y sus artículos', accounts: 'Cuentas de contratistas', purchase_orders: 'Órdenes de compra abiertas',
-      warehouses: 'Almacenes', bins: 'Ubicaciones', price_levels: 'Niveles de precio', price_rules: 'Precios por cantidad', vendors: 'Proveedores',
-      reorder_settings: 'Ajustes de reorden', lead_times: 'Plazos de entrega vistos' },
+      warehouses: 'Almacenes', bins: 'Ubicaciones', sales_tax: 'Tasas de impuesto', price_levels: 'Niveles de precio', price_rules: 'Precios por cantidad', vendors: 'Proveedores',
+      reorder_settings: 'Ajustes de reorden', averages: 'Costos promedio y mínimos', lead_times: 'Plazos de entrega vistos' },
     kindIntro: {
+      sales_tax: 'La tasa de impuesto sobre la venta que cobra el mostrador en cada almacén, una fila por almacén: de 0 a 30 %, con el nombre que llevan los documentos. Un almacén que ya cobra una tasa se cambia en Precios de venta.',
+      averages: 'Por artículo y almacén, el costo promedio móvil y el mínimo fijado a mano. Impórtelo después de la existencia inicial: guarda el promedio de un almacén que hoy no tiene el artículo (las cantidades a pedir se valoran con él); donde un almacén tiene el artículo, el costo debe ser el que lleva su existencia.',
       warehouses: 'Sus sitios, una fila cada uno: código, nombre, dirección y cómo se forman sus códigos de ubicación. Importe primero los almacenes; sus ubicaciones van en la importación siguiente (o genérelas en Almacenes).',
       bins: 'Las ubicaciones de cada almacén, una fila por ubicación: código del almacén, código de la ubicación y tipo (almacenaje, recepción o preparación). Una ubicación de almacenaje debe seguir el patrón de su almacén; las filas de ubicaciones de tránsito se omiten, los traspasos crean las suyas.',
       price_levels: 'Los niveles de precio a los que compran sus cuentas, con un porcentaje de descuento sobre lista cuando lo tienen. Impórtelos antes que las cuentas que los nombran.',
@@ -21,6 +23,8 @@ export default {
       opening_stock: 'Lo que tiene ahora, por almacén, ubicación y lote de producción, a lo que le costó. Los artículos, almacenes y ubicaciones deben existir antes. Las cantidades van en la unidad de existencia del artículo o en empaques («3 cajas»). El costo promedio móvil parte de estos costos.',
     },
     heads: {
+      sales_tax: { label: 'Almacén', place: 'Tasa' },
+      averages: { label: 'SKU', place: 'Almacén' },
       warehouses: { label: 'Código', place: 'Nombre' }, bins: { label: 'Ubicación', place: 'Almacén' }, price_levels: { label: 'Código', place: 'Nombre' },
       price_rules: { label: 'SKU', place: 'Nivel de precio' }, vendors: { label: 'Código de proveedor', place: 'Nombre' }, accounts: { label: 'Código de cuenta', place: 'Nombre' },
       reorder_settings: { label: 'Se aplica a', place: 'Dónde' }, lead_times: { label: 'SKU', place: 'Proveedor y pedido' },

@@ -480,6 +480,8 @@ export const ERROR_CODES = {
   import_code_exists: ['code'],
   import_average_from_stock: ['sku', 'warehouse', 'cost'],
   import_tax_rate_set: ['warehouse', 'rate'],
+  export_job_not_found: [],
+  export_job_not_ready: [],
   import_records_in_use: ['code'],
   import_vendor_unknown: ['vendor'],
   import_received_over: ['ordered'],

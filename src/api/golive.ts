@@ -5,6 +5,7 @@ import { okShape } from '@shared/schemas/answers/changes'
 import { dataImportPreviewShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
 import type { DataImportKind, DataImportPreview, DataImportResult } from '@shared/schemas/dataImports'
 import { setupStateSchema } from '@shared/schemas/setup'
+import { currentExportJobShape, exportJobShape } from '@shared/schemas/answers/businessExport'
 import { api, download } from './client'
 import { downloadWithProgress, uploadWithProgress, type SheetSteps } from './fileTransfer'
 
@@ -20,7 +21,10 @@ export const goliveApi = {
   imports: () => api.get('/imports', { answer: z.array(dataImportRecordShape) }),
   reverseImport: (id: number) => api.post(`/imports/${id}/reverse`, {}, { answer: dataImportRecordShape }),
   importTemplate: (kind: DataImportKind) => download(`/imports/${kind}/template.xlsx`),
-  businessExport: (onBytes: (bytes: number) => void) => downloadWithProgress('/business-export', onBytes),
+  /** Starts everything out on the server, or answers the export already running. */
+  startExport: () => api.post('/business-export/jobs', {}, { answer: exportJobShape }),
+  currentExport: () => api.get('/business-export/jobs/current', { answer: currentExportJobShape }),
+  exportFile: (id: string, onBytes: (bytes: number) => void) => downloadWithProgress(`/business-export/jobs/${encodeURIComponent(id)}/file`, onBytes),
 }
 
 /** A data import's two steps for the upload with progress (useSheetUpload); `kind` is read at each step. */

@@ -13,6 +13,7 @@ import {
   countAccuracyRowShape, countDetailShape, countDuePlanShape, countHistoryRowShape, countSettingsShape, countSummaryShape, handheldCountShape,
 } from '../../shared/schemas/answers/counts.js'
 import { dataImportRecordShape } from '../../shared/schemas/answers/dataImports.js'
+import { currentExportJobShape } from '../../shared/schemas/answers/businessExport.js'
 import { deviceOutboxSummaryShape } from '../../shared/schemas/answers/devices.js'
 import { orderFulfilmentShape, ticketDetailShape, ticketSummaryShape } from '../../shared/schemas/answers/handover.js'
 import { bomForPickingShape, pickListDetailShape, pickListSummaryShape, walkWarehouseShape } from '../../shared/schemas/answers/picking.js'
@@ -57,7 +58,7 @@ export const CHECKED_ELSEWHERE: Record<string, string> = {
 /** Answers that are files (spreadsheets, PDFs, images), not JSON; and the health probe, read by machines. */
 export const FILE_ROUTES = new Set([
   'GET /api/health', 'GET /api/items/export.xlsx', 'GET /api/items/import/template.xlsx', 'GET /api/imports/:kind/template.xlsx',
-  'GET /api/business-export', 'GET /api/setup/printed-logo', 'GET /api/setup/logo', 'GET /api/stock/ledger/export', 'GET /api/quotes/:id/pdf',
+  'GET /api/business-export', 'GET /api/business-export/jobs/:id/file', 'GET /api/setup/printed-logo', 'GET /api/setup/logo', 'GET /api/stock/ledger/export', 'GET /api/quotes/:id/pdf',
   'GET /api/handover-tickets/:id/pdf', 'GET /api/handover-tickets/:id/signature', 'GET /api/takeoffs/import-template', 'GET /api/boms/:id/export',
   'GET /api/vendors/price-list/template', 'GET /api/purchase-orders/export', 'GET /api/purchase-orders/:id/export',
   'GET /api/purchase-orders/:id/pdf', 'GET /api/purchasing/outbox/:id/attachments/:attachmentId', 'GET /api/audit/export',
@@ -160,6 +161,7 @@ async function readsOf(h: ApiHarness): Promise<Read[]> {
     { route: 'GET /api/profile', path: '/api/profile', schema: signedInAnswerSchema },
     { route: 'GET /api/items/:id', path: `/api/items/${stocked.id}`, schema: itemDetailShape },
     { route: 'GET /api/imports', path: '/api/imports', schema: z.array(dataImportRecordShape) },
+    { route: 'GET /api/business-export/jobs/current', path: '/api/business-export/jobs/current', schema: currentExportJobShape },
     { route: 'GET /api/stock/levels', path: `/api/stock/levels?warehouseId=${hry}`, schema: stockLevelsAnswerShape, nonEmpty: 'rows' },
     { route: 'GET /api/stock/bin-contents', path: `/api/stock/bin-contents?warehouseId=${hry}`, schema: binContentsAnswerShape },
     { route: 'GET /api/stock/lot-levels', path: `/api/stock/lot-levels?itemId=${stocked.id}`, schema: lotLevelsAnswerShape },

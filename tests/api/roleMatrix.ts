@@ -67,6 +67,9 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/imports/:kind/commit': { access: ['admin'] },
   'POST /api/imports/:id/reverse': { access: ['admin'] },
   'GET /api/business-export': { access: ['admin'] },
+  'POST /api/business-export/jobs': { access: ['admin'] },
+  'GET /api/business-export/jobs/current': { access: ['admin'] },
+  'GET /api/business-export/jobs/:id/file': { access: ['admin'] },
   'GET /api/setup/printed-logo': { access: ['admin', 'counter', 'warehouse', 'buyer', 'viewer'] },
   // The first-run checklist and the settings it asks for: administrators only.
   'GET /api/setup': { access: ['admin'] },

@@ -493,7 +493,13 @@ async function rowsOf(runner: QueryRunner, sql: string): Promise<AsyncIterable<R
   return conn.query(sql).stream({ highWaterMark: ROWS_AHEAD })
 }
 
-async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, part: ExportPart): Promise<number> {
+/** How far an export has gone: the rows it will write (counted first, in the same snapshot), then rows as written. */
+export interface ExportProgress {
+  total(rows: number): void
+  advance(rows: number): void
+}
+
+async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, part: ExportPart, progress?: ExportProgress): Promise<number> {
   const entry = new PassThrough()
   archive.append(entry, { name: `${part.file}.xlsx`, store: true })
   const book = newStreamingBook(entry)
@@ -502,18 +508,29 @@ async function writePart(runner: QueryRunner, archive: Archiver, out: Writable, 
   for await (const row of await rowsOf(runner, part.sql)) {
     sheet.add(row)
     if (++n % 200 === 0) await sheet.room()
-    if (n % 1000 === 0) await whenRoom(out)
+    if (n % 1000 === 0) {
+      progress?.advance(1000)
+      await whenRoom(out)
+    }
   }
   sheet.done()
   await book.commit()
+  progress?.advance(n % 1000)
   return n
+}
+
+/** Every row the parts will write, counted in the export's own snapshot (so the count is the rows written). */
+async function countRows(runner: QueryRunner): Promise<number> {
+  let total = 0
+  for (const part of EXPORT_PARTS) total += Number(((await runner.query(`SELECT COUNT(*) AS n FROM (${part.sql}) counted`)) as { n: string }[])[0].n)
+  return total
 }
 
 /**
  * Streams the zip to `out`. Reads in one read-only transaction with a consistent snapshot, so every file
  * describes the same moment. Answers the rows written per file.
  */
-export async function streamBusinessExport(ds: DataSource, out: Writable, onPart?: (file: string, rows: number) => void, lang: ReadmeLang = 'en'): Promise<ExportCounts> {
+export async function streamBusinessExport(ds: DataSource, out: Writable, onPart?: (file: string, rows: number) => void, lang: ReadmeLang = 'en', progress?: ExportProgress): Promise<ExportCounts> {
   const at = new Date()
   const archive = new ZipArchive({ zlib: { level: 6 } })
   const failed = new Promise<never>((_resolve, reject) => archive.on('error', reject))
@@ -525,9 +542,10 @@ export async function streamBusinessExport(ds: DataSource, out: Writable, onPart
     await runner.connect()
     await runner.query('SET SESSION TRANSACTION ISOLATION LEVEL REPEATABLE READ')
     await runner.query('START TRANSACTION WITH CONSISTENT SNAPSHOT, READ ONLY')
+    if (progress) progress.total(await countRows(runner))
     archive.append(await readmeWorkbook(EXPORT_PARTS, at, lang), { name: README_FILE, store: true })
     for (const part of EXPORT_PARTS) {
-      counts[part.file] = await Promise.race([writePart(runner, archive, out, part), failed])
+      counts[part.file] = await Promise.race([writePart(runner, archive, out, part, progress), failed])
       onPart?.(part.file, counts[part.file])
     }
     const logo = (await runner.query('SELECT logo, logo_type FROM company_profile WHERE logo IS NOT NULL LIMIT 1')) as { logo: Buffer; logo_type: string }[]
@@ -546,12 +564,12 @@ export async function streamBusinessExport(ds: DataSource, out: Writable, onPart
 export const businessExportName = (at = new Date()) => `lumenyard-everything-${at.toISOString().slice(0, 10)}.zip`
 
 /** The download with its README in `lang`, and an audit entry for it (who, when, the rows of each file, and whether it finished). */
-export async function exportBusiness(ds: DataSource, actor: AuditActor, out: Writable, lang: ReadmeLang = 'en'): Promise<ExportCounts> {
+export async function exportBusiness(ds: DataSource, actor: AuditActor, out: Writable, lang: ReadmeLang = 'en', progress?: ExportProgress): Promise<ExportCounts> {
   const started = Date.now()
   let counts: ExportCounts = {}
   let finished = false
   try {
-    counts = await streamBusinessExport(ds, out, (file, rows) => (counts[file] = rows), lang)
+    counts = await streamBusinessExport(ds, out, (file, rows) => (counts[file] = rows), lang, progress)
     finished = true
     return counts
   } finally {

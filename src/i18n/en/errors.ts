@@ -422,6 +422,8 @@ export default {
   import_code_exists: '{code} is already in Lumenyard; change it there, or leave this row out',
   import_average_from_stock: '{warehouse} holds {sku}, so its average cost comes from that stock ({cost}); give that cost here, or change the stock’s cost in the opening stock file',
   import_tax_rate_set: '{warehouse} already charges sales tax at {rate} %; change it under Selling prices → Sales tax by location, or leave this row out',
+  export_job_not_found: 'That download is no longer kept on the server; start it again.',
+  export_job_not_ready: 'That download is not ready yet; wait for the bar to reach 100 %.',
   import_records_in_use: '{code} has been used since the import, so it can no longer be reversed as a whole.',
   import_vendor_unknown: 'There is no vendor {vendor}; set it up under Vendors first',
   import_received_over: 'More than the {ordered} ordered',

@@ -77,7 +77,12 @@ export default {
     intro: 'Download the whole business as one zip: a spreadsheet for each kind of record (items, stock by bin and lot with cost, every stock movement, usage by day, accounts, jobs, takeoffs with their walls and bills, quotes, sales orders, payments and returns, vendors and what they sell you, purchase orders, receipts, transfers, counts, people without their passwords, settings, the audit trail) and a README that explains every column and names what is left out. The stock, usage, accounts, vendor items and open orders files use the columns of the imports on this page, so they can be brought in again. Only administrators can download it, and each download is recorded in the audit trail.',
     download: 'Download everything (.zip)',
     preparing: 'Preparing the download',
-    received: 'Preparing the download: {kb} KB received so far.',
+    counting: 'Counting the rows to write…',
+    progress: 'Writing the files: {percent} % ({done} of {total} rows).',
+    saving: 'Downloading the finished zip: {percent} %.',
+    waiting: '{file} finished writing a short while ago and is still kept on the server.',
+    save: 'Save it',
+    failed: 'The download could not be prepared, so nothing was saved. Try again; if it keeps failing, tell your administrator.',
     done: 'Saved {file}.',
   },
   setup: {

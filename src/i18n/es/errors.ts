@@ -421,6 +421,8 @@ export default {
   import_code_exists: '{code} ya está en Lumenyard; cámbielo ahí o deje fuera esta fila',
   import_average_from_stock: '{warehouse} tiene existencia de {sku}, así que su costo promedio sale de esa existencia ({cost}); ponga ese costo aquí o cambie el costo en el archivo de existencia inicial',
   import_tax_rate_set: '{warehouse} ya cobra impuesto sobre la venta al {rate} %; cámbielo en Precios de venta → Impuesto por sede, o deje fuera esta fila',
+  export_job_not_found: 'Esa descarga ya no se guarda en el servidor; iníciela de nuevo.',
+  export_job_not_ready: 'Esa descarga aún no está lista; espere a que la barra llegue al 100 %.',
   import_records_in_use: '{code} se usó después de la importación; ya no se puede revertir completa.',
   import_vendor_unknown: 'No existe el proveedor {vendor}; agréguelo antes en Proveedores',
   import_received_over: 'Más de las {ordered} pedidas',

@@ -77,7 +77,12 @@ export default {
     intro: 'Descargue todo el negocio en un solo zip: una hoja de cálculo por cada tipo de registro (artículos, existencias por ubicación y lote con su costo, el libro de movimientos, el consumo por día, cuentas, obras, cálculos de materiales con sus muros y listas de materiales, cotizaciones, pedidos de venta, pagos y devoluciones, proveedores y lo que le venden, órdenes de compra, recepciones, traslados, conteos, personas sin sus contraseñas, ajustes, el registro de auditoría) y un README que explica cada columna y nombra lo que queda fuera. Los archivos de existencias, consumo, cuentas, artículos de proveedor y órdenes abiertas usan las columnas de las importaciones de esta página, así que pueden volver a importarse. Solo los administradores pueden descargarlo, y cada descarga queda en el registro de auditoría.',
     download: 'Descargar todo (.zip)',
     preparing: 'Preparando la descarga',
-    received: 'Preparando la descarga: {kb} KB recibidos hasta ahora.',
+    counting: 'Contando las filas que se van a escribir…',
+    progress: 'Escribiendo los archivos: {percent} % ({done} de {total} filas).',
+    saving: 'Descargando el zip terminado: {percent} %.',
+    waiting: '{file} se terminó de escribir hace poco y aún se guarda en el servidor.',
+    save: 'Guardarlo',
+    failed: 'No se pudo preparar la descarga, así que no se guardó nada. Inténtelo de nuevo; si sigue fallando, avise a su administrador.',
     done: 'Se guardó {file}.',
   },
   setup: {

@@ -5,7 +5,7 @@
 // reversal puts back what each line had before, while nothing has changed it since.
 import { problem } from '../../../shared/errors/errorCodes.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, inChunks, itemsBySku, marks, warehousesByCode, type ItemFacts, type WarehouseFacts } from './importFacts.js'
+import { cellText, distinctOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, type ItemFacts, type WarehouseFacts, warehousesByCode } from './importFacts.js'
 import { chunked, recordsImport } from './recordsImport.js'
 
 export const AVERAGES_SPEC: ImportSpec = {
@@ -59,12 +59,8 @@ export const averagesImport = recordsImport<AverageWrite, AverageFacts>({
     return { items, warehouses, lines, held: new Set(held) }
   },
   read(values, facts, reader) {
-    const sku = cellText(values.sku)
-    const item = sku ? facts.items.get(sku) : undefined
-    if (sku && !item) reader.add('sku', problem('sku_not_in_catalog', { sku }))
-    const whCode = cellText(values.warehouse)
-    const warehouse = whCode ? facts.warehouses.get(whCode.toUpperCase()) : undefined
-    if (whCode && !warehouse) reader.add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+    const { item } = namedItem(values.sku, facts.items, reader)
+    const { warehouse } = namedWarehouse(values.warehouse, facts.warehouses, reader)
     const cost = typeof values.avgCost === 'string' ? values.avgCost : null
     let costOk = cost !== null
     if (cost !== null) {

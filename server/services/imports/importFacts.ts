@@ -37,6 +37,25 @@ export async function warehousesByCode(em: EntityManager): Promise<Map<string, W
 }
 
 /** The parser's problems grouped by row, once (a filter per row would be rows × problems on a bad big file). */
+/** Where a row's check notes a problem: under the column of that key. */
+interface ProblemNotes { add(key: string, p: Problem): void }
+
+/** The item a row's SKU cell names, and the SKU as written; a SKU the catalog lacks is noted under its column. */
+export function namedItem<I>(cell: unknown, items: ReadonlyMap<string, I>, notes: ProblemNotes): { sku: string; item: I | undefined } {
+  const sku = cellText(cell)
+  const item = sku ? items.get(sku) : undefined
+  if (sku && !item) notes.add('sku', problem('sku_not_in_catalog', { sku }))
+  return { sku, item }
+}
+
+/** The warehouse a row's warehouse cell names (codes match without regard to case); an unknown code is noted under its column. */
+export function namedWarehouse<W>(cell: unknown, warehouses: ReadonlyMap<string, W>, notes: ProblemNotes): { whCode: string; warehouse: W | undefined } {
+  const whCode = cellText(cell)
+  const warehouse = whCode ? warehouses.get(whCode.toUpperCase()) : undefined
+  if (whCode && !warehouse) notes.add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+  return { whCode, warehouse }
+}
+
 export function issuesByRow(sheet: ParsedSheet): (row: number) => RowIssue[] {
   const byRow = new Map<number, RowIssue[]>()
   for (const i of sheet.issues) byRow.set(i.row, [...(byRow.get(i.row) ?? []), i])

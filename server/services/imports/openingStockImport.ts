@@ -8,7 +8,7 @@ import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, inChunks, headerOf, issuesByRow, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, issuesByRow, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -62,14 +62,10 @@ function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFact
     const errors = problemsOf(r.row)
     const bad = new Set(issuesOf(r.row).map((i) => i.column))
     const add = (key: string, p: RowProblem['problem']) => { errors.push({ column: col(key), problem: p }); bad.add(key) }
-    const sku = text(r.values.sku)
-    const item = sku ? facts.item.get(sku) : undefined
-    if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
+    const { sku, item } = namedItem(r.values.sku, facts.item, { add })
     if (item && Number(item.made_to_order)) add('sku', problem('import_made_to_order', { sku }))
-    const whCode = text(r.values.warehouse)
-    const warehouse = whCode ? facts.warehouse.get(whCode.toUpperCase()) : undefined
-    if (whCode && !warehouse) add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
-    else if (warehouse && !Number(warehouse.active)) add('warehouse', problem('warehouse_inactive', { warehouse: warehouse.code }))
+    const { warehouse } = namedWarehouse(r.values.warehouse, facts.warehouse, { add })
+    if (warehouse && !Number(warehouse.active)) add('warehouse', problem('warehouse_inactive', { warehouse: warehouse.code }))
     const binCode = text(r.values.bin)
     const candidates = facts.binsByCode.get(binCode.toUpperCase()) ?? []
     const bin = warehouse ? candidates.find((b) => b.warehouse_id === warehouse.id) : undefined

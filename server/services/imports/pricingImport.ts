@@ -3,7 +3,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { priceLevelInputSchema, priceRuleInputSchema } from '../../../shared/schemas/pricing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, heldValues, inChunks, itemsBySku, marks, type ItemFacts } from './importFacts.js'
+import { cellText, distinctOf, heldValues, inChunks, itemsBySku, marks, namedItem, type ItemFacts } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const PRICE_LEVELS_SPEC: ImportSpec = {
@@ -99,9 +99,7 @@ export const priceRulesImport = recordsImport<RuleWrite, { items: Map<string, It
     const levelCode = cellText(values.level)
     const level = levelCode ? facts.levels.get(levelCode.toUpperCase()) : undefined
     if (levelCode && !level) reader.add('level', problem('import_price_level_unknown', { level: levelCode }))
-    const sku = cellText(values.sku)
-    const item = sku ? facts.items.get(sku) : undefined
-    if (sku && !item) reader.add('sku', problem('sku_not_in_catalog', { sku }))
+    const { item } = namedItem(values.sku, facts.items, reader)
     const parsed = priceRuleInputSchema.safeParse({
       levelId: level?.id ?? null, itemId: item?.id ?? 1, minQty: values.minQty ?? undefined,
       basis: cellText(values.basis).toLowerCase() || undefined, price: values.price ?? null, percentOff: values.percentOff ?? null,

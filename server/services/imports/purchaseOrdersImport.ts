@@ -7,7 +7,7 @@ import { problem, type RowProblem } from '../../../shared/errors/errorCodes.js'
 import { orderTotal } from '../../../shared/purchasing/poMoney.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, validDay, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, validDay, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const PURCHASE_ORDERS_SPEC: ImportSpec = {
@@ -66,17 +66,13 @@ export const purchaseOrdersImport: DataImportDefinition<Order> = {
       const vendorCode = cellText(r.values.vendor)
       const vendorId = vendors.get(vendorCode.toUpperCase())
       if (vendorCode && !vendorId) add('vendor', problem('import_vendor_unknown', { vendor: vendorCode }))
-      const whCode = cellText(r.values.warehouse)
-      const warehouse = warehouses.get(whCode.toUpperCase())
-      if (whCode && !warehouse) add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+      const { warehouse } = namedWarehouse(r.values.warehouse, warehouses, { add })
       const orderedOn = cellText(r.values.orderedOn).slice(0, 10)
       if (orderedOn && !validDay(orderedOn)) add('orderedOn', problem('invalid_date'))
       else if (orderedOn > today) add('orderedOn', problem('day_after_today', { today }))
       const expected = cellText(r.values.expected).slice(0, 10) || null
       if (expected && !validDay(expected)) add('expected', problem('invalid_date'))
-      const sku = cellText(r.values.sku)
-      const item = items.get(sku)
-      if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
+      const { sku, item } = namedItem(r.values.sku, items, { add })
       const qty = typeof r.values.qty === 'number' ? r.values.qty : null
       const received = typeof r.values.received === 'number' ? r.values.received : 0
       if (qty !== null && qty < 1) add('qty', problem('at_least', { min: 1 }))

@@ -7,7 +7,7 @@ import { problem } from '../../../shared/errors/errorCodes.js'
 import { policyUpsertSchema, type PolicyUpsertInput } from '../../../shared/schemas/reorder.js'
 import { DAY_SECONDS, observedLeadTimeSql } from '../reorder/leadTimes.js'
 import type { CellValue, ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, inChunks, itemsBySku, marks, warehousesByCode, type ItemFacts, type WarehouseFacts } from './importFacts.js'
+import { cellText, distinctOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, type ItemFacts, type WarehouseFacts, warehousesByCode } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const REORDER_SETTINGS_SPEC: ImportSpec = {
@@ -83,12 +83,8 @@ export const reorderSettingsImport = recordsImport<SettingWrite, SettingFacts>({
   },
   read(values, facts, reader) {
     const scope = cellText(values.scope).toLowerCase()
-    const sku = cellText(values.sku)
-    const item = sku ? facts.items.get(sku) : undefined
-    if (sku && !item) reader.add('sku', problem('sku_not_in_catalog', { sku }))
-    const whCode = cellText(values.warehouse)
-    const warehouse = whCode ? facts.warehouses.get(whCode.toUpperCase()) : undefined
-    if (whCode && !warehouse) reader.add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+    const { sku, item } = namedItem(values.sku, facts.items, reader)
+    const { whCode, warehouse } = namedWarehouse(values.warehouse, facts.warehouses, reader)
     const parsed = policyUpsertSchema.safeParse({
       scope,
       family: cellText(values.family).toLowerCase() || undefined,
@@ -178,9 +174,7 @@ export const leadTimesImport = recordsImport<LeadTimeWrite, LeadTimeFacts>({
     const code = cellText(values.vendor)
     const vendor = code ? facts.vendors.get(code.toUpperCase()) : undefined
     if (code && !vendor) reader.add('vendor', problem('import_vendor_unknown', { vendor: code }))
-    const sku = cellText(values.sku)
-    const item = sku ? facts.items.get(sku) : undefined
-    if (sku && !item) reader.add('sku', problem('sku_not_in_catalog', { sku }))
+    const { item } = namedItem(values.sku, facts.items, reader)
     const order = cellText(values.order)
     if (order.length > 40) reader.add('order', problem('too_long', { max: 40 }))
     const days = values.days === null || values.days === undefined ? null : Number(values.days)

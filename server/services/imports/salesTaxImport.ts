@@ -4,7 +4,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { taxRateInputSchema } from '../../../shared/schemas/pricing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, warehousesByCode, type WarehouseFacts } from './importFacts.js'
+import { cellText, namedWarehouse, type WarehouseFacts, warehousesByCode } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const SALES_TAX_SPEC: ImportSpec = {
@@ -34,9 +34,7 @@ export const salesTaxImport = recordsImport<TaxWrite, TaxFacts>({
     return { warehouses: await warehousesByCode(em), rates: new Map(rates.map((r) => [r.warehouse_id, r.rate_percent])), held: new Set<string>() }
   },
   read(values, facts, reader) {
-    const code = cellText(values.warehouse)
-    const warehouse = code ? facts.warehouses.get(code.toUpperCase()) : undefined
-    if (code && !warehouse) reader.add('warehouse', problem('import_warehouse_unknown', { warehouse: code }))
+    const { warehouse } = namedWarehouse(values.warehouse, facts.warehouses, reader)
     const parsed = taxRateInputSchema.safeParse({ ratePercent: values.ratePercent ?? '', label: values.label ?? null })
     if (!parsed.success) reader.issues(parsed.error.issues)
     const held = warehouse ? facts.rates.get(warehouse.id) : undefined

@@ -7,7 +7,7 @@ import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
 import type { ImportSpec } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -75,12 +75,8 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
     return sheet.rows.map((r): CheckedRow<Write> => {
       const errors = problemsOf(r.row)
       const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
-      const sku = cellText(r.values.sku)
-      const item = sku ? items.get(sku) : undefined
-      if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
-      const whCode = cellText(r.values.warehouse)
-      const warehouse = whCode ? warehouses.get(whCode.toUpperCase()) : undefined
-      if (whCode && !warehouse) add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+      const { sku, item } = namedItem(r.values.sku, items, { add })
+      const { warehouse } = namedWarehouse(r.values.warehouse, warehouses, { add })
       const dayText = cellText(r.values.day)
       // A month typed into a spreadsheet often becomes a date (its first day): read its month.
       const monthText = cellText(r.values.month).slice(0, 7)

@@ -6,7 +6,7 @@ import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { vendorCreateSchema, vendorItemSchema } from '../../../shared/schemas/purchasing.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, parserProblems, repeatedRows } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, parserProblems, repeatedRows } from './importFacts.js'
 import { insertRows } from './recordsImport.js'
 import type { ImportSpec } from './importTypes.js'
 
@@ -86,9 +86,7 @@ export const vendorItemsImport: DataImportDefinition<VendorItemWrite> = {
         if (!nameCheck.success) add('vendorName', vendorName ? zodIssueProblem(nameCheck.error.issues[0]) : problem('import_vendor_name_needed', { vendor: code }))
         else if (!newVendorNames.has(code.toUpperCase())) newVendorNames.set(code.toUpperCase(), vendorName)
       }
-      const sku = cellText(r.values.sku)
-      const item = sku ? items.get(sku) : undefined
-      if (sku && !item) add('sku', problem('sku_not_in_catalog', { sku }))
+      const { sku, item } = namedItem(r.values.sku, items, { add })
       const parsed = vendorItemSchema.safeParse({
         itemId: item?.id ?? 1,
         vendorSku: cellText(r.values.vendorSku),

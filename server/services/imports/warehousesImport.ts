@@ -4,7 +4,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { binCodeFitsPattern, binSchema, warehouseSchema } from '../../../shared/schemas/warehouses.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, filledCells, heldValues, inChunks, marks } from './importFacts.js'
+import { cellText, distinctOf, filledCells, heldValues, inChunks, marks, namedWarehouse } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const WAREHOUSES_SPEC: ImportSpec = {
@@ -94,9 +94,7 @@ export const binsImport = recordsImport<BinWrite, { warehouses: Map<string, { id
     }
   },
   read(values, facts, reader) {
-    const whCode = cellText(values.warehouse)
-    const warehouse = facts.warehouses.get(whCode.toUpperCase())
-    if (whCode && !warehouse) reader.add('warehouse', problem('import_warehouse_unknown', { warehouse: whCode }))
+    const { warehouse } = namedWarehouse(values.warehouse, facts.warehouses, reader)
     const kind = cellText(values.kind).toLowerCase() || 'storage'
     if (kind === 'transit') return null
     const parsed = binSchema.safeParse({ code: values.code ?? '', kind, active: values.active ?? undefined })

@@ -190,7 +190,11 @@ describe('everything out', () => {
     const admin = await src.as('admin')
     const templates: [string, string][] = [['items.xlsx', '/api/items/import/template.xlsx'], ['stock-by-bin.xlsx', '/api/imports/opening_stock/template.xlsx'],
       ['usage-history.xlsx', '/api/imports/usage_history/template.xlsx'], ['accounts.xlsx', '/api/imports/accounts/template.xlsx'],
-      ['vendor-items.xlsx', '/api/imports/vendor_items/template.xlsx'], ['open-purchase-orders.xlsx', '/api/imports/purchase_orders/template.xlsx']]
+      ['vendor-items.xlsx', '/api/imports/vendor_items/template.xlsx'], ['open-purchase-orders.xlsx', '/api/imports/purchase_orders/template.xlsx'],
+      ...(['warehouses', 'bins', 'averages-and-minimums:averages', 'price-levels', 'price-rules', 'vendors', 'reorder-settings', 'lead-times', 'sales-tax'].map((f) => {
+        const [file, kind = file] = f.split(':')
+        return [`${file}.xlsx`, `/api/imports/${kind.replace(/-/g, '_')}/template.xlsx`] as [string, string]
+      }))]
     for (const [file, path] of templates) {
       const res = await download(admin, path)
       expect(res.status, path).toBe(200)

@@ -156,7 +156,7 @@ describe('go-live import page', () => {
 
   it('works by keyboard alone: the kind, the file, check and commit', async () => {
     // The kind after opening stock: one arrow key back reaches it.
-    await openInApp(page, '/admin/imports?kind=purchase_orders')
+    await openInApp(page, '/admin/imports?kind=averages')
     const before = { stock: await onHand(), imports: await imports() }
     // source: WCAG 2.2 SC 2.1.1 Keyboard: the kind is chosen with the arrow keys, the file control takes focus
     await page.locator('h1').first().focus()

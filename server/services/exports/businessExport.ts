@@ -1,6 +1,7 @@
 // The whole business in one zip: first a README workbook that says what each file and each column holds (its
-// meaning, what it allows and which import reads it back), then one workbook per kind of record. Where an import reads a kind (items, stock by bin and lot, accounts, open purchase orders,
-// usage history), its file uses that import's columns, so the zip can be brought into another Lumenyard.
+// meaning, what it allows and which import reads it back), then one workbook per kind of record. Where an import reads a kind (items,
+// warehouses and bins, stock by bin and lot, averages, usage history, prices and tax, accounts, vendors and their items, reorder
+// settings, lead times, open purchase orders), its file uses that import's columns, so the zip can be brought into another Lumenyard.
 // Everything is read in one consistent snapshot and streamed: rows go from the database cursor to the
 // workbook to the zip to the answer, and the writer waits whenever the reader is slower, so memory does not
 // grow with the ledger. Users go out without password hashes or session data; no setting holds a secret.
@@ -16,6 +17,12 @@ import { PURCHASE_ORDERS_GUIDE, PURCHASE_ORDERS_SPEC } from '../imports/purchase
 import { USAGE_HISTORY_GUIDE, USAGE_HISTORY_SPEC } from '../imports/usageHistoryImport.js'
 import { VENDOR_ITEMS_GUIDE, VENDOR_ITEMS_SPEC } from '../imports/vendorItemsImport.js'
 import type { ImportSpec } from '../imports/importTypes.js'
+import { AVERAGES_SPEC } from '../imports/averagesImport.js'
+import { PRICE_LEVELS_SPEC, PRICE_RULES_SPEC } from '../imports/pricingImport.js'
+import { LEAD_TIMES_SPEC, REORDER_SETTINGS_SPEC } from '../imports/reorderSettingsImport.js'
+import { SALES_TAX_SPEC } from '../imports/salesTaxImport.js'
+import { VENDORS_SPEC } from '../imports/vendorsImport.js'
+import { BINS_SPEC, WAREHOUSES_SPEC } from '../imports/warehousesImport.js'
 import { buildXlsx, fieldsSheet, newStreamingBook, openSheet, sheet, type CellInput, type CellKind, type SheetColumn } from './xlsxWriter.js'
 import { DAY, col, formatOf, oneOf, v, type ExportPart, type PartColumn, type Raw } from './exportParts.js'
 import { LEFT_OUT, RECORD_PARTS } from './recordParts.js'
@@ -46,9 +53,32 @@ function importColumns(by: ReadBack, kinds: Record<string, { kind: CellKind; key
   }))
 }
 
+/**
+ * Files written as plain records that an import also reads: each column whose header the import's template has
+ * is read back by it (the round trip brings the zip in through these imports).
+ */
+const READ_AS_RECORDS: Readonly<Record<string, { name: string; spec: ImportSpec }>> = {
+  warehouses: { name: 'warehouses import', spec: WAREHOUSES_SPEC },
+  bins: { name: 'bins import', spec: BINS_SPEC },
+  'averages-and-minimums': { name: 'averages and minimums import', spec: AVERAGES_SPEC },
+  'price-levels': { name: 'price levels import', spec: PRICE_LEVELS_SPEC },
+  'price-rules': { name: 'price rules import', spec: PRICE_RULES_SPEC },
+  vendors: { name: 'vendors import', spec: VENDORS_SPEC },
+  'reorder-settings': { name: 'reorder settings import', spec: REORDER_SETTINGS_SPEC },
+  'lead-times': { name: 'lead times import', spec: LEAD_TIMES_SPEC },
+  'sales-tax': { name: 'sales tax import', spec: SALES_TAX_SPEC },
+}
+
+function readBackAsRecords(part: ExportPart): ExportPart {
+  const by = READ_AS_RECORDS[part.file]
+  if (!by) return part
+  const headers = new Set(by.spec.columns.map((c) => c.header.toLowerCase()))
+  return { ...part, columns: part.columns.map((c) => (headers.has(c.header.toLowerCase()) ? { ...c, readBy: by.name } : c)) }
+}
+
 export type { ExportPart } from './exportParts.js'
 
-export const EXPORT_PARTS: readonly ExportPart[] = [
+export const EXPORT_PARTS: readonly ExportPart[] = ([
   {
     file: 'items', sheet: 'Items',
     about: 'The catalog, one row per item, in the columns of the item import (Stock → Import items reads this file back).',
@@ -416,7 +446,7 @@ export const EXPORT_PARTS: readonly ExportPart[] = [
             UNION ALL SELECT 10, setting_key, value FROM app_settings WHERE setting_key NOT REGEXP 'secret|password|token|credential'
           ) s ORDER BY o, k`,
   },
-]
+] satisfies ExportPart[]).map(readBackAsRecords)
 
 /** Rows written, per file. */
 export type ExportCounts = Record<string, number>

@@ -327,6 +327,24 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'Su número de orden; todas las líneas de una orden lo llevan. Un número que ya está en Lumenyard se rechaza.',
   'open purchase orders import':
     'importación de órdenes de compra abiertas',
+  'warehouses import':
+    'importación de almacenes',
+  'bins import':
+    'importación de ubicaciones',
+  'averages and minimums import':
+    'importación de costos promedio y mínimos',
+  'price levels import':
+    'importación de niveles de precio',
+  'price rules import':
+    'importación de reglas de precio',
+  'vendors import':
+    'importación de proveedores',
+  'reorder settings import':
+    'importación de ajustes de reposición',
+  'lead times import':
+    'importación de plazos de entrega',
+  'sales tax import':
+    'importación de impuestos sobre ventas',
   'A vendor code, as set up under Vendors (or brought in with the vendors import).':
     'Un código de proveedor, tal como está en Proveedores (o traído con la importación de proveedores).',
   'Where it arrives.':

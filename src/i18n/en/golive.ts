@@ -74,7 +74,7 @@ export default {
   },
   everythingOut: {
     title: 'Take everything out',
-    intro: 'Download the whole business as one zip: a spreadsheet for each kind of record (items, stock by bin and lot with cost, every stock movement, usage by day, accounts, jobs, takeoffs with their walls and bills, quotes, sales orders, payments and returns, vendors and what they sell you, purchase orders, receipts, transfers, counts, people without their passwords, settings, the audit trail) and a README that explains every column and names what is left out. The stock, usage, accounts, vendor items and open orders files use the columns of the imports on this page, so they can be brought in again. Only administrators can download it, and each download is recorded in the audit trail.',
+    intro: 'Download the whole business as one zip: a spreadsheet for each kind of record (items, stock by bin and lot with cost, every stock movement, usage by day, accounts, jobs, takeoffs with their walls and bills, quotes, sales orders, payments and returns, vendors and what they sell you, purchase orders, receipts, transfers, counts, people without their passwords, settings, the audit trail) and a README that explains every column and names what is left out. Every file an import on this page reads (warehouses and bins, stock, averages, usage, prices and tax, accounts, vendors and their items, reorder settings, lead times, open orders) uses the columns of that import, so it can be brought in again; the README names which import reads each column. Only administrators can download it, and each download is recorded in the audit trail.',
     download: 'Download everything (.zip)',
     preparing: 'Preparing the download',
     counting: 'Counting the rows to write…',

@@ -4,6 +4,7 @@
 // At phone width, so nothing is cut off (TRIALS: phone 412 px).
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startE2e, type E2eHarness } from '../support/browser.js'
+import { dismissChecklistAndReload } from '../support/setupSteps.js'
 
 let h: E2eHarness
 const KEYS = ['setup.dismissed', 'setup.units_confirmed', 'company.weight_unit', 'company.gs1_prefix']
@@ -46,12 +47,7 @@ describe('first-run checklist (production)', () => {
     expect(prefix.value).toBe('0614141')
     await h.screenshot(page, 'setup-checklist-phone')
 
-    await page.locator('[data-test="setup-dismiss"]').click()
-    await page.locator('.el-message-box__btns .el-button--primary').click()
-    await page.locator('[data-test="greeting"]').waitFor()
-    await page.reload()
-    await page.locator('[data-test="greeting"]').waitFor()
-    await page.waitForLoadState('networkidle')
+    await dismissChecklistAndReload(page)
     expect(new URL(page.url()).pathname).toBe('/')
     expect(await page.locator('[data-test="setup-link"]').count()).toBe(0)
     await context.close()

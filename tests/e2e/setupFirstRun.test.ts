@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createUser } from '../../server/services/userService.js'
 import { startE2e, type E2eHarness } from '../support/browser.js'
 import { databaseNamed, dropDatabases, freshDatabase } from '../support/freshDatabase.js'
+import { dismissChecklistAndReload } from '../support/setupSteps.js'
 
 const DB = databaseNamed('first_run')
 const PASSWORD = 'kiln-lantern-harbour-42'
@@ -87,12 +88,7 @@ describe('first run on an empty database (production)', () => {
     await h.screenshot(page, 'first-run-checklist')
 
     // Dismissed: the start page no longer sends anyone here, and there is no reminder on it.
-    await page.locator('[data-test="setup-dismiss"]').click()
-    await page.locator('.el-message-box__btns .el-button--primary').click()
-    await page.locator('[data-test="greeting"]').waitFor()
-    await page.reload()
-    await page.locator('[data-test="greeting"]').waitFor()
-    await page.waitForLoadState('networkidle')
+    await dismissChecklistAndReload(page)
     expect(new URL(page.url()).pathname).toBe('/')
     expect(await page.locator('[data-test="setup-link"]').count()).toBe(0)
     // Still reached from where data is brought in, with every step as it was.

@@ -1,5 +1,6 @@
 // Reading quotes: the list (open ones by default) and one quote with its lines and every revision of its
 // number. A draft or offered quote past its validity date reads as lapsed.
+import { SqlWhere } from '../../db/sqlWhere.js'
 import type { DataSource, EntityManager } from 'typeorm'
 import { quoteStatusOn, type QuoteStatus } from '../../../shared/sales/quoteStatus.js'
 import type { DocumentTax } from '../../../shared/pricing/salesTax.js'
@@ -45,20 +46,15 @@ function toSummary(r: Row, today: string): QuoteSummary {
 
 export async function listQuotes(ds: DataSource, query: { status: string; customerId?: number; q?: string } & NewestPage): Promise<QuoteSummary[]> {
   const today = todayIso()
-  const where: string[] = []
-  const params: unknown[] = []
-  const add = (sql: string, ...values: unknown[]) => {
-    where.push(sql)
-    params.push(...values)
-  }
-  if (query.status === 'open') add("q.status IN ('draft', 'offered') AND q.valid_until >= ?", today)
-  else if (query.status === 'lapsed') add("q.status IN ('draft', 'offered') AND q.valid_until < ?", today)
-  else if (query.status === 'draft' || query.status === 'offered') add('q.status = ? AND q.valid_until >= ?', query.status, today)
-  else if (query.status !== 'all') add('q.status = ?', query.status)
-  if (query.customerId) add('q.customer_id = ?', query.customerId)
-  if (query.q) add('(q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(3).fill(containsPattern(query.q)))
-  if (query.beforeId) add('q.id < ?', query.beforeId)
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY q.id DESC LIMIT ?`, [...params, query.limit])
+  const where = new SqlWhere()
+  if (query.status === 'open') where.add("q.status IN ('draft', 'offered') AND q.valid_until >= ?", [today])
+  else if (query.status === 'lapsed') where.add("q.status IN ('draft', 'offered') AND q.valid_until < ?", [today])
+  else if (query.status === 'draft' || query.status === 'offered') where.add('q.status = ? AND q.valid_until >= ?', [query.status, today])
+  else if (query.status !== 'all') where.add('q.status = ?', [query.status])
+  if (query.customerId) where.add('q.customer_id = ?', [query.customerId])
+  if (query.q) where.add('(q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', Array(3).fill(containsPattern(query.q)))
+  if (query.beforeId) where.add('q.id < ?', [query.beforeId])
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.sql()} ORDER BY q.id DESC LIMIT ?`, [...where.params, query.limit])
   return rows.map((r) => toSummary(r, today))
 }
 

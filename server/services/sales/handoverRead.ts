@@ -1,6 +1,7 @@
 // Reading fulfilment: per order line how far it got (held, on a pick list, picked and waiting, on open
 // tickets, handed over, backordered, cancelled), the order's pick lists and tickets; one ticket with its
 // lines by bin and lot, weights and handling cautions; the open tickets the warehouse dispatches.
+import { SqlWhere } from '../../db/sqlWhere.js'
 import type { DataSource } from 'typeorm'
 import { lineHandling } from '../../../shared/picking/handling.js'
 import type { HandoverKind, HandoverStatus } from '../../../shared/sales/handoverTerms.js'
@@ -30,19 +31,14 @@ function toSummary(r: Row): TicketSummary {
 }
 
 export async function listTickets(ds: DataSource, query: { status: string; orderId?: number; q?: string } & Partial<NewestPage>): Promise<TicketSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  const add = (sql: string, ...values: unknown[]) => {
-    where.push(sql)
-    params.push(...values)
-  }
-  if (query.status !== 'all') add('t.status = ?', query.status)
-  if (query.orderId) add('t.sales_order_id = ?', query.orderId)
-  if (query.q) add('(t.number LIKE ? OR o.number LIKE ? OR c.name LIKE ?)', ...Array(3).fill(containsPattern(query.q)))
-  if (query.beforeId) add('t.id < ?', query.beforeId)
+  const where = new SqlWhere()
+  if (query.status !== 'all') where.add('t.status = ?', [query.status])
+  if (query.orderId) where.add('t.sales_order_id = ?', [query.orderId])
+  if (query.q) where.add('(t.number LIKE ? OR o.number LIKE ? OR c.name LIKE ?)', Array(3).fill(containsPattern(query.q)))
+  if (query.beforeId) where.add('t.id < ?', [query.beforeId])
   // An order's own tickets come whole; the dispatch list a page at a time.
   const page = query.orderId ? { sql: '', params: [] } : { sql: 'LIMIT ?', params: [query.limit ?? NEWEST_PAGE_MAX] }
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY t.id DESC ${page.sql}`, [...params, ...page.params])
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.sql()} ORDER BY t.id DESC ${page.sql}`, [...where.params, ...page.params])
   return rows.map(toSummary)
 }
 

@@ -1,5 +1,6 @@
 // Reading sales orders: the list (open ones by default; the buyer's view: those with special orders) and
 // one order with its lines (held, picked, handed over, the special order's PO) and its payments.
+import { SqlWhere } from '../../db/sqlWhere.js'
 import type { DataSource } from 'typeorm'
 import { compareMoney, roundMoney, subtractMoney } from '../../../shared/money.js'
 import type { PaymentMethod, PaymentStatus, SalesOrderStatus } from '../../../shared/sales/salesOrderTerms.js'
@@ -39,19 +40,14 @@ function toSummary(r: Row): SalesOrderSummary {
 }
 
 export async function listSalesOrders(ds: DataSource, query: { status: string; customerId?: number; specialOnly?: boolean; q?: string } & NewestPage): Promise<SalesOrderSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  const add = (sql: string, ...values: unknown[]) => {
-    where.push(sql)
-    params.push(...values)
-  }
-  if (query.status === 'open') add("o.status IN ('booked', 'ready')")
-  else if (query.status !== 'all') add('o.status = ?', query.status)
-  if (query.customerId) add('o.customer_id = ?', query.customerId)
-  if (query.specialOnly) add('EXISTS (SELECT 1 FROM sales_order_lines sl WHERE sl.sales_order_id = o.id AND sl.made_to_order = 1)')
-  if (query.q) add('(o.number LIKE ? OR q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', ...Array(4).fill(containsPattern(query.q)))
-  if (query.beforeId) add('o.id < ?', query.beforeId)
-  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.length ? 'WHERE ' + where.join(' AND ') : ''} ORDER BY o.id DESC LIMIT ?`, [...params, query.limit])
+  const where = new SqlWhere()
+  if (query.status === 'open') where.add("o.status IN ('booked', 'ready')")
+  else if (query.status !== 'all') where.add('o.status = ?', [query.status])
+  if (query.customerId) where.add('o.customer_id = ?', [query.customerId])
+  if (query.specialOnly) where.add('EXISTS (SELECT 1 FROM sales_order_lines sl WHERE sl.sales_order_id = o.id AND sl.made_to_order = 1)')
+  if (query.q) where.add('(o.number LIKE ? OR q.number LIKE ? OR c.name LIKE ? OR j.name LIKE ?)', Array(4).fill(containsPattern(query.q)))
+  if (query.beforeId) where.add('o.id < ?', [query.beforeId])
+  const rows: Row[] = await ds.query(`${SUMMARY_SQL} ${where.sql()} ORDER BY o.id DESC LIMIT ?`, [...where.params, query.limit])
   return rows.map(toSummary)
 }
 

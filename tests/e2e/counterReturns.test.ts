@@ -38,8 +38,13 @@ async function backIn(itemId: number, bin: string, lot: string | null): Promise<
 }
 
 async function choose(page: Page, select: string, text: string) {
-  await page.locator(`[data-test="${select}"]`).click()
-  await page.locator('.el-select-dropdown__item:visible').filter({ hasText: text }).first().click()
+  // A click on the option while its list is still opening can miss; a person would simply pick it again.
+  for (let attempt = 0; attempt < 3; attempt++) {
+    if ((await page.locator(`[data-test="${select}"]`).textContent())?.includes(text)) break
+    if (!(await page.locator('.el-select-dropdown__item:visible').count())) await page.locator(`[data-test="${select}"]`).click()
+    await page.locator('.el-select-dropdown__item:visible').filter({ hasText: text }).first().click()
+    await page.waitForTimeout(200)
+  }
   await poll(() => page.locator(`[data-test="${select}"]`).textContent()).toContain(text)
   // A list still open (the click landed while it was opening) is closed by clicking beside it, not Escape (that closes the dialog).
   if (await page.locator('.el-select-dropdown__item:visible').count()) await page.locator('[data-test="return-figures"]').click()

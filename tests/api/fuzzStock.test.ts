@@ -11,28 +11,53 @@ import fc from 'fast-check'
 import type supertest from 'supertest'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { routeTable } from '../../server/http/routeTable.js'
-import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { CSRF, TEST_PASSWORD, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { createStockFixture, type StockFixture } from '../support/stockFixtures.js'
 
 const SEED = Number(process.env.LUMENYARD_FUZZ_SEED) || Date.now() % 1_000_000
 let h: ApiHarness
 let fx: StockFixture
 let agent: supertest.Agent
+let fuzzUserId: number
 beforeAll(async () => {
   h = await startApiHarness()
   fx = await createStockFixture(h.ds)
-  agent = await h.as('admin', 'counter', 'warehouse', 'buyer')
+  // A user of this file's own, so the fingerprint can follow every row it writes.
+  const username = `fuzz-${fx.tag}`
+  fuzzUserId = (await h.user(username, ['admin', 'counter', 'warehouse', 'buyer'])).id
+  agent = h.agent()
+  const signIn = await agent.post('/api/session').set(CSRF).send({ username, password: TEST_PASSWORD })
+  expect(signIn.status).toBe(200)
 })
 afterAll(() => h?.close())
 
 /**
- * What a refused request must leave untouched. The small stock tables by CHECKSUM TABLE; the ledger is
- * append-only (no code path updates or deletes a stock_moves row), so its row count and last id.
+ * What a refused request must leave untouched: every row of the fixture's own item, warehouses and bins, and every
+ * row the fuzzing user wrote anywhere (ledger, reservations, transfers, idempotency records). Each set is read as a
+ * count and a sum of row CRCs, so a changed, added or removed row changes the fingerprint. Scoped to the fuzz's
+ * own rows because other API test files write to the same tables while this one runs. Every stock change goes
+ * through a ledger row that carries its user (the ledger equals the balances), so a half-applied refusal that
+ * touched a demo item still shows as a new row of the fuzzing user.
  */
 async function stockFingerprint(): Promise<string> {
-  const sums = (await h.ds.query('CHECKSUM TABLE stock_balances, stock_reservations, item_warehouses, lots, bins, transfers, transfer_lines, idempotency_records')) as { Checksum: string }[]
-  const [moves] = (await h.ds.query('SELECT COUNT(*) AS n, COALESCE(MAX(id), 0) AS last FROM stock_moves')) as { n: string; last: string }[]
-  return `${sums.map((s) => s.Checksum).join(',')}|${moves.n}|${moves.last}`
+  const wh = fx.warehouses.map((w) => w.id)
+  const sets: [string, string, string, unknown[]][] = [
+    ['stock_balances', 'id, item_id, warehouse_id, bin_id, lot_id, on_hand, reserved', 'item_id = ? OR warehouse_id IN (?)', [fx.itemId, wh]],
+    ['stock_reservations', 'id, balance_id, item_id, bin_id, lot_id, qty, doc_type, doc_id', 'item_id = ? OR warehouse_id IN (?) OR user_id = ?', [fx.itemId, wh, fuzzUserId]],
+    ['item_warehouses', 'item_id, warehouse_id, avg_cost, min_qty', 'item_id = ? OR warehouse_id IN (?)', [fx.itemId, wh]],
+    ['lots', 'id, item_id, code, vendor_id', 'item_id = ?', [fx.itemId]],
+    ['bins', 'id, warehouse_id, code, kind, active', 'warehouse_id IN (?)', [wh]],
+    ['transfers', 'id, from_warehouse_id, to_warehouse_id, shipped_by, received_by, received_at', 'from_warehouse_id IN (?) OR to_warehouse_id IN (?) OR shipped_by = ? OR received_by = ?', [wh, wh, fuzzUserId, fuzzUserId]],
+    ['transfer_lines', 'id, transfer_id, item_id, lot_id, from_bin_id, received_qty', 'item_id = ?', [fx.itemId]],
+    ['stock_moves', 'id, move_type, item_id, warehouse_id, bin_id, lot_id, unit_cost', 'item_id = ? OR warehouse_id IN (?) OR user_id = ?', [fx.itemId, wh, fuzzUserId]],
+    ['idempotency_records', 'user_id, idem_key, request_hash, response_status', 'user_id = ?', [fuzzUserId]],
+  ]
+  const parts: string[] = []
+  for (const [table, cols, where, params] of sets) {
+    const [row] = (await h.ds.query(`SELECT COUNT(*) AS n, COALESCE(SUM(CRC32(CONCAT_WS('|', ${cols}))), 0) AS s FROM ${table} WHERE ${where}`, params)) as { n: string; s: string }[]
+    parts.push(`${table}:${row.n}:${row.s}`)
+  }
+  return parts.join(',')
 }
 
 // ---------------------------------------------------------------- 1. model-based sequences

@@ -2,6 +2,7 @@
 import { AuditEntry } from './AuditEntry.js'
 import { Bin } from './Bin.js'
 import { Bom, BomLine } from './Bom.js'
+import { BusinessExportJob } from './BusinessExportJob.js'
 import { Customer, Job, Takeoff } from './Customer.js'
 import { CountBin, CountItem, CountLine, CycleCount } from './CycleCount.js'
 import { DeviceOutboxReport } from './DeviceOutboxReport.js'
@@ -83,4 +84,5 @@ export const allEntities = [
   DeviceOutboxReport,
   HandoverTicket,
   HandoverTicketLine,
+  BusinessExportJob,
 ]

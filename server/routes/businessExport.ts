@@ -25,11 +25,11 @@ export default (ctx: AppContext) =>
       method: 'post', path: '/jobs', access: { roles: ADMIN_ONLY }, status: 202,
       handler: (req) => startExportJob(ctx.ds, actorOf(req), req.user!.locale, (err) => ctx.logger.error({ err }, 'everything out failed')),
     },
-    { method: 'get', path: '/jobs/current', access: { roles: ADMIN_ONLY }, handler: () => ({ job: currentExportJob(ctx.ds) }) },
+    { method: 'get', path: '/jobs/current', access: { roles: ADMIN_ONLY }, handler: async () => ({ job: await currentExportJob(ctx.ds) }) },
     {
       method: 'get', path: '/jobs/:id/file', access: { roles: ADMIN_ONLY },
-      handler: (req, res) => {
-        const found = exportJobFile(ctx.ds, String(req.params.id))
+      handler: async (req, res) => {
+        const found = await exportJobFile(ctx.ds, String(req.params.id))
         return sendFileDownload(res, { path: found.file, name: found.filename, type: 'application/zip', bytes: found.bytes })
       },
     },

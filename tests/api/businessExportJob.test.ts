@@ -1,17 +1,25 @@
 // Everything out as a job the admin's screen follows, against the real MariaDB: two starts at once (a double
 // click) and a start while it runs (a second tab, a reload) answer the one job; the percentage only grows and
 // reaches 100 once the zip is whole; the rows counted before writing are the rows written; the finished file
-// comes with its length and holds the README first; other roles are refused.
+// comes with its length and holds the README first; other roles are refused. Two app processes on one database
+// (behind one proxy) answer the same job, start no second one, and either serves the file; a job whose process
+// died is seen as failed and frees the way for the next.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { download, unzipEntries } from '../support/downloads.js'
 
 let h: ApiHarness
+// A second app on the same database: another process behind the same proxy.
+let other: ApiHarness
 
 beforeAll(async () => {
   h = await startApiHarness()
+  other = await startApiHarness()
 })
-afterAll(() => h?.close())
+afterAll(async () => {
+  await other?.close()
+  await h?.close()
+})
 
 interface Job { id: string; state: string; percent: number; rowsDone: number; rowsTotal: number | null; bytes: number | null }
 
@@ -63,5 +71,59 @@ describe('everything out as a job', () => {
       expect((await other.get('/api/business-export/jobs/current')).status, role).toBe(403)
       expect((await other.get(`/api/business-export/jobs/${job.id}/file`)).status, role).toBe(403)
     }
+  }, 600_000)
+
+  it('keeps the job in the database: a second app process follows the same job, starts none of its own and serves the file', async () => {
+    const adminA = await h.as('admin')
+    // Each process signs in on its own (the session store is the database too, but supertest keeps one app per agent).
+    const adminB = await other.as('admin')
+    const audits = async () => Number((await h.ds.query("SELECT COUNT(*) AS n FROM audit_entries WHERE action = 'business.export'"))[0].n)
+    const auditsBefore = await audits()
+    // Two starts at once, one on each process (a double click that the proxy sent to both): one job.
+    const [a, b] = await Promise.all([adminA.post('/api/business-export/jobs').set(CSRF), adminB.post('/api/business-export/jobs').set(CSRF)])
+    expect([a.status, b.status]).toEqual([202, 202])
+    expect(b.body.id).toBe(a.body.id)
+    let job = a.body as Job
+    for (let i = 0; job.state === 'running' && i < 2400; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 250))
+      // The process that did not start it reports its progress.
+      const seen = await adminB.get('/api/business-export/jobs/current')
+      expect(seen.body.job.id).toBe(a.body.id)
+      job = seen.body.job
+    }
+    expect(job.state).toBe('ready')
+    expect(job.percent).toBe(100)
+    expect(await audits()).toBe(auditsBefore + 1)
+    // Either process serves the finished file, whole.
+    for (const agent of [adminA, adminB]) {
+      const file = await download(agent, `/api/business-export/jobs/${job.id}/file`)
+      expect(file.status).toBe(200)
+      expect((file.body as Buffer).length).toBe(job.bytes)
+    }
+  }, 600_000)
+
+  it('sees a running job whose process went silent as failed, and lets the next export start', async () => {
+    const admin = await other.as('admin')
+    // The latest job, left running by a process that died: it holds the slot, and its heartbeat stopped two minutes ago.
+    await h.ds.query("DELETE FROM business_export_jobs WHERE state = 'running'")
+    const dead = '00000000-0000-4000-8000-00000000dead'
+    await h.ds.query(
+      `INSERT INTO business_export_jobs (id, state, running_slot, filename, file_path, started_at, heartbeat_at)
+        VALUES (?, 'running', 1, 'lumenyard-everything-dead.zip', '/nonexistent/export.zip', CURRENT_TIMESTAMP(3), CURRENT_TIMESTAMP(3) - INTERVAL 2 MINUTE)`,
+      [dead],
+    )
+    const current = await admin.get('/api/business-export/jobs/current')
+    expect([current.body.job.id, current.body.job.state]).toEqual([dead, 'failed'])
+    expect((await admin.get(`/api/business-export/jobs/${dead}/file`)).status).toBe(404)
+    // The slot is free again: a start begins a new job rather than answering the dead one.
+    const started = await admin.post('/api/business-export/jobs').set(CSRF)
+    expect(started.status).toBe(202)
+    expect(started.body.id).not.toBe(dead)
+    let job = started.body as Job
+    for (let i = 0; job.state === 'running' && i < 2400; i++) {
+      await new Promise((resolve) => setTimeout(resolve, 250))
+      job = (await admin.get('/api/business-export/jobs/current')).body.job
+    }
+    expect(job.state).toBe('ready')
   }, 600_000)
 })

@@ -1,9 +1,15 @@
 // Everything out as a short-lived job, so the administrator's screen can show a true percentage: the export
 // counts the rows it will write (in its own snapshot), then streams them to a temporary zip on the server's
 // disk (never into memory), counting as it goes; the screen asks how far it has got and, once ready, downloads
-// the file with its length known. One job runs at a time for the whole business: a second start while one
-// runs (a double click, a second tab, a reload) answers the running job instead of starting another. A
-// finished file is kept for a while to be downloaded, then deleted.
+// the file with its length known.
+//
+// The job's state (status, rows done of the total, file, who, when, until when it is kept) is a row of
+// `business_export_jobs`, so every app process behind a proxy answers the same progress and serves the same
+// file (the processes share the server's disk). One job runs at a time for the whole business, across
+// processes: a running job holds the one `running_slot`, so a second start (a double click, a second tab, a
+// reload, another process) answers the running job instead of starting another. The process that runs a job
+// beats its heartbeat while it works; a running job whose heartbeat stopped (its process died) is seen as
+// failed and frees the slot. A finished file is kept for a while to be downloaded, then deleted.
 import { randomUUID } from 'node:crypto'
 import { createWriteStream } from 'node:fs'
 import { mkdtemp, rm, stat } from 'node:fs/promises'
@@ -12,6 +18,7 @@ import path from 'node:path'
 import { finished } from 'node:stream/promises'
 import type { DataSource } from 'typeorm'
 import type { ExportJob } from '../../../shared/schemas/businessExport.js'
+import { BusinessExportJob } from '../../entities/BusinessExportJob.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { businessExportName, exportBusiness } from './businessExport.js'
@@ -19,101 +26,142 @@ import type { ReadmeLang } from './readmeWords.js'
 
 /** How long a finished file waits to be downloaded before it is deleted. */
 export const EXPORT_FILE_KEEP_MS = 30 * 60_000
+/** How often the running process says it is still at work, and how long a silence means it died. */
+const HEARTBEAT_MS = 5_000
+export const EXPORT_STALE_MS = 60_000
+/** Progress is written to the database at most this often (and once more at the end). */
+const PROGRESS_WRITE_MS = 400
 
-interface Job {
-  id: string
-  state: ExportJob['state']
-  rowsTotal: number | null
-  rowsDone: number
-  filename: string
-  file: string
-  bytes: number | null
-  startedAt: Date
-  finishedAt: Date | null
-  expiry?: NodeJS.Timeout
-}
-
-// One registry per database: the app's own, and a test harness's second app beside it.
-const registries = new WeakMap<DataSource, { latest: Job | null }>()
-const registryOf = (ds: DataSource) => {
-  let r = registries.get(ds)
-  if (!r) registries.set(ds, (r = { latest: null }))
-  return r
-}
-
-const percentOf = (job: Job) => {
+const percentOf = (job: BusinessExportJob) => {
   if (job.state === 'ready') return 100
   if (!job.rowsTotal) return 0
   // The zip is only whole once its last entry is written: 99 % until then.
   return Math.min(99, Math.floor((job.rowsDone / job.rowsTotal) * 100))
 }
 
-const viewOf = (job: Job): ExportJob => ({
-  id: job.id, state: job.state, percent: percentOf(job), rowsDone: job.rowsDone, rowsTotal: job.rowsTotal, filename: job.filename, bytes: job.bytes,
-  startedAt: job.startedAt.toISOString(), finishedAt: job.finishedAt?.toISOString() ?? null,
+const viewOf = (job: BusinessExportJob): ExportJob => ({
+  id: job.id, state: job.state, percent: percentOf(job), rowsDone: job.rowsDone, rowsTotal: job.rowsTotal, filename: job.filename,
+  bytes: job.bytes === null ? null : Number(job.bytes), startedAt: new Date(job.startedAt).toISOString(),
+  finishedAt: job.finishedAt ? new Date(job.finishedAt).toISOString() : null,
 })
 
-async function discard(job: Job): Promise<void> {
-  clearTimeout(job.expiry)
-  await rm(path.dirname(job.file), { recursive: true, force: true })
+const jobs = (ds: DataSource) => ds.getRepository(BusinessExportJob)
+
+/** A running job whose process stopped beating (it crashed or was killed) becomes failed and frees the slot. */
+async function failSilentJobs(ds: DataSource): Promise<void> {
+  await ds.query(
+    `UPDATE business_export_jobs SET state = 'failed', running_slot = NULL, finished_at = CURRENT_TIMESTAMP(3)
+      WHERE state = 'running' AND heartbeat_at < CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND`,
+    [EXPORT_STALE_MS * 1000],
+  )
 }
 
-async function run(ds: DataSource, actor: AuditActor, lang: ReadmeLang, job: Job, log: (err: unknown) => void): Promise<void> {
-  const out = createWriteStream(job.file)
+const removeFileOf = (filePath: string) => rm(path.dirname(filePath), { recursive: true, force: true })
+
+/** Deletes the files of finished jobs other than `keep` that are past their time or superseded; they are no longer offered. */
+async function discardOldFiles(ds: DataSource, keep: string): Promise<void> {
+  const old: { id: string; file_path: string }[] = await ds.query(
+    "SELECT id, file_path FROM business_export_jobs WHERE id <> ? AND state <> 'running' AND (expires_at IS NULL OR expires_at > CURRENT_TIMESTAMP(3) - INTERVAL 1 DAY)",
+    [keep],
+  )
+  if (!old.length) return
+  await ds.query('UPDATE business_export_jobs SET expires_at = LEAST(COALESCE(expires_at, CURRENT_TIMESTAMP(3)), CURRENT_TIMESTAMP(3)) WHERE id IN (?)', [old.map((j) => j.id)])
+  await Promise.all(old.map((j) => removeFileOf(j.file_path)))
+}
+
+async function run(ds: DataSource, actor: AuditActor, lang: ReadmeLang, id: string, file: string, log: (err: unknown) => void): Promise<void> {
+  const out = createWriteStream(file)
+  let rowsTotal: number | null = null
+  let rowsDone = 0
+  let lastWrite = 0
+  // Writes go one after another, so a late progress write never overtakes the final one.
+  let writes: Promise<unknown> = Promise.resolve()
+  const write = (sql: string, params: unknown[]) => (writes = writes.then(() => ds.query(sql, params)).catch(log))
+  const progress = (force = false) => {
+    if (!force && Date.now() - lastWrite < PROGRESS_WRITE_MS) return
+    lastWrite = Date.now()
+    void write("UPDATE business_export_jobs SET rows_total = ?, rows_done = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'", [rowsTotal, rowsDone, id])
+  }
+  const heartbeat = setInterval(() => progress(true), HEARTBEAT_MS)
+  heartbeat.unref()
   try {
-    await exportBusiness(ds, actor, out, lang, { total: (n) => (job.rowsTotal = n), advance: (n) => (job.rowsDone += n) })
+    await exportBusiness(ds, actor, out, lang, {
+      total: (n) => { rowsTotal = n; progress(true) },
+      advance: (n) => { rowsDone += n; progress() },
+    })
     await finished(out)
-    job.bytes = (await stat(job.file)).size
-    job.state = 'ready'
-    job.expiry = setTimeout(() => {
-      const registry = registryOf(ds)
-      if (registry.latest === job) registry.latest = null
-      void discard(job)
-    }, EXPORT_FILE_KEEP_MS)
-    job.expiry.unref()
+    const bytes = (await stat(file)).size
+    clearInterval(heartbeat)
+    await writes
+    const done: { affectedRows: number } = await ds.query(
+      `UPDATE business_export_jobs SET state = 'ready', running_slot = NULL, rows_total = ?, rows_done = ?, bytes = ?, finished_at = CURRENT_TIMESTAMP(3),
+        expires_at = CURRENT_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id = ? AND state = 'running'`,
+      [rowsTotal, rowsDone, bytes, EXPORT_FILE_KEEP_MS * 1000, id],
+    )
+    // Declared failed meanwhile (this process was silent too long): the file is not offered, so it goes.
+    if (!done.affectedRows) return void (await removeFileOf(file))
+    setTimeout(() => void removeFileOf(file), EXPORT_FILE_KEEP_MS).unref()
   } catch (err) {
-    job.state = 'failed'
+    clearInterval(heartbeat)
     out.destroy()
     log(err)
-    await discard(job)
-  } finally {
-    job.finishedAt = new Date()
+    await writes
+    await ds.query("UPDATE business_export_jobs SET state = 'failed', running_slot = NULL, finished_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'", [id]).catch(log)
+    await removeFileOf(file)
   }
 }
 
-/** Starts the export (its README in `lang`), or answers the one already running. */
+/** Starts the export (its README in `lang`), or answers the one already running in any process. */
 export async function startExportJob(ds: DataSource, actor: AuditActor, lang: ReadmeLang, log: (err: unknown) => void): Promise<ExportJob> {
-  const registry = registryOf(ds)
-  if (registry.latest?.state === 'running') return viewOf(registry.latest)
-  const before = registry.latest
+  await failSilentJobs(ds)
+  const running = await jobs(ds).findOneBy({ runningSlot: 1 })
+  if (running) return viewOf(running)
   const at = new Date()
   const dir = await mkdtemp(path.join(tmpdir(), 'lumenyard-export-'))
-  // Checked again after the await: a second start that arrived meanwhile answers this one's job.
-  const meanwhile = registryOf(ds).latest as Job | null
-  if (meanwhile !== before && meanwhile?.state === 'running') {
+  const id = randomUUID()
+  const file = path.join(dir, 'export.zip')
+  // The unique slot decides between two starts at once (in this process or another): the loser answers the winner's job.
+  const inserted: { affectedRows: number } = await ds.query(
+    "INSERT IGNORE INTO business_export_jobs (id, state, running_slot, filename, file_path, user_id) VALUES (?, 'running', 1, ?, ?, ?)",
+    [id, businessExportName(at), file, actor.userId],
+  )
+  if (!inserted.affectedRows) {
     await rm(dir, { recursive: true, force: true })
-    return viewOf(meanwhile)
+    const winner = await jobs(ds).findOneBy({ runningSlot: 1 })
+    if (winner) return viewOf(winner)
+    // The other start finished between the two reads: its job is the latest.
+    const latest = await currentExportJob(ds)
+    if (latest) return latest
+    throw AppError.conflict('export_job_not_ready', 'Another export was starting; try again.')
   }
-  const job: Job = {
-    id: randomUUID(), state: 'running', rowsTotal: null, rowsDone: 0, filename: businessExportName(at), file: path.join(dir, 'export.zip'),
-    bytes: null, startedAt: at, finishedAt: null,
-  }
-  registry.latest = job
-  if (before && before.state === 'ready') await discard(before)
-  void run(ds, actor, lang, job, log)
+  await discardOldFiles(ds, id)
+  void run(ds, actor, lang, id, file, log)
+  return viewOf(await jobs(ds).findOneByOrFail({ id }))
+}
+
+/** The latest export (running, ready and still kept, or failed), or null: what the screen shows after a reload. */
+export async function currentExportJob(ds: DataSource): Promise<ExportJob | null> {
+  await failSilentJobs(ds)
+  const [job] = await jobs(ds).find({ order: { startedAt: 'DESC' }, take: 1 })
+  if (!job) return null
+  const kept: { kept: number }[] = await ds.query('SELECT expires_at IS NULL OR expires_at > CURRENT_TIMESTAMP(3) AS kept FROM business_export_jobs WHERE id = ?', [job.id])
+  if (job.state === 'ready' && !Number(kept[0]?.kept)) return null
   return viewOf(job)
 }
 
-/** The latest export (running, ready or failed), or null: what the screen shows after a reload. */
-export function currentExportJob(ds: DataSource): ExportJob | null {
-  const job = registryOf(ds).latest
-  return job ? viewOf(job) : null
-}
-
-/** The finished file of a job, for the download. */
-export function exportJobFile(ds: DataSource, id: string): { file: string; filename: string; bytes: number } {
-  const job = registryOf(ds).latest
-  if (!job || job.id !== id) throw AppError.notFound('export_job_not_found', 'That download is no longer kept; start it again.')
+/** The finished file of a job, for the download, from whichever process wrote it. */
+export async function exportJobFile(ds: DataSource, id: string): Promise<{ file: string; filename: string; bytes: number }> {
+  const [job]: { state: string; file_path: string; filename: string; bytes: string | number | null; kept: number }[] = await ds.query(
+    'SELECT state, file_path, filename, bytes, expires_at > CURRENT_TIMESTAMP(3) AS kept FROM business_export_jobs WHERE id = ?',
+    [id.slice(0, 36)],
+  )
+  if (!job || (job.state === 'ready' && !Number(job.kept)) || job.state === 'failed') {
+    throw AppError.notFound('export_job_not_found', 'That download is no longer kept; start it again.')
+  }
   if (job.state !== 'ready' || job.bytes === null) throw AppError.conflict('export_job_not_ready', 'That download is not ready yet.')
-  return { file: job.file, filename: job.filename, bytes: job.bytes }
+  const bytes = Number(job.bytes)
+  // Its file went with the disk it was on (a restart that cleared the temporary folder): no longer kept.
+  const onDisk = await stat(job.file_path).then((s) => s.size === bytes, () => false)
+  if (!onDisk) throw AppError.notFound('export_job_not_found', 'That download is no longer kept; start it again.')
+  return { file: job.file_path, filename: job.filename, bytes }
 }

@@ -16,9 +16,9 @@ import { csrfGuard } from './http/csrf.js'
 import { pageHtml } from './http/pagePreloads.js'
 import { createSessionStore } from './db/sessionStore.js'
 import { buildRouters } from './routes/index.js'
-import { absoluteTimeout, configurePassport } from './http/session.js'
+import { absoluteTimeout, configurePassport, renewWhenDue } from './http/session.js'
 import { costReplacer } from './services/costVisibility.js'
-import { costScope } from './http/costScope.js'
+import { costAccess, jsonWithCostAccess } from './http/costAccess.js'
 import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
 import { createPayProvider } from './services/payments/payProvider.js'
 import { cardSettlement, closeCancelledCardIn } from './services/sales/cardDeposits.js'
@@ -126,6 +126,7 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.disable('x-powered-by')
   // Every JSON answer leaves out the costs its caller may not see (services/costVisibility.ts).
   app.set('json replacer', costReplacer)
+  jsonWithCostAccess(app)
   if (config.session.trustProxy) app.set('trust proxy', 1)
   app.use(securityHeaders())
   const dist = deps.clientDist ?? clientDist
@@ -155,7 +156,9 @@ export function createApp(deps: AppDeps): BuiltApp {
       store,
       resave: false,
       saveUninitialized: false,
-      rolling: true, // the cookie's idle timeout restarts on every request; the row's at most once a minute (db/sessionStore.ts)
+      // The idle timeout restarts with the row and the cookie together, at most once a minute (renewWhenDue below,
+      // db/sessionStore.ts), rather than a freshly signed cookie on every answer.
+      rolling: false,
       cookie: {
         httpOnly: true,
         sameSite: 'lax',
@@ -164,6 +167,7 @@ export function createApp(deps: AppDeps): BuiltApp {
       },
     }),
   )
+  app.use(renewWhenDue())
   app.use(pp.initialize())
   app.use(pp.session())
   app.use(absoluteTimeout(config.session.maxHours))
@@ -174,7 +178,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     res.set('Cache-Control', 'no-store')
     next()
   })
-  app.use('/api', costScope(ds))
+  app.use('/api', costAccess(ds))
   for (const { prefix, router } of buildRouters(ctx)) app.use('/api' + prefix, router)
   app.use('/api', apiNotFound)
 

@@ -11,6 +11,8 @@ declare global {
 declare module 'express-session' {
   interface SessionData {
     signedInAt?: number
+    /** When the idle timeout was last pushed forward (ms): changed at most once a minute (db/sessionStore.ts). */
+    renewedAt?: number
     /** Written by passport: the signed-in user's id and session epoch. */
     passport?: { user?: { id: number; epoch: number } }
   }

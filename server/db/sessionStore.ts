@@ -6,6 +6,8 @@
 // - the row's expiry (the idle timeout) is pushed forward at most once a minute instead of on every
 //   request, so a read no longer commits and waits on a log flush. The idle timeout therefore ends a
 //   session between `idle − 1 min` and `idle` after the last request; the absolute timeout is unchanged.
+//   The cookie follows the row: it is signed and sent again only when the row is written (`renewWhenDue`,
+//   http/session.ts), not on every answer.
 import session from 'express-session'
 import MySQLStoreFactory from 'express-mysql-session'
 import mysql from 'mysql2/promise'
@@ -41,6 +43,15 @@ type SessionData = session.SessionData
 
 /** What the store read with a session, keyed by the session's `passport` object (req.session shares it). */
 const loaded = new WeakMap<object, Loaded>()
+
+/**
+ * Whether this session's idle timeout is due to be pushed forward: its row was last written over a minute ago,
+ * or the store read no record of when (a session without a signed-in user).
+ */
+export function renewalDue(sess: Partial<SessionData>, now = Date.now()): boolean {
+  const seen = sess.passport ? loaded.get(sess.passport) : undefined
+  return !seen || now - seen.touchedAt >= TOUCH_EVERY_MS
+}
 
 /** The user row read together with this session, if the store read one. */
 export function userReadWithSession(passportData: object | undefined): SessionUserRow | null | undefined {
@@ -87,8 +98,7 @@ export function createSessionStore(config: AppConfig): { store: session.Store; c
   }
 
   const touch = (sid: string, sess: SessionData, done: Callback) => {
-    const seen = sess.passport ? loaded.get(sess.passport) : undefined
-    if (seen && Date.now() - seen.touchedAt < TOUCH_EVERY_MS) return done()
+    if (!renewalDue(sess)) return done()
     plainTouch(sid, sess, done)
   }
   Object.assign(store, { get, touch }) // express-session calls both with a callback

@@ -6,6 +6,7 @@ import { Strategy as LocalStrategy } from 'passport-local'
 import type { DataSource } from 'typeorm'
 import type { SessionUser } from '../../shared/schemas/auth.js'
 import type { User } from '../entities/User.js'
+import { renewalDue } from '../db/sessionStore.js'
 import { AppError } from '../errors.js'
 import { sessionRefOf, sessionUserFor, verifyCredentials, type SessionRef } from '../services/authService.js'
 
@@ -59,7 +60,20 @@ export function logOut(req: Request): Promise<void> {
   })
 }
 
-/** Absolute session lifetime, on top of the idle timeout the rolling cookie gives. */
+/**
+ * The idle timeout without a signed cookie on every answer: a signed-in session's row and cookie are renewed
+ * together, at most once a minute. When renewal is due the session is marked changed, so express-session writes
+ * the row (with the new expiry) and sends the cookie again; any other answer carries no cookie (`rolling` is off).
+ */
+export function renewWhenDue() {
+  return (req: Request, _res: Response, next: NextFunction) => {
+    const sess = req.session
+    if (sess?.passport?.user && renewalDue(sess)) sess.renewedAt = Date.now()
+    next()
+  }
+}
+
+/** Absolute session lifetime, on top of the idle timeout the session's renewals give. */
 export function absoluteTimeout(maxHours: number) {
   return async (req: Request, _res: Response, next: NextFunction) => {
     const started = req.session?.signedInAt

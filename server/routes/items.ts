@@ -2,6 +2,7 @@
 import { itemListQuerySchema, itemPatchSchema, itemSchema, lotUpdateSchema } from '../../shared/schemas/catalog.js'
 import { ADMIN_ONLY, ANYONE_SIGNED_IN } from '../../shared/roles.js'
 import { actorOf, type AppContext } from '../context.js'
+import { costsOf } from '../http/costAccess.js'
 import { sendXlsx } from '../http/fileResponse.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
@@ -29,14 +30,14 @@ export default (ctx: AppContext) =>
       access: readers,
       handler: async (req, res) => {
         const query = parseQuery(itemListQuerySchema, req.query)
-        sendXlsx(res, `lumenyard-items-${new Date().toISOString().slice(0, 10)}.xlsx`, await exportItems(ctx.ds, query))
+        sendXlsx(res, `lumenyard-items-${new Date().toISOString().slice(0, 10)}.xlsx`, await exportItems(ctx.ds, query, costsOf(res)))
       },
     },
     {
       method: 'get',
       path: '/import/template.xlsx',
       access: admin,
-      handler: async (req, res) => sendXlsx(res, 'lumenyard-item-import-template.xlsx', await itemImportTemplate(req.user!.locale)),
+      handler: async (req, res) => sendXlsx(res, 'lumenyard-item-import-template.xlsx', await itemImportTemplate(req.user!.locale, costsOf(res))),
     },
     {
       method: 'post',

@@ -4,6 +4,7 @@ import type { Request } from 'express'
 import { poSendSchema, receiveSchema } from '../../shared/schemas/purchasing.js'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
+import { costsOf } from '../http/costAccess.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { stockStep } from '../http/stockRequest.js'
 import { idParam, parseBody } from '../http/validate.js'
@@ -18,9 +19,9 @@ export default (ctx: AppContext) =>
   defineRoutes('/purchase-orders', [
     {
       method: 'post', path: '/:id/send', access: allow('admin', 'buyer'),
-      handler: (req) => {
+      handler: (req, res) => {
         const input = parseBody(poSendSchema, req.body)
-        return sendPurchaseOrder(ctx.ds, ctx.config, actorOf(req), poId(req), input)
+        return sendPurchaseOrder(ctx.ds, ctx.config, actorOf(req), poId(req), input, costsOf(res))
       },
     },
     {

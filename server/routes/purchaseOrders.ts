@@ -7,6 +7,7 @@ import {
 } from '../../shared/schemas/purchasing.js'
 import type { AppContext } from '../context.js'
 import { actorOf } from '../context.js'
+import { costsOf } from '../http/costAccess.js'
 import { sendDownload } from '../http/fileResponse.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
@@ -52,7 +53,7 @@ export default (ctx: AppContext) => {
       method: 'get', path: '/export', access: buyers,
       handler: async (req, res) => {
         const { ids } = parseQuery(poExportQuerySchema, req.query)
-        const papers = await Promise.all(ids.map((id) => poPaper(ctx.ds, id)))
+        const papers = await Promise.all(ids.map((id) => poPaper(ctx.ds, id, costsOf(res))))
         return sendDownload(res, { name: `purchase-orders-${new Date().toISOString().slice(0, 10)}.xlsx`, type: XLSX_TYPE, bytes: await multiPoWorkbook(papers) })
       },
     },
@@ -72,14 +73,14 @@ export default (ctx: AppContext) => {
     {
       method: 'get', path: '/:id/export', access: buyers,
       handler: async (req, res) => {
-        const paper = await poPaper(ctx.ds, poId(req))
+        const paper = await poPaper(ctx.ds, poId(req), costsOf(res))
         return sendDownload(res, { name: `${paper.po.number}.xlsx`, type: XLSX_TYPE, bytes: await poWorkbook(paper) })
       },
     },
     {
       method: 'get', path: '/:id/pdf', access: buyers,
       handler: async (req, res) => {
-        const paper = await poPaper(ctx.ds, poId(req))
+        const paper = await poPaper(ctx.ds, poId(req), costsOf(res))
         return sendDownload(res, { name: `${paper.po.number}.pdf`, type: PDF_TYPE, bytes: await poPdf(paper) })
       },
     },

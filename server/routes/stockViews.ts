@@ -6,6 +6,7 @@ import {
   lookupQuerySchema, lotLevelsQuerySchema, minimumSchema, minimumsQuerySchema, transfersQuerySchema,
 } from '../../shared/schemas/stockViews.js'
 import { actorOf, type AppContext } from '../context.js'
+import { costsOf } from '../http/costAccess.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam, parseBody, parseQuery } from '../http/validate.js'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
@@ -34,7 +35,7 @@ export default (ctx: AppContext) =>
       path: '/ledger/export',
       access: readers,
       handler: async (req, res) => {
-        const plan = await prepareLedgerExport(ctx.ds, parseQuery(ledgerExportQuerySchema, req.query))
+        const plan = await prepareLedgerExport(ctx.ds, parseQuery(ledgerExportQuerySchema, req.query), costsOf(res))
         res.status(200)
         res.set('Content-Type', XLSX_TYPE)
         res.set('Content-Disposition', `attachment; filename="${plan.filename}"`)

@@ -21,20 +21,21 @@ function exportRow(raw: Record<string, unknown>): ExportRow {
   return row
 }
 
-/** The list as a workbook (the cost column only for callers who may see costs). */
-export async function exportItems(ds: DataSource, q: ItemListQuery): Promise<Buffer> {
+/** The list as a workbook; `costs`: whether the caller may see costs (the cost column is left out otherwise). */
+export async function exportItems(ds: DataSource, q: ItemListQuery, costs: boolean): Promise<Buffer> {
   const { where, params } = listFilter(q)
   const raw = await ds.query(
     `SELECT i.*, COALESCE(s.on_hand, 0) AS on_hand, COALESCE(s.reserved, 0) AS reserved FROM items i ${STOCK_JOIN} ${where} ORDER BY i.sku LIMIT ${MAX_EXPORT_ROWS}`,
     params,
   )
   const rows = (raw as Record<string, unknown>[]).map(exportRow)
-  return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...itemSheetColumns<ExportRow>(), ...STOCK_SHEET_COLUMNS], rows }))
+  return buildXlsx(sheet<ExportRow>({ name: 'Items', columns: [...itemSheetColumns<ExportRow>(), ...STOCK_SHEET_COLUMNS], rows, costs }))
 }
 
-export async function itemImportTemplate(lang: ReadmeLang = 'en'): Promise<Buffer> {
+/** The blank template; `costs` as for the export (the template is the admin's, who always may). */
+export async function itemImportTemplate(lang: ReadmeLang, costs: boolean): Promise<Buffer> {
   return buildXlsx(
-    sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [] }),
+    sheet<ExportRow>({ name: 'Items', columns: itemSheetColumns<ExportRow>(), rows: [], costs }),
     importGuideSheet(ITEM_COLUMNS, itemColumnAllowed, readmeWord(lang, 'itemTemplateRows', { max: MAX_IMPORT_ROWS.toLocaleString(lang === 'es' ? 'es-ES' : 'en-US') }), lang),
   )
 }

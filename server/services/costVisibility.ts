@@ -3,12 +3,12 @@
 // - every JSON answer of the API is serialised through `costReplacer` (app.ts installs it as
 //   Express's JSON replacer), which drops the keys named in COST_FIELDS for a caller who may not
 //   see costs, however deep they sit and whichever route or idempotent replay wrote them;
-// - every spreadsheet column and document part that shows a cost asks `costsVisible()` (the
-//   xlsx writer drops columns marked `cost: true`; PO sheets and PDFs ask before printing prices).
-// The caller's answer is worked out once per API request (`costScope`, server/http/costScope.ts) and carried with the
-// request's async context; outside a request nothing is visible (deny by default).
+// - every spreadsheet and document that can show a cost is told by its route whether its reader may
+//   see costs (the xlsx writer drops columns marked `cost: true` unless the sheet says `costs: true`; PO
+//   sheets and PDFs print prices only when their paper says so).
+// The caller's answer is worked out once per API request (`costAccess`, server/http/costAccess.ts), kept in
+// `res.locals.costs` and handed on explicitly; whatever was not told otherwise shows none (deny by default).
 // A service answers with every cost it has under one of these names; it never checks the role.
-import { AsyncLocalStorage } from 'node:async_hooks'
 import type { DataSource, EntityManager } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
 import { recentPurchasingSettings } from './appSettings.js'
@@ -46,25 +46,30 @@ export async function costsVisibleTo(db: EntityManager | DataSource, roles: read
   return (await recentPurchasingSettings(db)).warehouseSeesCosts
 }
 
-const scope = new AsyncLocalStorage<{ visible: boolean }>()
+/**
+ * Whether the answer being serialised right now may carry costs. JSON.stringify runs synchronously, so the
+ * answer's access is set just for that call (`serialiseFor`) and nothing else can run in between; any
+ * other serialisation through the replacer shows none.
+ */
+let serialisingWithCosts = false
 
-/** Whether the caller of the current request may see costs; false outside a request. */
-export function costsVisible(): boolean {
-  return scope.getStore()?.visible ?? false
+/** Runs a synchronous serialisation (Express's res.json) for a caller who may (or may not) see costs. */
+export function serialiseFor<T>(costs: boolean, work: () => T): T {
+  const outer = serialisingWithCosts
+  serialisingWithCosts = costs
+  try {
+    return work()
+  } finally {
+    serialisingWithCosts = outer
+  }
 }
 
-/** Runs `work` as a caller who may (or may not) see costs: the request scope, or a job of the system's own. */
-export function withCostAccess<T>(visible: boolean, work: () => T): T {
-  return scope.run({ visible }, work)
-}
-
-/** Express's JSON replacer: a cost field is left out of the answer unless the caller may see costs. */
+/** Express's JSON replacer: a cost field is left out of the answer unless its caller may see costs. */
 export function costReplacer(key: string, value: unknown): unknown {
-  return COST_FIELDS.has(key) && !costsVisible() ? undefined : value
+  return COST_FIELDS.has(key) && !serialisingWithCosts ? undefined : value
 }
 
-/** The columns (of a sheet or a document table) the caller may see: those marked `cost` only with access. */
-export function visibleColumns<C extends { cost?: boolean }>(columns: readonly C[]): C[] {
-  const visible = costsVisible()
-  return columns.filter((c) => !c.cost || visible)
+/** The columns (of a sheet or a document table) a reader may see: those marked `cost` only with access. */
+export function visibleColumns<C extends { cost?: boolean }>(columns: readonly C[], costs: boolean): C[] {
+  return costs ? [...columns] : columns.filter((c) => !c.cost)
 }

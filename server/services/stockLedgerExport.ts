@@ -67,7 +67,8 @@ export interface LedgerExport {
   write(out: Writable): Promise<void>
 }
 
-export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, limit = EXPORT_LIMIT): Promise<LedgerExport> {
+/** `costs`: whether the caller may see costs (the unit cost and value columns are left out otherwise). */
+export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, costs: boolean, limit = EXPORT_LIMIT): Promise<LedgerExport> {
   const total = await countLedger(ds, q)
   if (total > limit) {
     throw AppError.badRequest('export_too_many_moves', `These filters match ${total} moves; an export holds at most ${limit}. Narrow the dates or filters.`, {
@@ -87,7 +88,7 @@ export async function prepareLedgerExport(ds: DataSource, q: LedgerExportQuery, 
         value: r.unit_cost === null ? null : new Decimal(r.unit_cost).times(r.qty).toDecimalPlaces(2).toNumber(),
       }))
       const title = `Stock movements${q.from || q.to ? `, ${q.from ?? '…'} to ${q.to ?? '…'}` : ''}`
-      await streamXlsx(out, sheet({ name: 'Stock movements', title, columns: COLUMNS, rows }), fieldsSheet({ name: 'Filters', title, fields: filterFields(q, rows.length, clock) }))
+      await streamXlsx(out, sheet({ name: 'Stock movements', title, columns: COLUMNS, rows, costs }), fieldsSheet({ name: 'Filters', title, fields: filterFields(q, rows.length, clock) }))
     },
   }
 }

@@ -147,6 +147,26 @@ describe('session timeouts without a write on every read', () => {
     expect(await expiresOf(sid)).toBeGreaterThanOrEqual(twoMinutesAgo + 115)
   })
 
+  it('sends no cookie on reads within a minute of the last write, and a renewed one when the timeout moves', async () => {
+    // source: OWASP ASVS 5.0 7.3.1 (idle timeout) — the browser's cookie must live as long as the row it names,
+    // and re-signing an unchanged cookie on every answer buys nothing (common practice).
+    const { agent, sid } = await signedIn('auth-cookie-once')
+    const written = (await expiresOf(sid)) - 30
+    await h.ds.query('UPDATE sessions SET expires = ? WHERE session_id = ?', [written, sid])
+    const quiet = await agent.get('/api/profile')
+    expect(quiet.status).toBe(200)
+    expect(sessionCookie(quiet)).toBeUndefined()
+    await h.ds.query('UPDATE sessions SET expires = ? WHERE session_id = ?', [written - 90, sid])
+    const renewed = await agent.get('/api/profile')
+    expect(renewed.status).toBe(200)
+    expect(sessionCookie(renewed)).toBeDefined()
+    const expiresAt = Date.parse(/Expires=([^;]+)/i.exec((renewed.headers['set-cookie'] as unknown as string[]).join(';'))![1])
+    const rowAt = (await expiresOf(sid)) * 1000
+    expect(Math.abs(expiresAt - rowAt)).toBeLessThan(5_000) // the cookie ends when the row does
+    expect(rowAt - Date.now()).toBeGreaterThan(29 * 60_000) // 30 minutes from now (the default idle timeout)
+    expect((await agent.get('/api/profile')).status).toBe(200) // the renewed cookie still names the session
+  })
+
   it('ends a session idle past its timeout (ASVS 7.3.1)', async () => {
     const { agent, sid } = await signedIn('auth-idle')
     await h.ds.query('UPDATE sessions SET expires = UNIX_TIMESTAMP() - 1 WHERE session_id = ?', [sid])

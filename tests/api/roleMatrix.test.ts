@@ -140,6 +140,22 @@ describe('cost visibility', () => {
   })
 })
 
+describe('cost visibility under overlapping requests', () => {
+  it('keeps each answer to its own caller\'s access when a buyer\'s and a viewer\'s requests interleave', { timeout: 60_000 }, async () => {
+    // source: OWASP ASVS 5.0 8.2.3, field-level access (from memory) — the access travels with each answer, so
+    // requests in flight together must never lend each other theirs.
+    const f = await createPurchasingFixture(h.ds)
+    const [buyer, viewer] = [await h.as('buyer'), await h.as('viewer')]
+    const path = `/api/items/${f.sealant.id}`
+    const answers = await Promise.all(Array.from({ length: 24 }, (_, i) => (i % 2 ? viewer : buyer).get(path).then((res) => ({ i, res }))))
+    for (const { i, res } of answers) {
+      expect(res.status).toBe(200)
+      if (i % 2) expect(costKeysIn(res.body), `viewer answer ${i}`).toEqual([])
+      else expect(costKeysIn(res.body), `buyer answer ${i}`).toContain('cost')
+    }
+  })
+})
+
 let freshCount = 0
 async function freshAgent(role: Role): Promise<supertest.Agent> {
   const username = `matrix-fresh-${role}-${++freshCount}`

@@ -248,7 +248,7 @@ describe('the ledger as a spreadsheet', () => {
     expect(bad.status).toBe(400)
     expect(bad.body.error.fields).toHaveProperty('tz')
     const q = ledgerExportQuerySchema.parse({ itemId: String(fx.itemId) })
-    await expect(prepareLedgerExport(h.ds, q, 1)).rejects.toMatchObject({ status: 400 })
+    await expect(prepareLedgerExport(h.ds, q, true, 1)).rejects.toMatchObject({ status: 400 })
   })
 })
 

@@ -37,6 +37,8 @@ export interface SheetSpec<Row> {
   rows: readonly Row[]
   /** Portrait unless the columns are too wide for it. */
   orientation?: 'portrait' | 'landscape'
+  /** Whether the reader may see costs: columns marked `cost` are left out unless this is true (services/costVisibility.ts). */
+  costs?: boolean
 }
 
 const DAY_FORMAT = 'yyyy-mm-dd'
@@ -251,7 +253,7 @@ async function sheetRoom(ws: unknown): Promise<void> {
  * when they are at hand) or else from each column's header and `width`.
  */
 export function openSheet<Row>(book: Book, table: Omit<SheetSpec<Row>, 'rows'>, sample: readonly Row[] = [], filter = true): OpenSheet<Row> {
-  const spec = { ...table, columns: visibleColumns(table.columns) }
+  const spec = { ...table, columns: visibleColumns(table.columns, table.costs === true) }
   const widths = sample.length
     ? columnWidths(spec.columns, sample)
     : spec.columns.map((c) => ({ width: Math.max(MIN_WIDTH, c.header.length + 2, Math.min(c.width ?? 14, DEFAULT_MAX_WIDTH)), wrap: false }))

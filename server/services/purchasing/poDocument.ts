@@ -17,6 +17,8 @@ export interface PoPaperLine extends PoLineView {
 
 export interface PoPaper {
   po: PoDetail
+  /** Whether the paper's reader may see costs: its prices and totals are printed only then (services/costVisibility.ts). */
+  costs: boolean
   lines: PoPaperLine[]
   company: CompanyProfile
   /** The company's logo for the printed order, when one is set. */
@@ -30,7 +32,7 @@ export interface PoPaper {
   shipTo: string
 }
 
-export async function poPaper(db: Db, poId: number, senderId?: number | null): Promise<PoPaper> {
+export async function poPaper(db: Db, poId: number, costs: boolean, senderId?: number | null): Promise<PoPaper> {
   const po = await poDetail(db, poId)
   const company = await companyProfile(db)
   const [who]: { approved_by: number | null; created_by: number | null }[] = await db.query(
@@ -43,6 +45,7 @@ export async function poPaper(db: Db, poId: number, senderId?: number | null): P
   const warehouse = [company.legalName ? `${company.legalName}, ${po.warehouse.name}` : po.warehouse.name, po.warehouse.address ?? company.shipToAddress]
   return {
     po,
+    costs,
     lines: po.lines.map((l) => ({ ...l, specification: specText(l.spec, company.documentUnit) })),
     company,
     logo: await companyLogo(db),

@@ -137,9 +137,12 @@ function ensureSendable(po: PoDetail): void {
   }
 }
 
-/** Sends (or sends again) the order to the vendor, saying who orders: refused until the company profile is filled in. */
-export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput) {
-  const paper = await poPaper(ds, poId, actor.userId)
+/**
+ * Sends (or sends again) the order to the vendor, saying who orders: refused until the company profile is filled in.
+ * `costs`: whether the sender may see costs; the attached PDF and sheet carry prices only then.
+ */
+export async function sendPurchaseOrder(ds: DataSource, config: AppConfig, actor: AuditActor, poId: number, input: PoSendInput, costs: boolean) {
+  const paper = await poPaper(ds, poId, costs, actor.userId)
   const { po } = paper
   ensureSendable(po)
   if (po.status === 'approved') await ensureDepositsPaid(ds, poId)

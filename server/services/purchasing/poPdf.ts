@@ -2,7 +2,6 @@
 // who orders, bill-to and ship-to, the vendor, the dates, every line, and each made-to-order line's whole
 // specification under it. Prices only for callers who may see costs.
 import { formatMoney } from '../../../shared/money.js'
-import { costsVisible } from '../costVisibility.js'
 import { INK, MARGIN, openPdfSheet, pdfTable, SOFT, type PdfColumn } from '../exports/pdfSheet.js'
 import { buyerLine, type PoPaper } from './poDocument.js'
 
@@ -100,7 +99,7 @@ export function poPdf(paper: PoPaper): Promise<Buffer> {
   doc.y += 10
 
   // The lines.
-  const prices = costsVisible() && po.orderTotal !== undefined
+  const prices = paper.costs && po.orderTotal !== undefined
   // Amounts without the currency code: the order states its currency once, above.
   const columns: PdfColumn[] = [
     { header: '#', width: 22, align: 'left' },

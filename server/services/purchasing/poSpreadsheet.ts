@@ -8,7 +8,7 @@ import {
   alignmentOf, buildXlsx, columnWidths, LINE_POINTS, newWorkbook, printOptions, putCell, rowHeightFor, sheet, THIN_RULE, workbookBytes,
   wrappedHeight, wrappedLines, type Book, type CellInput, type CellKind, type SheetColumn,
 } from '../exports/xlsxWriter.js'
-import { costsVisible, visibleColumns } from '../costVisibility.js'
+import { visibleColumns } from '../costVisibility.js'
 import { buyerLine, type PoPaper, type PoPaperLine } from './poDocument.js'
 
 /** The row of the line table's header on a PO sheet; the sheet is frozen below it and repeats it on every page. */
@@ -117,15 +117,15 @@ function lineTable(ws: ExcelJS.Worksheet, columns: SheetColumn<PoPaperLine>[], w
 }
 
 /** The line columns a PO's sheet shows: prices only for callers who may see costs, the specification only when a line has one. */
-function poColumns(lines: PoPaperLine[]): SheetColumn<PoPaperLine>[] {
+function poColumns(lines: PoPaperLine[], costs: boolean): SheetColumn<PoPaperLine>[] {
   const specs = lines.some((l) => l.specification)
-  return visibleColumns(PO_COLUMNS).filter((c) => specs || c.header !== SPEC_HEADER)
+  return visibleColumns(PO_COLUMNS, costs).filter((c) => specs || c.header !== SPEC_HEADER)
 }
 
 /** Adds one PO's printable sheet to a workbook. */
 export function addPoSheet(book: ExcelJS.Workbook, paper: PoPaper, name = paper.po.number): ExcelJS.Worksheet {
   const { po } = paper
-  const columns = poColumns(paper.lines)
+  const columns = poColumns(paper.lines, paper.costs)
   const widths = columnWidths(columns, paper.lines)
   const lastLine = PO_TABLE_HEADER_ROW + po.lines.length
   const totalRow = lastLine + 2
@@ -143,7 +143,7 @@ export function addPoSheet(book: ExcelJS.Workbook, paper: PoPaper, name = paper.
   const w = widths.map((x) => x.width)
   headerBlock(ws, w, paper)
   lineTable(ws, columns, widths, paper.lines)
-  if (costsVisible() && po.orderTotal !== undefined) {
+  if (paper.costs && po.orderTotal !== undefined) {
     const at = columns.length
     block(ws, w, totalRow, at - 1, at - 1, 'text', 'Total', { font: { bold: true }, alignment: { horizontal: 'right' } })
     putCell(ws.getCell(totalRow, at), 'money', amount(po.orderTotal))
@@ -166,10 +166,11 @@ type LineOfPo = PoPaperLine & { po: PoDetail }
 
 /** The buyer's book: one row per order, every line, then each order's printable sheet. */
 export async function multiPoWorkbook(papers: PoPaper[]): Promise<Buffer> {
+  const costs = papers.every((p) => p.costs)
   const pos = papers.map((p) => p.po)
   const title = `Purchase orders ${pos.map((p) => p.number).join(', ')}`.slice(0, 120)
   const orderSheet = sheet<PoDetail>({
-    name: 'Orders', title, rows: pos,
+    name: 'Orders', title, rows: pos, costs,
     columns: [
       { header: 'Number', kind: 'text', value: (p) => p.number },
       { header: 'Status', kind: 'text', value: (p) => p.status.replace('_', ' ') },
@@ -184,10 +185,10 @@ export async function multiPoWorkbook(papers: PoPaper[]): Promise<Buffer> {
     ],
   })
   const rows = papers.flatMap((p) => p.lines.map((l) => ({ ...l, po: p.po })))
-  const lineColumns = poColumns(rows)
+  const lineColumns = poColumns(rows, costs)
   const afterQty = lineColumns.findIndex((c) => c.header === 'Quantity') + 1
   const lineSheet = sheet<LineOfPo>({
-    name: 'Lines', title, rows,
+    name: 'Lines', title, rows, costs,
     columns: [
       { header: 'Number', kind: 'text', value: (l) => l.po.number },
       { header: 'Vendor', kind: 'text', width: 28, value: (l) => l.po.vendor.name },

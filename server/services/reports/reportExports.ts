@@ -30,6 +30,12 @@ const WORDS = {
   },
 } as const
 
+/** Who reads the sheet: its language, and whether they may see costs (value columns are left out otherwise). */
+export interface ExportReader {
+  lang: Lang
+  costs: boolean
+}
+
 export interface ReportExport {
   filename: string
   write(out: Writable): Promise<void>
@@ -45,7 +51,7 @@ const periodFields = (lang: Lang, q: { from: string; to: string }): Field[] =>
 
 const stamp = () => new Date().toISOString().slice(0, 10)
 
-export async function turnsExport(ds: DataSource, q: PeriodQuery & { lang: Lang }): Promise<ReportExport> {
+export async function turnsExport(ds: DataSource, q: PeriodQuery & ExportReader): Promise<ReportExport> {
   const w = WORDS[q.lang]
   const wt = w.turns
   type Row = Omit<TurnsRow, 'family'> & { label: string }
@@ -69,12 +75,12 @@ export async function turnsExport(ds: DataSource, q: PeriodQuery & { lang: Lang 
         ...(report.total ? [{ ...report.total, label: w.total }] : []),
       ]
       const fields = [...periodFields(q.lang, q), { label: w.days, kind: 'integer' as const, value: report.days }, await warehouseField(ds, q.lang, q.warehouseId)]
-      await streamXlsx(out, sheet({ name: wt.name, title: wt.title, columns, rows, orientation: 'landscape' }), fieldsSheet({ name: w.filters, title: wt.title, fields }))
+      await streamXlsx(out, sheet({ name: wt.name, title: wt.title, columns, rows, orientation: 'landscape', costs: q.costs }), fieldsSheet({ name: w.filters, title: wt.title, fields }))
     },
   }
 }
 
-export async function usageExport(ds: DataSource, q: PeriodQuery & { lang: Lang }): Promise<ReportExport> {
+export async function usageExport(ds: DataSource, q: PeriodQuery & ExportReader): Promise<ReportExport> {
   const w = WORDS[q.lang]
   const columns: SheetColumn<UsageCell>[] = [
     { header: w.family, kind: 'text', value: (r) => familyName(q.lang, r.family) },
@@ -88,12 +94,12 @@ export async function usageExport(ds: DataSource, q: PeriodQuery & { lang: Lang 
       const report = await usageByMonth(ds, q)
       const rows = [...report.cells].sort((a, b) => a.family.localeCompare(b.family) || a.month.localeCompare(b.month))
       const fields = [...periodFields(q.lang, q), await warehouseField(ds, q.lang, q.warehouseId)]
-      await streamXlsx(out, sheet({ name: w.usage.name, title: w.usage.title, columns, rows }), fieldsSheet({ name: w.filters, title: w.usage.title, fields }))
+      await streamXlsx(out, sheet({ name: w.usage.name, title: w.usage.title, columns, rows, costs: q.costs }), fieldsSheet({ name: w.filters, title: w.usage.title, fields }))
     },
   }
 }
 
-export async function deadStockExport(ds: DataSource, q: DeadStockQuery & { lang: Lang }): Promise<ReportExport> {
+export async function deadStockExport(ds: DataSource, q: DeadStockQuery & ExportReader): Promise<ReportExport> {
   const w = WORDS[q.lang]
   const wd = w.dead
   const columns: SheetColumn<DeadStockRow>[] = [
@@ -117,12 +123,12 @@ export async function deadStockExport(ds: DataSource, q: DeadStockQuery & { lang
         { label: wd.deadDays, kind: 'integer', value: q.deadDays }, { label: wd.slowDays, kind: 'integer', value: q.slowDays },
         { label: wd.windowDays, kind: 'integer', value: q.windowDays }, await warehouseField(ds, q.lang, q.warehouseId),
       ]
-      await streamXlsx(out, sheet({ name: wd.name, columns, rows: report.rows, orientation: 'landscape' }), fieldsSheet({ name: w.filters, title: wd.name, fields }))
+      await streamXlsx(out, sheet({ name: wd.name, columns, rows: report.rows, orientation: 'landscape', costs: q.costs }), fieldsSheet({ name: w.filters, title: wd.name, fields }))
     },
   }
 }
 
-export async function vendorsExport(ds: DataSource, q: PeriodQuery & { lang: Lang }): Promise<ReportExport> {
+export async function vendorsExport(ds: DataSource, q: PeriodQuery & ExportReader): Promise<ReportExport> {
   const w = WORDS[q.lang]
   const wv = w.vendors
   const columns: SheetColumn<VendorRow>[] = [
@@ -142,7 +148,7 @@ export async function vendorsExport(ds: DataSource, q: PeriodQuery & { lang: Lan
     write: async (out) => {
       const report = await vendorPerformance(ds, q)
       const fields = [...periodFields(q.lang, q), await warehouseField(ds, q.lang, q.warehouseId)]
-      await streamXlsx(out, sheet({ name: wv.name, columns, rows: report.vendors, orientation: 'landscape' }), fieldsSheet({ name: w.filters, title: wv.name, fields }))
+      await streamXlsx(out, sheet({ name: wv.name, columns, rows: report.vendors, orientation: 'landscape', costs: q.costs }), fieldsSheet({ name: w.filters, title: wv.name, fields }))
     },
   }
 }

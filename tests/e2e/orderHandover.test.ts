@@ -122,6 +122,11 @@ describe('from the handheld pick to a signed pickup ticket', () => {
       await page.locator('[data-test="ticket-sign"]').dblclick()
       await poll(() => page.locator('[data-test="ticket-status"]').getAttribute('data-status')).toBe('signed')
       await page.locator('[data-test="ticket-signature"]').waitFor()
+      // On a phone the ticket's state beside its title reads as one pill, never split over two lines with its tint
+      // torn in half (common practice: a status badge is one unit; found at 412 px with the English states).
+      await page.setViewportSize({ width: 412, height: 900 })
+      expect(await page.locator('[data-test="ticket-status"]').evaluate((el) => el.getClientRects().length)).toBe(1)
+      await page.setViewportSize({ width: 1024, height: 900 })
       expect(await countRows(h.ds, 'stock_moves', "doc_type = 'handover_ticket' AND doc_id = ?", [ticketId])).toBe(2)
       expect(await ledgerMismatches(h.ds, [fx.block.id, fx.spacers.id])).toEqual([])
       await h.screenshot(page, 'order-ticket-signed')

@@ -10,7 +10,7 @@ import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
-import { parseSpreadsheet } from './spreadsheetParser.js'
+import { readSpreadsheetInChunks } from './spreadsheetParser.js'
 import type { GuardedUpload } from './uploadGuard.js'
 
 export interface CheckedRow<W> {
@@ -24,6 +24,11 @@ export interface DataImportDefinition<W> {
   spec: ImportSpec
   /** Every row against the database and the other rows; nothing is written. */
   check(em: EntityManager, sheet: ParsedSheet): Promise<CheckedRow<W>[]>
+  /**
+   * For a kind whose rows can be checked a chunk at a time: a fresh checker for one pass over a file, carrying from
+   * chunk to chunk only what spans them (the rows' keys, for repeats). Without it the file is checked whole.
+   */
+  chunkChecker?(em: EntityManager): (part: ParsedSheet) => Promise<CheckedRow<W>[]>
   /** Writes the good rows inside the commit's transaction; answers counts for the record. */
   write(em: EntityManager, actor: AuditActor, importId: number, rows: W[]): Promise<Record<string, number>>
   /** Takes a committed import back whole, or refuses when something else has touched what it wrote. */
@@ -63,51 +68,88 @@ export async function listImports(ds: DataSource): Promise<DataImportRecord[]> {
   return rows.map(toRecord)
 }
 
-function summarise<W>(def: DataImportDefinition<W>, filename: string, checked: CheckedRow<W>[], repeatOf: DataImportRecord | null): DataImportPreview {
-  const bad = checked.filter((c) => c.preview.errors.length)
-  const good = checked.filter((c) => !c.preview.errors.length)
+/** Rows of the answer: the first rows with problems, then the first good ones (the counts cover every row). */
+const SHOWN_BAD = 1000
+const SHOWN_GOOD = 100
+
+/** The counts of a pass over a file, and the few rows the answer shows: nothing else of a row is kept. */
+function tally() {
+  const bad: DataImportRow[] = []
+  const good: DataImportRow[] = []
+  const counts = { total: 0, ready: 0, skipped: 0, errorRows: 0 }
   return {
-    kind: def.kind,
-    filename,
-    total: checked.length,
-    ready: good.filter((c) => c.write !== null).length,
-    skipped: good.filter((c) => c.write === null).length,
-    errorRows: bad.length,
-    rows: [...bad.slice(0, 1000), ...good.slice(0, 100)].map((c) => c.preview),
-    repeatOf,
+    counts,
+    add<W>(checked: readonly CheckedRow<W>[]) {
+      for (const c of checked) {
+        counts.total++
+        if (c.preview.errors.length) {
+          counts.errorRows++
+          if (bad.length < SHOWN_BAD) bad.push(c.preview)
+          continue
+        }
+        if (c.write === null) counts.skipped++
+        else counts.ready++
+        if (good.length < SHOWN_GOOD) good.push(c.preview)
+      }
+    },
+    preview: (kind: DataImportKind, filename: string, repeatOf: DataImportRecord | null): DataImportPreview => ({ kind, filename, ...counts, rows: [...bad, ...good], repeatOf }),
   }
 }
 
+/**
+ * One pass over the upload: its rows cross from the parse worker a chunk at a time and are checked as they come
+ * (the whole file at once only for a kind that has no chunk checker); `seen` takes each chunk's checked rows.
+ */
+async function checkUpload<W>(em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => void): Promise<void> {
+  if (def.chunkChecker) {
+    const check = def.chunkChecker(em)
+    await readSpreadsheetInChunks(upload, def.spec, async (part) => seen(await check(part)))
+    return
+  }
+  const whole: ParsedSheet = { rows: [], issues: [] }
+  await readSpreadsheetInChunks(upload, def.spec, async (part) => {
+    for (const r of part.rows) whole.rows.push(r)
+    for (const i of part.issues) whole.issues.push(i)
+  })
+  seen(await def.check(em, whole))
+}
+
 export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportPreview> {
-  const sheet = await parseSpreadsheet(upload, def.spec)
+  const seen = tally()
+  await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked))
   const repeatOf = await liveRecord(ds.manager, def.kind, checksumOf(upload.data))
-  return summarise(def, upload.filename, await def.check(ds.manager, sheet), repeatOf)
+  return seen.preview(def.kind, upload.filename, repeatOf)
 }
 
 export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportResult> {
-  const sheet = await parseSpreadsheet(upload, def.spec)
   const checksum = checksumOf(upload.data)
   return inTransaction(ds, async (em) => {
     // The record first: a second commit of the same file waits on its unique key, then finds it taken.
     const inserted: { insertId: number; affectedRows: number } = await em.query(
-      'INSERT IGNORE INTO data_imports (kind, file_name, checksum, live_checksum, row_count, user_id) VALUES (?, ?, ?, ?, ?, ?)',
-      [def.kind, upload.filename.slice(0, 255), checksum, checksum, sheet.rows.length, actor.userId],
+      'INSERT IGNORE INTO data_imports (kind, file_name, checksum, live_checksum, row_count, user_id) VALUES (?, ?, ?, ?, 0, ?)',
+      [def.kind, upload.filename.slice(0, 255), checksum, checksum, actor.userId],
     )
     if (!inserted.affectedRows) {
       const record = await liveRecord(em, def.kind, checksum, true)
       if (!record) throw new Error('data import record neither written nor found')
-      return { ...summarise(def, upload.filename, [], record), total: record.rows, record, repeated: true }
+      return { ...tally().preview(def.kind, upload.filename, record), total: record.rows, record, repeated: true }
     }
     const importId = inserted.insertId
-    const checked = await def.check(em, sheet)
-    const summary = summarise(def, upload.filename, checked, null)
+    // Of each checked row only what the commit writes is kept (and the counts, and the rows the answer shows).
+    const seen = tally()
+    const writes: W[] = []
+    await checkUpload(em, def, upload, (checked) => {
+      seen.add(checked)
+      for (const c of checked) if (c.write !== null && !c.preview.errors.length) writes.push(c.write)
+    })
+    const summary = seen.preview(def.kind, upload.filename, null)
     if (summary.errorRows) {
       const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
       throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
     }
     if (!summary.ready) throw AppError.unprocessable('import_nothing_to_write', 'The file holds no rows to import; nothing was imported.')
-    const counts = await def.write(em, actor, importId, checked.flatMap((c) => (c.write === null ? [] : [c.write])))
-    await em.query('UPDATE data_imports SET summary = ? WHERE id = ?', [JSON.stringify(counts), importId])
+    const counts = await def.write(em, actor, importId, writes)
+    await em.query('UPDATE data_imports SET summary = ?, row_count = ? WHERE id = ?', [JSON.stringify(counts), summary.total, importId])
     await audit(em, actor, 'data_import.commit', 'data_import', importId, { kind: def.kind, file: upload.filename, checksum, rows: summary.total, ...counts })
     return { ...summary, record: await findImport(em, importId), repeated: false }
   })

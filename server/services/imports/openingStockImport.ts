@@ -54,8 +54,7 @@ async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
   }
 }
 
-function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFacts>>): CheckedRow<Write>[] {
-  const repeated = repeatedRows()
+function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFacts>>, repeated: ReturnType<typeof repeatedRows>): CheckedRow<Write>[] {
   const problemsOf = parserProblems(sheet, col)
   const issuesOf = issuesByRow(sheet)
   return sheet.rows.map((r) => {
@@ -134,7 +133,12 @@ export const openingStockImport: DataImportDefinition<Write> = {
   kind: 'opening_stock',
   spec: OPENING_STOCK_SPEC,
   async check(em, sheet) {
-    return checkRows(sheet, await loadFacts(em, sheet))
+    return checkRows(sheet, await loadFacts(em, sheet), repeatedRows())
+  },
+  // Each chunk is looked up on its own; the (item, bin, lot) keys seen so far carry over, for repeats.
+  chunkChecker(em) {
+    const repeated = repeatedRows()
+    return async (part) => checkRows(part, await loadFacts(em, part), repeated)
   },
   async write(em, actor: AuditActor, importId, rows) {
     const lotsCreated = await settleLots(em, rows)

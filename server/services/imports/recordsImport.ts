@@ -63,12 +63,11 @@ export async function insertRows<W>(
 
 export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinition<W> {
   const col = headerOf(def.spec)
-  return {
-    kind: def.kind,
-    spec: def.spec,
-    async check(em, sheet) {
+  /** A checker for one pass over a file: each chunk's lookups, and the records seen in earlier chunks (for repeats). */
+  const chunkChecker = (em: EntityManager) => {
+    const repeated = repeatedRows()
+    return async (sheet: ParsedSheet): Promise<CheckedRow<W>[]> => {
       const problemsOf = parserProblems(sheet, col)
-      const repeated = repeatedRows()
       const checked: CheckedRow<W>[] = []
       await chunked(sheet.rows, CHECK_CHUNK_ROWS, async (part) => {
         const facts = await def.facts(em, { rows: part, issues: [] })
@@ -99,7 +98,13 @@ export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinit
         const shown = def.preview(write, r.values)
         return { preview: { row: r.row, label: shown.label, place: shown.place, qty: shown.qty ?? null, errors }, write: errors.length ? null : write }
       }
-    },
+    }
+  }
+  return {
+    kind: def.kind,
+    spec: def.spec,
+    check: (em, sheet) => chunkChecker(em)(sheet),
+    chunkChecker,
     write: (em, _actor, importId, rows) => def.insert(em, importId, rows),
     async reverse(em, _actor, importId) {
       const used = await def.inUse(em, importId)

@@ -5,7 +5,7 @@ import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
 import { Readable } from 'node:stream'
 import ExcelJS from 'exceljs'
 import { readCsv } from './csvText.js'
-import type { CellValue, ImportColumn, ImportRow, ImportSpec, ParseOutcome, RowIssue } from './importTypes.js'
+import type { CellValue, ImportColumn, ImportRow, ImportSpec, ParsedSheet, ParseOutcome, RowIssue } from './importTypes.js'
 
 type RawCell = string | number | boolean | null
 
@@ -83,11 +83,28 @@ type Refusal = Extract<ParseOutcome, { ok: false }>
  * the spec allows), else null; `done` answers the outcome (a header that does not fit is answered there, after
  * the reading's own refusals, as when the whole sheet was read first).
  */
-export function rowTyper(spec: ImportSpec): { add(record: SheetRecord): Refusal | null; done(): ParseOutcome } {
+export function rowTyper(spec: ImportSpec): {
+  add(record: SheetRecord): Refusal | null
+  /** Typed rows waiting to be taken. */
+  readonly pending: number
+  /** Hands over the rows typed so far (and their issues) and forgets them: the next chunk starts empty. */
+  take(): ParsedSheet
+  done(): ParseOutcome
+} {
   let header: ReturnType<typeof mapHeader> | null = null
-  const rows: ImportRow[] = []
-  const issues: RowIssue[] = []
+  let rows: ImportRow[] = []
+  let issues: RowIssue[] = []
+  let typed = 0
   return {
+    get pending() {
+      return rows.length
+    },
+    take() {
+      const part = { rows, issues }
+      rows = []
+      issues = []
+      return part
+    },
     add(record) {
       if (!record.cells.some((c) => c !== null && String(c).trim() !== '')) return null
       if (!header) {
@@ -95,7 +112,8 @@ export function rowTyper(spec: ImportSpec): { add(record: SheetRecord): Refusal 
         return null
       }
       if (!header.ok) return null
-      if (rows.length >= spec.maxRows) return tooManyRows(spec)
+      if (typed >= spec.maxRows) return tooManyRows(spec)
+      typed++
       const values: Record<string, CellValue> = {}
       header.map.forEach((column, i) => {
         if (!column) return
@@ -129,15 +147,48 @@ const tooManyRows = (spec: ImportSpec): Refusal => ({
   ok: false, code: 'sheet_too_many_rows', params: { max: spec.maxRows }, message: `The file has more than ${spec.maxRows.toLocaleString('en-US')} rows; split it into smaller files.`,
 })
 
-export function parseCsvRows(data: Uint8Array, spec: ImportSpec): ParseOutcome {
+/**
+ * Where typed rows go while a sheet is read: every `rows` rows are handed to `each` (which may wait: the reading
+ * waits with it), so the reader never holds more than a chunk. Without it the whole sheet is answered at the end.
+ */
+export interface RowChunks {
+  rows: number
+  each(part: ParsedSheet): Promise<void>
+}
+
+const handOver = async (typer: ReturnType<typeof rowTyper>, chunks?: RowChunks) => {
+  if (chunks && typer.pending >= chunks.rows) await chunks.each(typer.take())
+}
+
+function csvRecords(data: Uint8Array, spec: ImportSpec): { ok: true; records: SheetRecord[] } | Refusal {
   const text = new TextDecoder('utf-8').decode(data).replace(/^\uFEFF/, '')
   const csv = readCsv(text, { maxRecords: spec.maxRows + 2, maxFields: spec.maxColumns })
   if (!csv.ok) return { ok: false, code: csv.code, params: csv.params, message: csv.message }
   if (csv.records.length > spec.maxRows + 1) return tooManyRows(spec)
-  return rowsFromRecords(csv.records.map((cells, i) => ({ row: i + 1, cells })), spec)
+  return { ok: true, records: csv.records.map((cells, i) => ({ row: i + 1, cells })) }
 }
 
-export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec): Promise<ParseOutcome> {
+export function parseCsvRows(data: Uint8Array, spec: ImportSpec): ParseOutcome {
+  const read = csvRecords(data, spec)
+  return read.ok ? rowsFromRecords(read.records, spec) : read
+}
+
+/** A CSV's rows handed over a chunk at a time (the text itself is read in one linear pass first). */
+export async function streamCsvRows(data: Uint8Array, spec: ImportSpec, chunks: RowChunks): Promise<ParseOutcome> {
+  const read = csvRecords(data, spec)
+  if (!read.ok) return read
+  const typer = rowTyper(spec)
+  for (let i = 0; i < read.records.length; i++) {
+    const refused = typer.add(read.records[i])
+    // The record is typed: its text is no longer needed.
+    read.records[i] = { row: 0, cells: [] }
+    if (refused) return refused
+    await handOver(typer, chunks)
+  }
+  return typer.done()
+}
+
+export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec, chunks?: RowChunks): Promise<ParseOutcome> {
   const reader = new ExcelJS.stream.xlsx.WorkbookReader(Readable.from([Buffer.from(data)]), {
     sharedStrings: 'cache', hyperlinks: 'ignore', styles: 'ignore', worksheets: 'emit', entries: 'ignore',
   })
@@ -151,6 +202,7 @@ export async function parseXlsxRows(data: Uint8Array, spec: ImportSpec): Promise
       if (++read > spec.maxRows + 1) return tooManyRows(spec)
       const refused = typer.add({ row: row.number, cells: values.slice(1).map(plainCell) })
       if (refused) return refused
+      await handOver(typer, chunks)
     }
     break // the first sheet only
   }

@@ -8,7 +8,7 @@ import { pathToFileURL } from 'node:url'
 import { AppError } from '../../errors.js'
 import type { ImportSpec, ParsedSheet, ParseOutcome, RefusalCode } from './importTypes.js'
 import type { GuardedUpload } from './uploadGuard.js'
-import type { WorkerRequest } from './parseWorker.js'
+import type { WorkerMessage, WorkerRequest } from './parseWorker.js'
 import { parseCsvRows } from './sheetRows.js'
 
 export interface ParseLimits {
@@ -24,9 +24,14 @@ const workerFile = existsSync(path.join(here, 'parseWorker.ts')) ? path.join(her
 const tsxLoader = pathToFileURL(createRequire(import.meta.url).resolve('tsx')).href
 const serverTsconfig = path.resolve(here, '..', '..', '..', 'tsconfig.server.json')
 
-/** Runs the worker once; resolves with its outcome, or a refusal when it ran out of time or memory. */
-export function parseInChild(request: WorkerRequest, limits: ParseLimits = DEFAULT_PARSE_LIMITS): Promise<ParseOutcome> {
-  return new Promise((resolve) => {
+/**
+ * Runs the worker once; resolves with its outcome, or a refusal when it ran out of time or memory. With `onRows`
+ * the worker sends its rows a chunk at a time (request.chunkRows) and reads on only once `onRows` has taken a
+ * chunk; the time limit counts the worker's own reading, not the time the server spends on each chunk. A throw
+ * from `onRows` stops the worker and rejects.
+ */
+export function parseInChild(request: WorkerRequest, limits: ParseLimits = DEFAULT_PARSE_LIMITS, onRows?: (part: ParsedSheet) => Promise<void>): Promise<ParseOutcome> {
+  return new Promise((resolve, reject) => {
     const child = fork(workerFile, [], {
       execPath: process.execPath,
       execArgv: [`--max-old-space-size=${limits.heapMb}`, '--import', tsxLoader],
@@ -37,16 +42,42 @@ export function parseInChild(request: WorkerRequest, limits: ParseLimits = DEFAU
     })
     let stderr = ''
     let done = false
-    const finish = (outcome: ParseOutcome) => {
-      if (done) return
+    let timer: NodeJS.Timeout | undefined
+    let budget = limits.timeoutMs
+    let since = Date.now()
+    const stop = () => {
       done = true
       clearTimeout(timer)
       if (child.exitCode === null) child.kill('SIGKILL')
+    }
+    const finish = (outcome: ParseOutcome) => {
+      if (done) return
+      stop()
       resolve(outcome)
     }
-    const timer = setTimeout(() => finish({ ok: false, code: 'sheet_timeout', message: 'Reading the file took too long; it was stopped. Split it into smaller files.' }), limits.timeoutMs)
+    const runClock = () => {
+      since = Date.now()
+      timer = setTimeout(() => finish({ ok: false, code: 'sheet_timeout', message: 'Reading the file took too long; it was stopped. Split it into smaller files.' }), budget)
+    }
+    runClock()
     child.stderr?.on('data', (chunk: Buffer) => { stderr = (stderr + chunk.toString()).slice(-4000) })
-    child.on('message', (outcome: ParseOutcome) => finish(outcome))
+    child.on('message', (message: WorkerMessage) => {
+      if (done) return
+      if (message.type === 'done') return finish(message.outcome)
+      // A chunk: the clock stops while the server works on it, and the worker waits for 'more'.
+      clearTimeout(timer)
+      budget -= Date.now() - since
+      const take = onRows ? onRows(message.part) : Promise.reject(new Error('rows sent in chunks nobody asked for'))
+      take.then(() => {
+        if (done) return
+        runClock()
+        child.send('more')
+      }, (err: unknown) => {
+        if (done) return
+        stop()
+        reject(err)
+      })
+    })
     child.on('error', () => finish({ ok: false, code: 'sheet_unreadable', message: 'The file could not be read.' }))
     child.on('exit', () => {
       const memory = /heap out of memory|Allocation failed/i.test(stderr)
@@ -54,9 +85,12 @@ export function parseInChild(request: WorkerRequest, limits: ParseLimits = DEFAU
         ? { ok: false, code: 'sheet_too_big', message: 'The file needs more memory to read than an upload may use; split it into smaller files.' }
         : { ok: false, code: 'sheet_unreadable', message: 'The file could not be read; it may be damaged.' })
     })
-    child.send({ ...request, data: new Uint8Array(request.data) })
+    child.send({ ...request, data: new Uint8Array(request.data), chunkRows: onRows ? request.chunkRows ?? SHEET_CHUNK_ROWS : undefined })
   })
 }
+
+/** Rows that cross from the parse worker to the server at a time, when read in chunks. */
+export const SHEET_CHUNK_ROWS = 2_000
 
 /** CSV files up to this size are parsed in the server's process. */
 export const IN_PROCESS_CSV_BYTES = 64 * 1024
@@ -65,6 +99,8 @@ const STATUS: Record<RefusalCode, number> = {
   sheet_empty: 422, sheet_columns: 422, sheet_too_many_rows: 413, sheet_too_many_columns: 422, csv_open_quote: 422, sheet_unreadable: 422, sheet_timeout: 422, sheet_too_big: 413,
 }
 
+const refusal = (outcome: Extract<ParseOutcome, { ok: false }>) => new AppError(STATUS[outcome.code], outcome.code, outcome.message, { params: outcome.params })
+
 /** The upload's rows against the spec; a file that cannot be read as a whole becomes an AppError. */
 export async function parseSpreadsheet(upload: GuardedUpload, spec: ImportSpec, limits?: ParseLimits): Promise<ParsedSheet> {
   // A small CSV is plain text read in one linear pass: nothing in it can blow up, so it is read here
@@ -72,6 +108,35 @@ export async function parseSpreadsheet(upload: GuardedUpload, spec: ImportSpec, 
   const outcome = upload.kind === 'csv' && upload.data.length <= IN_PROCESS_CSV_BYTES
     ? parseCsvRows(upload.data, spec)
     : await parseInChild({ kind: upload.kind, data: upload.data, spec }, limits)
-  if (!outcome.ok) throw new AppError(STATUS[outcome.code], outcome.code, outcome.message, { params: outcome.params })
+  if (!outcome.ok) throw refusal(outcome)
   return outcome.sheet
+}
+
+/**
+ * The upload's rows against the spec, handed to `each` a chunk at a time (in sheet order, each row with its own
+ * issues); the reading waits while `each` works, so memory follows the chunk, not the file. A file that cannot be
+ * read as a whole becomes an AppError (after the chunks read before the problem was found). Answers the rows read.
+ */
+export async function readSpreadsheetInChunks(upload: GuardedUpload, spec: ImportSpec, each: (part: ParsedSheet) => Promise<void>, limits?: ParseLimits): Promise<number> {
+  let rows = 0
+  const take = async (part: ParsedSheet) => {
+    rows += part.rows.length
+    await each(part)
+  }
+  if (upload.kind === 'csv' && upload.data.length <= IN_PROCESS_CSV_BYTES) {
+    const outcome = parseCsvRows(upload.data, spec)
+    if (!outcome.ok) throw refusal(outcome)
+    const { rows: all, issues } = outcome.sheet
+    for (let i = 0; i < all.length; i += SHEET_CHUNK_ROWS) {
+      const part = all.slice(i, i + SHEET_CHUNK_ROWS)
+      const first = part[0].row
+      const last = part[part.length - 1].row
+      await take({ rows: part, issues: issues.filter((x) => x.row >= first && x.row <= last) })
+    }
+    return rows
+  }
+  const outcome = await parseInChild({ kind: upload.kind, data: upload.data, spec }, limits, take)
+  if (!outcome.ok) throw refusal(outcome)
+  if (outcome.sheet.rows.length) await take(outcome.sheet)
+  return rows
 }

@@ -923,6 +923,8 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'conteos de inicios de sesión fallidos, guardados unos minutos',
   'answers kept briefly so a request sent twice is done once':
     'respuestas guardadas un rato para que una solicitud enviada dos veces se haga una sola vez',
+  'how far each everything-out download got, and where its file waits; kept half an hour':
+    'hasta dónde llegó cada descarga de todos los datos y dónde espera su archivo; se guarda media hora',
   'the next purchase order number; follows from purchase-orders.xlsx':
     'el siguiente número de orden de compra; se deduce de purchase-orders.xlsx',
   'what each scanner last reported as waiting to send; device state, not records':

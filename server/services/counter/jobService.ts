@@ -15,6 +15,7 @@ import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import { containsPattern } from '../../db/likePattern.js'
+import { SqlWhere } from '../../db/sqlWhere.js'
 import { getCustomer } from './customerService.js'
 
 interface JobRow {
@@ -74,26 +75,13 @@ export async function listJobs(
   ds: DataSource,
   query: { customerId?: number; status?: JobStatusName; q?: string; specialDueBy?: string; limit: number },
 ): Promise<JobSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  if (query.customerId) {
-    where.push('j.customer_id = ?')
-    params.push(query.customerId)
-  }
-  if (query.status) {
-    where.push('j.status = ?')
-    params.push(query.status)
-  }
-  if (query.q) {
-    where.push('(j.name LIKE ? OR c.name LIKE ? OR c.code LIKE ? OR j.site_address LIKE ?)')
-    params.push(...Array(4).fill(containsPattern(query.q)))
-  }
-  if (query.specialDueBy) {
-    where.push(SPECIAL_ORDER_DUE_SQL)
-    params.push(query.specialDueBy)
-  }
-  const sql = `${JOB_SELECT}${where.length ? ' WHERE ' + where.join(' AND ') : ''} ORDER BY j.updated_at DESC, j.id DESC LIMIT ${query.limit}`
-  const rows: JobRow[] = await ds.query(sql, params)
+  const where = new SqlWhere()
+  if (query.customerId) where.add('j.customer_id = ?', [query.customerId])
+  if (query.status) where.add('j.status = ?', [query.status])
+  if (query.q) where.add('(j.name LIKE ? OR c.name LIKE ? OR c.code LIKE ? OR j.site_address LIKE ?)', Array(4).fill(containsPattern(query.q)))
+  if (query.specialDueBy) where.add(SPECIAL_ORDER_DUE_SQL, [query.specialDueBy])
+  const sql = `${JOB_SELECT} ${where.sql()} ORDER BY j.updated_at DESC, j.id DESC LIMIT ${query.limit}`
+  const rows: JobRow[] = await ds.query(sql, where.params)
   return rows.map(toJobSummary)
 }
 

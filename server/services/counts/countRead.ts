@@ -12,6 +12,7 @@ import type {
 import type { Role } from '../../../shared/roles.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { AppError } from '../../errors.js'
+import { SqlWhere } from '../../db/sqlWhere.js'
 import { walkConfigOf } from '../picking/pickWalk.js'
 import { countSettings } from './countSettings.js'
 
@@ -78,13 +79,12 @@ function toSummary(r: SummaryRow): CountSummary {
 }
 
 export async function listCounts(ds: DataSource, q: CountsQuery): Promise<CountSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  if (q.status !== 'all') { where.push('c.status = ?'); params.push(q.status) }
-  if (q.warehouseId) { where.push('c.warehouse_id = ?'); params.push(q.warehouseId) }
+  const where = new SqlWhere()
+    .add('c.status = ?', [q.status], q.status !== 'all')
+    .add('c.warehouse_id = ?', [q.warehouseId], !!q.warehouseId)
   const rows: SummaryRow[] = await ds.query(
-    `${SUMMARY_SELECT} ${where.length ? `WHERE ${where.join(' AND ')}` : ''} ORDER BY c.status = 'open' DESC, c.id DESC LIMIT 200`,
-    params,
+    `${SUMMARY_SELECT} ${where.sql()} ORDER BY c.status = 'open' DESC, c.id DESC LIMIT 200`,
+    where.params,
   )
   return rows.map(toSummary)
 }
@@ -225,16 +225,16 @@ export async function handheldCount(ds: DataSource, viewer: CountViewer, id: num
 
 export async function countHistory(ds: DataSource, viewer: CountViewer, q: CountHistoryQuery): Promise<CountHistoryRow[]> {
   const figures = mayReview(viewer.roles, (await countSettings(ds)).reviewerRoles)
-  const where = ["l.status IN ('matched', 'approved', 'recounted', 'counted')"]
-  const params: unknown[] = []
-  if (q.binId) { where.push('l.bin_id = ?'); params.push(q.binId) }
-  if (q.itemId) { where.push('l.item_id = ?'); params.push(q.itemId) }
-  if (q.warehouseId) { where.push('l.warehouse_id = ?'); params.push(q.warehouseId) }
+  const where = new SqlWhere()
+    .add("l.status IN ('matched', 'approved', 'recounted', 'counted')")
+    .add('l.bin_id = ?', [q.binId], !!q.binId)
+    .add('l.item_id = ?', [q.itemId], !!q.itemId)
+    .add('l.warehouse_id = ?', [q.warehouseId], !!q.warehouseId)
   const rows: (LineRow & { count_id: number; scope: CountHistoryRow['scope']; warehouse_code: string })[] = await ds.query(
-    `SELECT l2.*, c.scope, w.code AS warehouse_code FROM (${LINE_SELECT} WHERE ${where.join(' AND ')} ORDER BY l.counted_at DESC, l.id DESC LIMIT 500) l2
+    `SELECT l2.*, c.scope, w.code AS warehouse_code FROM (${LINE_SELECT} ${where.sql()} ORDER BY l.counted_at DESC, l.id DESC LIMIT 500) l2
        JOIN count_lines cl ON cl.id = l2.id JOIN cycle_counts c ON c.id = cl.count_id JOIN warehouses w ON w.id = cl.warehouse_id
       ORDER BY l2.counted_at DESC, l2.id DESC`,
-    params,
+    where.params,
   )
   return rows.map((r) => {
     const v = toLineView(r, figures)

@@ -17,6 +17,7 @@ import { Item } from '../../entities/Item.js'
 import { CustomerTerms, PriceLevel, PriceRuleRow, SalesTaxRate } from '../../entities/Pricing.js'
 import { Warehouse } from '../../entities/Warehouse.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
+import { SqlWhere } from '../../db/sqlWhere.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 
@@ -93,26 +94,19 @@ export async function deletePriceLevel(ds: DataSource, actor: AuditActor, id: nu
 }
 
 export async function listPriceRules(ds: DataSource, query: { levelId?: number | 'all'; itemId?: number }): Promise<PriceRuleSummary[]> {
-  const where: string[] = []
-  const params: unknown[] = []
-  if (query.levelId === 'all') where.push('r.level_id IS NULL')
-  else if (query.levelId !== undefined) {
-    where.push('r.level_id = ?')
-    params.push(query.levelId)
-  }
-  if (query.itemId !== undefined) {
-    where.push('r.item_id = ?')
-    params.push(query.itemId)
-  }
+  const where = new SqlWhere()
+  if (query.levelId === 'all') where.add('r.level_id IS NULL')
+  else if (query.levelId !== undefined) where.add('r.level_id = ?', [query.levelId])
+  if (query.itemId !== undefined) where.add('r.item_id = ?', [query.itemId])
   const rows: Record<string, string | number | null>[] = await ds.query(
     `SELECT r.id, r.level_id AS levelId, l.code AS levelCode, r.item_id AS itemId, i.sku, i.name AS itemName,
             i.list_price AS listPrice, COALESCE(i.case_qty, 1) AS packSize, i.sell_by_pack AS sellByPack,
             r.min_qty AS minQty, r.basis, r.price, r.percent_off AS percentOff
        FROM price_rules r JOIN items i ON i.id = r.item_id LEFT JOIN price_levels l ON l.id = r.level_id
-      ${where.length ? 'WHERE ' + where.join(' AND ') : ''}
+      ${where.sql()}
       ORDER BY i.sku, l.code, r.basis, r.min_qty
       LIMIT 2000`,
-    params,
+    where.params,
   )
   return rows.map((r) => ({
     id: Number(r.id),
@@ -208,8 +202,8 @@ function toTerms(r: Record<string, string | number | null>): CustomerTermsSummar
 
 /** Accounts with a level or an exemption (the admin's list); every active account when `all`. */
 export async function listCustomerTerms(ds: DataSource, all: boolean): Promise<CustomerTermsSummary[]> {
-  const where = all ? 'WHERE c.active = 1' : 'WHERE t.price_level_id IS NOT NULL OR t.exempt_certificate IS NOT NULL'
-  return (await ds.query(`${termsSql} ${where} ORDER BY c.name LIMIT 2000`)).map(toTerms)
+  const where = new SqlWhere().add(all ? 'c.active = 1' : '(t.price_level_id IS NOT NULL OR t.exempt_certificate IS NOT NULL)')
+  return (await ds.query(`${termsSql} ${where.sql()} ORDER BY c.name LIMIT 2000`, where.params)).map(toTerms)
 }
 
 export async function customerTerms(db: DataSource | EntityManager, customerId: number): Promise<CustomerTermsSummary> {

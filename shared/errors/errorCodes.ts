@@ -93,6 +93,7 @@ export const ERROR_CODES = {
   global_policy_only: [],
   override_item_only: [],
   override_reason_needed: [],
+  no_charge_admin_only: [],
   abc_cutoffs_order: [],
 
   // Takeoffs
@@ -181,6 +182,7 @@ export const ERROR_CODES = {
   length_zero_denominator: ['input'],
   length_decimal_comma: ['input'],
   length_unreadable: ['input'],
+  number_unreadable: ['input'],
 
   // Warehouses, bins and takeoff settings
   warehouse_not_found: [],

@@ -16,6 +16,8 @@ const numbers = {
   /** The figures behind a computation (a mean daily use of 0.4167). */
   precise: { maximumFractionDigits: 4 },
   percent: { style: 'percent', maximumFractionDigits: 1 },
+  /** A tax rate to the precision a taxing authority sets it (6.5 %, 7.1875 %): given as a fraction, 0.065. */
+  ratePercent: { style: 'percent', maximumFractionDigits: 4 },
 } as const
 
 export const numberFormats: IntlNumberFormats = { 'en-US': numbers, 'es-US': numbers }

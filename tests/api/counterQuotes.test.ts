@@ -77,6 +77,47 @@ describe('a quote from a bill of materials', () => {
     expect(res.body).toMatchObject({ subtotal: '3028.75', taxAmount: '249.87', amountDue: '3278.62' })
   })
 
+  it('a line at no charge is an admin’s call: a clerk’s 0 is refused beside the price (403, nothing changed); an admin’s stands', async () => {
+    // source: common practice (a line given away at a trade counter needs a manager's approval, with its reason)
+    const before = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const lines = [
+      { itemId: fx.block.id, qty: 120, unitPrice: '0', overrideReason: 'Replaces 120 blocks broken on our truck' },
+      { itemId: fx.spacers.id, qty: 250 },
+      { itemId: fx.base.id, qty: 1 },
+    ]
+    const refused = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    expect(refused.status).toBe(403)
+    expect(refused.body.error.code).toBe('no_charge_admin_only')
+    expect(refused.body.error.fields['lines.0.unitPrice'].code).toBe('no_charge_admin_only')
+    const unchanged = (await counter.get(`/api/quotes/${quoteId}`)).body
+    expect(unchanged.amountDue).toBe(before.amountDue)
+    expect(unchanged.lines[0].unitPrice).toBe(before.lines[0].unitPrice)
+    // Still refused written as 0.00, and with no reason it is the reason that is asked for first (400).
+    const zeroes = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ ...lines[0], unitPrice: '0.00' }, lines[1], lines[2]] })
+    expect(zeroes.status).toBe(403)
+    const noReason = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ ...lines[0], overrideReason: '' }, lines[1], lines[2]] })
+    expect(noReason.status).toBe(400)
+    expect(noReason.body.error.fields['lines.0.overrideReason'].code).toBe('override_reason_needed')
+
+    const admin = await h.as('admin')
+    const given = await admin.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    expect(given.status).toBe(200)
+    expect(given.body.lines[0]).toMatchObject({ unitPrice: '0.00', extension: '0.00', explanation: { source: 'override', overrideReason: 'Replaces 120 blocks broken on our truck' } })
+    // 0.00 + 108.00 + 760.75 = 868.75; × 8.25 % = 71.671875 → 71.67; due 940.42
+    expect(given.body).toMatchObject({ subtotal: '868.75', taxAmount: '71.67', amountDue: '940.42' })
+    // The clerk may still change the draft: the admin's free line stays as the admin set it.
+    const kept = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    expect(kept.status).toBe(200)
+    expect(kept.body.lines[0].unitPrice).toBe('0.00')
+
+    // Back to the clerk's own 18.00 the next steps read.
+    const back = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({
+      warehouseId: fx.warehouseId,
+      lines: [{ itemId: fx.block.id, qty: 120, unitPrice: '18.00', overrideReason: 'Matched the job’s written budget' }, lines[1], lines[2]],
+    })
+    expect(back.body.amountDue).toBe(before.amountDue)
+  })
+
   it('is offered by e-mail with its PDF; the quote becomes offered and can no longer be edited', async () => {
     const before = smtp.messages.length
     const res = await counter.post(`/api/quotes/${quoteId}/offer`).set(CSRF).send({ message: 'As discussed at the counter.' })

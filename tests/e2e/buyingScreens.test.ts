@@ -56,7 +56,7 @@ describe('a draft purchase order on screen', () => {
     await poll(() => rows.count()).toBe(1)
 
     // 2 packs → 5 packs typed, not saved; approve asks, and approves 5 packs of 24 = 120 units.
-    const packs = rows.first().locator('.el-input-number input').first()
+    const packs = rows.first().locator('.ly-number input').first()
     await packs.fill('5')
     await packs.press('Tab')
     await poll(() => page.locator('[data-test="unsaved-note"]').isVisible()).toBe(true)

@@ -108,7 +108,8 @@ describe('returns at the counter', () => {
       await page.goto('/admin/selling-prices')
       await page.getByRole('tab', { name: 'Sales tax by location' }).click()
       const rate = page.locator(`[data-test="tax-rate-${w.code}"]`)
-      await poll(() => rate.inputValue()).toBe('8.2500')
+      // The stored 8.2500 shows as the rate it is, without the storage's trailing zeros.
+      await poll(() => rate.inputValue()).toBe('8.25')
       // source: WCAG 2.2 SC 1.3.1 Info and Relationships and SC 4.1.2 Name, Role, Value (axe-core rule "label")
       const findings = blocking(await axeFindings(page, 'selling prices, tax tab'))
       expect(findings, describeFindings(findings)).toEqual([])

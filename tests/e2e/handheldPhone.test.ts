@@ -92,7 +92,7 @@ describe('the scan box and the quantity stepper are the largest controls on a ph
     await page.locator('[data-test="receipt-row"]').first().waitFor()
     await page.locator('.el-dropdown-menu >> visible=true').waitFor({ state: 'detached' })
     // The scan box, and the row's received and damaged quantities.
-    await measure('receive', '#receive-scan, [data-test="receipt-row"] .el-input-number', 3)
+    await measure('receive', '#receive-scan, [data-test="receipt-row"] .ly-number', 3)
   })
 
   it('on moving and adjusting stock', async () => {

@@ -116,7 +116,7 @@ describe('purchasing in the browser', () => {
       await scan.press('Enter')
       await expect.poll(() => wh.page.locator('[data-test="receipt-row"]').count()).toBe(2)
       // the rest of lot R7002 typed into the row: 1 scanned + 23 = 24
-      const qty = wh.page.locator('[data-test="receipt-row"]').nth(1).locator('.el-input-number input').first()
+      const qty = wh.page.locator('[data-test="receipt-row"]').nth(1).locator('.ly-number input').first()
       await qty.fill('24')
       await qty.press('Tab')
       await wh.page.locator('[data-test="post-receipt"]').click()

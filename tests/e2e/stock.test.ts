@@ -168,7 +168,7 @@ describe('stock screens for the warehouse crew', () => {
       await poll(() => page.locator('[data-test="ship-dialog"] [data-test="scan-message"]').textContent()).toContain(fx.lotCode)
       const before = (await onHand())!
       await poll(() => page.locator('[data-line="0"]').textContent()).toMatch(new RegExp(`${before} (here|aquí)`))
-      await page.locator('[data-line="0"] .el-input-number input').fill('4')
+      await page.locator('[data-line="0"] .ly-number input').fill('4')
       await h.screenshot(page, 'stock-transfer-ship-form')
       await page.locator('[data-test="ship-review"]').click()
       await page.locator('[data-test="confirm-dialog"]').filter({ hasText: w2.code }).waitFor()

@@ -70,12 +70,12 @@ export interface TargetSizes {
   crowded: string[]
 }
 
-const CONTROLS = 'a[href], button, input:not([type="hidden"]), select, textarea, [role="button"], [role="checkbox"], [role="switch"], [role="tab"], [role="combobox"], .el-checkbox, .el-radio, .el-input-number__increase, .el-input-number__decrease'
+const CONTROLS = 'a[href], button, input:not([type="hidden"]), select, textarea, [role="button"], [role="checkbox"], [role="switch"], [role="tab"], [role="combobox"], .el-checkbox, .el-radio'
 
 /**
  * Every visible control's hit box: the control itself or, for an input drawn inside the component library's
- * box (select, input, checkbox), that box. A stepper's own field is the input between its two buttons (the
- * box around all three is not one target). Then how close each target comes to every other one: two targets
+ * box (select, input, checkbox), that box. A stepper's field and its − and + buttons are three targets (the
+ * box around all three is not one). Then how close each target comes to every other one: two targets
  * side by side, closer than 8 px, or one over the other (neither inside the other), are crowded.
  */
 export async function targetSizes(page: Page): Promise<TargetSizes> {
@@ -84,7 +84,7 @@ export async function targetSizes(page: Page): Promise<TargetSizes> {
     const out = { controls: 0, under44: [] as string[], crowded: [] as string[] }
     const boxes: { el: Element; r: DOMRect; name: string }[] = []
     for (const el of Array.from(document.querySelectorAll(selector))) {
-      const box = el.closest('.el-input-number') && el.tagName === 'INPUT' ? el : (el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el)
+      const box = el.closest('.el-select__wrapper, .el-input__wrapper, .el-checkbox, .el-radio, .el-radio-button, .el-switch') ?? el
       if (seen.has(box) || !(box as HTMLElement).checkVisibility?.()) continue
       seen.add(box)
       const r = box.getBoundingClientRect()
@@ -119,7 +119,7 @@ export interface MainControlSizes {
 
 /**
  * Measures, on the page as it stands, the screen's main controls (`mainSelector`: its scan box and quantity
- * stepper; a component library's input or stepper is measured by its whole box, so a stepper's − and +
+ * stepper; an input or our number field (.ly-number) is measured by its whole box, so a stepper's − and +
  * buttons and its field are one thing to find) against every other visible control (the same hit boxes as
  * `targetSizes`). A control outside them that is at least as tall as the smallest of them, or larger in
  * area, is a rival.
@@ -129,7 +129,7 @@ export async function mainControlSizes(page: Page, mainSelector: string): Promis
     const label = (el: Element, r: DOMRect) =>
       `${el.tagName.toLowerCase()}${el.getAttribute('data-test') ? `[data-test=${el.getAttribute('data-test')}]` : ''}.${String(el.className).split(' ')[0]} ${Math.round(r.width)}×${Math.round(r.height)}`
     const shown = (el: Element) => !!(el as HTMLElement).checkVisibility?.() && el.getBoundingClientRect().width > 0
-    const mains = [...new Set(Array.from(document.querySelectorAll(mainSel)).map((el) => el.closest('.el-input-number, .el-input') ?? el))].filter(shown)
+    const mains = [...new Set(Array.from(document.querySelectorAll(mainSel)).map((el) => el.closest('.ly-number, .el-input') ?? el))].filter(shown)
     const out = { main: [] as string[], rivals: [] as string[] }
     if (!mains.length) return out
     const rects = mains.map((el) => el.getBoundingClientRect())

@@ -33,4 +33,11 @@ describe('one of each', () => {
     expect(OPENS_BOOK.test('new ExcelJS.stream.xlsx.WorkbookWriter({ stream })')).toBe(true)
     expect(using(sources('server'), OPENS_BOOK)).toEqual(['server/services/exports/xlsxWriter.ts'])
   })
+
+  it('every number a person types goes through the one number field, never the component library\'s clamping box', () => {
+    // source: common practice (a field that silently turns 0 into 1 or 1e9 into its maximum sends a number no one typed)
+    const LIBRARY_NUMBER_BOX = /<el-input-number\b|\bElInputNumber\b/
+    expect(LIBRARY_NUMBER_BOX.test('<el-input-number v-model="qty" :min="1" />')).toBe(true)
+    expect(using(sources('src'), LIBRARY_NUMBER_BOX)).toEqual([])
+  })
 })

@@ -10,6 +10,8 @@ import { Item } from '../../entities/Item.js'
 import { Quote, QuoteLine } from '../../entities/Quote.js'
 import { User } from '../../entities/User.js'
 import { addDays } from '../../../shared/reports/zonedDays.js'
+import { isNoCharge, noChargeRefusals } from '../../../shared/pricing/noCharge.js'
+import type { Role } from '../../../shared/roles.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
@@ -35,13 +37,28 @@ export function ensureQuote(action: QuoteAction, quote: Pick<Quote, 'status' | '
   }
 }
 
-async function actorName(em: EntityManager, actor: Actor): Promise<string> {
-  return (await em.findOneBy(User, { id: actor.userId }))?.displayName ?? `user ${actor.userId}`
+/** Who sets the prices: the name signed on an own price, and the roles that decide what they may set. */
+async function pricer(em: EntityManager, actor: Actor): Promise<{ name: string; roles: readonly Role[] }> {
+  const user = await em.findOneBy(User, { id: actor.userId })
+  return { name: user?.displayName ?? `user ${actor.userId}`, roles: user?.roles ?? [] }
+}
+
+/**
+ * A line at no charge is an admin's call (shared/pricing/noCharge.ts): anyone else is refused beside that line's
+ * price. `kept`: items the quote already gives at no charge (an admin set them); a clerk changing other lines keeps them.
+ */
+function ensureNoChargeAllowed(lines: readonly QuoteLineInput[], roles: readonly Role[], kept: ReadonlySet<number>): void {
+  const refused = noChargeRefusals(lines, roles).filter((i) => !kept.has(lines[i].itemId))
+  if (!refused.length) return
+  throw AppError.of(403, 'no_charge_admin_only', 'Only an admin sets a line at no charge.', {
+    fields: Object.fromEntries(refused.map((i) => [`lines.${i}.unitPrice`, problem('no_charge_admin_only')])),
+  })
 }
 
 /** Prices the lines and writes them and the quote's totals (replacing any lines it had). */
-async function writePricedLines(em: EntityManager, actor: Actor, quote: Quote, lines: readonly QuoteLineInput[]): Promise<void> {
-  const by = await actorName(em, actor)
+async function writePricedLines(em: EntityManager, actor: Actor, quote: Quote, lines: readonly QuoteLineInput[], kept: ReadonlySet<number> = new Set()): Promise<void> {
+  const { name: by, roles } = await pricer(em, actor)
+  ensureNoChargeAllowed(lines, roles, kept)
   const priced = await priceLines(em, {
     customerId: quote.customerId,
     warehouseId: quote.warehouseId,
@@ -137,8 +154,9 @@ export async function updateQuote(ds: DataSource, actor: Actor, id: number, inpu
     const quote = await lockQuote(em, id)
     ensureQuote('edit', quote)
     const next = { warehouseId: input.warehouseId, validUntil: input.validUntil ?? quote.validUntil, terms: input.terms, notes: input.notes }
+    const freeNow = (await em.findBy(QuoteLine, { quoteId: id })).filter((l) => isNoCharge(l.overridePrice)).map((l) => l.itemId)
     await em.update(Quote, { id }, next)
-    await writePricedLines(em, actor, { ...quote, ...next }, input.lines)
+    await writePricedLines(em, actor, { ...quote, ...next }, input.lines, new Set(freeNow))
     await audit(em, actor, 'quote.update', 'quote', id, { number: quote.number, lines: input.lines.length })
   })
   return quoteDetail(ds, id)
@@ -164,9 +182,9 @@ export async function reviseQuote(ds: DataSource, actor: Actor, id: number): Pro
       createdBy: actor.userId,
     }))
     await em.update(Quote, { id }, { status: 'replaced' })
-    await writePricedLines(em, actor, quote, oldLines.map((l) => ({
-      itemId: l.itemId, qty: l.askedQty, bomLineId: l.bomLineId, unitPrice: l.overridePrice, overrideReason: l.overrideReason,
-    })))
+    const lines = oldLines.map((l) => ({ itemId: l.itemId, qty: l.askedQty, bomLineId: l.bomLineId, unitPrice: l.overridePrice, overrideReason: l.overrideReason }))
+    // The revision carries the old one's lines as they were, a line at no charge an admin set included.
+    await writePricedLines(em, actor, quote, lines, new Set(lines.filter((l) => isNoCharge(l.unitPrice)).map((l) => l.itemId)))
     await audit(em, actor, 'quote.revise', 'quote', quote.id, { number: old.number, from: old.revision, to: quote.revision })
     return quote.id
   })

@@ -7,6 +7,8 @@ export default {
   edit: 'Edit',
   create: 'Create',
   delete: 'Delete',
+  numberLess: 'One less',
+  numberMore: 'One more',
   confirm: 'Confirm',
   search: 'Search',
   /** Below a list shown a page at a time, newest first. */

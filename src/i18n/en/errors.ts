@@ -79,6 +79,7 @@ export default {
   global_policy_only: 'Set this on the global policy',
   override_item_only: 'Overrides belong to one item in one warehouse',
   override_reason_needed: 'Say why the computed figure is set aside',
+  no_charge_admin_only: 'A line at no charge is an administrator’s call: ask one to set it, or enter a price',
   abc_cutoffs_order: 'B must reach at least as far as A',
   outside_joint_too_narrow: 'The widest outside joint must be wider than the inside joint',
   arc_one_measure: 'Give the arc as exactly one of: angle, length along the inside, or blocks',
@@ -167,6 +168,7 @@ export default {
   length_zero_denominator: 'Can’t read “{input}”: a fraction cannot have 0 below the line',
   length_decimal_comma: 'Can’t read “{input}”: write decimals with a point (1.5) and no thousands separator',
   length_unreadable: 'Can’t read “{input}” as a length. Try 7 3/4", 7.75 in, 190 mm or 5\' 2".',
+  number_unreadable: 'Can’t read “{input}” as a number. Write digits, like 12 or 12.5.',
 
   // Warehouses, bins and takeoff settings
   warehouse_not_found: 'That warehouse was not found.',

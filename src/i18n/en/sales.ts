@@ -80,6 +80,7 @@ export default {
   tax: {
     intro: 'The sales tax rate where each warehouse hands goods over. Tax is worked on the document total and rounded to the cent once: up when the third decimal is 5 or more.',
     warehouse: 'Warehouse',
+    charged: 'Charged now',
     rate: 'Rate %',
     label: 'Note (authority)',
     notSet: 'not set: no tax charged',

@@ -8,6 +8,8 @@ export default {
   edit: 'Editar',
   create: 'Crear',
   delete: 'Eliminar',
+  numberLess: 'Uno menos',
+  numberMore: 'Uno más',
   confirm: 'Confirmar',
   /** Below a list shown a page at a time, newest first. */
   showOlder: 'Mostrar anteriores',

@@ -78,6 +78,7 @@ export default {
   global_policy_only: 'Esto se fija en la política general',
   override_item_only: 'Los ajustes manuales son de un artículo en un almacén',
   override_reason_needed: 'Explique por qué se deja de lado la cifra calculada',
+  no_charge_admin_only: 'Una línea sin cargo la decide un administrador: pida a uno que la ponga, o escriba un precio',
   abc_cutoffs_order: 'B debe llegar por lo menos hasta A',
   outside_joint_too_narrow: 'La junta exterior más ancha debe ser más ancha que la junta interior',
   arc_one_measure: 'Dé el arco con una sola medida: ángulo, largo por el lado interior o número de bloques',
@@ -166,6 +167,7 @@ export default {
   length_zero_denominator: 'No se puede leer “{input}”: una fracción no puede tener 0 abajo',
   length_decimal_comma: 'No se puede leer “{input}”: escriba los decimales con punto (1.5) y sin separador de miles',
   length_unreadable: 'No se puede leer “{input}” como medida. Pruebe 7 3/4", 7.75 in, 190 mm o 5\' 2".',
+  number_unreadable: 'No se puede leer “{input}” como número. Escriba cifras, como 12 o 12,5.',
 
   // Almacenes, ubicaciones y ajustes de cálculo
   warehouse_not_found: 'No se encontró ese almacén.',

@@ -80,6 +80,7 @@ export default {
   tax: {
     intro: 'La tasa de impuesto sobre ventas donde cada almacén entrega la mercancía. El impuesto se calcula sobre el total del documento y se redondea al centavo una sola vez: hacia arriba cuando el tercer decimal es 5 o más.',
     warehouse: 'Almacén',
+    charged: 'Se cobra ahora',
     rate: 'Tasa %',
     label: 'Nota (autoridad)',
     notSet: 'sin tasa: no se cobra impuesto',

@@ -6,7 +6,6 @@ import express from 'express'
 import expressStaticGzip from 'express-static-gzip'
 import session from 'express-session'
 import helmet from 'helmet'
-import { pinoHttp } from 'pino-http'
 import type { Logger } from 'pino'
 import type { DataSource } from 'typeorm'
 import type { AppConfig } from './config.js'
@@ -14,6 +13,7 @@ import type { AppContext } from './context.js'
 import { apiNotFound, errorMiddleware } from './http/errorMiddleware.js'
 import { csrfGuard } from './http/csrf.js'
 import { pageHtml } from './http/pagePreloads.js'
+import { requestLog } from './http/requestLog.js'
 import { createSessionStore } from './db/sessionStore.js'
 import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport, renewWhenDue } from './http/session.js'
@@ -132,17 +132,7 @@ export function createApp(deps: AppDeps): BuiltApp {
   const dist = deps.clientDist ?? clientDist
   const hasClient = existsSync(dist)
   if (hasClient) app.use(clientFiles(dist))
-  app.use(
-    pinoHttp({
-      logger,
-      autoLogging: { ignore: (req) => !req.url?.startsWith('/api') },
-      // One short line per request: no headers (cookies), no bodies (passwords).
-      serializers: {
-        req: (req: { id: unknown; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
-        res: (res: { statusCode: number }) => ({ status: res.statusCode }),
-      },
-    }),
-  )
+  app.use(requestLog(app, logger))
   // The provider signs the exact bytes it sends: its webhook keeps the raw body (the JSON parser then skips it).
   app.use(PAYMENT_WEBHOOK_PATH, express.raw({ type: () => true, limit: '256kb' }))
   app.use(express.json({ limit: '1mb' }))

@@ -109,6 +109,9 @@ describe('a quote from a bill of materials', () => {
     const kept = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
     expect(kept.status).toBe(200)
     expect(kept.body.lines[0].unitPrice).toBe('0.00')
+    // …and still signed by the admin who set it, not by the clerk who saved the draft again.
+    expect(kept.body.lines[0].explanation.overrideBy).toBe(given.body.lines[0].explanation.overrideBy)
+    expect(kept.body.lines[0].explanation.overrideBy).not.toBe('Test t-counter')
 
     // Back to the clerk's own 18.00 the next steps read.
     const back = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({

@@ -10,7 +10,9 @@ import { Item } from '../../entities/Item.js'
 import { Quote, QuoteLine } from '../../entities/Quote.js'
 import { User } from '../../entities/User.js'
 import { addDays } from '../../../shared/reports/zonedDays.js'
-import { isNoCharge, noChargeRefusals } from '../../../shared/pricing/noCharge.js'
+import { noChargeRefusals } from '../../../shared/pricing/noCharge.js'
+import type { PriceExplanation } from '../../../shared/pricing/sellingPrice.js'
+import { Decimal } from 'decimal.js'
 import type { Role } from '../../../shared/roles.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
@@ -43,12 +45,36 @@ async function pricer(em: EntityManager, actor: Actor): Promise<{ name: string; 
   return { name: user?.displayName ?? `user ${actor.userId}`, roles: user?.roles ?? [] }
 }
 
+/** An own price the quote already carries, per item: a line that repeats it keeps it as it stands, its author too. */
+interface StandingPrice {
+  unitPrice: string
+  reason: string | null
+  by: string
+}
+type Standing = ReadonlyMap<number, StandingPrice>
+
+function standingPrices(lines: readonly QuoteLine[]): Map<number, StandingPrice> {
+  return new Map(lines.flatMap((l) => (l.overridePrice === null ? [] : [[l.itemId, {
+    unitPrice: l.overridePrice,
+    reason: l.overrideReason,
+    by: (JSON.parse(l.explanationJson) as PriceExplanation).overrideBy ?? '',
+  }] as const])))
+}
+
+/** The standing own price a line repeats (same price, same reason), if any. */
+function repeated(line: QuoteLineInput, standing: Standing): StandingPrice | undefined {
+  const was = standing.get(line.itemId)
+  if (!was || line.unitPrice === null) return undefined
+  return new Decimal(was.unitPrice).equals(line.unitPrice) && (was.reason ?? '') === (line.overrideReason ?? '') ? was : undefined
+}
+
 /**
  * A line at no charge is an admin's call (shared/pricing/noCharge.ts): anyone else is refused beside that line's
- * price. `kept`: items the quote already gives at no charge (an admin set them); a clerk changing other lines keeps them.
+ * price. A line repeating a no-charge price the quote already carries (an admin set it) stays when a clerk changes
+ * other lines or revises the quote.
  */
-function ensureNoChargeAllowed(lines: readonly QuoteLineInput[], roles: readonly Role[], kept: ReadonlySet<number>): void {
-  const refused = noChargeRefusals(lines, roles).filter((i) => !kept.has(lines[i].itemId))
+function ensureNoChargeAllowed(lines: readonly QuoteLineInput[], roles: readonly Role[], standing: Standing): void {
+  const refused = noChargeRefusals(lines, roles).filter((i) => !repeated(lines[i], standing))
   if (!refused.length) return
   throw AppError.of(403, 'no_charge_admin_only', 'Only an admin sets a line at no charge.', {
     fields: Object.fromEntries(refused.map((i) => [`lines.${i}.unitPrice`, problem('no_charge_admin_only')])),
@@ -56,14 +82,16 @@ function ensureNoChargeAllowed(lines: readonly QuoteLineInput[], roles: readonly
 }
 
 /** Prices the lines and writes them and the quote's totals (replacing any lines it had). */
-async function writePricedLines(em: EntityManager, actor: Actor, quote: Quote, lines: readonly QuoteLineInput[], kept: ReadonlySet<number> = new Set()): Promise<void> {
-  const { name: by, roles } = await pricer(em, actor)
-  ensureNoChargeAllowed(lines, roles, kept)
+async function writePricedLines(em: EntityManager, actor: Actor, quote: Quote, lines: readonly QuoteLineInput[], standing: Standing = new Map()): Promise<void> {
+  const { name, roles } = await pricer(em, actor)
+  ensureNoChargeAllowed(lines, roles, standing)
+  // An own price signs with who set it: its first author while it stands unchanged, else whoever writes it now.
+  const by = (l: QuoteLineInput) => repeated(l, standing)?.by || name
   const priced = await priceLines(em, {
     customerId: quote.customerId,
     warehouseId: quote.warehouseId,
     onDay: quote.quotedOn,
-    lines: lines.map((l) => ({ itemId: l.itemId, qty: l.qty, override: l.unitPrice !== null ? { unitPrice: l.unitPrice, reason: l.overrideReason ?? '', by } : null })),
+    lines: lines.map((l) => ({ itemId: l.itemId, qty: l.qty, override: l.unitPrice !== null ? { unitPrice: l.unitPrice, reason: l.overrideReason ?? '', by: by(l) } : null })),
   })
   const items = new Map((await em.findBy(Item, { id: In([...new Set(lines.map((l) => l.itemId))]) })).map((i) => [i.id, i]))
   await em.delete(QuoteLine, { quoteId: quote.id })
@@ -154,9 +182,9 @@ export async function updateQuote(ds: DataSource, actor: Actor, id: number, inpu
     const quote = await lockQuote(em, id)
     ensureQuote('edit', quote)
     const next = { warehouseId: input.warehouseId, validUntil: input.validUntil ?? quote.validUntil, terms: input.terms, notes: input.notes }
-    const freeNow = (await em.findBy(QuoteLine, { quoteId: id })).filter((l) => isNoCharge(l.overridePrice)).map((l) => l.itemId)
+    const standing = standingPrices(await em.findBy(QuoteLine, { quoteId: id }))
     await em.update(Quote, { id }, next)
-    await writePricedLines(em, actor, { ...quote, ...next }, input.lines, new Set(freeNow))
+    await writePricedLines(em, actor, { ...quote, ...next }, input.lines, standing)
     await audit(em, actor, 'quote.update', 'quote', id, { number: quote.number, lines: input.lines.length })
   })
   return quoteDetail(ds, id)
@@ -182,9 +210,10 @@ export async function reviseQuote(ds: DataSource, actor: Actor, id: number): Pro
       createdBy: actor.userId,
     }))
     await em.update(Quote, { id }, { status: 'replaced' })
-    const lines = oldLines.map((l) => ({ itemId: l.itemId, qty: l.askedQty, bomLineId: l.bomLineId, unitPrice: l.overridePrice, overrideReason: l.overrideReason }))
-    // The revision carries the old one's lines as they were, a line at no charge an admin set included.
-    await writePricedLines(em, actor, quote, lines, new Set(lines.filter((l) => isNoCharge(l.unitPrice)).map((l) => l.itemId)))
+    // The revision carries the old one's lines as they were: own prices with their authors, a line at no charge an admin set included.
+    await writePricedLines(em, actor, quote, oldLines.map((l) => ({
+      itemId: l.itemId, qty: l.askedQty, bomLineId: l.bomLineId, unitPrice: l.overridePrice, overrideReason: l.overrideReason,
+    })), standingPrices(oldLines))
     await audit(em, actor, 'quote.revise', 'quote', quote.id, { number: old.number, from: old.revision, to: quote.revision })
     return quote.id
   })

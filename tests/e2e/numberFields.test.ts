@@ -1,7 +1,7 @@
 // Feature: the number field (src/components/base/BaseNumberInput.vue) in a real browser, on three forms that
 // send quantities: a stock adjustment on the handheld (the warehouse crew, in Spanish), a line of a draft quote
-// at the counter and a line of a new purchase order. The trials' bad numbers (0, -3, 1e9, 1000000000, 1,5 and
-// 7 3/4) each get a worded problem beside the field, keep what was typed, and nothing is sent: the field is
+// at the counter and a line of a new purchase order. The trials' bad numbers (0, -3, 1e9, 1000000000, 1,5,
+// 7 3/4 and nothing at all) each get a worded problem beside the field, keep what was typed, and nothing is sent: the field is
 // never rounded or clamped into a number the person did not write.
 import { randomUUID } from 'node:crypto'
 import bcrypt from 'bcryptjs'
@@ -109,6 +109,14 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
       expect(await tryNumber(page, field, save, '1,5')).toBe('Can’t read “1,5” as a number. Write digits, like 12 or 12.5.')
       expect(await tryNumber(page, field, save, '7 3/4')).toBe('Whole numbers only')
       expect(sent).toEqual([])
+      // A clerk's own price of 0 is refused beside the price, as the server would refuse it, and nothing is sent.
+      // source: common practice (a line given away at a trade counter is a manager's call)
+      await page.locator(`${field} input`).fill('12')
+      await page.locator(`input[aria-label="Own price ${sales.block.sku}"]`).fill('0')
+      await page.locator(`input[aria-label="Why ${sales.block.sku}"]`).fill('Replaces blocks broken on our truck')
+      await page.locator(save).click()
+      await poll(() => page.locator('.own .err').first().textContent()).toContain('A line at no charge is an administrator’s call')
+      expect(sent).toEqual([])
       const [line]: { qty: number }[] = await h.ds.query('SELECT qty FROM quote_lines WHERE quote_id = ?', [quote.id])
       expect(Number(line.qty)).toBe(12)
     } finally {
@@ -132,6 +140,7 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
       expect(await tryNumber(page, field, create, '-3')).toBe('At least 1')
       expect(await tryNumber(page, field, create, '1,5')).toBe('Can’t read “1,5” as a number. Write digits, like 12 or 12.5.')
       expect(await tryNumber(page, field, create, '7 3/4')).toBe('Whole numbers only')
+      expect(await tryNumber(page, field, create, '')).toBe('Required')
       expect(await dialog.isVisible()).toBe(true)
       expect(sent).toEqual([])
     } finally {

@@ -5,10 +5,21 @@ import AutoImport from 'unplugin-auto-import/vite'
 import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
 import { compression } from 'vite-plugin-compression2'
+import { answerChecksOutOfProduction } from './scripts/answerChecks'
 import { routePreloads } from './scripts/routePreloads'
 
 /** The frameworks every page runs: the parts of them the entry imports go into one file, loaded with the entry. */
-const FRAMEWORKS = /[\\/]node_modules[\\/](vue|@vue|vue-router|pinia|vue-i18n|@intlify|element-plus|@element-plus|@vueuse|lodash-es|lodash-unified|@popperjs|@floating-ui|@ctrl|async-validator|dayjs|memoize-one|normalize-wheel-es|zod)[\\/]/
+const FRAMEWORKS = /[\\/]node_modules[\\/](vue|@vue|vue-router|pinia|vue-i18n|@intlify|element-plus|@element-plus|@vueuse|lodash-es|lodash-unified|@popperjs|@floating-ui|@ctrl|async-validator|dayjs|memoize-one|normalize-wheel-es)[\\/]/
+/**
+ * Beyond the entry's share, the controls of forms in two files instead of some twenty of a few hundred bytes each:
+ * text boxes and the form with the helpers they import (the sign-in page needs these only), and the choice lists,
+ * ticks and notices most other pages add.
+ */
+const EP = (names: string) => new RegExp(`[\\\\/]node_modules[\\\\/]element-plus[\\\\/]es[\\\\/]components[\\\\/](${names})[\\\\/]`)
+const TEXT_INPUTS = EP('input|form')
+const CHOICES = EP('select|option|tag|checkbox|alert|scrollbar|tooltip|popper|radio|switch|input-number')
+/** Word lists the second message bundle and some pages read (each its own few hundred bytes otherwise). */
+const WORDS = /[\\/](shared[\\/](familyNames|inventory[\\/]reorderWords|takeoff[\\/]explainWords))\.ts$/
 /** The data grid and its words: one file, for the pages with a grid. */
 const GRID = /[\\/]node_modules[\\/](ag-grid-community|ag-grid-vue3|ag-stack|@ag-grid-community)[\\/]/
 /** The project's own shared code (shared/, beside src/). */
@@ -20,6 +31,8 @@ export default defineConfig({
     vue(),
     // route-preloads.json: each page's files, named in its HTML by the server (server/http/pagePreloads.ts).
     routePreloads(),
+    // The answers' schemas stay out of the production client (answers are checked in development and tests only).
+    answerChecksOutOfProduction(),
     AutoImport({ resolvers: [ElementPlusResolver()], dts: 'src/auto-imports.d.ts' }),
     Components({ resolvers: [ElementPlusResolver()], dts: 'src/components.d.ts' }),
     // .gz and .br beside each file, served as they are by the server (server/app.ts): no compression per request.
@@ -50,8 +63,12 @@ export default defineConfig({
         // for only by the pages with a grid, and the frameworks group is first so Vue stays out of the grid's file.
         codeSplitting: {
           groups: [
-            { name: 'frameworks', test: FRAMEWORKS, tags: ['$initial'], priority: 2 },
-            { name: 'grid', test: GRID, priority: 1 },
+            { name: 'frameworks', test: FRAMEWORKS, tags: ['$initial'], priority: 4 },
+            { name: 'grid', test: GRID, priority: 3 },
+            // Text inputs before choices: a choice list uses a text box, which belongs with the sign-in page's controls.
+            { name: 'text-inputs', test: TEXT_INPUTS, priority: 2 },
+            { name: 'choices', test: CHOICES, priority: 1 },
+            { name: 'words', test: WORDS, priority: 1 },
           ],
         },
       },

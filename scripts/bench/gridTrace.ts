@@ -3,7 +3,10 @@
 // script and task time (the DevTools protocol's Performance.getMetrics), and the first frame with rows.
 // Not a measure with a floor (that is `npm run bench -- --only=grid`): a look inside one load.
 //
-//   BENCH_PORT_BASE=5796 LUMENYARD_DB_PORT=3467 npx tsx --tsconfig tsconfig.server.json scripts/bench/gridTrace.ts [--size=demo] [--runs=3] [--reuse-build]
+//   BENCH_PORT_BASE=5796 LUMENYARD_DB_PORT=3467 npx tsx --tsconfig tsconfig.server.json scripts/bench/gridTrace.ts [--size=demo] [--runs=3] [--reuse-build] [--profile]
+//
+// --profile samples the main thread's JavaScript (the DevTools protocol's Profiler) from navigation to the first
+// rows of the last run, and prints the self time per script file and the busiest functions.
 import { spawnSync } from 'node:child_process'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
@@ -16,12 +19,39 @@ import { startNodeServer } from './servers.js'
 import { median } from './stats.js'
 
 const { values: opts } = parseArgs({
-  options: { size: { type: 'string', default: 'demo' }, runs: { type: 'string', default: '3' }, 'reuse-build': { type: 'boolean', default: false }, path: { type: 'string', default: '/stock/overview' } },
+  options: { size: { type: 'string', default: 'demo' }, runs: { type: 'string', default: '3' }, 'reuse-build': { type: 'boolean', default: false }, profile: { type: 'boolean', default: false }, path: { type: 'string', default: '/stock/overview' } },
 })
 const dist = path.join(dataRoot, 'bench', 'trace-dist')
 if (!(opts['reuse-build'] && existsSync(dist))) {
   const res = spawnSync(path.join(projectRoot, 'node_modules/.bin/vite'), ['build', '--logLevel', 'error', '--outDir', dist, '--emptyOutDir'], { cwd: projectRoot, stdio: 'inherit' })
   if (res.status !== 0) throw new Error('vite build failed')
+}
+
+interface CpuProfile {
+  nodes: { id: number; callFrame: { functionName: string; url: string; lineNumber: number }; children?: number[] }[]
+  samples: number[]
+  timeDeltas: number[]
+}
+
+/** Self time per script file and the busiest functions of a CPU profile (the main thread's JavaScript). */
+function printProfile(profile: CpuProfile): void {
+  const byId = new Map(profile.nodes.map((n) => [n.id, n]))
+  const self = new Map<number, number>()
+  profile.samples.forEach((id, i) => self.set(id, (self.get(id) ?? 0) + (profile.timeDeltas[i] ?? 0) / 1000))
+  const byFile = new Map<string, number>()
+  const byFunction = new Map<string, number>()
+  for (const [id, ms] of self) {
+    const frame = byId.get(id)!.callFrame
+    const file = frame.url ? new URL(frame.url).pathname : `(${frame.functionName || 'engine'})`
+    byFile.set(file, (byFile.get(file) ?? 0) + ms)
+    const fn = `${frame.functionName || '(anonymous)'} ${file}:${frame.lineNumber + 1}`
+    byFunction.set(fn, (byFunction.get(fn) ?? 0) + ms)
+  }
+  const top = (m: Map<string, number>, n: number) => [...m].sort((a, b) => b[1] - a[1]).slice(0, n)
+  console.log(`\nJavaScript self time before the first rows, per file (sampled, ${[...self.values()].reduce((s, v) => s + v, 0).toFixed(0)} ms in all):`)
+  for (const [file, ms] of top(byFile, 25)) console.log(`  ${ms.toFixed(1).padStart(7)} ms  ${file}`)
+  console.log('busiest functions:')
+  for (const [fn, ms] of top(byFunction, 30)) console.log(`  ${ms.toFixed(1).padStart(7)} ms  ${fn}`)
 }
 
 interface Entry { name: string; start: number; end: number; type: string; bytes: number }
@@ -43,9 +73,16 @@ try {
     const page = await context.newPage()
     const cdp = await context.newCDPSession(page)
     await cdp.send('Performance.enable')
+    const profiling = opts.profile && run === Number(opts.runs) - 1
+    if (profiling) {
+      await cdp.send('Profiler.enable')
+      await cdp.send('Profiler.setSamplingInterval', { interval: 200 })
+      await cdp.send('Profiler.start')
+    }
     await page.goto(app.url + opts.path, { waitUntil: 'commit' })
     const first = Number(await (await page.waitForFunction(() => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false), null, { polling: 'raf', timeout: 60_000 })).jsonValue())
     firsts.push(first)
+    if (profiling) printProfile(((await cdp.send('Profiler.stop')) as { profile: CpuProfile }).profile)
     const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] }
     const metric = (n: string) => (metrics.find((m) => m.name === n)?.value ?? 0) * 1000
     const entries = (await page.evaluate(() => [

@@ -321,10 +321,7 @@ export interface LookupAnswer {
   bin: (PlaceBin & { warehouseId: number; warehouseCode: string }) | null
 }
 
-/** The low-stock flag: a minimum is set and what can be promised has fallen below it. */
-export function isLowStock(available: number, minQty: number | null): boolean {
-  return minQty !== null && available < minQty
-}
+export { isLowStock } from '../stockFlags.js'
 
 /** Midnight starting a local day ('YYYY-MM-DD', plus some days), as an instant; the server keeps times in UTC. */
 export function localDayStart(day: string, plusDays = 0): string {

@@ -10,8 +10,8 @@ import { toQuery, type QueryValues } from './stock'
 /** The item import's two steps, for the upload with progress (useSheetUpload): both answer what was (or would be) done. */
 export const itemImportSteps: SheetSteps<ImportPreview, ImportPreview> = {
   path: (which) => `/items/import/${which}`,
-  preview: importPreviewShape,
-  commit: importPreviewShape,
+  previewAnswer: importPreviewShape,
+  commitAnswer: importPreviewShape,
 }
 
 export const catalogApi = {

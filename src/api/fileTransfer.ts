@@ -6,8 +6,8 @@ import { apiErrorFrom, checkAnswer } from './client'
 /** A two-step spreadsheet upload (checked, then written): each step's route and the schema of its answer. */
 export interface SheetSteps<P, C> {
   path: (which: 'preview' | 'commit') => string
-  preview: ZodType<P>
-  commit: ZodType<C>
+  previewAnswer: ZodType<P>
+  commitAnswer: ZodType<C>
 }
 
 export interface UploadHandle<T> {

@@ -29,5 +29,5 @@ export const goliveApi = {
 
 /** A data import's two steps for the upload with progress (useSheetUpload); `kind` is read at each step. */
 export function dataImportSteps(kind: () => DataImportKind): SheetSteps<DataImportPreview, DataImportResult> {
-  return { path: (which) => `/imports/${kind()}/${which}`, preview: dataImportPreviewShape, commit: dataImportResultShape }
+  return { path: (which) => `/imports/${kind()}/${which}`, previewAnswer: dataImportPreviewShape, commitAnswer: dataImportResultShape }
 }

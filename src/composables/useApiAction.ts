@@ -1,4 +1,4 @@
-import { computed, ref } from 'vue'
+import { computed, ref, shallowRef, type Ref } from 'vue'
 import { ElMessage } from 'element-plus'
 import { isApiError } from '@/api/client'
 import { i18n } from '@/i18n'
@@ -51,9 +51,13 @@ export function useApiAction() {
  * Loads page data with loading and error state, for empty/error screens. Only the latest load's answer
  * is kept: when loads overlap (a filter changed, another record chosen), an older answer arriving last
  * never replaces a newer one.
+ *
+ * `shallow`: the answer is kept as it came, not made deeply reactive (only a new answer updates the page). For
+ * rows handed to a grid, which keeps its own copy and reads every field of every row: thousands of rows made
+ * reactive cost a proxy per row and a tracked read per field before the first rows show.
  */
-export function useLoader<T>(load: () => Promise<T>) {
-  const data = ref<T | null>(null)
+export function useLoader<T>(load: () => Promise<T>, opts: { shallow?: boolean } = {}) {
+  const data = (opts.shallow ? shallowRef<T | null>(null) : ref<T | null>(null)) as Ref<T | null>
   const loading = ref(false)
   const error = ref('')
   let latest = 0

@@ -59,11 +59,11 @@ export function useSheetUpload<P, C>(steps: SheetSteps<P, C>, words: string) {
   }
 
   async function check() {
-    preview.value = await send('preview', steps.preview)
+    preview.value = await send('preview', steps.previewAnswer)
   }
 
   /** Writes the checked file; null when it failed or was cancelled (the failure is shown). */
-  const commit = () => send('commit', steps.commit)
+  const commit = () => send('commit', steps.commitAnswer)
 
   const cancel = () => handle?.abort()
 

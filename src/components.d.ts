@@ -77,6 +77,7 @@ declare module 'vue' {
     RouterLink: typeof import('vue-router')['RouterLink']
     RouterView: typeof import('vue-router')['RouterView']
     SalesOrderReturns: typeof import('./components/sales/SalesOrderReturns.vue')['default']
+    SessionResume: typeof import('./components/shell/SessionResume.vue')['default']
     SignaturePad: typeof import('./components/handover/SignaturePad.vue')['default']
     StatusMark: typeof import('./components/base/StatusMark.vue')['default']
     StockAreaTabs: typeof import('./components/stock/StockAreaTabs.vue')['default']

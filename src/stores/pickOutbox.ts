@@ -246,8 +246,8 @@ export const usePickOutboxStore = defineStore('pickOutbox', () => {
       if (!running && waiting.value.some(isMine)) void flush()
     }, RETRY_MS)
   }
-  // Signed in again (after the session ended): what waited goes out now.
-  watch(() => session.user?.id, (id) => {
+  // Signed in again (after the session ended, on the sign-in page or over the page): what waited goes out now.
+  watch(() => [session.user?.id, session.resumes] as const, ([id]) => {
     if (id === undefined) return
     signedOut.value = false
     void flush()

@@ -54,5 +54,12 @@ export const useSessionStore = defineStore('session', () => {
     user.value = next
   }
 
-  return { user, loaded, demo, signedIn, areas, can, load, signIn, signOut, forget, replaceUser }
+  /** How many times the same person signed in again over a page after the session ended (src/components/shell/SessionResume.vue). */
+  const resumes = ref(0)
+  function resume(next: SessionUser): void {
+    user.value = next
+    resumes.value++
+  }
+
+  return { user, loaded, demo, signedIn, areas, can, load, signIn, signOut, forget, replaceUser, resumes, resume }
 })

@@ -29,6 +29,15 @@ export default {
   greeting: 'Hello, {name}',
   yourAreas: 'Your areas',
   open: 'Open',
+  resume: {
+    title: 'Sign in again to carry on',
+    why: 'The session of {name} ended (it was idle too long, or was signed out elsewhere).',
+    kept: 'This page stays as it is. The last step was not taken: take it again once you are signed in.',
+    password: 'Password',
+    passwordNeeded: 'Type your password to sign in again.',
+    submit: 'Sign in and carry on',
+    someoneElse: 'Sign in as someone else',
+  },
   outage: {
     title: 'Lumenyard cannot reach its database right now.',
     retrying: 'This page reads again by itself as soon as it is back.',

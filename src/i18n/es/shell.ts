@@ -29,6 +29,15 @@ export default {
   greeting: 'Hola, {name}',
   yourAreas: 'Sus áreas',
   open: 'Abrir',
+  resume: {
+    title: 'Vuelva a iniciar sesión para seguir',
+    why: 'La sesión de {name} terminó (estuvo inactiva demasiado tiempo o se cerró en otro lugar).',
+    kept: 'Esta página se queda como está. El último paso no se hizo: repítalo cuando haya iniciado sesión.',
+    password: 'Contraseña',
+    passwordNeeded: 'Escriba su contraseña para volver a iniciar sesión.',
+    submit: 'Iniciar sesión y seguir',
+    someoneElse: 'Iniciar sesión con otra persona',
+  },
   outage: {
     title: 'Lumenyard no puede comunicarse con su base de datos en este momento.',
     retrying: 'Esta página vuelve a leer sola en cuanto se restablezca.',

@@ -4,6 +4,8 @@ import { Column, CreateDateColumn, Entity, PrimaryGeneratedColumn, UpdateDateCol
 @Entity({ name: 'customers' })
 export class Customer {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 20, unique: true }) code: string
   @Column({ type: 'varchar', length: 120 }) name: string
   @Column({ name: 'contact_name', type: 'varchar', length: 80, nullable: true }) contactName: string | null
@@ -20,6 +22,8 @@ export type JobStatus = 'open' | 'ordered' | 'picking' | 'complete' | 'cancelled
 @Entity({ name: 'jobs' })
 export class Job {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ name: 'customer_id', type: 'int' }) customerId: number
   @Column({ type: 'varchar', length: 120 }) name: string
   @Column({ name: 'site_address', type: 'varchar', length: 200, nullable: true }) siteAddress: string | null
@@ -35,6 +39,8 @@ export class Job {
 @Entity({ name: 'takeoffs' })
 export class Takeoff {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ name: 'job_id', type: 'int' }) jobId: number
   @Column({ type: 'varchar', length: 120 }) name: string
   @Column({ name: 'input_json', type: 'mediumtext' }) inputJson: string

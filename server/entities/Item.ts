@@ -5,6 +5,8 @@ import type { ItemFamily, StockUnit, ThicknessClass } from '../../shared/catalog
 @Entity({ name: 'items' })
 export class Item {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 40, unique: true }) sku: string
   @Column({ type: 'varchar', length: 120 }) name: string
   @Column({ type: 'varchar', length: 20 }) family: ItemFamily

@@ -5,6 +5,8 @@ import type { PriceBasis } from '../../shared/pricing/sellingPrice.js'
 @Entity({ name: 'price_levels' })
 export class PriceLevel {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 20, unique: true }) code: string
   @Column({ type: 'varchar', length: 80 }) name: string
   @Column({ name: 'percent_off', type: 'decimal', precision: 5, scale: 2, nullable: true }) percentOff: string | null

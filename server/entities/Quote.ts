@@ -5,6 +5,8 @@ import type { QuoteStatus } from '../../shared/sales/quoteStatus.js'
 @Entity({ name: 'quotes' })
 export class Quote {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 20, nullable: true }) number: string | null
   @Column({ type: 'int', default: 1 }) revision: number
   @Column({ type: 'varchar', length: 10, default: 'draft' }) status: QuoteStatus

@@ -3,6 +3,8 @@ import { Column, CreateDateColumn, Entity, Index, PrimaryGeneratedColumn } from 
 @Entity({ name: 'vendors' })
 export class Vendor {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 20, unique: true }) code: string
   @Column({ type: 'varchar', length: 120 }) name: string
   @Column({ name: 'contact_name', type: 'varchar', length: 80, nullable: true }) contactName: string | null
@@ -22,6 +24,8 @@ export class Vendor {
 @Index(['vendorId', 'itemId'], { unique: true })
 export class VendorItem {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ name: 'vendor_id', type: 'int' }) vendorId: number
   @Column({ name: 'item_id', type: 'int' }) itemId: number
   @Column({ name: 'vendor_sku', type: 'varchar', length: 40 }) vendorSku: string

@@ -3,6 +3,8 @@ import { Column, Entity, PrimaryGeneratedColumn } from 'typeorm'
 @Entity({ name: 'warehouses' })
 export class Warehouse {
   @PrimaryGeneratedColumn({ type: 'int' }) id: number
+  /** Goes up with every save; a save made on an older version is refused (server/services/editVersion.ts). */
+  @Column({ type: 'int', default: 1 }) version: number
   @Column({ type: 'varchar', length: 12, unique: true }) code: string
   @Column({ type: 'varchar', length: 80 }) name: string
   @Column({ type: 'varchar', length: 200, nullable: true }) address: string | null

@@ -1,5 +1,5 @@
 // Saved takeoffs, the editor's catalog and the compute endpoint (the bill with stock per warehouse).
-import { computeRequestSchema, takeoffSaveSchema } from '../../shared/schemas/counter.js'
+import { computeRequestSchema, takeoffUpdateSchema } from '../../shared/schemas/counter.js'
 import { actorOf, type AppContext } from '../context.js'
 import { allow, defineRoutes } from '../http/routeTable.js'
 import { idParam } from '../http/validate.js'
@@ -42,7 +42,7 @@ export default (ctx: AppContext) =>
       path: '/:id',
       access: counter,
       handler: (req) =>
-        updateTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseTakeoffBody(takeoffSaveSchema, req.body, requestUnit(req.body, req.user?.unitPreference))),
+        updateTakeoff(ctx.ds, actorOf(req), id(req.params.id), parseTakeoffBody(takeoffUpdateSchema, req.body, requestUnit(req.body, req.user?.unitPreference))),
     },
     { method: 'delete', path: '/:id', access: counter, handler: (req) => deleteTakeoff(ctx.ds, actorOf(req), id(req.params.id)) },
   ])

@@ -234,7 +234,7 @@ export const ERROR_CODES = {
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: [],
   po_not_found: [],
-  po_changed: ['number'],
+  changed_meanwhile: ['name'],
   company_profile_missing: [],
   ship_to_needed: [],
   po_not_sendable: ['poStatus'],

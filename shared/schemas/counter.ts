@@ -1,8 +1,9 @@
 // The Counter's requests and answers: contractor accounts, jobs, saved takeoffs, bills of materials,
 // and the admin's material rules and role → item mapping. The forms validate with these same schemas.
 import { z } from 'zod'
-import { issueCode } from '../errors/zodProblems.js'
+import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { idSchema } from './stock.js'
+import { seenVersionSchema } from './seenVersion.js'
 import {
   jointKindSchema,
   lengthUnitSchema,
@@ -92,6 +93,10 @@ export const takeoffSaveSchema = z.object({
 })
 export type TakeoffSaveInput = z.infer<typeof takeoffSaveSchema>
 
+/** Saving an existing takeoff: with the version the editor loaded. */
+export const takeoffUpdateSchema = takeoffSaveSchema.extend({ version: seenVersionSchema })
+export type TakeoffUpdateInput = z.infer<typeof takeoffUpdateSchema>
+
 export const computeRequestSchema = z.object({
   takeoff: takeoffSchema,
   unit: lengthUnitSchema.optional(),
@@ -107,7 +112,9 @@ export const bomSaveSchema = z.object({
   takeoffId: idSchema,
   /** When given, replaces the saved takeoff's input in the same transaction as the bill. */
   input: takeoffSchema.optional(),
-})
+  /** The takeoff's version as the editor loaded it; required with `input`. */
+  version: seenVersionSchema.optional(),
+}).refine((b) => !b.input || b.version !== undefined, { path: ['version'], ...issueOf('required') })
 export type BomSaveInput = z.infer<typeof bomSaveSchema>
 
 // ---- admin: role → item mapping, rules, waste ----
@@ -176,7 +183,7 @@ export interface JobSummary {
 }
 
 export interface TakeoffSummary { id: number; jobId: number; name: string; walls: number; updatedAt: string }
-export interface TakeoffRecord extends TakeoffSummary { input: z.infer<typeof takeoffSchema> }
+export interface TakeoffRecord extends TakeoffSummary { version: number; input: z.infer<typeof takeoffSchema> }
 export interface BomSummary { id: number; revision: number; takeoffId: number | null; lines: number; createdAt: string; createdBy: string | null }
 
 export interface JobDetail extends JobSummary {

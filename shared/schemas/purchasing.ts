@@ -4,6 +4,7 @@ import { z } from 'zod'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { idSchema } from './stock.js'
 import { timeZoneParam } from './exportQuery.js'
+import { seenVersionSchema } from './seenVersion.js'
 
 /** Optional text: blank becomes null, so "clear the field" and "never set" store the same. */
 const optionalText = (max: number) =>
@@ -114,11 +115,9 @@ export const poFromJobSchema = z.object({
 })
 export type PoFromJobInput = z.infer<typeof poFromJobSchema>
 
-/** The order's version as the screen showed it: a change made meanwhile is refused (409 po_changed). */
-const seenVersionSchema = z.number().int().positive().optional()
 
 export const poUpdateSchema = z.object({
-  version: seenVersionSchema,
+  version: seenVersionSchema.optional(),
   expectedDate: isoDate.nullish(),
   notes: optionalText(2000),
   lines: z
@@ -130,7 +129,7 @@ export type PoUpdateInput = z.infer<typeof poUpdateSchema>
 
 export const poReasonSchema = z.object({ reason: optionalText(200) })
 
-export const poApproveSchema = z.object({ version: seenVersionSchema })
+export const poApproveSchema = z.object({ version: seenVersionSchema.optional() })
 
 export const poSendSchema = z.object({
   /** Defaults to the vendor's e-mail. */

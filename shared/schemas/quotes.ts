@@ -8,6 +8,7 @@ import type { QuoteStatus } from '../sales/quoteStatus.js'
 import { isoDaySchema, priceSchema } from './pricing.js'
 import { newestPageQuery } from './newestPage.js'
 import { idSchema } from './stock.js'
+import { seenVersionSchema } from './seenVersion.js'
 
 const blankToNull = (v: unknown) => (v === '' || v === undefined ? null : v)
 const text = (max: number) => z.preprocess(blankToNull, z.string().trim().max(max).nullable()).transform((v) => v || null)
@@ -48,8 +49,8 @@ export const quoteCreateSchema = z
   })
 export type QuoteCreateInput = z.infer<typeof quoteCreateSchema>
 
-/** Changing a draft: its lines, location, validity and terms, all at once. */
-export const quoteUpdateSchema = z.object({ lines: z.array(quoteLineInputSchema).min(1).max(500), ...quoteTerms })
+/** Changing a draft: its lines, location, validity and terms, all at once, as the screen loaded it (`version`). */
+export const quoteUpdateSchema = z.object({ version: seenVersionSchema, lines: z.array(quoteLineInputSchema).min(1).max(500), ...quoteTerms })
 export type QuoteUpdateInput = z.infer<typeof quoteUpdateSchema>
 
 export const quoteSendSchema = z.object({
@@ -109,6 +110,8 @@ export interface QuoteSummary {
 }
 
 export interface QuoteDetail extends QuoteSummary {
+  /** Goes up with every save of the draft; a save sends the version it loaded. */
+  version: number
   customerEmail: string | null
   contactName: string | null
   terms: string | null

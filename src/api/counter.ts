@@ -12,7 +12,7 @@ import { returnTakenShape, salesReturnViewShape } from '@shared/schemas/answers/
 import { salesReturnSchema } from '@shared/schemas/salesReturns'
 import {
   computeRequestSchema, counterCatalogSchema, customerCreateSchema, customerSummarySchema, customerUpdateSchema, jobCreateSchema,
-  jobSummarySchema, jobUpdateSchema, roleItemInputSchema, roleItemRecordSchema, ruleOverrideSchema, siteFiguresUpdateSchema, takeoffSaveSchema,
+  jobSummarySchema, jobUpdateSchema, roleItemInputSchema, roleItemRecordSchema, ruleOverrideSchema, siteFiguresUpdateSchema, takeoffSaveSchema, takeoffUpdateSchema,
   wasteUpdateSchema,
 } from '@shared/schemas/counter'
 import { quoteCreateSchema, quoteSendSchema, quoteUpdateSchema } from '@shared/schemas/quotes'
@@ -47,7 +47,7 @@ export const counterApi = {
   // Takeoffs and bills of materials
   takeoff: (id: Id) => api.get(`/takeoffs/${id}`, { answer: takeoffRecordShape }),
   createTakeoff: (jobId: Id, body: BodyOf<typeof takeoffSaveSchema>) => api.post(`/jobs/${jobId}/takeoffs`, body, { answer: takeoffRecordShape }),
-  saveTakeoff: (id: Id, body: BodyOf<typeof takeoffSaveSchema>) => api.put(`/takeoffs/${id}`, body, { answer: takeoffRecordShape }),
+  saveTakeoff: (id: Id, body: BodyOf<typeof takeoffUpdateSchema>) => api.put(`/takeoffs/${id}`, body, { answer: takeoffRecordShape }),
   removeTakeoff: (id: Id) => api.delete(`/takeoffs/${id}`, { answer: okShape }),
   importTakeoff: (jobId: Id, form: FormData) => api.post(`/jobs/${jobId}/takeoffs/import`, form, { answer: takeoffRecordShape }),
   takeoffTemplate: (format: 'xlsx' | 'csv') => download(`/takeoffs/import-template${format === 'csv' ? '?format=csv' : ''}`),

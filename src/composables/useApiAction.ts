@@ -1,19 +1,42 @@
 import { computed, ref, shallowRef, type Ref } from 'vue'
-import { ElMessage } from 'element-plus'
+import { ElMessage, ElMessageBox } from 'element-plus'
 import { isApiError } from '@/api/client'
 import { i18n } from '@/i18n'
 
+interface ApiActionOptions {
+  /** Loads the record again as it is now (what a refused stale save offers); without it, the page reloads. */
+  reload?: () => unknown
+}
+
+/**
+ * A save refused because someone saved the record meanwhile: the person's edits stay on screen, the refusal says
+ * so in their language, and reloading (which drops their edits) happens only after they confirm it.
+ */
+async function offerReload(message: string, reload: (() => unknown) | undefined): Promise<void> {
+  const t = i18n.global.t
+  const discard = await ElMessageBox.confirm(`${message} ${t('common.changedMeanwhileReload')}`, t('common.changedMeanwhileTitle'), {
+    type: 'warning',
+    confirmButtonText: t('common.changedMeanwhileDiscard'),
+    cancelButtonText: t('common.changedMeanwhileKeep'),
+    customClass: 'changed-meanwhile',
+  }).then(() => true, () => false)
+  if (!discard) return
+  if (reload) await reload()
+  else window.location.reload()
+}
+
 /**
  * Runs one API action with a busy flag. Field errors land in fieldErrors (shown beside inputs),
- * anything else in a message. Returns the result, or undefined when it failed.
+ * anything else in a message. A save refused as made on an older version (changed_meanwhile) keeps what is on
+ * screen and offers to reload, through `options.reload`. Returns the result, or undefined when it failed.
  */
-export function useApiAction() {
+export function useApiAction(options: ApiActionOptions = {}) {
   const busy = ref(false)
   const fieldErrors = ref<Record<string, string>>({})
   const errorMessage = ref('')
   /** The failed answer's HTTP status (0: the server was not reached); null when the failure was not an answer. */
   const errorStatus = ref<number | null>(null)
-  /** The last failure's code (e.g. po_changed), for screens that answer a particular refusal. */
+  /** The last failure's code (e.g. changed_meanwhile), for screens that answer a particular refusal. */
   const errorCode = ref('')
   /** The failure when no field carries it: what a form dialog shows in its own alert region. */
   const formError = computed(() => (Object.keys(fieldErrors.value).length ? '' : errorMessage.value))
@@ -32,7 +55,8 @@ export function useApiAction() {
         errorMessage.value = err.message
         errorStatus.value = err.status
         errorCode.value = err.code
-        if (err.status !== 401) ElMessage.error(err.message)
+        if (err.code === 'changed_meanwhile') void offerReload(err.message, options.reload)
+        else if (err.status !== 401) ElMessage.error(err.message)
       } else {
         errorMessage.value = i18n.global.t('common.errorTitle')
         ElMessage.error(errorMessage.value)

@@ -154,7 +154,8 @@ describe('save the bill on the job', () => {
 
   it('saving again gives revision 2, with the changed takeoff stored in the same step', async () => {
     const input = openingTakeoff(fx, { segments: [{ kind: 'straight', lengthMm: 48 * IN }] })
-    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input })
+    const { version } = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input, version })
     expect(res.status).toBe(201)
     expect(res.body.revision).toBe(2)
     // (48 − 1/8) / 7 7/8 = 6.08 → 6 across × 10 courses = 60 blocks (common practice opening rule).
@@ -166,13 +167,14 @@ describe('save the bill on the job', () => {
   })
 
   it('a bill that cannot be built or ordered is refused (422) and nothing is written', async () => {
-    const [boms, lines, takeoffs] = [await count('boms'), await count('bom_lines'), (await counter.get(`/api/takeoffs/${takeoffId}`)).body.input]
+    const saved = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const [boms, lines, takeoffs, version] = [await count('boms'), await count('bom_lines'), saved.input, saved.version]
     const tooTight = openingTakeoff(fx, { sizing: 'count', courses: 4, heightMm: undefined, segments: [{ kind: 'curved', insideRadiusMm: 20 * IN, arcAngleDeg: 45, direction: 'right' }] })
-    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: tooTight })
+    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: tooTight, version })
     expect(res.status).toBe(422)
     expect(res.body.error.message).toMatch(/smallest inside radius/)
     const unknownLoose = { ...openingTakeoff(fx), looseLines: [{ sku: 'NO-SUCH-SKU', name: 'Ghost', quantity: 1, unit: 'each' }] }
-    const res2 = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: unknownLoose })
+    const res2 = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: unknownLoose, version })
     expect(res2.status).toBe(422)
     expect(res2.body.error.message).toMatch(/NO-SUCH-SKU/)
     expect([await count('boms'), await count('bom_lines')]).toEqual([boms, lines])

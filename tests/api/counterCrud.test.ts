@@ -119,7 +119,7 @@ describe('customers', () => {
       const loaded = await counter.get(`/api/takeoffs/${takeoffId}`)
       expect(loaded.body.input).toEqual(input)
       const changed = { ...input, walls: [{ ...input.walls[0], name: 'Sunroom wall, east' }] }
-      const put = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ name: 'Sunroom', input: changed })
+      const put = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ version: loaded.body.version, name: 'Sunroom', input: changed })
       expect(put.status).toBe(200)
       expect(put.body.input.walls[0].name).toBe('Sunroom wall, east')
       const job = await counter.get(`/api/jobs/${jobId}`)
@@ -136,7 +136,8 @@ describe('customers', () => {
       expect(res.body.error.fields['input.walls.0.heightMm']).toEqual({ code: 'opening_height_needed' })
       expect(res.body.error.fields['input.walls.0.segments.0.arcAngleDeg']).toEqual({ code: 'arc_one_measure' })
       expect(await count('takeoffs')).toBe(before)
-      const unchanged = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ name: 'Broken', input: bad })
+      const { version } = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+      const unchanged = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ version, name: 'Broken', input: bad })
       expect(unchanged.status).toBe(400)
       expect((await counter.get(`/api/takeoffs/${takeoffId}`)).body.name).toBe('Sunroom')
     })

@@ -65,12 +65,13 @@ describe('a quote from a bill of materials', () => {
       { itemId: fx.spacers.id, qty: 250 },
       { itemId: fx.base.id, qty: 1 },
     ]
-    const refused = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    const { version } = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const refused = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version, warehouseId: fx.warehouseId, lines })
     expect(refused.status).toBe(400)
     expect(refused.body.error.fields['lines.0.overrideReason'].code).toBe('override_reason_needed')
     expect((await counter.get(`/api/quotes/${quoteId}`)).body.amountDue).toBe('3473.47')
     lines[0] = { ...lines[0], overrideReason: 'Matched the job’s written budget' }
-    const res = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    const res = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version, warehouseId: fx.warehouseId, lines })
     expect(res.status).toBe(200)
     expect(res.body.lines[0]).toMatchObject({ unitPrice: '18.00', extension: '2160.00', explanation: { source: 'override', overrideBy: 'Test t-counter' } })
     // 2,160.00 + 108.00 + 760.75 = 3,028.75; × 8.25 % = 249.871875 → 249.87; due 3,278.62
@@ -137,7 +138,8 @@ describe('a quote from a bill of materials', () => {
     expect(text).toContain('Sales tax 8.25 % $249.87')
     expect(text).toMatch(/local building codes and licensed professional practice/)
     expect(await countRows(h.ds, 'outbox_messages', 'quote_id = ?', [quoteId])).toBe(1)
-    const edit = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ itemId: fx.block.id, qty: 1 }] })
+    const { version } = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const edit = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version, warehouseId: fx.warehouseId, lines: [{ itemId: fx.block.id, qty: 1 }] })
     expect(edit.status).toBe(409)
     expect(edit.body.error).toMatchObject({ code: 'quote_wrong_status', params: { quoteStatus: 'offered' } })
   })

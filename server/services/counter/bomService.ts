@@ -59,7 +59,7 @@ async function lockedJob(em: EntityManager, jobId: number): Promise<Job> {
 async function takeoffOfJob(em: EntityManager, actor: AuditActor, jobId: number, input: BomSaveInput): Promise<Takeoff> {
   const takeoff = await em.findOneBy(Takeoff, { id: input.takeoffId })
   if (!takeoff || takeoff.jobId !== jobId) throw AppError.badRequest('takeoff_not_in_job', 'Choose a takeoff of this job.', { fields: { takeoffId: problem('takeoff_not_in_job') } })
-  return input.input ? replaceTakeoffInput(em, actor, takeoff.id, input.input) : takeoff
+  return input.input ? replaceTakeoffInput(em, actor, takeoff.id, input.version, input.input) : takeoff
 }
 
 /** Writes the next revision inside the caller's transaction, in the takeoff's own unit (else `unit`); returns the new bom's id. */

@@ -1,17 +1,18 @@
 // Saved takeoffs of a job: the contractor's walls as entered (the shared takeoff schema's JSON).
 import type { DataSource, EntityManager } from 'typeorm'
-import type { TakeoffRecord, TakeoffSaveInput } from '../../../shared/schemas/counter.js'
+import type { TakeoffRecord, TakeoffSaveInput, TakeoffUpdateInput } from '../../../shared/schemas/counter.js'
 import { takeoffSchema, type Takeoff as TakeoffInput } from '../../../shared/schemas/takeoff.js'
 import { Bom } from '../../entities/Bom.js'
 import { Job, Takeoff } from '../../entities/Customer.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 
 export function toTakeoffRecord(t: Takeoff): TakeoffRecord {
   // Parsed again on the way out so an old row that no longer fits the schema fails loudly, not in the form.
   const input = takeoffSchema.parse(JSON.parse(t.inputJson))
-  return { id: t.id, jobId: t.jobId, name: t.name, walls: input.walls.length, updatedAt: t.updatedAt.toISOString(), input }
+  return { id: t.id, jobId: t.jobId, name: t.name, walls: input.walls.length, updatedAt: t.updatedAt.toISOString(), version: t.version, input }
 }
 
 export async function getTakeoff(ds: DataSource, id: number): Promise<TakeoffRecord> {
@@ -43,10 +44,15 @@ export async function createTakeoff(ds: DataSource, actor: AuditActor, jobId: nu
   return getTakeoff(ds, t.id)
 }
 
-/** Replaces a takeoff's input inside the caller's transaction; the row stays locked until it commits. */
-export async function replaceTakeoffInput(em: EntityManager, actor: AuditActor, id: number, input: TakeoffInput, name?: string): Promise<Takeoff> {
-  const t = await em.findOne(Takeoff, { where: { id }, lock: { mode: 'pessimistic_write' } })
-  if (!t) throw AppError.notFound('takeoff_not_found', 'That takeoff was not found.')
+/**
+ * Replaces a takeoff's input inside the caller's transaction, as the editor loaded it (`seenVersion`: a save made
+ * meanwhile is refused, not overwritten); the row stays locked until it commits.
+ */
+export async function replaceTakeoffInput(em: EntityManager, actor: AuditActor, id: number, seenVersion: number | undefined, input: TakeoffInput, name?: string): Promise<Takeoff> {
+  const t = await lockAtVersion(em, Takeoff, id, seenVersion, {
+    notFound: () => AppError.notFound('takeoff_not_found', 'That takeoff was not found.'),
+    name: (row) => row.name,
+  })
   await openJob(em, t.jobId)
   t.inputJson = JSON.stringify(input)
   if (name) t.name = name
@@ -55,8 +61,8 @@ export async function replaceTakeoffInput(em: EntityManager, actor: AuditActor, 
   return t
 }
 
-export async function updateTakeoff(ds: DataSource, actor: AuditActor, id: number, input: TakeoffSaveInput): Promise<TakeoffRecord> {
-  await inTransaction(ds, (em) => replaceTakeoffInput(em, actor, id, input.input, input.name))
+export async function updateTakeoff(ds: DataSource, actor: AuditActor, id: number, input: TakeoffUpdateInput): Promise<TakeoffRecord> {
+  await inTransaction(ds, (em) => replaceTakeoffInput(em, actor, id, input.version, input.input, input.name))
   return getTakeoff(ds, id)
 }
 

@@ -7,6 +7,7 @@ import { MAX_LINE_QTY } from '../../../shared/purchasing/poMoney.js'
 import { PurchaseOrder, PurchaseOrderLine, PurchaseSuggestion } from '../../entities/PurchaseOrder.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 import { ensureDepositsPaid } from '../sales/salesDeposits.js'
 import { manualLines } from './poCreation.js'
 import { checkLineSizes, recomputeTotal } from './poWrite.js'
@@ -15,14 +16,11 @@ import { checkLineSizes, recomputeTotal } from './poWrite.js'
  * Locks the order for a change and moves it to its next version. With `seenVersion` (the version the
  * screen showed), a change made meanwhile in another tab or by another buyer is refused, never overwritten.
  */
-export async function lockPo(em: EntityManager, id: number, seenVersion?: number): Promise<PurchaseOrder> {
-  const po = await em.findOne(PurchaseOrder, { where: { id }, lock: { mode: 'pessimistic_write' } })
-  if (!po) throw AppError.notFound('po_not_found', 'That purchase order was not found.')
-  if (seenVersion !== undefined && seenVersion !== po.version) {
-    throw AppError.conflict('po_changed', `${po.number} was changed meanwhile (by another tab or person). Reload it to see the changes, then try again.`, { params: { number: po.number } })
-  }
-  await em.update(PurchaseOrder, { id }, { version: po.version + 1 })
-  return po
+export function lockPo(em: EntityManager, id: number, seenVersion?: number): Promise<PurchaseOrder> {
+  return lockAtVersion(em, PurchaseOrder, id, seenVersion, {
+    notFound: () => AppError.notFound('po_not_found', 'That purchase order was not found.'),
+    name: (po) => po.number,
+  })
 }
 
 export function ensure(action: PoAction, po: PurchaseOrder): void {

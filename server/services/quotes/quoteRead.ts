@@ -61,7 +61,7 @@ export async function listQuotes(ds: DataSource, query: { status: string; custom
 export async function quoteDetail(db: DataSource | EntityManager, id: number): Promise<QuoteDetail> {
   const today = todayIso()
   const [r]: Row[] = await db.query(
-    `SELECT s.*, c.email AS customerEmail, c.contact_name AS contactName, q.terms, q.notes, q.lost_reason AS lostReason,
+    `SELECT s.*, c.email AS customerEmail, c.contact_name AS contactName, q.version, q.terms, q.notes, q.lost_reason AS lostReason,
             q.offered_at AS offeredAt, q.taken_at AS takenAt, q.price_level_code AS priceLevelCode, q.tax_json AS taxJson,
             (SELECT so.id FROM sales_orders so WHERE so.quote_id = q.id) AS salesOrderId
        FROM (${SUMMARY_SQL} WHERE q.id = ?) s JOIN quotes q ON q.id = s.id JOIN customers c ON c.id = q.customer_id`,
@@ -102,6 +102,7 @@ export async function quoteDetail(db: DataSource | EntityManager, id: number): P
   const weight = lineViews.reduce((sum, l) => sum.plus(new MoneyDecimal(l.weightKg).times(l.qty)), new MoneyDecimal(0))
   return {
     ...toSummary(r, today),
+    version: Number(r.version),
     customerEmail: r.customerEmail === null ? null : String(r.customerEmail),
     contactName: r.contactName === null ? null : String(r.contactName),
     terms: r.terms === null ? null : String(r.terms),

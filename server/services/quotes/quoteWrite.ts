@@ -17,6 +17,7 @@ import type { Role } from '../../../shared/roles.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 import { priceLines, todayIso } from '../pricing/priceEstimate.js'
 import { quoteDetail } from './quoteRead.js'
 
@@ -25,10 +26,12 @@ export const DEFAULT_VALID_DAYS = 30
 
 type Actor = AuditActor & { userId: number }
 
-export async function lockQuote(em: EntityManager, id: number): Promise<Quote> {
-  const quote = await em.findOne(Quote, { where: { id }, lock: { mode: 'pessimistic_write' } })
-  if (!quote) throw AppError.notFound('quote_not_found', 'That quote was not found.')
-  return quote
+/** Locks the quote for a change; with `seenVersion` (what the screen loaded), a save made meanwhile is refused. */
+export function lockQuote(em: EntityManager, id: number, seenVersion?: number): Promise<Quote> {
+  return lockAtVersion(em, Quote, id, seenVersion, {
+    notFound: () => AppError.notFound('quote_not_found', 'That quote was not found.'),
+    name: (quote) => quote.number ?? `#${quote.id}`,
+  })
 }
 
 /** Refuses an action the quote's status (as a reader sees it today) does not allow. */
@@ -179,7 +182,7 @@ export async function createQuote(ds: DataSource, actor: Actor, input: QuoteCrea
 
 export async function updateQuote(ds: DataSource, actor: Actor, id: number, input: QuoteUpdateInput): Promise<QuoteDetail> {
   await inTransaction(ds, async (em) => {
-    const quote = await lockQuote(em, id)
+    const quote = await lockQuote(em, id, input.version)
     ensureQuote('edit', quote)
     const next = { warehouseId: input.warehouseId, validUntil: input.validUntil ?? quote.validUntil, terms: input.terms, notes: input.notes }
     const standing = standingPrices(await em.findBy(QuoteLine, { quoteId: id }))
@@ -197,7 +200,7 @@ export async function reviseQuote(ds: DataSource, actor: Actor, id: number): Pro
     ensureQuote('revise', old)
     const oldLines = await em.find(QuoteLine, { where: { quoteId: id }, order: { lineNo: 'ASC' } })
     const quotedOn = todayIso()
-    const { id: _old, createdAt: _c, updatedAt: _u, ...copy } = old
+    const { id: _old, createdAt: _c, updatedAt: _u, version: _v, ...copy } = old
     const quote = await em.save(em.create(Quote, {
       ...copy,
       revision: old.revision + 1,

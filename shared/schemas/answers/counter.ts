@@ -68,6 +68,7 @@ const takeoffSummaryShape = z.object({
 }) satisfies z.ZodType<TakeoffSummary>
 
 export const takeoffRecordShape = takeoffSummaryShape.extend({
+  version: z.number(),
   input: takeoffSchema
 }) satisfies z.ZodType<TakeoffRecord>
 

@@ -48,6 +48,7 @@ export const quoteSummaryShape = z.object({
 }) satisfies z.ZodType<QuoteSummary>
 
 export const quoteDetailShape = quoteSummaryShape.extend({
+  version: z.number(),
   customerEmail: z.string().nullable(),
   contactName: z.string().nullable(),
   terms: z.string().nullable(),

@@ -376,7 +376,7 @@ export default {
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'A quantity or amount would grow larger than Lumenyard can record. Nothing was changed; split it into smaller ones.',
   po_not_found: 'That purchase order was not found. It may have been removed.',
-  po_changed: '{number} was changed meanwhile (in another tab or by another person). Reload it to see the changes, then try again.',
+  changed_meanwhile: '{name} was changed meanwhile (in another tab or by another person). Nothing of yours was saved; your edits are still on screen.',
   company_profile_missing: 'Fill in the company profile (Admin → Company profile) first: a vendor must see who orders and where to bill.',
   ship_to_needed: 'Choose the warehouse to ship to: this job has no pick list yet.',
   po_not_sendable: 'An order in the state “{poStatus}” cannot be e-mailed; approve it first.',

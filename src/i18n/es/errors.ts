@@ -375,7 +375,7 @@ export default {
   // Purchase orders, their mail and suggestions; picking discards
   value_out_of_range: 'Una cantidad o un importe crecería más de lo que Lumenyard puede registrar. No se cambió nada; divídalo en partes más pequeñas.',
   po_not_found: 'No se encontró esa orden de compra. Puede que se haya eliminado.',
-  po_changed: '{number} se cambió mientras tanto (en otra pestaña o por otra persona). Vuelva a cargarla para ver los cambios e inténtelo de nuevo.',
+  changed_meanwhile: '{name} se cambió mientras tanto (en otra pestaña o por otra persona). No se guardó nada suyo; sus cambios siguen en pantalla.',
   company_profile_missing: 'Complete primero el perfil de la empresa (Administración → Perfil de la empresa): el proveedor debe ver quién pide y a dónde facturar.',
   ship_to_needed: 'Elija el almacén de destino: este trabajo aún no tiene lista de recogida.',
   po_not_sendable: 'Una orden en estado «{poStatus}» no se puede enviar por correo; apruébela primero.',

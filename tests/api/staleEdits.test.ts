@@ -1,0 +1,127 @@
+// Feature: two edit screens opened on the same record (two tabs, two clerks). Each save carries the version its
+// screen loaded; the first save wins, the second (made on the older version) is refused with 409 changed_meanwhile
+// and writes nothing (the row is read back from MariaDB); a save on the version read after it succeeds; a save
+// without the version is a bad request.
+// source: Berenson et al., "A Critique of ANSI SQL Isolation Levels" (SIGMOD 1995), phenomenon P4 "Lost Update":
+// a write based on a stale read must not overwrite another transaction's committed write.
+// source: RFC 9110 §15.5.10 (409 Conflict: the request conflicts with the current state of the target resource).
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type supertest from 'supertest'
+import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
+import { createCounterFixture, createCustomerAndJob, openingTakeoff, type CounterFixture } from '../support/counterFixtures.js'
+import { countRows } from '../support/fixtureRows.js'
+import { createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
+
+let h: ApiHarness
+let counter: supertest.Agent
+let fx: CounterFixture
+let sales: SalesFixture
+
+beforeAll(async () => {
+  h = await startApiHarness()
+  counter = await h.as('counter')
+  fx = await createCounterFixture(h.ds)
+  sales = await createSalesFixture(h.ds)
+})
+afterAll(() => h?.close())
+
+const row = async (sql: string, id: number) => (await h.ds.query(sql, [id]))[0]
+
+describe('a takeoff saved from two tabs', () => {
+  let takeoffId: number
+  const IN = 25.4 // mm per inch (source: NIST SP 811 appendix B, exact by definition)
+
+  beforeAll(async () => {
+    const { jobId } = await createCustomerAndJob(h.ds, `S${fx.tag}`)
+    const created = await counter.post(`/api/jobs/${jobId}/takeoffs`).set(CSRF).send({ name: 'Stair wall', input: openingTakeoff(fx) })
+    expect(created.status, JSON.stringify(created.body)).toBe(201)
+    takeoffId = created.body.id
+  })
+
+  it('keeps the first save and refuses the second made on the same loaded version (409), writing nothing', async () => {
+    const tabA = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const tabB = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    expect(tabB.version).toBe(tabA.version)
+    const wide = openingTakeoff(fx, { name: 'Stair wall, tab A', segments: [{ kind: 'straight', lengthMm: 96 * IN }] })
+    const first = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ version: tabA.version, name: 'Stair wall A', input: wide })
+    expect(first.status, JSON.stringify(first.body)).toBe(200)
+    expect(first.body.version).toBe(tabA.version + 1)
+    const audits = await countRows(h.ds, 'audit_entries', "action = 'takeoff.update' AND entity_id = ?", [String(takeoffId)])
+
+    const narrow = openingTakeoff(fx, { name: 'Stair wall, tab B', segments: [{ kind: 'straight', lengthMm: 24 * IN }] })
+    const second = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ version: tabB.version, name: 'Stair wall B', input: narrow })
+    expect(second.status).toBe(409)
+    expect(second.body.error).toMatchObject({ code: 'changed_meanwhile', params: { name: 'Stair wall A' } })
+
+    const stored = await row('SELECT name, version, input_json AS inputJson FROM takeoffs WHERE id = ?', takeoffId)
+    expect(stored.name).toBe('Stair wall A')
+    expect(Number(stored.version)).toBe(tabA.version + 1)
+    expect(JSON.parse(stored.inputJson).walls[0].name).toBe('Stair wall, tab A')
+    expect(await countRows(h.ds, 'audit_entries', "action = 'takeoff.update' AND entity_id = ?", [String(takeoffId)])).toBe(audits)
+  })
+
+  it('takes a save made on the version read after the other tab saved', async () => {
+    const fresh = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const again = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ version: fresh.version, name: 'Stair wall B', input: fresh.input })
+    expect(again.status, JSON.stringify(again.body)).toBe(200)
+    expect((await row('SELECT name FROM takeoffs WHERE id = ?', takeoffId)).name).toBe('Stair wall B')
+  })
+
+  it('refuses a save without the version as a bad request, and a bill saved with a stale takeoff, writing nothing', async () => {
+    const before = await row('SELECT name, version FROM takeoffs WHERE id = ?', takeoffId)
+    const bare = await counter.put(`/api/takeoffs/${takeoffId}`).set(CSRF).send({ name: 'No version', input: openingTakeoff(fx) })
+    expect(bare.status).toBe(400)
+    expect(bare.body.error.fields.version).toBeTruthy()
+    const { jobId } = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const boms = await countRows(h.ds, 'boms', 'takeoff_id = ?', [takeoffId])
+    const staleBill = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: openingTakeoff(fx), version: Number(before.version) - 1 })
+    expect(staleBill.status).toBe(409)
+    expect(staleBill.body.error.code).toBe('changed_meanwhile')
+    const noVersionBill = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: openingTakeoff(fx) })
+    expect(noVersionBill.status).toBe(400)
+    expect(await countRows(h.ds, 'boms', 'takeoff_id = ?', [takeoffId])).toBe(boms)
+    expect(await row('SELECT name, version FROM takeoffs WHERE id = ?', takeoffId)).toEqual(before)
+  })
+})
+
+describe('a draft quote saved from two tabs', () => {
+  let quoteId: number
+
+  beforeAll(async () => {
+    const created = await counter.post('/api/quotes').set(CSRF).send({ customerId: sales.customerId, warehouseId: sales.warehouseId, lines: [{ itemId: sales.block.id, qty: 10 }] })
+    expect(created.status, JSON.stringify(created.body)).toBe(201)
+    quoteId = created.body.id
+  })
+
+  const lineQtys = async () =>
+    (await h.ds.query('SELECT qty FROM quote_lines WHERE quote_id = ? ORDER BY line_no', [quoteId])).map((r: { qty: unknown }) => Number(r.qty))
+
+  it('keeps the first save and refuses the second made on the same loaded version (409), writing nothing', async () => {
+    const tabA = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const tabB = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const first = await counter.put(`/api/quotes/${quoteId}`).set(CSRF)
+      .send({ version: tabA.version, warehouseId: sales.warehouseId, notes: 'Tab A', lines: [{ itemId: sales.block.id, qty: 40 }] })
+    expect(first.status, JSON.stringify(first.body)).toBe(200)
+    expect(first.body.version).toBe(tabA.version + 1)
+    const second = await counter.put(`/api/quotes/${quoteId}`).set(CSRF)
+      .send({ version: tabB.version, warehouseId: sales.warehouseId, notes: 'Tab B', lines: [{ itemId: sales.block.id, qty: 5 }, { itemId: sales.base.id, qty: 1 }] })
+    expect(second.status).toBe(409)
+    expect(second.body.error).toMatchObject({ code: 'changed_meanwhile', params: { name: tabA.number } })
+    expect(await lineQtys()).toEqual([40])
+    const stored = await row('SELECT notes, version FROM quotes WHERE id = ?', quoteId)
+    expect(stored).toMatchObject({ notes: 'Tab A' })
+    expect(Number(stored.version)).toBe(tabA.version + 1)
+  })
+
+  it('takes a save made on the version read after the other tab saved; refuses one without a version', async () => {
+    const fresh = (await counter.get(`/api/quotes/${quoteId}`)).body
+    const bare = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: sales.warehouseId, lines: [{ itemId: sales.block.id, qty: 7 }] })
+    expect(bare.status).toBe(400)
+    expect(bare.body.error.fields.version).toBeTruthy()
+    expect(await lineQtys()).toEqual([40])
+    const again = await counter.put(`/api/quotes/${quoteId}`).set(CSRF)
+      .send({ version: fresh.version, warehouseId: sales.warehouseId, notes: 'Tab B', lines: [{ itemId: sales.block.id, qty: 5 }, { itemId: sales.base.id, qty: 1 }] })
+    expect(again.status, JSON.stringify(again.body)).toBe(200)
+    expect(await lineQtys()).toEqual([5, 1])
+  })
+})

@@ -86,7 +86,7 @@ describe('a quote from a bill of materials', () => {
       { itemId: fx.spacers.id, qty: 250 },
       { itemId: fx.base.id, qty: 1 },
     ]
-    const refused = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    const refused = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version: before.version, warehouseId: fx.warehouseId, lines })
     expect(refused.status).toBe(403)
     expect(refused.body.error.code).toBe('no_charge_admin_only')
     expect(refused.body.error.fields['lines.0.unitPrice'].code).toBe('no_charge_admin_only')
@@ -94,20 +94,20 @@ describe('a quote from a bill of materials', () => {
     expect(unchanged.amountDue).toBe(before.amountDue)
     expect(unchanged.lines[0].unitPrice).toBe(before.lines[0].unitPrice)
     // Still refused written as 0.00, and with no reason it is the reason that is asked for first (400).
-    const zeroes = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ ...lines[0], unitPrice: '0.00' }, lines[1], lines[2]] })
+    const zeroes = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version: before.version, warehouseId: fx.warehouseId, lines: [{ ...lines[0], unitPrice: '0.00' }, lines[1], lines[2]] })
     expect(zeroes.status).toBe(403)
-    const noReason = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines: [{ ...lines[0], overrideReason: '' }, lines[1], lines[2]] })
+    const noReason = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version: before.version, warehouseId: fx.warehouseId, lines: [{ ...lines[0], overrideReason: '' }, lines[1], lines[2]] })
     expect(noReason.status).toBe(400)
     expect(noReason.body.error.fields['lines.0.overrideReason'].code).toBe('override_reason_needed')
 
     const admin = await h.as('admin')
-    const given = await admin.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    const given = await admin.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version: before.version, warehouseId: fx.warehouseId, lines })
     expect(given.status).toBe(200)
     expect(given.body.lines[0]).toMatchObject({ unitPrice: '0.00', extension: '0.00', explanation: { source: 'override', overrideReason: 'Replaces 120 blocks broken on our truck' } })
     // 0.00 + 108.00 + 760.75 = 868.75; × 8.25 % = 71.671875 → 71.67; due 940.42
     expect(given.body).toMatchObject({ subtotal: '868.75', taxAmount: '71.67', amountDue: '940.42' })
     // The clerk may still change the draft: the admin's free line stays as the admin set it.
-    const kept = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ warehouseId: fx.warehouseId, lines })
+    const kept = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({ version: given.body.version, warehouseId: fx.warehouseId, lines })
     expect(kept.status).toBe(200)
     expect(kept.body.lines[0].unitPrice).toBe('0.00')
     // …and still signed by the admin who set it, not by the clerk who saved the draft again.
@@ -116,6 +116,7 @@ describe('a quote from a bill of materials', () => {
 
     // Back to the clerk's own 18.00 the next steps read.
     const back = await counter.put(`/api/quotes/${quoteId}`).set(CSRF).send({
+      version: kept.body.version,
       warehouseId: fx.warehouseId,
       lines: [{ itemId: fx.block.id, qty: 120, unitPrice: '18.00', overrideReason: 'Matched the job’s written budget' }, lines[1], lines[2]],
     })

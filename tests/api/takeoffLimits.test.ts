@@ -164,7 +164,8 @@ describe('the saved bill', () => {
   it('a base entered by hand that does not fit its wall stops the bill (422) and writes nothing', async () => {
     const [boms] = await h.ds.query('SELECT COUNT(*) AS n FROM boms WHERE job_id = ?', [jobId])
     const input = showerTakeoff({ showerBase: { ...showerTakeoff().showerBase!, fit: 'check' } })
-    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input })
+    const { version } = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const res = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input, version })
     expect(res.status).toBe(422)
     expect(res.body.error.code).toBe('bill_not_ready')
     expect(res.body.error.message).toContain('does not fit Shower wall')
@@ -173,7 +174,8 @@ describe('the saved bill', () => {
   })
 
   it('a superseded revision cannot start a pick list; the latest can', async () => {
-    const second = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: showerTakeoff() })
+    const { version } = (await counter.get(`/api/takeoffs/${takeoffId}`)).body
+    const second = await counter.post(`/api/jobs/${jobId}/boms`).set(CSRF).send({ takeoffId, input: showerTakeoff(), version })
     expect(second.status).toBe(201)
     expect(second.body.revision).toBe(first.revision + 1)
     const wh = await createWarehouse(h.ds, `P${fx.tag}`, ['A-01-1'])

@@ -45,7 +45,8 @@ export const customerCreateSchema = z.object({
 })
 export type CustomerCreateInput = z.infer<typeof customerCreateSchema>
 
-export const customerUpdateSchema = customerCreateSchema.partial().extend({ active: z.boolean().optional() })
+/** Changing an account, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const customerUpdateSchema = customerCreateSchema.partial().extend({ active: z.boolean().optional(), version: seenVersionSchema })
 export type CustomerUpdateInput = z.infer<typeof customerUpdateSchema>
 
 export const customerQuerySchema = z.object({
@@ -165,6 +166,8 @@ export interface CustomerSummary {
   active: boolean
   openJobs: number
   createdAt: string
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 export interface JobSummary {
@@ -358,6 +361,7 @@ export const customerSummarySchema: z.ZodType<CustomerSummary> = z.object({
   active: z.boolean(),
   openJobs: z.number().int(),
   createdAt: z.string(),
+  version: z.number().int(),
 })
 export const jobSummarySchema: z.ZodType<JobSummary> = z.object({
   id,

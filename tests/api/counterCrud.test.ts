@@ -58,14 +58,15 @@ describe('customers', () => {
   })
 
   it('changes and deactivates an account; inactive accounts leave the default list', async () => {
-    const res = await counter.patch(`/api/customers/${id}`).set(CSRF).send({ contactName: 'Rae Halvorsen', active: false })
+    const { version } = (await counter.get(`/api/customers/${id}`)).body
+    const res = await counter.patch(`/api/customers/${id}`).set(CSRF).send({ version, contactName: 'Rae Halvorsen', active: false })
     expect(res.status).toBe(200)
     expect(res.body).toMatchObject({ contactName: 'Rae Halvorsen', active: false })
     const list = await counter.get('/api/customers').query({ q: 'glasswing' })
     expect(list.body).toEqual([])
     const all = await counter.get('/api/customers').query({ q: 'glasswing', active: 'all' })
     expect(all.body).toHaveLength(1)
-    await counter.patch(`/api/customers/${id}`).set(CSRF).send({ active: true }).expect(200)
+    await counter.patch(`/api/customers/${id}`).set(CSRF).send({ version: res.body.version, active: true }).expect(200)
   })
 
   it('removes an account without jobs; one with jobs is kept (409)', async () => {

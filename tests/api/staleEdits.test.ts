@@ -125,3 +125,32 @@ describe('a draft quote saved from two tabs', () => {
     expect(await lineQtys()).toEqual([5, 1])
   })
 })
+
+describe('a contractor account changed from two screens', () => {
+  let customerId: number
+
+  beforeAll(async () => {
+    const created = await counter.post('/api/customers').set(CSRF).send({ code: `SE-${fx.tag}`, name: 'Harbour Glassworks' })
+    expect(created.status, JSON.stringify(created.body)).toBe(201)
+    customerId = created.body.id
+  })
+
+  it('keeps the first change, refuses the second made on the same loaded version (409) and one without a version (400)', async () => {
+    const screenA = (await counter.get(`/api/customers/${customerId}`)).body
+    const screenB = (await counter.get(`/api/customers/${customerId}`)).body
+    const first = await counter.patch(`/api/customers/${customerId}`).set(CSRF).send({ version: screenA.version, phone: '555-0142' })
+    expect(first.status, JSON.stringify(first.body)).toBe(200)
+    const second = await counter.patch(`/api/customers/${customerId}`).set(CSRF).send({ version: screenB.version, phone: '555-0199', active: false })
+    expect(second.status).toBe(409)
+    expect(second.body.error).toMatchObject({ code: 'changed_meanwhile', params: { name: 'Harbour Glassworks' } })
+    const bare = await counter.patch(`/api/customers/${customerId}`).set(CSRF).send({ phone: '555-0100' })
+    expect(bare.status).toBe(400)
+    const stored = await row('SELECT phone, active, version FROM customers WHERE id = ?', customerId)
+    expect(stored.phone).toBe('555-0142')
+    expect(Number(stored.active)).toBe(1)
+    expect(Number(stored.version)).toBe(screenA.version + 1)
+    const again = await counter.patch(`/api/customers/${customerId}`).set(CSRF).send({ version: first.body.version, phone: '555-0199' })
+    expect(again.status).toBe(200)
+    expect((await row('SELECT phone FROM customers WHERE id = ?', customerId)).phone).toBe('555-0199')
+  })
+})

@@ -6,6 +6,7 @@ import { containsPattern } from '../../db/likePattern.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 
 export function toCustomerSummary(c: Customer, openJobs = 0): CustomerSummary {
   return {
@@ -20,6 +21,7 @@ export function toCustomerSummary(c: Customer, openJobs = 0): CustomerSummary {
     active: c.active,
     openJobs,
     createdAt: c.createdAt.toISOString(),
+    version: c.version,
   }
 }
 
@@ -76,11 +78,14 @@ export async function createCustomer(ds: DataSource, actor: AuditActor, input: C
 export async function updateCustomer(ds: DataSource, actor: AuditActor, id: number, input: CustomerUpdateInput): Promise<CustomerSummary> {
   try {
     await inTransaction(ds, async (em) => {
-      const c = await em.findOne(Customer, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!c) throw AppError.notFound('customer_not_found', 'That customer was not found.')
-      Object.assign(c, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)))
+      const { version, ...changes } = input
+      const c = await lockAtVersion(em, Customer, id, version, {
+        notFound: () => AppError.notFound('customer_not_found', 'That customer was not found.'),
+        name: (row) => row.name,
+      })
+      Object.assign(c, Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined)))
       await em.save(c)
-      await audit(em, actor, 'customer.update', 'customer', id, input)
+      await audit(em, actor, 'customer.update', 'customer', id, changes)
     })
   } catch (err) {
     if (isDuplicateKey(err)) throw duplicateCode()

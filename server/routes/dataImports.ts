@@ -10,6 +10,7 @@ import { defineRoutes } from '../http/routeTable.js'
 import { receiveUpload } from '../http/upload.js'
 import { idParam } from '../http/validate.js'
 import { commitImport, listImports, previewImport, reverseImport } from '../services/imports/dataImports.js'
+import { currentImportRun, runImportStep } from '../services/imports/importRuns.js'
 import { DATA_IMPORTS, dataImportTemplate } from '../services/imports/dataImportKinds.js'
 
 const admin = { roles: ADMIN_ONLY }
@@ -23,6 +24,8 @@ function kindOf(value: string | string[] | undefined): DataImportKind {
 export default (ctx: AppContext) =>
   defineRoutes('/imports', [
     { method: 'get', path: '/', access: admin, handler: () => listImports(ctx.ds) },
+    // The signed-in person's latest check or commit: how far it has got, and its answer once done (after a reload too).
+    { method: 'get', path: '/runs/current', access: admin, handler: async (req) => ({ run: await currentImportRun(ctx.ds, req.user!.id) }) },
     {
       method: 'get', path: '/:kind/template.xlsx', access: admin,
       handler: async (req, res) => {
@@ -34,14 +37,16 @@ export default (ctx: AppContext) =>
       method: 'post', path: '/:kind/preview', access: admin,
       handler: async (req, res) => {
         const kind = kindOf(req.params.kind)
-        return previewImport(ctx.ds, DATA_IMPORTS[kind], await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes }))
+        const upload = await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes })
+        return runImportStep(ctx.ds, actorOf(req), kind, 'preview', upload, (progress) => previewImport(ctx.ds, DATA_IMPORTS[kind], upload, progress))
       },
     },
     {
       method: 'post', path: '/:kind/commit', access: admin,
       handler: async (req, res) => {
         const kind = kindOf(req.params.kind)
-        return commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes }))
+        const upload = await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes })
+        return runImportStep(ctx.ds, actorOf(req), kind, 'commit', upload, (progress) => commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], upload, progress))
       },
     },
     { method: 'post', path: '/:id/reverse', access: admin, handler: (req) => reverseImport(ctx.ds, actorOf(req), DATA_IMPORTS, idParam(req.params.id, 'import_not_found')) },

@@ -1,6 +1,6 @@
 // A business's own data brought in from its sheets: the kinds of import, what a check answers (every
 // problem of every row), and the record each committed import leaves.
-import type { RowProblem } from '../errors/errorCodes.js'
+import type { ErrorParams, Problem, RowProblem } from '../errors/errorCodes.js'
 
 /** In the order a new business brings them in: what later kinds refer to comes first. */
 export const DATA_IMPORT_KINDS = [
@@ -56,4 +56,38 @@ export interface DataImportResult extends DataImportPreview {
   record: DataImportRecord
   /** True when this commit found the file already imported and wrote nothing. */
   repeated: boolean
+}
+
+export type DataImportRunStep = 'preview' | 'commit'
+
+/** Why a run failed: the error's code and values, as the server answered it. */
+export interface DataImportRunProblem {
+  status: number
+  code: string
+  message: string
+  params?: ErrorParams
+  fields?: Record<string, Problem>
+}
+
+/** A check or commit as it runs on the server, and its answer for a while after. */
+export interface DataImportRun {
+  id: string
+  kind: DataImportKind
+  step: DataImportRunStep
+  fileName: string
+  state: 'running' | 'done' | 'failed'
+  /** The file's data rows, when known before reading (a CSV's lines, an .xlsx sheet's dimension). */
+  rowsTotal: number | null
+  rowsRead: number
+  rowsChecked: number
+  rowsWritten: number
+  /** Whole percent of the work (rows checked, then for a commit rows written); 100 only once done. */
+  percent: number
+  startedAt: string
+  answer: DataImportPreview | DataImportResult | null
+  problem: DataImportRunProblem | null
+}
+
+export interface CurrentDataImportRun {
+  run: DataImportRun | null
 }

@@ -2,7 +2,7 @@
 // history and reversal, and the whole-business export. Uploads and the export report their progress.
 import { z } from 'zod'
 import { okShape } from '@shared/schemas/answers/changes'
-import { dataImportPreviewShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
+import { currentDataImportRunShape, dataImportPreviewShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
 import type { DataImportKind, DataImportPreview, DataImportResult } from '@shared/schemas/dataImports'
 import { setupStateSchema } from '@shared/schemas/setup'
 import { currentExportJobShape, exportJobShape } from '@shared/schemas/answers/businessExport'
@@ -21,6 +21,8 @@ export const goliveApi = {
   imports: () => api.get('/imports', { answer: z.array(dataImportRecordShape) }),
   reverseImport: (id: number) => api.post(`/imports/${id}/reverse`, {}, { answer: dataImportRecordShape }),
   importTemplate: (kind: DataImportKind) => download(`/imports/${kind}/template.xlsx`),
+  /** The signed-in person's latest check or commit: how far it has got, its answer once done. */
+  currentImportRun: () => api.get('/imports/runs/current', { answer: currentDataImportRunShape }),
   /** Starts everything out on the server, or answers the export already running. */
   startExport: () => api.post('/business-export/jobs', {}, { answer: exportJobShape }),
   currentExport: () => api.get('/business-export/jobs/current', { answer: currentExportJobShape }),

@@ -12,7 +12,7 @@ import { bomRecordShape, jobDetailShape, ruleRecordShape, takeoffRecordShape } f
 import {
   countAccuracyRowShape, countDetailShape, countDuePlanShape, countHistoryRowShape, countSettingsShape, countSummaryShape, handheldCountShape,
 } from '../../shared/schemas/answers/counts.js'
-import { dataImportRecordShape } from '../../shared/schemas/answers/dataImports.js'
+import { currentDataImportRunShape, dataImportRecordShape } from '../../shared/schemas/answers/dataImports.js'
 import { currentExportJobShape } from '../../shared/schemas/answers/businessExport.js'
 import { deviceOutboxSummaryShape } from '../../shared/schemas/answers/devices.js'
 import { orderFulfilmentShape, ticketDetailShape, ticketSummaryShape } from '../../shared/schemas/answers/handover.js'
@@ -161,6 +161,7 @@ async function readsOf(h: ApiHarness): Promise<Read[]> {
     { route: 'GET /api/profile', path: '/api/profile', schema: signedInAnswerSchema },
     { route: 'GET /api/items/:id', path: `/api/items/${stocked.id}`, schema: itemDetailShape },
     { route: 'GET /api/imports', path: '/api/imports', schema: z.array(dataImportRecordShape) },
+    { route: 'GET /api/imports/runs/current', path: '/api/imports/runs/current', schema: currentDataImportRunShape },
     { route: 'GET /api/business-export/jobs/current', path: '/api/business-export/jobs/current', schema: currentExportJobShape },
     { route: 'GET /api/stock/levels', path: `/api/stock/levels?warehouseId=${hry}`, schema: stockLevelsAnswerShape, nonEmpty: 'rows' },
     { route: 'GET /api/stock/bin-contents', path: `/api/stock/bin-contents?warehouseId=${hry}`, schema: binContentsAnswerShape },

@@ -62,6 +62,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'POST /api/items/import/commit': { access: ['admin'] },
   // Bringing a business's own data in (opening stock, …): administrators only.
   'GET /api/imports': { access: ['admin'] },
+  'GET /api/imports/runs/current': { access: ['admin'] },
   'GET /api/imports/:kind/template.xlsx': { access: ['admin'] },
   'POST /api/imports/:kind/preview': { access: ['admin'] },
   'POST /api/imports/:kind/commit': { access: ['admin'] },

@@ -39,6 +39,7 @@ const CODE_FROM_VARIABLE = new Set([
   'server/services/imports/spreadsheetParser.ts', // outcome.code: the parse worker's refusal codes
   'server/services/imports/uploadGuard.ts', // refuse(code) / tooBig(code): Refusal | Excess
   'server/http/validate.ts', // idParam's notFound: NotFoundCode, named at each route
+  'server/services/imports/importRuns.ts', // a check that followed another raises the first one's stored error again (its code named where first raised)
 ])
 
 const named = files.flatMap(({ path, text }) => NAMED.flatMap((re) => [...text.matchAll(re)].map((m) => ({ path, code: m[1] }))))

@@ -925,6 +925,8 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'respuestas guardadas un rato para que una solicitud enviada dos veces se haga una sola vez',
   'how far each everything-out download got, and where its file waits; kept half an hour':
     'hasta dónde llegó cada descarga de todos los datos y dónde espera su archivo; se guarda media hora',
+  'how far each import check got, and its answer; kept half an hour for the page that lost it':
+    'hasta dónde llegó cada revisión de una importación, y su respuesta; se guarda media hora para la página que la perdió',
   'the next purchase order number; follows from purchase-orders.xlsx':
     'el siguiente número de orden de compra; se deduce de purchase-orders.xlsx',
   'what each scanner last reported as waiting to send; device state, not records':

@@ -540,6 +540,7 @@ export const LEFT_OUT: readonly { table: string; why: string }[] = [
   { table: 'signin_throttle', why: 'counts of failed sign-ins, kept a few minutes' },
   { table: 'idempotency_records', why: 'answers kept briefly so a request sent twice is done once' },
   { table: 'business_export_jobs', why: 'how far each everything-out download got, and where its file waits; kept half an hour' },
+  { table: 'data_import_runs', why: 'how far each import check got, and its answer; kept half an hour for the page that lost it' },
   { table: 'po_number_counters', why: 'the next purchase order number; follows from purchase-orders.xlsx' },
   { table: 'device_outbox_reports', why: 'what each scanner last reported as waiting to send; device state, not records' },
   { table: 'data_import_costs', why: 'average costs kept only so an import can be reversed in this database' },

@@ -35,6 +35,13 @@ export interface DataImportDefinition<W> {
   reverse(em: EntityManager, actor: AuditActor, importId: number): Promise<void>
 }
 
+/** How far a pass over a file has got: rows read from the file, checked, and (in a commit) written. */
+export interface ImportProgress {
+  read(rows: number): void
+  checked(rows: number): void
+  written(rows: number): void
+}
+
 export const checksumOf = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')
 
 interface RecordRow {
@@ -100,28 +107,38 @@ function tally() {
  * One pass over the upload: its rows cross from the parse worker a chunk at a time and are checked as they come
  * (the whole file at once only for a kind that has no chunk checker); `seen` takes each chunk's checked rows.
  */
-async function checkUpload<W>(em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => void): Promise<void> {
+async function checkUpload<W>(
+  em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => void, progress?: ImportProgress,
+): Promise<void> {
   if (def.chunkChecker) {
     const check = def.chunkChecker(em)
-    await readSpreadsheetInChunks(upload, def.spec, async (part) => seen(await check(part)))
+    await readSpreadsheetInChunks(upload, def.spec, async (part) => {
+      progress?.read(part.rows.length)
+      const checked = await check(part)
+      progress?.checked(checked.length)
+      seen(checked)
+    })
     return
   }
   const whole: ParsedSheet = { rows: [], issues: [] }
   await readSpreadsheetInChunks(upload, def.spec, async (part) => {
+    progress?.read(part.rows.length)
     for (const r of part.rows) whole.rows.push(r)
     for (const i of part.issues) whole.issues.push(i)
   })
-  seen(await def.check(em, whole))
+  const checked = await def.check(em, whole)
+  progress?.checked(checked.length)
+  seen(checked)
 }
 
-export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportPreview> {
+export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress): Promise<DataImportPreview> {
   const seen = tally()
-  await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked))
+  await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked), progress)
   const repeatOf = await liveRecord(ds.manager, def.kind, checksumOf(upload.data))
   return seen.preview(def.kind, upload.filename, repeatOf)
 }
 
-export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload): Promise<DataImportResult> {
+export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress): Promise<DataImportResult> {
   const checksum = checksumOf(upload.data)
   return inTransaction(ds, async (em) => {
     // The record first: a second commit of the same file waits on its unique key, then finds it taken.
@@ -141,7 +158,7 @@ export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: Da
     await checkUpload(em, def, upload, (checked) => {
       seen.add(checked)
       for (const c of checked) if (c.write !== null && !c.preview.errors.length) writes.push(c.write)
-    })
+    }, progress)
     const summary = seen.preview(def.kind, upload.filename, null)
     if (summary.errorRows) {
       const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
@@ -149,6 +166,7 @@ export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: Da
     }
     if (!summary.ready) throw AppError.unprocessable('import_nothing_to_write', 'The file holds no rows to import; nothing was imported.')
     const counts = await def.write(em, actor, importId, writes)
+    progress?.written(summary.total)
     await em.query('UPDATE data_imports SET summary = ?, row_count = ? WHERE id = ?', [JSON.stringify(counts), summary.total, importId])
     await audit(em, actor, 'data_import.commit', 'data_import', importId, { kind: def.kind, file: upload.filename, checksum, rows: summary.total, ...counts })
     return { ...summary, record: await findImport(em, importId), repeated: false }

@@ -5,6 +5,7 @@ import { existsSync } from 'node:fs'
 import { createRequire } from 'node:module'
 import path from 'node:path'
 import { pathToFileURL } from 'node:url'
+import yauzl from 'yauzl'
 import { AppError } from '../../errors.js'
 import type { ImportSpec, ParsedSheet, ParseOutcome, RefusalCode } from './importTypes.js'
 import type { GuardedUpload } from './uploadGuard.js'
@@ -139,4 +140,56 @@ export async function readSpreadsheetInChunks(upload: GuardedUpload, spec: Impor
   if (!outcome.ok) throw refusal(outcome)
   if (outcome.sheet.rows.length) await take(outcome.sheet)
   return rows
+}
+
+/**
+ * The file's data rows as far as can be told before reading it, for a true percentage: a CSV's lines less the
+ * header; an .xlsx's first sheet's stated dimension less the header (null when it states none).
+ */
+export async function rowsInUpload(upload: GuardedUpload): Promise<number | null> {
+  const data = upload.data
+  if (upload.kind === 'csv') {
+    let lines = 0
+    for (let i = data.indexOf(10); i !== -1; i = data.indexOf(10, i + 1)) lines++
+    if (data.length && data[data.length - 1] !== 10) lines++
+    return Math.max(0, lines - 1)
+  }
+  const head = await sheetHead(data).catch(() => null)
+  const match = head && /<dimension\s+ref="[A-Z]+\d+(?::[A-Z]+(\d+))?"/.exec(head)
+  return match?.[1] ? Math.max(0, Number(match[1]) - 1) : null
+}
+
+/** The first few kilobytes of the first worksheet's XML, unpacked (the dimension stands before the rows). */
+function sheetHead(data: Buffer): Promise<string | null> {
+  return new Promise((resolve, reject) => {
+    yauzl.fromBuffer(data, { lazyEntries: true }, (openError, zip) => {
+      if (openError || !zip) return reject(openError ?? new Error('no zip'))
+      let over = false
+      const done = (head: string | null) => {
+        if (over) return
+        over = true
+        zip.close()
+        resolve(head)
+      }
+      zip.on('entry', (entry: yauzl.Entry) => {
+        if (entry.fileName !== 'xl/worksheets/sheet1.xml') return zip.readEntry()
+        zip.openReadStream(entry, (err, stream) => {
+          if (err || !stream) return done(null)
+          let text = ''
+          stream.on('data', (chunk: Buffer) => {
+            text += chunk.toString('utf8')
+            if (text.length >= 4096) {
+              stream.destroy()
+              done(text)
+            }
+          })
+          stream.on('end', () => done(text))
+          stream.on('error', () => done(null))
+        })
+      })
+      zip.on('end', () => done(null))
+      zip.on('error', reject)
+      zip.readEntry()
+    })
+  })
 }

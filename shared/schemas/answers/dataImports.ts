@@ -2,8 +2,8 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import { DATA_IMPORT_KINDS } from '../dataImports.js'
-import type { DataImportKind, DataImportRecord, DataImportRow, DataImportPreview, DataImportResult } from '../dataImports.js'
-import { rowProblemShape } from './terms.js'
+import type { CurrentDataImportRun, DataImportKind, DataImportRecord, DataImportRow, DataImportPreview, DataImportResult, DataImportRun } from '../dataImports.js'
+import { errorParamsShape, rowProblemShape } from './terms.js'
 
 const dataImportKindShape = z.enum(DATA_IMPORT_KINDS) satisfies z.ZodType<DataImportKind>
 
@@ -44,3 +44,33 @@ export const dataImportResultShape = dataImportPreviewShape.extend({
   record: dataImportRecordShape,
   repeated: z.boolean()
 }) satisfies z.ZodType<DataImportResult>
+
+// Only administrators read a run: a row's cost is there whenever its kind has one (opening stock), so the row is
+// either a costed one, cost required, or one of a kind without costs.
+const runRowShape = z.union([dataImportRowShape.extend({ unitCost: z.string().nullable() }), dataImportRowShape.omit({ unitCost: true })])
+const runPreviewShape = dataImportPreviewShape.extend({ rows: z.array(runRowShape) })
+
+const dataImportRunShape = z.object({
+  id: z.string(),
+  kind: dataImportKindShape,
+  step: z.enum(['preview', 'commit']),
+  fileName: z.string(),
+  state: z.enum(['running', 'done', 'failed']),
+  rowsTotal: z.number().nullable(),
+  rowsRead: z.number(),
+  rowsChecked: z.number(),
+  rowsWritten: z.number(),
+  percent: z.number(),
+  startedAt: z.string(),
+  // A commit's answer carries its record; a check's does not.
+  answer: z.union([runPreviewShape.extend({ record: dataImportRecordShape, repeated: z.boolean() }), runPreviewShape]).nullable(),
+  problem: z.object({
+    status: z.number(),
+    code: z.string(),
+    message: z.string(),
+    params: errorParamsShape.optional(),
+    fields: z.record(z.string(), rowProblemShape.shape.problem).optional(),
+  }).nullable(),
+}) satisfies z.ZodType<DataImportRun>
+
+export const currentDataImportRunShape = z.object({ run: dataImportRunShape.nullable() }) satisfies z.ZodType<CurrentDataImportRun>

@@ -1,0 +1,142 @@
+// An import's check or commit as a run the page can follow: the rows read, checked and written against the
+// file's rows are written to `data_import_runs` as they go (at most every few hundred milliseconds), with the
+// answer once done, so the page shows a true percentage, and after a reload (served by any app process) finds
+// the run again and its answer. A second check of the same file by the same person while the first runs (a
+// double click, a second tab) follows the first instead of checking again. A run whose process stopped beating
+// its heartbeat is seen as failed.
+import { randomUUID } from 'node:crypto'
+import type { DataSource } from 'typeorm'
+import type { ErrorParams, Problem } from '../../../shared/errors/errorCodes.js'
+import type { DataImportKind, DataImportRun, DataImportRunStep } from '../../../shared/schemas/dataImports.js'
+import { AppError } from '../../errors.js'
+import type { AuditActor } from '../auditService.js'
+import { checksumOf, type ImportProgress } from './dataImports.js'
+import { rowsInUpload } from './spreadsheetParser.js'
+import type { GuardedUpload } from './uploadGuard.js'
+
+const PROGRESS_WRITE_MS = 300
+const HEARTBEAT_MS = 5_000
+const SILENT_MS = 60_000
+/** How long a finished run's answer is offered to the page that lost it (a reload). */
+const KEEP_MS = 30 * 60_000
+/** How long a second check waits for the first one's answer. */
+const FOLLOW_MS = 15 * 60_000
+
+interface StoredProblem { status: number; code: string; message: string; params?: ErrorParams; fields?: Record<string, Problem> }
+
+interface RunRow {
+  id: string; kind: DataImportKind; step: DataImportRunStep; file_name: string; state: DataImportRun['state']; rows_total: number | null
+  rows_read: number; rows_checked: number; rows_written: number; answer: string | null; problem: string | null; started_at: Date
+}
+
+/** Whole percent: the rows checked of the file's (and, for a commit, then the rows written); 100 only when done. */
+function percentOf(r: RunRow): number {
+  if (r.state === 'done') return 100
+  if (!r.rows_total) return 0
+  const work = r.step === 'commit' ? 2 * r.rows_total : r.rows_total
+  const done = r.rows_checked + (r.step === 'commit' ? r.rows_written : 0)
+  return Math.min(99, Math.floor((done / work) * 100))
+}
+
+const viewOf = (r: RunRow): DataImportRun => ({
+  id: r.id, kind: r.kind, step: r.step, fileName: r.file_name, state: r.state, rowsTotal: r.rows_total, rowsRead: r.rows_read,
+  rowsChecked: r.rows_checked, rowsWritten: r.rows_written, percent: percentOf(r), startedAt: new Date(r.started_at).toISOString(),
+  answer: r.answer ? JSON.parse(r.answer) : null, problem: r.problem ? (JSON.parse(r.problem) as StoredProblem) : null,
+})
+
+const RUN_SQL = `SELECT id, kind, step, file_name, state, rows_total, rows_read, rows_checked, rows_written, answer, problem, started_at
+  FROM data_import_runs`
+
+async function failSilentRuns(ds: DataSource): Promise<void> {
+  await ds.query(
+    `UPDATE data_import_runs SET state = 'failed', running_key = NULL, finished_at = CURRENT_TIMESTAMP(3),
+      problem = '{"status":500,"code":"import_run_lost","message":"The check stopped before it finished; check the file again."}'
+      WHERE state = 'running' AND heartbeat_at < CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND`,
+    [SILENT_MS * 1000],
+  )
+}
+
+const problemOf = (err: unknown): StoredProblem | null =>
+  err instanceof AppError ? { status: err.status, code: err.code, message: err.message, params: err.params, fields: err.fields } : null
+
+const errorOf = (p: StoredProblem) => new AppError(p.status, p.code as AppError['code'], p.message, { params: p.params, fields: p.fields })
+
+/** Waits for another run's answer: its result, or its failure thrown again. */
+async function followRun<T>(ds: DataSource, key: string): Promise<T> {
+  const [running]: { id: string }[] = await ds.query('SELECT id FROM data_import_runs WHERE running_key = ?', [key])
+  const id = running?.id
+  for (const until = Date.now() + FOLLOW_MS; id && Date.now() < until;) {
+    await new Promise((resolve) => setTimeout(resolve, 250))
+    await failSilentRuns(ds)
+    const [row]: RunRow[] = await ds.query(`${RUN_SQL} WHERE id = ?`, [id])
+    if (row?.state === 'done') return JSON.parse(row.answer!) as T
+    if (row?.state === 'failed') {
+      const p = row.problem ? (JSON.parse(row.problem) as StoredProblem) : null
+      throw p ? errorOf(p) : AppError.of(500, 'import_run_lost', 'The check stopped before it finished; check the file again.')
+    }
+  }
+  throw AppError.of(500, 'import_run_lost', 'The check stopped before it finished; check the file again.')
+}
+
+/**
+ * Runs one step of an import (`work`, given the progress to report) as a run the page can follow. A check of a
+ * file this person is already checking answers that check's answer.
+ */
+export async function runImportStep<T>(
+  ds: DataSource, actor: AuditActor, kind: DataImportKind, step: DataImportRunStep, upload: GuardedUpload, work: (progress: ImportProgress) => Promise<T>,
+): Promise<T> {
+  const userId = actor.userId
+  if (userId === null) return work({ read: () => undefined, checked: () => undefined, written: () => undefined })
+  await failSilentRuns(ds)
+  await ds.query('DELETE FROM data_import_runs WHERE user_id = ? AND state <> \'running\' AND started_at < CURRENT_TIMESTAMP(3) - INTERVAL 1 DAY', [userId])
+  const checksum = checksumOf(upload.data)
+  // Only a check is followed: two commits of one file meet at the import's own record, which writes once.
+  const key = step === 'preview' ? `${userId}:${kind}:${checksum}` : null
+  const id = randomUUID()
+  const total = await rowsInUpload(upload)
+  const inserted: { affectedRows: number } = await ds.query(
+    "INSERT IGNORE INTO data_import_runs (id, user_id, kind, step, file_name, checksum, state, running_key, rows_total) VALUES (?, ?, ?, ?, ?, ?, 'running', ?, ?)",
+    [id, userId, kind, step, upload.filename.slice(0, 255), checksum, key, total],
+  )
+  if (!inserted.affectedRows) return followRun<T>(ds, key!)
+
+  const counts = { read: 0, checked: 0, written: 0 }
+  let lastWrite = 0
+  let writes: Promise<unknown> = Promise.resolve()
+  const write = (sql: string, params: unknown[]) => (writes = writes.then(() => ds.query(sql, params)).catch(() => undefined))
+  const report = (force = false) => {
+    if (!force && Date.now() - lastWrite < PROGRESS_WRITE_MS) return
+    lastWrite = Date.now()
+    void write("UPDATE data_import_runs SET rows_read = ?, rows_checked = ?, rows_written = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'",
+      [counts.read, counts.checked, counts.written, id])
+  }
+  const heartbeat = setInterval(() => report(true), HEARTBEAT_MS)
+  heartbeat.unref()
+  const finish = async (set: string, params: unknown[]) => {
+    clearInterval(heartbeat)
+    await writes
+    await ds.query(`UPDATE data_import_runs SET ${set}, running_key = NULL, finished_at = CURRENT_TIMESTAMP(3), rows_read = ?, rows_checked = ?, rows_written = ? WHERE id = ?`,
+      [...params, counts.read, counts.checked, counts.written, id])
+  }
+  try {
+    const answer = await work({
+      read: (n) => { counts.read += n; report() },
+      checked: (n) => { counts.checked += n; report() },
+      written: (n) => { counts.written += n; report(true) },
+    })
+    await finish("state = 'done', answer = ?", [JSON.stringify(answer)])
+    return answer
+  } catch (err) {
+    const p = problemOf(err)
+    await finish("state = 'failed', problem = ?", [p ? JSON.stringify(p) : null]).catch(() => undefined)
+    throw err
+  }
+}
+
+/** This person's latest run of the last half hour (running, done with its answer, or failed with its problem), or null. */
+export async function currentImportRun(ds: DataSource, userId: number): Promise<DataImportRun | null> {
+  await failSilentRuns(ds)
+  const [row]: RunRow[] = await ds.query(`${RUN_SQL} WHERE user_id = ? AND started_at > CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND ORDER BY started_at DESC LIMIT 1`,
+    [userId, KEEP_MS * 1000])
+  return row ? viewOf(row) : null
+}

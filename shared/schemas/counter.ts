@@ -76,7 +76,8 @@ export const jobCreateSchema = z.object({
 })
 export type JobCreateInput = z.infer<typeof jobCreateSchema>
 
-export const jobUpdateSchema = jobCreateSchema.omit({ customerId: true }).partial()
+/** Changing a job, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const jobUpdateSchema = jobCreateSchema.omit({ customerId: true }).partial().extend({ version: seenVersionSchema })
 export type JobUpdateInput = z.infer<typeof jobUpdateSchema>
 
 export const jobQuerySchema = z.object({
@@ -183,6 +184,8 @@ export interface JobSummary {
   latestRevision: number | null
   takeoffs: number
   updatedAt: string
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 export interface TakeoffSummary { id: number; jobId: number; name: string; walls: number; updatedAt: string }
@@ -376,4 +379,5 @@ export const jobSummarySchema: z.ZodType<JobSummary> = z.object({
   latestRevision: z.number().int().nullable(),
   takeoffs: z.number().int(),
   updatedAt: z.string(),
+  version: z.number().int(),
 })

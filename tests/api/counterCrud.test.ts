@@ -106,10 +106,11 @@ describe('customers', () => {
     })
 
     it('changes status and due date', async () => {
-      const res = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ status: 'ordered', dueDate: null })
+      const { version } = (await counter.get(`/api/jobs/${jobId}`)).body
+      const res = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version, status: 'ordered', dueDate: null })
       expect(res.status).toBe(200)
       expect(res.body).toMatchObject({ status: 'ordered', dueDate: null })
-      await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ status: 'open' }).expect(200)
+      await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: res.body.version, status: 'open' }).expect(200)
     })
 
     it('saves, loads and replaces a takeoff validated with the shared schema', async () => {
@@ -150,10 +151,10 @@ describe('customers', () => {
     })
 
     it('a closed job takes no new takeoffs (409)', async () => {
-      await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ status: 'complete' }).expect(200)
+      const closed = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: (await counter.get(`/api/jobs/${jobId}`)).body.version, status: 'complete' }).expect(200)
       const res = await counter.post(`/api/jobs/${jobId}/takeoffs`).set(CSRF).send({ name: 'Late', input: openingTakeoff(fx) })
       expect(res.status).toBe(409)
-      await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ status: 'open' }).expect(200)
+      await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: closed.body.version, status: 'open' }).expect(200)
     })
   })
 })

@@ -154,3 +154,28 @@ describe('a contractor account changed from two screens', () => {
     expect((await row('SELECT phone FROM customers WHERE id = ?', customerId)).phone).toBe('555-0199')
   })
 })
+
+describe('a job changed from two screens', () => {
+  let jobId: number
+
+  beforeAll(async () => {
+    jobId = (await createCustomerAndJob(h.ds, `J${fx.tag}`)).jobId
+  })
+
+  it('keeps the first change, refuses the second made on the same loaded version (409) and one without a version (400)', async () => {
+    const screenA = (await counter.get(`/api/jobs/${jobId}`)).body
+    const screenB = (await counter.get(`/api/jobs/${jobId}`)).body
+    const first = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: screenA.version, siteAddress: '14 Quarry Lane' })
+    expect(first.status, JSON.stringify(first.body)).toBe(200)
+    const second = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: screenB.version, siteAddress: '90 Mill Road', status: 'cancelled' })
+    expect(second.status).toBe(409)
+    expect(second.body.error).toMatchObject({ code: 'changed_meanwhile', params: { name: screenA.name } })
+    expect((await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ status: 'cancelled' })).status).toBe(400)
+    const stored = await row('SELECT site_address AS siteAddress, status, version FROM jobs WHERE id = ?', jobId)
+    expect(stored).toMatchObject({ siteAddress: '14 Quarry Lane', status: 'open' })
+    expect(Number(stored.version)).toBe(screenA.version + 1)
+    const again = await counter.patch(`/api/jobs/${jobId}`).set(CSRF).send({ version: first.body.version, siteAddress: '90 Mill Road' })
+    expect(again.status).toBe(200)
+    expect((await row('SELECT site_address AS siteAddress FROM jobs WHERE id = ?', jobId)).siteAddress).toBe('90 Mill Road')
+  })
+})

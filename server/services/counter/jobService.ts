@@ -14,6 +14,7 @@ import { Customer, Job } from '../../entities/Customer.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 import { containsPattern } from '../../db/likePattern.js'
 import { SqlWhere } from '../../db/sqlWhere.js'
 import { getCustomer } from './customerService.js'
@@ -31,6 +32,7 @@ interface JobRow {
   updatedAt: Date | string
   latestRevision: number | string | null
   takeoffs: number | string
+  version: number | string
 }
 
 const isoDate = (d: string | Date | null): string | null =>
@@ -50,12 +52,13 @@ function toJobSummary(r: JobRow): JobSummary {
     latestRevision: r.latestRevision === null ? null : Number(r.latestRevision),
     takeoffs: Number(r.takeoffs),
     updatedAt: new Date(r.updatedAt).toISOString(),
+    version: Number(r.version),
   }
 }
 
 // DATE columns are read as text so a due date never shifts with the server's time zone.
 const JOB_SELECT = `SELECT j.id, j.customer_id AS customerId, c.code AS customerCode, c.name AS customerName, j.name,
-  j.site_address AS siteAddress, j.status, DATE_FORMAT(j.due_date, '%Y-%m-%d') AS dueDate, j.notes, j.updated_at AS updatedAt,
+  j.site_address AS siteAddress, j.status, DATE_FORMAT(j.due_date, '%Y-%m-%d') AS dueDate, j.notes, j.updated_at AS updatedAt, j.version,
   (SELECT MAX(b.revision) FROM boms b WHERE b.job_id = j.id) AS latestRevision,
   (SELECT COUNT(*) FROM takeoffs t WHERE t.job_id = j.id) AS takeoffs
   FROM jobs j JOIN customers c ON c.id = j.customer_id`
@@ -136,11 +139,14 @@ export async function createJob(ds: DataSource, actor: AuditActor, input: JobCre
 
 export async function updateJob(ds: DataSource, actor: AuditActor, id: number, input: JobUpdateInput): Promise<JobSummary> {
   await inTransaction(ds, async (em) => {
-    const job = await em.findOne(Job, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!job) throw AppError.notFound('job_not_found', 'That job was not found.')
-    Object.assign(job, Object.fromEntries(Object.entries(input).filter(([, v]) => v !== undefined)))
+    const { version, ...changes } = input
+    const job = await lockAtVersion(em, Job, id, version, {
+      notFound: () => AppError.notFound('job_not_found', 'That job was not found.'),
+      name: (row) => row.name,
+    })
+    Object.assign(job, Object.fromEntries(Object.entries(changes).filter(([, v]) => v !== undefined)))
     await em.save(job)
-    await audit(em, actor, 'job.update', 'job', id, input)
+    await audit(em, actor, 'job.update', 'job', id, changes)
   })
   return getJobSummary(ds, id)
 }

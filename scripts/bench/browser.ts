@@ -16,7 +16,9 @@ export async function firstGridRows(browser: Browser, url: string, cookie?: stri
   try {
     if (cookie) {
       const [name, value] = cookie.split('=')
-      await context.addCookies([{ name, value, url }])
+      // For the whole site: given only the page's URL, the cookie's path would be the page's folder (/stock/), and
+      // the API calls under /api would go without it.
+      await context.addCookies([{ name, value, domain: new URL(url).hostname, path: '/' }])
     }
     const page = await context.newPage()
     await page.goto(url, { waitUntil: 'commit' })

@@ -18,6 +18,7 @@ import path from 'node:path'
 import { finished } from 'node:stream/promises'
 import type { DataSource } from 'typeorm'
 import type { ExportJob } from '../../../shared/schemas/businessExport.js'
+import { failSilentRows, progressRow } from '../../db/progressRow.js'
 import { BusinessExportJob } from '../../entities/BusinessExportJob.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
@@ -26,9 +27,6 @@ import type { ReadmeLang } from './readmeWords.js'
 
 /** How long a finished file waits to be downloaded before it is deleted. */
 export const EXPORT_FILE_KEEP_MS = 30 * 60_000
-/** How often the running process says it is still at work, and how long a silence means it died. */
-const HEARTBEAT_MS = 5_000
-export const EXPORT_STALE_MS = 60_000
 /** Progress is written to the database at most this often (and once more at the end). */
 const PROGRESS_WRITE_MS = 400
 
@@ -48,13 +46,7 @@ const viewOf = (job: BusinessExportJob): ExportJob => ({
 const jobs = (ds: DataSource) => ds.getRepository(BusinessExportJob)
 
 /** A running job whose process stopped beating (it crashed or was killed) becomes failed and frees the slot. */
-async function failSilentJobs(ds: DataSource): Promise<void> {
-  await ds.query(
-    `UPDATE business_export_jobs SET state = 'failed', running_slot = NULL, finished_at = CURRENT_TIMESTAMP(3)
-      WHERE state = 'running' AND heartbeat_at < CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND`,
-    [EXPORT_STALE_MS * 1000],
-  )
-}
+const failSilentJobs = (ds: DataSource) => failSilentRows(ds, 'business_export_jobs', 'running_slot = NULL')
 
 const removeFileOf = (filePath: string) => rm(path.dirname(filePath), { recursive: true, force: true })
 
@@ -73,26 +65,16 @@ async function run(ds: DataSource, actor: AuditActor, lang: ReadmeLang, id: stri
   const out = createWriteStream(file)
   let rowsTotal: number | null = null
   let rowsDone = 0
-  let lastWrite = 0
-  // Writes go one after another, so a late progress write never overtakes the final one.
-  let writes: Promise<unknown> = Promise.resolve()
-  const write = (sql: string, params: unknown[]) => (writes = writes.then(() => ds.query(sql, params)).catch(log))
-  const progress = (force = false) => {
-    if (!force && Date.now() - lastWrite < PROGRESS_WRITE_MS) return
-    lastWrite = Date.now()
-    void write("UPDATE business_export_jobs SET rows_total = ?, rows_done = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'", [rowsTotal, rowsDone, id])
-  }
-  const heartbeat = setInterval(() => progress(true), HEARTBEAT_MS)
-  heartbeat.unref()
+  const progress = progressRow(ds, "UPDATE business_export_jobs SET rows_total = ?, rows_done = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'",
+    () => [rowsTotal, rowsDone, id], PROGRESS_WRITE_MS, log)
   try {
     await exportBusiness(ds, actor, out, lang, {
-      total: (n) => { rowsTotal = n; progress(true) },
-      advance: (n) => { rowsDone += n; progress() },
+      total: (n) => { rowsTotal = n; progress.report(true) },
+      advance: (n) => { rowsDone += n; progress.report() },
     })
     await finished(out)
     const bytes = (await stat(file)).size
-    clearInterval(heartbeat)
-    await writes
+    await progress.stop()
     const done: { affectedRows: number } = await ds.query(
       `UPDATE business_export_jobs SET state = 'ready', running_slot = NULL, rows_total = ?, rows_done = ?, bytes = ?, finished_at = CURRENT_TIMESTAMP(3),
         expires_at = CURRENT_TIMESTAMP(3) + INTERVAL ? MICROSECOND WHERE id = ? AND state = 'running'`,
@@ -102,10 +84,9 @@ async function run(ds: DataSource, actor: AuditActor, lang: ReadmeLang, id: stri
     if (!done.affectedRows) return void (await removeFileOf(file))
     setTimeout(() => void removeFileOf(file), EXPORT_FILE_KEEP_MS).unref()
   } catch (err) {
-    clearInterval(heartbeat)
     out.destroy()
     log(err)
-    await writes
+    await progress.stop()
     await ds.query("UPDATE business_export_jobs SET state = 'failed', running_slot = NULL, finished_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'", [id]).catch(log)
     await removeFileOf(file)
   }

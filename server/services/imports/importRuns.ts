@@ -8,6 +8,7 @@ import { randomUUID } from 'node:crypto'
 import type { DataSource } from 'typeorm'
 import type { ErrorParams, Problem } from '../../../shared/errors/errorCodes.js'
 import type { DataImportKind, DataImportRun, DataImportRunStep } from '../../../shared/schemas/dataImports.js'
+import { failSilentRows, progressRow } from '../../db/progressRow.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { checksumOf, type ImportProgress } from './dataImports.js'
@@ -15,8 +16,6 @@ import { rowsInUpload } from './spreadsheetParser.js'
 import type { GuardedUpload } from './uploadGuard.js'
 
 const PROGRESS_WRITE_MS = 300
-const HEARTBEAT_MS = 5_000
-const SILENT_MS = 60_000
 /** How long a finished run's answer is offered to the page that lost it (a reload). */
 const KEEP_MS = 30 * 60_000
 /** How long a second check waits for the first one's answer. */
@@ -47,14 +46,9 @@ const viewOf = (r: RunRow): DataImportRun => ({
 const RUN_SQL = `SELECT id, kind, step, file_name, state, rows_total, rows_read, rows_checked, rows_written, answer, problem, started_at
   FROM data_import_runs`
 
-async function failSilentRuns(ds: DataSource): Promise<void> {
-  await ds.query(
-    `UPDATE data_import_runs SET state = 'failed', running_key = NULL, finished_at = CURRENT_TIMESTAMP(3),
-      problem = '{"status":500,"code":"import_run_lost","message":"The check stopped before it finished; check the file again."}'
-      WHERE state = 'running' AND heartbeat_at < CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND`,
-    [SILENT_MS * 1000],
-  )
-}
+/** A running check or commit whose process stopped beating (it crashed or was killed) reads as failed. */
+const LOST: StoredProblem = { status: 500, code: 'import_run_lost', message: 'The check stopped before it finished; check the file again.' }
+const failSilentRuns = (ds: DataSource) => failSilentRows(ds, 'data_import_runs', 'running_key = NULL, problem = ?', [JSON.stringify(LOST)])
 
 const problemOf = (err: unknown): StoredProblem | null =>
   err instanceof AppError ? { status: err.status, code: err.code, message: err.message, params: err.params, fields: err.fields } : null
@@ -101,28 +95,19 @@ export async function runImportStep<T>(
   if (!inserted.affectedRows) return followRun<T>(ds, key!)
 
   const counts = { read: 0, checked: 0, written: 0 }
-  let lastWrite = 0
-  let writes: Promise<unknown> = Promise.resolve()
-  const write = (sql: string, params: unknown[]) => (writes = writes.then(() => ds.query(sql, params)).catch(() => undefined))
-  const report = (force = false) => {
-    if (!force && Date.now() - lastWrite < PROGRESS_WRITE_MS) return
-    lastWrite = Date.now()
-    void write("UPDATE data_import_runs SET rows_read = ?, rows_checked = ?, rows_written = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'",
-      [counts.read, counts.checked, counts.written, id])
-  }
-  const heartbeat = setInterval(() => report(true), HEARTBEAT_MS)
-  heartbeat.unref()
+  const progress = progressRow(ds,
+    "UPDATE data_import_runs SET rows_read = ?, rows_checked = ?, rows_written = ?, heartbeat_at = CURRENT_TIMESTAMP(3) WHERE id = ? AND state = 'running'",
+    () => [counts.read, counts.checked, counts.written, id], PROGRESS_WRITE_MS)
   const finish = async (set: string, params: unknown[]) => {
-    clearInterval(heartbeat)
-    await writes
+    await progress.stop()
     await ds.query(`UPDATE data_import_runs SET ${set}, running_key = NULL, finished_at = CURRENT_TIMESTAMP(3), rows_read = ?, rows_checked = ?, rows_written = ? WHERE id = ?`,
       [...params, counts.read, counts.checked, counts.written, id])
   }
   try {
     const answer = await work({
-      read: (n) => { counts.read += n; report() },
-      checked: (n) => { counts.checked += n; report() },
-      written: (n) => { counts.written += n; report(true) },
+      read: (n) => { counts.read += n; progress.report() },
+      checked: (n) => { counts.checked += n; progress.report() },
+      written: (n) => { counts.written += n; progress.report(true) },
     })
     await finish("state = 'done', answer = ?", [JSON.stringify(answer)])
     return answer

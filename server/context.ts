@@ -7,6 +7,7 @@ import type { SignInThrottle } from './services/signInThrottle.js'
 import type { AuditActor } from './services/auditService.js'
 import type { PayProvider } from './services/payments/payProvider.js'
 import type { ProviderEventHandler } from './services/payments/paymentEvents.js'
+import type { Role } from '../shared/roles.js'
 import { AppError } from './errors.js'
 
 /** What every router gets: built once in app.ts. */
@@ -27,7 +28,10 @@ export interface AppContext {
   payEventHandlers: Partial<Record<string, ProviderEventHandler>>
 }
 
-export function actorOf(req: Request): AuditActor & { userId: number } {
+/** Who is signed in, as the session read them for this request: the audit trail's who, their name and roles. */
+export type SignedInActor = AuditActor & { userId: number; name: string; roles: readonly Role[] }
+
+export function actorOf(req: Request): SignedInActor {
   if (!req.user) throw AppError.unauthenticated()
-  return { userId: req.user.id, ip: req.ip ?? null }
+  return { userId: req.user.id, ip: req.ip ?? null, name: req.user.displayName, roles: req.user.roles }
 }

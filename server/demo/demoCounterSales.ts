@@ -44,7 +44,7 @@ export async function loadDemoCounterSales(em: EntityManager, ds: DataSource): P
   const alder = await em.findOneBy(Customer, { code: 'ALDERCREEK' })
   if (!alder || (await em.existsBy(Quote, { customerId: alder.id }))) return
   const clerk = await em.findOneByOrFail(User, { username: 'counter' })
-  const actor = { userId: clerk.id }
+  const actor = { userId: clerk.id, name: clerk.displayName, roles: clerk.roles }
   const crew = { userId: (await em.findOneByOrFail(User, { username: 'warehouse' })).id }
   const warehouse = await em.findOneByOrFail(Warehouse, { code: 'HRY' })
   const base = await em.findOne(Item, { where: { family: 'shower_base', madeToOrder: true }, order: { id: 'ASC' } })

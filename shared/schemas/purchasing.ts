@@ -116,8 +116,9 @@ export const poFromJobSchema = z.object({
 export type PoFromJobInput = z.infer<typeof poFromJobSchema>
 
 
+/** Changing a draft order, as the screen loaded it (`version`: a change saved meanwhile is refused). */
 export const poUpdateSchema = z.object({
-  version: seenVersionSchema.optional(),
+  version: seenVersionSchema,
   expectedDate: isoDate.nullish(),
   notes: optionalText(2000),
   lines: z
@@ -129,7 +130,8 @@ export type PoUpdateInput = z.infer<typeof poUpdateSchema>
 
 export const poReasonSchema = z.object({ reason: optionalText(200) })
 
-export const poApproveSchema = z.object({ version: seenVersionSchema.optional() })
+/** Approving the order the screen showed (`version`): an order changed meanwhile is not approved unseen. */
+export const poApproveSchema = z.object({ version: seenVersionSchema })
 
 export const poSendSchema = z.object({
   /** Defaults to the vendor's e-mail. */

@@ -111,6 +111,21 @@ describe('a draft seen in two places', () => {
     expect(tabB.body.error.code).toBe('changed_meanwhile')
     expect((await buyer.get(`/api/purchase-orders/${seen.id}`)).body.lines[0].packsOrdered).toBe(2)
   })
+
+  it('refuses an edit or an approval that does not say which version it was made on (400), writing nothing', async () => {
+    const buyer = await h.as('buyer')
+    const seen = await draft()
+    const edit = await buyer.patch(`/api/purchase-orders/${seen.id}`).set(CSRF).send({ lines: [{ id: seen.lines[0].id, packsOrdered: 6 }] })
+    expect(edit.status).toBe(400)
+    expect(edit.body.error.fields.version).toBeTruthy()
+    const approve = await buyer.post(`/api/purchase-orders/${seen.id}/approve`).set(CSRF).send({})
+    expect(approve.status).toBe(400)
+    expect(approve.body.error.fields.version).toBeTruthy()
+    const [row] = await h.ds.query('SELECT status, version FROM purchase_orders WHERE id = ?', [seen.id])
+    expect(row.status).toBe('draft')
+    expect(Number(row.version)).toBe(seen.version)
+    expect((await buyer.get(`/api/purchase-orders/${seen.id}`)).body.lines[0].packsOrdered).toBe(1)
+  })
 })
 
 describe('totals too large for their column', () => {
@@ -124,7 +139,7 @@ describe('totals too large for their column', () => {
     const ok = await buyer.post('/api/purchase-orders').set(CSRF)
       .send({ vendorId: f.vendorB, warehouseId: f.otherWarehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 1, unitCost: '99999999.9999' }] })
     expect(ok.status).toBe(201)
-    const grow = await buyer.patch(`/api/purchase-orders/${ok.body.id}`).set(CSRF).send({ lines: [{ id: ok.body.lines[0].id, packsOrdered: 100_000 }] })
+    const grow = await buyer.patch(`/api/purchase-orders/${ok.body.id}`).set(CSRF).send({ version: ok.body.version, lines: [{ id: ok.body.lines[0].id, packsOrdered: 100_000 }] })
     expect(grow.status).toBe(409)
     expect(grow.body.error.code).toBe('order_total_too_large')
     expect((await buyer.get(`/api/purchase-orders/${ok.body.id}`)).body.lines[0].packsOrdered).toBe(1)

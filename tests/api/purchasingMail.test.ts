@@ -31,7 +31,7 @@ async function approvedPo(vendorId = f.vendorA, itemId = f.sealant.id): Promise<
   const buyer = await h.as('buyer')
   const res = await buyer.post('/api/purchase-orders').set(CSRF).send({ vendorId, warehouseId: f.warehouse.id, lines: [{ itemId, packsOrdered: 2 }] })
   expect(res.status, JSON.stringify(res.body)).toBe(201)
-  return (await buyer.post(`/api/purchase-orders/${res.body.id}/approve`).set(CSRF)).body
+  return (await buyer.post(`/api/purchase-orders/${res.body.id}/approve`).set(CSRF).send({ version: res.body.version })).body
 }
 
 describe('e-mail to the vendor', () => {

@@ -120,7 +120,7 @@ describe('the status life of a PO', () => {
   it('draft → approved → sent → closed, each with who and when and an audit entry; drafts only are edited', async () => {
     const buyer = await h.as('buyer')
     const po = await manualPo([{ itemId: f.sealant.id, packsOrdered: 2 }])
-    const edited = await buyer.patch(`/api/purchase-orders/${po.id}`).set(CSRF).send({ expectedDate: '2031-05-04', notes: 'Call before delivery', lines: [{ id: po.lines[0].id, packsOrdered: 4 }] })
+    const edited = await buyer.patch(`/api/purchase-orders/${po.id}`).set(CSRF).send({ version: po.version, expectedDate: '2031-05-04', notes: 'Call before delivery', lines: [{ id: po.lines[0].id, packsOrdered: 4 }] })
     expect(edited.status).toBe(200)
     expect(edited.body).toMatchObject({ expectedDate: '2031-05-04', notes: 'Call before delivery' })
     expect(edited.body.lines[0]).toMatchObject({ packsOrdered: 4, qtyOrdered: 48, lineTotal: '300.00' }) // 48 × 6.25
@@ -128,11 +128,11 @@ describe('the status life of a PO', () => {
 
     const warehouse = await h.as('warehouse')
     expect((await warehouse.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(403)
-    const approved = await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)
+    const approved = await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: edited.body.version })
     expect(approved.status).toBe(200)
     expect(approved.body.status).toBe('approved')
-    expect((await buyer.patch(`/api/purchase-orders/${po.id}`).set(CSRF).send({ notes: 'late edit' })).status).toBe(409)
-    expect((await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(409)
+    expect((await buyer.patch(`/api/purchase-orders/${po.id}`).set(CSRF).send({ version: approved.body.version, notes: 'late edit' })).status).toBe(409)
+    expect((await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: approved.body.version })).status).toBe(409)
     const sent = await buyer.post(`/api/purchase-orders/${po.id}/mark-sent`).set(CSRF)
     expect(sent.body.status).toBe('sent')
     const closed = await buyer.post(`/api/purchase-orders/${po.id}/close`).set(CSRF).send({ reason: 'Vendor discontinued the tube size' })
@@ -158,13 +158,13 @@ describe('the status life of a PO', () => {
     expect(removed.body.orderTotal).toBe('120.00') // 48 × 2.50 (minimum 48)
     const [back] = await h.ds.query('SELECT status, po_line_id FROM purchase_suggestions WHERE id = ?', [s2])
     expect(back).toEqual({ status: 'accepted', po_line_id: null })
-    await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)
+    await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: removed.body.version })
     const cancelled = await buyer.post(`/api/purchase-orders/${po.id}/cancel`).set(CSRF).send({ reason: 'Ordered by phone instead' })
     expect(cancelled.body.status).toBe('cancelled')
     expect(cancelled.body.cancelReason).toBe('Ordered by phone instead')
     const [first] = await h.ds.query('SELECT status, po_line_id FROM purchase_suggestions WHERE id = ?', [s1])
     expect(first).toEqual({ status: 'accepted', po_line_id: null })
-    expect((await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(409)
+    expect((await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: cancelled.body.version })).status).toBe(409)
   })
 
   it('on cancel, joins a suggestion accepted meanwhile for the same item and warehouse instead of opening a second one', async () => {

@@ -22,7 +22,7 @@ async function sentPo(lines: { itemId: number; packsOrdered: number }[]): Promis
   const buyer = await h.as('buyer')
   const created = await buyer.post('/api/purchase-orders').set(CSRF).send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines })
   expect(created.status, JSON.stringify(created.body)).toBe(201)
-  await buyer.post(`/api/purchase-orders/${created.body.id}/approve`).set(CSRF)
+  await buyer.post(`/api/purchase-orders/${created.body.id}/approve`).set(CSRF).send({ version: created.body.version })
   const sent = await buyer.post(`/api/purchase-orders/${created.body.id}/mark-sent`).set(CSRF)
   expect(sent.body.status).toBe('sent')
   return sent.body
@@ -138,7 +138,7 @@ describe('receiving a PO', () => {
     const { jobId } = await jobWithShowerBase(h.ds, f, '2031-02-01')
     const buyer = await h.as('buyer')
     const [po] = (await buyer.post('/api/purchase-orders/from-job').set(CSRF).send({ jobId, warehouseId: f.warehouse.id, vendorId: f.vendorA })).body as PoDetail[]
-    await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)
+    await buyer.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: po.version })
     await buyer.post(`/api/purchase-orders/${po.id}/mark-sent`).set(CSRF)
     const res = await post(po.id, { lines: [{ poLineId: po.lines[0].id, binId: f.warehouse.bins.dock, qty: 1 }] })
     expect(res.status, JSON.stringify(res.body)).toBe(201)

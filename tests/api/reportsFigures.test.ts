@@ -36,8 +36,8 @@ async function deliveredPo(sent: string, expected: string, received: string): Pr
   const created = await admin.post('/api/purchase-orders').set(CSRF)
     .send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 1 }] })
   expect(created.status).toBe(201)
-  const po = created.body as { id: number; lines: { id: number }[] }
-  expect((await admin.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(200)
+  const po = created.body as { id: number; version: number; lines: { id: number }[] }
+  expect((await admin.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: po.version })).status).toBe(200)
   expect((await admin.post(`/api/purchase-orders/${po.id}/mark-sent`).set(CSRF)).status).toBe(200)
   const res = await admin.post(`/api/purchase-orders/${po.id}/receipts`).set(CSRF).send({ lines: [{ poLineId: po.lines[0].id, binId: f.warehouse.bins.a1, qty: 12 }] })
   expect(res.status).toBe(201)

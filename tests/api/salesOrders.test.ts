@@ -8,7 +8,7 @@ import type supertest from 'supertest'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { countRows, insertId } from '../support/fixtureRows.js'
 import { receive } from '../support/pickFixtures.js'
-import { vendor, vendorItem } from '../support/purchasingFixtures.js'
+import { approveAsShown, vendor, vendorItem } from '../support/purchasingFixtures.js'
 import { billFor, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
 
 let h: ApiHarness
@@ -131,7 +131,7 @@ describe('deposit before the special order goes out', () => {
   it('the PO is approved but refused as sent while the deposit is unpaid (409 deposit_not_paid)', async () => {
     const [row]: { po_id: number }[] = await h.ds.query('SELECT pl.po_id FROM sales_order_lines sl JOIN purchase_order_lines pl ON pl.id = sl.po_line_id WHERE sl.sales_order_id = ?', [orderId])
     poId = row.po_id
-    expect((await buyer.post(`/api/purchase-orders/${poId}/approve`).set(CSRF).send({})).status).toBe(200)
+    expect((await approveAsShown(buyer, poId)).status).toBe(200)
     const refused = await buyer.post(`/api/purchase-orders/${poId}/mark-sent`).set(CSRF).send({})
     expect(refused.status).toBe(409)
     expect(refused.body.error).toMatchObject({ code: 'deposit_not_paid', params: { required: '380.38', paid: '0.00' } })

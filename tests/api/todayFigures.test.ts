@@ -35,7 +35,7 @@ async function order(status: 'approved' | 'sent', expected: string, sentAt?: Dat
     .send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 1 }] })
   expect(created.status, JSON.stringify(created.body)).toBe(201)
   const id = (created.body as { id: number }).id
-  expect((await admin.post(`/api/purchase-orders/${id}/approve`).set(CSRF)).status).toBe(200)
+  expect((await admin.post(`/api/purchase-orders/${id}/approve`).set(CSRF).send({ version: created.body.version })).status).toBe(200)
   if (status === 'sent') expect((await admin.post(`/api/purchase-orders/${id}/mark-sent`).set(CSRF)).status).toBe(200)
   await h.ds.query('UPDATE purchase_orders SET expected_date = ?, sent_at = COALESCE(?, sent_at) WHERE id = ?', [expected, sentAt ?? null, id])
   return id

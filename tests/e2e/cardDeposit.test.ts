@@ -18,7 +18,7 @@ import { axeFindings, blocking, describeFindings } from '../support/axeCheck.js'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
 import { sidewaysScroll } from '../support/layoutChecks.js'
 import { signedInAgent } from '../support/pickFixtures.js'
-import { vendor, vendorItem } from '../support/purchasingFixtures.js'
+import { approveAsShown, vendor, vendorItem } from '../support/purchasingFixtures.js'
 import { bookedOrder, createSalesFixture, type SalesFixture } from '../support/salesFixtures.js'
 import { TEST_HASH_COST } from '../support/testHashCost.js'
 
@@ -78,7 +78,7 @@ describe('card deposit on the sales order screen', () => {
     const { orderId } = await freshOrder()
     const [{ po_id: poId }]: { po_id: number }[] = await h.ds.query(
       'SELECT pl.po_id FROM sales_order_lines sl JOIN purchase_order_lines pl ON pl.id = sl.po_line_id WHERE sl.sales_order_id = ?', [orderId])
-    expect((await buyer.post(`/api/purchase-orders/${poId}/approve`).set(CSRF).send({})).status).toBe(200)
+    expect((await approveAsShown(buyer, poId)).status).toBe(200)
     const { page, context } = await h.newPage()
     try {
       await h.signIn(page, 'counter')

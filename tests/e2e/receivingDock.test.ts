@@ -31,7 +31,7 @@ async function order(): Promise<number> {
     ],
   })
   expect(res.status, JSON.stringify(res.body)).toBe(201)
-  expect((await buyer.post(`/api/purchase-orders/${res.body.id}/approve`).set(CSRF)).status).toBe(200)
+  expect((await buyer.post(`/api/purchase-orders/${res.body.id}/approve`).set(CSRF).send({ version: res.body.version })).status).toBe(200)
   return res.body.id
 }
 

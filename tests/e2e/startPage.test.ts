@@ -25,7 +25,7 @@ beforeAll(async () => {
     const res = await admin.post('/api/purchase-orders').set(CSRF).send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 1 }] })
     expect(res.status).toBe(201)
     const id = (res.body as { id: number }).id
-    expect((await admin.post(`/api/purchase-orders/${id}/approve`).set(CSRF)).status).toBe(200)
+    expect((await admin.post(`/api/purchase-orders/${id}/approve`).set(CSRF).send({ version: res.body.version })).status).toBe(200)
     if (send) expect((await admin.post(`/api/purchase-orders/${id}/mark-sent`).set(CSRF)).status).toBe(200)
     await h.ds.query('UPDATE purchase_orders SET expected_date = ? WHERE id = ?', [expected, id])
   }

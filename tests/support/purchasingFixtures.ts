@@ -1,8 +1,10 @@
 // Purchasing fixtures written straight into the tables (the catalog and counter APIs are other
 // features'), each named with a fresh tag so test files and reruns never collide.
 import { randomInt } from 'node:crypto'
+import type supertest from 'supertest'
 import type { DataSource } from 'typeorm'
 import { withCheckDigit } from '../../shared/barcode/checkDigit.js'
+import { CSRF } from './apiHarness.js'
 import { countRows, insertId, tagOf } from './fixtureRows.js'
 
 export { insertId, tagOf }
@@ -123,4 +125,10 @@ export async function jobWithShowerBase(ds: DataSource, f: PurchasingFixture, du
 
 export async function count(ds: DataSource, table: string): Promise<number> {
   return countRows(ds, table)
+}
+
+/** Approves an order as its screen does: with the version the screen read (an approval without one is refused). */
+export async function approveAsShown(agent: supertest.Agent, poId: number): Promise<supertest.Response> {
+  const shown = await agent.get(`/api/purchase-orders/${poId}`)
+  return agent.post(`/api/purchase-orders/${poId}/approve`).set(CSRF).send({ version: shown.body.version })
 }

@@ -8,7 +8,6 @@ import { Bom, BomLine } from '../../entities/Bom.js'
 import { Job } from '../../entities/Customer.js'
 import { Item } from '../../entities/Item.js'
 import { Quote, QuoteLine } from '../../entities/Quote.js'
-import { User } from '../../entities/User.js'
 import { addDays } from '../../../shared/reports/zonedDays.js'
 import { noChargeRefusals } from '../../../shared/pricing/noCharge.js'
 import type { PriceExplanation } from '../../../shared/pricing/sellingPrice.js'
@@ -24,7 +23,8 @@ import { quoteDetail } from './quoteRead.js'
 /** How long a quote holds when the clerk gives no date (common practice: 30 days). */
 export const DEFAULT_VALID_DAYS = 30
 
-type Actor = AuditActor & { userId: number }
+/** The signed-in pricer: the name signed on an own price, and the roles that decide what they may set. */
+type Actor = AuditActor & { userId: number; name: string; roles: readonly Role[] }
 
 /** Locks the quote for a change; with `seenVersion` (what the screen loaded), a save made meanwhile is refused. */
 export function lockQuote(em: EntityManager, id: number, seenVersion?: number): Promise<Quote> {
@@ -40,12 +40,6 @@ export function ensureQuote(action: QuoteAction, quote: Pick<Quote, 'status' | '
   if (!canQuote(action, status)) {
     throw AppError.conflict('quote_wrong_status', `A quote that is ${status} cannot be changed that way (${action}).`, { params: { quoteStatus: status } })
   }
-}
-
-/** Who sets the prices: the name signed on an own price, and the roles that decide what they may set. */
-async function pricer(em: EntityManager, actor: Actor): Promise<{ name: string; roles: readonly Role[] }> {
-  const user = await em.findOneBy(User, { id: actor.userId })
-  return { name: user?.displayName ?? `user ${actor.userId}`, roles: user?.roles ?? [] }
 }
 
 /** An own price the quote already carries, per item: a line that repeats it keeps it as it stands, its author too. */
@@ -86,7 +80,7 @@ function ensureNoChargeAllowed(lines: readonly QuoteLineInput[], roles: readonly
 
 /** Prices the lines and writes them and the quote's totals (replacing any lines it had). */
 async function writePricedLines(em: EntityManager, actor: Actor, quote: Quote, lines: readonly QuoteLineInput[], standing: Standing = new Map()): Promise<void> {
-  const { name, roles } = await pricer(em, actor)
+  const { name, roles } = actor
   ensureNoChargeAllowed(lines, roles, standing)
   // An own price signs with who set it: its first author while it stands unchanged, else whoever writes it now.
   const by = (l: QuoteLineInput) => repeated(l, standing)?.by || name

@@ -1,6 +1,7 @@
 // A business's own data coming in (opening stock and the kinds that follow): templates, a check that
 // writes nothing, the commit, the list of what was imported, and reversing an import as a whole.
 // Administrators only: these write the whole business's stock and records at once.
+import { z } from 'zod'
 import { ADMIN_ONLY } from '../../shared/roles.js'
 import { isDataImportKind, type DataImportKind } from '../../shared/schemas/dataImports.js'
 import { actorOf, type AppContext } from '../context.js'
@@ -8,12 +9,16 @@ import { AppError } from '../errors.js'
 import { sendXlsx } from '../http/fileResponse.js'
 import { defineRoutes } from '../http/routeTable.js'
 import { receiveUpload } from '../http/upload.js'
-import { idParam } from '../http/validate.js'
+import { idParam, parseQuery } from '../http/validate.js'
 import { commitImport, listImports, previewImport, reverseImport } from '../services/imports/dataImports.js'
+import { problemPage } from '../services/imports/importProblems.js'
 import { currentImportRun, runImportStep } from '../services/imports/importRuns.js'
 import { DATA_IMPORTS, dataImportTemplate } from '../services/imports/dataImportKinds.js'
 
 const admin = { roles: ADMIN_ONLY }
+
+/** A page of a check's problems: from `offset`, of one `column` when given ('' for the row as a whole). */
+const problemPageQuery = z.object({ offset: z.coerce.number().int().min(0).max(10_000_000).default(0), column: z.string().max(80).optional() })
 
 function kindOf(value: string | string[] | undefined): DataImportKind {
   const kind = Array.isArray(value) ? value[0] : value
@@ -26,6 +31,13 @@ export default (ctx: AppContext) =>
     { method: 'get', path: '/', access: admin, handler: () => listImports(ctx.ds) },
     // The signed-in person's latest check or commit: how far it has got, and its answer once done (after a reload too).
     { method: 'get', path: '/runs/current', access: admin, handler: async (req) => ({ run: await currentImportRun(ctx.ds, req.user!.id) }) },
+    {
+      method: 'get', path: '/runs/:id/problems', access: admin,
+      handler: (req) => {
+        const q = parseQuery(problemPageQuery, req.query)
+        return problemPage(ctx.ds, req.user!.id, String(req.params.id), q.offset, q.column)
+      },
+    },
     {
       method: 'get', path: '/:kind/template.xlsx', access: admin,
       handler: async (req, res) => {

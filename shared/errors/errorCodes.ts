@@ -472,6 +472,7 @@ export const ERROR_CODES = {
   import_nothing_to_write: [],
   import_not_found: [],
   import_run_lost: [],
+  import_run_not_found: [],
   import_already_reversed: [],
   import_touched: ['sku', 'warehouse'],
   import_kind_unknown: [],

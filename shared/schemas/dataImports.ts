@@ -46,8 +46,14 @@ export interface DataImportPreview {
   /** Rows read but with nothing to write (a zero quantity). */
   skipped: number
   errorRows: number
-  /** Rows with problems first (up to 1,000), then a sample of good rows. */
+  /** The rows whose problems make the first page (see PROBLEM_PAGE), then a sample of good rows. */
   rows: DataImportRow[]
+  /** Every problem found (a row may have several), each kept on the server for paging. */
+  problems: number
+  /** The problems by column (null: the row as a whole), for filtering the pages. */
+  problemColumns: DataImportProblemColumn[]
+  /** The run whose problems the pages read (GET /imports/runs/:id/problems); null when none were kept. */
+  problemRun: string | null
   /** The same file was committed before (and not reversed): committing it again changes nothing. */
   repeatOf: DataImportRecord | null
 }
@@ -56,6 +62,29 @@ export interface DataImportResult extends DataImportPreview {
   record: DataImportRecord
   /** True when this commit found the file already imported and wrote nothing. */
   repeated: boolean
+}
+
+/** Problems per page, on the server and on the page. */
+export const PROBLEM_PAGE = 50
+
+export interface DataImportProblemColumn {
+  column: string | null
+  count: number
+}
+
+/** One problem of one row, as the pages list them. */
+export interface DataImportProblem {
+  row: number
+  label: string | null
+  column: string | null
+  problem: Problem
+}
+
+/** A page of a check's problems (all, or one column's) and how many there are in all. */
+export interface DataImportProblemPage {
+  total: number
+  offset: number
+  problems: DataImportProblem[]
 }
 
 export type DataImportRunStep = 'preview' | 'commit'

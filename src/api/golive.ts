@@ -2,7 +2,7 @@
 // history and reversal, and the whole-business export. Uploads and the export report their progress.
 import { z } from 'zod'
 import { okShape } from '@shared/schemas/answers/changes'
-import { currentDataImportRunShape, dataImportPreviewShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
+import { currentDataImportRunShape, dataImportPreviewShape, dataImportProblemPageShape, dataImportRecordShape, dataImportResultShape } from '@shared/schemas/answers/dataImports'
 import type { DataImportKind, DataImportPreview, DataImportResult } from '@shared/schemas/dataImports'
 import { setupStateSchema } from '@shared/schemas/setup'
 import { currentExportJobShape, exportJobShape } from '@shared/schemas/answers/businessExport'
@@ -23,6 +23,12 @@ export const goliveApi = {
   importTemplate: (kind: DataImportKind) => download(`/imports/${kind}/template.xlsx`),
   /** The signed-in person's latest check or commit: how far it has got, its answer once done. */
   currentImportRun: () => api.get('/imports/runs/current', { answer: currentDataImportRunShape }),
+  /** A page of a check's problems from `offset`; of one column when `column` is given (null: the row as a whole). */
+  importProblems: (runId: string, offset: number, column?: string | null) => {
+    const q = new URLSearchParams({ offset: String(offset) })
+    if (column !== undefined) q.set('column', column ?? '')
+    return api.get(`/imports/runs/${encodeURIComponent(runId)}/problems?${q}`, { answer: dataImportProblemPageShape })
+  },
   /** Starts everything out on the server, or answers the export already running. */
   startExport: () => api.post('/business-export/jobs', {}, { answer: exportJobShape }),
   currentExport: () => api.get('/business-export/jobs/current', { answer: currentExportJobShape }),

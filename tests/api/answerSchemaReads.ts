@@ -53,6 +53,7 @@ export interface Read {
  * needs the payment provider's fake), by route and the test that does it. */
 export const CHECKED_ELSEWHERE: Record<string, string> = {
   'GET /api/sales-orders/:id/card-deposits/:paymentId': 'tests/api/cardDepositFollow.test.ts (cardDepositStateShape.parse)',
+  'GET /api/imports/runs/:id/problems': 'tests/api/importProblems.test.ts (dataImportProblemPageShape.parse)',
 }
 
 /** Answers that are files (spreadsheets, PDFs, images), not JSON; and the health probe, read by machines. */

@@ -63,6 +63,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   // Bringing a business's own data in (opening stock, …): administrators only.
   'GET /api/imports': { access: ['admin'] },
   'GET /api/imports/runs/current': { access: ['admin'] },
+  'GET /api/imports/runs/:id/problems': { access: ['admin'] },
   'GET /api/imports/:kind/template.xlsx': { access: ['admin'] },
   'POST /api/imports/:kind/preview': { access: ['admin'] },
   'POST /api/imports/:kind/commit': { access: ['admin'] },

@@ -5,10 +5,11 @@
 // stands changes nothing; a kind that can, reverses an import as a whole.
 import { createHash } from 'node:crypto'
 import type { DataSource, EntityManager } from 'typeorm'
-import type { DataImportKind, DataImportPreview, DataImportRecord, DataImportResult, DataImportRow } from '../../../shared/schemas/dataImports.js'
+import { PROBLEM_PAGE, type DataImportKind, type DataImportPreview, type DataImportRecord, type DataImportResult, type DataImportRow } from '../../../shared/schemas/dataImports.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import type { ProblemStore } from './importProblems.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 import { readSpreadsheetInChunks } from './spreadsheetParser.js'
 import type { GuardedUpload } from './uploadGuard.js'
@@ -40,6 +41,8 @@ export interface ImportProgress {
   read(rows: number): void
   checked(rows: number): void
   written(rows: number): void
+  /** Where every problem found is kept, for the pages of the run `runId`; without it only the first page is. */
+  problems?: ProblemStore & { runId: string }
 }
 
 export const checksumOf = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')
@@ -75,31 +78,48 @@ export async function listImports(ds: DataSource): Promise<DataImportRecord[]> {
   return rows.map(toRecord)
 }
 
-/** Rows of the answer: the first rows with problems, then the first good ones (the counts cover every row). */
-const SHOWN_BAD = 1000
-const SHOWN_GOOD = 100
+/** Good rows the answer shows as a sample (the counts cover every row). */
+const SHOWN_GOOD = 20
 
-/** The counts of a pass over a file, and the few rows the answer shows: nothing else of a row is kept. */
-function tally() {
+/**
+ * The counts of a pass over a file, its problems by column, and the few rows the answer shows (those of the
+ * first page of problems, then a sample of good rows). Every problem goes to `keep`, a chunk at a time, for the
+ * later pages; nothing else of a row is kept.
+ */
+function tally(keep?: ImportProgress['problems']) {
   const bad: DataImportRow[] = []
+  let shownProblems = 0
   const good: DataImportRow[] = []
   const counts = { total: 0, ready: 0, skipped: 0, errorRows: 0 }
+  let problems = 0
+  const columns = new Map<string | null, number>()
   return {
     counts,
-    add<W>(checked: readonly CheckedRow<W>[]) {
+    async add<W>(checked: readonly CheckedRow<W>[]) {
+      const found: DataImportRow[] = []
       for (const c of checked) {
         counts.total++
         if (c.preview.errors.length) {
           counts.errorRows++
-          if (bad.length < SHOWN_BAD) bad.push(c.preview)
+          problems += c.preview.errors.length
+          for (const e of c.preview.errors) columns.set(e.column, (columns.get(e.column) ?? 0) + 1)
+          if (shownProblems < PROBLEM_PAGE) {
+            bad.push(c.preview)
+            shownProblems += c.preview.errors.length
+          }
+          found.push(c.preview)
           continue
         }
         if (c.write === null) counts.skipped++
         else counts.ready++
         if (good.length < SHOWN_GOOD) good.push(c.preview)
       }
+      if (keep && found.length) await keep.add(found)
     },
-    preview: (kind: DataImportKind, filename: string, repeatOf: DataImportRecord | null): DataImportPreview => ({ kind, filename, ...counts, rows: [...bad, ...good], repeatOf }),
+    preview: (kind: DataImportKind, filename: string, repeatOf: DataImportRecord | null): DataImportPreview => ({
+      kind, filename, ...counts, rows: [...bad, ...good], problems,
+      problemColumns: [...columns].map(([column, count]) => ({ column, count })), problemRun: keep && problems ? keep.runId : null, repeatOf,
+    }),
   }
 }
 
@@ -108,7 +128,7 @@ function tally() {
  * (the whole file at once only for a kind that has no chunk checker); `seen` takes each chunk's checked rows.
  */
 async function checkUpload<W>(
-  em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => void, progress?: ImportProgress,
+  em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => Promise<void>, progress?: ImportProgress,
 ): Promise<void> {
   if (def.chunkChecker) {
     const check = def.chunkChecker(em)
@@ -116,7 +136,7 @@ async function checkUpload<W>(
       progress?.read(part.rows.length)
       const checked = await check(part)
       progress?.checked(checked.length)
-      seen(checked)
+      await seen(checked)
     })
     return
   }
@@ -128,11 +148,11 @@ async function checkUpload<W>(
   })
   const checked = await def.check(em, whole)
   progress?.checked(checked.length)
-  seen(checked)
+  await seen(checked)
 }
 
 export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress): Promise<DataImportPreview> {
-  const seen = tally()
+  const seen = tally(progress?.problems)
   await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked), progress)
   const repeatOf = await liveRecord(ds.manager, def.kind, checksumOf(upload.data))
   return seen.preview(def.kind, upload.filename, repeatOf)
@@ -153,10 +173,10 @@ export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: Da
     }
     const importId = inserted.insertId
     // Of each checked row only what the commit writes is kept (and the counts, and the rows the answer shows).
-    const seen = tally()
+    const seen = tally(progress?.problems)
     const writes: W[] = []
-    await checkUpload(em, def, upload, (checked) => {
-      seen.add(checked)
+    await checkUpload(em, def, upload, async (checked) => {
+      await seen.add(checked)
       for (const c of checked) if (c.write !== null && !c.preview.errors.length) writes.push(c.write)
     }, progress)
     const summary = seen.preview(def.kind, upload.filename, null)

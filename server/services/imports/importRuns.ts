@@ -12,6 +12,7 @@ import { failSilentRows, progressRow } from '../../db/progressRow.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { checksumOf, type ImportProgress } from './dataImports.js'
+import { problemStore } from './importProblems.js'
 import { rowsInUpload } from './spreadsheetParser.js'
 import type { GuardedUpload } from './uploadGuard.js'
 
@@ -82,7 +83,8 @@ export async function runImportStep<T>(
   const userId = actor.userId
   if (userId === null) return work({ read: () => undefined, checked: () => undefined, written: () => undefined })
   await failSilentRuns(ds)
-  await ds.query('DELETE FROM data_import_runs WHERE user_id = ? AND state <> \'running\' AND started_at < CURRENT_TIMESTAMP(3) - INTERVAL 1 DAY', [userId])
+  // Old runs go with the problems they kept (ON DELETE CASCADE), whoever ran them.
+  await ds.query('DELETE FROM data_import_runs WHERE state <> \'running\' AND started_at < CURRENT_TIMESTAMP(3) - INTERVAL 1 DAY')
   const checksum = checksumOf(upload.data)
   // Only a check is followed: two commits of one file meet at the import's own record, which writes once.
   const key = step === 'preview' ? `${userId}:${kind}:${checksum}` : null
@@ -108,6 +110,7 @@ export async function runImportStep<T>(
       read: (n) => { counts.read += n; progress.report() },
       checked: (n) => { counts.checked += n; progress.report() },
       written: (n) => { counts.written += n; progress.report(true) },
+      problems: { runId: id, ...problemStore(ds, id) },
     })
     await finish("state = 'done', answer = ?", [JSON.stringify(answer)])
     return answer

@@ -2,7 +2,7 @@
 // (satisfies): the client checks answers with them (src/api), and tests/api/answerSchemas.test.ts holds them to the server.
 import { z } from 'zod'
 import { DATA_IMPORT_KINDS } from '../dataImports.js'
-import type { CurrentDataImportRun, DataImportKind, DataImportRecord, DataImportRow, DataImportPreview, DataImportResult, DataImportRun } from '../dataImports.js'
+import type { CurrentDataImportRun, DataImportKind, DataImportProblemPage, DataImportRecord, DataImportRow, DataImportPreview, DataImportResult, DataImportRun } from '../dataImports.js'
 import { errorParamsShape, rowProblemShape } from './terms.js'
 
 const dataImportKindShape = z.enum(DATA_IMPORT_KINDS) satisfies z.ZodType<DataImportKind>
@@ -37,6 +37,9 @@ export const dataImportPreviewShape = z.object({
   skipped: z.number(),
   errorRows: z.number(),
   rows: z.array(dataImportRowShape),
+  problems: z.number(),
+  problemColumns: z.array(z.object({ column: z.string().nullable(), count: z.number() })),
+  problemRun: z.string().nullable(),
   repeatOf: dataImportRecordShape.nullable()
 }) satisfies z.ZodType<DataImportPreview>
 
@@ -74,3 +77,9 @@ const dataImportRunShape = z.object({
 }) satisfies z.ZodType<DataImportRun>
 
 export const currentDataImportRunShape = z.object({ run: dataImportRunShape.nullable() }) satisfies z.ZodType<CurrentDataImportRun>
+
+export const dataImportProblemPageShape = z.object({
+  total: z.number(),
+  offset: z.number(),
+  problems: z.array(z.object({ row: z.number(), label: z.string().nullable(), column: z.string().nullable(), problem: rowProblemShape.shape.problem })),
+}) satisfies z.ZodType<DataImportProblemPage>

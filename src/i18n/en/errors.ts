@@ -414,6 +414,7 @@ export default {
   import_nothing_to_write: 'The file holds no rows to import; nothing was imported.',
   import_not_found: 'That import was not found.',
   import_run_lost: 'The check stopped before it finished; check the file again.',
+  import_run_not_found: 'That check is no longer kept; check the file again.',
   import_already_reversed: 'This import was already reversed.',
   import_touched: 'Stock of {sku} in {warehouse} has moved since the import, so it can no longer be reversed as a whole.',
   import_kind_unknown: 'There is no such import.',

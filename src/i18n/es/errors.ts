@@ -413,6 +413,7 @@ export default {
   import_nothing_to_write: 'El archivo no tiene filas para importar; no se importó nada.',
   import_not_found: 'No se encontró esa importación.',
   import_run_lost: 'La revisión se detuvo antes de terminar; revise el archivo de nuevo.',
+  import_run_not_found: 'Esa revisión ya no se conserva; revise el archivo de nuevo.',
   import_already_reversed: 'Esta importación ya se revirtió.',
   import_touched: 'La existencia de {sku} en {warehouse} se movió después de la importación; ya no se puede revertir completa.',
   import_kind_unknown: 'No existe esa importación.',

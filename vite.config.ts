@@ -6,6 +6,7 @@ import Components from 'unplugin-vue-components/vite'
 import { ElementPlusResolver } from 'unplugin-vue-components/resolvers'
 import { compression } from 'vite-plugin-compression2'
 import { answerChecksOutOfProduction } from './scripts/answerChecks'
+import { precompiledMessages } from './scripts/precompiledMessages'
 import { routePreloads } from './scripts/routePreloads'
 
 /** The frameworks every page runs: the parts of them the entry imports go into one file, loaded with the entry. */
@@ -26,9 +27,11 @@ const GRID = /[\\/]node_modules[\\/](ag-grid-community|ag-grid-vue3|ag-stack|@ag
 const sharedDir = fileURLToPath(new URL('./shared/', import.meta.url))
 
 // Element Plus is imported on demand (components and their styles) through the resolvers.
-export default defineConfig({
+export default defineConfig(({ command }) => ({
   plugins: [
     vue(),
+    // The messages arrive compiled (every build, the browser tests' too): the client runs without vue-i18n's compiler.
+    precompiledMessages(),
     // route-preloads.json: each page's files, named in its HTML by the server (server/http/pagePreloads.ts).
     routePreloads(),
     // The answers' schemas stay out of the production client (answers are checked in development and tests only).
@@ -39,6 +42,12 @@ export default defineConfig({
     // The test run's build leaves them out (LUMENYARD_PRECOMPRESS=0): it saves the suite several seconds.
     ...(process.env.LUMENYARD_PRECOMPRESS === '0' ? [] : [compression({ algorithms: ['gzip', 'brotliCompress'], threshold: 1024 })]),
   ],
+  // vue-i18n's build flags: a build leaves out its message compiler (the messages come compiled, above) and its
+  // legacy API (the app uses the composition API only); the development server keeps both.
+  define:
+    command === 'build'
+      ? { __INTLIFY_DROP_MESSAGE_COMPILER__: 'true', __VUE_I18N_LEGACY_API__: 'false', __VUE_I18N_FULL_INSTALL__: 'true', __INTLIFY_PROD_DEVTOOLS__: 'false' }
+      : {},
   resolve: {
     alias: {
       '@': fileURLToPath(new URL('./src', import.meta.url)),
@@ -74,4 +83,4 @@ export default defineConfig({
       },
     },
   },
-})
+}))

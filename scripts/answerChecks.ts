@@ -6,7 +6,11 @@
 // the first page shows. In a production build this step gives each of those schemas `undefined` instead before
 // anything else reads the module, so the imports go unused and the bundler leaves them out. Request schemas, which
 // forms check before they send, are untouched: they are imported by the forms, not named as an answer.
+// A step rather than a test of `import.meta.env` at each of the some 230 calls: that would repeat the condition in
+// every call and give each answer the type `schema | undefined`. The step's source map keeps the stack traces and the
+// browser's debugger on the module's own lines.
 import path from 'node:path'
+import MagicString from 'magic-string'
 import type { Plugin } from 'vite'
 import { parseAst } from 'vite'
 
@@ -30,9 +34,10 @@ const STEP_ANSWER = /^(preview|commit)Answer$/
 /**
  * The source with each answer schema `undefined`: the `answer` option of a call to the fetch client
  * (`api.get(path, { answer })`), an upload step's `previewAnswer` and `commitAnswer`, and `uploadWithProgress`'s third
- * argument. Any other `answer` (the client's own record of a prefetched answer, say) is left alone.
+ * argument. Any other `answer` (the client's own record of a prefetched answer, say) is left alone. The edits are made
+ * on a MagicString, whose source map leads the rest of the module back to its own lines and columns.
  */
-export function withoutAnswerSchemas(code: string, fileName = 'module.ts'): string {
+export function withoutAnswerSchemas(code: string, fileName = 'module.ts'): MagicString {
   const program = parseAst(code, { lang: fileName.endsWith('.ts') ? 'ts' : 'js' }, fileName) as unknown as Node
   const edits: { start: number; end: number; text: string }[] = []
   const blank = (property: Node) => {
@@ -64,8 +69,8 @@ export function withoutAnswerSchemas(code: string, fileName = 'module.ts'): stri
     }
   }
   visit(program)
-  let out = code
-  for (const e of edits.sort((a, b) => b.start - a.start)) out = out.slice(0, e.start) + e.text + out.slice(e.end)
+  const out = new MagicString(code)
+  for (const e of edits) out.overwrite(e.start, e.end, e.text)
   return out
 }
 
@@ -83,7 +88,8 @@ export function answerChecksOutOfProduction(): Plugin {
     },
     transform(code, id) {
       if (!active || !ANSWER_MODULES.test(id)) return null
-      return { code: withoutAnswerSchemas(code, path.basename(id)), map: null }
+      const out = withoutAnswerSchemas(code, path.basename(id))
+      return { code: out.toString(), map: out.generateMap({ source: id, includeContent: true, hires: true }) }
     },
   }
 }

@@ -2,9 +2,10 @@
 // option of the typed API modules (and an upload step's `previewAnswer:`, `commitAnswer:`, an upload's third
 // argument) loses its schema, so nothing but a type refers to the answer schema modules and
 // the bundler drops them with zod; the rest of each module is untouched, and development and the browser tests'
-// build keep their checks. The result is read back with the TypeScript compiler's own parser, not the one the step
-// uses. source: common practice (dead-code elimination of unused imports; ECMAScript modules, ECMA-262 §16.2)
+// build keep their checks; the step's source map leads the output back to the source. The result is read back
+// with the TypeScript compiler's own parser, not the one the step uses. source: common practice (dead-code elimination of unused imports; ECMAScript modules, ECMA-262 §16.2)
 import { readdirSync, readFileSync } from 'node:fs'
+import { SourceMap } from 'node:module'
 import { join } from 'node:path'
 import ts from 'typescript'
 import type { ResolvedConfig } from 'vite'
@@ -67,7 +68,7 @@ describe('answer schemas out of the production client', () => {
     for (const { name, text } of apiModules) {
       const before = answerValues(name, text)
       answers += before.length
-      const after = withoutAnswerSchemas(text, name)
+      const after = withoutAnswerSchemas(text, name).toString()
       // As many answer options as before, each now undefined.
       expect(answerValues(name, after), name).toEqual(before.map(() => 'undefined'))
       expect(answerSchemasStillUsed(name, after), name).toEqual([])
@@ -80,7 +81,7 @@ describe('answer schemas out of the production client', () => {
   it('leaves the fetch client itself as it is (its record of a prefetched answer is no schema)', () => {
     const client = apiModules.find((m) => m.name === 'client.ts')!.text
     expect(client).toMatch(/\{ at: Date\.now\(\), answer \}/)
-    expect(withoutAnswerSchemas(client, 'client.ts')).toBe(client)
+    expect(withoutAnswerSchemas(client, 'client.ts').toString()).toBe(client)
   })
 
   it('changes nothing else: other properties, other objects’ answer, strings, comments; a shorthand answer too', () => {
@@ -93,7 +94,7 @@ describe('answer schemas out of the production client', () => {
       "const steps = { path: (w) => `/x/${w}`, previewAnswer: previewShape, commitAnswer: z.array(rowShape), answers: 3 }",
       "const done = uploadWithProgress('/setup/logo', form, okShape, () => {}).done",
     ].join('\n')
-    expect(withoutAnswerSchemas(source, 'x.ts')).toBe([
+    expect(withoutAnswerSchemas(source, 'x.ts').toString()).toBe([
       "// the answer: stays in a comment; é — ü before, so offsets count characters",
       "const label = 'answer: kept'",
       "export const x = (q: Q) => api.get(`/a${q}`, { quiet401: true, answer: undefined, signal })",
@@ -102,6 +103,30 @@ describe('answer schemas out of the production client', () => {
       "const steps = { path: (w) => `/x/${w}`, previewAnswer: undefined, commitAnswer: undefined, answers: 3 }",
       "const done = uploadWithProgress('/setup/logo', form, undefined, () => {}).done",
     ].join('\n'))
+  })
+
+  it('gives a source map that leads the code after each edit back to its own line and column', () => {
+    const text = apiModules.find((m) => m.name === 'stock.ts')!.text
+    const plugin = answerChecksOutOfProduction()
+    ;(plugin.configResolved as (c: ResolvedConfig) => void)({ command: 'build', mode: 'production' } as ResolvedConfig)
+    const out = (plugin.transform as (code: string, id: string) => { code: string; map: object })(text, join(API_DIR, 'stock.ts'))
+    // Node's own reader of source maps (node:module SourceMap, Source Map Revision 3), not the step's writer.
+    // source: Source Map Revision 3 Proposal (mappings: generated line and column to original line and column)
+    const map = new SourceMap(out.map as ConstructorParameters<typeof SourceMap>[0])
+    // The last character of each line of the output, traced back, is the same character in the source.
+    const source = text.split('\n')
+    const wrong: string[] = []
+    let moved = 0
+    for (const [line, generated] of out.code.split('\n').entries()) {
+      const column = generated.trimEnd().length - 1
+      if (column < 0) continue
+      const entry = map.findEntry(line, column) as { originalLine: number; originalColumn: number }
+      if (source[entry.originalLine]?.[entry.originalColumn] !== generated[column]) wrong.push(`${line + 1}: ${generated}`)
+      if (entry.originalColumn !== column || entry.originalLine !== line) moved++
+    }
+    expect(wrong).toEqual([])
+    // The edits do shift code (a schema's name is longer or shorter than `undefined`): the map is needed.
+    expect(moved).toBeGreaterThan(0)
   })
 
   it('acts in a production build only: development and the browser tests’ build keep the checks', () => {

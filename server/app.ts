@@ -1,7 +1,7 @@
 // Builds the Express app. API tests import this and run it in-process against a real database.
+import { createHash } from 'node:crypto'
 import { existsSync } from 'node:fs'
 import path from 'node:path'
-import compression from 'compression'
 import express from 'express'
 import expressStaticGzip from 'express-static-gzip'
 import session from 'express-session'
@@ -102,9 +102,17 @@ function clientPages(dist: string): express.RequestHandler {
   // fetching the page's code would only hold up the sign-in page's own.
   const hasSession = (req: express.Request) => (req.headers.cookie ?? '').includes(`${SESSION_COOKIE}=`)
   router.get('/{*splat}', (req, res) => {
-    res.set('Cache-Control', 'no-cache').type('html').send(htmlFor(req.path, hasSession(req) ? { query: req.query } : undefined))
+    const html = htmlFor(req.path, hasSession(req) ? { query: req.query } : undefined)
+    // Its own validator (the app's automatic ETag is off, see createApp): a revisit gets 304 while the page is unchanged.
+    const tag = `W/"${createHash('sha1').update(html).digest('base64url')}"`
+    res.set({ 'Cache-Control': 'no-cache', ETag: tag }).type('html').send(html)
   })
   return router
+}
+
+/** A body parser only where a body may come: a GET or HEAD goes past without the parser's checks. */
+function withBodyOnly(parser: express.RequestHandler): express.RequestHandler {
+  return (req, res, next) => (req.method === 'GET' || req.method === 'HEAD' ? next() : parser(req, res, next))
 }
 
 export function createApp(deps: AppDeps): BuiltApp {
@@ -124,6 +132,8 @@ export function createApp(deps: AppDeps): BuiltApp {
   }
   const app = express()
   app.disable('x-powered-by')
+  // No automatic ETag: it hashed every API answer, which is never cached (no-store); the client's pages set their own.
+  app.set('etag', false)
   // Every JSON answer leaves out the costs its caller may not see (services/costVisibility.ts).
   app.set('json replacer', costReplacer)
   jsonWithCostAccess(app)
@@ -135,8 +145,8 @@ export function createApp(deps: AppDeps): BuiltApp {
   app.use(requestLog(app, logger))
   // The provider signs the exact bytes it sends: its webhook keeps the raw body (the JSON parser then skips it).
   app.use(PAYMENT_WEBHOOK_PATH, express.raw({ type: () => true, limit: '256kb' }))
-  app.use(express.json({ limit: '1mb' }))
-  app.use('/api', compression()) // JSON answers over 1 KB; spreadsheets are zip files already and pass through
+  app.use(withBodyOnly(express.json({ limit: '1mb' })))
+  // Compression is mounted by the route table on each route but the scanner's short answers (http/routeTable.ts).
 
   const { store, close: closeStore } = createSessionStore(config)
   app.use(
@@ -158,7 +168,8 @@ export function createApp(deps: AppDeps): BuiltApp {
     }),
   )
   app.use(renewWhenDue())
-  app.use(pp.initialize())
+  // compat: false — no `req._passport` object per request for strategies of passport before 0.5 (none here).
+  app.use(pp.initialize({ compat: false }))
   app.use(pp.session())
   app.use(absoluteTimeout(config.session.maxHours))
   const origins = config.publicUrl ? [new URL(config.publicUrl).origin] : []

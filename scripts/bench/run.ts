@@ -132,11 +132,12 @@ function throughputRow(measure: string, size: Size, [l, f]: [Side, Side], minRat
 async function httpMeasures(size: Size, db: BenchDatabase, fx: Fixtures, browser: Browser): Promise<void> {
   // Production, but over plain http on the loopback: Secure cookies (the production default) would never be sent.
   const env = { ...db.env, NODE_ENV: 'production', LUMENYARD_SECURE_COOKIES: 'false', LUMENYARD_LOG_LEVEL: 'info', LUMENYARD_CLIENT_DIST: path.join(benchDir, 'dist'), LUMENYARD_HOST: '127.0.0.1' }
-  const profile = opts['cpu-prof'] ? ['--cpu-prof', `--cpu-prof-dir=${path.join(benchDir, 'profiles', size)}`] : []
-  const app = await startNodeServer('Lumenyard', 'scripts/bench/serveApp.ts', { ...env, LUMENYARD_PORT: String(portBase) }, profile)
+  // Both sides profiled, each in a folder of its own, so a profile of Lumenyard can be read against the floor's.
+  const profile = (side: string) => (opts['cpu-prof'] ? ['--cpu-prof', `--cpu-prof-dir=${path.join(benchDir, 'profiles', size, side)}`] : [])
+  const app = await startNodeServer('Lumenyard', 'scripts/bench/serveApp.ts', { ...env, LUMENYARD_PORT: String(portBase) }, profile('lumenyard'))
   const floor = await startNodeServer('floor', 'scripts/bench/floorServer.ts', {
     ...env, BENCH_PORT: String(portBase + 1), BENCH_USER_ID: String(fx.floorUserId), BENCH_FLOOR_PAGES: path.join(benchDir, 'floor-pages'),
-  })
+  }, profile('floor'))
   try {
     const scanners = await signIn(app.url, fx.scanners, BENCH_PASSWORD)
     const code = (conn: number, n: number) => fx.scanCodes[(conn * 37 + n) % fx.scanCodes.length]

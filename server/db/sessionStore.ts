@@ -10,7 +10,7 @@
 //   http/session.ts), not on every answer.
 import session from 'express-session'
 import MySQLStoreFactory from 'express-mysql-session'
-import mysql from 'mysql2/promise'
+import mysql, { type RowDataPacket } from 'mysql2/promise'
 import type { AppConfig } from '../config.js'
 import type { SessionUser } from '../../shared/schemas/auth.js'
 
@@ -75,15 +75,14 @@ export function createSessionStore(config: AppConfig): { store: session.Store; c
   )
   const idleMs = config.session.idleMinutes * 60_000
   const plainTouch = store.touch.bind(store)
-  const query = (store as unknown as { query(sql: string, params: unknown[]): Promise<[Record<string, unknown>[]]> }).query.bind(store)
+  // The read every signed-in request makes, as a prepared statement (each pooled connection prepares it once):
+  // MariaDB then skips parsing and planning it from its text, about a quarter of the statement's cost there.
+  const readSql = `SELECT s.data AS session_data, s.expires AS session_expires, ${sessionUserColumns('u')}
+         FROM sessions s LEFT JOIN users u ON u.id = CAST(JSON_VALUE(s.data, '$.passport.user.id') AS UNSIGNED)
+        WHERE s.session_id = ?`
 
   const get = (sid: string, done: Callback<SessionData | null>) => {
-    query(
-      `SELECT s.data AS session_data, s.expires AS session_expires, ${sessionUserColumns('u')}
-         FROM sessions s LEFT JOIN users u ON u.id = CAST(JSON_VALUE(s.data, '$.passport.user.id') AS UNSIGNED)
-        WHERE s.session_id = ?`,
-      [sid],
-    ).then(([rows]) => {
+    pool.execute<RowDataPacket[]>(readSql, [sid]).then(([rows]) => {
       const row = rows[0]
       if (!row || Number(row.session_expires) * 1000 < Date.now()) return done(null, null)
       const data = JSON.parse(String(row.session_data)) as SessionData

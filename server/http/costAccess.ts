@@ -3,16 +3,18 @@
 // (`costsOf(res)`), and every JSON answer is serialised with it (`jsonWithCostAccess`).
 import type { Express, NextFunction, Request, Response } from 'express'
 import type { DataSource } from 'typeorm'
-import { costsVisibleTo, serialiseFor } from '../services/costVisibility.js'
+import { costsVisibleNow, costsVisibleTo, serialiseFor } from '../services/costVisibility.js'
 
 /** Express middleware for /api: works out the signed-in caller's access once, for the whole request. */
 export function costAccess(ds: DataSource) {
   return (req: Request, res: Response, next: NextFunction) => {
-    if (!req.user) {
-      res.locals.costs = false
+    // Most requests know at once (the role decides, or the setting was read recently): no promise to wait a turn on.
+    const now = req.user ? costsVisibleNow(ds, req.user.roles) : false
+    if (now !== undefined) {
+      res.locals.costs = now
       return next()
     }
-    costsVisibleTo(ds, req.user.roles).then((costs) => {
+    costsVisibleTo(ds, req.user!.roles).then((costs) => {
       res.locals.costs = costs
       next()
     }, next)

@@ -75,12 +75,11 @@ export function renewWhenDue() {
 
 /** Absolute session lifetime, on top of the idle timeout the session's renewals give. */
 export function absoluteTimeout(maxHours: number) {
-  return async (req: Request, _res: Response, next: NextFunction) => {
+  return (req: Request, _res: Response, next: NextFunction) => {
     const started = req.session?.signedInAt
-    if (req.user && started && Date.now() - started > maxHours * 3_600_000) {
-      await logOut(req).catch(() => undefined)
-      return next(AppError.unauthenticated('session_ended', 'Your session has ended. Please sign in again.'))
-    }
-    next()
+    if (!req.user || !started || Date.now() - started <= maxHours * 3_600_000) return next()
+    logOut(req)
+      .catch(() => undefined)
+      .then(() => next(AppError.unauthenticated('session_ended', 'Your session has ended. Please sign in again.')))
   }
 }

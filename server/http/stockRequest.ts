@@ -51,6 +51,8 @@ export interface StockStep<S extends z.ZodType, T> {
   status?: number | ((body: T) => number)
   /** The caller must send its own Idempotency-Key (a handheld's queued confirmation): refused without one. */
   keyRequired?: boolean
+  /** A scanner's step with a short answer, sent without compression (RouteSpec.smallAnswer). */
+  smallAnswer?: boolean
   /** The change, inside the request's one transaction; `key` is the request's Idempotency-Key, if any. */
   run: (em: EntityManager, step: { req: Request; input: z.infer<S>; id: number; key: string | null }) => Promise<T>
   /** Work after the transaction committed (and on a replay), before the answer goes out: e-mail, never stock. */
@@ -67,6 +69,7 @@ export function stockStep<S extends z.ZodType = z.ZodNull, T = unknown>(ctx: App
     method: spec.method ?? 'post',
     path: spec.path,
     access: spec.access,
+    smallAnswer: spec.smallAnswer,
     handler: (req, res) => {
       const id = spec.id ? spec.id(req) : 0
       const key = req.get('idempotency-key') ?? null

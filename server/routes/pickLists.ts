@@ -62,7 +62,7 @@ export default (ctx: AppContext) =>
     }),
     stockStep(ctx, {
       // The handheld's own key is required: a resend of the same confirmation is answered, never applied again.
-      path: '/:id/confirmations', access: pickers, id: listId, body: pickConfirmSchema, status: 201, keyRequired: true,
+      path: '/:id/confirmations', access: pickers, id: listId, body: pickConfirmSchema, status: 201, keyRequired: true, smallAnswer: true,
       run: (em, { req, input, id, key }) => confirmPick(em, actorOf(req), id, input, key!),
     }),
     stockStep(ctx, {

@@ -30,7 +30,7 @@ export default (ctx: AppContext) =>
   defineRoutes('/stock', [
     stockStep(ctx, { path: '/adjustments', access: movers, body: adjustmentSchema, status: 201, run: async (em, { req, input }) => summary(await adjust(em, actor(req), input)) }),
     stockStep(ctx, { path: '/bin-moves', access: movers, body: binMoveSchema, status: 201, run: async (em, { req, input }) => summary(await moveBetweenBins(em, actor(req), input)) }),
-    stockStep(ctx, { path: '/issues', access: movers, body: issueSchema, status: 201, run: async (em, { req, input }) => summary(await issue(em, actor(req), input)) }),
+    stockStep(ctx, { path: '/issues', access: movers, body: issueSchema, status: 201, smallAnswer: true, run: async (em, { req, input }) => summary(await issue(em, actor(req), input)) }),
     stockStep(ctx, { path: '/receipts', access: movers, body: receiptSchema, status: 201, run: async (em, { req, input }) => summary(await receive(em, actor(req), input)) }),
     stockStep(ctx, { path: '/transfers', access: movers, body: transferShipSchema, status: 201, run: (em, { req, input }) => shipTransfer(em, actor(req), input) }),
     stockStep(ctx, {

@@ -56,5 +56,5 @@ export default (ctx: AppContext) =>
     },
     { method: 'get', path: '/places', access: readers, handler: () => listPlaces(ctx.ds) },
     { method: 'get', path: '/item-options', access: readers, handler: (req) => itemOptions(ctx.ds, parseQuery(itemOptionsQuerySchema, req.query)) },
-    { method: 'get', path: '/lookup', access: readers, handler: (req) => lookupScan(ctx.ds, parseQuery(lookupQuerySchema, req.query)) },
+    { method: 'get', path: '/lookup', access: readers, smallAnswer: true, handler: (req) => lookupScan(ctx.ds, parseQuery(lookupQuerySchema, req.query)) },
   ])

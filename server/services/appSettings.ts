@@ -28,16 +28,23 @@ export async function purchasingSettings(em: EntityManager | DataSource): Promis
  * commit); another process running against the same database sees it within SETTINGS_CACHE_MS.
  */
 export const SETTINGS_CACHE_MS = 30_000
-const cached = new WeakMap<DataSource, { at: number; value: Promise<PurchasingSettings> }>()
+const cached = new WeakMap<DataSource, { at: number; value: Promise<PurchasingSettings>; settled?: PurchasingSettings }>()
 
 export function recentPurchasingSettings(db: EntityManager | DataSource): Promise<PurchasingSettings> {
   const ds = 'connection' in db ? db.connection : db
   const hit = cached.get(ds)
   if (hit && Date.now() - hit.at < SETTINGS_CACHE_MS) return hit.value
   const value = purchasingSettings(ds)
-  cached.set(ds, { at: Date.now(), value })
-  value.catch(() => cached.delete(ds)) // a failed read is not kept
+  const entry: { at: number; value: Promise<PurchasingSettings>; settled?: PurchasingSettings } = { at: Date.now(), value }
+  cached.set(ds, entry)
+  value.then((v) => (entry.settled = v), () => cached.delete(ds)) // a failed read is not kept
   return value
+}
+
+/** The same settings when a fresh read of them has already arrived, without waiting a turn; else undefined. */
+export function settledPurchasingSettings(ds: DataSource): PurchasingSettings | undefined {
+  const hit = cached.get(ds)
+  return hit && Date.now() - hit.at < SETTINGS_CACHE_MS ? hit.settled : undefined
 }
 
 export async function updatePurchasingSettings(ds: DataSource, actor: AuditActor, input: PurchasingSettingsInput): Promise<PurchasingSettings> {

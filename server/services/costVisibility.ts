@@ -11,7 +11,7 @@
 // A service answers with every cost it has under one of these names; it never checks the role.
 import type { DataSource, EntityManager } from 'typeorm'
 import type { Role } from '../../shared/roles.js'
-import { recentPurchasingSettings } from './appSettings.js'
+import { recentPurchasingSettings, settledPurchasingSettings } from './appSettings.js'
 
 /**
  * The only names under which a cost (what we pay, and sums of it) leaves the server. Never reuse
@@ -39,6 +39,13 @@ export const COST_FIELDS: ReadonlySet<string> = new Set([
   'averageValue', // their average (the denominator of turns)
   'spendValue', // what the purchase orders sent in a period come to (the buyer's start page)
 ])
+
+/** The same answer when it needs no database read (a role that decides it, or the setting read recently); else undefined. */
+export function costsVisibleNow(ds: DataSource, roles: readonly Role[]): boolean | undefined {
+  if (roles.includes('admin') || roles.includes('buyer')) return true
+  if (!roles.includes('warehouse')) return false
+  return settledPurchasingSettings(ds)?.warehouseSeesCosts
+}
 
 export async function costsVisibleTo(db: EntityManager | DataSource, roles: readonly Role[]): Promise<boolean> {
   if (roles.includes('admin') || roles.includes('buyer')) return true

@@ -4,6 +4,8 @@ import type { DataSource } from 'typeorm'
 import type { ItemOption, LookupAnswer, LookupQuery, Place } from '../../shared/schemas/stockViews.js'
 import { gtinForms } from '../../shared/barcode/checkDigit.js'
 import { containsPattern, prefixPattern } from '../db/likePattern.js'
+import { executeRows } from '../db/prepared.js'
+import { marks } from './imports/importFacts.js'
 import { AppError, problem } from '../errors.js'
 
 interface ItemSqlRow { id: number; sku: string; name: string; stock_unit: ItemOption['stockUnit']; gtin: string | null; match_lot: number }
@@ -41,14 +43,15 @@ export async function itemOptions(ds: DataSource, q: { q?: string; ids?: number[
  * on the indexed column as stored (padding the column instead walked the whole index on every scan).
  */
 export function itemLookupSql(kind: 'gtin' | 'sku', code: string): { sql: string; params: unknown[] } {
-  return kind === 'gtin'
-    ? { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.gtin IN (?)`, params: [gtinForms(code)] }
-    : { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.sku = ?`, params: [code] }
+  if (kind === 'sku') return { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.sku = ?`, params: [code] }
+  const forms = gtinForms(code)
+  return { sql: `SELECT ${ITEM_COLUMNS} FROM items i WHERE i.gtin IN (${marks(forms.length)})`, params: forms }
 }
 
+/** A scan, many a second from each handheld: a prepared statement (db/prepared.ts). */
 async function findItem(ds: DataSource, q: LookupQuery): Promise<ItemOption> {
   const { sql, params } = itemLookupSql(q.kind === 'gtin' ? 'gtin' : 'sku', q.code)
-  const rows: ItemSqlRow[] = await ds.query(sql, params)
+  const rows = await executeRows<ItemSqlRow>(ds, sql, params)
   if (!rows.length) throw AppError.notFound('item_code_not_found', `No item has the ${q.kind === 'gtin' ? 'GTIN' : 'SKU'} ${q.code}.`, { params: { code: q.code } })
   return toItem(rows[0])
 }

@@ -1,6 +1,11 @@
 // Sign-in, sessions and CSRF against the real app and MariaDB.
 // Bar: OWASP ASVS 5.0 level 2 (section numbers beside each check).
+import supertest from 'supertest'
+import type { DataSource } from 'typeorm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Role } from '../../shared/roles.js'
+import { createApp, type BuiltApp } from '../../server/app.js'
+import { createDataSource } from '../../server/db/dataSource.js'
 import { CSRF, TEST_PASSWORD, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 
 let h: ApiHarness
@@ -208,5 +213,69 @@ describe('errors', () => {
     const res = await admin.post('/api/users').set(CSRF).set('Content-Type', 'application/json').send('{"broken":')
     expect(res.status).toBe(400)
     expect(JSON.stringify(res.body)).not.toMatch(/at .*\.ts/)
+  })
+})
+
+describe('revocation reaches every app process at once', () => {
+  // source: OWASP ASVS 5.0 7.4.2 (a disabled account's or changed role's active sessions end) and 8.3.1 (every
+  // request is authorised on the server with the user's current rights). A second app with its own connection
+  // pools stands for another process: whatever one process keeps between requests, the other's change must reach
+  // the very next request, not some time later.
+  let other: BuiltApp
+  let otherDs: DataSource
+  beforeAll(async () => {
+    otherDs = createDataSource(h.config)
+    await otherDs.initialize()
+    other = createApp({ config: h.config, ds: otherDs })
+  })
+  afterAll(async () => {
+    await other?.close()
+    await otherDs?.destroy()
+  })
+
+  /** Signed in on the other process, with a read there first (anything it keeps is warm). */
+  async function signedInElsewhere(name: string, roles: Role[]) {
+    const user = await h.user(name, roles)
+    const agent = supertest.agent(other.app)
+    expect((await agent.post('/api/session').set(CSRF).send({ username: name, password: TEST_PASSWORD })).status).toBe(200)
+    expect((await agent.get('/api/reorder/choices')).status).toBe(200)
+    return { user, agent }
+  }
+
+  it('a role taken away in one process is refused on the next request in another', async () => {
+    const { user, agent } = await signedInElsewhere('auth-role-elsewhere', ['buyer'])
+    const admin = await h.as('admin')
+    expect((await admin.patch(`/api/users/${user.id}`).set(CSRF).send({ roles: ['viewer'] })).status).toBe(200)
+    expect((await agent.get('/api/reorder/choices')).status).toBe(401)
+  })
+
+  it("a user's roles changed in the database count on the next request, without signing in again", async () => {
+    const { user, agent } = await signedInElsewhere('auth-role-row', ['buyer'])
+    await h.ds.query("UPDATE users SET roles = 'viewer' WHERE id = ?", [user.id])
+    expect((await agent.get('/api/reorder/choices')).status).toBe(403)
+    expect((await agent.get('/api/profile')).body.user.roles).toEqual(['viewer'])
+  })
+
+  it('a sign-out of all sessions (a new session epoch) ends the session on the next request in another process', async () => {
+    const { user, agent } = await signedInElsewhere('auth-epoch-elsewhere', ['buyer'])
+    await h.ds.query('UPDATE users SET session_epoch = session_epoch + 1 WHERE id = ?', [user.id])
+    expect((await agent.get('/api/profile')).status).toBe(401)
+  })
+
+  it('a deactivation ends the session on the next request in another process', async () => {
+    const { user, agent } = await signedInElsewhere('auth-off-elsewhere', ['buyer'])
+    await h.ds.query('UPDATE users SET active = 0 WHERE id = ?', [user.id])
+    expect((await agent.get('/api/profile')).status).toBe(401)
+  })
+
+  it('a sign-out in one process ends the same session in another', async () => {
+    const name = 'auth-signout-elsewhere'
+    await h.user(name, ['buyer'])
+    const here = h.agent()
+    const res = await here.post('/api/session').set(CSRF).send({ username: name, password: TEST_PASSWORD })
+    const cookie = sessionCookie(res)!
+    expect((await supertest(other.app).get('/api/profile').set('Cookie', cookie)).status).toBe(200)
+    expect((await here.delete('/api/session').set(CSRF)).status).toBe(204)
+    expect((await supertest(other.app).get('/api/profile').set('Cookie', cookie)).status).toBe(401)
   })
 })

@@ -77,6 +77,13 @@ describe('client files', () => {
     expect(res.status).toBe(200)
     expect(res.text).toContain('<title>Lumenyard</title>')
     expect(res.headers['cache-control']).toBe('no-cache')
+    // source: RFC 9110 §13.1.2 and §15.4.5 — a revisit naming the page's current validator gets 304 Not Modified
+    const tag = res.headers.etag as string
+    expect(tag).toMatch(/^W\/".+"$/)
+    const again = await supertest(app.app).get('/stock/overview').set('If-None-Match', tag)
+    expect(again.status).toBe(304)
+    const changed = await supertest(app.app).get('/stock/overview').set('If-None-Match', 'W/"another-page"')
+    expect(changed.status).toBe(200)
   })
 })
 
@@ -91,5 +98,22 @@ describe('API answers', () => {
     const body = JSON.parse(gunzipSync(res.body).toString())
     expect(body.rows.length).toBeGreaterThan(10) // the demo scenario's stock
     expect(res.body.length).toBeLessThan(JSON.stringify(body).length / 3)
+  })
+
+  it("sends a scanner's short answer as it is, and no answer of the API with a validator it would never use", async () => {
+    // source: RFC 9111 §5.2.2.5 — an answer marked no-store is never kept, so nothing revalidates it (common practice
+    // to leave its ETag out); a few hundred bytes gain nothing from gzip (RFC 1952 adds 18 bytes of frame).
+    await h.user('compression-scanner', ['warehouse'])
+    const signIn = await supertest(app.app).post('/api/session').set(CSRF).send({ username: 'compression-scanner', password: TEST_PASSWORD })
+    const cookie = (signIn.headers['set-cookie'] as unknown as string[])[0].split(';')[0]
+    const [{ sku }] = await h.ds.query('SELECT sku FROM items WHERE active = 1 ORDER BY id LIMIT 1')
+    const res = await getRaw(`/api/stock/lookup?kind=sku&code=${encodeURIComponent(sku)}`, { 'Accept-Encoding': 'gzip, br', Cookie: cookie })
+    expect(res.status).toBe(200)
+    expect(res.headers['content-encoding']).toBeUndefined()
+    expect(JSON.parse(res.body.toString()).item.sku).toBe(sku)
+    expect(res.headers['cache-control']).toBe('no-store')
+    expect(res.headers.etag).toBeUndefined()
+    const levels = await getRaw('/api/stock/levels', { 'Accept-Encoding': 'gzip', Cookie: cookie })
+    expect(levels.headers.etag).toBeUndefined()
   })
 })

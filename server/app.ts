@@ -44,8 +44,14 @@ export interface BuiltApp {
   close(): Promise<void>
 }
 
-function securityHeaders() {
-  return helmet({
+/**
+ * helmet's headers, worked out by helmet once at start (they are the same on every answer: no nonce) and then set
+ * in one step, rather than through helmet's dozen middleware on each request.
+ */
+function securityHeaders(): express.RequestHandler {
+  const headers: [string, string][] = []
+  const recorder = { setHeader: (name: string, value: unknown) => headers.push([name, String(value)]), removeHeader: () => undefined }
+  helmet({
     contentSecurityPolicy: {
       useDefaults: false,
       directives: {
@@ -64,7 +70,33 @@ function securityHeaders() {
       },
     },
     strictTransportSecurity: false, // set by the TLS-terminating proxy in production
+  })({} as express.Request, recorder as unknown as express.Response, (err?: unknown) => {
+    if (err) throw err
   })
+  return (_req, res, next) => {
+    for (const [name, value] of headers) res.setHeader(name, value)
+    next()
+  }
+}
+
+/**
+ * Middleware run one after another as a single layer of the app: one match of its path for all of them, instead of
+ * one per middleware. A middleware that throws passes its error on, as Express would.
+ */
+function inOrder(...handlers: express.RequestHandler[]): express.RequestHandler {
+  return (req, res, next) => {
+    let i = 0
+    const step = (err?: unknown): void => {
+      if (err) return next(err)
+      if (i === handlers.length) return next()
+      try {
+        void handlers[i++](req, res, step)
+      } catch (thrown) {
+        next(thrown)
+      }
+    }
+    step()
+  }
 }
 
 /**
@@ -149,37 +181,42 @@ export function createApp(deps: AppDeps): BuiltApp {
   // Compression is mounted by the route table on each route but the scanner's short answers (http/routeTable.ts).
 
   const { store, close: closeStore } = createSessionStore(config)
-  app.use(
-    session({
-      name: SESSION_COOKIE,
-      secret: config.session.secret,
-      store,
-      resave: false,
-      saveUninitialized: false,
-      // The idle timeout restarts with the row and the cookie together, at most once a minute (renewWhenDue below,
-      // db/sessionStore.ts), rather than a freshly signed cookie on every answer.
-      rolling: false,
-      cookie: {
-        httpOnly: true,
-        sameSite: 'lax',
-        secure: config.session.secureCookies,
-        maxAge: config.session.idleMinutes * 60_000,
-      },
-    }),
-  )
-  app.use(renewWhenDue())
-  // compat: false — no `req._passport` object per request for strategies of passport before 0.5 (none here).
-  app.use(pp.initialize({ compat: false }))
-  app.use(pp.session())
-  app.use(absoluteTimeout(config.session.maxHours))
   const origins = config.publicUrl ? [new URL(config.publicUrl).origin] : []
-  // The webhook carries no cookie and no app header; its provider signature is its proof (routes/payments.ts).
-  app.use('/api', csrfGuard(() => origins, [PAYMENT_WEBHOOK_PATH]))
-  app.use('/api', (_req, res, next) => {
-    res.set('Cache-Control', 'no-store')
-    next()
-  })
-  app.use('/api', costAccess(ds))
+  // Sessions for the API only (a page address is answered with index.html whoever asks, see clientPages), and the
+  // API's edge as one layer: the session and its user, the timeouts, CSRF, no-store, and the caller's cost access.
+  app.use(
+    '/api',
+    inOrder(
+      session({
+        name: SESSION_COOKIE,
+        secret: config.session.secret,
+        store,
+        resave: false,
+        saveUninitialized: false,
+        // The idle timeout restarts with the row and the cookie together, at most once a minute (renewWhenDue below,
+        // db/sessionStore.ts), rather than a freshly signed cookie on every answer.
+        rolling: false,
+        cookie: {
+          httpOnly: true,
+          sameSite: 'lax',
+          secure: config.session.secureCookies,
+          maxAge: config.session.idleMinutes * 60_000,
+        },
+      }),
+      renewWhenDue(),
+      // compat: false — no `req._passport` object per request for strategies of passport before 0.5 (none here).
+      pp.initialize({ compat: false }),
+      pp.session(),
+      absoluteTimeout(config.session.maxHours),
+      // The webhook carries no cookie and no app header; its provider signature is its proof (routes/payments.ts).
+      csrfGuard(() => origins, [PAYMENT_WEBHOOK_PATH]),
+      (_req, res, next) => {
+        res.setHeader('Cache-Control', 'no-store')
+        next()
+      },
+      costAccess(ds),
+    ),
+  )
   for (const { prefix, router } of buildRouters(ctx)) app.use('/api' + prefix, router)
   app.use('/api', apiNotFound)
 

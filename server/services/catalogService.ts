@@ -7,6 +7,7 @@ import { inTransaction, isDuplicateKey } from '../db/transaction.js'
 import { Item } from '../entities/Item.js'
 import { AppError, problem } from '../errors.js'
 import { audit, type AuditActor } from './auditService.js'
+import { lockAtVersion } from './editVersion.js'
 
 export function toItemRecord(i: Item): ItemRecord {
   return {
@@ -15,7 +16,7 @@ export function toItemRecord(i: Item): ItemRecord {
     madeToOrder: i.madeToOrder, matchLot: i.matchLot, nominalSize: i.nominalSize, faceWidthMm: i.faceWidthMm,
     faceHeightMm: i.faceHeightMm, depthMm: i.depthMm, thicknessClass: i.thicknessClass, pattern: i.pattern, shape: i.shape as BlockShape | null,
     cartridgeMl: i.cartridgeMl, groutYieldMl: i.groutYieldMl, jointMm: i.jointMm, description: i.description,
-    createdAt: i.createdAt.toISOString(), updatedAt: i.updatedAt.toISOString(),
+    createdAt: i.createdAt.toISOString(), updatedAt: i.updatedAt.toISOString(), version: i.version,
   }
 }
 
@@ -44,10 +45,18 @@ export function duplicateItemError(err: unknown): AppError | null {
   return AppError.conflict('sku_taken', 'Another item already has that SKU.', { fields: { sku: problem('sku_taken') } })
 }
 
-export async function findItem(em: EntityManager, id: number, lock = false): Promise<Item> {
-  const item = await em.findOne(Item, { where: { id }, ...(lock ? { lock: { mode: 'pessimistic_write' as const } } : {}) })
+export async function findItem(em: EntityManager, id: number): Promise<Item> {
+  const item = await em.findOne(Item, { where: { id } })
   if (!item) throw AppError.notFound('item_not_found', 'That item was not found.')
   return item
+}
+
+/** Locks the item for a change and moves it to its next version; with `seenVersion`, a change saved meanwhile is refused. */
+function lockItem(em: EntityManager, id: number, seenVersion?: number): Promise<Item> {
+  return lockAtVersion(em, Item, id, seenVersion, {
+    notFound: () => AppError.notFound('item_not_found', 'That item was not found.'),
+    name: (item) => item.sku,
+  })
 }
 
 export async function createItem(ds: DataSource, actor: AuditActor, input: ItemInput): Promise<ItemRecord> {
@@ -63,17 +72,17 @@ export async function createItem(ds: DataSource, actor: AuditActor, input: ItemI
 }
 
 /** Applies a change and checks the whole resulting item again, so no patch can leave it inconsistent. */
-export async function updateItem(ds: DataSource, actor: AuditActor, id: number, patch: ItemPatch): Promise<ItemRecord> {
+export async function updateItem(ds: DataSource, actor: AuditActor, id: number, { version, ...patch }: ItemPatch): Promise<ItemRecord> {
   try {
     return await inTransaction(ds, async (em) => {
-      const item = await findItem(em, id, true)
+      const item = await lockItem(em, id, version)
       const merged = itemSchema.safeParse({ ...toItemRecord(item), ...patch })
       if (!merged.success) throw AppError.fromZod(merged.error)
       const before = toItemRecord(item)
       const changed = Object.fromEntries(
         Object.entries(itemColumns(merged.data)).filter(([k, v]) => (before as Record<string, unknown>)[k] !== v),
       )
-      if (Object.keys(changed).length === 0) return before
+      if (Object.keys(changed).length === 0) return { ...before, version: item.version }
       await em.update(Item, { id }, changed)
       await audit(em, actor, 'item.update', 'item', id, {
         sku: item.sku,
@@ -89,7 +98,7 @@ export async function updateItem(ds: DataSource, actor: AuditActor, id: number, 
 /** Takes an item out of use. Stock held for pick lists must be released first; stock on hand stays visible. */
 export async function deactivateItem(ds: DataSource, actor: AuditActor, id: number): Promise<ItemRecord> {
   return inTransaction(ds, async (em) => {
-    const item = await findItem(em, id, true)
+    const item = await lockItem(em, id)
     const [stock] = await em.query(
       'SELECT COALESCE(SUM(on_hand), 0) AS onHand, COALESCE(SUM(reserved), 0) AS reserved FROM stock_balances WHERE item_id = ?',
       [id],

@@ -14,6 +14,7 @@ import { columnOf, ITEM_COLUMNS, ITEM_IMPORT_SPEC } from './catalogSheet.js'
 import type { ImportRow, ParsedSheet, RowIssue } from './imports/importTypes.js'
 import { parseSpreadsheet } from './imports/spreadsheetParser.js'
 import type { GuardedUpload } from './imports/uploadGuard.js'
+import { versionBumpIfChanged } from '../db/versionBump.js'
 
 interface CheckedRow {
   preview: ImportPreviewRow
@@ -108,7 +109,9 @@ const WRITE_COLUMNS = ITEM_COLUMNS.map((c) => c.key)
 async function writeItems(em: EntityManager, inputs: ItemInput[]): Promise<void> {
   const columns = WRITE_COLUMNS.map(columnOf)
   const tuple = `(${columns.map(() => '?').join(', ')})`
-  const updates = columns.filter((c) => c !== 'sku').map((c) => `${c} = VALUES(${c})`).join(', ')
+  const changing = columns.filter((c) => c !== 'sku')
+  // A changed item moves to its next version first, so an edit screen opened before the import cannot write over it.
+  const updates = [versionBumpIfChanged(changing), ...changing.map((c) => `${c} = VALUES(${c})`)].join(', ')
   for (let i = 0; i < inputs.length; i += 500) {
     const chunk = inputs.slice(i, i + 500).map((input) => {
       const values = itemColumns(input) as Record<string, unknown>

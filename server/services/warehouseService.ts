@@ -11,9 +11,10 @@ import { Bin } from '../entities/Bin.js'
 import { Warehouse } from '../entities/Warehouse.js'
 import { AppError, problem } from '../errors.js'
 import { audit, type AuditActor } from './auditService.js'
+import { lockAtVersion } from './editVersion.js'
 
 function toWarehouseRow(w: Warehouse, bins: number): WarehouseRow {
-  return { id: w.id, code: w.code, name: w.name, address: w.address, binPattern: w.binPattern, aisleOrder: w.aisleOrder, walkDirection: w.walkDirection, active: w.active, bins }
+  return { id: w.id, code: w.code, name: w.name, address: w.address, binPattern: w.binPattern, aisleOrder: w.aisleOrder, walkDirection: w.walkDirection, active: w.active, bins, version: w.version }
 }
 
 export async function listWarehouses(ds: DataSource): Promise<WarehouseRow[]> {
@@ -74,10 +75,13 @@ async function checkPatternFits(em: EntityManager, warehouseId: number, pattern:
   }
 }
 
-export async function updateWarehouse(ds: DataSource, actor: AuditActor, id: number, patch: WarehousePatch): Promise<WarehouseRow> {
+export async function updateWarehouse(ds: DataSource, actor: AuditActor, id: number, { version, ...patch }: WarehousePatch): Promise<WarehouseRow> {
   try {
     return await inTransaction(ds, async (em) => {
-      const w = await findWarehouse(em, id, true)
+      const w = await lockAtVersion(em, Warehouse, id, version, {
+        notFound: () => AppError.notFound('warehouse_not_found', 'That warehouse was not found.'),
+        name: (row) => row.code,
+      })
       if (patch.binPattern !== undefined && patch.binPattern !== w.binPattern) await checkPatternFits(em, id, patch.binPattern)
       const changes = Object.fromEntries(Object.entries(patch).filter(([, v]) => v !== undefined))
       if (Object.keys(changes).length) await em.update(Warehouse, { id }, changes)

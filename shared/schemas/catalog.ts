@@ -7,6 +7,7 @@ import { isValidGtin, normalizeGtin } from '../barcode/checkDigit.js'
 import { skuIssue } from '../barcode/scan.js'
 import { BLOCK_SHAPES, ITEM_FAMILIES, STOCK_UNITS, THICKNESS_CLASSES } from '../catalog.js'
 import { MM_PER_INCH } from '../units.js'
+import { seenVersionSchema } from './seenVersion.js'
 
 /** IRC 2021 R607.3: least thickness of standard (3 7/8 in) and thin (3 1/8 in) glass units, mm. */
 export const LEAST_THICKNESS_MM = { standard: 3.875 * MM_PER_INCH, thin: 3.125 * MM_PER_INCH } as const
@@ -121,8 +122,11 @@ export const itemSchema = itemFields.superRefine((v, ctx) => {
 })
 export type ItemInput = z.infer<typeof itemSchema>
 
-/** A change to some fields; the server checks the merged item with itemSchema. */
-export const itemPatchSchema = itemFields.partial()
+/**
+ * A change to some fields, made on the item as the screen loaded it (`version`: a change saved meanwhile is
+ * refused); the server checks the merged item with itemSchema.
+ */
+export const itemPatchSchema = itemFields.partial().extend({ version: seenVersionSchema })
 export type ItemPatch = z.infer<typeof itemPatchSchema>
 
 export const ITEM_SORTS = ['sku', 'name', 'family', 'listPrice', 'onHand'] as const
@@ -176,6 +180,8 @@ export type ItemRecord = Required<{ [K in keyof ItemFields]: Exclude<ItemFields[
   id: number
   createdAt: string
   updatedAt: string
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 /** An item as a reader sees it: the standard cost is absent for roles that do not see costs. */

@@ -1,6 +1,7 @@
 // Selling prices: price levels, item price rules (quantity breaks, case prices), sales tax per warehouse,
 // accounts' terms, and the counter's "how much?". The admin's forms validate with these same schemas.
 import { z } from 'zod'
+import { seenVersionSchema } from './seenVersion.js'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import type { DocumentTax } from '../pricing/salesTax.js'
 import type { ResolvedPrice } from '../pricing/sellingPrice.js'
@@ -29,6 +30,10 @@ export const priceLevelInputSchema = z.object({
 })
 export type PriceLevelInput = z.infer<typeof priceLevelInputSchema>
 
+/** Changing a price level, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const priceLevelUpdateSchema = priceLevelInputSchema.extend({ version: seenVersionSchema })
+export type PriceLevelUpdateInput = z.infer<typeof priceLevelUpdateSchema>
+
 export interface PriceLevelSummary {
   id: number
   code: string
@@ -37,6 +42,8 @@ export interface PriceLevelSummary {
   active: boolean
   accounts: number
   rules: number
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 export const priceRuleInputSchema = z

@@ -54,7 +54,8 @@ export const vendorCreateSchema = z.object({
 })
 export type VendorCreateInput = z.infer<typeof vendorCreateSchema>
 
-export const vendorUpdateSchema = vendorCreateSchema.partial()
+/** Changing a vendor, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const vendorUpdateSchema = vendorCreateSchema.partial().extend({ version: seenVersionSchema })
 export type VendorUpdateInput = z.infer<typeof vendorUpdateSchema>
 
 export const vendorItemSchema = z.object({
@@ -67,7 +68,8 @@ export const vendorItemSchema = z.object({
   preferred: z.boolean().default(false),
 })
 export type VendorItemInput = z.infer<typeof vendorItemSchema>
-export const vendorItemUpdateSchema = vendorItemSchema.omit({ itemId: true }).partial()
+/** Changing what a vendor sells, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const vendorItemUpdateSchema = vendorItemSchema.omit({ itemId: true }).partial().extend({ version: seenVersionSchema })
 export type VendorItemUpdateInput = z.infer<typeof vendorItemUpdateSchema>
 
 // ---- purchase orders ----

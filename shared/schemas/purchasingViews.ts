@@ -16,6 +16,8 @@ export interface VendorView {
   leadTimeDays: number
   active: boolean
   itemCount: number
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 export interface VendorItemView {
@@ -31,6 +33,8 @@ export interface VendorItemView {
   unitCost: string
   leadTimeDays: number | null
   preferred: boolean
+  /** Goes up with every change (a price list taken in, another vendor made preferred); an edit sends the version it loaded. */
+  version: number
 }
 
 export interface ItemChoice {

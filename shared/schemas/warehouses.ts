@@ -1,5 +1,6 @@
 // Warehouses and bins: the admin forms, the bulk bin range and the API share these.
 import { z } from 'zod'
+import { seenVersionSchema } from './seenVersion.js'
 import { issueCode, issueOf } from '../errors/zodProblems.js'
 import { BIN_CODE_PATTERN } from '../barcode/scan.js'
 import { problem, type Problem } from '../errors/errorCodes.js'
@@ -52,7 +53,8 @@ export const warehouseSchema = z.object({
   active: z.boolean().optional(),
 })
 export type WarehouseInput = z.infer<typeof warehouseSchema>
-export const warehousePatchSchema = warehouseSchema.partial()
+/** Changing a warehouse, as the screen loaded it (`version`: a change saved meanwhile is refused). */
+export const warehousePatchSchema = warehouseSchema.partial().extend({ version: seenVersionSchema })
 export type WarehousePatch = z.infer<typeof warehousePatchSchema>
 
 export const binCodeSchema = z.preprocess(
@@ -138,6 +140,8 @@ export interface WarehouseRow {
   walkDirection: 'serpentine' | 'oneWay'
   active: boolean
   bins: number
+  /** Goes up with every change; an edit sends the version it loaded. */
+  version: number
 }
 
 export interface WarehouseDetail {
@@ -170,6 +174,7 @@ export const warehouseRowSchema: z.ZodType<WarehouseRow> = z.object({
   walkDirection: z.enum(['serpentine', 'oneWay']),
   active: z.boolean(),
   bins: z.number().int(),
+  version: z.number().int(),
 })
 export const warehouseDetailSchema: z.ZodType<WarehouseDetail> = z.object({ warehouse: warehouseRowSchema, bins: z.array(binRowSchema) })
 export const binRangeResultSchema: z.ZodType<BinRangeResult> = z.object({ created: z.number().int(), skipped: z.array(z.string()) })

@@ -7,7 +7,7 @@ import { okShape, poMailedShape } from '@shared/schemas/answers/changes'
 import { customerTermsSummaryShape, priceLevelSummaryShape, priceRuleSummaryShape, taxRateSummaryShape } from '@shared/schemas/answers/pricing'
 import { companyProfileShape, purchasingSettingsShape } from '@shared/schemas/answers/purchasing'
 import { outboxSummaryShape } from '@shared/schemas/answers/purchasingViews'
-import { customerTermsInputSchema, priceLevelInputSchema, priceRuleInputSchema, taxRateInputSchema } from '@shared/schemas/pricing'
+import { customerTermsInputSchema, priceLevelInputSchema, priceLevelUpdateSchema, priceRuleInputSchema, taxRateInputSchema } from '@shared/schemas/pricing'
 import { companyProfileSchema, purchasingSettingsSchema } from '@shared/schemas/purchasing'
 import { salesSettingsShape } from '@shared/schemas/answers/salesOrders'
 import { salesSettingsSchema } from '@shared/schemas/salesOrders'
@@ -48,7 +48,7 @@ export const salesPolicyApi = {
 export const pricingApi = {
   levels: () => api.get('/pricing/levels', { answer: z.array(priceLevelSummaryShape) }),
   createLevel: (body: BodyOf<typeof priceLevelInputSchema>) => api.post('/pricing/levels', body, { answer: priceLevelSummaryShape }),
-  updateLevel: (id: Id, body: BodyOf<typeof priceLevelInputSchema>) => api.put(`/pricing/levels/${id}`, body, { answer: priceLevelSummaryShape }),
+  updateLevel: (id: Id, body: BodyOf<typeof priceLevelUpdateSchema>) => api.put(`/pricing/levels/${id}`, body, { answer: priceLevelSummaryShape }),
   removeLevel: (id: Id) => api.delete(`/pricing/levels/${id}`, { answer: okShape }),
   /** 'all': rules for every account; a level's id: that level's; nothing: every rule. */
   rules: (levelId?: number | 'all') => api.get(`/pricing/rules${toQuery({ levelId })}`, { answer: z.array(priceRuleSummaryShape) }),

@@ -152,16 +152,16 @@ describe('changing the catalog', () => {
   it('updates an item and re-checks the whole item', async () => {
     const admin = await h.as('admin')
     const created = (await admin.post('/api/items').set(CSRF).send(blockBody('UPD'))).body as ItemRecord
-    const renamed = await admin.patch(`/api/items/${created.id}`).set(CSRF).send({ name: 'Renamed test block', listPrice: '14.50' })
+    const renamed = await admin.patch(`/api/items/${created.id}`).set(CSRF).send({ version: created.version, name: 'Renamed test block', listPrice: '14.50' })
     expect(renamed.status).toBe(200)
     expect(renamed.body.name).toBe('Renamed test block')
     expect(renamed.body.listPrice).toBe('14.50')
-    const bad = await admin.patch(`/api/items/${created.id}`).set(CSRF).send({ depthMm: '79.38' }) // thin-unit depth on a standard unit
+    const bad = await admin.patch(`/api/items/${created.id}`).set(CSRF).send({ version: renamed.body.version, depthMm: '79.38' }) // thin-unit depth on a standard unit
     expect(bad.status).toBe(400)
     expect(bad.body.error.fields.depthMm).toBeDefined()
     const [row] = await h.ds.query('SELECT depth_mm FROM items WHERE id = ?', [created.id])
     expect(row.depth_mm).toBe('98.43')
-    expect((await (await h.as('buyer')).patch(`/api/items/${created.id}`).set(CSRF).send({ name: 'x' })).status).toBe(403)
+    expect((await (await h.as('buyer')).patch(`/api/items/${created.id}`).set(CSRF).send({ version: renamed.body.version, name: 'x' })).status).toBe(403)
   })
 
   it('deactivates with an audit entry, but not while stock is held for a pick list', async () => {

@@ -76,8 +76,13 @@ describe('importing items', () => {
     expect(await itemCount()).toBe(before + 2)
     const [b] = await h.ds.query('SELECT gtin, case_qty, cost FROM items WHERE sku = ?', [sku('B')])
     expect(b).toEqual({ gtin: `0${GTIN13}`, case_qty: 25, cost: '2.1500' })
-    const [updated] = await h.ds.query('SELECT name, list_price, cartridge_ml FROM items WHERE id = ?', [existing.id])
+    const [updated] = await h.ds.query('SELECT name, list_price, cartridge_ml, version FROM items WHERE id = ?', [existing.id])
     expect(updated.name).toBe('Test sealant, updated')
+    // The import moved the item to its next version: an edit screen opened before it is refused, not written over it.
+    expect(Number(updated.version)).toBe(existing.version + 1)
+    const stale = await (await h.as('admin')).patch(`/api/items/${existing.id}`).set(CSRF).send({ version: existing.version, name: 'Typed before the import' })
+    expect(stale.status).toBe(409)
+    expect(stale.body.error.code).toBe('changed_meanwhile')
     expect(updated.list_price).toBe('12.45')
     expect(updated.cartridge_ml).toBe('298.70') // a column absent from the file keeps its value
     const [entry] = await h.ds.query("SELECT detail FROM audit_entries WHERE action = 'item.import' ORDER BY id DESC LIMIT 1")

@@ -54,6 +54,9 @@ describe('vendor price-list import', () => {
 
   it('commits a clean list: adds new items, updates existing ones and keeps one preferred vendor per item', async () => {
     const csv = [HEADER.slice(0, 6).join(','), `${f.block.sku},NB-GB8,2.4400,40,80,yes`, `${f.sealant.sku},NB-S2,6.05,,,`].join('\r\n')
+    const versions = async () => new Map(((await h.ds.query('SELECT id, version FROM vendor_items WHERE item_id IN (?, ?)', [f.block.id, f.sealant.id])) as { id: number; version: number }[])
+      .map((r) => [r.id, Number(r.version)]))
+    const before = await versions()
     const res = await upload('commit', Buffer.from(csv, 'utf8'), 'prices.csv')
     expect(res.status, JSON.stringify(res.body)).toBe(200)
     expect(res.body).toMatchObject({ total: 2, adds: 1, updates: 1, errorRows: 0 })
@@ -63,8 +66,15 @@ describe('vendor price-list import', () => {
       // pack and minimum absent from the file: the existing values stay (10 and 10)
       { item_id: f.sealant.id, vendor_sku: 'NB-S2', pack_qty: 10, min_order_qty: 10, unit_cost: '6.0500', preferred: 1 },
     ])
-    const [other] = await h.ds.query('SELECT preferred FROM vendor_items WHERE vendor_id = ? AND item_id = ?', [f.vendorA, f.block.id])
+    const [other] = await h.ds.query('SELECT id, preferred FROM vendor_items WHERE vendor_id = ? AND item_id = ?', [f.vendorA, f.block.id])
     expect(other.preferred).toBe(0)
+    // Every line the list changed (its own updated line, the other vendor's line no longer preferred) moved to its next
+    // version, so an edit screen opened before the list came in is refused rather than writing over it.
+    const [updated] = await h.ds.query('SELECT id FROM vendor_items WHERE vendor_id = ? AND item_id = ?', [f.vendorB, f.sealant.id])
+    const after = await versions()
+    expect(before.has(updated.id) && before.has(other.id)).toBe(true)
+    expect(after.get(updated.id)).toBe(before.get(updated.id)! + 1)
+    expect(after.get(other.id)).toBe(before.get(other.id)! + 1)
   })
 
   it('refuses a file that is not what its name says, unknown columns, and other roles', async () => {

@@ -21,7 +21,7 @@ describe('vendors', () => {
     })
     expect(created.status, JSON.stringify(created.body)).toBe(201)
     expect(created.body).toMatchObject({ code: `KV${f.tag}`, currency: 'CAD', leadTimeDays: 21, active: true, itemCount: 0, phone: null })
-    const edited = await buyer.patch(`/api/vendors/${created.body.id}`).set(CSRF).send({ email: '', leadTimeDays: 10 })
+    const edited = await buyer.patch(`/api/vendors/${created.body.id}`).set(CSRF).send({ version: created.body.version, email: '', leadTimeDays: 10 })
     expect(edited.body).toMatchObject({ email: null, leadTimeDays: 10 })
     const dup = await buyer.post('/api/vendors').set(CSRF).send({ code: `KV${f.tag}`, name: 'Copy' })
     expect(dup.status).toBe(409)
@@ -57,15 +57,15 @@ describe('vendor items', () => {
     expect(prefs).toEqual([{ vendor_id: f.vendorA, preferred: 0 }, { vendor_id: f.vendorB, preferred: 1 }])
     const again = await buyer.post(`/api/vendors/${f.vendorB}/items`).set(CSRF).send({ itemId: f.block.id, vendorSku: 'X', packQty: 1, minOrderQty: 1, unitCost: '1' })
     expect(again.status).toBe(409)
-    const edited = await buyer.patch(`/api/vendors/${f.vendorB}/items/${added.body.id}`).set(CSRF).send({ unitCost: '2.41', preferred: false })
+    const edited = await buyer.patch(`/api/vendors/${f.vendorB}/items/${added.body.id}`).set(CSRF).send({ version: added.body.version, unitCost: '2.41', preferred: false })
     expect(edited.body).toMatchObject({ unitCost: '2.4100', preferred: false })
     const list = await buyer.get(`/api/vendors/${f.vendorB}/items`)
     expect(list.body.map((v: { sku: string }) => v.sku)).toContain(f.block.sku)
     expect((await buyer.delete(`/api/vendors/${f.vendorB}/items/${added.body.id}`).set(CSRF)).status).toBe(200)
     expect((await buyer.delete(`/api/vendors/${f.vendorB}/items/${added.body.id}`).set(CSRF)).status).toBe(404)
     // an item of another vendor can't be reached through this vendor
-    const [other] = await h.ds.query('SELECT id FROM vendor_items WHERE vendor_id = ? LIMIT 1', [f.vendorA])
-    expect((await buyer.patch(`/api/vendors/${f.vendorB}/items/${other.id}`).set(CSRF).send({ unitCost: '1' })).status).toBe(404)
+    const [other] = await h.ds.query('SELECT id, version FROM vendor_items WHERE vendor_id = ? LIMIT 1', [f.vendorA])
+    expect((await buyer.patch(`/api/vendors/${f.vendorB}/items/${other.id}`).set(CSRF).send({ version: Number(other.version), unitCost: '1' })).status).toBe(404)
   })
 
   it('refuses bad packs, costs and unknown items with field messages, writing nothing', async () => {

@@ -179,3 +179,140 @@ describe('a job changed from two screens', () => {
     expect((await row('SELECT site_address AS siteAddress FROM jobs WHERE id = ?', jobId)).siteAddress).toBe('90 Mill Road')
   })
 })
+
+/**
+ * One record's two edit screens: both load the same version; the first save wins and moves the record to the next
+ * version, the second (made on the older one) is refused with 409 changed_meanwhile naming the record and writes
+ * nothing (read back from MariaDB), a save without the version is a 400, and a save on the version read after the
+ * first succeeds.
+ */
+interface StaleTrial {
+  /** Who edits the record. */
+  role: 'admin' | 'buyer'
+  /**
+   * Makes the record; answers its id and save address, how a screen reads its version, how the refusal names it, and
+   * what every save sends besides its changes (a PUT sends the whole record).
+   */
+  make: (agent: supertest.Agent) => Promise<{ id: number; path: string; read: () => Promise<number>; name: string; whole?: Record<string, unknown> }>
+  method: 'patch' | 'put'
+  /** The two screens' changes. */
+  tabA: Record<string, unknown>
+  tabB: Record<string, unknown>
+  /** The changed columns and the version, read straight from the table (`?` is the record's id). */
+  stored: string
+  /** What the stored columns hold after tab A's save, and after tab B's save on the fresh version. */
+  afterA: Record<string, unknown>
+  afterB: Record<string, unknown>
+}
+
+function staleTrial(title: string, trial: StaleTrial) {
+  describe(title, () => {
+    it('keeps the first change, refuses the second made on the same loaded version (409) and one without a version (400)', async () => {
+      const agent = await h.as(trial.role)
+      const { path, read, name, id, whole } = await trial.make(agent)
+      const save = (body: Record<string, unknown>) => agent[trial.method](path).set(CSRF).send({ ...whole, ...body })
+      const screenA = await read()
+      const screenB = await read()
+      const first = await save({ ...trial.tabA, version: screenA })
+      expect(first.status, JSON.stringify(first.body)).toBe(200)
+      expect(await read()).toBe(screenA + 1)
+      const second = await save({ ...trial.tabB, version: screenB })
+      expect(second.status).toBe(409)
+      expect(second.body.error).toMatchObject({ code: 'changed_meanwhile', params: { name } })
+      const bare = await save(trial.tabB)
+      expect(bare.status).toBe(400)
+      expect(bare.body.error.fields.version).toBeTruthy()
+      const { version, ...columns } = await row(trial.stored, id)
+      expect(columns).toEqual(trial.afterA)
+      expect(Number(version)).toBe(screenA + 1)
+      const again = await save({ ...trial.tabB, version: await read() })
+      expect(again.status, JSON.stringify(again.body)).toBe(200)
+      const { version: last, ...now } = await row(trial.stored, id)
+      expect(now).toEqual(trial.afterB)
+      expect(Number(last)).toBe(screenA + 2)
+    })
+  })
+}
+
+const created = async (res: supertest.Response) => {
+  expect(res.status, JSON.stringify(res.body)).toBe(201)
+  return res.body as { id: number }
+}
+
+staleTrial('a catalog item changed from two screens', {
+  role: 'admin',
+  method: 'patch',
+  make: async (admin) => {
+    const sku = `SE-${fx.tag}`
+    const { id } = await created(await admin.post('/api/items').set(CSRF)
+      .send({ sku, name: 'Clear sealant', family: 'sealant', stockUnit: 'each', cost: '6.2500', listPrice: '11.50', cartridgeMl: '300' }))
+    return { id, name: sku, path: `/api/items/${id}`, read: async () => (await admin.get(`/api/items/${id}`)).body.item.version }
+  },
+  tabA: { listPrice: '12.25' },
+  tabB: { listPrice: '9.99', name: 'Grey sealant' },
+  stored: 'SELECT name, list_price AS listPrice, version FROM items WHERE id = ?',
+  afterA: { name: 'Clear sealant', listPrice: '12.25' },
+  afterB: { name: 'Grey sealant', listPrice: '9.99' },
+})
+
+staleTrial('a vendor changed from two screens', {
+  role: 'buyer',
+  method: 'patch',
+  make: async (buyer) => {
+    const { id } = await created(await buyer.post('/api/vendors').set(CSRF).send({ code: `SEV${fx.tag}`, name: 'Tidewater Block Supply' }))
+    return { id, name: 'Tidewater Block Supply', path: `/api/vendors/${id}`, read: async () => (await buyer.get(`/api/vendors/${id}`)).body.version }
+  },
+  tabA: { leadTimeDays: 10 },
+  tabB: { leadTimeDays: 30, terms: 'Net 60' },
+  stored: 'SELECT lead_time_days AS leadTimeDays, terms, version FROM vendors WHERE id = ?',
+  afterA: { leadTimeDays: 10, terms: null },
+  afterB: { leadTimeDays: 30, terms: 'Net 60' },
+})
+
+staleTrial('what a vendor sells, changed from two screens', {
+  role: 'buyer',
+  method: 'patch',
+  make: async (buyer) => {
+    const vendor = await created(await buyer.post('/api/vendors').set(CSRF).send({ code: `SEI${fx.tag}`, name: 'Saltmarsh Glass' }))
+    const { id } = await created(await buyer.post(`/api/vendors/${vendor.id}/items`).set(CSRF)
+      .send({ itemId: sales.block.id, vendorSku: 'SM-0808', packQty: 8, minOrderQty: 8, unitCost: '7.2000' }))
+    const read = async () => ((await buyer.get(`/api/vendors/${vendor.id}/items`)).body as { id: number; version: number }[]).find((l) => l.id === id)!.version
+    return { id, name: 'SM-0808', path: `/api/vendors/${vendor.id}/items/${id}`, read }
+  },
+  tabA: { unitCost: '7.0500' },
+  tabB: { unitCost: '6.5000', packQty: 10 },
+  stored: 'SELECT unit_cost AS unitCost, pack_qty AS packQty, version FROM vendor_items WHERE id = ?',
+  afterA: { unitCost: '7.0500', packQty: 8 },
+  afterB: { unitCost: '6.5000', packQty: 10 },
+})
+
+staleTrial('a warehouse changed from two screens', {
+  role: 'admin',
+  method: 'patch',
+  make: async (admin) => {
+    const code = `W${fx.tag}`.slice(0, 10)
+    const { id } = await created(await admin.post('/api/warehouses').set(CSRF).send({ code, name: 'Quarry Road Yard' }))
+    return { id, name: code.toUpperCase(), path: `/api/warehouses/${id}`, read: async () => (await admin.get(`/api/warehouses/${id}`)).body.warehouse.version }
+  },
+  tabA: { address: '2 Quarry Road' },
+  tabB: { address: '88 Ferry Street', walkDirection: 'oneWay' },
+  stored: 'SELECT address, walk_direction AS walkDirection, version FROM warehouses WHERE id = ?',
+  afterA: { address: '2 Quarry Road', walkDirection: 'serpentine' },
+  afterB: { address: '88 Ferry Street', walkDirection: 'oneWay' },
+})
+
+staleTrial('a price level changed from two screens', {
+  role: 'admin',
+  method: 'put',
+  make: async (admin) => {
+    const code = `SE-${fx.tag}`.toUpperCase()
+    const { id } = await created(await admin.post('/api/pricing/levels').set(CSRF).send({ code, name: 'Trade', percentOff: '10' }))
+    const read = async () => ((await admin.get('/api/pricing/levels')).body as { id: number; version: number }[]).find((l) => l.id === id)!.version
+    return { id, name: code, path: `/api/pricing/levels/${id}`, read, whole: { code, active: true } }
+  },
+  tabA: { name: 'Trade', percentOff: '12' },
+  tabB: { name: 'Trade plus', percentOff: '15' },
+  stored: 'SELECT name, percent_off AS percentOff, version FROM price_levels WHERE id = ?',
+  afterA: { name: 'Trade', percentOff: '12.00' },
+  afterB: { name: 'Trade plus', percentOff: '15.00' },
+})

@@ -148,10 +148,10 @@ describe('bins', () => {
   it('refuses a new bin pattern that existing bins do not fit', async () => {
     const admin = await h.as('admin')
     const hry = ((await admin.get('/api/warehouses')).body as WarehouseRow[]).find((w) => w.code === 'HRY')!
-    const res = await admin.patch(`/api/warehouses/${hry.id}`).set(CSRF).send({ binPattern: '^(?<aisle>[A-Z])(?<bay>\\d{3})(?<level>\\d)$' })
+    const res = await admin.patch(`/api/warehouses/${hry.id}`).set(CSRF).send({ version: hry.version, binPattern: '^(?<aisle>[A-Z])(?<bay>\\d{3})(?<level>\\d)$' })
     expect(res.status).toBe(400)
     expect(res.body.error.fields.binPattern).toMatchObject({ code: 'bin_pattern_misfits', params: { bins: expect.arrayContaining(['A-01-1']) } })
-    const renamed = await admin.patch(`/api/warehouses/${hry.id}`).set(CSRF).send({ name: 'Harbor Road Yard' })
+    const renamed = await admin.patch(`/api/warehouses/${hry.id}`).set(CSRF).send({ version: hry.version, name: 'Harbor Road Yard' })
     expect(renamed.status).toBe(200)
     expect(renamed.body.binPattern).toBe(hry.binPattern)
   })

@@ -7,6 +7,7 @@ import type {
   CustomerTermsSummary,
   PriceLevelInput,
   PriceLevelSummary,
+  PriceLevelUpdateInput,
   PriceRuleInput,
   PriceRuleSummary,
   TaxRateInput,
@@ -20,13 +21,14 @@ import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { SqlWhere } from '../../db/sqlWhere.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 
 const levelNotFound = () => AppError.notFound('price_level_not_found', 'That price level was not found.')
 const levelTaken = () => AppError.conflict('price_level_code_taken', 'Another price level uses that code.', { fields: { code: problem('price_level_code_taken') } })
 
 export async function listPriceLevels(ds: DataSource): Promise<PriceLevelSummary[]> {
   const rows: Record<string, string | number | null>[] = await ds.query(
-    `SELECT l.id, l.code, l.name, l.percent_off AS percentOff, l.active,
+    `SELECT l.id, l.code, l.name, l.percent_off AS percentOff, l.active, l.version,
             (SELECT COUNT(*) FROM customer_terms t WHERE t.price_level_id = l.id) AS accounts,
             (SELECT COUNT(*) FROM price_rules r WHERE r.level_id = l.id) AS rules
        FROM price_levels l ORDER BY l.active DESC, l.code`,
@@ -39,6 +41,7 @@ export async function listPriceLevels(ds: DataSource): Promise<PriceLevelSummary
     active: Number(r.active) === 1,
     accounts: Number(r.accounts),
     rules: Number(r.rules),
+    version: Number(r.version),
   }))
 }
 
@@ -62,11 +65,10 @@ export async function createPriceLevel(ds: DataSource, actor: AuditActor, input:
   }
 }
 
-export async function updatePriceLevel(ds: DataSource, actor: AuditActor, id: number, input: PriceLevelInput): Promise<PriceLevelSummary> {
+export async function updatePriceLevel(ds: DataSource, actor: AuditActor, id: number, { version, ...input }: PriceLevelUpdateInput): Promise<PriceLevelSummary> {
   try {
     await inTransaction(ds, async (em) => {
-      const level = await em.findOne(PriceLevel, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!level) throw levelNotFound()
+      const level = await lockAtVersion(em, PriceLevel, id, version, { notFound: levelNotFound, name: (row) => row.code })
       const before = { code: level.code, name: level.name, percentOff: level.percentOff, active: level.active }
       await em.update(PriceLevel, { id }, input)
       await audit(em, actor, 'price_level.update', 'price_level', id, { before, after: input })

@@ -17,6 +17,7 @@ import type { ImportRow, ImportSpec, ParsedSheet } from '../imports/importTypes.
 import { parseSpreadsheet } from '../imports/spreadsheetParser.js'
 import type { GuardedUpload } from '../imports/uploadGuard.js'
 import { findVendor } from './vendorService.js'
+import { versionBumpIfChanged } from '../../db/versionBump.js'
 
 export const PRICE_LIST_SPEC: ImportSpec = {
   columns: [
@@ -104,16 +105,19 @@ export async function previewPriceList(ds: DataSource, vendorId: number, upload:
   return summarise(upload.filename, await checkSheet(ds.manager, vendorId, sheet))
 }
 
+const LINE_COLUMNS = ['vendor_sku', 'pack_qty', 'min_order_qty', 'unit_cost', 'lead_time_days', 'preferred']
+/** A changed line moves to its next version first, so an edit screen opened before the list came in cannot write over it. */
+const LINE_UPDATES = [versionBumpIfChanged(LINE_COLUMNS), ...LINE_COLUMNS.map((c) => `${c} = VALUES(${c})`)].join(', ')
+
 async function writeRows(em: EntityManager, vendorId: number, rows: NonNullable<Checked['write']>[]): Promise<void> {
   for (const r of rows) {
     await em.query(
       `INSERT INTO vendor_items (vendor_id, item_id, vendor_sku, pack_qty, min_order_qty, unit_cost, lead_time_days, preferred)
-       VALUES (?, ?, ?, ?, ?, ?, ?, ?) ON DUPLICATE KEY UPDATE vendor_sku = VALUES(vendor_sku), pack_qty = VALUES(pack_qty),
-       min_order_qty = VALUES(min_order_qty), unit_cost = VALUES(unit_cost), lead_time_days = VALUES(lead_time_days), preferred = VALUES(preferred)`,
+       VALUES (?, ?, ?, ?, ?, ?, ?, ?) ON DUPLICATE KEY UPDATE ${LINE_UPDATES}`,
       [vendorId, r.itemId, r.vendorSku, r.packQty, r.minOrderQty, r.unitCost, r.leadTimeDays, r.preferred ? 1 : 0],
     )
-    // One preferred vendor per item.
-    if (r.preferred) await em.query('UPDATE vendor_items SET preferred = 0 WHERE item_id = ? AND vendor_id <> ?', [r.itemId, vendorId])
+    // One preferred vendor per item (a line no longer preferred moves to its next version too).
+    if (r.preferred) await em.query('UPDATE vendor_items SET preferred = 0, version = version + 1 WHERE item_id = ? AND vendor_id <> ? AND preferred = 1', [r.itemId, vendorId])
   }
 }
 

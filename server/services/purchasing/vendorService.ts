@@ -8,12 +8,13 @@ import { Vendor, VendorItem } from '../../entities/Vendor.js'
 import { inTransaction, isDuplicateKey } from '../../db/transaction.js'
 import { AppError, problem } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
+import { lockAtVersion } from '../editVersion.js'
 import { containsPattern } from '../../db/likePattern.js'
 
 function vendorView(v: Vendor, itemCount: number): VendorView {
   return {
     id: v.id, code: v.code, name: v.name, contactName: v.contactName, email: v.email, phone: v.phone, address: v.address,
-    terms: v.terms, currency: v.currency, leadTimeDays: v.leadTimeDays, active: v.active, itemCount,
+    terms: v.terms, currency: v.currency, leadTimeDays: v.leadTimeDays, active: v.active, itemCount, version: v.version,
   }
 }
 
@@ -51,11 +52,13 @@ export async function createVendor(ds: DataSource, actor: AuditActor, input: Ven
   }
 }
 
-export async function updateVendor(ds: DataSource, actor: AuditActor, id: number, input: VendorUpdateInput): Promise<VendorView> {
+export async function updateVendor(ds: DataSource, actor: AuditActor, id: number, { version, ...input }: VendorUpdateInput): Promise<VendorView> {
   try {
     await inTransaction(ds, async (em) => {
-      const vendor = await em.findOne(Vendor, { where: { id }, lock: { mode: 'pessimistic_write' } })
-      if (!vendor) throw AppError.notFound('vendor_not_found', 'That vendor was not found.')
+      const vendor = await lockAtVersion(em, Vendor, id, version, {
+        notFound: () => AppError.notFound('vendor_not_found', 'That vendor was not found.'),
+        name: (v) => v.name,
+      })
       Object.assign(vendor, input)
       await em.save(vendor)
       await audit(em, actor, 'vendor.update', 'vendor', id, input)
@@ -72,6 +75,7 @@ export async function updateVendor(ds: DataSource, actor: AuditActor, id: number
 interface VendorItemRaw {
   id: number; vendor_id: number; item_id: number; sku: string; item_name: string; stock_unit: string
   vendor_sku: string; pack_qty: number; min_order_qty: number; unit_cost: string; lead_time_days: number | null; preferred: number | boolean
+  version: number
 }
 
 const VENDOR_ITEM_SQL = 'SELECT vi.*, i.sku, i.name AS item_name, i.stock_unit FROM vendor_items vi JOIN items i ON i.id = vi.item_id'
@@ -80,7 +84,7 @@ function vendorItemView(r: VendorItemRaw): VendorItemView {
   return {
     id: r.id, vendorId: r.vendor_id, itemId: r.item_id, sku: r.sku, itemName: r.item_name, stockUnit: r.stock_unit,
     vendorSku: r.vendor_sku, packQty: r.pack_qty, minOrderQty: r.min_order_qty, unitCost: r.unit_cost,
-    leadTimeDays: r.lead_time_days, preferred: Boolean(Number(r.preferred)),
+    leadTimeDays: r.lead_time_days, preferred: Boolean(Number(r.preferred)), version: Number(r.version),
   }
 }
 
@@ -96,9 +100,9 @@ async function vendorItemById(em: EntityManager, vendorId: number, id: number): 
   return vendorItemView(row)
 }
 
-/** One preferred vendor per item: marking one preferred clears the others. */
+/** One preferred vendor per item: marking one preferred clears the others (each cleared line moves to its next version). */
 async function keepOnePreferred(em: EntityManager, itemId: number, vendorItemId: number): Promise<void> {
-  await em.query('UPDATE vendor_items SET preferred = 0 WHERE item_id = ? AND id <> ?', [itemId, vendorItemId])
+  await em.query('UPDATE vendor_items SET preferred = 0, version = version + 1 WHERE item_id = ? AND id <> ? AND preferred = 1', [itemId, vendorItemId])
 }
 
 export async function addVendorItem(ds: DataSource, actor: AuditActor, vendorId: number, input: VendorItemInput): Promise<VendorItemView> {
@@ -118,10 +122,11 @@ export async function addVendorItem(ds: DataSource, actor: AuditActor, vendorId:
   }
 }
 
-export async function updateVendorItem(ds: DataSource, actor: AuditActor, vendorId: number, id: number, input: VendorItemUpdateInput): Promise<VendorItemView> {
+export async function updateVendorItem(ds: DataSource, actor: AuditActor, vendorId: number, id: number, { version, ...input }: VendorItemUpdateInput): Promise<VendorItemView> {
   return inTransaction(ds, async (em) => {
-    const vi = await em.findOne(VendorItem, { where: { id, vendorId }, lock: { mode: 'pessimistic_write' } })
-    if (!vi) throw AppError.notFound('vendor_item_not_found', 'That vendor item was not found.')
+    const notFound = () => AppError.notFound('vendor_item_not_found', 'That vendor item was not found.')
+    if (!(await em.existsBy(VendorItem, { id, vendorId }))) throw notFound()
+    const vi = await lockAtVersion(em, VendorItem, id, version, { notFound, name: (row) => row.vendorSku })
     Object.assign(vi, input)
     await em.save(vi)
     if (vi.preferred) await keepOnePreferred(em, vi.itemId, vi.id)

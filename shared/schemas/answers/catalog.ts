@@ -35,6 +35,7 @@ const itemRecordFields = {
   description: textOrNull,
   createdAt: text,
   updatedAt: text,
+  version: z.number().int(),
 }
 export const itemRecordShape = z.object({ ...itemRecordFields, cost: text }) satisfies z.ZodType<ItemRecord>
 

@@ -10,7 +10,8 @@ export const priceLevelSummaryShape = z.object({
   percentOff: z.string().nullable(),
   active: z.boolean(),
   accounts: z.number(),
-  rules: z.number()
+  rules: z.number(),
+  version: z.number().int(),
 }) satisfies z.ZodType<PriceLevelSummary>
 
 export const priceRuleSummaryShape = z.object({

@@ -17,7 +17,8 @@ export const vendorViewShape = z.object({
   currency: z.string(),
   leadTimeDays: z.number(),
   active: z.boolean(),
-  itemCount: z.number()
+  itemCount: z.number(),
+  version: z.number().int(),
 }) satisfies z.ZodType<VendorView>
 
 export const vendorItemViewShape = z.object({
@@ -32,7 +33,8 @@ export const vendorItemViewShape = z.object({
   minOrderQty: z.number(),
   unitCost: z.string(),
   leadTimeDays: z.number().nullable(),
-  preferred: z.boolean()
+  preferred: z.boolean(),
+  version: z.number().int(),
 }) satisfies z.ZodType<VendorItemView>
 
 export const itemChoiceShape = z.object({

@@ -2,13 +2,14 @@
 // selling-price terms of an account), from the business's own list. New accounts only (a code already in
 // Lumenyard is refused: edit that account on its page), so the import can be reversed whole while none of
 // its accounts has a job.
+import type { EntityManager } from 'typeorm'
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { customerCreateSchema, type CustomerCreateInput } from '../../../shared/schemas/counter.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { cellText, distinctOf, filledCells, headerOf, inChunks, marks, parserProblems, repeatedRows, validDay } from './importFacts.js'
-import type { ImportSpec } from './importTypes.js'
+import type { ImportSpec, ParsedSheet } from './importTypes.js'
 import { insertRows } from './recordsImport.js'
 
 export const ACCOUNTS_SPEC: ImportSpec = {
@@ -43,41 +44,50 @@ type Account = CustomerCreateInput & { priceLevelId: number | null; exemptCertif
 
 const col = headerOf(ACCOUNTS_SPEC)
 
+async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, repeated: ReturnType<typeof repeatedRows>): Promise<CheckedRow<Account>[]> {
+  const codes = distinctOf(sheet, 'code').map((c) => c.toUpperCase())
+  const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0]) as Promise<{ code: string }[]>))
+    .map((r) => r.code.toUpperCase()))
+  const levelRows: { id: number; code: string }[] = await em.query('SELECT id, code FROM price_levels WHERE active = 1')
+  const levels = new Map(levelRows.map((l) => [l.code.toUpperCase(), l.id]))
+  const problemsOf = parserProblems(sheet, col)
+  return sheet.rows.map((r): CheckedRow<Account> => {
+    const errors = problemsOf(r.row)
+    const parsed = customerCreateSchema.safeParse(filledCells(r.values))
+    if (!parsed.success) for (const issue of parsed.error.issues) errors.push({ column: col(String(issue.path[0] ?? '')), problem: zodIssueProblem(issue) })
+    const code = cellText(r.values.code).toUpperCase()
+    if (code && taken.has(code)) errors.push({ column: col('code'), problem: problem('import_code_exists', { code }) })
+    const again = code ? repeated(code, r.row) : null
+    if (again) errors.push(again)
+    const level = cellText(r.values.priceLevel)
+    const priceLevelId = level ? (levels.get(level.toUpperCase()) ?? null) : null
+    if (level && priceLevelId === null) errors.push({ column: col('priceLevel'), problem: problem('import_price_level_unknown', { level }) })
+    const exemptCertificate = cellText(r.values.exemptCertificate) || null
+    if (exemptCertificate && exemptCertificate.length > 40) errors.push({ column: col('exemptCertificate'), problem: problem('too_long', { max: 40 }) })
+    const exemptUntil = cellText(r.values.exemptUntil).slice(0, 10) || null
+    if (exemptUntil && !validDay(exemptUntil)) errors.push({ column: col('exemptUntil'), problem: problem('invalid_date') })
+    const preview = { row: r.row, label: code || null, place: cellText(r.values.name) || null, qty: null, errors }
+    return { preview, write: errors.length || !parsed.success ? null : { ...parsed.data, priceLevelId, exemptCertificate, exemptUntil } }
+  })
+}
+
 export const accountsImport: DataImportDefinition<Account> = {
   kind: 'accounts',
   spec: ACCOUNTS_SPEC,
-  async check(em, sheet) {
-    const codes = distinctOf(sheet, 'code').map((c) => c.toUpperCase())
-    const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)})`, c) as Promise<{ code: string }[]>)).map((r) => r.code.toUpperCase()))
-    const levelRows: { id: number; code: string }[] = await em.query('SELECT id, code FROM price_levels WHERE active = 1')
-    const levels = new Map(levelRows.map((l) => [l.code.toUpperCase(), l.id]))
+  // Each chunk looks up the codes it names (an account a commit's earlier chunks wrote is the file's own, not one
+  // held before); only the codes seen so far carry over, for repeats. Each account is written on its own.
+  checker(em, importId) {
     const repeated = repeatedRows()
-    const problemsOf = parserProblems(sheet, col)
-    return sheet.rows.map((r): CheckedRow<Account> => {
-      const errors = problemsOf(r.row)
-      const parsed = customerCreateSchema.safeParse(filledCells(r.values))
-      if (!parsed.success) for (const issue of parsed.error.issues) errors.push({ column: col(String(issue.path[0] ?? '')), problem: zodIssueProblem(issue) })
-      const code = cellText(r.values.code).toUpperCase()
-      if (code && taken.has(code)) errors.push({ column: col('code'), problem: problem('import_code_exists', { code }) })
-      const again = code ? repeated(code, r.row) : null
-      if (again) errors.push(again)
-      const level = cellText(r.values.priceLevel)
-      const priceLevelId = level ? (levels.get(level.toUpperCase()) ?? null) : null
-      if (level && priceLevelId === null) errors.push({ column: col('priceLevel'), problem: problem('import_price_level_unknown', { level }) })
-      const exemptCertificate = cellText(r.values.exemptCertificate) || null
-      if (exemptCertificate && exemptCertificate.length > 40) errors.push({ column: col('exemptCertificate'), problem: problem('too_long', { max: 40 }) })
-      const exemptUntil = cellText(r.values.exemptUntil).slice(0, 10) || null
-      if (exemptUntil && !validDay(exemptUntil)) errors.push({ column: col('exemptUntil'), problem: problem('invalid_date') })
-      const preview = { row: r.row, label: code || null, place: cellText(r.values.name) || null, qty: null, errors }
-      return { preview, write: errors.length || !parsed.success ? null : { ...parsed.data, priceLevelId, exemptCertificate, exemptUntil } }
-    })
+    return { check: (sheet) => checkChunk(em, importId, sheet, repeated) }
   },
   async write(em, actor, importId, rows) {
     await insertRows(em, 'customers', ['code', 'name', 'contact_name', 'email', 'phone', 'address', 'notes'], importId, rows,
       (a) => [a.code, a.name, a.contactName ?? null, a.email ?? null, a.phone ?? null, a.address ?? null, a.notes ?? null])
     const withTerms = rows.filter((a) => a.priceLevelId !== null || a.exemptCertificate !== null)
     if (withTerms.length) {
-      const ids = new Map(((await em.query('SELECT id, code FROM customers WHERE import_id = ?', [importId])) as { id: number; code: string }[]).map((c) => [c.code, c.id]))
+      const codes = withTerms.map((a) => a.code)
+      const ids = new Map((await inChunks(codes, (c) => em.query(`SELECT id, code FROM customers WHERE import_id = ? AND code IN (${marks(c.length)})`, [importId, ...c]) as Promise<{ id: number; code: string }[]>))
+        .map((c) => [c.code, c.id]))
       for (let i = 0; i < withTerms.length; i += 500) {
         const chunk = withTerms.slice(i, i + 500)
         await em.query(

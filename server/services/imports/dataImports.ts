@@ -20,17 +20,29 @@ export interface CheckedRow<W> {
   write: W | null
 }
 
+/**
+ * One pass's checker: takes the file's rows a chunk at a time, in file order, carrying from chunk to chunk only
+ * what spans them (the rows' keys, for repeats; an order's header, for its lines). A row whose verdict waits on
+ * rows further on may be held back and answered with a later chunk, or by `finish` at the end of the file.
+ */
+export interface ChunkChecker<W> {
+  check(part: ParsedSheet): Promise<CheckedRow<W>[]>
+  finish?(): CheckedRow<W>[]
+}
+
 export interface DataImportDefinition<W> {
   kind: DataImportKind
   spec: ImportSpec
-  /** Every row against the database and the other rows; nothing is written. */
-  check(em: EntityManager, sheet: ParsedSheet): Promise<CheckedRow<W>[]>
   /**
-   * For a kind whose rows can be checked a chunk at a time: a fresh checker for one pass over a file, carrying from
-   * chunk to chunk only what spans them (the rows' keys, for repeats). Without it the file is checked whole.
+   * A fresh checker for one pass over a file; it writes nothing. `importId` is the import a commit is writing (its
+   * rows of earlier chunks are already in the tables: they are the file's own, not records held before), null in a
+   * preview.
    */
-  chunkChecker?(em: EntityManager): (part: ParsedSheet) => Promise<CheckedRow<W>[]>
-  /** Writes the good rows inside the commit's transaction; answers counts for the record. */
+  checker(em: EntityManager, importId: number | null): ChunkChecker<W>
+  /**
+   * Writes good rows inside the commit's transaction, called once per chunk while no row so far has a problem;
+   * answers counts for the record, which add up over the chunks.
+   */
   write(em: EntityManager, actor: AuditActor, importId: number, rows: W[]): Promise<Record<string, number>>
   /** Takes a committed import back whole, or refuses when something else has touched what it wrote. */
   reverse(em: EntityManager, actor: AuditActor, importId: number): Promise<void>
@@ -123,42 +135,49 @@ function tally(keep?: ImportProgress['problems']) {
   }
 }
 
-/**
- * One pass over the upload: its rows cross from the parse worker a chunk at a time and are checked as they come
- * (the whole file at once only for a kind that has no chunk checker); `seen` takes each chunk's checked rows.
- */
-async function checkUpload<W>(
-  em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => Promise<void>, progress?: ImportProgress,
-): Promise<void> {
-  if (def.chunkChecker) {
-    const check = def.chunkChecker(em)
-    await readSpreadsheetInChunks(upload, def.spec, async (part) => {
-      progress?.read(part.rows.length)
-      const checked = await check(part)
-      progress?.checked(checked.length)
-      await seen(checked)
-    })
-    return
-  }
-  const whole: ParsedSheet = { rows: [], issues: [] }
-  await readSpreadsheetInChunks(upload, def.spec, async (part) => {
-    progress?.read(part.rows.length)
-    for (const r of part.rows) whole.rows.push(r)
-    for (const i of part.issues) whole.issues.push(i)
-  })
-  const checked = await def.check(em, whole)
-  progress?.checked(checked.length)
-  await seen(checked)
+/** How a pass reads the file: rows per chunk (the parser's own unless said; tests make it small). */
+export interface PassOptions {
+  chunkRows?: number
 }
 
-export async function previewImport<W>(ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress): Promise<DataImportPreview> {
+/**
+ * One pass over the upload: its rows cross from the parse worker a chunk at a time and are checked as they come;
+ * `seen` takes each chunk's checked rows (and, at the end, any the checker held back) before the next is read.
+ */
+async function checkUpload<W>(
+  em: EntityManager, def: DataImportDefinition<W>, upload: GuardedUpload, seen: (checked: CheckedRow<W>[]) => Promise<void>,
+  importId: number | null, progress?: ImportProgress, options: PassOptions = {},
+): Promise<void> {
+  const checker = def.checker(em, importId)
+  const take = async (checked: CheckedRow<W>[]) => {
+    progress?.checked(checked.length)
+    await seen(checked)
+  }
+  await readSpreadsheetInChunks(upload, def.spec, async (part) => {
+    progress?.read(part.rows.length)
+    await take(await checker.check(part))
+  }, undefined, options.chunkRows)
+  const held = checker.finish?.() ?? []
+  if (held.length) await take(held)
+}
+
+export async function previewImport<W>(
+  ds: DataSource, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress, options?: PassOptions,
+): Promise<DataImportPreview> {
   const seen = tally(progress?.problems)
-  await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked), progress)
+  await checkUpload(ds.manager, def, upload, (checked) => seen.add(checked), null, progress, options)
   const repeatOf = await liveRecord(ds.manager, def.kind, checksumOf(upload.data))
   return seen.preview(def.kind, upload.filename, repeatOf)
 }
 
-export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress): Promise<DataImportResult> {
+/**
+ * Checks and writes in one transaction, a chunk at a time: while no row so far has a problem, each chunk's good
+ * rows are written as soon as they are checked (so the commit holds a chunk, not the file); once a problem is
+ * found nothing more is written, the rest is still checked (every problem counted) and the whole rolls back.
+ */
+export async function commitImport<W>(
+  ds: DataSource, actor: AuditActor, def: DataImportDefinition<W>, upload: GuardedUpload, progress?: ImportProgress, options?: PassOptions,
+): Promise<DataImportResult> {
   const checksum = checksumOf(upload.data)
   return inTransaction(ds, async (em) => {
     // The record first: a second commit of the same file waits on its unique key, then finds it taken.
@@ -172,21 +191,23 @@ export async function commitImport<W>(ds: DataSource, actor: AuditActor, def: Da
       return { ...tally().preview(def.kind, upload.filename, record), total: record.rows, record, repeated: true }
     }
     const importId = inserted.insertId
-    // Of each checked row only what the commit writes is kept (and the counts, and the rows the answer shows).
+    // Of each checked row only the counts and the rows the answer shows are kept; its write goes out with its chunk.
     const seen = tally(progress?.problems)
-    const writes: W[] = []
+    const counts: Record<string, number> = {}
     await checkUpload(em, def, upload, async (checked) => {
       await seen.add(checked)
+      if (seen.counts.errorRows) return
+      const writes: W[] = []
       for (const c of checked) if (c.write !== null && !c.preview.errors.length) writes.push(c.write)
-    }, progress)
+      if (writes.length) for (const [k, n] of Object.entries(await def.write(em, actor, importId, writes))) counts[k] = (counts[k] ?? 0) + n
+      progress?.written(checked.length)
+    }, importId, progress, options)
     const summary = seen.preview(def.kind, upload.filename, null)
     if (summary.errorRows) {
       const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
       throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
     }
     if (!summary.ready) throw AppError.unprocessable('import_nothing_to_write', 'The file holds no rows to import; nothing was imported.')
-    const counts = await def.write(em, actor, importId, writes)
-    progress?.written(summary.total)
     await em.query('UPDATE data_imports SET summary = ?, row_count = ? WHERE id = ?', [JSON.stringify(counts), summary.total, importId])
     await audit(em, actor, 'data_import.commit', 'data_import', importId, { kind: def.kind, file: upload.filename, checksum, rows: summary.total, ...counts })
     return { ...summary, record: await findImport(em, importId), repeated: false }

@@ -94,10 +94,22 @@ export const filledCells = (values: Record<string, CellValue>) => Object.fromEnt
 export const validDay = (t: string) => /^\d{4}-\d{2}-\d{2}$/.test(t) && !Number.isNaN(Date.parse(`${t}T00:00:00Z`)) && new Date(`${t}T00:00:00Z`).toISOString().startsWith(t)
 
 /**
+ * A row's quantity cell (key 'quantity') for its item, when both are there: the quantity read, or null with the
+ * problem noted under the column.
+ */
+export function rowQuantity(cell: unknown, item: ItemFacts | undefined, sku: string, max: number, notes: ProblemNotes): number | null {
+  const qtyText = cellText(cell)
+  if (!qtyText || !item) return null
+  const read = readImportQuantity(qtyText, item, sku, max)
+  if (read.problem) notes.add('quantity', read.problem)
+  return read.qty
+}
+
+/**
  * A quantity cell in the item's stock unit, packs allowed ("3 cases", "1 pallet 2 cases"): the quantity read
  * (null when it can't be) and the problem to report on the row, if any.
  */
-export function readImportQuantity(qtyText: string, item: ItemFacts, sku: string, max: number): { qty: number | null; problem: Problem | null } {
+function readImportQuantity(qtyText: string, item: ItemFacts, sku: string, max: number): { qty: number | null; problem: Problem | null } {
   const read = parsePackQuantity(qtyText, { case: item.case_qty ?? undefined, pallet: item.pallet_qty ?? undefined })
   if (read.ok) return { qty: read.qty, problem: read.qty > max ? problem('at_most', { max }) : null }
   const text = qtyText.slice(0, 40)

@@ -8,7 +8,7 @@ import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, issuesByRow, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, issuesByRow, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, repeatedRows, rowQuantity, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -78,13 +78,7 @@ function checkRows(sheet: ParsedSheet, facts: Awaited<ReturnType<typeof loadFact
     const lotCode = text(r.values.lot) || null
     if (lotCode && !LOT_CODE_PATTERN.test(lotCode)) add('lot', problem('lot_code_chars'))
     if (!lotCode && item && Number(item.match_lot)) add('lot', problem('import_lot_required', { sku }))
-    let qty: number | null = null
-    const qtyText = text(r.values.quantity)
-    if (qtyText && item) {
-      const read = readImportQuantity(qtyText, item, sku, 1_000_000_000)
-      qty = read.qty
-      if (read.problem) add('quantity', read.problem)
-    }
+    const qty = rowQuantity(r.values.quantity, item, sku, 1_000_000_000, { add })
     const cost = typeof r.values.unitCost === 'string' ? r.values.unitCost : null
     if (cost !== null && !bad.has('unitCost')) {
       if (cost.startsWith('-')) add('unitCost', problem('not_negative'))
@@ -132,19 +126,19 @@ async function settleLots(em: EntityManager, rows: Write[]): Promise<number> {
 export const openingStockImport: DataImportDefinition<Write> = {
   kind: 'opening_stock',
   spec: OPENING_STOCK_SPEC,
-  async check(em, sheet) {
-    return checkRows(sheet, await loadFacts(em, sheet), repeatedRows())
-  },
   // Each chunk is looked up on its own; the (item, bin, lot) keys seen so far carry over, for repeats.
-  chunkChecker(em) {
+  checker(em) {
     const repeated = repeatedRows()
-    return async (part) => checkRows(part, await loadFacts(em, part), repeated)
+    return { check: async (part) => checkRows(part, await loadFacts(em, part), repeated) }
   },
+  // A chunk at a time: each chunk's moves blend into the averages the chunks before left (the same steps, in the
+  // same order, as the whole file at once). The cost from before an item × warehouse was first touched is the one
+  // a reversal puts back: a later chunk's (already blended) is not kept.
   async write(em, actor: AuditActor, importId, rows) {
     const lotsCreated = await settleLots(em, rows)
     const { costsBefore } = await bringInOpeningStock(em, actor, rows, { docType: 'data_import', docId: importId })
     await insertRows(em, 'data_import_costs', ['item_id', 'warehouse_id', 'avg_before', 'on_hand_before'], importId, costsBefore,
-      (c) => [c.itemId, c.warehouseId, c.avgBefore, c.onHandBefore], 1000)
+      (c) => [c.itemId, c.warehouseId, c.avgBefore, c.onHandBefore], 1000, 'keepFirst')
     return { lines: rows.length, units: rows.reduce((n, r) => n + r.qty, 0), lotsCreated }
   },
   async reverse(em, actor, importId) {

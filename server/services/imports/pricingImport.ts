@@ -4,7 +4,7 @@ import { problem } from '../../../shared/errors/errorCodes.js'
 import { priceLevelInputSchema, priceRuleInputSchema } from '../../../shared/schemas/pricing.js'
 import type { ImportSpec } from './importTypes.js'
 import { cellText, distinctOf, heldValues, inChunks, itemsBySku, marks, namedItem, type ItemFacts } from './importFacts.js'
-import { insertRows, recordsImport } from './recordsImport.js'
+import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const PRICE_LEVELS_SPEC: ImportSpec = {
   columns: [
@@ -116,8 +116,9 @@ export const priceRulesImport = recordsImport<RuleWrite, { items: Map<string, It
   identityColumn: 'minQty',
   preview: (r, values) => ({ label: r?.sku ?? (cellText(values.sku) || null), place: r ? r.level || null : null, qty: r?.minQty ?? null }),
   async insert(em, importId, rows) {
+    const items = await firstTimeIds(em, 'price_rules', 'item_id', importId, rows.map((r) => r.itemId))
     await insertRows(em, 'price_rules', ['level_id', 'item_id', 'min_qty', 'basis', 'price', 'percent_off'], importId, rows, (r) => [r.levelId, r.itemId, r.minQty, r.basis, r.price, r.percentOff])
-    return { priceRules: rows.length, items: new Set(rows.map((r) => r.itemId)).size }
+    return { priceRules: rows.length, items }
   },
   // Quotes and orders copy their prices, so nothing refers to a rule.
   inUse: async () => null,

@@ -10,8 +10,8 @@ import { problem, type Problem } from '../../../shared/errors/errorCodes.js'
 import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import type { DataImportKind } from '../../../shared/schemas/dataImports.js'
 import { AppError } from '../../errors.js'
-import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { headerOf, parserProblems, repeatedRows } from './importFacts.js'
+import type { CheckedRow, ChunkChecker, DataImportDefinition } from './dataImports.js'
+import { headerOf, inChunks, marks, parserProblems, repeatedRows } from './importFacts.js'
 import type { CellValue, ImportRow, ImportSpec, ParsedSheet } from './importTypes.js'
 
 export interface RowReader {
@@ -50,23 +50,37 @@ export const chunked = async <T>(rows: readonly T[], size: number, each: (chunk:
   for (let i = 0; i < rows.length; i += size) await each(rows.slice(i, i + size))
 }
 
-/** `INSERT INTO table (columns…, import_id) VALUES …` in chunks of `chunk` rows (500 unless said). */
+/**
+ * `INSERT INTO table (columns…, import_id) VALUES …` in chunks of `chunk` rows (500 unless said); with 'keepFirst' a
+ * row whose key is already held is left as it is (the one written first stays; any other fault still throws).
+ */
 export async function insertRows<W>(
   em: EntityManager, table: string, columns: readonly string[], importId: number, rows: readonly W[], values: (w: W) => unknown[], chunk = 500,
+  repeats: 'refuse' | 'keepFirst' = 'refuse',
 ): Promise<void> {
   const row = `(${[...columns, 'import_id'].map(() => '?').join(', ')})`
   await chunked(rows, chunk, (part) => em.query(
-    `INSERT INTO ${table} (${[...columns, 'import_id'].join(', ')}) VALUES ${part.map(() => row).join(', ')}`,
+    `INSERT INTO ${table} (${[...columns, 'import_id'].join(', ')}) VALUES ${part.map(() => row).join(', ')}${repeats === 'keepFirst' ? ' ON DUPLICATE KEY UPDATE import_id = import_id' : ''}`,
     part.flatMap((w) => [...values(w), importId]),
   ))
+}
+
+/**
+ * How many of the ids a chunk is about to write in `column` the import has written none of yet: a count of distinct
+ * ids (warehouses given bins, items given rules) that adds up over the chunks of a commit. Asked before the insert.
+ */
+export async function firstTimeIds(em: EntityManager, table: string, column: string, importId: number, ids: readonly number[]): Promise<number> {
+  const distinct = [...new Set(ids)]
+  const before = await inChunks(distinct, (c) => em.query(`SELECT DISTINCT ${column} AS id FROM ${table} WHERE import_id = ? AND ${column} IN (${marks(c.length)})`, [importId, ...c]) as Promise<{ id: number }[]>)
+  return distinct.length - before.length
 }
 
 export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinition<W> {
   const col = headerOf(def.spec)
   /** A checker for one pass over a file: each chunk's lookups, and the records seen in earlier chunks (for repeats). */
-  const chunkChecker = (em: EntityManager) => {
+  const checker = (em: EntityManager): ChunkChecker<W> => {
     const repeated = repeatedRows()
-    return async (sheet: ParsedSheet): Promise<CheckedRow<W>[]> => {
+    return { check: async (sheet: ParsedSheet): Promise<CheckedRow<W>[]> => {
       const problemsOf = parserProblems(sheet, col)
       const checked: CheckedRow<W>[] = []
       await chunked(sheet.rows, CHECK_CHUNK_ROWS, async (part) => {
@@ -98,13 +112,12 @@ export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinit
         const shown = def.preview(write, r.values)
         return { preview: { row: r.row, label: shown.label, place: shown.place, qty: shown.qty ?? null, errors }, write: errors.length ? null : write }
       }
-    }
+    } }
   }
   return {
     kind: def.kind,
     spec: def.spec,
-    check: (em, sheet) => chunkChecker(em)(sheet),
-    chunkChecker,
+    checker,
     write: (em, _actor, importId, rows) => def.insert(em, importId, rows),
     async reverse(em, _actor, importId) {
       const used = await def.inUse(em, importId)

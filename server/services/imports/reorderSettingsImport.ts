@@ -8,7 +8,7 @@ import { policyUpsertSchema, type PolicyUpsertInput } from '../../../shared/sche
 import { DAY_SECONDS, observedLeadTimeSql } from '../reorder/leadTimes.js'
 import type { CellValue, ImportSpec } from './importTypes.js'
 import { cellText, distinctOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, type ItemFacts, type WarehouseFacts, warehousesByCode } from './importFacts.js'
-import { insertRows, recordsImport } from './recordsImport.js'
+import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const REORDER_SETTINGS_SPEC: ImportSpec = {
   columns: [
@@ -187,8 +187,9 @@ export const leadTimesImport = recordsImport<LeadTimeWrite, LeadTimeFacts>({
   identityColumn: 'order',
   preview: (t, values) => ({ label: t?.sku ?? (cellText(values.sku) || null), place: t ? `${t.vendor} ${t.order}` : null }),
   async insert(em, importId, rows) {
+    const items = await firstTimeIds(em, 'lead_time_history', 'item_id', importId, rows.map((t) => t.itemId))
     await insertRows(em, 'lead_time_history', ['vendor_id', 'item_id', 'order_ref', 'seconds'], importId, rows, (t) => [t.vendorId, t.itemId, t.order, t.seconds])
-    return { leadTimes: rows.length, items: new Set(rows.map((t) => t.itemId)).size }
+    return { leadTimes: rows.length, items }
   },
   inUse: async () => null,
   remove: (em, importId) => em.query('DELETE FROM lead_time_history WHERE import_id = ?', [importId]),

@@ -117,8 +117,11 @@ export async function parseSpreadsheet(upload: GuardedUpload, spec: ImportSpec, 
  * The upload's rows against the spec, handed to `each` a chunk at a time (in sheet order, each row with its own
  * issues); the reading waits while `each` works, so memory follows the chunk, not the file. A file that cannot be
  * read as a whole becomes an AppError (after the chunks read before the problem was found). Answers the rows read.
+ * `chunkRows` is SHEET_CHUNK_ROWS unless said (tests make it small, to put related rows on both sides of a chunk's end).
  */
-export async function readSpreadsheetInChunks(upload: GuardedUpload, spec: ImportSpec, each: (part: ParsedSheet) => Promise<void>, limits?: ParseLimits): Promise<number> {
+export async function readSpreadsheetInChunks(
+  upload: GuardedUpload, spec: ImportSpec, each: (part: ParsedSheet) => Promise<void>, limits?: ParseLimits, chunkRows = SHEET_CHUNK_ROWS,
+): Promise<number> {
   let rows = 0
   const take = async (part: ParsedSheet) => {
     rows += part.rows.length
@@ -128,15 +131,15 @@ export async function readSpreadsheetInChunks(upload: GuardedUpload, spec: Impor
     const outcome = parseCsvRows(upload.data, spec)
     if (!outcome.ok) throw refusal(outcome)
     const { rows: all, issues } = outcome.sheet
-    for (let i = 0; i < all.length; i += SHEET_CHUNK_ROWS) {
-      const part = all.slice(i, i + SHEET_CHUNK_ROWS)
+    for (let i = 0; i < all.length; i += chunkRows) {
+      const part = all.slice(i, i + chunkRows)
       const first = part[0].row
       const last = part[part.length - 1].row
       await take({ rows: part, issues: issues.filter((x) => x.row >= first && x.row <= last) })
     }
     return rows
   }
-  const outcome = await parseInChild({ kind: upload.kind, data: upload.data, spec }, limits, take)
+  const outcome = await parseInChild({ kind: upload.kind, data: upload.data, spec, chunkRows }, limits, take)
   if (!outcome.ok) throw refusal(outcome)
   if (outcome.sheet.rows.length) await take(outcome.sheet)
   return rows

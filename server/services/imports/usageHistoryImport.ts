@@ -7,8 +7,8 @@ import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, readImportQuantity, repeatedRows, warehousesByCode } from './importFacts.js'
-import type { ImportSpec } from './importTypes.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, repeatedRows, rowQuantity, warehousesByCode } from './importFacts.js'
+import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
   columns: [
@@ -50,9 +50,10 @@ function validDay(text: string): boolean {
  * The item, warehouse and periods already held in usage history for these items, as `item:warehouse:YYYY-MM-DD`
  * and `item:warehouse:YYYY-MM` keys.
  */
-async function heldUsage(em: EntityManager, itemIds: number[]): Promise<Set<string>> {
+async function heldUsage(em: EntityManager, itemIds: number[], importId: number | null): Promise<Set<string>> {
   const rows = await inChunks(itemIds, (c) => em.query(
-    `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day FROM usage_history WHERE item_id IN (${marks(c.length)})`, c,
+    `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day FROM usage_history
+      WHERE item_id IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0],
   ) as Promise<{ item_id: number; warehouse_id: number; day: string }[]>)
   const keys = new Set<string>()
   for (const r of rows) {
@@ -62,55 +63,56 @@ async function heldUsage(em: EntityManager, itemIds: number[]): Promise<Set<stri
   return keys
 }
 
+async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, repeated: ReturnType<typeof repeatedRows>): Promise<CheckedRow<Write>[]> {
+  const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
+  const warehouses = await warehousesByCode(em)
+  const today = new Date().toISOString().slice(0, 10)
+  const held = await heldUsage(em, [...new Set([...items.values()].map((i) => i.id))], importId)
+  const problemsOf = parserProblems(sheet, col)
+  return sheet.rows.map((r): CheckedRow<Write> => {
+    const errors = problemsOf(r.row)
+    const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
+    const { sku, item } = namedItem(r.values.sku, items, { add })
+    const { warehouse } = namedWarehouse(r.values.warehouse, warehouses, { add })
+    const dayText = cellText(r.values.day)
+    // A month typed into a spreadsheet often becomes a date (its first day): read its month.
+    const monthText = cellText(r.values.month).slice(0, 7)
+    let when: string | null = null
+    if (dayText && monthText) add('day', problem('import_usage_day_or_month'))
+    else if (!dayText && !monthText) add('day', problem('import_usage_day_or_month'))
+    else if (dayText) {
+      if (!validDay(dayText)) add('day', problem('invalid_date'))
+      else if (dayText > today) add('day', problem('day_after_today', { today }))
+      else when = dayText
+    } else {
+      if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(monthText)) add('month', problem('invalid_date'))
+      else if (`${monthText}-${String(daysInMonth(monthText)).padStart(2, '0')}` > today) add('month', problem('day_after_today', { today }))
+      else when = monthText
+    }
+    const qty = rowQuantity(r.values.quantity, item, sku, 100_000_000, { add })
+    if (item && warehouse && when) {
+      const key = `${item.id}:${warehouse.id}:${when}`
+      const again = repeated(key, r.row)
+      if (again) errors.push(again)
+      // History already held for that day (or any day of that month) is never added to a second time.
+      if (held.has(key)) add(when.length === 7 ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
+    }
+    const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
+    if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
+    const days = when.length === 7 ? spreadOverMonth(when, qty) : [{ date: when, qty }]
+    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days } }
+  })
+}
+
 export const usageHistoryImport: DataImportDefinition<Write> = {
   kind: 'usage_history',
   spec: USAGE_HISTORY_SPEC,
-  async check(em, sheet) {
-    const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
-    const warehouses = await warehousesByCode(em)
-    const today = new Date().toISOString().slice(0, 10)
-    const held = await heldUsage(em, [...new Set([...items.values()].map((i) => i.id))])
+  // Each chunk looks up its own items and the history they already have; only the (item, warehouse, period) keys
+  // seen so far carry over, for repeats. Every row is written on its own, so a chunk's rows go out with it (and the
+  // history a commit's earlier chunks wrote is not held from before).
+  checker(em, importId) {
     const repeated = repeatedRows()
-    const problemsOf = parserProblems(sheet, col)
-    return sheet.rows.map((r): CheckedRow<Write> => {
-      const errors = problemsOf(r.row)
-      const add = (key: string, p: RowProblem['problem']) => errors.push({ column: col(key), problem: p })
-      const { sku, item } = namedItem(r.values.sku, items, { add })
-      const { warehouse } = namedWarehouse(r.values.warehouse, warehouses, { add })
-      const dayText = cellText(r.values.day)
-      // A month typed into a spreadsheet often becomes a date (its first day): read its month.
-      const monthText = cellText(r.values.month).slice(0, 7)
-      let when: string | null = null
-      if (dayText && monthText) add('day', problem('import_usage_day_or_month'))
-      else if (!dayText && !monthText) add('day', problem('import_usage_day_or_month'))
-      else if (dayText) {
-        if (!validDay(dayText)) add('day', problem('invalid_date'))
-        else if (dayText > today) add('day', problem('day_after_today', { today }))
-        else when = dayText
-      } else {
-        if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(monthText)) add('month', problem('invalid_date'))
-        else if (`${monthText}-${String(daysInMonth(monthText)).padStart(2, '0')}` > today) add('month', problem('day_after_today', { today }))
-        else when = monthText
-      }
-      let qty: number | null = null
-      const qtyText = cellText(r.values.quantity)
-      if (qtyText && item) {
-        const read = readImportQuantity(qtyText, item, sku, 100_000_000)
-        qty = read.qty
-        if (read.problem) add('quantity', read.problem)
-      }
-      if (item && warehouse && when) {
-        const key = `${item.id}:${warehouse.id}:${when}`
-        const again = repeated(key, r.row)
-        if (again) errors.push(again)
-        // History already held for that day (or any day of that month) is never added to a second time.
-        if (held.has(key)) add(when.length === 7 ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
-      }
-      const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
-      if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
-      const days = when.length === 7 ? spreadOverMonth(when, qty) : [{ date: when, qty }]
-      return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days } }
-    })
+    return { check: (sheet) => checkChunk(em, importId, sheet, repeated) }
   },
   async write(em, _actor, importId, rows) {
     const flat = rows.flatMap((r) => r.days.map((d) => [r.itemId, r.warehouseId, d.date, d.qty]))

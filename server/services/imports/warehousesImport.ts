@@ -5,7 +5,7 @@ import { problem } from '../../../shared/errors/errorCodes.js'
 import { binCodeFitsPattern, binSchema, warehouseSchema } from '../../../shared/schemas/warehouses.js'
 import type { ImportSpec } from './importTypes.js'
 import { cellText, distinctOf, filledCells, heldValues, inChunks, marks, namedWarehouse } from './importFacts.js'
-import { insertRows, recordsImport } from './recordsImport.js'
+import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const WAREHOUSES_SPEC: ImportSpec = {
   columns: [
@@ -113,8 +113,9 @@ export const binsImport = recordsImport<BinWrite, { warehouses: Map<string, { id
   identityColumn: 'code',
   preview: (b, values) => ({ label: b?.code ?? (cellText(values.code) || null), place: b?.warehouse ?? (cellText(values.warehouse) || null) }),
   async insert(em, importId, rows) {
+    const warehouses = await firstTimeIds(em, 'bins', 'warehouse_id', importId, rows.map((b) => b.warehouseId))
     await insertRows(em, 'bins', ['warehouse_id', 'code', 'kind', 'active'], importId, rows, (b) => [b.warehouseId, b.code, b.kind, b.active ? 1 : 0])
-    return { bins: rows.length, warehouses: new Set(rows.map((b) => b.warehouseId)).size }
+    return { bins: rows.length, warehouses }
   },
   async inUse(em, importId) {
     const [used]: { code: string }[] = await em.query(

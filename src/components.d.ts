@@ -13,6 +13,7 @@ declare module 'vue' {
   export interface GlobalComponents {
     AbcParetoChart: typeof import('./components/charts/AbcParetoChart.vue')['default']
     AppShell: typeof import('./components/shell/AppShell.vue')['default']
+    AppShellDrawer: typeof import('./components/shell/AppShellDrawer.vue')['default']
     AppShellNav: typeof import('./components/shell/AppShellNav.vue')['default']
     BarcodeSymbol: typeof import('./components/labels/BarcodeSymbol.vue')['default']
     BaseLengthInput: typeof import('./components/base/BaseLengthInput.vue')['default']

@@ -3,6 +3,8 @@ import '@fontsource/open-sans/600.css'
 import '@fontsource/open-sans/700.css'
 import 'element-plus/theme-chalk/el-message.css'
 import 'element-plus/theme-chalk/el-message-box.css'
+// The confirmations' backdrop: the shell's drawer and sign-in-again dialog, which brought it before, load on demand.
+import 'element-plus/theme-chalk/el-overlay.css'
 import './assets/theme.css'
 import { createApp } from 'vue'
 import { createPinia } from 'pinia'

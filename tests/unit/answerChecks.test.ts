@@ -3,7 +3,8 @@
 // argument) loses its schema, so nothing but a type refers to the answer schema modules and
 // the bundler drops them with zod; the rest of each module is untouched, and development and the browser tests'
 // build keep their checks; the step's source map leads the output back to the source. The result is read back
-// with the TypeScript compiler's own parser, not the one the step uses. source: common practice (dead-code elimination of unused imports; ECMAScript modules, ECMA-262 §16.2)
+// with the TypeScript compiler's own parser, not the one the step uses.
+// source: common practice (dead-code elimination of unused imports; ECMAScript modules, ECMA-262 §16.2)
 import { readdirSync, readFileSync } from 'node:fs'
 import { SourceMap } from 'node:module'
 import { join } from 'node:path'

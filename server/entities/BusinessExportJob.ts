@@ -1,6 +1,6 @@
 import { Column, Entity, PrimaryColumn } from 'typeorm'
 
-/** One everything-out export: how far it got, its file on the server's disk while kept, who started it and when. */
+/** One everything-out export: how far it got, its file (kept in the database) while kept, who started it and when. */
 @Entity({ name: 'business_export_jobs' })
 export class BusinessExportJob {
   @PrimaryColumn({ type: 'char', length: 36 }) id: string
@@ -10,7 +10,8 @@ export class BusinessExportJob {
   @Column({ name: 'rows_total', type: 'int', nullable: true }) rowsTotal: number | null
   @Column({ name: 'rows_done', type: 'int', default: 0 }) rowsDone: number
   @Column({ type: 'varchar', length: 120 }) filename: string
-  @Column({ name: 'file_path', type: 'varchar', length: 500 }) filePath: string
+  /** The finished zip in stored_files (server/db/storedFiles.ts), which any app process serves. */
+  @Column({ name: 'file_id', type: 'char', length: 36, nullable: true }) fileId: string | null
   @Column({ type: 'bigint', nullable: true }) bytes: string | null
   @Column({ name: 'user_id', type: 'int', nullable: true }) userId: number | null
   @Column({ name: 'started_at', type: 'datetime', precision: 3 }) startedAt: Date

@@ -1,4 +1,4 @@
-import { createReadStream } from 'node:fs'
+import type { Readable } from 'node:stream'
 import { pipeline } from 'node:stream/promises'
 import type { Response } from 'express'
 import { XLSX_TYPE } from '../services/exports/xlsxWriter.js'
@@ -16,12 +16,12 @@ export function sendXlsx(res: Response, filename: string, body: Buffer): void {
   sendDownload(res, { name: filename, type: XLSX_TYPE, bytes: body })
 }
 
-/** Streams a file from the server's disk as a download with its length, so the browser can show how much is left. */
-export async function sendFileDownload(res: Response, file: { path: string; name: string; type: string; bytes: number }): Promise<undefined> {
+/** Streams a file as a download with its length, so the browser can show how much is left. */
+export async function sendFileDownload(res: Response, file: { stream: Readable; name: string; type: string; bytes: number }): Promise<undefined> {
   res.setHeader('Content-Type', file.type)
   res.setHeader('Content-Length', String(file.bytes))
   res.setHeader('Content-Disposition', `attachment; filename="${file.name.replace(/[^A-Za-z0-9._-]/g, '_')}"`)
   res.setHeader('Cache-Control', 'no-store')
-  await pipeline(createReadStream(file.path), res)
+  await pipeline(file.stream, res)
   return undefined
 }

@@ -30,7 +30,7 @@ export default (ctx: AppContext) =>
       method: 'get', path: '/jobs/:id/file', access: { roles: ADMIN_ONLY },
       handler: async (req, res) => {
         const found = await exportJobFile(ctx.ds, String(req.params.id))
-        return sendFileDownload(res, { path: found.file, name: found.filename, type: 'application/zip', bytes: found.bytes })
+        return sendFileDownload(res, { stream: found.stream, name: found.filename, type: 'application/zip', bytes: found.bytes })
       },
     },
   ])

@@ -12,7 +12,7 @@ import { receiveUpload } from '../http/upload.js'
 import { idParam, parseQuery } from '../http/validate.js'
 import { commitImport, listImports, previewImport, reverseImport } from '../services/imports/dataImports.js'
 import { problemPage } from '../services/imports/importProblems.js'
-import { currentImportRun, runImportStep } from '../services/imports/importRuns.js'
+import { checkedUpload, currentImportRun, runImportStep } from '../services/imports/importRuns.js'
 import { DATA_IMPORTS, dataImportTemplate } from '../services/imports/dataImportKinds.js'
 
 const admin = { roles: ADMIN_ONLY }
@@ -59,6 +59,15 @@ export default (ctx: AppContext) =>
         const kind = kindOf(req.params.kind)
         const upload = await receiveUpload(req, res, { maxBytes: ctx.config.uploadMaxBytes })
         return runImportStep(ctx.ds, actorOf(req), kind, 'commit', upload, (progress) => commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], upload, progress))
+      },
+    },
+    {
+      // The file a finished check kept, committed without sending it again (from any app process; after a reload too).
+      method: 'post', path: '/runs/:id/commit', access: admin,
+      handler: async (req) => {
+        const runId = String(req.params.id)
+        const { kind, upload } = await checkedUpload(ctx.ds, req.user!.id, runId)
+        return runImportStep(ctx.ds, actorOf(req), kind, 'commit', upload, (progress) => commitImport(ctx.ds, actorOf(req), DATA_IMPORTS[kind], upload, progress), runId)
       },
     },
     { method: 'post', path: '/:id/reverse', access: admin, handler: (req) => reverseImport(ctx.ds, actorOf(req), DATA_IMPORTS, idParam(req.params.id, 'import_not_found')) },

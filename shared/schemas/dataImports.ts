@@ -52,6 +52,8 @@ export interface DataImportPreview {
   problems: number
   /** The problems by column (null: the row as a whole), for filtering the pages. */
   problemColumns: DataImportProblemColumn[]
+  /** The run that checked this file: its upload is kept for a while, so the commit can name the run instead of sending the file again. */
+  checkRun: string | null
   /** The run whose problems the pages read (GET /imports/runs/:id/problems); null when none were kept. */
   problemRun: string | null
   /** The same file was committed before (and not reversed): committing it again changes nothing. */

@@ -2,7 +2,8 @@
 // click) and a start while it runs (a second tab, a reload) answer the one job; the percentage only grows and
 // reaches 100 once the zip is whole; the rows counted before writing are the rows written; the finished file
 // comes with its length and holds the README first; other roles are refused. Two app processes on one database
-// (behind one proxy) answer the same job, start no second one, and either serves the file; a job whose process
+// (behind one proxy) answer the same job, start no second one, and either serves the file, which is kept in the
+// database in parts and deleted past its time; a job whose process
 // died is seen as failed and frees the way for the next.
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
@@ -94,12 +95,25 @@ describe('everything out as a job', () => {
     expect(job.state).toBe('ready')
     expect(job.percent).toBe(100)
     expect(await audits()).toBe(auditsBefore + 1)
-    // Either process serves the finished file, whole.
+    // The zip is in the database, not on the disk of the process that wrote it: its parts, in order, are the file
+    // either process serves, each part at most 1 MB (far below MariaDB's max_allowed_packet; from memory).
+    const [{ file_id: fileId }] = await h.ds.query('SELECT file_id FROM business_export_jobs WHERE id = ?', [job.id])
+    const parts: { data: Buffer }[] = await h.ds.query('SELECT data FROM stored_file_parts WHERE file_id = ? ORDER BY seq', [fileId])
+    const stored = Buffer.concat(parts.map((p) => p.data))
+    expect(stored.length).toBe(job.bytes)
+    for (const p of parts) expect(p.data.length).toBeLessThanOrEqual(1024 * 1024)
     for (const agent of [adminA, adminB]) {
       const file = await download(agent, `/api/business-export/jobs/${job.id}/file`)
       expect(file.status).toBe(200)
-      expect((file.body as Buffer).length).toBe(job.bytes)
+      expect((file.body as Buffer).equals(stored)).toBe(true)
     }
+    // Past its time the file is no longer offered, and the next start deletes it, parts and all.
+    await h.ds.query('UPDATE stored_files SET expires_at = CURRENT_TIMESTAMP(3) - INTERVAL 1 SECOND WHERE id = ?', [fileId])
+    expect((await adminB.get(`/api/business-export/jobs/${job.id}/file`)).status).toBe(404)
+    const next = await adminA.post('/api/business-export/jobs').set(CSRF)
+    expect(next.status).toBe(202)
+    expect(Number((await h.ds.query('SELECT COUNT(*) AS n FROM stored_file_parts WHERE file_id = ?', [fileId]))[0].n)).toBe(0)
+    for (let i = 0; (await adminA.get('/api/business-export/jobs/current')).body.job.state === 'running' && i < 2400; i++) await new Promise((resolve) => setTimeout(resolve, 250))
   }, 600_000)
 
   it('sees a running job whose process went silent as failed, and lets the next export start', async () => {
@@ -108,8 +122,8 @@ describe('everything out as a job', () => {
     await h.ds.query("DELETE FROM business_export_jobs WHERE state = 'running'")
     const dead = '00000000-0000-4000-8000-00000000dead'
     await h.ds.query(
-      `INSERT INTO business_export_jobs (id, state, running_slot, filename, file_path, started_at, heartbeat_at)
-        VALUES (?, 'running', 1, 'lumenyard-everything-dead.zip', '/nonexistent/export.zip', CURRENT_TIMESTAMP(3), CURRENT_TIMESTAMP(3) - INTERVAL 2 MINUTE)`,
+      `INSERT INTO business_export_jobs (id, state, running_slot, filename, started_at, heartbeat_at)
+        VALUES (?, 'running', 1, 'lumenyard-everything-dead.zip', CURRENT_TIMESTAMP(3), CURRENT_TIMESTAMP(3) - INTERVAL 2 MINUTE)`,
       [dead],
     )
     const current = await admin.get('/api/business-export/jobs/current')

@@ -64,6 +64,7 @@ export const designedAccess: Record<string, MatrixRow> = {
   'GET /api/imports': { access: ['admin'] },
   'GET /api/imports/runs/current': { access: ['admin'] },
   'GET /api/imports/runs/:id/problems': { access: ['admin'] },
+  'POST /api/imports/runs/:id/commit': { access: ['admin'] },
   'GET /api/imports/:kind/template.xlsx': { access: ['admin'] },
   'POST /api/imports/:kind/preview': { access: ['admin'] },
   'POST /api/imports/:kind/commit': { access: ['admin'] },

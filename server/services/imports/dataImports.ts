@@ -129,7 +129,7 @@ function tally(keep?: ImportProgress['problems']) {
       if (keep && found.length) await keep.add(found)
     },
     preview: (kind: DataImportKind, filename: string, repeatOf: DataImportRecord | null): DataImportPreview => ({
-      kind, filename, ...counts, rows: [...bad, ...good], problems,
+      kind, filename, ...counts, rows: [...bad, ...good], problems, checkRun: keep?.runId ?? null,
       problemColumns: [...columns].map(([column, count]) => ({ column, count })), problemRun: keep && problems ? keep.runId : null, repeatOf,
     }),
   }

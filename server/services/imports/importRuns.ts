@@ -9,16 +9,19 @@ import type { DataSource } from 'typeorm'
 import type { ErrorParams, Problem } from '../../../shared/errors/errorCodes.js'
 import type { DataImportKind, DataImportRun, DataImportRunStep } from '../../../shared/schemas/dataImports.js'
 import { failSilentRows, progressRow } from '../../db/progressRow.js'
+import { dropExpiredFiles, loadStoredFile, storeFile } from '../../db/storedFiles.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
 import { checksumOf, type ImportProgress } from './dataImports.js'
 import { problemStore } from './importProblems.js'
 import { rowsInUpload } from './spreadsheetParser.js'
-import type { GuardedUpload } from './uploadGuard.js'
+import { kindOf, type GuardedUpload } from './uploadGuard.js'
 
 const PROGRESS_WRITE_MS = 300
 /** How long a finished run's answer is offered to the page that lost it (a reload). */
 const KEEP_MS = 30 * 60_000
+/** How long a checked file is kept in the database for its commit (from any app process). */
+const UPLOAD_KEEP_MS = 2 * 60 * 60_000
 /** How long a second check waits for the first one's answer. */
 const FOLLOW_MS = 15 * 60_000
 
@@ -75,19 +78,24 @@ async function followRun<T>(ds: DataSource, key: string): Promise<T> {
 
 /**
  * Runs one step of an import (`work`, given the progress to report) as a run the page can follow. A check of a
- * file this person is already checking answers that check's answer.
+ * file this person is already checking answers that check's answer, and so does a commit of a checked run
+ * (`commitOf`) this person is already committing (a double click). A check keeps the file it checked, for the
+ * commit.
  */
 export async function runImportStep<T>(
   ds: DataSource, actor: AuditActor, kind: DataImportKind, step: DataImportRunStep, upload: GuardedUpload, work: (progress: ImportProgress) => Promise<T>,
+  commitOf?: string,
 ): Promise<T> {
   const userId = actor.userId
   if (userId === null) return work({ read: () => undefined, checked: () => undefined, written: () => undefined })
   await failSilentRuns(ds)
-  // Old runs go with the problems they kept (ON DELETE CASCADE), whoever ran them.
+  // Old runs go with the problems they kept (ON DELETE CASCADE), whoever ran them; kept files past their time too.
   await ds.query('DELETE FROM data_import_runs WHERE state <> \'running\' AND started_at < CURRENT_TIMESTAMP(3) - INTERVAL 1 DAY')
+  await dropExpiredFiles(ds)
   const checksum = checksumOf(upload.data)
-  // Only a check is followed: two commits of one file meet at the import's own record, which writes once.
-  const key = step === 'preview' ? `${userId}:${kind}:${checksum}` : null
+  // A check is followed, and a commit of a checked run; two commits of one file sent whole meet at the import's
+  // own record, which writes once.
+  const key = step === 'preview' ? `${userId}:${kind}:${checksum}` : commitOf ? `${userId}:commit:${commitOf}` : null
   const id = randomUUID()
   const total = await rowsInUpload(upload)
   const inserted: { affectedRows: number } = await ds.query(
@@ -105,6 +113,11 @@ export async function runImportStep<T>(
     await ds.query(`UPDATE data_import_runs SET ${set}, running_key = NULL, finished_at = CURRENT_TIMESTAMP(3), rows_read = ?, rows_checked = ?, rows_written = ? WHERE id = ?`,
       [...params, counts.read, counts.checked, counts.written, id])
   }
+  // The checked file goes to the database beside the check, for a commit that names this run.
+  const kept = step === 'preview'
+    ? storeFile(ds, 'import_upload', upload.filename, upload.data, UPLOAD_KEEP_MS).then((fileId) => ds.query('UPDATE data_import_runs SET upload_id = ? WHERE id = ?', [fileId, id]))
+    : Promise.resolve()
+  kept.catch(() => undefined)
   try {
     const answer = await work({
       read: (n) => { counts.read += n; progress.report() },
@@ -112,6 +125,7 @@ export async function runImportStep<T>(
       written: (n) => { counts.written += n; progress.report(true) },
       problems: { runId: id, ...problemStore(ds, id) },
     })
+    await kept
     await finish("state = 'done', answer = ?", [JSON.stringify(answer)])
     return answer
   } catch (err) {
@@ -127,4 +141,13 @@ export async function currentImportRun(ds: DataSource, userId: number): Promise<
   const [row]: RunRow[] = await ds.query(`${RUN_SQL} WHERE user_id = ? AND started_at > CURRENT_TIMESTAMP(3) - INTERVAL ? MICROSECOND ORDER BY started_at DESC LIMIT 1`,
     [userId, KEEP_MS * 1000])
   return row ? viewOf(row) : null
+}
+
+/** The file a finished check of this person's checked, to be committed, with its kind; refused when no longer kept. */
+export async function checkedUpload(ds: DataSource, userId: number, runId: string): Promise<{ kind: DataImportKind; upload: GuardedUpload }> {
+  const [run]: { kind: DataImportKind; file_name: string; upload_id: string | null }[] = await ds.query(
+    "SELECT kind, file_name, upload_id FROM data_import_runs WHERE id = ? AND user_id = ? AND step = 'preview' AND state = 'done'", [runId.slice(0, 36), userId])
+  const data = run?.upload_id ? await loadStoredFile(ds, run.upload_id) : null
+  if (!run || !data) throw AppError.notFound('import_run_not_found', 'That check is no longer kept; check the file again.')
+  return { kind: run.kind, upload: { kind: kindOf(run.file_name, ['xlsx', 'csv']), filename: run.file_name, data } }
 }

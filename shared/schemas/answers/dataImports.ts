@@ -39,6 +39,7 @@ export const dataImportPreviewShape = z.object({
   rows: z.array(dataImportRowShape),
   problems: z.number(),
   problemColumns: z.array(z.object({ column: z.string().nullable(), count: z.number() })),
+  checkRun: z.string().nullable(),
   problemRun: z.string().nullable(),
   repeatOf: dataImportRecordShape.nullable()
 }) satisfies z.ZodType<DataImportPreview>

@@ -1,13 +1,20 @@
 // A number a person typed into a form, read as they wrote it and checked against the field's rules. The
 // form keeps the text; this says what it means or what is wrong with it, as a problem the client words in
 // the person's language. Nothing is rounded, clamped or guessed: 0 where the least is 1, 1e9 where the most
-// is a million, 1,5 where only whole units are sold and 7 3/4 in a count are each refused with a reason.
+// is a million, 1,5 where only whole units are sold and 7 3/4 in a count are each refused with a reason, and
+// text that reads two ways is asked about rather than read one of them.
 import { problem, type Problem } from './errors/errorCodes.js'
 
 /**
- * How a language writes a decimal: 'point' (English: 1,234.5, a comma only between groups of three);
- * 'comma' (Spanish: 1,5 is one and a half; since the screens write numbers the US way in both languages,
- * 1,234.5, text in that form still reads as written: 1.5 and 1,500 too; 1.234,5 has points between groups).
+ * How a language's people write a decimal. Both languages' screens write numbers the United States way
+ * (src/i18n/formats.ts: en-US, and es-US, whose CLDR symbols are the same: 1,234.5), and that writing always reads
+ * back as written.
+ * - 'point' (English): a point before the decimals, a comma only between groups of three: 1.5, 1,500, 1,234.5.
+ * - 'comma' (Spanish): the screens' writing as above, and the decimal comma of Spanish elsewhere where it can only
+ *   be one (1,5; 0,125; 1.234,5). A lone comma before exactly three digits (1,500) fits both (one thousand five
+ *   hundred as the screens write it, one and a half with the decimal comma), and so does a lone point before
+ *   exactly three digits where the field takes fewer decimals (1.500: one and a half as the screens write it, one
+ *   thousand five hundred with Spanish groups): such text is asked about, never guessed.
  */
 export type DecimalMark = 'point' | 'comma'
 
@@ -27,11 +34,28 @@ export function decimalMarkOf(locale: string): DecimalMark {
   return locale.toLowerCase().startsWith('es') ? 'comma' : 'point'
 }
 
-const GROUPED = /^\d{1,3}(,\d{3})+(\.\d+)?$/
+const GROUPED = /^[1-9]\d{0,2}(,\d{3})+(\.\d+)?$/
 const PLAIN_POINT = /^(\d+(\.\d*)?|\.\d+)$/
-const GROUPED_POINTS = /^\d{1,3}(\.\d{3})+,\d+$/
+const GROUPED_POINTS = /^[1-9]\d{0,2}(\.\d{3})+,\d+$/
 const PLAIN_COMMA = /^(\d+(,\d*)?|,\d+)$/
 const FRACTION = /^(?:(\d+)\s+)?(\d+)\s*\/\s*(\d+)$/
+/** One to three digits (not starting with 0), one mark, exactly three digits: a group of thousands or three decimals. */
+const LONE_GROUP = /^([1-9]\d{0,2})([.,])(\d{3})$/
+
+/** Both readings of text that fits two, as digits with no group mark and as a decimal with a point. */
+interface TwoReadings {
+  thousands: string
+  decimal: string
+}
+
+/** Text a Spanish reader may have written either way (see DecimalMark), or null when it reads one way only. */
+function twoWays(text: string, rules: NumberRules): TwoReadings | null {
+  const lone = LONE_GROUP.exec(text)
+  if (!lone) return null
+  const [, whole, mark, three] = lone
+  if (mark === '.' && (rules.places ?? 0) >= 3) return null
+  return { thousands: `${whole}${three}`, decimal: `${whole}.${three}`.replace(/\.?0+$/, '') }
+}
 
 /** The value of unsigned text, or null when it is not a number written in one of the ways above. */
 function unsignedValue(text: string, mark: DecimalMark): number | null {
@@ -61,7 +85,13 @@ export function readNumber(typed: string, rules: NumberRules = {}, mark: Decimal
   if (text === '') return rules.optional ? { ok: true, value: undefined } : { ok: false, problem: problem('required') }
   const signed = /^([-+\u2212])\s*(.*)$/.exec(text)
   const negative = signed ? signed[1] !== '+' : false
-  const magnitude = unsignedValue(signed ? signed[2] : text, mark)
+  const unsigned = signed ? signed[2] : text
+  const asked = mark === 'comma' ? twoWays(unsigned, rules) : null
+  if (asked) {
+    const sign = negative ? '-' : ''
+    return { ok: false, problem: problem('number_two_ways', { input: typed.trim(), thousands: sign + asked.thousands, decimal: sign + asked.decimal }) }
+  }
+  const magnitude = unsignedValue(unsigned, mark)
   if (magnitude === null || !Number.isFinite(magnitude)) return { ok: false, problem: problem('number_unreadable', { input: typed.trim() }) }
   const value = negative ? -magnitude : magnitude
   const places = rules.places ?? 0

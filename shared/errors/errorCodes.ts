@@ -183,6 +183,7 @@ export const ERROR_CODES = {
   length_decimal_comma: ['input'],
   length_unreadable: ['input'],
   number_unreadable: ['input'],
+  number_two_ways: ['input', 'thousands', 'decimal'],
 
   // Warehouses, bins and takeoff settings
   warehouse_not_found: [],

@@ -37,7 +37,7 @@ export function useStockQty() {
   function weightText(kg: Decimal.Value): string {
     const unit = weightUnit.value
     const value = unit === 'lb' ? new Decimal(kg).div(KG_PER_POUND) : new Decimal(kg)
-    const one = (v: number) => t(`units.weight.${unit}`, { n: n(v, { minimumFractionDigits: 1, maximumFractionDigits: 1 }) })
+    const one = (v: number) => t(`units.weight.${unit}`, { n: n(v, { key: 'decimal', minimumFractionDigits: 1, maximumFractionDigits: 1 }) })
     // A few spacers weigh next to nothing: say so rather than "0.0".
     if (value.greaterThan(0) && value.lessThan(0.05)) return t('units.weight.under', { weight: one(0.1) })
     return one(value.toDecimalPlaces(1).toNumber())

@@ -2,7 +2,9 @@
 // send quantities: a stock adjustment on the handheld (the warehouse crew, in Spanish), a line of a draft quote
 // at the counter and a line of a new purchase order. The trials' bad numbers (0, -3, 1e9, 1000000000, 1,5,
 // 7 3/4 and nothing at all) each get a worded problem beside the field, keep what was typed, and nothing is sent: the field is
-// never rounded or clamped into a number the person did not write.
+// never rounded or clamped into a number the person did not write. In Spanish, text that reads two ways (1,500 and
+// 1.500: a thousand and a half, or one and a half) is asked about with both readings; a decimal comma is read and
+// written back the way the screens write numbers.
 import { randomUUID } from 'node:crypto'
 import bcrypt from 'bcryptjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
@@ -52,8 +54,24 @@ async function tryNumber(page: Page, field: string, send: string, typed: string)
   return (await problem.textContent())?.trim() ?? ''
 }
 
+/** One step for every form: types each text in turn, tries to send, and answers the problem shown for each. */
+async function problemsFor(page: Page, field: string, send: string, expected: Record<string, string>): Promise<Record<string, string>> {
+  const shown: Record<string, string> = {}
+  for (const typed of Object.keys(expected)) shown[typed] = await tryNumber(page, field, send, typed)
+  return shown
+}
+
+// source: common practice (stock is counted and ordered in whole units from 1); CLDR English number symbols: ","
+// only between groups of three digits, so 1,5 is no number; words from src/i18n/en/errors.ts
+const ENGLISH_WHOLE_UNITS = {
+  '0': 'At least 1',
+  '-3': 'At least 1',
+  '1,5': 'Can’t read “1,5” as a number. Write digits, like 12 or 12.5.',
+  '7 3/4': 'Whole numbers only',
+}
+
 describe('number fields refuse bad numbers beside the field and send nothing', () => {
-  it('a stock adjustment on the handheld, in Spanish', { timeout: 30_000 }, async () => {
+  it('a stock adjustment on the handheld, in Spanish', { timeout: 60_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
       await h.signIn(page, 'warehouse') // the demo's warehouse user reads Spanish
@@ -63,12 +81,19 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
       const field = '[data-test="adjust-qty"]'
       const review = '[data-test="adjust-review"]'
       // source: common practice (a damaged count is a whole number of units from 1); words from src/i18n/es/errors.ts
-      expect(await tryNumber(page, field, review, '0')).toBe('Como mínimo 1')
-      expect(await tryNumber(page, field, review, '-3')).toBe('Como mínimo 1')
-      expect(await tryNumber(page, field, review, '1e9')).toBe('No se puede leer “1e9” como número. Escriba cifras, como 12 o 12,5.')
-      // source: CLDR Spanish number symbols: the decimal comma, so 1,5 is one and a half, not a whole unit
-      expect(await tryNumber(page, field, review, '1,5')).toBe('Solo números enteros')
-      expect(await tryNumber(page, field, review, '7 3/4')).toBe('Solo números enteros')
+      // source: CLDR Spanish number symbols (es): the decimal comma, so 1,5 is one and a half, not a whole unit;
+      // CLDR es-US, the screens' writing, groups thousands with a comma (1,500) and es with a point (1.500): asked
+      const twoWays = (input: string) => `“${input}” se lee de dos maneras, 1500 o 1.5: escriba 1500 sin separador, o 1.5 con punto decimal.`
+      const spanish = {
+        '0': 'Como mínimo 1',
+        '-3': 'Como mínimo 1',
+        '1e9': 'No se puede leer “1e9” como número. Escriba cifras, como 12 o 12,5.',
+        '1,5': 'Solo números enteros',
+        '7 3/4': 'Solo números enteros',
+        '1,500': twoWays('1,500'),
+        '1.500': twoWays('1.500'),
+      }
+      expect(await problemsFor(page, field, review, spanish)).toEqual(spanish)
       expect(await page.locator('[data-test="confirm-dialog"]').isVisible()).toBe(false)
       expect(sent).toEqual([])
       // The targets stay big enough for gloves: the field and its − and + buttons at least 44 px tall.
@@ -101,13 +126,12 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
       const sent = writes(page)
       const save = '[data-test="quote-save"]'
       // source: the quote line's own limits (shared/schemas/quotes.ts: whole units from 1 to 1,000,000); words from src/i18n/en/errors.ts
-      expect(await tryNumber(page, field, save, '0')).toBe('At least 1')
-      expect(await tryNumber(page, field, save, '-3')).toBe('At least 1')
-      expect(await tryNumber(page, field, save, '1000000000')).toBe('At most 1,000,000')
-      expect(await tryNumber(page, field, save, '1e9')).toBe('Can’t read “1e9” as a number. Write digits, like 12 or 12.5.')
-      // source: CLDR English number symbols: "," only between groups of three digits, so 1,5 is no number
-      expect(await tryNumber(page, field, save, '1,5')).toBe('Can’t read “1,5” as a number. Write digits, like 12 or 12.5.')
-      expect(await tryNumber(page, field, save, '7 3/4')).toBe('Whole numbers only')
+      const quoteLine = {
+        ...ENGLISH_WHOLE_UNITS,
+        '1000000000': 'At most 1,000,000',
+        '1e9': 'Can’t read “1e9” as a number. Write digits, like 12 or 12.5.',
+      }
+      expect(await problemsFor(page, field, save, quoteLine)).toEqual(quoteLine)
       expect(sent).toEqual([])
       // A clerk's own price of 0 is refused beside the price, as the server would refuse it, and nothing is sent.
       // source: common practice (a line given away at a trade counter is a manager's call)
@@ -136,12 +160,38 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
       const sent = writes(page)
       const create = '[data-test="create-order"]'
       // source: common practice (a vendor ships whole packs, at least one); words from src/i18n/en/errors.ts
-      expect(await tryNumber(page, field, create, '0')).toBe('At least 1')
-      expect(await tryNumber(page, field, create, '-3')).toBe('At least 1')
-      expect(await tryNumber(page, field, create, '1,5')).toBe('Can’t read “1,5” as a number. Write digits, like 12 or 12.5.')
-      expect(await tryNumber(page, field, create, '7 3/4')).toBe('Whole numbers only')
-      expect(await tryNumber(page, field, create, '')).toBe('Required')
+      const packs = { ...ENGLISH_WHOLE_UNITS, '': 'Required' }
+      expect(await problemsFor(page, field, create, packs)).toEqual(packs)
       expect(await dialog.isVisible()).toBe(true)
+      expect(sent).toEqual([])
+    } finally {
+      await context.close()
+    }
+  })
+})
+
+describe('a decimal typed in Spanish', () => {
+  it('reads the decimal comma and writes it back as the screens write numbers; asks about 1,500', { timeout: 30_000 }, async () => {
+    const { page, context } = await h.newPage()
+    try {
+      await h.signIn(page, 't-admin-es', TEST_PASSWORD)
+      await page.goto('/counter/settings')
+      await page.locator('#tab-figures').click()
+      const field = '[data-test="figure-groutDepthMm"]'
+      const input = page.locator(`${field} input`)
+      await input.waitFor()
+      const sent = writes(page)
+      // source: CLDR es: 1,5 is one and a half; CLDR es-US (the Spanish screens' writing, checked with Node's Intl:
+      // es-US 1.5 → "1.5") writes it with a point, so the field shows what it read
+      await input.fill('1,5')
+      await input.press('Tab')
+      await poll(() => input.inputValue()).toBe('1.5')
+      expect(await page.locator(`${field} [role="alert"]`).count()).toBe(0)
+      // source: CLDR es-US groups thousands with a comma (1,500 = 1500), CLDR es reads 1,500 as one and a half
+      await input.fill('1,500')
+      await input.press('Tab')
+      await poll(() => page.locator(`${field} [role="alert"]`).textContent()).toBe('“1,500” se lee de dos maneras, 1500 o 1.5: escriba 1500 sin separador, o 1.5 con punto decimal.')
+      expect(await input.inputValue()).toBe('1,500')
       expect(sent).toEqual([])
     } finally {
       await context.close()

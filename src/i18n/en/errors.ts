@@ -169,6 +169,7 @@ export default {
   length_decimal_comma: 'Can’t read “{input}”: write decimals with a point (1.5) and no thousands separator',
   length_unreadable: 'Can’t read “{input}” as a length. Try 7 3/4", 7.75 in, 190 mm or 5\' 2".',
   number_unreadable: 'Can’t read “{input}” as a number. Write digits, like 12 or 12.5.',
+  number_two_ways: '“{input}” reads two ways, {thousands} or {decimal}: write {thousands} with no separator, or {decimal} with a decimal point.',
 
   // Warehouses, bins and takeoff settings
   warehouse_not_found: 'That warehouse was not found.',

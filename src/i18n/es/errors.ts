@@ -168,6 +168,7 @@ export default {
   length_decimal_comma: 'No se puede leer “{input}”: escriba los decimales con punto (1.5) y sin separador de miles',
   length_unreadable: 'No se puede leer “{input}” como medida. Pruebe 7 3/4", 7.75 in, 190 mm o 5\' 2".',
   number_unreadable: 'No se puede leer “{input}” como número. Escriba cifras, como 12 o 12,5.',
+  number_two_ways: '“{input}” se lee de dos maneras, {thousands} o {decimal}: escriba {thousands} sin separador, o {decimal} con punto decimal.',
 
   // Almacenes, ubicaciones y ajustes de cálculo
   warehouse_not_found: 'No se encontró ese almacén.',

@@ -104,8 +104,8 @@ describe('cost visibility', () => {
     const created = await admin.post('/api/purchase-orders').set(CSRF)
       .send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.sealant.id, packsOrdered: 2 }] })
     expect(created.status).toBe(201)
-    const po = created.body as { id: number; number: string; lines: { id: number }[] }
-    expect((await admin.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF)).status).toBe(200)
+    const po = created.body as { id: number; number: string; version: number; lines: { id: number }[] }
+    expect((await admin.post(`/api/purchase-orders/${po.id}/approve`).set(CSRF).send({ version: po.version })).status).toBe(200)
     expect((await admin.post(`/api/purchase-orders/${po.id}/mark-sent`).set(CSRF)).status).toBe(200)
     const received = await admin.post(`/api/purchase-orders/${po.id}/receipts`).set(CSRF)
       .send({ lines: [{ poLineId: po.lines[0].id, binId: f.warehouse.bins.a1, qty: 12 }] })

@@ -29,6 +29,8 @@ export const goliveApi = {
     if (column !== undefined) q.set('column', column ?? '')
     return api.get(`/imports/runs/${encodeURIComponent(runId)}/problems?${q}`, { answer: dataImportProblemPageShape })
   },
+  /** Commits the file a finished check kept on the server (nothing is sent again); a second press follows the first. */
+  commitChecked: (runId: string) => api.post(`/imports/runs/${encodeURIComponent(runId)}/commit`, {}, { answer: dataImportResultShape }),
   /** Starts everything out on the server, or answers the export already running. */
   startExport: () => api.post('/business-export/jobs', {}, { answer: exportJobShape }),
   currentExport: () => api.get('/business-export/jobs/current', { answer: currentExportJobShape }),

@@ -1,11 +1,15 @@
-// An import's check holds a window of the file, not the file: the parent process's live memory (after a forced
-// collection, sampled while the check runs) grows no more for a file ten times longer. Against the real MariaDB,
-// through the real parse child, with the opening-stock import's own checks.
+// An import's check and its commit hold a window of the file, not the file: the parent process's live memory (after
+// a forced collection, sampled while it runs) grows no more for a file ten times longer. Against the real MariaDB,
+// through the real parse child, with the imports' own checks and writes: opening stock checked and committed, usage
+// history and contractor accounts committed.
 import { setFlagsFromString } from 'node:v8'
 import { runInNewContext } from 'node:vm'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { previewImport } from '../../server/services/imports/dataImports.js'
+import { accountsImport } from '../../server/services/imports/accountsImport.js'
+import { commitImport, previewImport } from '../../server/services/imports/dataImports.js'
 import { openingStockImport } from '../../server/services/imports/openingStockImport.js'
+import { DEFAULT_PARSE_LIMITS } from '../../server/services/imports/spreadsheetParser.js'
+import { usageHistoryImport } from '../../server/services/imports/usageHistoryImport.js'
 import { startApiHarness, type ApiHarness } from '../support/apiHarness.js'
 import { insertId, tagOf } from '../support/fixtureRows.js'
 import { createWarehouse } from '../support/stockFixtures.js'
@@ -17,17 +21,37 @@ let h: ApiHarness
 const tag = tagOf()
 const SKU = `MEM-BLK-${tag}`
 const WH = `M${tag}`
+const SMALL = 2_000
+const LARGE = 10 * SMALL
+/** Items a usage file names: ten per file, each with a day of use per row (so every row is its own key). */
+const usageSku = (file: string, i: number) => `MEM-U${file}${i}-${tag}`
+let userId = 0
 
 beforeAll(async () => {
   h = await startApiHarness()
+  userId = (await h.user(`t-memory-${tag}`, ['admin'])).id
   await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES (?, 'Test clear 8x8 block', 'glass_block', 'each', 0, 8, 1)", [SKU])
+  for (const file of ['S', 'L']) {
+    for (let i = 0; i < 10; i++) await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost) VALUES (?, 'Test grout', 'grout', 'bag', 0)", [usageSku(file, i)])
+  }
   await createWarehouse(h.ds, WH, ['A-01-1'])
 })
 afterAll(() => h?.close())
 
-/** An opening-stock sheet of `rows` good rows: one item and bin, a lot of its own per row. */
-const sheetOf = (rows: number) => Buffer.from(['SKU,Warehouse,Bin,Lot,Quantity,Unit cost',
-  ...Array.from({ length: rows }, (_, i) => `${SKU},${WH},A-01-1,RUN-${String(i).padStart(6, '0')},${(i % 40) + 1},${(i % 9) + 1}.2500`)].join('\r\n'), 'utf8')
+/** An opening-stock sheet of `rows` good rows: one item and bin, a lot of its own per row (`run` tells files apart). */
+const sheetOf = (rows: number, run = 'RUN') => Buffer.from(['SKU,Warehouse,Bin,Lot,Quantity,Unit cost',
+  ...Array.from({ length: rows }, (_, i) => `${SKU},${WH},A-01-1,${run}-${String(i).padStart(6, '0')},${(i % 40) + 1},${(i % 9) + 1}.2500`)].join('\r\n'), 'utf8')
+
+/** A usage-history sheet of `rows` good rows: ten items of the file's own, a past day of use per row each. */
+const usageOf = (rows: number, file: string) => Buffer.from(['SKU,Warehouse,Day,Month,Quantity used',
+  ...Array.from({ length: rows }, (_, i) => {
+    const day = new Date(Date.UTC(2019, 0, 1) + Math.floor(i / 10) * 86_400_000).toISOString().slice(0, 10)
+    return `${usageSku(file, i % 10)},${WH},${day},,${(i % 7) + 1}`
+  })].join('\r\n'), 'utf8')
+
+/** A contractor accounts sheet of `rows` new accounts with a contact each. */
+const accountsOf = (rows: number, file: string) => Buffer.from(['Account code,Name,Contact,E-mail,Phone',
+  ...Array.from({ length: rows }, (_, i) => `M${file}${tag}-${i},Test mason ${i},Contact ${i},mason${i}@example.test,555-01${String(i % 100).padStart(2, '0')}`)].join('\r\n'), 'utf8')
 
 /** What the process still holds once collected: the JS heap and the buffers outside it. */
 const live = () => {
@@ -36,33 +60,61 @@ const live = () => {
   return m.heapUsed + m.external
 }
 
-/** The preview of `rows` rows, and how far the live memory rose above where it stood before, at its highest. */
-async function previewGrowth(rows: number): Promise<{ ready: number; errorRows: number; growth: number }> {
-  const data = sheetOf(rows)
+/** How far the live memory rose above where it stood before, at its highest, while `work` ran; and its answer. */
+async function growthOf<T>(work: () => Promise<T>): Promise<{ answer: T; growth: number }> {
   const before = live()
   let peak = before
-  const sampler = setInterval(() => { peak = Math.max(peak, live()) }, 100)
+  const sampler = setInterval(() => { peak = Math.max(peak, live()) }, 250)
   try {
-    const preview = await previewImport(h.ds, openingStockImport, { kind: 'csv', filename: 'opening.csv', data })
+    const answer = await work()
     peak = Math.max(peak, live())
-    return { ready: preview.ready, errorRows: preview.errorRows, growth: peak - before }
+    return { answer, growth: peak - before }
   } finally {
     clearInterval(sampler)
   }
 }
 
+const preview = (data: Buffer) => growthOf(() => previewImport(h.ds, openingStockImport, { kind: 'csv', filename: 'opening.csv', data }))
+/** The parse child's own time limit is for an upload on a quiet server; here it reads while the test collects often. */
+const PATIENT = { limits: { ...DEFAULT_PARSE_LIMITS, timeoutMs: 300_000 } }
+const commit = <W>(def: Parameters<typeof commitImport<W>>[2], data: Buffer, filename: string) =>
+  growthOf(() => commitImport(h.ds, { userId }, def, { kind: 'csv', filename, data }, undefined, PATIENT))
+
+/**
+ * common practice: a streamed pipeline's memory follows its window, not the file. The extra rows of the larger file
+ * may add what a repeated-row check keeps per row (a short key, under 200 bytes) and the upload itself, no more.
+ */
+function expectBounded(label: string, small: number, large: number, upload: Buffer) {
+  console.log(`import memory, ${label}: ${SMALL} rows +${(small / 1e6).toFixed(1)} MB, ${LARGE} rows +${(large / 1e6).toFixed(1)} MB`)
+  expect(large - small, label).toBeLessThan((LARGE - SMALL) * 200 + 2 * upload.length)
+}
+
 describe('import memory', () => {
   it('checks a file ten times longer without holding ten times as much', async () => {
-    const SMALL = 2_000
-    const LARGE = 10 * SMALL
-    const small = await previewGrowth(SMALL)
-    const large = await previewGrowth(LARGE)
+    const small = await preview(sheetOf(SMALL))
+    const large = await preview(sheetOf(LARGE))
     // Every row was read and checked in both: all good, none skipped.
-    expect([small.ready, small.errorRows]).toEqual([SMALL, 0])
-    expect([large.ready, large.errorRows]).toEqual([LARGE, 0])
-    console.log(`import memory: ${SMALL} rows +${(small.growth / 1e6).toFixed(1)} MB, ${LARGE} rows +${(large.growth / 1e6).toFixed(1)} MB`)
-    // common practice: a streamed pipeline's memory follows its window, not the file. The extra rows may add what
-    // a repeated-row check keeps per row (a short key, under 200 bytes) and the upload itself, no more.
-    expect(large.growth - small.growth).toBeLessThan((LARGE - SMALL) * 200 + 2 * sheetOf(LARGE).length)
+    expect([small.answer.ready, small.answer.errorRows]).toEqual([SMALL, 0])
+    expect([large.answer.ready, large.answer.errorRows]).toEqual([LARGE, 0])
+    expectBounded('opening stock check', small.growth, large.growth, sheetOf(LARGE))
   }, 300_000)
+
+  it('commits opening stock ten times longer without holding its writes', async () => {
+    const small = await commit(openingStockImport, sheetOf(SMALL, 'CS'), 'opening-small.csv')
+    const large = await commit(openingStockImport, sheetOf(LARGE, 'CL'), 'opening-large.csv')
+    // Every row was written in both: one line per row.
+    expect([small.answer.record.summary?.lines, large.answer.record.summary?.lines]).toEqual([SMALL, LARGE])
+    expectBounded('opening stock commit', small.growth, large.growth, sheetOf(LARGE, 'CL'))
+  }, 600_000)
+
+  it('commits usage history and accounts ten times longer without holding their rows', async () => {
+    const usageSmall = await commit(usageHistoryImport, usageOf(SMALL, 'S'), 'usage-small.csv')
+    const usageLarge = await commit(usageHistoryImport, usageOf(LARGE, 'L'), 'usage-large.csv')
+    expect([usageSmall.answer.record.summary?.lines, usageLarge.answer.record.summary?.lines]).toEqual([SMALL, LARGE])
+    expectBounded('usage history commit', usageSmall.growth, usageLarge.growth, usageOf(LARGE, 'L'))
+    const accountsSmall = await commit(accountsImport, accountsOf(SMALL, 'S'), 'accounts-small.csv')
+    const accountsLarge = await commit(accountsImport, accountsOf(LARGE, 'L'), 'accounts-large.csv')
+    expect([accountsSmall.answer.record.summary?.accounts, accountsLarge.answer.record.summary?.accounts]).toEqual([SMALL, LARGE])
+    expectBounded('accounts commit', accountsSmall.growth, accountsLarge.growth, accountsOf(LARGE, 'L'))
+  }, 600_000)
 })

@@ -11,7 +11,7 @@ import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
 import type { ProblemStore } from './importProblems.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
-import { readSpreadsheetInChunks } from './spreadsheetParser.js'
+import { readSpreadsheetInChunks, type ParseLimits } from './spreadsheetParser.js'
 import type { GuardedUpload } from './uploadGuard.js'
 
 export interface CheckedRow<W> {
@@ -135,9 +135,10 @@ function tally(keep?: ImportProgress['problems']) {
   }
 }
 
-/** How a pass reads the file: rows per chunk (the parser's own unless said; tests make it small). */
+/** How a pass reads the file: rows per chunk and the parse child's limits (the parser's own unless said; tests change them). */
 export interface PassOptions {
   chunkRows?: number
+  limits?: ParseLimits
 }
 
 /**
@@ -156,7 +157,7 @@ async function checkUpload<W>(
   await readSpreadsheetInChunks(upload, def.spec, async (part) => {
     progress?.read(part.rows.length)
     await take(await checker.check(part))
-  }, undefined, options.chunkRows)
+  }, options.limits, options.chunkRows)
   const held = checker.finish?.() ?? []
   if (held.length) await take(held)
 }

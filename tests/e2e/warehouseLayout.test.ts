@@ -31,8 +31,9 @@ beforeAll(async () => {
     .send({ vendorId: f.vendorA, warehouseId: f.warehouse.id, lines: [{ itemId: f.block.id, packsOrdered: 2 }, { itemId: f.sealant.id, packsOrdered: 1 }] })
   if (po.status !== 201) throw new Error(`making the PO failed: ${po.status} ${JSON.stringify(po.body)}`)
   poId = po.body.id
-  for (const step of ['approve', 'mark-sent']) {
-    const res = await buyer.post(`/api/purchase-orders/${poId}/${step}`).set(CSRF).send({})
+  // Approved as the buyer's screen shows it (with the version it read), then marked sent.
+  for (const [step, body] of [['approve', { version: po.body.version }], ['mark-sent', {}]] as const) {
+    const res = await buyer.post(`/api/purchase-orders/${poId}/${step}`).set(CSRF).send(body)
     if (res.status !== 200) throw new Error(`${step} failed: ${res.status} ${JSON.stringify(res.body)}`)
   }
   ;({ page, context } = await h.newPage({ viewport: { width: 412, height: 915 } }))

@@ -73,7 +73,7 @@ export async function startE2e(overrides: Partial<NodeJS.ProcessEnv> = {}): Prom
     },
     async screenshot(page, name) {
       const file = path.join(SCREENSHOTS, `${name}.png`)
-      await page.screenshot({ path: file, fullPage: true })
+      await page.screenshot({ path: file, fullPage: true, timeout: 60_000 }) // a record, not a check: a busy machine may take long
       return file
     },
     async close() {

@@ -927,6 +927,12 @@ export const README_SPANISH: Readonly<Record<string, string>> = {
     'hasta dónde llegó cada descarga de todos los datos y dónde espera su archivo; se guarda media hora',
   'how far each import check got, and its answer; kept half an hour for the page that lost it':
     'hasta dónde llegó cada revisión de una importación, y su respuesta; se guarda media hora para la página que la perdió',
+  'each problem row of an import check, paged to the person who ran it; gone with its run':
+    'cada fila con problemas de la revisión de una importación, por páginas para quien la hizo; se va con su revisión',
+  'uploads waiting for their commit and everything-out files, kept a short while for any app process to serve':
+    'archivos subidos que esperan su importación y archivos de todos los datos, guardados un rato para que cualquier proceso de la app los sirva',
+  'the pieces of those files':
+    'los trozos de esos archivos',
   'the next purchase order number; follows from purchase-orders.xlsx':
     'el siguiente número de orden de compra; se deduce de purchase-orders.xlsx',
   'what each scanner last reported as waiting to send; device state, not records':

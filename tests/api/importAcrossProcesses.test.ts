@@ -5,8 +5,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { dataImportPreviewShape, dataImportResultShape } from '../../shared/schemas/answers/dataImports.js'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
-import { insertId, tagOf } from '../support/fixtureRows.js'
-import { createWarehouse } from '../support/stockFixtures.js'
+import { tagOf } from '../support/fixtureRows.js'
+import { createOpeningStockTarget } from '../support/stockFixtures.js'
 
 let a: ApiHarness
 let b: ApiHarness
@@ -18,8 +18,7 @@ let itemId = 0
 beforeAll(async () => {
   a = await startApiHarness()
   b = await startApiHarness()
-  itemId = await insertId(a.ds, "INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES (?, 'Test clear 8x8 block', 'glass_block', 'each', 0, 8, 1)", [SKU])
-  await createWarehouse(a.ds, WH, ['A-01-1'])
+  itemId = await createOpeningStockTarget(a.ds, SKU, WH)
 })
 afterAll(async () => {
   await b?.close()

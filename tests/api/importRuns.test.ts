@@ -5,8 +5,8 @@
 import { createHash } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { CSRF, startApiHarness, type ApiHarness } from '../support/apiHarness.js'
-import { insertId, tagOf } from '../support/fixtureRows.js'
-import { createWarehouse } from '../support/stockFixtures.js'
+import { tagOf } from '../support/fixtureRows.js'
+import { createOpeningStockTarget } from '../support/stockFixtures.js'
 
 let h: ApiHarness
 const tag = tagOf()
@@ -15,8 +15,7 @@ const WH = `R${tag}`
 
 beforeAll(async () => {
   h = await startApiHarness()
-  await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES (?, 'Test clear 8x8 block', 'glass_block', 'each', 0, 8, 1)", [SKU])
-  await createWarehouse(h.ds, WH, ['A-01-1'])
+  await createOpeningStockTarget(h.ds, SKU, WH)
 })
 afterAll(() => h?.close())
 

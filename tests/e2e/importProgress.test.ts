@@ -6,9 +6,9 @@ import { createHash } from 'node:crypto'
 import type { BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startE2e, type E2eHarness } from '../support/browser.js'
-import { insertId, tagOf } from '../support/fixtureRows.js'
+import { tagOf } from '../support/fixtureRows.js'
 import { openInApp } from '../support/routeWalk.js'
-import { createWarehouse } from '../support/stockFixtures.js'
+import { createOpeningStockTarget } from '../support/stockFixtures.js'
 
 const tag = tagOf()
 const SKU = `IP-BLK-${tag}`
@@ -20,8 +20,7 @@ let context: BrowserContext
 
 beforeAll(async () => {
   h = await startE2e()
-  await insertId(h.ds, "INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES (?, 'Test clear 8x8 block', 'glass_block', 'each', 0, 8, 1)", [SKU])
-  await createWarehouse(h.ds, WH, ['A-01-1'])
+  await createOpeningStockTarget(h.ds, SKU, WH)
   ;({ page, context } = await h.newPage())
   await h.signIn(page, 'admin')
 })

@@ -32,6 +32,16 @@ export async function createWarehouse(ds: DataSource, code: string, binCodes: st
   return { id, bins }
 }
 
+/**
+ * What an opening-stock file needs to be good: a lot-matched glass block `sku` (cases of 8) and a warehouse `code`
+ * with its one bin A-01-1. Answers the item's id.
+ */
+export async function createOpeningStockTarget(ds: DataSource, sku: string, code: string): Promise<number> {
+  const itemId = await insertId(ds, "INSERT INTO items (sku, name, family, stock_unit, cost, case_qty, match_lot) VALUES (?, 'Test clear 8x8 block', 'glass_block', 'each', 0, 8, 1)", [sku])
+  await createWarehouse(ds, code, ['A-01-1'])
+  return itemId
+}
+
 export async function createLot(ds: DataSource, itemId: number, code: string): Promise<number> {
   return insertId(ds, 'INSERT INTO lots (item_id, code, received_at) VALUES (?, ?, CURRENT_DATE)', [itemId, code])
 }

@@ -5,7 +5,6 @@ import path from 'node:path'
 import express from 'express'
 import expressStaticGzip from 'express-static-gzip'
 import session from 'express-session'
-import helmet from 'helmet'
 import type { Logger } from 'pino'
 import type { DataSource } from 'typeorm'
 import type { AppConfig } from './config.js'
@@ -14,7 +13,9 @@ import { apiNotFound, errorMiddleware } from './http/errorMiddleware.js'
 import { csrfGuard } from './http/csrf.js'
 import { pageHtml } from './http/pagePreloads.js'
 import { requestLog } from './http/requestLog.js'
+import { securityHeaders } from './http/securityHeaders.js'
 import { createSessionStore } from './db/sessionStore.js'
+import { closePreparedReads } from './db/prepared.js'
 import { buildRouters } from './routes/index.js'
 import { absoluteTimeout, configurePassport, renewWhenDue } from './http/session.js'
 import { costReplacer } from './services/costVisibility.js'
@@ -42,41 +43,6 @@ export interface BuiltApp {
   app: express.Express
   ctx: AppContext
   close(): Promise<void>
-}
-
-/**
- * helmet's headers, worked out by helmet once at start (they are the same on every answer: no nonce) and then set
- * in one step, rather than through helmet's dozen middleware on each request.
- */
-function securityHeaders(): express.RequestHandler {
-  const headers: [string, string][] = []
-  const recorder = { setHeader: (name: string, value: unknown) => headers.push([name, String(value)]), removeHeader: () => undefined }
-  helmet({
-    contentSecurityPolicy: {
-      useDefaults: false,
-      directives: {
-        defaultSrc: ["'self'"],
-        scriptSrc: ["'self'"],
-        styleSrc: ["'self'", "'unsafe-inline'"], // component libraries set inline styles
-        imgSrc: ["'self'", 'data:', 'blob:'],
-        fontSrc: ["'self'", 'data:'],
-        connectSrc: ["'self'"],
-        mediaSrc: ["'self'", 'data:', 'blob:'],
-        workerSrc: ["'self'", 'blob:'],
-        objectSrc: ["'none'"],
-        baseUri: ["'self'"],
-        formAction: ["'self'"],
-        frameAncestors: ["'none'"],
-      },
-    },
-    strictTransportSecurity: false, // set by the TLS-terminating proxy in production
-  })({} as express.Request, recorder as unknown as express.Response, (err?: unknown) => {
-    if (err) throw err
-  })
-  return (_req, res, next) => {
-    for (const [name, value] of headers) res.setHeader(name, value)
-    next()
-  }
 }
 
 /**
@@ -228,6 +194,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     ctx,
     close: async () => {
       await closeStore()
+      await closePreparedReads(ds)
       await ctx.throttle.close()
     },
   }

@@ -43,12 +43,24 @@ const sameCost = (a: string, b: string) => Math.round(Number(a) * 10_000) === Ma
 export const averagesImport = recordsImport<AverageWrite, AverageFacts>({
   kind: 'averages',
   spec: AVERAGES_SPEC,
-  async facts(em, sheet) {
+  async facts(em, sheet, importId) {
     const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
-    const rows = await inChunks([...items.values()].map((i) => i.id), (c) => em.query(
+    const itemIds = [...items.values()].map((i) => i.id)
+    const now = await inChunks(itemIds, (c) => em.query(
       `SELECT iw.item_id, iw.warehouse_id, iw.avg_cost, iw.min_qty,
               (SELECT SUM(s.on_hand) FROM stock_balances s WHERE s.item_id = iw.item_id AND s.warehouse_id = iw.warehouse_id) AS on_hand
          FROM item_warehouses iw WHERE iw.item_id IN (${marks(c.length)})`, c) as Promise<(LineNow & { item_id: number; warehouse_id: number })[]>)
+    // A line a commit's earlier chunks wrote reads as it was before the commit (kept for the reversal): the file's
+    // own write is not a line held before.
+    const mine = importId === null ? [] : await inChunks(itemIds, (c) => em.query(
+      `SELECT item_id, warehouse_id, existed, avg_before, min_before FROM data_import_averages WHERE import_id = ? AND item_id IN (${marks(c.length)})`,
+      [importId, ...c]) as Promise<{ item_id: number; warehouse_id: number; existed: number; avg_before: string | null; min_before: number | null }[]>)
+    const before = new Map(mine.map((m) => [`${m.item_id}:${m.warehouse_id}`, m]))
+    const rows = now.flatMap((r) => {
+      const was = before.get(`${r.item_id}:${r.warehouse_id}`)
+      if (!was) return [r]
+      return Number(was.existed) ? [{ ...r, avg_cost: was.avg_before ?? r.avg_cost, min_qty: was.min_before }] : []
+    })
     const lines = new Map(rows.map((r) => [`${r.item_id}:${r.warehouse_id}`, r]))
     const warehouses = await warehousesByCode(em)
     const skuOf = new Map([...items.values()].map((i) => [i.id, i.sku]))

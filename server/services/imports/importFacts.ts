@@ -17,9 +17,19 @@ export async function inChunks<T>(values: readonly unknown[], read: (chunk: unkn
   return out
 }
 
-/** Which of `values` a table already holds in `column`, in upper case (codes match without regard to case). */
-export async function heldValues(em: EntityManager, table: string, column: string, values: readonly string[]): Promise<Set<string>> {
-  const rows = await inChunks(values, (c) => em.query(`SELECT ${column} AS v FROM ${table} WHERE ${column} IN (${marks(c.length)})`, c) as Promise<{ v: string }[]>)
+/**
+ * A condition leaving out the rows a commit's earlier chunks wrote (`column` is the table's import_id) and its
+ * parameter: `AND (x.import_id IS NULL OR x.import_id <> ?)`. In a check (`importId` null) it leaves out nothing.
+ */
+export const notOwn = (column: string, importId: number | null): [string, number] => [` AND (${column} IS NULL OR ${column} <> ?)`, importId ?? 0]
+
+/**
+ * Which of `values` a table already holds in `column`, in upper case (codes match without regard to case), leaving
+ * out the rows of import `importId` (a commit's own earlier chunks; null in a check).
+ */
+export async function heldValues(em: EntityManager, table: string, column: string, values: readonly string[], importId: number | null): Promise<Set<string>> {
+  const [own, ownId] = notOwn('import_id', importId)
+  const rows = await inChunks(values, (c) => em.query(`SELECT ${column} AS v FROM ${table} WHERE ${column} IN (${marks(c.length)})${own}`, [...c, ownId]) as Promise<{ v: string }[]>)
   return new Set(rows.map((r) => r.v.toUpperCase()))
 }
 

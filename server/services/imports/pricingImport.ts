@@ -3,7 +3,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { priceLevelInputSchema, priceRuleInputSchema } from '../../../shared/schemas/pricing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, heldValues, inChunks, itemsBySku, marks, namedItem, type ItemFacts } from './importFacts.js'
+import { cellText, distinctOf, heldValues, inChunks, itemsBySku, marks, namedItem, notOwn, type ItemFacts } from './importFacts.js'
 import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const PRICE_LEVELS_SPEC: ImportSpec = {
@@ -51,8 +51,8 @@ interface LevelWrite { code: string; name: string; percentOff: string | null; ac
 export const priceLevelsImport = recordsImport<LevelWrite, object>({
   kind: 'price_levels',
   spec: PRICE_LEVELS_SPEC,
-  async facts(em, part) {
-    return { held: await heldValues(em, 'price_levels', 'code', distinctOf(part, 'code')) }
+  async facts(em, part, importId) {
+    return { held: await heldValues(em, 'price_levels', 'code', distinctOf(part, 'code'), importId) }
   },
   read(values, _facts, reader) {
     const parsed = priceLevelInputSchema.safeParse({ code: values.code ?? '', name: values.name ?? '', percentOff: values.percentOff ?? null, active: values.active ?? undefined })
@@ -83,12 +83,13 @@ interface RuleWrite { levelId: number | null; level: string; itemId: number; sku
 export const priceRulesImport = recordsImport<RuleWrite, { items: Map<string, ItemFacts>; levels: Map<string, { id: number; code: string }> }>({
   kind: 'price_rules',
   spec: PRICE_RULES_SPEC,
-  async facts(em, part) {
+  async facts(em, part, importId) {
     const levels = await inChunks(distinctOf(part, 'level'), (c) => em.query(`SELECT id, code FROM price_levels WHERE code IN (${marks(c.length)})`, c) as Promise<{ id: number; code: string }[]>)
     const items = await itemsBySku(em, distinctOf(part, 'sku'))
+    const [own, ownId] = notOwn('r.import_id', importId)
     const rules = await inChunks([...items.values()].map((i) => i.id), (c) => em.query(
       `SELECT l.code AS level, i.sku, r.basis, r.min_qty FROM price_rules r JOIN items i ON i.id = r.item_id LEFT JOIN price_levels l ON l.id = r.level_id
-        WHERE r.item_id IN (${marks(c.length)})`, c) as Promise<{ level: string | null; sku: string; basis: string; min_qty: number }[]>)
+        WHERE r.item_id IN (${marks(c.length)})${own}`, [...c, ownId]) as Promise<{ level: string | null; sku: string; basis: string; min_qty: number }[]>)
     return {
       items,
       levels: new Map(levels.map((l) => [l.code.toUpperCase(), l])),

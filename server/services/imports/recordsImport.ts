@@ -27,8 +27,10 @@ export interface RecordsImport<W, F> {
   /**
    * Lookups for one chunk of the file's rows (`part`), and which of the records those rows name are already held:
    * read by what the rows name (IN lists), so the work and memory follow the chunk, not the size of the tables.
+   * `importId` is the import a commit is writing, null in a check: what its earlier chunks wrote is the file's own
+   * and must read as not held (importFacts' `notOwn`), or the commit would find problems the check did not.
    */
-  facts(em: EntityManager, part: ParsedSheet): Promise<F & { held: Set<string> }>
+  facts(em: EntityManager, part: ParsedSheet, importId: number | null): Promise<F & { held: Set<string> }>
   /** One row read into what to write, or null (problems go through `reader`; null with none: nothing to write). */
   read(values: Record<string, CellValue>, facts: F, reader: RowReader): W | null
   /** What makes the record one of a kind ('HRY' or 'HRY A-01-1'), compared without regard to case. */
@@ -78,13 +80,13 @@ export async function firstTimeIds(em: EntityManager, table: string, column: str
 export function recordsImport<W, F>(def: RecordsImport<W, F>): DataImportDefinition<W> {
   const col = headerOf(def.spec)
   /** A checker for one pass over a file: each chunk's lookups, and the records seen in earlier chunks (for repeats). */
-  const checker = (em: EntityManager): ChunkChecker<W> => {
+  const checker = (em: EntityManager, importId: number | null): ChunkChecker<W> => {
     const repeated = repeatedRows()
     return { check: async (sheet: ParsedSheet): Promise<CheckedRow<W>[]> => {
       const problemsOf = parserProblems(sheet, col)
       const checked: CheckedRow<W>[] = []
       await chunked(sheet.rows, CHECK_CHUNK_ROWS, async (part) => {
-        const facts = await def.facts(em, { rows: part, issues: [] })
+        const facts = await def.facts(em, { rows: part, issues: [] }, importId)
         for (const r of part) checked.push(checkRow(r, facts))
       })
       return checked

@@ -7,7 +7,7 @@ import { problem } from '../../../shared/errors/errorCodes.js'
 import { policyUpsertSchema, type PolicyUpsertInput } from '../../../shared/schemas/reorder.js'
 import { DAY_SECONDS, observedLeadTimeSql } from '../reorder/leadTimes.js'
 import type { CellValue, ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, type ItemFacts, type WarehouseFacts, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, notOwn, type ItemFacts, type WarehouseFacts, warehousesByCode } from './importFacts.js'
 import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const REORDER_SETTINGS_SPEC: ImportSpec = {
@@ -69,15 +69,16 @@ const blankNull = (v: CellValue | undefined) => (v === undefined || v === '' ? n
 export const reorderSettingsImport = recordsImport<SettingWrite, SettingFacts>({
   kind: 'reorder_settings',
   spec: REORDER_SETTINGS_SPEC,
-  async facts(em, part) {
+  async facts(em, part, importId) {
     const items = await itemsBySku(em, distinctOf(part, 'sku'))
+    const [own, ownId] = notOwn('p.import_id', importId)
     // The layers above an item (a handful) whole; an item's own settings only for the items these rows name.
     const target = `CASE p.scope WHEN 'global' THEN 'global' WHEN 'family' THEN CONCAT('family ', p.family) WHEN 'abc' THEN CONCAT('abc ', p.abc_class)
          ELSE CONCAT(i.sku, ' ', w.code) END AS target FROM reorder_policies p LEFT JOIN items i ON i.id = p.item_id LEFT JOIN warehouses w ON w.id = p.warehouse_id`
     const held: { target: string }[] = [
-      ...(await em.query(`SELECT ${target} WHERE p.scope <> 'item_warehouse'`) as { target: string }[]),
+      ...(await em.query(`SELECT ${target} WHERE p.scope <> 'item_warehouse'${own}`, [ownId]) as { target: string }[]),
       ...(await inChunks([...items.values()].map((i) => i.id), (c) => em.query(
-        `SELECT ${target} WHERE p.scope = 'item_warehouse' AND p.item_id IN (${marks(c.length)})`, c) as Promise<{ target: string }[]>)),
+        `SELECT ${target} WHERE p.scope = 'item_warehouse' AND p.item_id IN (${marks(c.length)})${own}`, [...c, ownId]) as Promise<{ target: string }[]>)),
     ]
     return { items, warehouses: await warehousesByCode(em), held: new Set(held.map((h) => h.target.toUpperCase())) }
   },
@@ -157,13 +158,14 @@ interface LeadTimeFacts { items: Map<string, ItemFacts>; vendors: Map<string, { 
 export const leadTimesImport = recordsImport<LeadTimeWrite, LeadTimeFacts>({
   kind: 'lead_times',
   spec: LEAD_TIMES_SPEC,
-  async facts(em, part) {
+  async facts(em, part, importId) {
     const vendors = await inChunks(distinctOf(part, 'vendor'), (c) => em.query(`SELECT id, code FROM vendors WHERE code IN (${marks(c.length)})`, c) as Promise<{ id: number; code: string }[]>)
     const items = await itemsBySku(em, distinctOf(part, 'sku'))
     // Held: the lead times already seen of these rows' items, from this ledger's receipts or an earlier import.
+    const [own, ownId] = notOwn('h.import_id', importId)
     const seen = await inChunks([...items.values()].map((i) => i.id), (c) => em.query(
-      `SELECT v.code AS vendor, i.sku, t.order_ref FROM (${observedLeadTimeSql(`AND $item IN (${marks(c.length)})`)}) t
-         JOIN vendors v ON v.id = t.vendor_id JOIN items i ON i.id = t.item_id`, [...c, ...c]) as Promise<{ vendor: string; sku: string; order_ref: string }[]>)
+      `SELECT v.code AS vendor, i.sku, t.order_ref FROM (${observedLeadTimeSql(`AND $item IN (${marks(c.length)})`, own)}) t
+         JOIN vendors v ON v.id = t.vendor_id JOIN items i ON i.id = t.item_id`, [...c, ...c, ownId]) as Promise<{ vendor: string; sku: string; order_ref: string }[]>)
     return {
       items,
       vendors: new Map(vendors.map((v) => [v.code.toUpperCase(), v])),

@@ -4,7 +4,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { taxRateInputSchema } from '../../../shared/schemas/pricing.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, namedWarehouse, type WarehouseFacts, warehousesByCode } from './importFacts.js'
+import { cellText, namedWarehouse, notOwn, type WarehouseFacts, warehousesByCode } from './importFacts.js'
 import { insertRows, recordsImport } from './recordsImport.js'
 
 export const SALES_TAX_SPEC: ImportSpec = {
@@ -29,8 +29,9 @@ interface TaxFacts { warehouses: Map<string, WarehouseFacts>; rates: Map<number,
 export const salesTaxImport = recordsImport<TaxWrite, TaxFacts>({
   kind: 'sales_tax',
   spec: SALES_TAX_SPEC,
-  async facts(em) {
-    const rates: { warehouse_id: number; rate_percent: string }[] = await em.query('SELECT warehouse_id, rate_percent FROM sales_tax_rates')
+  async facts(em, _part, importId) {
+    const [own, ownId] = notOwn('import_id', importId)
+    const rates: { warehouse_id: number; rate_percent: string }[] = await em.query(`SELECT warehouse_id, rate_percent FROM sales_tax_rates WHERE 1 = 1${own}`, [ownId])
     return { warehouses: await warehousesByCode(em), rates: new Map(rates.map((r) => [r.warehouse_id, r.rate_percent])), held: new Set<string>() }
   },
   read(values, facts, reader) {

@@ -37,8 +37,8 @@ export const VENDORS_GUIDE: Record<string, string> = {
 export const vendorsImport = recordsImport<VendorCreateInput, object>({
   kind: 'vendors',
   spec: VENDORS_SPEC,
-  async facts(em, part) {
-    return { held: await heldValues(em, 'vendors', 'code', distinctOf(part, 'code')) }
+  async facts(em, part, importId) {
+    return { held: await heldValues(em, 'vendors', 'code', distinctOf(part, 'code'), importId) }
   },
   read(values, _facts, reader) {
     const parsed = vendorCreateSchema.safeParse(filledCells(values))

@@ -4,7 +4,7 @@
 import { problem } from '../../../shared/errors/errorCodes.js'
 import { binCodeFitsPattern, binSchema, warehouseSchema } from '../../../shared/schemas/warehouses.js'
 import type { ImportSpec } from './importTypes.js'
-import { cellText, distinctOf, filledCells, heldValues, inChunks, marks, namedWarehouse } from './importFacts.js'
+import { cellText, distinctOf, filledCells, heldValues, inChunks, marks, namedWarehouse, notOwn } from './importFacts.js'
 import { firstTimeIds, insertRows, recordsImport } from './recordsImport.js'
 
 export const WAREHOUSES_SPEC: ImportSpec = {
@@ -50,8 +50,8 @@ interface WarehouseWrite { code: string; name: string; address: string | null; b
 export const warehousesImport = recordsImport<WarehouseWrite, object>({
   kind: 'warehouses',
   spec: WAREHOUSES_SPEC,
-  async facts(em, part) {
-    return { held: await heldValues(em, 'warehouses', 'code', distinctOf(part, 'code')) }
+  async facts(em, part, importId) {
+    return { held: await heldValues(em, 'warehouses', 'code', distinctOf(part, 'code'), importId) }
   },
   read(values, _facts, reader) {
     const parsed = warehouseSchema.safeParse({ ...filledCells(values), code: cellText(values.code).toUpperCase() })
@@ -84,10 +84,11 @@ interface BinWrite { warehouseId: number; warehouse: string; code: string; kind:
 export const binsImport = recordsImport<BinWrite, { warehouses: Map<string, { id: number; code: string; pattern: string }> }>({
   kind: 'bins',
   spec: BINS_SPEC,
-  async facts(em, part) {
+  async facts(em, part, importId) {
     const rows: { id: number; code: string; bin_pattern: string }[] = await em.query('SELECT id, code, bin_pattern FROM warehouses')
+    const [own, ownId] = notOwn('b.import_id', importId)
     const bins = await inChunks(distinctOf(part, 'code'), (c) => em.query(
-      `SELECT w.code AS warehouse, b.code FROM bins b JOIN warehouses w ON w.id = b.warehouse_id WHERE b.code IN (${marks(c.length)})`, c) as Promise<{ warehouse: string; code: string }[]>)
+      `SELECT w.code AS warehouse, b.code FROM bins b JOIN warehouses w ON w.id = b.warehouse_id WHERE b.code IN (${marks(c.length)})${own}`, [...c, ownId]) as Promise<{ warehouse: string; code: string }[]>)
     return {
       warehouses: new Map(rows.map((w) => [w.code.toUpperCase(), { id: w.id, code: w.code, pattern: w.bin_pattern }])),
       held: new Set(bins.map((b) => `${b.warehouse} ${b.code}`.toUpperCase())),

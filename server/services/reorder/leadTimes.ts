@@ -12,9 +12,10 @@ export const DAY_SECONDS = 86_400
 /**
  * Each observed lead time: an order's vendor, an item, the order's number and the seconds from sending (or
  * approving) it to its first receipt of the item; then those brought in from before Lumenyard
- * (lead_time_history). `itemFilter` narrows both halves to `m.item_id IN (…)` / `h.item_id IN (…)`.
+ * (lead_time_history). `itemFilter` narrows both halves to `m.item_id IN (…)` / `h.item_id IN (…)`; `historyFilter`
+ * narrows the second half alone (its rows are `h`).
  */
-export const observedLeadTimeSql = (itemFilter = '') => `SELECT o.vendor_id, m.item_id, o.number AS order_ref,
+export const observedLeadTimeSql = (itemFilter = '', historyFilter = '') => `SELECT o.vendor_id, m.item_id, o.number AS order_ref,
       TIMESTAMPDIFF(SECOND, COALESCE(o.sent_at, o.approved_at), MIN(m.at)) AS seconds
     FROM purchase_orders o
     JOIN stock_moves m ON m.doc_type = 'purchase_order' AND m.doc_id = o.id AND m.move_type = 'receipt'
@@ -22,7 +23,7 @@ export const observedLeadTimeSql = (itemFilter = '') => `SELECT o.vendor_id, m.i
    GROUP BY o.id, o.vendor_id, m.item_id
   HAVING seconds >= 0
   UNION ALL
-  SELECT h.vendor_id, h.item_id, h.order_ref, h.seconds FROM lead_time_history h WHERE 1 = 1 ${itemFilter.replaceAll('$item', 'h.item_id')}`
+  SELECT h.vendor_id, h.item_id, h.order_ref, h.seconds FROM lead_time_history h WHERE 1 = 1 ${itemFilter.replaceAll('$item', 'h.item_id')}${historyFilter}`
 
 /** Observed order-to-receipt days per 'vendor:item', one value per purchase order. */
 export async function observedLeadTimes(em: EntityManager, itemIds?: readonly number[]): Promise<Map<string, number[]>> {

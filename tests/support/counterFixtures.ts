@@ -1,10 +1,14 @@
 // Counter test fixtures: a test glass block and its supplies written straight into the items table
 // (the catalog APIs are another feature's), each role mapped to them for that block only, so a test's
 // numbers never depend on the demo catalog.
+import bcrypt from 'bcryptjs'
 import type { DataSource } from 'typeorm'
+import { User } from '../../server/entities/User.js'
 import type { Takeoff } from '../../shared/schemas/takeoff.js'
 import { MM_PER_INCH } from '../../shared/units.js'
+import { TEST_PASSWORD } from './apiHarness.js'
 import { insertId, tagOf } from './fixtureRows.js'
+import { TEST_HASH_COST } from './testHashCost.js'
 
 export const IN = MM_PER_INCH // NIST SP 811: 1 in = 25.4 mm exactly
 
@@ -94,4 +98,14 @@ export async function createCustomerAndJob(ds: DataSource, tag: string): Promise
   const customerId = await insertId(ds, 'INSERT INTO customers (code, name) VALUES (?, ?)', [`CT${tag}`, `Test account ${tag}`])
   const jobId = await insertId(ds, 'INSERT INTO jobs (customer_id, name) VALUES (?, ?)', [customerId, `Test job ${tag}`])
   return { customerId, jobId }
+}
+
+/** The Spanish-speaking counter clerk a browser test signs in as (password TEST_PASSWORD), made once per database. */
+export async function spanishCounterClerk(ds: DataSource): Promise<string> {
+  const username = 't-counter-es'
+  const users = ds.getRepository(User)
+  if (!(await users.existsBy({ username }))) {
+    await users.save(users.create({ username, displayName: 'Test mostrador', roles: ['counter'], locale: 'es', active: true, passwordHash: await bcrypt.hash(TEST_PASSWORD, TEST_HASH_COST) }))
+  }
+  return username
 }

@@ -8,7 +8,7 @@ import type { AuditActor } from '../auditService.js'
 import { bringInOpeningStock, takeBackOpeningStock, type CostBefore, type OpeningLine } from '../stock/openingStock.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, issuesByRow, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, repeatedRows, rowQuantity, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, issuesByRow, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, repeatedRows, rowQuantity, warehousesByCode, type WarehouseFacts } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const OPENING_STOCK_SPEC: ImportSpec = {
@@ -41,9 +41,36 @@ type Write = OpeningLine & { lotCode: string | null; row: number }
 const col = headerOf(OPENING_STOCK_SPEC)
 const text = cellText
 
+/** (warehouse, bin) pairs looked up per statement: read through the bins' unique key, 2 values each. */
+const PAIRS_PER_READ = 1000
+
+/**
+ * The bins the chunk's rows name: each in the row's own warehouse, read by (warehouse, code) through the bins'
+ * unique key, so the cost follows the chunk and not the bins table; only a code its warehouse lacks is looked for
+ * in every warehouse (a bin code alone has no index), to name the warehouse that has it.
+ */
+async function binsNamed(em: EntityManager, sheet: ParsedSheet, warehouse: ReadonlyMap<string, WarehouseFacts>): Promise<BinFacts[]> {
+  const pairs = new Map<string, [number, string]>()
+  for (const r of sheet.rows) {
+    const w = warehouse.get(text(r.values.warehouse).toUpperCase())
+    const code = text(r.values.bin)
+    if (w && code) pairs.set(`${w.id}:${code.toUpperCase()}`, [w.id, code])
+  }
+  const wanted = [...pairs.values()]
+  const found: BinFacts[] = []
+  for (let i = 0; i < wanted.length; i += PAIRS_PER_READ) {
+    const part = wanted.slice(i, i + PAIRS_PER_READ)
+    found.push(...((await em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE (warehouse_id, code) IN (${part.map(() => '(?, ?)').join(', ')})`, part.flat())) as BinFacts[]))
+  }
+  const held = new Set(found.map((b) => `${b.warehouse_id}:${b.code.toUpperCase()}`))
+  const missing = [...new Set(wanted.filter(([id, code]) => !held.has(`${id}:${code.toUpperCase()}`)).map(([, code]) => code))]
+  const elsewhere = await inChunks(missing, (c) => em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE code IN (${marks(c.length)})`, c) as Promise<BinFacts[]>)
+  return [...new Map([...found, ...elsewhere].map((b) => [b.id, b])).values()]
+}
+
 async function loadFacts(em: EntityManager, sheet: ParsedSheet) {
   const warehouse = await warehousesByCode(em)
-  const bins = await inChunks(distinctOf(sheet, 'bin'), (c) => em.query(`SELECT id, warehouse_id, code, kind, active FROM bins WHERE code IN (${marks(c.length)})`, c) as Promise<BinFacts[]>)
+  const bins = await binsNamed(em, sheet, warehouse)
   const binsByCode = new Map<string, BinFacts[]>()
   for (const b of bins) binsByCode.set(b.code.toUpperCase(), [...(binsByCode.get(b.code.toUpperCase()) ?? []), b])
   return {

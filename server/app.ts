@@ -108,6 +108,28 @@ function clientPages(dist: string): express.RequestHandler {
   return router
 }
 
+/**
+ * The API's routers, reached by the address's first segment (`/stock` of /api/stock/lookup): one map lookup, and
+ * only the routers under that prefix look at the request, in the order listed, instead of every router's mount
+ * path being tried in turn. Matched without regard to case, as Express matches paths.
+ */
+function byFirstSegment(routers: { prefix: string; router: express.Router }[]): express.RequestHandler {
+  const groups = new Map<string, express.Router>()
+  for (const { prefix } of routers) {
+    const key = prefix.toLowerCase()
+    if (!/^\/[^/]+$/.test(key)) throw new Error(`router prefix ${prefix}: one path segment expected`)
+    if (!groups.has(key)) groups.set(key, express.Router().use(prefix, ...routers.filter((r) => r.prefix.toLowerCase() === key).map((r) => r.router)))
+  }
+  return (req, res, next) => {
+    const url = req.url
+    let end = 1
+    while (end < url.length && url[end] !== '/' && url[end] !== '?') end++
+    const group = groups.get(url.slice(0, end).toLowerCase())
+    if (!group) return next()
+    group(req, res, next)
+  }
+}
+
 /** A body parser only where a body may come: a GET or HEAD goes past without the parser's checks. */
 function withBodyOnly(parser: express.RequestHandler): express.RequestHandler {
   return (req, res, next) => (req.method === 'GET' || req.method === 'HEAD' ? next() : parser(req, res, next))
@@ -170,8 +192,8 @@ export function createApp(deps: AppDeps): BuiltApp {
         },
       }),
       renewWhenDue(),
-      // compat: false — no `req._passport` object per request for strategies of passport before 0.5 (none here).
-      pp.initialize({ compat: false }),
+      // No pp.initialize(): since passport 0.6 its session strategy's own middleware puts logIn, logOut and
+      // isAuthenticated on the request, so initialize() only set them a second time on every request.
       pp.session(),
       absoluteTimeout(config.session.maxHours),
       // The webhook carries no cookie and no app header; its provider signature is its proof (routes/payments.ts).
@@ -183,7 +205,7 @@ export function createApp(deps: AppDeps): BuiltApp {
       costAccess(ds),
     ),
   )
-  for (const { prefix, router } of buildRouters(ctx)) app.use('/api' + prefix, router)
+  app.use('/api', byFirstSegment(buildRouters(ctx)))
   app.use('/api', apiNotFound)
 
   if (hasClient) app.use(clientPages(dist))

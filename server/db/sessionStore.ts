@@ -74,7 +74,6 @@ export function createSessionStore(config: AppConfig): { store: session.Store; c
     pool as never,
   )
   const idleMs = config.session.idleMinutes * 60_000
-  const plainTouch = store.touch.bind(store)
   // The read every signed-in request makes, as a prepared statement (each pooled connection prepares it once):
   // MariaDB then skips parsing and planning it from its text, about a quarter of the statement's cost there.
   const readSql = `SELECT s.data AS session_data, s.expires AS session_expires, ${sessionUserColumns('u')}
@@ -96,11 +95,10 @@ export function createSessionStore(config: AppConfig): { store: session.Store; c
     }, done)
   }
 
-  const touch = (sid: string, sess: SessionData, done: Callback) => {
-    if (!renewalDue(sess)) return done()
-    plainTouch(sid, sess, done)
-  }
-  Object.assign(store, { get, touch }) // express-session calls both with a callback
-
+  // No `touch`: express-session then never asks whether an unchanged session needs one (a third hash of the session
+  // on every answer). A signed-in session's idle timeout moves by a save instead: renewWhenDue (http/session.ts)
+  // changes the session once a minute, and express-session writes the row and sends the cookie. A session without
+  // a signed-in user is never stored (saveUninitialized is off, and signing out destroys the row).
+  Object.assign(store, { get, touch: undefined }) // express-session calls `get` with a callback
   return { store, close: async () => { await store.close(); await pool.end().catch(() => undefined) } }
 }

@@ -13,11 +13,11 @@ import { routePreloads } from './scripts/routePreloads'
 const FRAMEWORKS = /[\\/]node_modules[\\/](vue|@vue|vue-router|pinia|vue-i18n|@intlify|element-plus|@element-plus|@vueuse|lodash-es|lodash-unified|@popperjs|@floating-ui|@ctrl|async-validator|dayjs|memoize-one|normalize-wheel-es)[\\/]/
 /**
  * Beyond the entry's share, the controls of forms in two files instead of some twenty of a few hundred bytes each:
- * text boxes and the form with the helpers they import (the sign-in page needs these only), and the choice lists,
- * ticks and notices most other pages add.
+ * text boxes, buttons and the form with the helpers they import (the sign-in page needs these only), and the choice
+ * lists, ticks, notices and drop-downs (their poppers) most other pages add.
  */
 const EP = (names: string) => new RegExp(`[\\\\/]node_modules[\\\\/]element-plus[\\\\/]es[\\\\/]components[\\\\/](${names})[\\\\/]`)
-const TEXT_INPUTS = EP('input|form')
+const TEXT_INPUTS = EP('input|form|button')
 const CHOICES = EP('select|option|tag|checkbox|alert|scrollbar|tooltip|popper|radio|switch|input-number')
 /** Word lists the second message bundle and some pages read (each its own few hundred bytes otherwise). */
 const WORDS = /[\\/](shared[\\/](familyNames|inventory[\\/]reorderWords|takeoff[\\/]explainWords))\.ts$/

@@ -15,6 +15,8 @@ declare module 'vue' {
     AppShell: typeof import('./components/shell/AppShell.vue')['default']
     AppShellDrawer: typeof import('./components/shell/AppShellDrawer.vue')['default']
     AppShellNav: typeof import('./components/shell/AppShellNav.vue')['default']
+    AppUserButton: typeof import('./components/shell/AppUserButton.vue')['default']
+    AppUserMenu: typeof import('./components/shell/AppUserMenu.vue')['default']
     BarcodeSymbol: typeof import('./components/labels/BarcodeSymbol.vue')['default']
     BaseLengthInput: typeof import('./components/base/BaseLengthInput.vue')['default']
     BaseNumberInput: typeof import('./components/base/BaseNumberInput.vue')['default']

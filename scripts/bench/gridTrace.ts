@@ -6,9 +6,10 @@
 //   BENCH_PORT_BASE=5796 LUMENYARD_DB_PORT=3467 npx tsx --tsconfig tsconfig.server.json scripts/bench/gridTrace.ts [--size=demo] [--runs=3] [--reuse-build] [--profile]
 //
 // --profile samples the main thread's JavaScript (the DevTools protocol's Profiler) from navigation to the first
-// rows of the last run, and prints the self time per script file and the busiest functions.
+// rows of the last run, and prints the self time per script file and the busiest functions; with TRACE_PROFILE_OUT=<file>
+// it also writes that profile (DevTools' .cpuprofile format) for a closer look.
 import { spawnSync } from 'node:child_process'
-import { existsSync } from 'node:fs'
+import { existsSync, writeFileSync } from 'node:fs'
 import path from 'node:path'
 import { parseArgs } from 'node:util'
 import { dataRoot, projectRoot } from '../embeddedMariadb.js'
@@ -82,7 +83,11 @@ try {
     await page.goto(app.url + opts.path, { waitUntil: 'commit' })
     const first = Number(await (await page.waitForFunction(() => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false), null, { polling: 'raf', timeout: 60_000 })).jsonValue())
     firsts.push(first)
-    if (profiling) printProfile(((await cdp.send('Profiler.stop')) as { profile: CpuProfile }).profile)
+    if (profiling) {
+      const { profile } = (await cdp.send('Profiler.stop')) as { profile: CpuProfile }
+      printProfile(profile)
+      if (process.env.TRACE_PROFILE_OUT) writeFileSync(process.env.TRACE_PROFILE_OUT, JSON.stringify(profile))
+    }
     const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] }
     const metric = (n: string) => (metrics.find((m) => m.name === n)?.value ?? 0) * 1000
     const entries = (await page.evaluate(() => [

@@ -36,6 +36,10 @@ describe('first load of the stock grid', () => {
       const doc = await page.goto('/stock/overview')
       const html = await doc!.text()
       await page.locator('.ag-row .ag-cell').first().waitFor()
+      // The first rows come with no drop-down's content on the page (the account menu, the filters' choice lists):
+      // each such popper measures the page as it mounts (getBoundingClientRect, a forced layout), before the rows.
+      // They are put on the page when first opened.
+      expect(await page.locator('.el-popper').count()).toBe(0)
 
       const named = namedFiles(html)
       // The page's own view is named in its HTML (source: HTML Living Standard, link type "modulepreload":

@@ -78,4 +78,30 @@ describe('the shell for each role', () => {
       await context.close()
     }
   })
+
+  it('opens the account menu from the keyboard, and Escape brings focus back to its button', async () => {
+    const { page, context } = await h.newPage()
+    try {
+      await h.signIn(page, 'counter')
+      // The menu's code comes when the button is first wanted: no drop-down is on the page before that.
+      expect(await page.locator('.el-dropdown-menu').count()).toBe(0)
+      await page.locator('[data-test="user-menu"]').focus()
+      await page.keyboard.press('Enter')
+      // source: WAI-ARIA Authoring Practices 1.2, Menu Button pattern: Enter opens the menu and moves focus into it;
+      // Escape closes it and returns focus to the button.
+      await page.locator('[data-test="sign-out"]').waitFor()
+      await expect.poll(() => page.evaluate(() => !!document.activeElement?.closest('.el-dropdown-menu'))).toBe(true)
+      await page.keyboard.press('Escape')
+      await page.locator('[data-test="sign-out"]').waitFor({ state: 'hidden' })
+      await expect.poll(() => page.evaluate(() => document.activeElement?.getAttribute('data-test'))).toBe('user-menu')
+      // Opened again from the keyboard, the menu signs out with Enter on its item.
+      await page.keyboard.press('Enter')
+      await page.locator('[data-test="sign-out"]').waitFor()
+      await page.locator('[data-test="sign-out"]').focus()
+      await page.keyboard.press('Enter')
+      await page.waitForURL(/\/sign-in/)
+    } finally {
+      await context.close()
+    }
+  })
 })

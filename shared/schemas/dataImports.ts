@@ -115,6 +115,7 @@ export interface DataImportRun {
   /** Whole percent of the work (rows checked, then for a commit rows written); 100 only once done. */
   percent: number
   startedAt: string
+  /** A done run's answer; for a commit failed for its rows (import_invalid), what it found, its problems paged under this run. */
   answer: DataImportPreview | DataImportResult | null
   problem: DataImportRunProblem | null
 }

@@ -5,6 +5,7 @@ import type { BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { startE2e, type E2eHarness } from '../support/browser.js'
 import { tagOf } from '../support/fixtureRows.js'
+import { closeImportPage, rowRange, shownProblemRows } from '../support/importPages.js'
 import { openInApp } from '../support/routeWalk.js'
 import { createOpeningStockTarget } from '../support/stockFixtures.js'
 
@@ -22,20 +23,15 @@ beforeAll(async () => {
   ;({ page, context } = await h.newPage())
   await h.signIn(page, 'admin')
 })
-afterAll(async () => {
-  await h?.ds.query("UPDATE users SET locale = 'en' WHERE username = 'admin'").catch(() => undefined)
-  await context?.close()
-  await h?.close()
-})
+afterAll(() => closeImportPage(h, context))
 
 // Every row is bad: even rows name an unknown SKU, odd rows a negative quantity. Data row i is sheet row i + 2
 // (the header is row 1; common practice).
 const file = Buffer.from(['SKU,Warehouse,Bin,Lot,Quantity,Unit cost',
   ...Array.from({ length: ROWS }, (_, i) => `${i % 2 ? SKU : `NOPE-${tag}-${i}`},${WH},A-01-1,L-${i},${i % 2 ? -3 : 5},3.1000`)].join('\r\n') + '\r\n', 'utf8')
 
-/** The sheet rows the problem table shows now. */
-const shownRows = () => page.locator('[data-test="import-problems"] tbody tr td:first-child').allTextContents().then((t) => t.map((s) => Number(s.trim().replace(/[.,\s]/g, ''))))
-const range = (from: number, to: number, step = 1) => Array.from({ length: Math.floor((to - from) / step) + 1 }, (_, k) => from + k * step)
+const shownRows = () => shownProblemRows(page)
+const range = rowRange
 
 describe('import problem pages', () => {
   it('pages through every problem of 1,500 bad rows and filters one column', async () => {
@@ -45,7 +41,7 @@ describe('import problem pages', () => {
     await page.locator('[data-test="import-summary"]').waitFor({ timeout: 30_000 })
     expect(await shownRows()).toEqual(range(2, 51))
     const pages = page.locator('[data-test="import-problem-pages"]')
-    expect(await pages.textContent()).toContain('1500')
+    expect(await pages.textContent()).toContain('1,500')
     await pages.locator('button.btn-next').click()
     await expect.poll(shownRows, { timeout: 10_000 }).toEqual(range(52, 101))
     // The last page: 1,500 problems at 50 a page end on page 30 with rows 1,452 to 1,501.

@@ -6,6 +6,7 @@
 import { createHash } from 'node:crypto'
 import type { DataSource, EntityManager } from 'typeorm'
 import { PROBLEM_PAGE, type DataImportKind, type DataImportPreview, type DataImportRecord, type DataImportResult, type DataImportRow } from '../../../shared/schemas/dataImports.js'
+import type { Problem } from '../../../shared/errors/errorCodes.js'
 import { inTransaction } from '../../db/transaction.js'
 import { AppError } from '../../errors.js'
 import { audit, type AuditActor } from '../auditService.js'
@@ -55,6 +56,16 @@ export interface ImportProgress {
   written(rows: number): void
   /** Where every problem found is kept, for the pages of the run `runId`; without it only the first page is. */
   problems?: ProblemStore & { runId: string }
+}
+
+/**
+ * A commit refused for the problems it found (rows made wrong since the check, or a file never checked): the
+ * error, and what the commit found as a check would answer it, its problems kept under the commit's run for the pages.
+ */
+export class ImportRefused extends AppError {
+  constructor(readonly found: DataImportPreview, fields: Record<string, Problem>) {
+    super(422, 'import_invalid', `${found.errorRows} of ${found.total} rows need attention; nothing was imported.`, { params: { rows: found.errorRows, total: found.total }, fields })
+  }
 }
 
 export const checksumOf = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')
@@ -206,7 +217,7 @@ export async function commitImport<W>(
     const summary = seen.preview(def.kind, upload.filename, null)
     if (summary.errorRows) {
       const first = summary.rows.filter((r) => r.errors.length).slice(0, 5).map((r) => [String(r.row), r.errors[0].problem]) // keyed by row number
-      throw new AppError(422, 'import_invalid', `${summary.errorRows} of ${summary.total} rows need attention; nothing was imported.`, { params: { rows: summary.errorRows, total: summary.total }, fields: Object.fromEntries(first) })
+      throw new ImportRefused({ ...summary, checkRun: null }, Object.fromEntries(first))
     }
     if (!summary.ready) throw AppError.unprocessable('import_nothing_to_write', 'The file holds no rows to import; nothing was imported.')
     await em.query('UPDATE data_imports SET summary = ?, row_count = ? WHERE id = ?', [JSON.stringify(counts), summary.total, importId])

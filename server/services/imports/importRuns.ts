@@ -12,7 +12,7 @@ import { failSilentRows, progressRow } from '../../db/progressRow.js'
 import { dropExpiredFiles, loadStoredFile, storeFile } from '../../db/storedFiles.js'
 import { AppError } from '../../errors.js'
 import type { AuditActor } from '../auditService.js'
-import { checksumOf, type ImportProgress } from './dataImports.js'
+import { checksumOf, ImportRefused, type ImportProgress } from './dataImports.js'
 import { problemStore } from './importProblems.js'
 import { rowsInUpload } from './spreadsheetParser.js'
 import { kindOf, type GuardedUpload } from './uploadGuard.js'
@@ -130,7 +130,9 @@ export async function runImportStep<T>(
     return answer
   } catch (err) {
     const p = problemOf(err)
-    await finish("state = 'failed', problem = ?", [p ? JSON.stringify(p) : null]).catch(() => undefined)
+    // A commit refused for its rows keeps what it found beside the problem, for the page to show them paged.
+    const found = err instanceof ImportRefused ? JSON.stringify(err.found) : null
+    await finish("state = 'failed', problem = ?, answer = ?", [p ? JSON.stringify(p) : null, found]).catch(() => undefined)
     throw err
   }
 }

@@ -60,6 +60,8 @@ export default {
     qty: 'Quantity',
     unitCost: 'Unit cost',
     problemsTitle: '{count} problem to fix | {count} problems to fix',
+    pagerTotal: '{count} problem in all | {count} problems in all',
+    commitFound: 'The import found these problems on its way (something changed since the check), so nothing was imported. Fix them and check the file again.',
     showColumn: 'Show',
     allColumns: 'Every column',
     columnCount: '{column} ({count})',

@@ -60,6 +60,8 @@ export default {
     qty: 'Cantidad',
     unitCost: 'Costo unitario',
     problemsTitle: '{count} problema por corregir | {count} problemas por corregir',
+    pagerTotal: '{count} problema en total | {count} problemas en total',
+    commitFound: 'La importación encontró estos problemas por el camino (algo cambió desde la revisión), así que no se importó nada. Corríjalos y revise el archivo de nuevo.',
     showColumn: 'Mostrar',
     allColumns: 'Todas las columnas',
     columnCount: '{column} ({count})',

@@ -108,9 +108,21 @@ export async function setLocale(locale: Locale): Promise<void> {
   if (wanted !== locale) return // a later switch won
   i18n.global.locale.value = locale
   document.documentElement.lang = locale
-  try {
-    localStorage.setItem(LAST_LOCALE, locale)
-  } catch {
-    // private mode: the guess is only an optimisation
+  rememberLocale(locale)
+}
+
+/**
+ * Kept for the sign-in page's next visit once the page is idle: the browser opens its storage on the first use,
+ * and that read blocks the page (some 50–80 ms on a busy machine before a cold page's first rows).
+ */
+function rememberLocale(locale: Locale): void {
+  const write = () => {
+    try {
+      localStorage.setItem(LAST_LOCALE, locale)
+    } catch {
+      // private mode: the guess is only an optimisation
+    }
   }
+  if (typeof requestIdleCallback === 'function') requestIdleCallback(write, { timeout: 2000 })
+  else setTimeout(write, 500)
 }

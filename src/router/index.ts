@@ -55,7 +55,10 @@ const messagesFor = (to: RouteLocationNormalized, locale: Parameters<typeof load
 // Signed-out visitors go to sign-in; a page outside the user's roles is not reachable.
 router.beforeEach(async (to) => {
   const session = useSessionStore()
-  const early = startPageLoads(to, session.user?.locale ?? lastLocale())
+  // Before the session answers, a signed-in page starts with English (every language's fallback, named in its HTML
+  // too) and loads the person's own language once the session names it, below; only a public page guesses from the
+  // language this browser last used (reading it opens the browser's storage, which holds up a cold load).
+  const early = startPageLoads(to, session.user?.locale ?? (to.meta.public ? lastLocale() : 'en'))
   if (!session.loaded) await session.load().catch(() => undefined)
   if (to.meta.public) {
     if (session.signedIn && to.name === 'sign-in') return { name: 'home' }

@@ -74,9 +74,9 @@ async function growthOf<T>(work: () => Promise<T>): Promise<{ answer: T; growth:
   }
 }
 
-const preview = (data: Buffer) => growthOf(() => previewImport(h.ds, openingStockImport, { kind: 'csv', filename: 'opening.csv', data }))
 /** The parse child's own time limit is for an upload on a quiet server; here it reads while the test collects often. */
 const PATIENT = { limits: { ...DEFAULT_PARSE_LIMITS, timeoutMs: 300_000 } }
+const preview = (data: Buffer) => growthOf(() => previewImport(h.ds, openingStockImport, { kind: 'csv', filename: 'opening.csv', data }, undefined, PATIENT))
 const commit = <W>(def: Parameters<typeof commitImport<W>>[2], data: Buffer, filename: string) =>
   growthOf(() => commitImport(h.ds, { userId }, def, { kind: 'csv', filename, data }, undefined, PATIENT))
 

@@ -479,6 +479,8 @@ export const ERROR_CODES = {
   import_kind_unknown: [],
   import_usage_day_or_month: [],
   import_usage_overlap: ['sku', 'warehouse', 'period'],
+  import_usage_day_and_month: ['sku', 'warehouse', 'month', 'row'],
+  import_usage_month_held: ['sku', 'warehouse', 'month'],
   import_vendor_name_needed: ['vendor'],
   import_vendor_item_exists: ['vendor', 'sku'],
   import_preferred_taken: ['sku', 'vendor'],

@@ -31,7 +31,14 @@ export const USAGE_HISTORY_GUIDE: Record<string, string> = {
   quantity: 'Units issued or sold, in the item\'s stock unit or packs ("3 cases"). A 0 row is skipped.',
 }
 
-type Write = { itemId: number; warehouseId: number; days: { date: string; qty: number }[] }
+/** A row's days to write; `spreadMonth` the month (YYYY-MM) when the row gave a month total, null for a day. */
+type Write = { itemId: number; warehouseId: number; days: { date: string; qty: number }[]; spreadMonth: string | null }
+
+/**
+ * What a pass carries from chunk to chunk: the (item, warehouse, period) keys seen, for repeats, and for each item,
+ * warehouse and month the first row that named it and whether by the month or by a day of it (one key a month).
+ */
+interface Carried { repeated: ReturnType<typeof repeatedRows>; months: Map<string, { row: number; byMonth: boolean }> }
 
 const col = headerOf(USAGE_HISTORY_SPEC)
 const ISO_DAY = /^\d{4}-\d{2}-\d{2}$/
@@ -48,22 +55,24 @@ function validDay(text: string): boolean {
 
 /**
  * The item, warehouse and periods already held in usage history for these items, as `item:warehouse:YYYY-MM-DD`
- * and `item:warehouse:YYYY-MM` keys.
+ * and `item:warehouse:YYYY-MM` keys, and `item:warehouse:YYYY-MM spread` for a month brought in as a month total
+ * (whose days without a unit hold no row, yet are counted in its total).
  */
 async function heldUsage(em: EntityManager, itemIds: number[], importId: number | null): Promise<Set<string>> {
   const rows = await inChunks(itemIds, (c) => em.query(
-    `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day FROM usage_history
+    `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day, spread_month FROM usage_history
       WHERE item_id IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0],
-  ) as Promise<{ item_id: number; warehouse_id: number; day: string }[]>)
+  ) as Promise<{ item_id: number; warehouse_id: number; day: string; spread_month: string | null }[]>)
   const keys = new Set<string>()
   for (const r of rows) {
     keys.add(`${r.item_id}:${r.warehouse_id}:${r.day}`)
     keys.add(`${r.item_id}:${r.warehouse_id}:${r.day.slice(0, 7)}`)
+    if (r.spread_month) keys.add(`${r.item_id}:${r.warehouse_id}:${r.spread_month} spread`)
   }
   return keys
 }
 
-async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, repeated: ReturnType<typeof repeatedRows>): Promise<CheckedRow<Write>[]> {
+async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, carried: Carried): Promise<CheckedRow<Write>[]> {
   const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
   const warehouses = await warehousesByCode(em)
   const today = new Date().toISOString().slice(0, 10)
@@ -92,15 +101,23 @@ async function checkChunk(em: EntityManager, importId: number | null, sheet: Par
     const qty = rowQuantity(r.values.quantity, item, sku, 100_000_000, { add })
     if (item && warehouse && when) {
       const key = `${item.id}:${warehouse.id}:${when}`
-      const again = repeated(key, r.row)
+      const byMonth = when.length === 7
+      const month = when.slice(0, 7)
+      const again = carried.repeated(key, r.row)
       if (again) errors.push(again)
-      // History already held for that day (or any day of that month) is never added to a second time.
-      if (held.has(key)) add(when.length === 7 ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
+      // A month given as a total and a day of it given too (in either order) would count that day's use twice.
+      const first = carried.months.get(`${item.id}:${warehouse.id}:${month}`)
+      if (!first) carried.months.set(`${item.id}:${warehouse.id}:${month}`, { row: r.row, byMonth })
+      else if (first.byMonth !== byMonth) add(byMonth ? 'month' : 'day', problem('import_usage_day_and_month', { sku, warehouse: warehouse.code, month, row: first.row }))
+      // History already held for that day (or any day of that month) is never added to a second time, nor a day of
+      // a month held as a total.
+      if (held.has(key)) add(byMonth ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
+      else if (!byMonth && held.has(`${item.id}:${warehouse.id}:${month} spread`)) add('day', problem('import_usage_month_held', { sku, warehouse: warehouse.code, month }))
     }
     const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
     if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
     const days = when.length === 7 ? spreadOverMonth(when, qty) : [{ date: when, qty }]
-    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days } }
+    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days, spreadMonth: when.length === 7 ? when : null } }
   })
 }
 
@@ -108,15 +125,15 @@ export const usageHistoryImport: DataImportDefinition<Write> = {
   kind: 'usage_history',
   spec: USAGE_HISTORY_SPEC,
   // Each chunk looks up its own items and the history they already have; only the (item, warehouse, period) keys
-  // seen so far carry over, for repeats. Every row is written on its own, so a chunk's rows go out with it (and the
-  // history a commit's earlier chunks wrote is not held from before).
+  // and months seen so far carry over, for repeats. Every row is written on its own, so a chunk's rows go out with
+  // it (and the history a commit's earlier chunks wrote is not held from before).
   checker(em, importId) {
-    const repeated = repeatedRows()
-    return { check: (sheet) => checkChunk(em, importId, sheet, repeated) }
+    const carried: Carried = { repeated: repeatedRows(), months: new Map() }
+    return { check: (sheet) => checkChunk(em, importId, sheet, carried) }
   },
   async write(em, _actor, importId, rows) {
-    const flat = rows.flatMap((r) => r.days.map((d) => [r.itemId, r.warehouseId, d.date, d.qty]))
-    await insertRows(em, 'usage_history', ['item_id', 'warehouse_id', 'day', 'qty'], importId, flat, (values) => values, 1000)
+    const flat = rows.flatMap((r) => r.days.map((d) => [r.itemId, r.warehouseId, d.date, d.qty, r.spreadMonth]))
+    await insertRows(em, 'usage_history', ['item_id', 'warehouse_id', 'day', 'qty', 'spread_month'], importId, flat, (values) => values, 1000)
     return { lines: rows.length, units: rows.reduce((n, r) => n + r.days.reduce((m, d) => m + d.qty, 0), 0), days: flat.length }
   },
   async reverse(em, _actor, importId) {

@@ -424,6 +424,8 @@ export default {
   import_preferred_taken: '{sku} is already bought from {vendor} by preference: mark only one vendor preferred',
   import_usage_overlap: 'Usage of {sku} in {warehouse} for {period} is already held from an earlier import: reverse that import first, or leave this row out',
   import_usage_day_or_month: 'Give either a day (YYYY-MM-DD) or a month (YYYY-MM), not both',
+  import_usage_day_and_month: 'Usage of {sku} in {warehouse} for {month} is given both by the day and as a month total (see row {row}): give the month one way only, or its use would be counted twice',
+  import_usage_month_held: 'Usage of {sku} in {warehouse} for the whole month {month} is already held from an earlier import: a day of it would be counted twice; reverse that import first, or leave this row out',
   import_code_exists: '{code} is already in Lumenyard; change it there, or leave this row out',
   import_average_from_stock: '{warehouse} holds {sku}, so its average cost comes from that stock ({cost}); give that cost here, or change the stock’s cost in the opening stock file',
   import_tax_rate_set: '{warehouse} already charges sales tax at {rate} %; change it under Selling prices → Sales tax by location, or leave this row out',

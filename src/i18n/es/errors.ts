@@ -423,6 +423,8 @@ export default {
   import_preferred_taken: '{sku} ya se compra de preferencia a {vendor}: marque un solo proveedor preferido',
   import_usage_overlap: 'El consumo de {sku} en {warehouse} para {period} ya está registrado por una importación anterior: deshaga esa importación primero o quite esta fila',
   import_usage_day_or_month: 'Indique un día (AAAA-MM-DD) o un mes (AAAA-MM), no ambos',
+  import_usage_day_and_month: 'El consumo de {sku} en {warehouse} para {month} se da por día y también como total del mes (vea la fila {row}): dé el mes de una sola forma, o su consumo se contaría dos veces',
+  import_usage_month_held: 'El consumo de {sku} en {warehouse} de todo el mes {month} ya está registrado por una importación anterior: un día de ese mes se contaría dos veces; deshaga esa importación primero o quite esta fila',
   import_code_exists: '{code} ya está en Lumenyard; cámbielo ahí o deje fuera esta fila',
   import_average_from_stock: '{warehouse} tiene existencia de {sku}, así que su costo promedio sale de esa existencia ({cost}); ponga ese costo aquí o cambie el costo en el archivo de existencia inicial',
   import_tax_rate_set: '{warehouse} ya cobra impuesto sobre la venta al {rate} %; cámbielo en Precios de venta → Impuesto por sede, o deje fuera esta fila',

@@ -6,6 +6,7 @@ import { createHash } from 'node:crypto'
 import type { DataSource, EntityManager } from 'typeorm'
 import { IdempotencyRecord } from '../entities/IdempotencyRecord.js'
 import { AppError } from '../errors.js'
+import { sqlOn } from '../db/onConnection.js'
 import { inTransaction, isDuplicateKey } from '../db/transaction.js'
 
 export interface IdempotentRequest {
@@ -64,12 +65,13 @@ export async function runIdempotent<T>(
   try {
     return await inTransaction(ds, async (em) => {
       // Plain SQL: the ORM's insert reads the row back for its generated columns, a statement per request.
-      await em.query(
+      await sqlOn(
+        em,
         "INSERT INTO idempotency_records (user_id, idem_key, scope, request_hash, response_status, response_body) VALUES (?, ?, ?, ?, 0, 'null')",
         [req.userId, key, req.scope, hash],
       )
       const answer = await work(em)
-      await em.query('UPDATE idempotency_records SET response_status = ?, response_body = ? WHERE user_id = ? AND idem_key = ?', [
+      await sqlOn(em, 'UPDATE idempotency_records SET response_status = ?, response_body = ? WHERE user_id = ? AND idem_key = ?', [
         answer.status, JSON.stringify(answer.body), req.userId, key,
       ])
       return { ...answer, replayed: false }

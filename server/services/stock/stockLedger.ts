@@ -7,6 +7,7 @@ import type { MoveType } from '../../../shared/catalog.js'
 import { balanceAfter } from '../../../shared/inventory/balanceAfter.js'
 import type { StockBalance } from '../../entities/StockBalance.js'
 import { StockMove } from '../../entities/StockMove.js'
+import { sqlOn } from '../../db/onConnection.js'
 import { blendAverages, COSTED_IN, lockCostRows } from './averageCost.js'
 import { balanceKey, groupKey, lockBalances, type WarehouseGroup } from './balanceLocks.js'
 import { notEnoughAvailable, notEnoughOnHand } from './stockErrors.js'
@@ -55,6 +56,8 @@ function checkQuantities(specs: readonly MoveSpec[]): void {
 }
 
 const MOVE_COLUMNS = ['at', 'move_type', 'item_id', 'warehouse_id', 'bin_id', 'lot_id', 'qty', 'unit_cost', 'doc_type', 'doc_id', 'doc_line_id', 'reason', 'note', 'batch_id', 'user_id']
+const MOVE_ROW = `(${MOVE_COLUMNS.map(() => '?').join(', ')})`
+const INSERT_MOVES = `INSERT INTO stock_moves (${MOVE_COLUMNS.join(', ')}) VALUES `
 
 /** `preloaded`: the lookups the caller already loaded for exactly these moves (one read per operation). */
 export async function applyMoves(em: EntityManager, actor: StockActor, specs: readonly MoveSpec[], preloaded?: Lookups): Promise<AppliedMoves> {
@@ -91,12 +94,12 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
   // Plain SQL for the two writes every stock move makes: the ORM's update and insert build their statement
   // through its query builder on each call, a measurable share of a stock issue's CPU (npm run bench --cpu-prof).
   for (const bal of balances.values()) {
-    await em.query('UPDATE stock_balances SET on_hand = ?, reserved = ?, updated_at = CURRENT_TIMESTAMP WHERE id = ?', [bal.onHand, bal.reserved, bal.id])
+    await sqlOn(em, 'UPDATE stock_balances SET on_hand = ?, reserved = ?, updated_at = CURRENT_TIMESTAMP WHERE id = ?', [bal.onHand, bal.reserved, bal.id])
   }
   const batchId = randomUUID()
   const at = new Date()
   const moves = specs.map((s) =>
-    em.create(StockMove, {
+    Object.assign(new StockMove(), {
       at,
       moveType: s.moveType,
       itemId: s.itemId,
@@ -114,8 +117,9 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
       userId: actor.userId,
     }),
   )
-  const inserted: { insertId: number | string } = await em.query(
-    `INSERT INTO stock_moves (${MOVE_COLUMNS.join(', ')}) VALUES ${moves.map(() => `(${MOVE_COLUMNS.map(() => '?').join(', ')})`).join(', ')}`,
+  const inserted = await sqlOn<{ insertId: number | string }>(
+    em,
+    INSERT_MOVES + (moves.length === 1 ? MOVE_ROW : moves.map(() => MOVE_ROW).join(', ')),
     moves.flatMap((m) => [m.at, m.moveType, m.itemId, m.warehouseId, m.binId, m.lotId, m.qty, m.unitCost, m.docType, m.docId, m.docLineId, m.reason, m.note, m.batchId, m.userId]),
   )
   // One multi-row INSERT of a known row count gets consecutive ids from the first in every InnoDB

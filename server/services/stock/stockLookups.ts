@@ -4,6 +4,7 @@
 import type { EntityManager } from 'typeorm'
 import { Bin } from '../../entities/Bin.js'
 import type { Lot } from '../../entities/Lot.js'
+import { sqlOn } from '../../db/onConnection.js'
 import { AppError } from '../../errors.js'
 import { groupKey } from './balanceLocks.js'
 import { currentLotsById } from './currentRows.js'
@@ -50,7 +51,8 @@ export async function loadLookups(
   // waits; see the lock order in balanceLocks.ts). The named pairs come in as a derived table of literals.
   const named = [...pairs.values()]
   const rows: LookupRow[] = named.length
-    ? await em.query(
+    ? await sqlOn<LookupRow[]>(
+        em,
         `SELECT r.item_id AS ref_item, r.bin_id AS ref_bin, i.id AS item_id, i.sku, i.match_lot, b.id AS bin_id, b.warehouse_id, b.code AS bin_code, b.kind, b.active${
           opts.costs ? ', iw.avg_cost' : ''
         }
@@ -68,7 +70,7 @@ export async function loadLookups(
   for (const r of rows) {
     if (r.item_id !== null) itemMap.set(Number(r.item_id), { id: Number(r.item_id), sku: r.sku!, matchLot: Boolean(Number(r.match_lot)) })
     if (r.bin_id !== null) {
-      binMap.set(Number(r.bin_id), em.create(Bin, {
+      binMap.set(Number(r.bin_id), Object.assign(new Bin(), {
         id: Number(r.bin_id), warehouseId: Number(r.warehouse_id), code: r.bin_code!, kind: r.kind!, active: Boolean(Number(r.active)),
       }))
     }

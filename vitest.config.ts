@@ -47,6 +47,9 @@ export default defineConfig({
           isolate: false,
           testTimeout: 120_000,
           hookTimeout: 180_000,
+          // expect.poll gives up after 1 s unless told: a page's answer on a loaded machine (the browser, the app and
+          // MariaDB share two cores with the API tests) can take longer. A bound to wait within, never a speed check.
+          expect: { poll: { timeout: 10_000 } },
         },
       },
       {

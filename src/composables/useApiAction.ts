@@ -10,16 +10,19 @@ interface ApiActionOptions {
 
 /**
  * A save refused because someone saved the record meanwhile: the person's edits stay on screen, the refusal says
- * so in their language, and reloading (which drops their edits) happens only after they confirm it.
+ * so in their language, and reloading (which drops their edits) happens only after they choose it. Keeping the
+ * edits is the answer the focus starts on, so an Enter pressed once more (a save sent with Enter, then Enter again)
+ * or Escape keeps them; discarding them takes its own button.
  */
 async function offerReload(message: string, reload: (() => unknown) | undefined): Promise<void> {
   const t = i18n.global.t
   const discard = await ElMessageBox.confirm(`${message} ${t('common.changedMeanwhileReload')}`, t('common.changedMeanwhileTitle'), {
     type: 'warning',
-    confirmButtonText: t('common.changedMeanwhileDiscard'),
-    cancelButtonText: t('common.changedMeanwhileKeep'),
+    confirmButtonText: t('common.changedMeanwhileKeep'),
+    cancelButtonText: t('common.changedMeanwhileDiscard'),
+    distinguishCancelAndClose: true,
     customClass: 'changed-meanwhile',
-  }).then(() => true, () => false)
+  }).then(() => false, (action: unknown) => action === 'cancel')
   if (!discard) return
   if (reload) await reload()
   else window.location.reload()

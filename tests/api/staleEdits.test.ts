@@ -316,3 +316,38 @@ staleTrial('a price level changed from two screens', {
   afterA: { name: 'Trade', percentOff: '12.00' },
   afterB: { name: 'Trade plus', percentOff: '15.00' },
 })
+
+// A price rule (one break of an item's price) is never changed in place: a new price is a rule removed and another
+// added, and the table's unique key (item, level, basis, least quantity) refuses a second rule for the same break.
+// So what one screen can get wrong is removing a rule another screen has already removed, or replaced meanwhile.
+// source: RFC 9110 §15.5.5 (404 Not Found: the origin server has no current representation for the target resource).
+describe('a price rule removed from two screens', () => {
+  it('removes it once; the second removal is refused (404) and removes nothing else, not the rule that replaced it', async () => {
+    const admin = await h.as('admin')
+    const rule = (price: string) => ({ levelId: null, itemId: sales.block.id, minQty: 12, basis: 'unit', price, percentOff: null })
+    const made = await admin.post('/api/pricing/rules').set(CSRF).send(rule('21.50'))
+    expect(made.status, JSON.stringify(made.body)).toBe(201)
+    const itemRules = () => h.ds.query('SELECT id, price FROM price_rules WHERE item_id = ? ORDER BY id', [sales.block.id]) as Promise<{ id: number; price: string }[]>
+    const removals = () => countRows(h.ds, 'audit_entries', "action = 'price_rule.delete' AND entity_id = ?", [String(made.body.id)])
+
+    // Screen A removes the rule and adds the same break at a new price; screen B still lists the old rule.
+    expect((await admin.delete(`/api/pricing/rules/${made.body.id}`).set(CSRF)).status).toBe(200)
+    const replaced = await admin.post('/api/pricing/rules').set(CSRF).send(rule('19.75'))
+    expect(replaced.status, JSON.stringify(replaced.body)).toBe(201)
+    const before = await itemRules()
+    expect(await removals()).toBe(1)
+
+    const stale = await admin.delete(`/api/pricing/rules/${made.body.id}`).set(CSRF)
+    expect(stale.status).toBe(404)
+    expect(stale.body.error.code).toBe('price_rule_not_found')
+    expect(await itemRules()).toEqual(before)
+    expect(before.map((r) => [Number(r.id), r.price])).toEqual([[replaced.body.id, '19.75']])
+    expect(await removals()).toBe(1)
+
+    // Adding the old break again from screen B is refused too: the new price stays.
+    const again = await admin.post('/api/pricing/rules').set(CSRF).send(rule('21.50'))
+    expect(again.status).toBe(409)
+    expect(again.body.error.code).toBe('price_rule_taken')
+    expect(await itemRules()).toEqual(before)
+  })
+})

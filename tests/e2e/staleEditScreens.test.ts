@@ -12,6 +12,8 @@ import { CSRF, TEST_PASSWORD } from '../support/apiHarness.js'
 import { startE2e, type E2eHarness } from '../support/browser.js'
 import { createCustomerAndJob, spanishCounterClerk } from '../support/counterFixtures.js'
 import { tagOf } from '../support/fixtureRows.js'
+import { tabTo } from '../support/keyboard.js'
+import { cutOffInside, sidewaysScroll } from '../support/layoutChecks.js'
 
 /** A record made for one step: the screen's address, its save address, and how the refusal names it. */
 interface Made {
@@ -143,13 +145,17 @@ const WORDS = {
   en: {
     refusal: (name: string) => new RegExp(`${name} was changed meanwhile.*your edits are still on screen.*Reloading discards the edits you have not saved`, 's'),
     reload: 'Reload and discard my edits',
+    keep: 'Keep my edits on screen',
   },
   es: {
     refusal: (name: string) => new RegExp(`${name} se cambió mientras tanto.*sus cambios siguen en pantalla.*se descartan los cambios que no ha guardado`, 's'),
     reload: 'Volver a cargar y descartar mis cambios',
+    keep: 'Conservar mis cambios en pantalla',
   },
 }
 
+/** Waits as long as a locator does (a busy machine may take seconds to show a page). */
+const poll = <T>(read: () => T | Promise<T>) => expect.poll(read, { timeout: 15_000 })
 const escaped = (text: string) => text.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
 const fieldOf = (page: Page, test: string) => page.locator(`[data-test="${test}"] input, input[data-test="${test}"]`).first()
 const saved = (page: Page, path: string) =>
@@ -158,22 +164,23 @@ const saved = (page: Page, path: string) =>
 /** Two tabs of one signed-in browser. */
 interface Tabs { context: BrowserContext; a: Page; b: Page }
 
-async function twoTabs(username: string, password?: string): Promise<Tabs> {
-  const { page: a, context } = await h.newPage({ viewport: { width: 1280, height: 900 } })
+async function twoTabs(username: string, password?: string, viewport = { width: 1280, height: 900 }): Promise<Tabs> {
+  const { page: a, context } = await h.newPage({ viewport })
   await h.signIn(a, username, password)
   const b = await context.newPage()
   b.setDefaultTimeout(15_000)
   return { context, a, b }
 }
 
-async function trial(s: Screen, tabs: Tabs, words: (typeof WORDS)['en']) {
+/** `asked`: more checks on tab B while the question is open. */
+async function trial(s: Screen, tabs: Tabs, words: (typeof WORDS)['en'], asked?: (page: Page) => Promise<void>) {
   const made = await s.make(tabs.context.request, tagOf())
   const field = (page: Page) => fieldOf(page, s.field)
   const { a, b } = s.values
   await Promise.all([tabs.a, tabs.b].map(async (tab) => {
     await tab.goto(made.url)
     await s.open?.(tab, made)
-    await expect.poll(() => field(tab).inputValue()).toBe(made.before)
+    await poll(() => field(tab).inputValue()).toBe(made.before)
   }))
 
   await field(tabs.a).fill(a)
@@ -190,15 +197,16 @@ async function trial(s: Screen, tabs: Tabs, words: (typeof WORDS)['en']) {
   expect(await box.textContent()).toMatch(words.refusal(escaped(s.nameAfterA ? s.nameAfterA(a) : made.name)))
   // What tab B typed is still in its form behind the question.
   expect(await field(tabs.b).inputValue()).toBe(b)
+  await asked?.(tabs.b)
 
   await box.getByRole('button', { name: words.reload }).click()
   await box.waitFor({ state: 'hidden' })
   if (s.open) {
     // The dialog closes and its page reads the record again: it shows tab A's value, and so does the form reopened.
-    await expect.poll(() => tabs.b.getByText(a, { exact: true }).count()).toBeGreaterThan(0)
+    await poll(() => tabs.b.getByText(a, { exact: true }).count()).toBeGreaterThan(0)
     await s.open(tabs.b, made)
   }
-  await expect.poll(() => field(tabs.b).inputValue()).toBe(a)
+  await poll(() => field(tabs.b).inputValue()).toBe(a)
   expect(await made.read()).toBe(a)
 }
 
@@ -218,10 +226,125 @@ describe('an edit screen opened in two tabs refuses the second save, keeps its e
     it(s.screen, () => trial(s, admin, WORDS.en))
   }
 
-  it('contractor account, in Spanish', async () => {
-    const clerk = await twoTabs(await spanishCounterClerk(h.ds), TEST_PASSWORD)
+  // A price rule is added and removed, never changed in place. Found on the rules screen: removing a rule another
+  // tab had already removed (and replaced with a new price for the same break) said so, but kept offering the gone
+  // rule, with no sign of the new one.
+  it('price rule removed in the other tab', async () => {
+    const { a, b, context } = admin
+    const tag = tagOf()
+    const item = await post(context.request, '/api/items', { sku: `SER-${tag}`, name: 'Clear sealant', family: 'sealant', stockUnit: 'each', cost: '6.2500', listPrice: '11.50', cartridgeMl: '300' })
+    const rule = (price: string) => post(context.request, '/api/pricing/rules', { levelId: null, itemId: item.id, minQty: 12, basis: 'unit', price, percentOff: null })
+    const old = await rule('10.50')
+    const removeButton = (page: Page, id: number) => page.locator(`[data-test="rule-remove-${id}"]`)
+    await Promise.all([a, b].map(async (tab) => {
+      await tab.goto('/admin/selling-prices')
+      await tab.locator('#tab-rules').click()
+      await removeButton(tab, old.id).waitFor()
+    }))
+    const confirmRemove = async (page: Page) => {
+      const ask = page.locator('.el-message-box')
+      await ask.waitFor()
+      expect(await ask.textContent()).toContain(`SER-${tag}`)
+      await ask.locator('.el-button--primary').click()
+    }
+
+    await removeButton(a, old.id).click()
+    await confirmRemove(a)
+    await removeButton(a, old.id).waitFor({ state: 'detached' })
+    const replaced = await rule('9.75')
+
+    const refused = b.waitForResponse((r) => new URL(r.url()).pathname === `/api/pricing/rules/${old.id}` && r.request().method() === 'DELETE')
+    await removeButton(b, old.id).click()
+    await confirmRemove(b)
+    expect((await refused).status()).toBe(404)
+    await b.getByText('That price rule is no longer there', { exact: false }).waitFor()
+    // Tab B now lists the rules as they are: the removed one gone, the new price there to remove if wanted.
+    await removeButton(b, old.id).waitFor({ state: 'detached' })
+    await removeButton(b, replaced.id).waitFor()
+    const stored = await getJson<{ id: number; price: string }[]>(context.request, `/api/pricing/rules?itemId=${item.id}`)
+    expect(stored.map((r) => [r.id, r.price])).toEqual([[replaced.id, '9.75']])
+  })
+
+  // Trial, double submit: a double click on an account's deactivate button sent the same version twice, and the
+  // second was refused as if someone else had changed the account meanwhile.
+  // source: common practice (one press of a save button is one save)
+  it('contractor account deactivated by a double click', async () => {
+    const { a, context } = admin
+    const made = await SCREENS.find((s) => s.screen === 'contractor account')!.make(context.request, tagOf())
+    await a.goto(made.url)
+    await a.locator('[data-test="customer-search"] input, input[data-test="customer-search"]').first().fill(made.name)
+    const toggle = a.locator(`[data-test="customer-active-${made.id}"]`)
+    await toggle.waitFor()
+    const writes: string[] = []
+    const count = (r: { url(): string; method(): string }) => { if (new URL(r.url()).pathname === made.write && r.method() === 'PATCH') writes.push(r.method()) }
+    a.on('request', count)
     try {
-      await trial(SCREENS.find((s) => s.screen === 'contractor account')!, clerk, WORDS.es)
+      const first = saved(a, made.write)
+      const reread = a.waitForResponse((r) => new URL(r.url()).pathname === '/api/customers' && r.request().method() === 'GET')
+      await toggle.dblclick()
+      expect((await first).status()).toBe(200)
+      await reread
+      expect(writes).toHaveLength(1)
+      expect(await a.locator('.changed-meanwhile').count()).toBe(0)
+    } finally {
+      a.off('request', count)
+    }
+    const stored = await getJson<{ active: boolean; version: number }>(context.request, `/api/customers/${made.id}`)
+    expect(stored.active).toBe(false)
+  })
+
+  // Trial, keyboard only: a save sent with Enter and refused opened the question with the focus on reloading, so one
+  // more Enter threw the edits away. Enter (and Escape) there keep them now; discarding takes its own button.
+  // source: W3C WAI-ARIA Authoring Practices, Dialog (Modal) Pattern: when a dialog confirms an action that cannot be
+  // undone, the focus starts on the least destructive choice; WCAG 2.2 SC 2.1.1 Keyboard (every choice by keyboard).
+  it('catalog item, keyboard only', async () => {
+    const s = SCREENS.find((x) => x.screen === 'catalog item')!
+    const { a, b, context } = admin
+    const made = await s.make(context.request, tagOf())
+    const field = (page: Page) => fieldOf(page, s.field)
+    await Promise.all([a, b].map(async (tab) => {
+      await tab.goto(made.url)
+      await poll(() => field(tab).inputValue()).toBe(made.before)
+    }))
+    await field(a).fill(s.values.a)
+    const first = saved(a, made.write)
+    await field(a).press('Enter')
+    expect((await first).status()).toBe(200)
+
+    await field(b).fill(s.values.b)
+    const box = b.locator('.changed-meanwhile')
+    const refusedOnEnter = async () => {
+      const refused = saved(b, made.write)
+      await field(b).press('Enter')
+      expect((await refused).status()).toBe(409)
+      await box.waitFor()
+    }
+    await refusedOnEnter()
+    expect(await b.evaluate(() => document.activeElement?.textContent?.trim())).toBe(WORDS.en.keep)
+    await b.keyboard.press('Enter')
+    await box.waitFor({ state: 'hidden' })
+    expect(await field(b).inputValue()).toBe(s.values.b)
+    await refusedOnEnter()
+    await b.keyboard.press('Escape')
+    await box.waitFor({ state: 'hidden' })
+    expect(await field(b).inputValue()).toBe(s.values.b)
+    expect(await made.read()).toBe(s.values.a)
+
+    await refusedOnEnter()
+    await tabTo(b, '.changed-meanwhile .el-message-box__btns .el-button:not(.el-button--primary)', { back: true, max: 4 })
+    await b.keyboard.press('Enter')
+    await poll(() => field(b).inputValue()).toBe(s.values.a)
+  })
+
+  // At phone width (412 px) the Spanish question and its two long buttons stay inside their box and the page.
+  // source: WCAG 2.2 SC 1.4.10 Reflow (content usable at 320 CSS px wide without scrolling in two directions).
+  it('contractor account, in Spanish on a phone', async () => {
+    const clerk = await twoTabs(await spanishCounterClerk(h.ds), TEST_PASSWORD, { width: 412, height: 900 })
+    try {
+      await trial(SCREENS.find((s) => s.screen === 'contractor account')!, clerk, WORDS.es, async (page) => {
+        expect(await cutOffInside(page, '.changed-meanwhile')).toEqual([])
+        expect((await sidewaysScroll(page)).by).toBe(0)
+      })
     } finally {
       await clerk.context.close()
     }

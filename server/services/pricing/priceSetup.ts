@@ -154,7 +154,7 @@ export async function createPriceRule(ds: DataSource, actor: AuditActor & { user
 export async function deletePriceRule(ds: DataSource, actor: AuditActor, id: number): Promise<{ ok: true }> {
   await inTransaction(ds, async (em) => {
     const rule = await em.findOne(PriceRuleRow, { where: { id }, lock: { mode: 'pessimistic_write' } })
-    if (!rule) throw AppError.notFound('price_rule_not_found', 'That price rule was not found.')
+    if (!rule) throw AppError.notFound('price_rule_not_found', 'That price rule is no longer there (removed meanwhile); nothing was removed.')
     await em.delete(PriceRuleRow, { id })
     await audit(em, actor, 'price_rule.delete', 'price_rule', id, { levelId: rule.levelId, itemId: rule.itemId, minQty: rule.minQty, basis: rule.basis, price: rule.price, percentOff: rule.percentOff })
   })

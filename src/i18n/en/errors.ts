@@ -451,7 +451,7 @@ export default {
   price_level_in_use: '{accounts} account(s) still use this price level: move them to another first.',
   price_rule_taken: 'This item already has a price for that level, quantity and basis.',
   price_level_not_found: 'That price level was not found. It may have been removed.',
-  price_rule_not_found: 'That price rule was not found. It may have been removed.',
+  price_rule_not_found: 'That price rule is no longer there: it was removed meanwhile (in another tab or by another person). Nothing else was removed.',
   customer_not_found: 'That account was not found. It may have been removed.',
   quote_not_found: 'That quote was not found. It may have been removed.',
   quote_wrong_status: 'This cannot be done to a quote that is {quoteStatus}.',

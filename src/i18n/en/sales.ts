@@ -71,7 +71,7 @@ export default {
     add: 'Add price',
     added: 'Price added.',
     remove: 'Remove',
-    removeAsk: 'Remove this price?',
+    removeAsk: 'Remove the price {value} of {sku} for {level}, from {qty} on?',
     removed: 'Price removed.',
     empty: 'No item prices: levels apply their percentage to every item.',
     filterLevel: 'Show prices for',

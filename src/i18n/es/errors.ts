@@ -450,7 +450,7 @@ export default {
   price_level_in_use: '{accounts} cuenta(s) aún usan este nivel de precios: páselas antes a otro.',
   price_rule_taken: 'Este artículo ya tiene un precio para ese nivel, cantidad y base.',
   price_level_not_found: 'No se encontró ese nivel de precios. Puede que se haya eliminado.',
-  price_rule_not_found: 'No se encontró esa regla de precio. Puede que se haya eliminado.',
+  price_rule_not_found: 'Esa regla de precio ya no existe: se quitó mientras tanto (en otra pestaña o por otra persona). No se quitó nada más.',
   customer_not_found: 'No se encontró esa cuenta. Puede que se haya eliminado.',
   quote_not_found: 'No se encontró ese presupuesto. Puede que se haya eliminado.',
   quote_wrong_status: 'Esto no se puede hacer con un presupuesto {quoteStatus}.',

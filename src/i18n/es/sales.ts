@@ -71,7 +71,7 @@ export default {
     add: 'Añadir precio',
     added: 'Precio añadido.',
     remove: 'Quitar',
-    removeAsk: '¿Quitar este precio?',
+    removeAsk: '¿Quitar el precio {value} de {sku} para {level}, desde {qty}?',
     removed: 'Precio quitado.',
     empty: 'No hay precios por artículo: los niveles aplican su porcentaje a todos los artículos.',
     filterLevel: 'Mostrar precios de',

@@ -5,6 +5,11 @@ import { ElMessage } from 'element-plus'
 import { isApiError } from '@/api/client'
 import { uploadWithProgress, type SheetSteps, type UploadHandle } from '@/api/fileTransfer'
 
+/** A refusal worded for the page: its message, then a line for each row it names (`row` is the word for a row). */
+export function rowsWorded(message: string, fields: Record<string, string>, row: string): string {
+  return [message, ...Object.entries(fields).map(([at, text]) => `${row} ${at}: ${text}`)].join('\n')
+}
+
 /**
  * A spreadsheet sent to the server twice, first to be checked and then to be written: the chosen file, the
  * upload's progress (sending, then working on the server), cancelling, and the failure worded per row.
@@ -21,6 +26,10 @@ export function useSheetUpload<P, C>(steps: SheetSteps<P, C>, words: string) {
   const failure = ref('')
   let handle: UploadHandle<P | C> | null = null
   const busy = computed(() => phase.value !== 'idle')
+  /** Shows a step's failure, worded per row when the server named rows. */
+  const showFailure = (err: unknown) => {
+    failure.value = isApiError(err) ? rowsWorded(err.message, err.fields, t(`${words}.row`)) : String(err)
+  }
 
   /** Forgets the file, its check and any failure (a new file chosen, or a new kind of import). */
   function reset(next: File | null = null) {
@@ -50,7 +59,7 @@ export function useSheetUpload<P, C>(steps: SheetSteps<P, C>, words: string) {
       return await upload.done
     } catch (err) {
       if (isApiError(err) && err.code === 'aborted') ElMessage.info(t(`${words}.cancelled`))
-      else failure.value = isApiError(err) ? [err.message, ...Object.entries(err.fields).map(([row, text]) => `${t(`${words}.row`)} ${row}: ${text}`)].join('\n') : String(err)
+      else showFailure(err)
       return null
     } finally {
       phase.value = 'idle'
@@ -67,5 +76,5 @@ export function useSheetUpload<P, C>(steps: SheetSteps<P, C>, words: string) {
 
   const cancel = () => handle?.abort()
 
-  return { file, preview, phase, step, progress, failure, busy, reset, choose, check, commit, cancel }
+  return { file, preview, phase, step, progress, failure, busy, reset, choose, check, commit, cancel, showFailure }
 }

@@ -92,6 +92,18 @@ function expectBounded(label: string, small: number, large: number, upload: Buff
   expect(large - small, label).toBeLessThan((LARGE - SMALL) * 300 + 2 * upload.length)
 }
 
+/**
+ * One kind committed at both sizes, from files told apart by `small` and `large`: each wrote every row (`written`
+ * reads the count from its summary) and the larger held no more than its window allows.
+ */
+async function commitsBounded<W>(label: string, def: Parameters<typeof commitImport<W>>[2], fileOf: (rows: number, file: string) => Buffer,
+  [small, large]: [string, string], written: (summary: Record<string, number> | null | undefined) => number | undefined) {
+  const a = await commit(def, fileOf(SMALL, small), `${label}-small.csv`)
+  const b = await commit(def, fileOf(LARGE, large), `${label}-large.csv`)
+  expect([written(a.answer.record.summary), written(b.answer.record.summary)]).toEqual([SMALL, LARGE])
+  expectBounded(`${label} commit`, a.growth, b.growth, fileOf(LARGE, large))
+}
+
 describe('import memory', () => {
   it('checks a file ten times longer without holding ten times as much', async () => {
     const small = await preview(sheetOf(SMALL))
@@ -103,21 +115,12 @@ describe('import memory', () => {
   }, 300_000)
 
   it('commits opening stock ten times longer without holding its writes', async () => {
-    const small = await commit(openingStockImport, sheetOf(SMALL, 'CS'), 'opening-small.csv')
-    const large = await commit(openingStockImport, sheetOf(LARGE, 'CL'), 'opening-large.csv')
     // Every row was written in both: one line per row.
-    expect([small.answer.record.summary?.lines, large.answer.record.summary?.lines]).toEqual([SMALL, LARGE])
-    expectBounded('opening stock commit', small.growth, large.growth, sheetOf(LARGE, 'CL'))
+    await commitsBounded('opening stock', openingStockImport, sheetOf, ['CS', 'CL'], (s) => s?.lines)
   }, 600_000)
 
   it('commits usage history and accounts ten times longer without holding their rows', async () => {
-    const usageSmall = await commit(usageHistoryImport, usageOf(SMALL, 'S'), 'usage-small.csv')
-    const usageLarge = await commit(usageHistoryImport, usageOf(LARGE, 'L'), 'usage-large.csv')
-    expect([usageSmall.answer.record.summary?.lines, usageLarge.answer.record.summary?.lines]).toEqual([SMALL, LARGE])
-    expectBounded('usage history commit', usageSmall.growth, usageLarge.growth, usageOf(LARGE, 'L'))
-    const accountsSmall = await commit(accountsImport, accountsOf(SMALL, 'S'), 'accounts-small.csv')
-    const accountsLarge = await commit(accountsImport, accountsOf(LARGE, 'L'), 'accounts-large.csv')
-    expect([accountsSmall.answer.record.summary?.accounts, accountsLarge.answer.record.summary?.accounts]).toEqual([SMALL, LARGE])
-    expectBounded('accounts commit', accountsSmall.growth, accountsLarge.growth, accountsOf(LARGE, 'L'))
+    await commitsBounded('usage history', usageHistoryImport, usageOf, ['S', 'L'], (s) => s?.lines)
+    await commitsBounded('accounts', accountsImport, accountsOf, ['S', 'L'], (s) => s?.accounts)
   }, 600_000)
 })

@@ -8,7 +8,7 @@ import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { customerCreateSchema, type CustomerCreateInput } from '../../../shared/schemas/counter.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, filledCells, headerOf, inChunks, marks, parserProblems, repeatedRows, validDay } from './importFacts.js'
+import { cellText, distinctOf, filledCells, headerOf, heldValues, inChunks, marks, parserProblems, repeatedRows, validDay } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 import { insertRows } from './recordsImport.js'
 
@@ -46,8 +46,7 @@ const col = headerOf(ACCOUNTS_SPEC)
 
 async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, repeated: ReturnType<typeof repeatedRows>): Promise<CheckedRow<Account>[]> {
   const codes = distinctOf(sheet, 'code').map((c) => c.toUpperCase())
-  const taken = new Set((await inChunks(codes, (c) => em.query(`SELECT code FROM customers WHERE code IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0]) as Promise<{ code: string }[]>))
-    .map((r) => r.code.toUpperCase()))
+  const taken = await heldValues(em, 'customers', 'code', codes, importId)
   const levelRows: { id: number; code: string }[] = await em.query('SELECT id, code FROM price_levels WHERE active = 1')
   const levels = new Map(levelRows.map((l) => [l.code.toUpperCase(), l.id]))
   const problemsOf = parserProblems(sheet, col)

@@ -10,7 +10,7 @@ import { lineTotal } from '../../../shared/purchasing/poMoney.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { chunked } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, validDay, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, heldValues, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, validDay, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const PURCHASE_ORDERS_SPEC: ImportSpec = {
@@ -77,9 +77,7 @@ async function checkChunk(em: EntityManager, importId: number | null, sheet: Par
   const warehouses = await warehousesByCode(em)
   const vendorRows = await inChunks(distinctOf(sheet, 'vendor'), (c) => em.query(`SELECT id, code FROM vendors WHERE code IN (${marks(c.length)})`, c) as Promise<{ id: number; code: string }[]>)
   const vendors = new Map(vendorRows.map((v) => [v.code.toUpperCase(), v.id]))
-  const taken = new Set((await inChunks(distinctOf(sheet, 'number'), (c) => em.query(
-    `SELECT number FROM purchase_orders WHERE number IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0]) as Promise<{ number: string }[]>))
-    .map((r) => r.number.toUpperCase()))
+  const taken = await heldValues(em, 'purchase_orders', 'number', distinctOf(sheet, 'number'), importId)
   const today = new Date().toISOString().slice(0, 10)
   const problemsOf = parserProblems(sheet, col)
   const out: CheckedRow<LineWrite>[] = []

@@ -7,7 +7,7 @@ import { dayNumber } from '../../../shared/inventory/demand.js'
 import { daysInMonth, spreadOverMonth } from '../../../shared/inventory/usageSpread.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
 import { insertRows } from './recordsImport.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, parserProblems, repeatedRows, rowQuantity, warehousesByCode } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, namedWarehouse, notOwn, parserProblems, repeatedRows, rowQuantity, warehousesByCode } from './importFacts.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
 export const USAGE_HISTORY_SPEC: ImportSpec = {
@@ -59,9 +59,10 @@ function validDay(text: string): boolean {
  * (whose days without a unit hold no row, yet are counted in its total).
  */
 async function heldUsage(em: EntityManager, itemIds: number[], importId: number | null): Promise<Set<string>> {
+  const [own, ownId] = notOwn('import_id', importId)
   const rows = await inChunks(itemIds, (c) => em.query(
     `SELECT DISTINCT item_id, warehouse_id, DATE_FORMAT(day, '%Y-%m-%d') AS day, spread_month FROM usage_history
-      WHERE item_id IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0],
+      WHERE item_id IN (${marks(c.length)})${own}`, [...c, ownId],
   ) as Promise<{ item_id: number; warehouse_id: number; day: string; spread_month: string | null }[]>)
   const keys = new Set<string>()
   for (const r of rows) {
@@ -116,8 +117,9 @@ async function checkChunk(em: EntityManager, importId: number | null, sheet: Par
     }
     const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
     if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
-    const days = when.length === 7 ? spreadOverMonth(when, qty) : [{ date: when, qty }]
-    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days, spreadMonth: when.length === 7 ? when : null } }
+    const byMonth = when.length === 7
+    const days = byMonth ? spreadOverMonth(when, qty) : [{ date: when, qty }]
+    return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days, spreadMonth: byMonth ? when : null } }
   })
 }
 

@@ -7,7 +7,7 @@ import { zodIssueProblem } from '../../../shared/errors/zodProblems.js'
 import { vendorCreateSchema, vendorItemSchema } from '../../../shared/schemas/purchasing.js'
 import { AppError } from '../../errors.js'
 import type { CheckedRow, DataImportDefinition } from './dataImports.js'
-import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, parserProblems, repeatedRows } from './importFacts.js'
+import { cellText, distinctOf, headerOf, inChunks, itemsBySku, marks, namedItem, notOwn, parserProblems, repeatedRows } from './importFacts.js'
 import { insertRows } from './recordsImport.js'
 import type { ImportSpec, ParsedSheet } from './importTypes.js'
 
@@ -69,13 +69,15 @@ interface Carried { repeated: ReturnType<typeof repeatedRows>; newVendorNames: M
  */
 async function checkChunk(em: EntityManager, importId: number | null, sheet: ParsedSheet, carried: Carried): Promise<CheckedRow<VendorItemWrite>[]> {
   const items = await itemsBySku(em, distinctOf(sheet, 'sku'))
+  const [ownVendors, ownId] = notOwn('import_id', importId)
   const vendorRows = await inChunks(distinctOf(sheet, 'vendor'), (c) => em.query(
-    `SELECT id, code FROM vendors WHERE code IN (${marks(c.length)}) AND (import_id IS NULL OR import_id <> ?)`, [...c, importId ?? 0]) as Promise<{ id: number; code: string }[]>)
+    `SELECT id, code FROM vendors WHERE code IN (${marks(c.length)})${ownVendors}`, [...c, ownId]) as Promise<{ id: number; code: string }[]>)
   const vendors = new Map(vendorRows.map((v) => [v.code.toUpperCase(), v.id]))
   const itemIds = [...new Set([...items.values()].map((i) => i.id))]
+  const [ownLines] = notOwn('vi.import_id', importId)
   const held = await inChunks(itemIds, (c) => em.query(
     `SELECT vi.vendor_id, vi.item_id, vi.preferred, v.code FROM vendor_items vi JOIN vendors v ON v.id = vi.vendor_id
-      WHERE vi.item_id IN (${marks(c.length)}) AND (vi.import_id IS NULL OR vi.import_id <> ?)`, [...c, importId ?? 0],
+      WHERE vi.item_id IN (${marks(c.length)})${ownLines}`, [...c, ownId],
   ) as Promise<{ vendor_id: number; item_id: number; preferred: number; code: string }[]>)
   const sold = new Set(held.map((h) => `${h.vendor_id}:${h.item_id}`))
   const preferredBy = new Map(held.filter((h) => Number(h.preferred)).map((h) => [h.item_id, h.code]))

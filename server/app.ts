@@ -17,7 +17,7 @@ import { securityHeaders } from './http/securityHeaders.js'
 import { createSessionStore } from './db/sessionStore.js'
 import { closePreparedReads } from './db/prepared.js'
 import { buildRouters } from './routes/index.js'
-import { absoluteTimeout, configurePassport, renewWhenDue } from './http/session.js'
+import { absoluteTimeout, configurePassport, passportOnRequestPrototype, renewWhenDue } from './http/session.js'
 import { costReplacer } from './services/costVisibility.js'
 import { costAccess, jsonWithCostAccess } from './http/costAccess.js'
 import { PAYMENT_WEBHOOK_PATH } from './routes/payments.js'
@@ -151,6 +151,7 @@ export function createApp(deps: AppDeps): BuiltApp {
     payEventHandlers: { 'payment_intent.succeeded': cardSettlement(pay), 'payment_intent.canceled': closeCancelledCardIn },
   }
   const app = express()
+  passportOnRequestPrototype(app, pp)
   app.disable('x-powered-by')
   // No automatic ETag: it hashed every API answer, which is never cached (no-store); the client's pages set their own.
   app.set('etag', false)

@@ -75,3 +75,45 @@ export function mariadbPid(profileName: string, dataRoot: string): number | unde
     return undefined
   }
 }
+
+export interface P99Target {
+  maxMs: number
+  lumenyardP99: number
+  floorP99: number
+  holds: boolean
+  floorHolds: boolean
+  /**
+   * Little's law for a closed load (each connection sends its next request when its answer comes): mean latency =
+   * connections ÷ throughput. A p99 under the target with a mean above it would need the slowest 1 % to take
+   * about a hundred times the target on average, so in practice a p99 under the target needs more than
+   * connections ÷ target answers a second: `neededReqPerS`, against which both sides' throughput can be read.
+   */
+  connections: number
+  neededReqPerS: number
+  meanMs: { lumenyard: number; floor: number }
+  /** Plain words for the run's table and the JSON: who misses, and whether the floor's own p99 says it is the machine. */
+  verdict: string
+}
+
+/**
+ * The p99 target judged with the floor's p99 from the same rounds beside it: when the bare server misses it too, the
+ * run says so, since then no change to Lumenyard can meet it on this machine (the load generator, the server and
+ * MariaDB share its cores). The target itself, its connections and its seconds stay as they are.
+ */
+export function judgeP99(maxMs: number, connections: number, l: { median: number; p99: number }, f: { median: number; p99: number }): P99Target {
+  const holds = l.p99 < maxMs
+  const floorHolds = f.p99 < maxMs
+  const neededReqPerS = (connections * 1000) / maxMs
+  const meanMs = { lumenyard: (connections * 1000) / l.median, floor: (connections * 1000) / f.median }
+  const times = (l.p99 / f.p99).toFixed(1)
+  const verdict = holds
+    ? `p99 ${l.p99.toFixed(0)} ms < ${maxMs} ms: holds`
+    : floorHolds
+      ? `p99 ${l.p99.toFixed(0)} ms ≥ ${maxMs} ms while the floor's is ${f.p99.toFixed(0)} ms: the app misses it`
+      : `p99 ${l.p99.toFixed(0)} ms ≥ ${maxMs} ms; the floor also misses the target (p99 ${f.p99.toFixed(0)} ms in the same rounds): ` +
+        `the machine, not the app, keeps it out of reach here; Lumenyard's p99 is ${times}× the floor's. Under ${maxMs} ms at ` +
+        `${connections} connections takes more than ${Math.round(neededReqPerS).toLocaleString('en')} answers/s (mean latency = connections ÷ ` +
+        `throughput: Lumenyard ${meanMs.lumenyard.toFixed(0)} ms, floor ${meanMs.floor.toFixed(0)} ms)`
+  return { maxMs, lumenyardP99: l.p99, floorP99: f.p99, holds, floorHolds, connections, neededReqPerS, meanMs, verdict }
+}
+

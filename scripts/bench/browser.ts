@@ -10,8 +10,23 @@ export function launchChromium(): Promise<Browser> {
   })
 }
 
-/** Milliseconds from the start of navigation to the first frame with grid rows on screen. */
-export async function firstGridRows(browser: Browser, url: string, cookie?: string): Promise<number> {
+/**
+ * One cold load up to its first grid rows: milliseconds from the start of navigation to the first frame with rows,
+ * what the page's main thread did until then (the DevTools protocol's Performance.getMetrics: all its tasks, and the
+ * script, layout and style recalculation inside them), and its scripts (how many, when the last one had arrived).
+ * The main thread's figures tell a page waiting on its files from a page busy with its own work.
+ */
+export interface GridLoad {
+  firstRows: number
+  tasks: number
+  script: number
+  layout: number
+  style: number
+  scripts: number
+  lastScript: number
+}
+
+export async function firstGridRows(browser: Browser, url: string, cookie?: string): Promise<GridLoad> {
   const context = await browser.newContext({ viewport: { width: 1440, height: 900 } })
   try {
     if (cookie) {
@@ -21,16 +36,33 @@ export async function firstGridRows(browser: Browser, url: string, cookie?: stri
       await context.addCookies([{ name, value, domain: new URL(url).hostname, path: '/' }])
     }
     const page = await context.newPage()
+    const cdp = await context.newCDPSession(page)
+    await cdp.send('Performance.enable')
     await page.goto(url, { waitUntil: 'commit' })
     const at = await page.waitForFunction(
       () => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false),
       null,
       { polling: 'raf', timeout: 60_000 },
     )
-    return Number(await at.jsonValue())
+    const firstRows = Number(await at.jsonValue())
+    const { metrics } = (await cdp.send('Performance.getMetrics')) as { metrics: { name: string; value: number }[] }
+    const ms = (name: string) => (metrics.find((m) => m.name === name)?.value ?? 0) * 1000
+    const scripts = await page.evaluate(() =>
+      (performance.getEntriesByType('resource') as PerformanceResourceTiming[]).filter((e) => e.initiatorType !== 'fetch' && new URL(e.name).pathname.endsWith('.js')).map((e) => e.responseEnd),
+    )
+    return {
+      firstRows, tasks: ms('TaskDuration'), script: ms('ScriptDuration'), layout: ms('LayoutDuration'), style: ms('RecalcStyleDuration'),
+      scripts: scripts.length, lastScript: Math.max(0, ...scripts),
+    }
   } finally {
     await context.close()
   }
+}
+
+/** Medians of several loads, in words: what the main thread did and when the scripts had arrived. */
+export function gridLoadWords(loads: GridLoad[], median: (xs: number[]) => number): string {
+  const m = (k: keyof GridLoad) => median(loads.map((x) => x[k])).toFixed(0)
+  return `main thread ${m('tasks')} ms in tasks (script ${m('script')}, layout ${m('layout')}, style ${m('style')}); ${m('scripts')} scripts, the last in at ${m('lastScript')} ms`
 }
 
 /**

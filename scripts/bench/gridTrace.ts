@@ -7,7 +7,8 @@
 //
 // --profile samples the main thread's JavaScript (the DevTools protocol's Profiler) from navigation to the first
 // rows of the last run, and prints the self time per script file and the busiest functions; with TRACE_PROFILE_OUT=<file>
-// it also writes that profile (DevTools' .cpuprofile format) for a closer look.
+// it also writes that profile (DevTools' .cpuprofile format) for a closer look. TRACE_CHROME_OUT=<file> writes the
+// last run's Chromium trace (every process's main thread, script compilation, loading), for DevTools' Performance panel.
 import { spawnSync } from 'node:child_process'
 import { existsSync, writeFileSync } from 'node:fs'
 import path from 'node:path'
@@ -80,9 +81,12 @@ try {
       await cdp.send('Profiler.setSamplingInterval', { interval: 200 })
       await cdp.send('Profiler.start')
     }
+    const tracing = process.env.TRACE_CHROME_OUT && run === Number(opts.runs) - 1
+    if (tracing) await browser.startTracing(page, { path: process.env.TRACE_CHROME_OUT, categories: ['devtools.timeline', 'disabled-by-default-devtools.timeline', 'v8.execute', 'blink.user_timing', 'loading', 'netlog', 'disabled-by-default-v8.compile'] })
     await page.goto(app.url + opts.path, { waitUntil: 'commit' })
     const first = Number(await (await page.waitForFunction(() => (document.querySelector('.ag-row .ag-cell') ? performance.now() : false), null, { polling: 'raf', timeout: 60_000 })).jsonValue())
     firsts.push(first)
+    if (tracing) await browser.stopTracing()
     if (profiling) {
       const { profile } = (await cdp.send('Profiler.stop')) as { profile: CpuProfile }
       printProfile(profile)

@@ -9,7 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_PASSWORD, startE2e, type E2eHarness } from '../support/browser.js'
 import { CSRF } from '../support/apiHarness.js'
 import { axeFindings, blocking, describeFindings } from '../support/axeCheck.js'
-import { mainControlSizes } from '../support/layoutChecks.js'
+import { mainControlSizes, placeholdersCutOff } from '../support/layoutChecks.js'
 import { fxBom, pickScenario, releasedPickList, signedInAgent, type PickScenario } from '../support/pickFixtures.js'
 import { openInApp } from '../support/routeWalk.js'
 
@@ -51,11 +51,17 @@ async function scan(testId: string, text: string) {
   await box.press('Enter')
 }
 
-/** Measures the screen as it stands: the scan box or stepper must show, and nothing else may rival it. */
+/**
+ * Measures the screen as it stands: the scan box or stepper must show, and nothing else may rival it. Every text
+ * box's hint shows whole, in the crew's Spanish: a cut-off placeholder ("… y pulse" without what to press) reads as
+ * another instruction (common practice: a box's hint fits it, the rest of the instruction goes beneath).
+ */
 async function measure(where: string, main: string, wanted: number) {
   const sizes = await mainControlSizes(page, main)
   expect(sizes.main.length, `${where}: scan box and stepper showing (${sizes.main.join(', ')})`).toBe(wanted)
   expect(sizes.rivals, `${where}: controls as tall as, or larger than, ${sizes.main.join(' and ')}`).toEqual([])
+  expect(await page.locator('html').getAttribute('lang'), where).toBe('es')
+  expect(await placeholdersCutOff(page, 'input[placeholder]'), `${where}: hints cut off`).toEqual([])
 }
 
 // Each screen's scan box, and its quantity stepper (the − field + group) when it shows.
@@ -103,6 +109,7 @@ describe('the scan box and the quantity stepper are the largest controls on a ph
     await page.locator('[data-test="adjust-qty"]').waitFor()
     await measure('adjust', '[data-test="scan"], [data-test="adjust-qty"]', 2)
   })
+
 })
 
 // source: W3C, WCAG 2.2 levels A and AA, as axe-core implements them; SC 2.4.3 Focus Order (focus back to the opener)

@@ -149,3 +149,23 @@ export async function mainControlSizes(page: Page, mainSelector: string): Promis
     return out
   }, [CONTROLS, mainSelector] as const)
 }
+
+/**
+ * The text boxes in `selector` whose placeholder is wider than the room inside them, as the browser draws it in the
+ * box's own font (a canvas's measureText): a cut-off hint ("Scan a label or type a SKU, then En…") reads as a
+ * different instruction. Each as `"placeholder" needs N px, has M px`.
+ */
+export const placeholdersCutOff = (page: Page, selector: string) =>
+  page.locator(selector).evaluateAll((boxes) => {
+    const ctx = document.createElement('canvas').getContext('2d')!
+    const out: string[] = []
+    for (const box of boxes as HTMLInputElement[]) {
+      if (!box.placeholder || !box.checkVisibility()) continue
+      const style = getComputedStyle(box)
+      ctx.font = `${style.fontStyle} ${style.fontWeight} ${style.fontSize} ${style.fontFamily}`
+      const needs = Math.ceil(ctx.measureText(box.placeholder).width)
+      const has = Math.floor(box.clientWidth - parseFloat(style.paddingLeft) - parseFloat(style.paddingRight))
+      if (needs > has) out.push(`"${box.placeholder}" needs ${needs} px, has ${has} px`)
+    }
+    return out
+  })

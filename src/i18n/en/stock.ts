@@ -94,8 +94,8 @@ export default {
   },
   scan: {
     label: 'Scan field',
-    placeholder: 'Scan a label or type a SKU, then Enter',
-    hint: 'Bin, item and lot labels all work here.',
+    placeholder: 'Scan a label or type a SKU',
+    hint: 'Then Enter. Bin, item and lot labels all work here.',
     foundItem: 'Item {sku}.',
     foundLot: 'Item {sku}, lot {lot}.',
     foundBin: 'Bin {code} in {warehouse}.',

@@ -95,8 +95,8 @@ export default {
   },
   scan: {
     label: 'Campo de escaneo',
-    placeholder: 'Escanee una etiqueta o escriba un SKU y pulse Intro',
-    hint: 'Aquí sirven etiquetas de ubicación, de artículo y de lote.',
+    placeholder: 'Escanee una etiqueta o escriba un SKU',
+    hint: 'Luego pulse Intro. Aquí sirven etiquetas de ubicación, de artículo y de lote.',
     foundItem: 'Artículo {sku}.',
     foundLot: 'Artículo {sku}, lote {lot}.',
     foundBin: 'Ubicación {code} en {warehouse}.',

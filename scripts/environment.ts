@@ -23,7 +23,7 @@ function sessionSecret(profile: string): string {
 
 export async function prepareEnvironment(
   profile: 'dev' | 'test' | 'bench',
-  opts: { database: string; reset?: boolean },
+  opts: { database: string; reset?: boolean; serverArgs?: string[] },
 ): Promise<PreparedEnvironment> {
   const env: Record<string, string> = {}
   if (!process.env.LUMENYARD_SESSION_SECRET) env.LUMENYARD_SESSION_SECRET = sessionSecret(profile)
@@ -31,7 +31,8 @@ export async function prepareEnvironment(
     // An existing MariaDB server: the operator created the database and user.
     return { env, server: null, stop: async () => {} }
   }
-  const serverProfile = { name: profile === 'bench' ? 'test' : profile, port: Number(process.env.LUMENYARD_DB_PORT) || DEFAULT_DB_PORTS[profile] }
+  // serverArgs apply when the server is started here, not to one already running.
+  const serverProfile = { name: profile === 'bench' ? 'test' : profile, port: Number(process.env.LUMENYARD_DB_PORT) || DEFAULT_DB_PORTS[profile], extraArgs: opts.serverArgs }
   const server = await ensureEmbeddedServer(serverProfile)
   const creds = await ensureAppDatabase(server, serverProfile, opts.database, { reset: opts.reset })
   Object.assign(env, dbEnv(creds))

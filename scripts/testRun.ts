@@ -18,6 +18,14 @@ const PROJECTS = ['unit', 'api', 'e2e'] as const
 /** Run only when named (`npm run test:faults`): they start and kill their own database and app processes. */
 const ON_REQUEST = ['faults'] as const
 const KNOWN: readonly string[] = [...PROJECTS, ...ON_REQUEST]
+/**
+ * The test server writes its redo log at every commit and flushes it to disk about once a second (source: MariaDB
+ * documentation, innodb_flush_log_at_trx_commit = 2) instead of at every commit: a disk flush per commit cost
+ * several milliseconds a commit on a shared disk, and the tests commit many small transactions. The test databases
+ * are made again every run, so a crash of this server loses nothing worth keeping. The crash tests (tests/faults)
+ * start servers of their own that flush at every commit, and check that a committed move survives a kill -9.
+ */
+const TEST_SERVER_ARGS = ['--innodb-flush-log-at-trx-commit=2']
 
 async function migrateAndLoadDemo(env: Record<string, string>) {
   const config = loadConfig({ ...process.env, ...env, NODE_ENV: 'test' })
@@ -129,15 +137,15 @@ async function main() {
   let stop = async () => {}
   try {
     if (beside) {
-      const primary = await prepareEnvironment('test', { database, reset: true })
-      const e2e = await prepareEnvironment('test', { database: `${database}_e2e`, reset: true })
+      const primary = await prepareEnvironment('test', { database, reset: true, serverArgs: TEST_SERVER_ARGS })
+      const e2e = await prepareEnvironment('test', { database: `${database}_e2e`, reset: true, serverArgs: TEST_SERVER_ARGS })
       stop = primary.stop
       await Promise.all([migrateAndLoadDemo({ ...env, ...primary.env }), migrateAndLoadDemo({ ...env, ...e2e.env })])
       runs.push({ projects: others, env: { ...env, ...primary.env }, resultsFile: resultsFile(database) })
       runs.push({ projects: ['e2e'], env: { ...env, ...e2e.env, LUMENYARD_CLIENT_DIST: outDir }, resultsFile: resultsFile(`${database}_e2e`) })
     } else {
       if (needsDb) {
-        const prepared = await prepareEnvironment('test', { database, reset: true })
+        const prepared = await prepareEnvironment('test', { database, reset: true, serverArgs: TEST_SERVER_ARGS })
         stop = prepared.stop
         Object.assign(env, prepared.env)
         await migrateAndLoadDemo(env)

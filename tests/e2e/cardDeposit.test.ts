@@ -81,7 +81,7 @@ describe('card deposit on the sales order screen', () => {
     expect((await approveAsShown(buyer, poId)).status).toBe(200)
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto(`/counter/sales-orders/${orderId}`)
       // 50 % of 760.75 = 380.375 → 380.38, half up to the cent (hand-worked; the admin's default percent)
       await poll(() => page.locator('[data-test="card-amount"]').inputValue()).toBe('380.38')
@@ -117,7 +117,7 @@ describe('card deposit on the sales order screen', () => {
     const page = await context.newPage()
     page.setDefaultTimeout(15_000)
     try {
-      await h.signIn(page, 't-counter-es', TEST_PASSWORD)
+      await h.signInByApi(page, 't-counter-es', TEST_PASSWORD)
       await page.goto(`/counter/sales-orders/${orderId}`)
       const amount = page.locator('[data-test="card-amount"]')
       await poll(() => amount.inputValue()).toBe('380.38')
@@ -191,7 +191,7 @@ describe('card deposit on the sales order screen', () => {
     for (const who of ['viewer', 'warehouse']) {
       const { page, context } = await h.newPage()
       try {
-        await h.signIn(page, who)
+        await h.signInByApi(page, who)
         await page.goto(`/counter/sales-orders/${orderId}`)
         await page.waitForLoadState('networkidle')
         expect(await page.locator('[data-test="card-start"]').count(), who).toBe(0)

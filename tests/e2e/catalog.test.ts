@@ -22,7 +22,7 @@ describe('catalog screens', () => {
       JOIN lots l ON l.id = sb.lot_id WHERE sb.item_id = ? AND sb.on_hand > 0`, [target.id])
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto('/stock/items')
       await page.locator('[data-test="catalog-grid"] .ag-row').first().waitFor()
       await page.locator('[data-test="catalog-search"]').fill(target.sku)
@@ -49,7 +49,7 @@ describe('catalog screens', () => {
     const context = await h.browser.newContext({ baseURL: h.baseUrl, viewport: { width: 1100, height: 1400 }, deviceScaleFactor: 2 })
     const page = await context.newPage()
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto('/stock/warehouses')
       await page.locator('[data-test="wh-HRY"]').click()
       await page.locator('[data-test="bin-labels-link"]').click()

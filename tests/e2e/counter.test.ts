@@ -38,7 +38,7 @@ describe('counter: a curved block shower from takeoff to saved bill', () => {
   it('refuses a radius too tight, swaps the block, closes the arc, lets the base follow, explains, draws and saves', { timeout: 240_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1440, height: 1000 } })
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto('/counter')
       await page.locator('[data-test="recent-jobs"]').waitFor()
       await page.locator('[data-test="start-takeoff"]').click()

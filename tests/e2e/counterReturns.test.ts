@@ -80,7 +80,7 @@ describe('returns at the counter', () => {
   it('the admin sets the window and the fee; bad numbers are refused beside the field', { timeout: 60_000 }, async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       const audited = () => countRows(h.ds, 'audit_entries', "action = 'settings.update' AND entity = 'app_settings' AND entity_id = 'sales'")
       const auditsBefore = await audited()
       await page.goto('/admin/selling-prices')
@@ -102,7 +102,7 @@ describe('returns at the counter', () => {
   it('the tax tab: every rate field is named, a bad rate is refused beside its own field, and nothing is saved', { timeout: 45_000 }, async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       const [w]: { code: string }[] = await h.ds.query('SELECT code FROM warehouses WHERE id = ?', [fx.warehouseId])
       const rateNow = async () => (await h.ds.query('SELECT rate_percent AS r FROM sales_tax_rates WHERE warehouse_id = ?', [fx.warehouseId]))[0].r
       await page.goto('/admin/selling-prices')
@@ -131,7 +131,7 @@ describe('returns at the counter', () => {
     await admin.patch('/api/sales-settings').set(CSRF).send({ returnWindowDays: 30, restockingPercent: '15' })
     const { page, context } = await h.newPage({ viewport: PHONE })
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto(`/counter/sales-orders/${orderId}`)
       await page.locator('[data-test="return-new"]').click()
       await page.locator('[data-test="return-dialog"]').waitFor()
@@ -181,7 +181,7 @@ describe('returns at the counter', () => {
   it('in Spanish at 412 px: too many refused beside the line, then a case of spacers back by cheque', { timeout: 90_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: PHONE })
     try {
-      await h.signIn(page, 't-counter-es', TEST_PASSWORD)
+      await h.signInByApi(page, 't-counter-es', TEST_PASSWORD)
       await page.goto(`/counter/sales-orders/${orderId}`)
       // The fixture's account has no e-mail address: the failed ready e-mail is said in Spanish, not in the log's words.
       expect(await page.locator('[data-test="ready-mail-failed"]').textContent()).toMatch(/no tiene correo electrónico/)

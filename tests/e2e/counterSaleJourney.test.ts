@@ -70,7 +70,7 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
     let shotPage: Page = page
     try {
       // 1. The quote from the bill, in the test's yard.
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto(`/counter/boms/${bomId}`)
       await page.locator('[data-test="quote-bill"]').click()
       await page.waitForURL(/\/counter\/quotes\/new\?bomId=/)
@@ -145,7 +145,7 @@ describe('a counter sale from the curved shower bill to a signed pickup ticket',
       const hand = await h.newPage({ viewport: { width: 412, height: 915 } })
       shotPage = hand.page
       try {
-        await h.signIn(hand.page, 'warehouse')
+        await h.signInByApi(hand.page, 'warehouse')
         await hand.page.goto(`/warehouse/pick/${list.id}`)
         for (let n = 0; n < shelf.size; n++) {
           const binText = (await hand.page.locator('[data-test="line-bin"]').textContent())!.trim()

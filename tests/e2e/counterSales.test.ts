@@ -52,7 +52,7 @@ describe('counter sales on a phone-width screen', () => {
     const page: Page = await context.newPage()
     page.setDefaultTimeout(15_000)
     try {
-      await h.signIn(page, 't-counter-es', TEST_PASSWORD)
+      await h.signInByApi(page, 't-counter-es', TEST_PASSWORD)
       await page.goto(`/counter/boms/${bomId}`)
       await page.locator('[data-test="quote-bill"]').click()
       await page.waitForURL(/\/counter\/quotes\/new\?bomId=/)

@@ -52,7 +52,7 @@ describe('a blind count on a phone, approved by the owner', () => {
   it('counts two bins without ever showing what the records say', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto(`/warehouse/counts/${countId}/count`)
       await page.locator('[data-test="count-handheld"]').waitFor()
       expect(await page.locator('[data-test="count-step"]').textContent()).toContain('Escanee la ubicación')
@@ -84,7 +84,7 @@ describe('a blind count on a phone, approved by the owner', () => {
   it('the owner sees the difference with its working and approves it: stock adjusts once', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1280, height: 860 } })
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto(`/warehouse/counts/${countId}`)
       await page.locator('[data-test="count-lines"]').waitFor()
       const row = page.locator('[data-test="count-lines"] tr', { hasText: block.sku })

@@ -20,7 +20,7 @@ describe('a form dialog', () => {
     const { page, context } = await h.newPage()
     const code = `DLG${Date.now() % 1e9}`
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto('/counter/customers')
       const opener = page.locator('[data-test="new-customer"]')
       await opener.click()

@@ -74,7 +74,7 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
   it('a stock adjustment on the handheld, in Spanish', { timeout: 60_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 'warehouse') // the demo's warehouse user reads Spanish
+      await h.signInByApi(page, 'warehouse') // the demo's warehouse user reads Spanish
       await page.goto(`/stock/adjust?binId=${stock.bins.A1}&itemId=${stock.itemId}`)
       await page.locator('[data-reason="damaged"]').click()
       const sent = writes(page)
@@ -113,7 +113,7 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
   it('a draft quote’s line quantity at the counter', { timeout: 30_000 }, async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       const made = await page.request.post('/api/quotes', {
         headers: { 'X-Lumenyard-Request': '1', 'Idempotency-Key': randomUUID() },
         data: { customerId: sales.customerId, warehouseId: sales.warehouseId, lines: [{ itemId: sales.block.id, qty: 12 }] },
@@ -151,7 +151,7 @@ describe('number fields refuse bad numbers beside the field and send nothing', (
   it('a new purchase order’s packs', { timeout: 30_000 }, async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'buyer')
+      await h.signInByApi(page, 'buyer')
       await page.goto('/purchasing/orders')
       await page.locator('[data-test="new-order"]').click()
       const dialog = page.locator('.el-dialog:visible')
@@ -174,7 +174,7 @@ describe('a decimal typed in Spanish', () => {
   it('reads the decimal comma and writes it back as the screens write numbers; asks about 1,500', { timeout: 30_000 }, async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 't-admin-es', TEST_PASSWORD)
+      await h.signInByApi(page, 't-admin-es', TEST_PASSWORD)
       await page.goto('/counter/settings')
       await page.locator('#tab-figures').click()
       const field = '[data-test="figure-groutDepthMm"]'
@@ -213,7 +213,7 @@ describe('the admin’s sales tax rates read as percentages', () => {
     ] as const) {
       const { page, context } = await h.newPage()
       try {
-        await h.signIn(page, user, password)
+        await h.signInByApi(page, user, password)
         await page.goto('/admin/selling-prices')
         await page.getByRole('tab', { name: tab }).click()
         const charged = (code: string) => page.locator(`[data-test="tax-charged-${code}"]`)

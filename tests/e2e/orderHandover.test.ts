@@ -67,7 +67,7 @@ describe('from the handheld pick to a signed pickup ticket', () => {
   it('the warehouse completes the pick on the phone; the order turns ready and the contractor is e-mailed', { timeout: 90_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto(`/warehouse/pick/${listId}`)
       await poll(() => page.locator('[data-test="line-bin"]').textContent()).toBe('C-01-1')
       await scan(page, 'B:C-01-1')
@@ -97,7 +97,7 @@ describe('from the handheld pick to a signed pickup ticket', () => {
   it('the clerk makes a pickup ticket, signs it with the mouse, and the printed ticket carries the signature', { timeout: 90_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1024, height: 900 } })
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto(`/counter/sales-orders/${orderId}`)
       await poll(() => page.locator('[data-test="order-status"]').getAttribute('data-status')).toBe('ready')
       await page.locator('[data-test="order-ready"]').waitFor()
@@ -160,7 +160,7 @@ describe('from the handheld pick to a signed pickup ticket', () => {
     expect(made.status).toBe(201)
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 't-counter-es', TEST_PASSWORD)
+      await h.signInByApi(page, 't-counter-es', TEST_PASSWORD)
       await page.goto(`/counter/tickets/${made.body.id}`)
       await poll(() => page.locator('[data-test="ticket-title"]').textContent()).toMatch(/Vale de entrega/)
       expect(await page.locator('[data-test="ticket-caution"]').textContent()).toMatch(/códigos de construcción locales/)
@@ -187,7 +187,7 @@ describe('from the handheld pick to a signed pickup ticket', () => {
   it('the sales order page at 412 px: its lines and how far each got read as cards, none in a region scrolled sideways', { timeout: 30_000 }, async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto(`/counter/sales-orders/${orderId}`)
       await page.locator('[data-test="fulfilment-lines"]').waitFor()
       // Nothing the clerk reads off the order (a quantity, what is held, what was handed over) sits in a column

@@ -27,7 +27,7 @@ describe('counter and pick lists', () => {
   it('makes a list with a backorder, follows the picking live, and prints a sheet that scans back', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       await page.goto('/counter/picking')
       await page.locator(`[data-test="make-${bom.bomId}"]`).click()
       await page.waitForURL(/\/counter\/picking\/new\//)

@@ -59,7 +59,7 @@ describe('printed barcodes decode with zbarimg', () => {
   it('the pick sheet: every bin and item barcode of a ten-line list', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto(`/warehouse/pick-lists/${listId}/sheet`)
       await page.locator('[data-test="sheet-lines"] [data-barcode]').first().waitFor()
       // Chromium's default print margins are about 0.4 in (common practice); Letter portrait as a yard prints it.

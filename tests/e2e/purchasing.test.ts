@@ -35,7 +35,7 @@ describe('purchasing in the browser', () => {
   it('suggestion → PO → export → e-mail → outbox → receiving with scans', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'buyer')
+      await h.signInByApi(page, 'buyer')
       await page.goto('/purchasing/ready-to-order')
       const row = page.locator('[data-test="suggestions-table"] tr', { hasText: f.block.sku })
       await row.locator('.el-checkbox').click()
@@ -68,7 +68,7 @@ describe('purchasing in the browser', () => {
 
     const admin = await h.newPage()
     try {
-      await h.signIn(admin.page, 'admin')
+      await h.signInByApi(admin.page, 'admin')
       await admin.page.goto('/admin/outbox')
       const entry = admin.page.locator('[data-test="outbox"] tr', { hasText: 'Purchase order' }).first()
       await expect.poll(() => entry.textContent()).toContain('.xlsx')
@@ -99,7 +99,7 @@ describe('purchasing in the browser', () => {
 
     const wh = await h.newPage({ viewport: { width: 1100, height: 1000 } })
     try {
-      await h.signIn(wh.page, 'warehouse')
+      await h.signInByApi(wh.page, 'warehouse')
       await wh.page.goto('/warehouse/receiving')
       await wh.page.locator('[data-test="receiving-list"] a', { hasText: `Vendor VA${f.tag}` }).first().click()
       await wh.page.waitForURL(/\/warehouse\/receiving\/\d+$/)

@@ -52,7 +52,7 @@ describe('receiving at the dock', () => {
   it('says why an order cannot be received, shows the server’s refusal, and prints lot labels that scan', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1100, height: 1000 } })
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       const post = page.locator('[data-test="post-receipt"]')
       const feedback = page.locator('[data-test="scan-feedback"]')
       const notice = page.locator('[data-test="not-receivable"]')

@@ -16,7 +16,7 @@ describe('reorder suggestions as the buyer', () => {
   it('opens the list and a line’s chart, and accepts the suggestion', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1400, height: 900 } })
     try {
-      await h.signIn(page, 'buyer')
+      await h.signInByApi(page, 'buyer')
       await page.goto('/purchasing/reorder')
       await page.locator('[data-test="reorder-grid"] .ag-row').first().waitFor()
       await page.locator('[data-test="filter-warehouse"]').click()
@@ -56,7 +56,7 @@ describe('reorder suggestions as the buyer', () => {
   it('sets an override with its reason from a line, and shows the ABC Pareto chart', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1400, height: 900 } })
     try {
-      await h.signIn(page, 'buyer')
+      await h.signInByApi(page, 'buyer')
       await page.goto(`/purchasing/reorder/policies?itemId=${fx.deadItemId}&warehouseId=${fx.warehouseId}`)
       const form = page.locator('[data-test="policy-form"]')
       await form.locator('[data-test="policy-overrideReorderPoint"] input').fill('40')

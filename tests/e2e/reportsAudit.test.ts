@@ -31,7 +31,7 @@ describe('reports', () => {
   it('opens, picks the dead stock report for one warehouse and exports it to a spreadsheet that reads back', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1280, height: 860 } })
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto(`/purchasing/reports?warehouseId=${wh.id}`)
       await page.locator('[data-test="report-tabs"] .el-tabs__item', { hasText: 'Dead and slow stock' }).click()
       await page.waitForURL(/tab=dead-stock/)
@@ -59,7 +59,7 @@ describe('reports', () => {
   it('on a phone offers the reports in a chooser, none cut off, and the page never scrolls sideways', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 412, height: 915 } })
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto('/purchasing/reports')
       await page.locator('[data-test="report-choice"]').waitFor()
       // Found on a phone: the tab strip ran past the edge and the last reports sat behind a sideways scroll.
@@ -92,7 +92,7 @@ describe('audit trail', () => {
     }
     const { page, context } = await h.newPage({ viewport: { width: 1280, height: 860 } })
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       // Today's entries only (the days filter is in the address), so the page doesn't first merge a year of ledger.
       const day = new Date().toISOString().slice(0, 10)
       await page.goto(`/admin/audit?from=${day}&to=${day}`)

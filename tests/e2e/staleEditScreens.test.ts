@@ -166,7 +166,7 @@ interface Tabs { context: BrowserContext; a: Page; b: Page }
 
 async function twoTabs(username: string, password?: string, viewport = { width: 1280, height: 900 }): Promise<Tabs> {
   const { page: a, context } = await h.newPage({ viewport })
-  await h.signIn(a, username, password)
+  await h.signInByApi(a, username, password)
   const b = await context.newPage()
   b.setDefaultTimeout(15_000)
   return { context, a, b }

@@ -22,7 +22,7 @@ describe('a takeoff edited in two tabs', () => {
     const { jobId } = await createCustomerAndJob(h.ds, `${fx.tag}T`)
     const { page: tabA, context } = await h.newPage({ viewport: { width: 1280, height: 900 } })
     try {
-      await h.signIn(tabA, 'counter')
+      await h.signInByApi(tabA, 'counter')
       const created = await context.request.post(`/api/jobs/${jobId}/takeoffs`, { headers: CSRF, data: { name: 'Porch wall', input: openingTakeoff(fx) } })
       expect(created.status()).toBe(201)
       const { id } = (await created.json()) as { id: number }

@@ -45,7 +45,7 @@ describe('stock screens for the warehouse crew', () => {
   it('adjusts an item’s stock with a reason and shows the new ledger row', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await receiveThroughApi(page)
       await page.goto('/stock')
       await page.locator('[data-test="home-adjust"]').waitFor()
@@ -100,7 +100,7 @@ describe('stock screens for the warehouse crew', () => {
   it('shows the ledger filtered by item from the address, and the overview', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto(`/stock/ledger?itemId=${fx.itemId}`)
       await poll(() => page.locator('[data-test="ledger-grid"] .ag-row').count()).toBe(2) // the receipt and the adjustment
       await h.screenshot(page, 'stock-ledger-item')
@@ -132,7 +132,7 @@ describe('stock screens for the warehouse crew', () => {
   it('opens the bin’s label sheet from the bins page', async () => {
     const { page, context } = await h.newPage()
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto(`/stock/bins?warehouseId=${fx.warehouses[0].id}`)
       await page.locator(`[data-bin="A-01-1"]`).waitFor()
       await h.screenshot(page, 'stock-bins')
@@ -157,7 +157,7 @@ describe('stock screens for the warehouse crew', () => {
       await poll(() => page.locator('.el-select-dropdown__item:visible').count()).toBe(0) // closed, not still fading
     }
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto('/stock/transfers')
       await page.locator('[data-test="transfer-ship"]').click()
       await pick('ship-from', w1.code)
@@ -200,7 +200,7 @@ describe('stock screens for the warehouse crew', () => {
   it('works on a warehouse tablet: controls at least 44 px tall', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 800, height: 1100 } })
     try {
-      await h.signIn(page, 'warehouse')
+      await h.signInByApi(page, 'warehouse')
       await page.goto(`/stock/move?fromBinId=${fx.bins.A1}&itemId=${fx.itemId}`)
       await page.locator('[data-test="move-review"]').waitFor()
       // source: WCAG 2.2 success criterion 2.5.5 Target Size (Enhanced): at least 44 by 44 CSS pixels.

@@ -31,7 +31,7 @@ describe('stock value as of a past day', () => {
   it('opens from the purchasing start page, keeps its day through a reload and fits a phone', async () => {
     const { page, context } = await h.newPage({ viewport: { width: 1440, height: 900 } })
     try {
-      await h.signIn(page, 'admin')
+      await h.signInByApi(page, 'admin')
       await page.goto('/purchasing')
       await page.locator('[data-test="tile-purchasing-stock-value"]').click()
       await page.locator('[data-test="valuation-total"]').waitFor()

@@ -21,7 +21,7 @@ describe('the editor with large panels', () => {
     const input = { walls: Array.from({ length: 2 }, (_, i) => ({ ...wall, name: `Panel ${i + 1}` })), looseLines: [] }
     const { page, context } = await h.newPage({ viewport: { width: 1440, height: 1000 } })
     try {
-      await h.signIn(page, 'counter')
+      await h.signInByApi(page, 'counter')
       const created = await context.request.post(`/api/jobs/${jobId}/takeoffs`, { headers: CSRF, data: { name: 'Warehouse partition', input } })
       expect(created.status()).toBe(201)
       const { id } = (await created.json()) as { id: number }

@@ -31,8 +31,29 @@ export interface E2eHarness {
   browser: Browser
   newPage(opts?: { viewport?: { width: number; height: number } }): Promise<{ page: Page; context: BrowserContext }>
   signIn(page: Page, username: string, password?: string): Promise<void>
+  signInByApi(page: Page, username: string, password?: string): Promise<void>
   screenshot(page: Page, name: string): Promise<string>
   close(): Promise<void>
+}
+
+let launched: Promise<Browser> | undefined
+
+/**
+ * One Chromium for the browser test files of a worker: they run one after another in one worker that keeps its
+ * modules (vitest.config.ts), and launching and closing Chromium for every file took seconds a file on a busy
+ * machine. Each file's pages live in browser contexts of their own (a fresh profile each: cookies, storage, cache),
+ * closed with the file's harness; playwright closes the browser when the worker exits. A browser that went away
+ * (a crash) is launched again for the next file.
+ */
+async function sharedBrowser(): Promise<Browser> {
+  const running = await launched?.catch(() => undefined)
+  if (running?.isConnected()) return running
+  launched = chromium.launch({
+    executablePath: process.env.LUMENYARD_CHROMIUM ?? '/usr/bin/chromium',
+    // launch() gives every run a fresh, empty profile of its own.
+    args: CHROMIUM_ARGS,
+  })
+  return launched
 }
 
 /** overrides: environment for this harness only (e.g. NODE_ENV=production for a first-run test). */
@@ -46,11 +67,7 @@ export async function startE2e(overrides: Partial<NodeJS.ProcessEnv> = {}): Prom
   })
   const address = server.address()
   const baseUrl = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`
-  const browser = await chromium.launch({
-    executablePath: process.env.LUMENYARD_CHROMIUM ?? '/usr/bin/chromium',
-    // launch() gives every run a fresh, empty profile of its own.
-    args: CHROMIUM_ARGS,
-  })
+  const browser = await sharedBrowser()
   mkdirSync(SCREENSHOTS, { recursive: true })
 
   return {
@@ -71,13 +88,24 @@ export async function startE2e(overrides: Partial<NodeJS.ProcessEnv> = {}): Prom
       await page.locator('[data-test="sign-in"]').click()
       await page.locator('[data-test="greeting"]').waitFor()
     },
+    /**
+     * Signs in as the sign-in form does (the same request), in the page's own browser context, without loading the
+     * sign-in page and the start page first: for a test that opens a screen of its own next (a page.goto). A
+     * session of its own, as the form gives. The form itself is walked by signIn, in the tests that read the start
+     * page or the sign-in (shell, the start page, session resume, the Spanish screens, the walks of every screen).
+     */
+    async signInByApi(page, username, password = DEMO_PASSWORD) {
+      const res = await page.request.post('/api/session', { headers: { 'X-Lumenyard-Request': '1' }, data: { username, password } })
+      if (res.status() !== 200) throw new Error(`sign-in as ${username} failed: ${res.status()} ${await res.text()}`)
+    },
     async screenshot(page, name) {
       const file = path.join(SCREENSHOTS, `${name}.png`)
       await page.screenshot({ path: file, fullPage: true, timeout: 60_000 }) // a record, not a check: a busy machine may take long
       return file
     },
     async close() {
-      await browser.close()
+      // The file's own contexts, left open or not; the browser stays for the next file.
+      await Promise.all(browser.contexts().map((c) => c.close()))
       await new Promise<void>((resolve) => {
         server.close(() => resolve())
         server.closeAllConnections()

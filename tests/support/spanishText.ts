@@ -22,16 +22,35 @@ function leaves(value: unknown, prefix: string, out: Map<string, string>): Map<s
   return out
 }
 const escape = (s: string) => s.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')
+
+/**
+ * One form of a message as a whole-text test. The regular expression is the definition; the rest only skips
+ * running it where it cannot match (thousands of forms against every text run on a screen took seconds a
+ * screen): a form without values matches only its own text, and one with values only a text that holds its
+ * longest fixed part.
+ */
+interface Form { re: RegExp; exact: string | null; holds: string }
+const matches = (f: Form, run: string) => (f.exact !== null ? run === f.exact : run.includes(f.holds) && f.re.test(run))
+
 /** A message's plural forms as whole-text patterns: named values match any text, {'x'} literals are x. */
 // A form with values needs 8 letters of its own ("{n} tubes" would match an item's name).
-function patterns(text: string): RegExp[] {
+function patterns(text: string): Form[] {
   const letters = (form: string) => form.replace(/\{[^}]*\}/g, '').replace(/[^\p{L}]/gu, '').length
   return text.split('|').map((form) => form.trim()).filter((form) => letters(form) >= (/\{\w+\}/.test(form) ? 8 : 4))
-    .map((form) => new RegExp('^' + form.split(/(\{[^}]*\})/).map((part) => {
-      if (/^\{'.*'\}$/.test(part)) return escape(part.slice(2, -2))
-      if (/^\{\w+\}$/.test(part)) return '.+?'
-      return escape(part.replace(/\s+/g, ' '))
-    }).join('') + '$', 'u'))
+    .map((form) => {
+      // Each part as the text it stands for, or null for a named value.
+      const parts = form.split(/(\{[^}]*\})/).map((part) => {
+        if (/^\{'.*'\}$/.test(part)) return part.slice(2, -2)
+        if (/^\{\w+\}$/.test(part)) return null
+        return part.replace(/\s+/g, ' ')
+      })
+      const fixed = parts.filter((p) => p !== null)
+      return {
+        re: new RegExp('^' + parts.map((p) => (p === null ? '.+?' : escape(p))).join('') + '$', 'u'),
+        exact: fixed.length === parts.length ? fixed.join('') : null,
+        holds: fixed.reduce((a, b) => (b.length > a.length ? b : a), ''),
+      }
+    })
 }
 
 const enLeaves = leaves(en, '', new Map())
@@ -39,11 +58,26 @@ const esLeaves = leaves(es, '', new Map())
 const spanish = [...esLeaves.values()].flatMap(patterns)
 // English messages that read differently in Spanish, and that no Spanish message also reads as.
 const english = [...enLeaves].filter(([key, text]) => esLeaves.get(key) !== text)
-  .flatMap(([key, text]) => patterns(text).map((re) => ({ key, re })))
+  .flatMap(([key, text]) => patterns(text).map((form) => ({ key, form })))
 // The libraries' own default English (from memory): the grid's empty and loading overlays, Element Plus's empty table.
 const libraryEnglish = [/^No Rows To Show$/, /^Loading\.\.\.$/, /^No Data$/, /^Page Size:$/, /^Select$/]
 const AREAS = Object.keys(en).join('|')
 const rawKey = new RegExp(`^(${AREAS})(\\.[A-Za-z0-9_]+)+$`)
+
+/** How a text run reads: the same text reads the same on every screen, so each is worked out once per file. */
+const readings = new Map<string, { isSpanish: boolean; englishKey: string | undefined; library: boolean }>()
+function readRun(run: string) {
+  let r = readings.get(run)
+  if (!r) {
+    r = {
+      isSpanish: spanish.some((f) => matches(f, run)),
+      englishKey: english.find(({ form }) => matches(form, run))?.key,
+      library: libraryEnglish.some((re) => re.test(run)),
+    }
+    readings.set(run, r)
+  }
+  return r
+}
 
 export interface ScreenText { english: string[]; keys: string[]; spanish: number; matched: number }
 
@@ -69,13 +103,12 @@ export async function screenText(page: Page): Promise<ScreenText> {
   })
   const result: ScreenText = { english: [], keys: [], spanish: 0, matched: 0 }
   for (const run of runs) {
+    const { isSpanish, englishKey, library } = readRun(run)
     if (rawKey.test(run)) result.keys.push(run)
-    const isSpanish = spanish.some((re) => re.test(run))
-    const englishHit = english.find(({ re }) => re.test(run))
     if (isSpanish) result.spanish++
-    if (isSpanish || englishHit) result.matched++
-    if (!isSpanish && englishHit) result.english.push(`${run}  (${englishHit.key})`)
-    if (libraryEnglish.some((re) => re.test(run))) result.english.push(`${run}  (library default)`)
+    if (isSpanish || englishKey !== undefined) result.matched++
+    if (!isSpanish && englishKey !== undefined) result.english.push(`${run}  (${englishKey})`)
+    if (library) result.english.push(`${run}  (library default)`)
   }
   return result
 }

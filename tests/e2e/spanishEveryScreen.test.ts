@@ -2,7 +2,8 @@
 // router knows (the walk of tests/support/routeWalk.ts: each screen once, by the role that uses it; the warehouse
 // crew's on a 412 px phone), the main dialogs open, and the buyer's reorder drawer with its working and inputs.
 // On each, no English message of the app (where the Spanish differs), no raw message key and no library default
-// English may be visible (tests/support/spanishText.ts).
+// English may be visible (tests/support/spanishText.ts), and no text box's hint may be cut off (the Spanish is
+// the longer of the two: "Número de vale o de p…" reads as nothing).
 // common practice: a person who chose Spanish reads Spanish on every screen, errors and empty states included.
 import bcrypt from 'bcryptjs'
 import type { Page } from 'playwright-core'
@@ -12,6 +13,7 @@ import { User } from '../../server/entities/User.js'
 import { TEST_PASSWORD } from '../support/apiHarness.js'
 import { startE2e, type E2eHarness } from '../support/browser.js'
 import { byRole, MAIN_DIALOGS, openInApp, RouteSamples, routeTable, settle, type WalkRoute } from '../support/routeWalk.js'
+import { placeholdersCutOff } from '../support/layoutChecks.js'
 import { screenText } from '../support/spanishText.js'
 import { walkRecords } from '../support/walkRecords.js'
 import { TEST_HASH_COST } from '../support/testHashCost.js'
@@ -78,6 +80,7 @@ describe('every screen in Spanish', () => {
         await openInApp(page, path)
         await samples.harvest(page)
         await problemsOn(page, `${route.name} (${path})`, problems)
+        for (const cut of await placeholdersCutOff(page, 'input[placeholder], textarea[placeholder]')) problems.push(`${route.name} (${path}): hint cut off, ${cut}`)
         visited++
         const opener = MAIN_DIALOGS[route.name]
         if (opener) {

@@ -71,7 +71,6 @@ interface Row {
   loadAverage: number[]
 }
 
-
 const rows: Row[] = []
 const log = (line: string) => console.log(line)
 

@@ -26,10 +26,7 @@ export async function sqlOn<T = unknown>(em: EntityManager, sql: string, params:
   const runner = em.queryRunner
   if (!runner || runner.isReleased || !runner.isTransactionActive || !isMysql(em)) return em.query(sql, params as unknown[])
   let conn = connections.get(runner)
-  if (!conn) {
-    conn = (await runner.connect()) as CallbackConnection
-    connections.set(runner, conn)
-  }
+  if (!conn) connections.set(runner, (conn = (await runner.connect()) as CallbackConnection))
   const c = conn
   return new Promise<T>((resolve, reject) => {
     c.query(sql, params as unknown[], (err, result) => (err ? reject(err) : resolve(result as T)))

@@ -100,24 +100,25 @@ async function checkChunk(em: EntityManager, importId: number | null, sheet: Par
       else when = monthText
     }
     const qty = rowQuantity(r.values.quantity, item, sku, 100_000_000, { add })
+    // A month total ('YYYY-MM') or a day ('YYYY-MM-DD').
+    const byMonth = when?.length === 7
     if (item && warehouse && when) {
       const key = `${item.id}:${warehouse.id}:${when}`
-      const byMonth = when.length === 7
       const month = when.slice(0, 7)
+      const monthKey = `${item.id}:${warehouse.id}:${month}`
       const again = carried.repeated(key, r.row)
       if (again) errors.push(again)
       // A month given as a total and a day of it given too (in either order) would count that day's use twice.
-      const first = carried.months.get(`${item.id}:${warehouse.id}:${month}`)
-      if (!first) carried.months.set(`${item.id}:${warehouse.id}:${month}`, { row: r.row, byMonth })
+      const first = carried.months.get(monthKey)
+      if (!first) carried.months.set(monthKey, { row: r.row, byMonth })
       else if (first.byMonth !== byMonth) add(byMonth ? 'month' : 'day', problem('import_usage_day_and_month', { sku, warehouse: warehouse.code, month, row: first.row }))
       // History already held for that day (or any day of that month) is never added to a second time, nor a day of
       // a month held as a total.
       if (held.has(key)) add(byMonth ? 'month' : 'day', problem('import_usage_overlap', { sku, warehouse: warehouse.code, period: when }))
-      else if (!byMonth && held.has(`${item.id}:${warehouse.id}:${month} spread`)) add('day', problem('import_usage_month_held', { sku, warehouse: warehouse.code, month }))
+      else if (!byMonth && held.has(`${monthKey} spread`)) add('day', problem('import_usage_month_held', { sku, warehouse: warehouse.code, month }))
     }
     const preview = { row: r.row, label: sku || null, place: warehouse && when ? `${warehouse.code} ${when}` : null, qty, errors }
     if (errors.length || !item || !warehouse || !when || !qty) return { preview, write: null }
-    const byMonth = when.length === 7
     const days = byMonth ? spreadOverMonth(when, qty) : [{ date: when, qty }]
     return { preview, write: { itemId: item.id, warehouseId: warehouse.id, days, spreadMonth: byMonth ? when : null } }
   })

@@ -119,7 +119,7 @@ export async function applyMoves(em: EntityManager, actor: StockActor, specs: re
   )
   const inserted = await sqlOn<{ insertId: number | string }>(
     em,
-    INSERT_MOVES + (moves.length === 1 ? MOVE_ROW : moves.map(() => MOVE_ROW).join(', ')),
+    INSERT_MOVES + moves.map(() => MOVE_ROW).join(', '),
     moves.flatMap((m) => [m.at, m.moveType, m.itemId, m.warehouseId, m.binId, m.lotId, m.qty, m.unitCost, m.docType, m.docId, m.docLineId, m.reason, m.note, m.batchId, m.userId]),
   )
   // One multi-row INSERT of a known row count gets consecutive ids from the first in every InnoDB
